@@ -1,0 +1,120 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import morgan from 'morgan';
+import path from 'node:path';
+import fs from 'node:fs';
+import { toNodeHandler } from 'better-auth/node';
+import { sql } from 'drizzle-orm';
+import type { Db } from './db/client.ts';
+import type { Env } from './env.ts';
+import type { Mailer } from './integrations/mailer.ts';
+import { createAuth, type Auth } from './auth.ts';
+import { errorHandler } from './http/error-handler.ts';
+import { authInput } from './http/auth-input.ts';
+import { loadSession } from './http/auth-guards.ts';
+import { sameOrigin } from './http/same-origin.ts';
+import { notFound } from './http/app-error.ts';
+import { accountRouter } from './features/account/account.routes.ts';
+import { adminMailRouter } from './features/admin/admin-mail.routes.ts';
+import { featureRouters } from './features/index.ts';
+import { withOurErrorShape } from './http/auth-errors.ts';
+
+export type AppDeps = {
+  db: Db;
+  env: Env;
+  mailer: Mailer;
+  /** the clock, injectable for tests */
+  now: () => number;
+  auth: Auth;
+};
+
+export type CreateAppInput = Omit<AppDeps, 'auth' | 'now'> & { now?: () => number; clientDir?: string };
+
+/** Builds the Express app; never listens (tests start it on port 0, server/index.ts on PORT). */
+export function createApp(input: CreateAppInput): Express & { locals: { deps: AppDeps } } {
+  const deps: AppDeps = { ...input, now: input.now ?? Date.now, auth: createAuth(input) };
+  const { env } = deps;
+  const app = express();
+  app.locals.deps = deps;
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'frame-src': ["'self'"],
+          'object-src': ["'none'"],
+          'form-action': ["'self'"],
+          'upgrade-insecure-requests': env.production ? [] : null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+      strictTransportSecurity: env.production,
+    }),
+  );
+  if (env.LOG_REQUESTS && env.NODE_ENV !== 'test') app.use(morgan(env.production ? 'combined' : 'dev'));
+
+  app.use('/api', sameOrigin([env.baseUrl, 'http://localhost:5173', 'http://127.0.0.1:5173']));
+
+  // better-auth reads its own bodies; our front guard validates and limits first
+  app.use('/api/auth', authInput({ signInFailuresPerMinute: 5 }));
+  app.all('/api/auth/{*any}', toNodeHandler(withOurErrorShape(deps.auth)));
+
+  // routes that need the raw body (payment webhooks) mount before the JSON parser
+  const routers = featureRouters(deps);
+  for (const r of routers.raw) app.use(r.path, r.router);
+
+  app.use(express.json({ limit: '256kb' }));
+  app.use('/api', loadSession(deps.auth));
+
+  app.get('/api/health', (_req, res) => {
+    deps.db.get(sql`select 1`);
+    res.json({ ok: true });
+  });
+  app.get('/api/config', (_req, res) => {
+    res.json(
+      env.demoMode
+        ? {
+            demoMode: true,
+            demoPassword: 'namesake-demo',
+            demoAccounts: [
+              { email: 'dana@namesake.test', role: 'shopper', label: 'Dana, a parent buying gifts' },
+              { email: 'fern@namesake.test', role: 'seller', label: 'Fern & Fable Goods' },
+              { email: 'comet@namesake.test', role: 'seller', label: 'Little Comet Print Co.' },
+              { email: 'admin@namesake.test', role: 'admin', label: 'Namesake moderator' },
+            ],
+          }
+        : { demoMode: false },
+    );
+  });
+  app.use('/api', accountRouter(deps));
+  app.use('/api/admin/mail', adminMailRouter(deps));
+  for (const r of routers.json) app.use(r.path, r.router);
+
+  app.use('/api', (_req, _res) => {
+    throw notFound('No such API route.');
+  });
+
+  if (input.clientDir && fs.existsSync(path.join(input.clientDir, 'index.html'))) {
+    const dir = input.clientDir;
+    app.use(express.static(dir, { index: false, maxAge: '1h', setHeaders: (res, file) => {
+      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    } }));
+    const indexHtml = fs.readFileSync(path.join(dir, 'index.html'), 'utf8');
+    app.get('/{*any}', (_req, res) => {
+      res.type('html').setHeader('Cache-Control', 'no-cache');
+      res.send(indexHtml);
+    });
+  }
+
+  app.use(errorHandler);
+  return app as Express & { locals: { deps: AppDeps } };
+}

@@ -1,0 +1,24 @@
+import Database from 'better-sqlite3';
+import { drizzle } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import * as schema from './schema.ts';
+
+export type Db = ReturnType<typeof openDb>['db'];
+
+const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../drizzle');
+
+/** Opens the SQLite file with WAL, foreign keys and a busy timeout, and applies migrations. */
+export function openDb(file: string) {
+  fs.mkdirSync(path.dirname(file), { recursive: true });
+  const sqlite = new Database(file);
+  sqlite.pragma('journal_mode = WAL');
+  sqlite.pragma('foreign_keys = ON');
+  sqlite.pragma('busy_timeout = 5000');
+  sqlite.pragma('synchronous = NORMAL');
+  const db = drizzle(sqlite, { schema });
+  migrate(db, { migrationsFolder });
+  return { db, sqlite };
+}

@@ -1,0 +1,58 @@
+// The invented demo scenario of PRODUCT.md. Runs when the database has no users.
+import crypto from 'node:crypto';
+import { eq, sql } from 'drizzle-orm';
+import type { AppDeps } from '../app.ts';
+import { shops, user } from './schema.ts';
+
+export const DEMO_PASSWORD = 'namesake-demo';
+
+const ACCOUNTS = [
+  { email: 'dana@namesake.test', name: 'Dana Whitlock', role: 'shopper' },
+  { email: 'fern@namesake.test', name: 'Fern Okafor', role: 'seller' },
+  { email: 'comet@namesake.test', name: 'Cass Merriweather', role: 'seller' },
+  { email: 'harbour@namesake.test', name: 'Hal Brennan', role: 'seller' },
+  { email: 'admin@namesake.test', name: 'Ada Moderator', role: 'admin' },
+] as const;
+
+const SHOPS = [
+  { owner: 'fern@namesake.test', name: 'Fern & Fable Goods', slug: 'fern-and-fable-goods', state: 'live', processingDays: 3, shippingMinor: 450, pressType: 'clamshell',
+    description: 'Totes and drawstring bags with names and woodland motifs, pressed by hand in a small studio.' },
+  { owner: 'comet@namesake.test', name: 'Little Comet Print Co.', slug: 'little-comet-print-co', state: 'live', processingDays: 4, shippingMinor: 395, pressType: 'handheld',
+    description: "Kids' tees and zip pouches with bright names, rockets and sea creatures." },
+  { owner: 'harbour@namesake.test', name: 'Harbour Thread', slug: 'harbour-thread', state: 'in_review', processingDays: 5, shippingMinor: 500, pressType: 'clamshell',
+    description: 'Seaside-themed bags and pouches. New shop, waiting for review.' },
+] as const;
+
+export function isEmpty(deps: Pick<AppDeps, 'db'>): boolean {
+  return (deps.db.get<{ n: number }>(sql`select count(*) as n from user`)?.n ?? 0) === 0;
+}
+
+export type SeedHook = (deps: AppDeps, ctx: { userIds: Record<string, string>; shopIds: Record<string, string> }) => Promise<void> | void;
+
+/** Later features add their part of the demo (listings, orders …) here, in order. */
+const hooks: SeedHook[] = [];
+export function registerSeedHook(hook: SeedHook) {
+  hooks.push(hook);
+}
+
+export async function seedDemo(deps: AppDeps): Promise<void> {
+  const userIds: Record<string, string> = {};
+  for (const a of ACCOUNTS) {
+    const res = await deps.auth.api.signUpEmail({ body: { email: a.email, password: DEMO_PASSWORD, name: a.name } });
+    userIds[a.email] = res.user.id;
+    deps.db.update(user).set({ role: a.role, emailVerified: true }).where(eq(user.id, res.user.id)).run();
+  }
+  const shopIds: Record<string, string> = {};
+  const at = deps.now();
+  for (const s of SHOPS) {
+    const id = crypto.randomUUID();
+    shopIds[s.slug] = id;
+    deps.db.insert(shops).values({
+      id, ownerId: userIds[s.owner], name: s.name, slug: s.slug, state: s.state, description: s.description,
+      processingDays: s.processingDays, shippingMinor: s.shippingMinor, pressType: s.pressType,
+      returnPolicy: 'Personalised items can be returned only if they arrive damaged or with a mistake on our side. Tell us within 14 days.',
+      createdAt: at, updatedAt: at,
+    }).run();
+  }
+  for (const hook of hooks) await hook(deps, { userIds, shopIds });
+}

@@ -1,0 +1,18 @@
+import { Router } from 'express';
+import { openShopSchema } from '../../../shared/schemas/auth.ts';
+import { validate } from '../../http/validate.ts';
+import { currentUser, requireUser } from '../../http/auth-guards.ts';
+import type { AppDeps } from '../../app.ts';
+import { getMe, openShop } from './account.service.ts';
+
+export function accountRouter(deps: AppDeps): Router {
+  const r = Router();
+  r.get('/me', requireUser, (req, res) => {
+    res.json(getMe(deps.db, currentUser(req)));
+  });
+  r.post('/shops', requireUser, validate({ body: openShopSchema }), (req, res) => {
+    const shop = openShop(deps, currentUser(req), req.body);
+    res.status(201).json({ shop });
+  });
+  return r;
+}

@@ -1,0 +1,60 @@
+import type { RequestHandler, Request } from 'express';
+import { fromNodeHeaders } from 'better-auth/node';
+import { eq } from 'drizzle-orm';
+import type { Auth } from '../auth.ts';
+import type { Db } from '../db/client.ts';
+import { shops } from '../db/schema.ts';
+import type { Role } from '../../shared/schemas/auth.ts';
+import { forbidden, unauthorized } from './app-error.ts';
+
+export type SessionUser = { id: string; email: string; name: string; role: Role };
+export type ShopRow = typeof shops.$inferSelect;
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    /** set by `loadSession` when the request carries a valid session cookie */
+    user?: SessionUser;
+    sessionId?: string;
+  }
+}
+
+const asRole = (r: unknown): Role => (r === 'seller' || r === 'admin' ? r : 'shopper');
+
+/** Reads the session cookie (if any) through better-auth and puts the user on `req.user`. */
+export function loadSession(auth: Auth): RequestHandler {
+  return async (req, _res, next) => {
+    const result = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
+    if (result && !result.user.banned) {
+      req.user = { id: result.user.id, email: result.user.email, name: result.user.name, role: asRole(result.user.role) };
+      req.sessionId = result.session.id;
+    }
+    next();
+  };
+}
+
+export const requireUser: RequestHandler = (req, _res, next) => {
+  if (!req.user) throw unauthorized();
+  next();
+};
+
+/** 401 for a guest; 403 when the user has none of the roles. An admin passes every role check. */
+export function requireRole(...roles: Role[]): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.user) throw unauthorized();
+    if (req.user.role !== 'admin' && !roles.includes(req.user.role)) throw forbidden();
+    next();
+  };
+}
+
+export function currentUser(req: Request): SessionUser {
+  if (!req.user) throw unauthorized();
+  return req.user;
+}
+
+/** The shop the signed-in seller owns; 403 when they have none. Everything a seller touches is scoped by it. */
+export function ownShop(db: Db, req: Request): ShopRow {
+  const user = currentUser(req);
+  const shop = db.select().from(shops).where(eq(shops.ownerId, user.id)).get();
+  if (!shop) throw forbidden('Open a shop first.');
+  return shop;
+}

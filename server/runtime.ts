@@ -1,0 +1,67 @@
+// Wires env → database → fakes → mailer → app. Used by server/index.ts and the e2e/bench launchers.
+import fs from 'node:fs';
+import path from 'node:path';
+import type { AddressInfo } from 'node:net';
+import type { Server } from 'node:http';
+import { loadEnv, type Env } from './env.ts';
+import { openDb } from './db/client.ts';
+import { createMailer } from './integrations/mailer.ts';
+import { createApp } from './app.ts';
+import { isEmpty, seedDemo } from './db/seed.ts';
+import { startMailFake } from '../fakes/mail/server.ts';
+
+export type Running = { url: string; env: Env; stop(): Promise<void> };
+
+export async function startNamesake(opts: { envSource?: Record<string, string | undefined>; clientDir?: string; seed?: boolean; log?: (s: string) => void } = {}): Promise<Running> {
+  const log = opts.log ?? ((s: string) => console.log(s));
+  let env = loadEnv(opts.envSource ?? process.env);
+  fs.mkdirSync(env.dataDir, { recursive: true });
+  const closers: Array<() => Promise<void> | void> = [];
+
+  if (env.startMailFake) {
+    const mail = await startMailFake({ port: env.SMTP_PORT, dir: env.mailDir });
+    closers.push(() => mail.close());
+    env = { ...env, SMTP_PORT: mail.port, SMTP_HOST: '127.0.0.1' };
+    log(`  mail fake       smtp://127.0.0.1:${mail.port} (stored in ${path.relative(process.cwd(), env.mailDir) || env.mailDir})`);
+  }
+  const extra = await startExtraFakes(env, log);
+  env = extra.env;
+  closers.push(...extra.closers);
+
+  const { db, sqlite } = openDb(env.dbFile);
+  const mailer = createMailer(env);
+  const app = createApp({ db, env, mailer, clientDir: opts.clientDir });
+  if ((opts.seed ?? true) && isEmpty({ db })) {
+    log('  seeding the demo scenario …');
+    await seedDemo(app.locals.deps);
+  }
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(env.PORT, env.HOST, () => resolve(s));
+  });
+  const port = (server.address() as AddressInfo).port;
+  const url = `http://localhost:${port}`;
+  let stopping: Promise<void> | null = null;
+  return {
+    url,
+    env,
+    stop() {
+      // finish in-flight requests, then close fakes and the database
+      stopping ??= (async () => {
+        await new Promise<void>((resolve) => {
+          server.close(() => resolve());
+          server.closeIdleConnections();
+          setTimeout(() => server.closeAllConnections(), 5000).unref();
+        });
+        for (const c of closers.reverse()) await c();
+        mailer.close();
+        sqlite.close();
+      })();
+      return stopping;
+    },
+  };
+}
+
+/** The payment fake joins here once it exists (fakes/stripe). */
+async function startExtraFakes(env: Env, _log: (s: string) => void): Promise<{ env: Env; closers: Array<() => Promise<void>> }> {
+  return { env, closers: [] };
+}
