@@ -1,0 +1,8 @@
+// `npm run db:migrate`: applies drizzle/ migrations to DATA_DIR's database (start-up does this too).
+import { loadEnv } from '../server/env.ts';
+import { openDb } from '../server/db/client.ts';
+
+const env = loadEnv();
+const { sqlite } = openDb(env.dbFile);
+sqlite.close();
+console.log(`migrated ${env.dbFile}`);
