@@ -27,6 +27,8 @@ const schema = z.object({
   STRIPE_WEBHOOK_SECRET: z.string().default('whsec_namesake_local'),
   /** start the local Stripe fake (default: yes when STRIPE_API_BASE is on this machine) */
   STRIPE_FAKE: bool.optional(),
+  /** port of the local Stripe fake (default: the port in STRIPE_API_BASE; 0 = any free port) */
+  STRIPE_FAKE_PORT: z.coerce.number().int().min(0).max(65535).optional(),
   PLATFORM_FEE_BPS: z.coerce.number().int().min(0).max(5000).default(800),
   LOG_REQUESTS: bool.default(true),
 });

@@ -40,6 +40,7 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
   });
   const port = (server.address() as AddressInfo).port;
   const url = `http://localhost:${port}`;
+  extra.onListening(`http://127.0.0.1:${port}`);
   let stopping: Promise<void> | null = null;
   return {
     url,
@@ -61,7 +62,16 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
   };
 }
 
-/** The payment fake joins here once it exists (fakes/stripe). */
-async function startExtraFakes(env: Env, _log: (s: string) => void): Promise<{ env: Env; closers: Array<() => Promise<void>> }> {
-  return { env, closers: [] };
+/** The local payment fake (fakes/stripe), when STRIPE_API_BASE points at this machine. */
+async function startExtraFakes(env: Env, log: (s: string) => void): Promise<{ env: Env; closers: Array<() => Promise<void>>; onListening: (appUrl: string) => void }> {
+  if (!env.startStripeFake) return { env, closers: [], onListening: () => {} };
+  const { startStripeFake } = await import('../fakes/stripe/server.ts');
+  const port = env.STRIPE_FAKE_PORT ?? Number(new URL(env.STRIPE_API_BASE).port || 12111);
+  const fake = await startStripeFake({ port, dataDir: path.join(env.dataDir, 'stripe'), webhookSecret: env.STRIPE_WEBHOOK_SECRET });
+  log(`  payment fake    ${fake.url} (test cards only; state in ${path.join(env.dataDir, 'stripe')})`);
+  return {
+    env: { ...env, STRIPE_API_BASE: fake.url },
+    closers: [() => fake.close()],
+    onListening: (appUrl) => fake.setWebhookUrl(`${appUrl}/api/payments/webhook`),
+  };
 }
