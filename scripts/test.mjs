@@ -55,7 +55,7 @@ if (only !== 'unit') {
   } else {
     ok = run('production build (vite build)', node, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']) && ok;
     const e2eJson = path.join(out, 'e2e.json');
-    ok = run('browser tests (Playwright, Chromium)', node, ['node_modules/@playwright/test/cli.js', 'test'], { PLAYWRIGHT_JSON_OUTPUT_NAME: e2eJson }) && ok;
+    ok = run('browser tests (Playwright, Chromium)', node, ['node_modules/@playwright/test/cli.js', 'test', '--config', 'e2e/playwright.config.ts'], { PLAYWRIGHT_JSON_OUTPUT_NAME: e2eJson }) && ok;
     if (fs.existsSync(e2eJson)) {
       const s = JSON.parse(fs.readFileSync(e2eJson, 'utf8')).stats ?? {};
       counts.passed += (s.expected ?? 0) + (s.flaky ?? 0);

@@ -9,7 +9,7 @@ process.env.E2E_DATA_DIR ??= path.join(os.tmpdir(), `namesake-e2e-${port}`);
 const baseURL = `http://localhost:${port}`;
 
 export default defineConfig({
-  testDir: 'e2e',
+  testDir: '.',
   fullyParallel: false,
   workers: 1,
   retries: 0,
@@ -28,6 +28,7 @@ export default defineConfig({
   projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'], channel: undefined } }],
   webServer: {
     command: 'node scripts/e2e-server.mjs',
+    cwd: process.cwd(),
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 120_000,
