@@ -4,6 +4,7 @@ import { admin } from 'better-auth/plugins';
 import type { Db } from './db/client.ts';
 import * as authSchema from './db/auth-schema.ts';
 import type { Env } from './env.ts';
+import { CLIENT_IP_HEADER } from './http/auth-input.ts';
 import { mailLayout, escapeHtml, type Mailer } from './integrations/mailer.ts';
 
 export type AuthDeps = { db: Db; env: Env; mailer: Mailer };
@@ -43,6 +44,7 @@ export function createAuth({ db, env, mailer }: AuthDeps) {
       customRules: { '/sign-in/email': { window: 60, max: 30 }, '/request-password-reset': { window: 60, max: 5 } },
     },
     advanced: {
+      ipAddress: { ipAddressHeaders: [CLIENT_IP_HEADER] },
       useSecureCookies: env.production,
       defaultCookieAttributes: { httpOnly: true, sameSite: 'lax', secure: env.production },
     },

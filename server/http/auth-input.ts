@@ -9,8 +9,16 @@ import { validate } from './validate.ts';
  * (OWASP ASVS 6.3.1) — five failures a minute for one e-mail, then 429 until the minute is over,
  * so an attacker is slowed without locking the real user out for long.
  */
+export const CLIENT_IP_HEADER = 'x-namesake-client-ip';
+
 export function authInput(opts: { signInFailuresPerMinute: number }): Router {
   const r = Router();
+  // better-auth's own IP limits read the client address from this header; we always overwrite it
+  // with the socket's address (Express `req.ip`, trusting only a proxy on loopback), so it can't be spoofed
+  r.use((req, _res, next) => {
+    req.headers[CLIENT_IP_HEADER] = req.ip ?? 'unknown';
+    next();
+  });
   r.use(express.json({ limit: '16kb' }));
   const perAccount = rateLimit({
     windowMs: 60_000,

@@ -1,0 +1,122 @@
+import { useEffect, useId, useState } from 'react';
+import { Link, NavLink, useLocation, useNavigate } from 'react-router-dom';
+import type { Me } from '../../../shared/schemas/auth.ts';
+import { useToast } from '../../components/ui/toast.tsx';
+import { paths } from '../../config/paths.ts';
+import { useMe } from '../../features/auth/api/get-me.ts';
+import { useSignOut } from '../../features/auth/api/sign-out.ts';
+import { Wordmark } from './wordmark.tsx';
+
+type NavItem = { to: string; label: string; end?: boolean };
+
+/** Navigation by role: every account shops; sellers add the workroom; admins the desk and mail. */
+export function navItemsFor(me: Me | null | undefined): NavItem[] {
+  const items: NavItem[] = [
+    { to: paths.search.getHref(), label: 'Browse' },
+    { to: paths.cart.getHref(), label: 'Cart' },
+  ];
+  if (!me) return items;
+  items.push({ to: paths.orders.getHref(), label: 'Orders' });
+  const role = me.user.role;
+  if (role === 'shopper' && !me.shop) items.push({ to: paths.openShop.getHref(), label: 'Open a shop' });
+  if (role === 'seller' || me.shop) items.push({ to: paths.workroom.getHref(), label: 'Workroom' });
+  if (role === 'admin') {
+    items.push({ to: paths.moderation.desk.getHref(), label: 'Moderation desk', end: true });
+    items.push({ to: paths.moderation.mail.getHref(), label: 'Mail' });
+  }
+  return items;
+}
+
+const linkClasses = ({ isActive }: { isActive: boolean }) =>
+  'flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap transition-colors ' +
+  (isActive ? 'bg-thread-wash text-thread-deep underline decoration-thread decoration-2 underline-offset-[6px]' : 'text-ink hover:bg-paper-deep');
+
+export function SiteHeader() {
+  const me = useMe();
+  const signOut = useSignOut();
+  const toast = useToast();
+  const navigate = useNavigate();
+  const location = useLocation();
+  const [open, setOpen] = useState(false);
+  const menuId = useId();
+
+  // A tap on a link in the phone menu should close it.
+  useEffect(() => setOpen(false), [location.pathname, location.search]);
+
+  const items = navItemsFor(me.data);
+  const signedIn = Boolean(me.data);
+
+  async function handleSignOut() {
+    try {
+      await signOut.mutateAsync();
+      toast.success('You are signed out. See you soon.');
+      navigate(paths.home.getHref());
+    } catch (error) {
+      toast.error(error instanceof Error ? error.message : 'Signing out failed. Please try again.');
+    }
+  }
+
+  return (
+    <header className="border-b border-line bg-paper/95">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-50 focus:rounded-lg focus:bg-ink focus:px-4 focus:py-2 focus:text-paper">
+        Skip to content
+      </a>
+      <div className="mx-auto flex max-w-6xl flex-wrap items-center justify-between gap-x-6 gap-y-2 px-4 py-3 sm:px-6">
+        <Link to={paths.home.getHref()} className="rounded-lg py-1" aria-label="Namesake, home">
+          <Wordmark />
+        </Link>
+
+        <button
+          type="button"
+          className="flex min-h-11 items-center gap-2 rounded-lg border-2 border-ink px-3 font-bold md:hidden"
+          aria-expanded={open}
+          aria-controls={menuId}
+          onClick={() => setOpen((v) => !v)}
+        >
+          <span aria-hidden="true" className="flex w-5 flex-col gap-1">
+            <span className={`h-0.5 rounded bg-ink transition-transform ${open ? 'translate-y-1.5 rotate-45' : ''}`} />
+            <span className={`h-0.5 rounded bg-ink ${open ? 'opacity-0' : ''}`} />
+            <span className={`h-0.5 rounded bg-ink transition-transform ${open ? '-translate-y-1.5 -rotate-45' : ''}`} />
+          </span>
+          Menu
+        </button>
+
+        <nav id={menuId} aria-label="Main" className={`${open ? 'flex' : 'hidden'} w-full md:flex md:w-auto`}>
+          <ul className="flex w-full flex-col gap-1 border-t border-line pt-2 pb-1 md:flex-row md:items-center md:border-0 md:p-0">
+            {items.map((item) => (
+              <li key={item.to}>
+                <NavLink to={item.to} end={item.end} className={linkClasses}>
+                  {item.label}
+                </NavLink>
+              </li>
+            ))}
+            <li className="mt-1 md:mt-0 md:ml-2">
+              {signedIn ? (
+                <button
+                  type="button"
+                  onClick={handleSignOut}
+                  disabled={signOut.isPending}
+                  className="flex min-h-11 w-full items-center rounded-lg border-2 border-thread px-3 font-bold text-thread-deep hover:bg-thread-wash disabled:opacity-60 md:w-auto"
+                >
+                  {signOut.isPending ? 'Signing out…' : 'Sign out'}
+                </button>
+              ) : me.isPending ? null : (
+                <NavLink
+                  to={paths.auth.signIn.getHref()}
+                  className="flex min-h-11 items-center justify-center rounded-lg bg-marigold px-4 font-bold text-ink shadow-[0_2px_0_0_var(--color-marigold-deep)] hover:bg-marigold-light"
+                >
+                  Sign in
+                </NavLink>
+              )}
+            </li>
+          </ul>
+        </nav>
+      </div>
+      {me.data ? (
+        <p className="sr-only" aria-live="polite">
+          Signed in as {me.data.user.name}
+        </p>
+      ) : null}
+    </header>
+  );
+}

@@ -1,0 +1,117 @@
+import { Link } from 'react-router-dom';
+import { ButtonLink } from '../../components/ui/button.tsx';
+import { StitchedBox } from '../../components/ui/card.tsx';
+import { occasions, paths } from '../../config/paths.ts';
+import { useMe } from '../../features/auth/api/get-me.ts';
+
+const steps = [
+  { title: 'Type the name', body: 'Choose a tote, tee, pouch or drawstring bag and type the name it should carry: Mira, Theo, Bartholomew.' },
+  { title: 'See it to scale', body: 'Pick a colour for each layer and a motif. The preview uses the very font the shop will cut, with a ruler in inches and centimetres.' },
+  { title: 'The shop checks and presses', body: 'Before cutting, the shop reads the name back letter by letter. Then it cuts, presses and posts it to you.' },
+];
+
+export function HomePage() {
+  const me = useMe();
+  const canOpenShop = me.data?.user.role === 'shopper' && !me.data.shop;
+
+  return (
+    <div className="flex flex-col gap-16 sm:gap-20">
+      <section aria-labelledby="hero-title" className="grid items-center gap-10 md:grid-cols-[1.15fr_1fr]">
+        <div className="flex flex-col gap-6">
+          <p className="w-fit rounded-full bg-thread-wash px-3 py-1 text-sm font-bold text-thread-deep">Personalised, pressed by hand</p>
+          <h1 id="hero-title" className="text-4xl leading-[1.1] font-black tracking-tight sm:text-5xl">
+            Their name, cut in vinyl and pressed to last.
+          </h1>
+          <p className="max-w-prose text-lg text-ink-soft">
+            Namesake brings together small craft studios that decorate tote bags, kids' tees, pouches and drawstring bags with heat
+            transfer vinyl. You type the name and choose the colours; you see exactly how it will look before a single letter is cut.
+          </p>
+          <div className="flex flex-wrap gap-3">
+            <ButtonLink to={paths.search.getHref()}>Browse the shops</ButtonLink>
+            {canOpenShop || !me.data ? (
+              <ButtonLink to={me.data ? paths.openShop.getHref() : paths.auth.signUp.getHref(paths.openShop.getHref())} variant="secondary">
+                Sell your own work
+              </ButtonLink>
+            ) : null}
+          </div>
+        </div>
+        <ToteSketch />
+      </section>
+
+      <section aria-labelledby="occasions-title" className="flex flex-col gap-5">
+        <div>
+          <h2 id="occasions-title" className="text-2xl font-extrabold">
+            Find something for the occasion
+          </h2>
+          <p className="text-ink-soft">Seasonal motifs and colour sets, chosen by each shop.</p>
+        </div>
+        <ul className="flex flex-wrap gap-3">
+          {occasions.map((occasion) => (
+            <li key={occasion.slug}>
+              <Link
+                to={paths.search.getHref({ occasion: occasion.slug })}
+                className="flex min-h-11 items-center gap-2 rounded-full border-2 border-thread bg-white px-4 font-bold text-thread-deep hover:bg-thread-wash"
+              >
+                <span aria-hidden="true" className="size-2.5 rounded-full bg-marigold" />
+                {occasion.label}
+              </Link>
+            </li>
+          ))}
+        </ul>
+      </section>
+
+      <section aria-labelledby="how-title" className="flex flex-col gap-6">
+        <h2 id="how-title" className="text-2xl font-extrabold">
+          How a Namesake order comes together
+        </h2>
+        <ol className="grid gap-5 md:grid-cols-3">
+          {steps.map((step, index) => (
+            <li key={step.title} className="flex flex-col gap-2 rounded-lg border border-line bg-white p-6">
+              <span aria-hidden="true" className="flex size-9 items-center justify-center rounded-full bg-ink text-lg font-black text-paper">
+                {index + 1}
+              </span>
+              <h3 className="text-lg font-extrabold">{step.title}</h3>
+              <p className="text-ink-soft">{step.body}</p>
+            </li>
+          ))}
+        </ol>
+      </section>
+
+      <section aria-labelledby="listings-title" className="flex flex-col gap-5">
+        <h2 id="listings-title" className="text-2xl font-extrabold">
+          Fresh from the workrooms
+        </h2>
+        <StitchedBox className="py-12 text-center">
+          <p className="text-lg font-bold">Listings will appear here</p>
+          <p className="mt-1 text-ink-soft">Shops are setting out their first totes, tees and pouches.</p>
+        </StitchedBox>
+      </section>
+    </div>
+  );
+}
+
+/** A simple drawn tote with its print area dashed and a name in it — a hint of the live preview. */
+function ToteSketch() {
+  return (
+    <figure className="mx-auto w-full max-w-sm">
+      <svg viewBox="0 0 320 340" role="img" aria-labelledby="tote-sketch-title" className="h-auto w-full">
+        <title id="tote-sketch-title">A drawn tote bag with the name Mira in its dashed print area</title>
+        <path d="M112 92 C112 30 208 30 208 92" fill="none" stroke="#1f2a44" strokeWidth="10" strokeLinecap="round" />
+        <path d="M128 92 C128 50 192 50 192 92" fill="none" stroke="#e4dccd" strokeWidth="4" strokeLinecap="round" />
+        <rect x="52" y="90" width="216" height="230" rx="10" fill="#f3ecdf" stroke="#1f2a44" strokeWidth="4" />
+        <rect x="84" y="128" width="152" height="150" rx="6" fill="none" stroke="#2f7d6d" strokeWidth="2.5" strokeDasharray="8 6" />
+        <circle cx="160" cy="180" r="26" fill="#e0a526" />
+        <text x="160" y="252" textAnchor="middle" fontFamily="Nunito Variable, sans-serif" fontWeight="900" fontSize="44" fill="#2f7d6d">
+          Mira
+        </text>
+        <g stroke="#4a5470" strokeWidth="1.5">
+          <line x1="84" y1="300" x2="236" y2="300" />
+          {Array.from({ length: 9 }, (_, i) => (
+            <line key={i} x1={84 + i * 19} y1="300" x2={84 + i * 19} y2={i % 2 === 0 ? 308 : 305} />
+          ))}
+        </g>
+      </svg>
+      <figcaption className="mt-2 text-center text-sm text-ink-soft">Every design is shown to scale on its blank before it is cut.</figcaption>
+    </figure>
+  );
+}

@@ -1,0 +1,43 @@
+import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
+import { useMe } from '../../../features/auth/api/get-me.ts';
+
+const stateText: Record<string, { label: string; body: string; tone: string }> = {
+  in_review: {
+    label: 'In review',
+    body: 'Our team is looking at your shop. Shoppers will see it once it is approved; you can prepare in the meantime.',
+    tone: 'bg-marigold-wash text-ink border-marigold',
+  },
+  live: { label: 'Live', body: 'Your shop is public. Shoppers can find your approved listings.', tone: 'bg-thread-wash text-thread-deep border-thread' },
+  suspended: { label: 'Suspended', body: 'Your shop is hidden from shoppers for now. The Namesake team has written to you with the reason.', tone: 'bg-danger-wash text-danger border-danger' },
+  rejected: { label: 'Not approved', body: 'Your shop was not approved. The message from our team says why and what to change.', tone: 'bg-danger-wash text-danger border-danger' },
+};
+
+export function WorkroomPage() {
+  const me = useMe();
+  const shop = me.data?.shop;
+
+  return (
+    <div>
+      <PageHeading eyebrow="Workroom" title={shop ? shop.name : 'Your workroom'} lead={`Welcome in, ${me.data?.user.name ?? ''}. Orders, proofs and cut sheets will gather here.`} />
+      {shop ? (
+        <div className={`mb-8 flex flex-col gap-1 rounded-lg border-2 p-5 sm:flex-row sm:items-center sm:gap-4 ${stateText[shop.state]?.tone ?? ''}`}>
+          <p className="font-extrabold whitespace-nowrap">Shop state: {stateText[shop.state]?.label ?? shop.state}</p>
+          <p>{stateText[shop.state]?.body}</p>
+        </div>
+      ) : null}
+      <div className="grid gap-5 md:grid-cols-3">
+        {[
+          ['New orders', 'Personalisation text waiting for your proof check.'],
+          ['Cut sheets', 'Approved pieces grouped by material and colour, ready to cut.'],
+          ['Materials', 'Your vinyl rolls and sheets, with stock left on each.'],
+        ].map(([title, body]) => (
+          <StitchedBox key={title}>
+            <h2 className="text-lg font-extrabold">{title}</h2>
+            <p className="mt-1 text-ink-soft">{body}</p>
+            <p className="mt-3 text-sm font-bold text-thread-deep">Coming soon</p>
+          </StitchedBox>
+        ))}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,55 @@
+/**
+ * Every URL of the client app, with href builders. Components link through these, never through
+ * string literals, so a route can move in one place.
+ */
+export type Occasion = (typeof occasions)[number]['slug'];
+
+export const occasions = [
+  { slug: 'autumn-harvest', label: 'Autumn harvest' },
+  { slug: 'winter-lights', label: 'Winter lights' },
+  { slug: 'spring-picnic', label: 'Spring picnic' },
+  { slug: 'back-to-school', label: 'Back to school' },
+  { slug: 'birthday', label: 'Birthday' },
+] as const;
+
+function withQuery(path: string, query: Record<string, string | undefined>): string {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) if (value) params.set(key, value);
+  const qs = params.toString();
+  return qs ? `${path}?${qs}` : path;
+}
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  search: {
+    path: '/search',
+    getHref: (query: { occasion?: string; q?: string } = {}) => withQuery('/search', query),
+  },
+  cart: { path: '/cart', getHref: () => '/cart' },
+  orders: { path: '/orders', getHref: () => '/orders' },
+  openShop: { path: '/open-shop', getHref: () => '/open-shop' },
+  workroom: { path: '/workroom', getHref: () => '/workroom' },
+  moderation: {
+    desk: { path: '/moderation', getHref: () => '/moderation' },
+    mail: {
+      path: '/moderation/mail',
+      getHref: (messageId?: string) => withQuery('/moderation/mail', { message: messageId }),
+    },
+  },
+  auth: {
+    signIn: { path: '/sign-in', getHref: (next?: string) => withQuery('/sign-in', { next: next && next !== '/' ? next : undefined }) },
+    signUp: { path: '/sign-up', getHref: (next?: string) => withQuery('/sign-up', { next: next && next !== '/' ? next : undefined }) },
+    forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+    resetPassword: { path: '/reset-password', getHref: (token?: string) => withQuery('/reset-password', { token }) },
+  },
+} as const;
+
+/**
+ * Where to go after signing in. Only same-origin paths are allowed ("/x", never "//evil" or
+ * "/\evil", which browsers treat as another host), so a crafted link can't bounce users away.
+ */
+export function safeNextPath(next: string | null | undefined): string {
+  if (!next || !next.startsWith('/') || next.startsWith('//') || next.startsWith('/\\')) return paths.home.getHref();
+  if (next.startsWith(paths.auth.signIn.path) || next.startsWith(paths.auth.signUp.path)) return paths.home.getHref();
+  return next;
+}
