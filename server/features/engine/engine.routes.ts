@@ -1,0 +1,109 @@
+/**
+ * Thin HTTP layer over the pure engine (mounted at /api by the app):
+ *   GET  /fonts           → [{ id, family, kind, style, licence, fileUrl, characters, minLetterHeightMm }]
+ *   GET  /fonts/:id/file  → the exact TTF bytes the engine uses (font/ttf, cached a year; URL is versioned)
+ *   POST /layout/text     → { widthMm, heightMm, advanceMm, path, glyphs, missing, warnings, … }
+ */
+import { Router, type RequestHandler } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import { validate } from '../../http/validate.ts';
+import { AppError, notFound } from '../../http/app-error.ts';
+import { fontParamsSchema, layoutTextRequestSchema, type FontInfo, type LayoutTextRequest, type LayoutTextResponse } from '../../../shared/schemas/engine.ts';
+import { getFontFile, getFontRegistry, listFontFiles } from '../../integrations/fonts.ts';
+import { layoutText } from '../../../shared/engine/text-layout.ts';
+import { textWarnings, type TextWarning } from '../../../shared/engine/fit.ts';
+
+export interface EngineRouterOptions {
+  /** Layout requests per minute per client (default 240). */
+  layoutPerMinute?: number;
+  /** Font list/file requests per minute per client (default 600). */
+  fontsPerMinute?: number;
+}
+
+const limiter = (limit: number) =>
+  rateLimit({
+    windowMs: 60_000,
+    limit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, _res, next) => next(new AppError(429, 'rate_limited', 'Too many requests. Please wait a moment and try again.')),
+  });
+
+export function fontList(): FontInfo[] {
+  const reg = getFontRegistry();
+  return listFontFiles().map(({ entry, hash }) => ({
+    id: entry.id,
+    family: entry.family,
+    kind: entry.kind,
+    style: entry.style,
+    licence: entry.licence,
+    fileUrl: `/api/fonts/${entry.id}/file?v=${hash}`,
+    characters: reg.require(entry.id).characters,
+    minLetterHeightMm: entry.minLetterHeightMm,
+  }));
+}
+
+export function layoutTextResponse(input: LayoutTextRequest): LayoutTextResponse {
+  const reg = getFontRegistry();
+  const font = reg.require(input.fontId);
+  const l = layoutText(reg, input);
+  const warnings: TextWarning[] = textWarnings(l.text);
+  if (input.letterHeightMm < font.minLetterHeightMm) {
+    warnings.push({
+      code: 'below_min_letter_height',
+      message: `Letters under ${font.minLetterHeightMm} mm are hard to weed and read in this font.`,
+      letterHeightMm: input.letterHeightMm,
+      minLetterHeightMm: font.minLetterHeightMm,
+    });
+  }
+  if (l.missing.length) {
+    warnings.push({ code: 'missing_characters', message: `This font cannot draw: ${l.missing.join(' ')}.`, characters: [...l.missing] });
+  }
+  return {
+    text: l.text,
+    fontId: l.fontId,
+    letterHeightMm: l.letterHeightMm,
+    widthMm: l.widthMm,
+    heightMm: l.heightMm,
+    advanceMm: l.advanceMm,
+    bboxMm: l.bboxMm,
+    path: l.path,
+    glyphs: l.glyphs.map((g) => ({ char: g.char, advanceMm: g.advanceMm })),
+    missing: [...l.missing],
+    warnings,
+  };
+}
+
+export function engineRouter(opts: EngineRouterOptions = {}): Router {
+  const r = Router();
+  const fontsLimit = limiter(opts.fontsPerMinute ?? 600);
+  const layoutLimit = limiter(opts.layoutPerMinute ?? 240);
+
+  r.get('/fonts', fontsLimit, ((_req, res) => {
+    res.set('Cache-Control', 'public, max-age=3600');
+    res.json(fontList());
+  }) satisfies RequestHandler);
+
+  r.get('/fonts/:id/file', fontsLimit, validate({ params: fontParamsSchema }), ((req, res) => {
+    const file = getFontFile(String(req.params.id));
+    if (!file) throw notFound('No such font.');
+    res.set({
+      'Content-Type': 'font/ttf',
+      'Cache-Control': 'public, max-age=31536000, immutable',
+      ETag: `"${file.hash}"`,
+      'X-Content-Type-Options': 'nosniff',
+      'Cross-Origin-Resource-Policy': 'same-origin',
+    });
+    if (req.headers['if-none-match'] === `"${file.hash}"`) {
+      res.status(304).end();
+      return;
+    }
+    res.send(Buffer.from(file.bytes.buffer, file.bytes.byteOffset, file.bytes.byteLength));
+  }) satisfies RequestHandler);
+
+  r.post('/layout/text', layoutLimit, validate({ body: layoutTextRequestSchema }), ((req, res) => {
+    res.json(layoutTextResponse(req.body as LayoutTextRequest));
+  }) satisfies RequestHandler);
+
+  return r;
+}

@@ -1,0 +1,229 @@
+/**
+ * Composition: a listing's personalisation fields plus the shopper's choices become the pieces of
+ * one item, placed on the blank (centred horizontally, starting `topOffsetMm` down, kept inside the
+ * usable print area) and listed in press order, bottom → top: outline backings, motif layers, names.
+ */
+import type { FontRegistry } from './fonts.ts';
+import { usableArea, type Blank } from './blanks.ts';
+import { fitText, type TextWarning } from './fit.ts';
+import type { MotifGeometry } from './motif.ts';
+import { outlinePath } from './outline.ts';
+import { formatPath, mirrorPath, parsePathData, pathBBox, transformPath, unionBBox, flattenPath, type BBox } from './path.ts';
+import { regionsArea, unionRegions } from './geometry.ts';
+import { analyseWeeding, combineWeeding, type WeedingReport } from './weeding.ts';
+
+export type MaterialKind = 'smooth' | 'glitter' | 'flock' | 'metallic' | 'patterned';
+export type PieceRole = 'text' | 'outline' | 'motif';
+
+export interface TextFieldDef {
+  kind: 'text';
+  id: string;
+  fontId: string;
+  /** Default cap height; the shopper may choose smaller or up to maxLetterHeightMm. */
+  letterHeightMm: number;
+  maxLetterHeightMm?: number;
+  minLetterHeightMm?: number;
+  maxChars?: number;
+  trackingMm?: number;
+  materialKind: MaterialKind;
+  colour: string;
+  /** Outline backing grown around the name. */
+  outline?: { offsetMm: number; materialKind: MaterialKind; colour: string };
+}
+
+export interface MotifOption {
+  id: string;
+  geometry: MotifGeometry;
+  /** Material and colour per motif layer id; layers not listed use the field default and their own colour. */
+  layers?: Record<string, { materialKind?: MaterialKind; colour?: string }>;
+}
+
+export interface MotifFieldDef {
+  kind: 'motif';
+  id: string;
+  /** Height of the motif's ink on the item, mm (scaled down if it does not fit). */
+  heightMm: number;
+  materialKind: MaterialKind;
+  options: MotifOption[];
+}
+
+export interface ColourFieldDef {
+  kind: 'colour';
+  id: string;
+  /** What the colour paints: a text field, its outline (layerId 'outline'), or a motif layer. */
+  target: { fieldId: string; layerId?: string };
+  options: string[];
+}
+
+export type FieldDef = TextFieldDef | MotifFieldDef | ColourFieldDef;
+
+export type Choice = { text: string; letterHeightMm?: number } | { motifId: string } | { colour: string };
+
+export interface ComposeInput {
+  blank: Blank;
+  fields: FieldDef[];
+  choices: Record<string, Choice | undefined>;
+  /** Vertical gap between stacked fields, mm (default 8). */
+  gapMm?: number;
+}
+
+export interface Piece {
+  /** Unique within the item, e.g. "name", "name-outline", "motif:flame". */
+  layerId: string;
+  fieldId: string;
+  role: PieceRole;
+  materialKind: MaterialKind;
+  colour: string;
+  /** Placed on the blank: mm, origin top-left of the blank, y down. */
+  path: string;
+  /** The same piece mirrored about its own vertical centre line, as it is cut (HTV is cut mirrored). */
+  mirroredPath: string;
+  bboxMm: BBox;
+  areaMm2: number;
+  weeding: WeedingReport;
+}
+
+export interface ComposeWarning extends TextWarning { fieldId: string }
+
+export interface ComposedItem {
+  blankId: string;
+  /** Press order, bottom → top. */
+  pieces: Piece[];
+  bboxMm: BBox;
+  warnings: ComposeWarning[];
+  weeding: WeedingReport;
+  /** Letter height actually used per text field, mm. */
+  letterHeights: Record<string, number>;
+}
+
+export class ComposeError extends Error {
+  constructor(public readonly fieldId: string, message: string) {
+    super(message);
+    this.name = 'ComposeError';
+  }
+}
+
+interface Block {
+  fieldId: string;
+  w: number;
+  h: number;
+  /** Pieces for a block whose ink's top-left lands at (x, y). */
+  place(x: number, y: number): Piece[];
+}
+
+function piece(layerId: string, fieldId: string, role: PieceRole, materialKind: MaterialKind, colour: string, d: string, areaMm2?: number): Piece {
+  const p = parsePathData(d);
+  const bb = pathBBox(p);
+  const area = areaMm2 ?? regionsArea(unionRegions(flattenPath(p, 0.01), 'nonzero'));
+  return {
+    layerId, fieldId, role, materialKind, colour,
+    path: d,
+    mirroredPath: formatPath(mirrorPath(p, (bb.minX + bb.maxX) / 2)),
+    bboxMm: bb,
+    areaMm2: area,
+    weeding: analyseWeeding(d),
+  };
+}
+
+const move = (d: string, m: [number, number, number, number, number, number]) => formatPath(transformPath(parsePathData(d), m));
+
+export function compose(registry: FontRegistry, input: ComposeInput): ComposedItem {
+  const { blank, fields, choices } = input;
+  const gap = input.gapMm ?? 8;
+  const area = usableArea(blank);
+  const colours = new Map<string, string>(); // "field" or "field:layer" → colour
+  for (const f of fields) {
+    if (f.kind !== 'colour') continue;
+    const c = choices[f.id];
+    if (!c) continue;
+    if (!('colour' in c) || !f.options.includes(c.colour)) throw new ComposeError(f.id, 'Choose one of the colours offered.');
+    colours.set(f.target.layerId ? `${f.target.fieldId}:${f.target.layerId}` : f.target.fieldId, c.colour);
+  }
+  const warnings: ComposeWarning[] = [];
+  const letterHeights: Record<string, number> = {};
+  const layoutFields = fields.filter((f): f is TextFieldDef | MotifFieldDef => f.kind !== 'colour');
+  const stackGaps = Math.max(0, layoutFields.length - 1) * gap;
+
+  const buildBlocks = (k: number): Block[] => {
+    warnings.length = 0;
+    return layoutFields.map((f): Block => {
+      if (f.kind === 'text') {
+        const c = choices[f.id];
+        if (!c || !('text' in c) || c.text.trim() === '') throw new ComposeError(f.id, 'Enter the text for this item.');
+        const chosen = Math.min(c.letterHeightMm ?? f.letterHeightMm, f.maxLetterHeightMm ?? Infinity, f.letterHeightMm * 4);
+        const grow = f.outline ? 2 * f.outline.offsetMm : 0;
+        const fitted = fitText(
+          registry,
+          { text: c.text, fontId: f.fontId, letterHeightMm: Math.max(0.5, Math.floor(chosen * k * 1000) / 1000), trackingMm: f.trackingMm },
+          { maxWidthMm: area.widthMm - grow, maxHeightMm: Math.max(1, area.heightMm - stackGaps - grow), minLetterHeightMm: f.minLetterHeightMm, maxChars: f.maxChars },
+        );
+        for (const w of fitted.warnings) warnings.push({ ...w, fieldId: f.id });
+        letterHeights[f.id] = fitted.letterHeightMm;
+        const L = fitted.layout;
+        const pad = f.outline ? f.outline.offsetMm : 0;
+        return {
+          fieldId: f.id,
+          w: L.widthMm + grow,
+          h: L.heightMm + grow,
+          place(x, y) {
+            const d = move(L.path, [1, 0, 0, 1, x + pad - L.bboxMm.minX, y + pad - L.bboxMm.minY]);
+            const out: Piece[] = [];
+            if (f.outline) {
+              const o = outlinePath(d, f.outline.offsetMm);
+              out.push(piece(`${f.id}-outline`, f.id, 'outline', f.outline.materialKind, colours.get(`${f.id}:outline`) ?? f.outline.colour, o.path, o.areaMm2));
+            }
+            out.push(piece(f.id, f.id, 'text', f.materialKind, colours.get(f.id) ?? f.colour, d));
+            return out;
+          },
+        };
+      }
+      const c = choices[f.id];
+      const opt = c && 'motifId' in c ? f.options.find((o) => o.id === c.motifId) : f.options.length === 1 ? f.options[0] : undefined;
+      if (!opt) throw new ComposeError(f.id, 'Choose one of the motifs offered.');
+      let ink: BBox | null = null;
+      for (const l of opt.geometry.layers) ink = unionBBox(ink, l.bboxMm);
+      const bb = ink!;
+      const iw = bb.maxX - bb.minX, ih = bb.maxY - bb.minY;
+      const m = Math.min(f.heightMm / ih, area.widthMm / iw, (area.heightMm - stackGaps) / ih) * k;
+      return {
+        fieldId: f.id,
+        w: iw * m,
+        h: ih * m,
+        place(x, y) {
+          return opt.geometry.layers.map((l) => {
+            const spec = opt.layers?.[l.id];
+            const d = move(l.path, [m, 0, 0, m, x - bb.minX * m, y - bb.minY * m]);
+            return piece(`${f.id}:${l.id}`, f.id, 'motif', spec?.materialKind ?? f.materialKind, colours.get(`${f.id}:${l.id}`) ?? spec?.colour ?? l.colour ?? '#000000', d, l.areaMm2 * m * m);
+          });
+        },
+      };
+    });
+  };
+
+  let blocks = buildBlocks(1);
+  const total = () => blocks.reduce((s, b) => s + b.h, 0) + stackGaps;
+  for (let i = 0; i < 5 && total() > area.heightMm + 1e-9; i++) {
+    const inkH = blocks.reduce((s, b) => s + b.h, 0);
+    const k = Math.max(0.01, (area.heightMm - stackGaps) / inkH) * (i === 0 ? 1 : 0.99 ** i);
+    blocks = buildBlocks(k);
+  }
+
+  const placed: Piece[] = [];
+  let y = blank.topOffsetMm;
+  for (const b of blocks) {
+    placed.push(...b.place((blank.widthMm - b.w) / 2, y));
+    y += b.h + gap;
+  }
+  const rank: Record<PieceRole, number> = { outline: 0, motif: 1, text: 2 };
+  const pieces = placed.map((p, i) => ({ p, i })).sort((a, b) => rank[a.p.role] - rank[b.p.role] || a.i - b.i).map((x) => x.p);
+  let bbox: BBox | null = null;
+  for (const p of pieces) bbox = unionBBox(bbox, p.bboxMm);
+  return {
+    blankId: blank.id,
+    pieces,
+    bboxMm: bbox ?? { minX: 0, minY: 0, maxX: 0, maxY: 0 },
+    warnings: [...warnings],
+    weeding: combineWeeding(pieces.map((p) => p.weeding)),
+    letterHeights,
+  };
+}

@@ -1,0 +1,257 @@
+/**
+ * Text layout: a name in a font at a letter height → glyph outlines as SVG path data in mm.
+ * Shaping (kerning, ligatures, contextual forms as the font defines them) is fontkit's `layout()`.
+ * Coordinates: x = 0 at the pen start, y = 0 on the cap line, y down; the baseline is at
+ * y = letterHeightMm. Letter height is the cap height, measured from the "H" glyph (see fonts.ts).
+ */
+import type { FontRegistry, LoadedFont } from './fonts.ts';
+import type { BBox } from './path.ts';
+
+export interface LayoutTextInput {
+  text: string;
+  fontId: string;
+  /** Cap height in mm. */
+  letterHeightMm: number;
+  /** Extra space after every glyph but the last, in mm (may be negative). */
+  trackingMm?: number;
+}
+
+export interface LaidOutGlyph {
+  /** The character(s) this glyph draws (more than one for a ligature). */
+  char: string;
+  glyphId: number;
+  /** Pen position where this glyph starts, mm. */
+  xMm: number;
+  advanceMm: number;
+}
+
+export interface TextLayout {
+  /** The text after NFC normalisation. */
+  text: string;
+  fontId: string;
+  letterHeightMm: number;
+  trackingMm: number;
+  /** mm per font unit. */
+  scale: number;
+  /** Sum of advances (plus tracking), mm. */
+  advanceMm: number;
+  /** Tight width and height of the ink, mm. */
+  widthMm: number;
+  heightMm: number;
+  bboxMm: BBox;
+  baselineMm: number;
+  /** All outlines as one path (nonzero fill, y down, mm, points on a 1 µm grid; relative commands within a glyph). */
+  path: string;
+  glyphs: LaidOutGlyph[];
+  /** Characters the font has no glyph for, each once, in order of appearance. */
+  missing: string[];
+}
+
+// Glyph outline cache per font, in font units. Ops: 0 M x y, 1 L x y, 2 Q x1 y1 x y, 3 C x1 y1 x2 y2 x y, 4 Z.
+interface GlyphData { ops: number[]; minX: number; minY: number; maxX: number; maxY: number; empty: boolean }
+
+interface FontCaches { glyphs: Map<number, GlyphData>; outlines: Map<number, Map<number, GlyphOutline>>; layouts: Map<string, TextLayout> }
+const caches = new WeakMap<LoadedFont, FontCaches>();
+const LAYOUT_CACHE_SIZE = 2000;
+
+function cachesFor(f: LoadedFont): FontCaches {
+  let c = caches.get(f);
+  if (!c) {
+    c = { glyphs: new Map(), outlines: new Map(), layouts: new Map() };
+    caches.set(f, c);
+  }
+  return c;
+}
+
+function quadEx(p0: number, p1: number, p2: number, acc: (v: number) => void) {
+  const den = p0 - 2 * p1 + p2;
+  if (den !== 0) {
+    const t = (p0 - p1) / den;
+    if (t > 0 && t < 1) acc((1 - t) * (1 - t) * p0 + 2 * (1 - t) * t * p1 + t * t * p2);
+  }
+}
+function cubicEx(p0: number, p1: number, p2: number, p3: number, acc: (v: number) => void) {
+  const a = -p0 + 3 * p1 - 3 * p2 + p3, b = 2 * (p0 - 2 * p1 + p2), c = p1 - p0;
+  const at = (t: number) => { const u = 1 - t; return u * u * u * p0 + 3 * u * u * t * p1 + 3 * u * t * t * p2 + t * t * t * p3; };
+  if (Math.abs(a) < 1e-12) {
+    if (Math.abs(b) > 1e-12) { const t = -c / b; if (t > 0 && t < 1) acc(at(t)); }
+    return;
+  }
+  const disc = b * b - 4 * a * c;
+  if (disc < 0) return;
+  const sq = Math.sqrt(disc);
+  const t1 = (-b + sq) / (2 * a), t2 = (-b - sq) / (2 * a);
+  if (t1 > 0 && t1 < 1) acc(at(t1));
+  if (t2 > 0 && t2 < 1) acc(at(t2));
+}
+
+function glyphData(f: LoadedFont, c: FontCaches, glyph: { id: number; path: { commands: { command: string; args: number[] }[] } }): GlyphData {
+  let g = c.glyphs.get(glyph.id);
+  if (g) return g;
+  const ops: number[] = [];
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  const ax = (v: number) => { if (v < minX) minX = v; if (v > maxX) maxX = v; };
+  const ay = (v: number) => { if (v < minY) minY = v; if (v > maxY) maxY = v; };
+  let px = 0, py = 0;
+  // .notdef (glyph 0) is drawn as nothing: a missing character is reported, not cut as a box.
+  const commands = glyph.id === 0 ? [] : glyph.path.commands;
+  for (const cmd of commands) {
+    const a = cmd.args;
+    switch (cmd.command) {
+      case 'moveTo': ops.push(0, a[0], a[1]); ax(a[0]); ay(a[1]); px = a[0]; py = a[1]; break;
+      case 'lineTo': ops.push(1, a[0], a[1]); ax(a[0]); ay(a[1]); px = a[0]; py = a[1]; break;
+      case 'quadraticCurveTo':
+        ops.push(2, a[0], a[1], a[2], a[3]);
+        quadEx(px, a[0], a[2], ax); quadEx(py, a[1], a[3], ay); ax(a[2]); ay(a[3]); px = a[2]; py = a[3];
+        break;
+      case 'bezierCurveTo':
+        ops.push(3, a[0], a[1], a[2], a[3], a[4], a[5]);
+        cubicEx(px, a[0], a[2], a[4], ax); cubicEx(py, a[1], a[3], a[5], ay); ax(a[4]); ay(a[5]); px = a[4]; py = a[5];
+        break;
+      case 'closePath': ops.push(4); break;
+    }
+  }
+  const empty = minX === Infinity;
+  g = empty ? { ops, minX: 0, minY: 0, maxX: 0, maxY: 0, empty } : { ops, minX, minY, maxX, maxY, empty };
+  c.glyphs.set(glyph.id, g);
+  return g;
+}
+
+interface GlyphOutline { x0: number; y0: number; rest: string }
+
+/**
+ * A glyph's outline at one scale: its first point in µm from the glyph origin and the rest as
+ * relative path commands whose deltas are differences of µm-rounded points, so no rounding drifts.
+ */
+function glyphOutline(c: FontCaches, gd: GlyphData, id: number, s: number, cap: number): GlyphOutline {
+  let byScale = c.outlines.get(s);
+  if (!byScale) {
+    byScale = new Map();
+    c.outlines.set(s, byScale);
+    if (c.outlines.size > 32) c.outlines.delete(c.outlines.keys().next().value as number);
+  }
+  let go = byScale.get(id);
+  if (go) return go;
+  const ops = gd.ops;
+  const X = (v: number) => Math.round(v * s * 1000);
+  const Y = (v: number) => Math.round((cap - v) * s * 1000);
+  const r = (v: number) => String(v / 1000);
+  let x0 = 0, y0 = 0, cx = 0, cy = 0, sx = 0, sy = 0, rest = '', first = true;
+  for (let k = 0; k < ops.length; ) {
+    const op = ops[k];
+    if (op === 0 || op === 1) {
+      const x = X(ops[k + 1]), y = Y(ops[k + 2]);
+      if (first) { x0 = x; y0 = y; first = false; }
+      else rest += `${op === 0 ? 'm' : 'l'}${r(x - cx)} ${r(y - cy)}`;
+      cx = x; cy = y;
+      if (op === 0) { sx = x; sy = y; }
+      k += 3;
+    } else if (op === 2) {
+      const x1 = X(ops[k + 1]), y1 = Y(ops[k + 2]), x = X(ops[k + 3]), y = Y(ops[k + 4]);
+      rest += `q${r(x1 - cx)} ${r(y1 - cy)} ${r(x - cx)} ${r(y - cy)}`;
+      cx = x; cy = y;
+      k += 5;
+    } else if (op === 3) {
+      const x1 = X(ops[k + 1]), y1 = Y(ops[k + 2]), x2 = X(ops[k + 3]), y2 = Y(ops[k + 4]), x = X(ops[k + 5]), y = Y(ops[k + 6]);
+      rest += `c${r(x1 - cx)} ${r(y1 - cy)} ${r(x2 - cx)} ${r(y2 - cy)} ${r(x - cx)} ${r(y - cy)}`;
+      cx = x; cy = y;
+      k += 7;
+    } else {
+      rest += 'z';
+      cx = sx; cy = sy; // after closepath the current point is the subpath's start
+      k += 1;
+    }
+  }
+  go = { x0, y0, rest };
+  byScale.set(id, go);
+  return go;
+}
+
+/** Lays out text in one line. Repeated calls with the same input are served from a cache (same object). */
+export function layoutText(registry: FontRegistry, input: LayoutTextInput, opts: { cache?: boolean } = {}): TextLayout {
+  const f = registry.require(input.fontId);
+  return layoutWithFont(f, input, opts);
+}
+
+export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { cache?: boolean } = {}): TextLayout {
+  const text = input.text.normalize('NFC');
+  const tracking = input.trackingMm ?? 0;
+  const h = input.letterHeightMm;
+  if (!(h > 0) || !Number.isFinite(h)) throw new RangeError('letterHeightMm must be a positive number.');
+  const c = cachesFor(f);
+  const key = `${h}|${tracking}|${text}`;
+  const useCache = opts.cache !== false;
+  if (useCache) {
+    const hit = c.layouts.get(key);
+    if (hit) {
+      c.layouts.delete(key); // LRU: move to the newest end
+      c.layouts.set(key, hit);
+      return hit;
+    }
+  }
+
+  const s = h / f.capHeightUnits;
+  const cap = f.capHeightUnits;
+  const trackUnits = tracking / s;
+  const run = f.font.layout(text);
+  const glyphs: LaidOutGlyph[] = [];
+  let d = '';
+  let pen = 0;
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  const n = run.glyphs.length;
+  for (let i = 0; i < n; i++) {
+    const glyph = run.glyphs[i];
+    const pos = run.positions[i];
+    const gd = glyphData(f, c, glyph as never);
+    const ox = pen + pos.xOffset;
+    const oy = pos.yOffset;
+    if (!gd.empty) {
+      const go = glyphOutline(c, gd, glyph.id, s, cap);
+      // Glyph origin on the 1 µm grid; the outline after the first point is relative, so its string
+      // is reused for every occurrence of the glyph at this size.
+      const OX = Math.round(ox * s * 1000), OY = Math.round(-oy * s * 1000);
+      d += `M${(OX + go.x0) / 1000} ${(OY + go.y0) / 1000}${go.rest}`;
+      const gx0 = (gd.minX + ox) * s, gx1 = (gd.maxX + ox) * s;
+      const gy0 = (cap - gd.maxY - oy) * s, gy1 = (cap - gd.minY - oy) * s;
+      if (gx0 < minX) minX = gx0;
+      if (gx1 > maxX) maxX = gx1;
+      if (gy0 < minY) minY = gy0;
+      if (gy1 > maxY) maxY = gy1;
+    }
+    const adv = pos.xAdvance + (i < n - 1 ? trackUnits : 0);
+    glyphs.push({ char: String.fromCodePoint(...glyph.codePoints), glyphId: glyph.id, xMm: pen * s, advanceMm: adv * s });
+    pen += adv;
+  }
+
+  const missing: string[] = [];
+  for (const ch of text) {
+    const cp = ch.codePointAt(0)!;
+    if (!f.hasChar(cp) && !missing.includes(ch)) missing.push(ch);
+  }
+
+  const bboxMm: BBox = minX === Infinity ? { minX: 0, minY: 0, maxX: 0, maxY: 0 } : { minX, minY, maxX, maxY };
+  const result: TextLayout = {
+    text,
+    fontId: f.id,
+    letterHeightMm: h,
+    trackingMm: tracking,
+    scale: s,
+    advanceMm: pen * s,
+    widthMm: bboxMm.maxX - bboxMm.minX,
+    heightMm: bboxMm.maxY - bboxMm.minY,
+    bboxMm,
+    baselineMm: h,
+    path: d,
+    glyphs,
+    missing,
+  };
+  if (useCache) {
+    Object.freeze(result);
+    Object.freeze(glyphs);
+    Object.freeze(missing);
+    Object.freeze(bboxMm);
+    c.layouts.set(key, result);
+    if (c.layouts.size > LAYOUT_CACHE_SIZE) c.layouts.delete(c.layouts.keys().next().value as string);
+  }
+  return result;
+}
