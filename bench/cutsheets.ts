@@ -1,0 +1,104 @@
+/**
+ * Cut sheet benchmark (`npm run bench -- cutsheets`): 500 order lines over 4 materials — each line a
+ * name (real glyph outlines, sized 60–220 × 20–70 mm) in one material and 1–2 motif layers
+ * (30–110 mm) in others — grouped by material, nested on a 305 mm (12 in) roll and written as SVG.
+ * Prints the median time of the whole batch over a few runs and material used against area lower
+ * bounds. Targets (issue 6): ≤ 1 s; used ≤ 1.11 × the lower bound.
+ *
+ * Lower bounds, per material, summed over materials:
+ *  - gap-aware (the headline): any rectangle packing that keeps the weeding gap g between pieces and
+ *    the margin m at the edges has its pieces' rects grown by g/2 on every side disjoint, inside a
+ *    strip (W − 2m + g) wide and (L − 2m + g) long, so L ≥ Σ(w+g)(h+g) / (W − 2m + g) + 2m − g.
+ *  - plain rectangle area: Σ w·h / W — ignores the 6 mm gaps the craft requires, so unreachable
+ *    for pieces this size (a 140 × 45 mm name grows 18 % with its gap); printed for comparison.
+ *  - vinyl area: Σ real outline area / W — letters fill about a third of their box; for comparison.
+ */
+import { groupByMaterial, nestCutSheets, type NestPiece } from '../shared/engine/cut-sheets.ts';
+import { cutSheetSvg } from '../shared/engine/cut-sheet-svg.ts';
+import { formatPath, parsePathData, pathArea, pathBBox, transformPath } from '../shared/engine/path.ts';
+import { layoutText } from '../shared/engine/text-layout.ts';
+import { FONT_CATALOG } from '../shared/engine/font-catalog.ts';
+import { getFontRegistry } from '../server/integrations/fonts.ts';
+
+const ROLL_MM = 305;
+const GAP = 6;
+const MARGIN = 6;
+const MATERIALS = [
+  { materialKind: 'smooth', colour: 'Navy' },
+  { materialKind: 'smooth', colour: 'White' },
+  { materialKind: 'glitter', colour: 'Gold' },
+  { materialKind: 'metallic', colour: 'Silver' },
+];
+const NAMES = ['Mira', 'Theo', 'Anouk', 'Kai', 'Priya', 'Leon', 'Zoë', 'Bartholomew'];
+
+type BenchPiece = NestPiece & { materialKind: string; colour: string };
+
+export function makePieces(lines: number, seed: number): BenchPiece[] {
+  let s = seed >>> 0;
+  const rnd = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  const U = (a: number, b: number) => a + (b - a) * rnd();
+  const reg = getFontRegistry();
+  const fonts = FONT_CATALOG.map((f) => f.id);
+  const out: BenchPiece[] = [];
+  for (let l = 0; l < lines; l++) {
+    const text = NAMES[Math.floor(rnd() * NAMES.length)];
+    const lay = layoutText(reg, { text, fontId: fonts[Math.floor(rnd() * fonts.length)], letterHeightMm: 40 });
+    const p = parsePathData(lay.path);
+    const bb = pathBBox(p);
+    // sized like names on totes: 60–220 mm wide, 20–70 mm tall
+    const w = U(60, 220), h = U(20, 70);
+    const sx = w / (bb.maxX - bb.minX), sy = h / (bb.maxY - bb.minY);
+    const named = transformPath(p, [sx, 0, 0, sy, -bb.minX * sx, -bb.minY * sy]);
+    const m = Math.floor(rnd() * MATERIALS.length);
+    out.push({ id: `L${l}-name`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: 'name', widthMm: w, heightMm: h, areaMm2: pathArea(named), path: formatPath(named), ...MATERIALS[m] });
+    const motifLayers = 1 + Math.floor(rnd() * 2);
+    for (let k = 0; k < motifLayers; k++) {
+      const mw = U(30, 110), mh = mw * U(0.6, 1.3);
+      // a blob: four cubic arcs through the box's edge midpoints
+      const cx = mw / 2, cy = mh / 2, kx = 0.55 * cx, ky = 0.55 * cy;
+      const d = `M${cx} 0C${cx + kx} 0 ${mw} ${cy - ky} ${mw} ${cy}C${mw} ${cy + ky} ${cx + kx} ${mh} ${cx} ${mh}C${cx - kx} ${mh} 0 ${cy + ky} 0 ${cy}C0 ${cy - ky} ${cx - kx} 0 ${cx} 0Z`;
+      const mp = parsePathData(d);
+      out.push({ id: `L${l}-m${k}`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: `motif-${k}`, widthMm: mw, heightMm: mh, areaMm2: pathArea(mp), path: d, ...MATERIALS[(m + 1 + k) % MATERIALS.length] });
+    }
+  }
+  return out;
+}
+
+function batch(pieces: BenchPiece[]) {
+  const results = [];
+  for (const g of groupByMaterial(pieces)) {
+    const sheets = nestCutSheets({ rollWidthMm: ROLL_MM, gapMm: GAP, marginMm: MARGIN, pieces: g.pieces });
+    const svgs = sheets.map((sh) => cutSheetSvg(sh, g.pieces));
+    results.push({ key: g.key, pieces: g.pieces, sheets, svgBytes: svgs.reduce((n, s) => n + s.length, 0) });
+  }
+  return results;
+}
+
+export async function run(): Promise<void> {
+  const pieces = makePieces(500, 20240611);
+  batch(makePieces(60, 7)); // warm-up on other pieces (JIT), as in a running server
+  const times: number[] = [];
+  let last: ReturnType<typeof batch> = [];
+  for (let i = 0; i < 7; i++) {
+    const t0 = performance.now();
+    last = batch(pieces);
+    times.push(performance.now() - t0);
+  }
+  times.sort((a, b) => a - b);
+  const median = times[Math.floor(times.length / 2)];
+
+  let used = 0, lbGap = 0, lbRect = 0, lbVinyl = 0;
+  console.log(`cut sheets: 500 lines, ${pieces.length} pieces, ${last.length} materials, roll ${ROLL_MM} mm, gap ${GAP} mm, margin ${MARGIN} mm`);
+  for (const r of last) {
+    const L = r.sheets.reduce((s, sh) => s + sh.lengthMm, 0);
+    const padded = r.pieces.reduce((s, p) => s + (p.widthMm + GAP) * (p.heightMm + GAP), 0);
+    const gapBound = padded / (ROLL_MM - 2 * MARGIN + GAP) + 2 * MARGIN - GAP;
+    const rectBound = r.pieces.reduce((s, p) => s + p.widthMm * p.heightMm, 0) / ROLL_MM;
+    const vinylBound = r.pieces.reduce((s, p) => s + p.areaMm2, 0) / ROLL_MM;
+    used += L; lbGap += gapBound; lbRect += rectBound; lbVinyl += vinylBound;
+    console.log(`  ${r.key.padEnd(16)} ${String(r.pieces.length).padStart(4)} pieces  ${(L / 1000).toFixed(2)} m  ${(L / gapBound).toFixed(3)} × gap-aware bound  utilisation ${(r.sheets[0].utilisation * 100).toFixed(1)} %  svg ${(r.svgBytes / 1024).toFixed(0)} KiB`);
+  }
+  console.log(`median time (nest + SVG, all materials): ${median.toFixed(1)} ms over ${times.length} runs (min ${times[0].toFixed(1)}, max ${times.at(-1)!.toFixed(1)})  target ≤ 1000 ms`);
+  console.log(`utilisation vs lower bound: ${(used / lbGap).toFixed(3)}  (material used ÷ gap-aware area bound; target ≤ 1.11)`);
+  console.log(`  for comparison: ${(used / lbRect).toFixed(3)} × plain rectangle area / roll width (no gaps), ${(used / lbVinyl).toFixed(3)} × vinyl outline area / roll width`);
+}
