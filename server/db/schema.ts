@@ -96,6 +96,8 @@ export type ListingContent = {
   extraLayerPriceMinor: number;
   occasions: string[];
   photoIds: string[];
+  /** plain (text with line breaks) or markdown (rendered with HTML disabled); plain when absent */
+  descriptionFormat?: 'plain' | 'markdown';
   personalisation: unknown;
   hasSmallDecorations: boolean;
   blankCostMinor: number;
@@ -118,12 +120,16 @@ export const listings = sqliteTable('listings', {
   liveTitle: text('live_title'),
   livePriceMinor: integer('live_price_minor'),
   liveBlankKind: text('live_blank_kind'),
+  /** the live occasions as `,slug,slug,` so a filter is one LIKE '%,slug,%' */
   liveOccasions: text('live_occasions'),
+  /** the live copy's first photo's thumbnail file name (under /uploads), for catalogue cards */
+  liveThumbPath: text('live_thumb_path'),
   currency: text('currency').notNull().default('USD'),
   publishedAt: integer('published_at'),
   createdAt: createdAt(),
   updatedAt: integer('updated_at').notNull(),
-}, (t) => [uniqueIndex('listings_slug_uq').on(t.slug), index('listings_shop_idx').on(t.shopId), index('listings_state_idx').on(t.state)]);
+}, (t) => [uniqueIndex('listings_slug_uq').on(t.slug), index('listings_shop_idx').on(t.shopId), index('listings_state_idx').on(t.state),
+  index('listings_catalog_idx').on(t.state, t.publishedAt)]);
 
 // ---------------------------------------------------------------- moderation audit log
 export const auditLog = sqliteTable('audit_log', {
@@ -142,6 +148,8 @@ export const carts = sqliteTable('carts', {
   id: id(),
   /** null for a guest cart (identified by its id in an HttpOnly cookie) */
   userId: text('user_id').references(() => user.id, { onDelete: 'cascade' }),
+  /** bumped on every change; a checkout is made for one (cart, version), so two tabs share it */
+  version: integer('version').notNull().default(1),
   createdAt: createdAt(),
   updatedAt: integer('updated_at').notNull(),
 }, (t) => [index('carts_user_idx').on(t.userId)]);
@@ -161,6 +169,7 @@ export const checkouts = sqliteTable('checkouts', {
   id: id(),
   userId: text('user_id').notNull().references(() => user.id),
   cartId: text('cart_id').notNull(),
+  cartVersion: integer('cart_version').notNull().default(0),
   /** open | paid | expired | cancelled */
   state: text('state').notNull().default('open'),
   providerSessionId: text('provider_session_id'),
@@ -169,9 +178,12 @@ export const checkouts = sqliteTable('checkouts', {
   /** the priced cart frozen at session creation: shops, lines, shipping */
   priced: json<unknown>('priced').notNull(),
   paymentIntentId: text('payment_intent_id'),
+  chargeId: text('charge_id'),
+  /** set when the confirmation e-mails were handed to the mailer (sent once) */
+  mailedAt: integer('mailed_at'),
   createdAt: createdAt(),
   paidAt: integer('paid_at'),
-}, (t) => [uniqueIndex('checkouts_session_uq').on(t.providerSessionId)]);
+}, (t) => [uniqueIndex('checkouts_session_uq').on(t.providerSessionId), uniqueIndex('checkouts_cart_version_uq').on(t.cartId, t.cartVersion)]);
 
 export const orders = sqliteTable('orders', {
   id: id(),

@@ -29,10 +29,15 @@ export function isEmpty(deps: Pick<AppDeps, 'db'>): boolean {
 
 export type SeedHook = (deps: AppDeps, ctx: { userIds: Record<string, string>; shopIds: Record<string, string> }) => Promise<void> | void;
 
-/** Later features add their part of the demo (listings, orders …) here, in order. */
-const hooks: SeedHook[] = [];
+/**
+ * Later features add their part of the demo (listings, orders …) here, in order. `var` without an
+ * initialiser on purpose: the hook modules imported at the bottom of this file run before its body
+ * (ESM hoists imports), and a `const` list would still be in its TDZ when they register.
+ */
+// eslint-disable-next-line no-var
+var hooks: SeedHook[] | undefined;
 export function registerSeedHook(hook: SeedHook) {
-  hooks.push(hook);
+  (hooks ??= []).push(hook);
 }
 
 export async function seedDemo(deps: AppDeps): Promise<void> {
@@ -54,5 +59,7 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
       createdAt: at, updatedAt: at,
     }).run();
   }
-  for (const hook of hooks) await hook(deps, { userIds, shopIds });
+  for (const hook of hooks ?? []) await hook(deps, { userIds, shopIds });
 }
+import './seed-catalog.ts';
+import './seed-orders.ts';

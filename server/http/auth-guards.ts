@@ -23,6 +23,8 @@ const asRole = (r: unknown): Role => (r === 'seller' || r === 'admin' ? r : 'sho
 /** Reads the session cookie (if any) through better-auth and puts the user on `req.user`. */
 export function loadSession(auth: Auth): RequestHandler {
   return async (req, _res, next) => {
+    // no session cookie, nothing to look up: guests' requests skip the database
+    if (!req.headers.cookie?.includes('session_token')) return next();
     const result = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
     if (result && !result.user.banned) {
       req.user = { id: result.user.id, email: result.user.email, name: result.user.name, role: asRole(result.user.role) };

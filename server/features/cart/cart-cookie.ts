@@ -1,0 +1,27 @@
+// The guest cart's id lives in an HttpOnly cookie (OWASP ASVS 3.3.1 Secure in production, 3.3.2
+// SameSite, 3.3.4 HttpOnly). The id is a random UUID: knowing it is what owns a guest cart.
+import type { Request, Response } from 'express';
+
+export const CART_COOKIE = 'ns_cart';
+const MAX_AGE_S = 30 * 24 * 3600;
+
+export function readCartCookie(req: Request): string | null {
+  const header = req.headers.cookie ?? '';
+  for (const part of header.split(';')) {
+    const i = part.indexOf('=');
+    if (i < 0) continue;
+    if (part.slice(0, i).trim() === CART_COOKIE) {
+      const v = decodeURIComponent(part.slice(i + 1).trim());
+      return /^[0-9a-f-]{36}$/.test(v) ? v : null;
+    }
+  }
+  return null;
+}
+
+export function setCartCookie(res: Response, id: string, secure: boolean): void {
+  res.cookie(CART_COOKIE, id, { httpOnly: true, sameSite: 'lax', secure, path: '/', maxAge: MAX_AGE_S * 1000 });
+}
+
+export function clearCartCookie(res: Response, secure: boolean): void {
+  res.clearCookie(CART_COOKIE, { httpOnly: true, sameSite: 'lax', secure, path: '/' });
+}

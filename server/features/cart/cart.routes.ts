@@ -1,0 +1,34 @@
+import { Router } from 'express';
+import type { AppDeps } from '../../app.ts';
+import { validate } from '../../http/validate.ts';
+import { addCartLineSchema, cartLineParams, updateCartLineSchema } from '../../../shared/schemas/cart.ts';
+import { cartRepo } from './cart.repo.ts';
+import { addLine, cartView, removeLine, resolveCart, setQuantity } from './cart.service.ts';
+
+/** /api/cart — guests and signed-in shoppers alike. */
+export function cartRouter(deps: AppDeps): Router {
+  const r = Router();
+  r.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  r.get('/', (req, res) => {
+    res.json(cartView(deps.db, resolveCart(deps, req, res, { create: false })));
+  });
+  r.post('/lines', validate({ body: addCartLineSchema }), (req, res) => {
+    const cart = resolveCart(deps, req, res, { create: true })!;
+    addLine(deps, cart, req.body);
+    res.status(201).json(cartView(deps.db, cartRepo.find(deps.db, cart.id) ?? null));
+  });
+  r.patch('/lines/:lineId', validate({ params: cartLineParams, body: updateCartLineSchema }), (req, res) => {
+    const cart = resolveCart(deps, req, res, { create: false });
+    setQuantity(deps, cart, String(req.params.lineId), req.body.quantity);
+    res.json(cartView(deps.db, cartRepo.find(deps.db, cart!.id) ?? null));
+  });
+  r.delete('/lines/:lineId', validate({ params: cartLineParams }), (req, res) => {
+    const cart = resolveCart(deps, req, res, { create: false });
+    removeLine(deps, cart, String(req.params.lineId));
+    res.json(cartView(deps.db, cartRepo.find(deps.db, cart!.id) ?? null));
+  });
+  return r;
+}

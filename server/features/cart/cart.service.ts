@@ -1,0 +1,185 @@
+// Cart rules: one cart per signed-in user, a guest cart by cookie, merged on the first signed-in
+// call; lines priced by the server from the live listing (the posted body has no price at all).
+import crypto from 'node:crypto';
+import type { Request, Response } from 'express';
+import type { AppDeps } from '../../app.ts';
+import type { Db } from '../../db/client.ts';
+import { conflict, notFound } from '../../http/app-error.ts';
+import { getFontRegistry } from '../../integrations/fonts.ts';
+import type { AddCartLineInput, Cart, CartLine, CartShop, LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
+import type { MotifGeometry } from '../../../shared/engine/motif.ts';
+import { cartRepo, type CartRow } from './cart.repo.ts';
+import { clearCartCookie, readCartCookie, setCartCookie } from './cart-cookie.ts';
+import { buildSnapshot, readLiveContent, unitPrice, type LiveContent, type MaterialInfo, type MotifInfo } from './design.ts';
+
+export type CartDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
+
+type ListingRow = NonNullable<ReturnType<typeof cartRepo.listingWithShop>>;
+
+/** A listing can be bought while its approved copy is on sale and its shop is live. */
+export function onSale(row: ListingRow): LiveContent | null {
+  const { listing, shop } = row;
+  if (shop.state !== 'live' || !listing.live) return null;
+  const ok = listing.state === 'live' || (listing.state === 'in_review' && listing.pendingReview);
+  return ok ? readLiveContent(listing.live) : null;
+}
+
+/**
+ * The cart this request works on. Signed in: the user's cart, after folding in a guest cart from
+ * the cookie (then the cookie is cleared). Guest: the cookie's cart. `create` makes one if none.
+ */
+export function resolveCart(deps: CartDeps, req: Request, res: Response, opts: { create: boolean }): CartRow | null {
+  const { db } = deps;
+  const at = deps.now();
+  const secure = deps.env.production;
+  const cookieId = readCartCookie(req);
+  const cookieCart = cookieId ? cartRepo.find(db, cookieId) : undefined;
+  if (req.user) {
+    const userId = req.user.id;
+    let mine = cartRepo.findForUser(db, userId);
+    if (cookieCart && cookieCart.userId === null) {
+      db.transaction((tx) => {
+        if (!mine) {
+          cartRepo.claim(tx as unknown as Db, cookieCart.id, userId, at);
+        } else {
+          cartRepo.moveLines(tx as unknown as Db, cookieCart.id, mine.id);
+          cartRepo.touch(tx as unknown as Db, mine.id, at);
+          cartRepo.remove(tx as unknown as Db, cookieCart.id);
+        }
+      });
+      mine = cartRepo.findForUser(db, userId);
+    }
+    if (cookieId) clearCartCookie(res, secure);
+    if (!mine && opts.create) mine = cartRepo.create(db, { id: crypto.randomUUID(), userId, at });
+    return mine ?? null;
+  }
+  // a cookie naming a signed-in user's cart (left after sign-out) is not a guest's to use
+  if (cookieCart && cookieCart.userId === null) return cookieCart;
+  if (!opts.create) return null;
+  const cart = cartRepo.create(db, { id: crypto.randomUUID(), userId: null, at });
+  setCartCookie(res, cart.id, secure);
+  return cart;
+}
+
+export const emptyCart = (): Cart => ({ id: null, version: 0, currency: null, shops: [], itemCount: 0, subtotalMinor: 0, shippingMinor: 0, totalMinor: 0 });
+
+/** The cart as shown and as checked out: lines re-priced from the live listings, grouped by shop. */
+export function cartView(db: Db, cart: CartRow | null): Cart {
+  if (!cart) return emptyCart();
+  const lines = cartRepo.lines(db, cart.id);
+  const rows = new Map(cartRepo.listingsWithShops(db, [...new Set(lines.map((l) => l.listingId))]).map((r) => [r.listing.id, r]));
+  const byShop = new Map<string, CartShop>();
+  let currency: string | null = null;
+  for (const l of lines) {
+    const snap = l.snapshot as LineSnapshot;
+    const row = rows.get(l.listingId);
+    const content = row ? onSale(row) : null;
+    const price = content ? unitPrice(content, snap.choices) : snap.unitPriceMinor;
+    const line: CartLine = {
+      id: l.id,
+      listingId: l.listingId,
+      quantity: l.quantity,
+      unitPriceMinor: price,
+      lineTotalMinor: price * l.quantity,
+      snapshot: snap,
+      available: content !== null,
+    };
+    const shopId = row?.shop.id ?? snap.shopId;
+    let group = byShop.get(shopId);
+    if (!group) {
+      group = {
+        shopId,
+        shopName: row?.shop.name ?? 'A shop',
+        shopSlug: row?.shop.slug ?? '',
+        currency: row?.listing.currency ?? snap.currency,
+        lines: [],
+        subtotalMinor: 0,
+        shippingMinor: row?.shop.shippingMinor ?? 0,
+        totalMinor: 0,
+      };
+      byShop.set(shopId, group);
+    }
+    group.lines.push(line);
+    currency ??= group.currency;
+  }
+  const shops = [...byShop.values()];
+  for (const s of shops) {
+    s.subtotalMinor = s.lines.reduce((a, l) => a + (l.available ? l.lineTotalMinor : 0), 0);
+    // a shop whose every line went off sale ships nothing
+    if (!s.lines.some((l) => l.available)) s.shippingMinor = 0;
+    s.totalMinor = s.subtotalMinor + s.shippingMinor;
+  }
+  const subtotalMinor = shops.reduce((a, s) => a + s.subtotalMinor, 0);
+  const shippingMinor = shops.reduce((a, s) => a + s.shippingMinor, 0);
+  return {
+    id: cart.id,
+    version: cart.version,
+    currency,
+    shops,
+    itemCount: lines.reduce((a, l) => a + l.quantity, 0),
+    subtotalMinor,
+    shippingMinor,
+    totalMinor: subtotalMinor + shippingMinor,
+  };
+}
+
+/** Adds one personalised item: choices checked against the live listing, composed, priced, frozen. */
+export function addLine(deps: CartDeps, cart: CartRow, raw: AddCartLineInput): void {
+  const { db } = deps;
+  const input = addCartLineSchema.parse(raw);
+  const row = cartRepo.listingWithShop(db, input.listingId);
+  const content = row ? onSale(row) : null;
+  if (!row || !content) throw notFound('This listing is not on sale right now.');
+
+  const p = content.personalisation;
+  const materialIds = new Set<string>();
+  for (const f of p.textFields) f.colourChoices.forEach((c) => materialIds.add(c));
+  for (const m of p.motifChoices)
+    for (const l of m.layers) {
+      if (l.materialId) materialIds.add(l.materialId);
+      l.colourChoices?.forEach((c) => materialIds.add(c));
+    }
+  p.outline?.colourChoices.forEach((c) => materialIds.add(c));
+  const materials = new Map<string, MaterialInfo>(cartRepo.materials(db, row.shop.id, [...materialIds]).map((m) => [m.id, m]));
+  const motifs = new Map<string, MotifInfo>(
+    cartRepo.motifs(db, row.shop.id, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
+  );
+
+  const snapshot = buildSnapshot({
+    registry: getFontRegistry(),
+    listing: { id: row.listing.id, slug: row.listing.slug, shopId: row.shop.id, currency: row.listing.currency },
+    content,
+    choices: input.choices,
+    materials,
+    motifs,
+  });
+
+  const existing = cartView(db, cart);
+  if (existing.currency && existing.currency !== snapshot.currency) {
+    throw conflict(`Your cart is in ${existing.currency}; this item is priced in ${snapshot.currency}. Check out your cart first, then add it.`);
+  }
+  const at = deps.now();
+  db.transaction((tx) => {
+    cartRepo.addLine(tx as unknown as Db, { id: crypto.randomUUID(), cartId: cart.id, listingId: row.listing.id, quantity: input.quantity, snapshot, createdAt: at });
+    cartRepo.touch(tx as unknown as Db, cart.id, at);
+  });
+}
+
+export function setQuantity(deps: CartDeps, cart: CartRow | null, lineId: string, quantity: number): void {
+  const line = cart ? cartRepo.line(deps.db, cart.id, lineId) : undefined;
+  if (!cart || !line) throw notFound('That item is not in your cart.');
+  deps.db.transaction((tx) => {
+    cartRepo.setQuantity(tx as unknown as Db, lineId, quantity);
+    cartRepo.touch(tx as unknown as Db, cart.id, deps.now());
+  });
+}
+
+export function removeLine(deps: CartDeps, cart: CartRow | null, lineId: string): void {
+  const line = cart ? cartRepo.line(deps.db, cart.id, lineId) : undefined;
+  if (!cart || !line) throw notFound('That item is not in your cart.');
+  deps.db.transaction((tx) => {
+    cartRepo.deleteLine(tx as unknown as Db, lineId);
+    cartRepo.touch(tx as unknown as Db, cart.id, deps.now());
+  });
+}

@@ -1,0 +1,183 @@
+// One Checkout Session for the whole cart. The session is made for one (cart, version): a second
+// tab, a double click or a retried request finds the same checkout row and sends the same
+// Idempotency-Key with the same parameters, so the provider hands back the same session and there
+// is one charge at most (Stripe API docs, "Idempotent requests").
+import crypto from 'node:crypto';
+import type { Request, Response } from 'express';
+import type Stripe from 'stripe';
+import type { AppDeps } from '../../app.ts';
+import type { Db } from '../../db/client.ts';
+import { AppError, badRequest, conflict, notFound } from '../../http/app-error.ts';
+import type { SessionUser } from '../../http/auth-guards.ts';
+import { paymentsClient } from '../../integrations/payments.ts';
+import type { CheckoutStarted, CheckoutStatus, CheckoutState } from '../../../shared/schemas/checkout.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+// checkout reads the cart (one-way: cart never imports checkout)
+import { cartView, resolveCart } from '../cart/cart.service.ts';
+import { cartRepo } from '../cart/cart.repo.ts';
+import { checkoutRepo, type CheckoutRow } from './checkout.repo.ts';
+import { CANCELLED_WORDS, declineInOurWords } from './decline-words.ts';
+
+export type CheckoutDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
+
+/** The cart frozen at checkout; orders are made from exactly this, never from the live cart. */
+export type PricedCheckout = {
+  currency: string;
+  totalMinor: number;
+  shops: Array<{
+    shopId: string;
+    shopName: string;
+    shippingMinor: number;
+    subtotalMinor: number;
+    totalMinor: number;
+    lines: Array<{ cartLineId: string; listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; snapshot: LineSnapshot }>;
+  }>;
+};
+
+export const transferGroupOf = (checkoutId: string) => `checkout_${checkoutId}`;
+
+function sessionParams(deps: CheckoutDeps, c: CheckoutRow, email: string): Stripe.Checkout.SessionCreateParams {
+  const priced = c.priced as PricedCheckout;
+  const cur = priced.currency.toLowerCase();
+  const items: Stripe.Checkout.SessionCreateParams.LineItem[] = [];
+  for (const s of priced.shops) {
+    for (const l of s.lines) {
+      const name = l.snapshot.summary.find((x) => x.value && !/colour/i.test(x.label))?.value;
+      items.push({
+        quantity: l.quantity,
+        price_data: { currency: cur, unit_amount: l.unitPriceMinor, product_data: { name: `${l.title}${name ? ` — ${name}` : ''}`.slice(0, 250), description: `From ${s.shopName}`.slice(0, 500) } },
+      });
+    }
+    if (s.shippingMinor > 0) items.push({ quantity: 1, price_data: { currency: cur, unit_amount: s.shippingMinor, product_data: { name: `Shipping from ${s.shopName}`.slice(0, 250) } } });
+  }
+  const base = deps.env.baseUrl;
+  return {
+    mode: 'payment',
+    line_items: items,
+    metadata: { checkoutId: c.id },
+    client_reference_id: c.id,
+    customer_email: email,
+    payment_intent_data: { transfer_group: transferGroupOf(c.id), metadata: { checkoutId: c.id } },
+    success_url: `${base}/checkout/return?session_id={CHECKOUT_SESSION_ID}`,
+    cancel_url: `${base}/cart?checkout=cancelled`,
+  };
+}
+
+function freeze(view: ReturnType<typeof cartView>): PricedCheckout {
+  return {
+    currency: view.currency!,
+    totalMinor: view.totalMinor,
+    shops: view.shops.map((s) => ({
+      shopId: s.shopId,
+      shopName: s.shopName,
+      shippingMinor: s.shippingMinor,
+      subtotalMinor: s.subtotalMinor,
+      totalMinor: s.totalMinor,
+      lines: s.lines.map((l) => ({ cartLineId: l.id, listingId: l.listingId, title: l.snapshot.listingTitle, quantity: l.quantity, unitPriceMinor: l.unitPriceMinor, totalMinor: l.lineTotalMinor, snapshot: { ...l.snapshot, unitPriceMinor: l.unitPriceMinor } })),
+    })),
+  };
+}
+
+/** POST /api/checkout */
+export async function startCheckout(deps: CheckoutDeps, req: Request, res: Response, user: SessionUser, attempt = 0): Promise<CheckoutStarted> {
+  const { db } = deps;
+  const cart = resolveCart(deps, req, res, { create: false });
+  const view = cartView(db, cart);
+  if (!cart || view.itemCount === 0) throw badRequest('Your cart is empty. Add something first.');
+  const gone = view.shops.flatMap((s) => s.lines).filter((l) => !l.available);
+  if (gone.length > 0) throw conflict(`${gone.map((l) => `“${l.snapshot.listingTitle}”`).join(', ')} ${gone.length > 1 ? 'are' : 'is'} no longer on sale. Remove ${gone.length > 1 ? 'them' : 'it'} to check out.`);
+  const currencies = new Set(view.shops.map((s) => s.currency));
+  if (currencies.size > 1) throw conflict('Your cart mixes currencies; check out one currency at a time.');
+
+  checkoutRepo.insertIfAbsent(db, {
+    id: crypto.randomUUID(),
+    userId: user.id,
+    cartId: cart.id,
+    cartVersion: cart.version,
+    state: 'open',
+    currency: view.currency!,
+    totalMinor: view.totalMinor,
+    priced: freeze(view),
+    createdAt: deps.now(),
+  });
+  const c = checkoutRepo.forCartVersion(db, cart.id, cart.version)!;
+  if (c.userId !== user.id) throw notFound('That cart is not yours.');
+  if (c.state === 'paid') throw conflict('This cart has been paid already. Your order is on its way to the shops.');
+
+  const stripe = paymentsClient(deps.env);
+  // a payment page left open for an older version of this cart must not be paid as well
+  for (const old of checkoutRepo.openForCart(db, cart.id).filter((x) => x.cartVersion < cart.version && x.providerSessionId)) {
+    try {
+      await stripe.checkout.sessions.expire(old.providerSessionId!);
+      checkoutRepo.setState(db, old.id, 'expired');
+    } catch {
+      // already completed or expired at the provider: its own webhook tells us which
+    }
+  }
+  let session: Stripe.Checkout.Session;
+  try {
+    session = await stripe.checkout.sessions.create(sessionParams(deps, c, user.email), { idempotencyKey: `checkout-${cart.id}-v${cart.version}` });
+  } catch (e) {
+    console.error('checkout: session create failed', e);
+    throw new AppError(502, 'payment_provider', 'We could not open the payment page just now. Nothing was charged; please try again in a moment.');
+  }
+  if (!c.providerSessionId) checkoutRepo.setSession(db, c.id, session.id);
+
+  if (session.status === 'expired' && attempt === 0) {
+    // the page for this cart version timed out: mark it and start afresh with a new version
+    checkoutRepo.setState(db, c.id, 'expired');
+    cartRepo.touch(db, cart.id, deps.now());
+    return startCheckout(deps, req, res, user, 1);
+  }
+  const url = session.status === 'complete' ? `${deps.env.baseUrl}/checkout/return?session_id=${session.id}` : session.url;
+  if (!url) throw new AppError(502, 'payment_provider', 'The payment page is not available. Nothing was charged; please try again.');
+  return { checkoutId: c.id, sessionId: session.id, url };
+}
+
+async function problemOf(deps: CheckoutDeps, sessionId: string): Promise<{ problem: string | null; payUrl: string | null; providerState: string; paid: boolean }> {
+  const stripe = paymentsClient(deps.env);
+  const s = await stripe.checkout.sessions.retrieve(sessionId, { expand: ['payment_intent'] });
+  const pi = typeof s.payment_intent === 'object' ? s.payment_intent : null;
+  const err = pi?.last_payment_error ?? null;
+  return { problem: declineInOurWords(err), payUrl: s.status === 'open' ? s.url : null, providerState: s.status ?? 'open', paid: s.payment_status === 'paid' };
+}
+
+function statusOf(db: Db, c: CheckoutRow, extra: { problem: string | null; payUrl: string | null; paid: boolean }): CheckoutStatus {
+  return {
+    checkoutId: c.id,
+    sessionId: c.providerSessionId,
+    state: c.state as CheckoutState,
+    payUrl: c.state === 'open' ? extra.payUrl : null,
+    problem: c.state === 'paid' ? null : extra.problem,
+    totalMinor: c.totalMinor,
+    currency: c.currency,
+    paymentReceived: c.state === 'paid' || extra.paid,
+    orders: checkoutRepo.ordersOf(db, c.id),
+  };
+}
+
+/**
+ * GET /api/checkout/:sessionId/status — for the return page. Waits up to `waitMs` for the webhook
+ * to turn the payment into orders (the provider may redirect the shopper before it calls us).
+ */
+export async function checkoutStatus(deps: CheckoutDeps, user: SessionUser, sessionId: string, waitMs: number) {
+  const { db } = deps;
+  let c = checkoutRepo.bySession(db, sessionId);
+  if (!c || c.userId !== user.id) throw notFound('We could not find that payment.');
+  const until = Date.now() + waitMs;
+  while (c.state === 'open' && Date.now() < until) {
+    await new Promise((r) => setTimeout(r, 150));
+    c = checkoutRepo.find(db, c.id)!;
+  }
+  if (c.state !== 'open') return statusOf(db, c, { problem: null, payUrl: null, paid: c.state === 'paid' });
+  const p = await problemOf(deps, sessionId).catch(() => ({ problem: null, payUrl: null, providerState: 'open', paid: false }));
+  return statusOf(db, c, p);
+}
+
+/** GET /api/checkout/latest — the cart page asks why the shopper came back (cancelled or declined). */
+export async function latestCheckout(deps: CheckoutDeps, user: SessionUser) {
+  const c = checkoutRepo.latestOpenForUser(deps.db, user.id);
+  if (!c || !c.providerSessionId) return null;
+  const p = await problemOf(deps, c.providerSessionId).catch(() => ({ problem: null, payUrl: null, providerState: 'open', paid: false }));
+  return statusOf(deps.db, c, { ...p, problem: p.problem ?? (p.paid ? null : CANCELLED_WORDS) });
+}

@@ -1,0 +1,122 @@
+import crypto from 'node:crypto';
+import slugify from 'slugify';
+import type { Db } from '../../db/client.ts';
+import type { ListingContent } from '../../db/schema.ts';
+import { AppError, conflict, notFound } from '../../http/app-error.ts';
+import { materialIdsOf, type ListingContentParsed, type ListingState, type SellerListing } from '../../../shared/schemas/listing.ts';
+import { deleteOwn, findOwn, insertListing, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn, type ListingRow } from './listings.repo.ts';
+
+type Deps = { db: Db; now: () => number };
+
+export function toSellerListing(l: ListingRow): SellerListing {
+  return {
+    id: l.id, slug: l.slug, state: l.state as ListingState, pendingReview: l.pendingReview, rejectionReason: l.rejectionReason,
+    draft: l.draft as unknown as ListingContentParsed, live: (l.live as unknown as ListingContentParsed | null) ?? null,
+    currency: l.currency, publishedAt: l.publishedAt, createdAt: l.createdAt, updatedAt: l.updatedAt,
+  };
+}
+
+const gone = () => notFound('No such listing in your shop.');
+
+/**
+ * Everything a listing refers to must belong to the seller's own shop: materials (not archived),
+ * motifs (and the layer ids must exist in the motif), photos. Another shop's id reads as unknown.
+ */
+function checkReferences(db: Db, shopId: string, c: ListingContentParsed) {
+  const fields: Record<string, string> = {};
+  const p = c.personalisation;
+  const mats = new Map(ownMaterials(db, shopId, materialIdsOf(p)).map((m) => [m.id, m]));
+  const checkMat = (id: string | undefined, path: string) => {
+    if (!id) return;
+    const m = mats.get(id);
+    if (!m) fields[path] = 'Pick a material from your shop.';
+    else if (m.archived) fields[path] = 'This material is archived; pick another.';
+  };
+  p.textFields.forEach((f, i) => f.colourChoices.forEach((m, j) => checkMat(m, `personalisation.textFields.${i}.colourChoices.${j}`)));
+  p.outline?.colourChoices.forEach((m, j) => checkMat(m, `personalisation.outline.colourChoices.${j}`));
+  const motifs = new Map(ownMotifs(db, shopId, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, m]));
+  p.motifChoices.forEach((mc, i) => {
+    const motif = motifs.get(mc.motifId);
+    if (!motif) {
+      fields[`personalisation.motifChoices.${i}.motifId`] = 'Pick a motif from your shop.';
+      return;
+    }
+    const layerIds = new Set((motif.geometry as { layers: { id: string }[] }).layers.map((l) => l.id));
+    mc.layers.forEach((l, j) => {
+      if (!layerIds.has(l.layerId)) fields[`personalisation.motifChoices.${i}.layers.${j}.layerId`] = 'This motif has no such layer.';
+      checkMat(l.materialId, `personalisation.motifChoices.${i}.layers.${j}.materialId`);
+      l.colourChoices?.forEach((m, k) => checkMat(m, `personalisation.motifChoices.${i}.layers.${j}.colourChoices.${k}`));
+    });
+  });
+  const photos = new Set(ownPhotos(db, shopId, c.photoIds).filter((u) => u.kind === 'photo').map((u) => u.id));
+  c.photoIds.forEach((id, i) => {
+    if (!photos.has(id)) fields[`photoIds.${i}`] = 'Upload this photo to your shop first.';
+  });
+  if (Object.keys(fields).length) throw new AppError(400, 'invalid_input', 'Some fields need attention.', fields);
+}
+
+function uniqueSlug(db: Db, title: string): string {
+  const base = slugify(title, { lower: true, strict: true }).slice(0, 60).replace(/-+$/, '') || 'listing';
+  const taken = new Set(slugsLike(db, base));
+  if (!taken.has(base)) return base;
+  for (let i = 2; ; i++) if (!taken.has(`${base}-${i}`)) return `${base}-${i}`;
+}
+
+export const list = (db: Db, shopId: string, state?: string) => listOwn(db, shopId, state).map(toSellerListing);
+
+export function get(db: Db, shopId: string, id: string): SellerListing {
+  const l = findOwn(db, shopId, id);
+  if (!l) throw gone();
+  return toSellerListing(l);
+}
+
+export function create(deps: Deps, shop: { id: string; currency: string }, content: ListingContentParsed): SellerListing {
+  checkReferences(deps.db, shop.id, content);
+  const at = deps.now();
+  return toSellerListing(insertListing(deps.db, {
+    id: crypto.randomUUID(), shopId: shop.id, slug: uniqueSlug(deps.db, content.title), state: 'draft',
+    draft: content as unknown as ListingContent, currency: shop.currency, createdAt: at, updatedAt: at,
+  }));
+}
+
+/**
+ * Saves the working copy. A listing on sale (live or paused) keeps its approved copy on sale and
+ * the change waits for review (pendingReview); a rejected listing becomes a draft again.
+ */
+export function update(deps: Deps, shopId: string, id: string, content: ListingContentParsed): SellerListing {
+  const l = findOwn(deps.db, shopId, id);
+  if (!l) throw gone();
+  checkReferences(deps.db, shopId, content);
+  const onSale = l.live !== null && (l.state === 'live' || l.state === 'paused');
+  const state = l.state === 'rejected' ? 'draft' : l.state;
+  return toSellerListing(updateOwn(deps.db, shopId, id, {
+    draft: content as unknown as ListingContent, state, pendingReview: onSale ? true : l.pendingReview,
+    rejectionReason: onSale ? l.rejectionReason : null, updatedAt: deps.now(),
+  })!);
+}
+
+/** draft | rejected → in_review. */
+export function submit(deps: Deps, shopId: string, id: string): SellerListing {
+  const l = findOwn(deps.db, shopId, id);
+  if (!l) throw gone();
+  if (l.state === 'in_review' || l.pendingReview) return toSellerListing(l);
+  if (l.state !== 'draft' && l.state !== 'rejected') throw conflict('Only a draft or a rejected listing can be sent for review; edit a live listing to send its changes.');
+  return toSellerListing(updateOwn(deps.db, shopId, id, { state: 'in_review', rejectionReason: null, updatedAt: deps.now() })!);
+}
+
+export function setPaused(deps: Deps, shopId: string, id: string, paused: boolean): SellerListing {
+  const l = findOwn(deps.db, shopId, id);
+  if (!l) throw gone();
+  const from = paused ? 'live' : 'paused';
+  if (l.state !== from) throw conflict(paused ? 'Only a live listing can be paused.' : 'Only a paused listing can be put back on sale.');
+  return toSellerListing(updateOwn(deps.db, shopId, id, { state: paused ? 'paused' : 'live', updatedAt: deps.now() })!);
+}
+
+/** A listing that was never on sale can be deleted; one that was (orders may point at it) is paused instead. */
+export function remove(deps: Deps, shopId: string, id: string) {
+  const l = findOwn(deps.db, shopId, id);
+  if (!l) throw gone();
+  if (l.live !== null || l.publishedAt !== null) throw conflict('This listing has been on sale; pause it instead of deleting it.');
+  deleteOwn(deps.db, shopId, id);
+  return { deleted: true };
+}

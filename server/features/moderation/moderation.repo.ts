@@ -1,0 +1,32 @@
+import { and, desc, eq, inArray, or, sql } from 'drizzle-orm';
+import type { Db } from '../../db/client.ts';
+import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
+
+export type ShopRow = typeof shops.$inferSelect;
+export type ListingRow = typeof listings.$inferSelect;
+
+export const shopsInReview = (db: Db) =>
+  db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
+    .where(eq(shops.state, 'in_review')).orderBy(shops.createdAt).all();
+export const listingsInReview = (db: Db) =>
+  db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId))
+    .where(or(eq(listings.state, 'in_review'), eq(listings.pendingReview, true))).orderBy(listings.updatedAt).all();
+
+export const findShop = (db: Db, id: string) => db.select().from(shops).where(eq(shops.id, id)).get();
+export const findListing = (db: Db, id: string) => db.select().from(listings).where(eq(listings.id, id)).get();
+export const ownerOf = (db: Db, shopId: string) =>
+  db.select({ email: user.email, name: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(eq(shops.id, shopId)).get();
+export const updateShop = (db: Db, id: string, set: Partial<typeof shops.$inferInsert>) => db.update(shops).set(set).where(eq(shops.id, id)).returning().get();
+export const updateListing = (db: Db, id: string, set: Partial<typeof listings.$inferInsert>) =>
+  db.update(listings).set(set).where(eq(listings.id, id)).returning().get();
+export const thumbOf = (db: Db, shopId: string, uploadId: string | undefined) =>
+  uploadId ? (db.select({ t: uploads.thumbPath }).from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.shopId, shopId))).get()?.t ?? null) : null;
+
+export const insertAudit = (db: Db, row: typeof auditLog.$inferInsert) => db.insert(auditLog).values(row).run();
+export const auditPage = (db: Db, limit: number, offset: number) =>
+  db.select({ entry: auditLog, actorName: user.name, actorEmail: user.email }).from(auditLog).innerJoin(user, eq(user.id, auditLog.actorId))
+    .orderBy(desc(auditLog.createdAt), desc(sql`audit_log.rowid`)).limit(limit).offset(offset).all();
+export const auditCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(auditLog).get()?.n ?? 0;
+export const shopNames = (db: Db, ids: string[]) => (ids.length ? db.select({ id: shops.id, name: shops.name }).from(shops).where(inArray(shops.id, ids)).all() : []);
+export const listingTitles = (db: Db, ids: string[]) =>
+  ids.length ? db.select({ id: listings.id, draft: listings.draft }).from(listings).where(inArray(listings.id, ids)).all() : [];

@@ -1,0 +1,35 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../../app.ts';
+import { currentUser, requireRole } from '../../http/auth-guards.ts';
+import { validate } from '../../http/validate.ts';
+import { moderationIdParams, optionalReasonSchema, reasonSchema } from '../../../shared/schemas/catalog.ts';
+import * as svc from './moderation.service.ts';
+
+/** /api/moderation: the moderation desk, admins only (403 for everyone else, 401 for guests). */
+export function moderationRouter(deps: AppDeps): Router {
+  const r = Router();
+  r.use(requireRole('admin'));
+  const id = (req: { params: Record<string, unknown> }) => String(req.params.id);
+  r.get('/queue', (_req, res) => {
+    res.json(svc.queue(deps.db));
+  });
+  r.post('/listings/:id/approve', validate({ params: moderationIdParams }), async (req, res) => {
+    res.json({ listing: await svc.approveListing(deps, currentUser(req), id(req)) });
+  });
+  r.post('/listings/:id/reject', validate({ params: moderationIdParams, body: reasonSchema }), async (req, res) => {
+    res.json({ listing: await svc.rejectListing(deps, currentUser(req), id(req), req.body.reason) });
+  });
+  for (const move of ['approve', 'restore'] as const)
+    r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: optionalReasonSchema }), async (req, res) => {
+      res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason ?? null) });
+    });
+  for (const move of ['reject', 'suspend'] as const)
+    r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: reasonSchema }), async (req, res) => {
+      res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason) });
+    });
+  r.get('/audit', validate({ query: z.object({ page: z.coerce.number().int().min(1).max(10_000).default(1) }) }), (_req, res) => {
+    res.json(svc.auditLog(deps.db, (res.locals.query as { page: number }).page));
+  });
+  return r;
+}

@@ -1,0 +1,35 @@
+// Every database call for orders, their lines, versions, events and ledger rows.
+import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import type { Db } from '../../db/client.ts';
+import { checkouts, ledger, lineEvents, lineVersions, orderLines, orders, refunds, shops, user } from '../../db/schema.ts';
+
+export type OrderRow = typeof orders.$inferSelect;
+export type OrderLineRow = typeof orderLines.$inferSelect;
+
+export const ordersRepo = {
+  find: (db: Db, id: string) => db.select().from(orders).where(eq(orders.id, id)).get(),
+  forBuyer: (db: Db, buyerId: string) => db.select().from(orders).where(eq(orders.buyerId, buyerId)).orderBy(desc(orders.paidAt), desc(orders.number)).all(),
+  ofCheckout: (db: Db, checkoutId: string) => db.select().from(orders).where(eq(orders.checkoutId, checkoutId)).orderBy(orders.number).all(),
+  lines: (db: Db, orderIds: string[]) => (orderIds.length ? db.select().from(orderLines).where(inArray(orderLines.orderId, orderIds)).orderBy(orderLines.createdAt, orderLines.id).all() : []),
+  events: (db: Db, lineIds: string[]) => (lineIds.length ? db.select().from(lineEvents).where(inArray(lineEvents.lineId, lineIds)).orderBy(lineEvents.createdAt, lineEvents.id).all() : []),
+  shopsByIds: (db: Db, ids: string[]) => (ids.length ? db.select().from(shops).where(inArray(shops.id, ids)).all() : []),
+  userEmail: (db: Db, id: string) => db.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, id)).get(),
+  nextNumber(db: Db): string {
+    const row = db.get<{ n: number | null }>(sql`select max(cast(substr(number, 4) as integer)) as n from orders where number like 'NS-%'`);
+    return `NS-${Math.max(1000, row?.n ?? 1000) + 1}`;
+  },
+  insertOrder: (db: Db, row: typeof orders.$inferInsert) => db.insert(orders).values(row).run(),
+  insertLine: (db: Db, row: typeof orderLines.$inferInsert) => db.insert(orderLines).values(row).run(),
+  insertVersion: (db: Db, row: typeof lineVersions.$inferInsert) => db.insert(lineVersions).values(row).run(),
+  insertEvent: (db: Db, row: typeof lineEvents.$inferInsert) => db.insert(lineEvents).values(row).run(),
+  insertLedger: (db: Db, row: typeof ledger.$inferInsert) => db.insert(ledger).values(row).run(),
+  ledgerOf: (db: Db, orderId: string) => db.select().from(ledger).where(eq(ledger.orderId, orderId)).all(),
+  /** claims the order's transfer slot; false when another delivery already recorded it */
+  setTransfer: (db: Db, orderId: string, transferId: string) =>
+    db.update(orders).set({ transferId }).where(and(eq(orders.id, orderId), isNull(orders.transferId))).run().changes === 1,
+  setLine: (db: Db, lineId: string, set: Partial<typeof orderLines.$inferInsert>) => db.update(orderLines).set(set).where(eq(orderLines.id, lineId)).run(),
+  refundsOf: (db: Db, orderId: string) => db.select().from(refunds).where(eq(refunds.orderId, orderId)).all(),
+  insertRefund: (db: Db, row: typeof refunds.$inferInsert) => db.insert(refunds).values(row).run(),
+  refundByProviderId: (db: Db, id: string) => db.select().from(refunds).where(eq(refunds.providerRefundId, id)).get(),
+  checkout: (db: Db, id: string) => db.select().from(checkouts).where(eq(checkouts.id, id)).get(),
+};

@@ -1,0 +1,92 @@
+// Orders are made from a paid checkout: one order per shop, lines waiting for the proof check.
+import crypto from 'node:crypto';
+import type { Db } from '../../db/client.ts';
+import { splitForShop } from '../../../shared/money.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { notFound } from '../../http/app-error.ts';
+import { ordersRepo, type OrderRow } from './orders.repo.ts';
+import { listOrders, orderDetail } from './order-view.ts';
+
+export type PricedShop = {
+  shopId: string;
+  shopName: string;
+  shippingMinor: number;
+  subtotalMinor: number;
+  totalMinor: number;
+  lines: Array<{ listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; snapshot: LineSnapshot }>;
+};
+
+/** The date a shop should ship by: `days` of its working days after payment (UTC dates). */
+export function shipByDate(paidAt: number, days: number, workingDays: number[], daysOff: string[]): string {
+  const d = new Date(paidAt);
+  let left = Math.max(0, days);
+  const works = (x: Date) => {
+    const iso = x.getUTCDay() === 0 ? 7 : x.getUTCDay();
+    return workingDays.includes(iso) && !daysOff.includes(x.toISOString().slice(0, 10));
+  };
+  for (let guard = 0; left > 0 && guard < 400; guard++) {
+    d.setUTCDate(d.getUTCDate() + 1);
+    if (works(d)) left--;
+  }
+  return d.toISOString().slice(0, 10);
+}
+
+/**
+ * Creates the orders of one paid checkout. Runs inside the webhook's transaction (the caller's
+ * `db` is the transaction), so the orders and the processed event id commit together or not at all.
+ */
+export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buyerId: string; currency: string; shops: PricedShop[]; paidAt: number; feeBps: number; paymentIntentId: string | null }): OrderRow[] {
+  const shopRows = new Map(ordersRepo.shopsByIds(db, args.shops.map((s) => s.shopId)).map((s) => [s.id, s]));
+  const made: OrderRow[] = [];
+  for (const s of args.shops) {
+    const shop = shopRows.get(s.shopId);
+    const split = splitForShop(s.subtotalMinor, s.shippingMinor, args.feeBps);
+    const orderId = crypto.randomUUID();
+    ordersRepo.insertOrder(db, {
+      id: orderId,
+      number: ordersRepo.nextNumber(db),
+      checkoutId: args.checkoutId,
+      shopId: s.shopId,
+      buyerId: args.buyerId,
+      currency: args.currency,
+      subtotalMinor: s.subtotalMinor,
+      shippingMinor: s.shippingMinor,
+      platformFeeMinor: split.feeMinor,
+      totalMinor: split.shopTotalMinor,
+      shipByDate: shop ? shipByDate(args.paidAt, shop.processingDays, shop.workingDays, shop.daysOff) : null,
+      paidAt: args.paidAt,
+      createdAt: args.paidAt,
+    });
+    for (const l of s.lines) {
+      const lineId = crypto.randomUUID();
+      ordersRepo.insertLine(db, {
+        id: lineId,
+        orderId,
+        listingId: l.listingId,
+        listingTitle: l.title,
+        quantity: l.quantity,
+        unitPriceMinor: l.unitPriceMinor,
+        totalMinor: l.totalMinor,
+        state: 'awaiting_proof',
+        snapshot: l.snapshot,
+        version: 1,
+        createdAt: args.paidAt,
+        updatedAt: args.paidAt,
+      });
+      ordersRepo.insertVersion(db, { id: crypto.randomUUID(), lineId, version: 1, snapshot: l.snapshot, authorId: args.buyerId, createdAt: args.paidAt });
+      ordersRepo.insertEvent(db, { id: crypto.randomUUID(), lineId, actorId: null, fromState: null, toState: 'awaiting_proof', message: 'Paid. The shop will check the personalisation before cutting.', createdAt: args.paidAt });
+    }
+    ordersRepo.insertLedger(db, { id: crypto.randomUUID(), shopId: s.shopId, orderId, kind: 'charge', amountMinor: split.shopTotalMinor, currency: args.currency, providerRef: args.paymentIntentId, memo: 'shopper paid (lines + shipping)', createdAt: args.paidAt });
+    made.push(ordersRepo.find(db, orderId)!);
+  }
+  return made;
+}
+
+export const shopperOrders = (db: Db, buyerId: string) => listOrders(db, buyerId);
+
+/** A shopper sees only their own orders; anyone else's is "not found" (no hint that it exists). */
+export function shopperOrder(db: Db, buyerId: string, orderId: string) {
+  const o = ordersRepo.find(db, orderId);
+  if (!o || o.buyerId !== buyerId) throw notFound('We could not find that order.');
+  return orderDetail(db, o);
+}

@@ -1,0 +1,51 @@
+import crypto from 'node:crypto';
+import type { Db } from '../../db/client.ts';
+import type { ShopRow, SessionUser } from '../../http/auth-guards.ts';
+import { badRequest, conflict } from '../../http/app-error.ts';
+import { uploadUrl, type Storage } from '../../integrations/storage.ts';
+import type { OwnShop, ShopSettingsInput, ShopState } from '../../../shared/schemas/shop.ts';
+import { findOwnUpload, insertUpload, slugTakenByOther, updateShop } from './shops.repo.ts';
+
+export function toOwnShop(s: ShopRow): OwnShop {
+  return {
+    id: s.id,
+    name: s.name,
+    slug: s.slug,
+    description: s.description,
+    state: s.state as ShopState,
+    stateReason: s.stateReason,
+    currency: s.currency,
+    processingDays: s.processingDays,
+    shippingMinor: s.shippingMinor,
+    returnPolicy: s.returnPolicy,
+    pressType: s.pressType as OwnShop['pressType'],
+    logoUrl: uploadUrl(s.logoPath),
+  };
+}
+
+export function updateSettings(deps: { db: Db; now: () => number }, shop: ShopRow, input: ShopSettingsInput): OwnShop {
+  const { db } = deps;
+  const { logoId, ...rest } = input;
+  const set: Record<string, unknown> = { ...rest, updatedAt: deps.now() };
+  if (rest.slug && slugTakenByOther(db, rest.slug, shop.id)) throw conflict('Another shop already uses this web address.', { slug: 'Another shop already uses this web address.' });
+  if (logoId !== undefined) {
+    if (logoId === null) set.logoPath = null;
+    else {
+      const up = findOwnUpload(db, shop.id, logoId);
+      if (!up) throw badRequest('Upload the logo first.', { logoId: 'No such upload in your shop.' });
+      set.logoPath = up.thumbPath;
+    }
+  }
+  return toOwnShop(updateShop(db, shop.id, set)!);
+}
+
+/** Stores an uploaded logo (checked and re-encoded by storage) and makes it the shop's logo. */
+export async function replaceLogo(deps: { db: Db; now: () => number; storage: Storage }, user: SessionUser, shop: ShopRow, buf: Buffer): Promise<OwnShop> {
+  const img = await deps.storage.saveImage(buf);
+  const at = deps.now();
+  insertUpload(deps.db, {
+    id: crypto.randomUUID(), ownerId: user.id, shopId: shop.id, kind: 'logo', path: img.fileName, thumbPath: img.thumbName,
+    mime: img.mime, width: img.width, height: img.height, bytes: img.bytes, createdAt: at,
+  });
+  return toOwnShop(updateShop(deps.db, shop.id, { logoPath: img.thumbName, updatedAt: at })!);
+}

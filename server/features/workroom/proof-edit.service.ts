@@ -1,0 +1,117 @@
+// The shopper's side of a change request: read what may be edited, and save the new
+// personalisation. The new choices go through the same checks and the same engine composition as
+// the cart (cart/design.ts buildSnapshot — reused, not copied, so the rules can't drift); the line
+// gets a new line_versions row and goes back to `awaiting_proof`. Every version is kept.
+import crypto from 'node:crypto';
+import type { Db } from '../../db/client.ts';
+import type { WorkroomDeps } from './workroom.service.ts';
+import { AppError, notFound } from '../../http/app-error.ts';
+import { getFontRegistry } from '../../integrations/fonts.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import type { Choices } from '../../../shared/schemas/listing.ts';
+import { personalisationEditSchema } from '../../../shared/schemas/workroom.ts';
+import type { MotifGeometry } from '../../../shared/engine/motif.ts';
+import { catalogEntry } from '../../../shared/engine/font-catalog.ts';
+// the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
+import { buildSnapshot, readLiveContent, type MaterialInfo, type MotifInfo } from '../cart/design.ts';
+import { formatMoney } from '../../../shared/money.ts';
+import { workroomRepo as repo } from './workroom.repo.ts';
+
+export type EditableTextField = { id: string; label: string; maxLength: number; required: boolean; fonts: Array<{ id: string; label: string }>; colours: Array<{ id: string; label: string; hex: string }> };
+export type PersonalisationEdit = {
+  line: { id: string; orderId: string; state: string; listingTitle: string; version: number };
+  editable: boolean;
+  changeRequest: string | null;
+  choices: Choices;
+  textFields: EditableTextField[];
+};
+
+function buyersLine(db: Db, buyerId: string, lineId: string) {
+  const line = repo.lineById(db, lineId);
+  const order = line ? repo.orderById(db, line.orderId) : undefined;
+  if (!line || !order || order.buyerId !== buyerId) throw notFound('We could not find that item in your orders.');
+  return { line, order };
+}
+
+function contentOf(db: Db, listingId: string) {
+  const l = repo.listing(db, listingId);
+  // the copy the shopper bought from; a listing paused since then can still be corrected
+  const content = readLiveContent(l?.live ?? l?.draft);
+  if (!l || !content) throw new AppError(409, 'listing_gone', 'This listing can no longer be personalised. Write to the shop about the change.');
+  return { listing: l, content };
+}
+
+export function personalisationForEdit(db: Db, buyerId: string, lineId: string): PersonalisationEdit {
+  const { line } = buyersLine(db, buyerId, lineId);
+  const { listing, content } = contentOf(db, line.listingId);
+  const mats = new Map(repo.materialsOfShop(db, listing.shopId).map((m) => [m.id, m]));
+  const events = repo.events(db, [line.id]);
+  const request = [...events].reverse().find((e) => e.toState === 'changes_requested');
+  return {
+    line: { id: line.id, orderId: line.orderId, state: line.state, listingTitle: line.listingTitle, version: line.version },
+    editable: line.state === 'changes_requested',
+    changeRequest: line.state === 'changes_requested' ? (request?.message ?? null) : null,
+    choices: (line.snapshot as LineSnapshot).choices,
+    textFields: content.personalisation.textFields.map((f) => ({
+      id: f.id,
+      label: f.label,
+      maxLength: f.maxLength,
+      required: f.required,
+      fonts: f.fontIds.map((id) => {
+        const e = catalogEntry(id);
+        return { id, label: e ? `${e.family} (${e.style})` : id };
+      }),
+      colours: f.colourChoices.map((id) => {
+        const m = mats.get(id);
+        return { id, label: m ? `${m.colourName} (${m.kind})` : 'Unavailable colour', hex: m?.colourHex ?? '#000000' };
+      }),
+    })),
+  };
+}
+
+export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId: string, raw: unknown): PersonalisationEdit {
+  const { db } = deps;
+  const { choices } = personalisationEditSchema.parse(raw);
+  const { line } = buyersLine(db, buyerId, lineId);
+  if (line.state !== 'changes_requested') {
+    throw new AppError(409, 'wrong_state', 'This item can be edited only while the shop has asked for a change.');
+  }
+  const { listing, content } = contentOf(db, line.listingId);
+  const old = line.snapshot as LineSnapshot;
+
+  const p = content.personalisation;
+  const materialIds = new Set<string>();
+  for (const f of p.textFields) f.colourChoices.forEach((c) => materialIds.add(c));
+  for (const m of p.motifChoices)
+    for (const l of m.layers) {
+      if (l.materialId) materialIds.add(l.materialId);
+      l.colourChoices?.forEach((c) => materialIds.add(c));
+    }
+  p.outline?.colourChoices.forEach((c) => materialIds.add(c));
+  const materials = new Map<string, MaterialInfo>(repo.materialsOfShop(db, listing.shopId).filter((m) => materialIds.has(m.id)).map((m) => [m.id, m]));
+  const motifs = new Map<string, MotifInfo>(
+    repo.motifsOfShop(db, listing.shopId, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
+  );
+  const fresh = buildSnapshot({
+    registry: getFontRegistry(),
+    listing: { id: listing.id, slug: listing.slug, shopId: listing.shopId, currency: listing.currency },
+    content,
+    choices,
+    materials,
+    motifs,
+  });
+  // The item is paid: a correction may not add layers that would cost more than was paid.
+  if (fresh.unitPriceMinor > old.unitPriceMinor) {
+    throw new AppError(409, 'price_changed', `This change adds a layer and would cost ${formatMoney(fresh.unitPriceMinor, old.currency)} instead of the ${formatMoney(old.unitPriceMinor, old.currency)} you paid. Keep the same colours, or write to the shop.`);
+  }
+  const snapshot: LineSnapshot = { ...fresh, unitPriceMinor: old.unitPriceMinor, listingTitle: old.listingTitle };
+  const at = deps.now();
+  const version = line.version + 1;
+  db.transaction((tx) => {
+    const t = tx as unknown as Db;
+    repo.insertVersion(t, { id: crypto.randomUUID(), lineId: line.id, version, snapshot, authorId: buyerId, createdAt: at });
+    repo.setLine(t, line.id, { snapshot, version, state: 'awaiting_proof', updatedAt: at });
+    repo.insertEvent(t, { id: crypto.randomUUID(), lineId: line.id, actorId: buyerId, fromState: line.state, toState: 'awaiting_proof', message: `Personalisation edited (version ${version}).`, createdAt: at });
+  });
+  return personalisationForEdit(db, buyerId, lineId);
+}

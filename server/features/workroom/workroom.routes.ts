@@ -1,0 +1,129 @@
+import { Router } from 'express';
+import type { AppDeps } from '../../app.ts';
+import { currentUser, ownShop, requireRole, requireUser } from '../../http/auth-guards.ts';
+import { validate } from '../../http/validate.ts';
+import {
+  idParams, lineIdsSchema, linesQuerySchema, lowStockSchema, requestChangeSchema, shipSchema, worksheetRequestSchema,
+} from '../../../shared/schemas/workroom.ts';
+import type { LineState } from '../../../shared/schemas/order.ts';
+import * as svc from './workroom.service.ts';
+import { createWorksheetJobs } from './worksheet-jobs.ts';
+import { personalisationForEdit, savePersonalisation } from './proof-edit.service.ts';
+
+/**
+ * /api/workroom — the signed-in seller's production desk. Every route is seller-only and scoped by
+ * the seller's own shop: another shop's order, line, sheet or job id answers 404 like an unknown one.
+ */
+export function workroomRouter(deps: AppDeps): Router {
+  const r = Router();
+  const jobs = createWorksheetJobs(deps.now);
+  const shopId = (req: Parameters<typeof ownShop>[1]) => ownShop(deps.db, req).id;
+  const id = (req: { params: Record<string, unknown> }) => String(req.params.id);
+  r.use(requireRole('seller'));
+
+  r.get('/summary', (req, res) => {
+    res.json(svc.summary(deps.db, shopId(req)));
+  });
+  r.get('/lines', validate({ query: linesQuerySchema }), (req, res) => {
+    const q = res.locals.query as { state?: LineState };
+    res.json({ lines: svc.listLines(deps.db, shopId(req), q.state) });
+  });
+  r.get('/orders/:id', validate({ params: idParams }), (req, res) => {
+    res.json({ order: svc.orderView(deps.db, shopId(req), id(req)) });
+  });
+  r.post('/orders/:id/ship', validate({ params: idParams, body: shipSchema }), async (req, res) => {
+    res.json({ order: await svc.ship(deps, shopId(req), currentUser(req).id, id(req), req.body) });
+  });
+
+  // proofs
+  r.get('/lines/:id/proof', validate({ params: idParams }), (req, res) => {
+    res.json({ proof: svc.proof(deps.db, shopId(req), id(req)) });
+  });
+  r.post('/lines/:id/approve', validate({ params: idParams }), (req, res) => {
+    res.json({ lines: svc.approve(deps, shopId(req), currentUser(req).id, [id(req)]) });
+  });
+  r.post('/proofs/approve', validate({ body: lineIdsSchema }), (req, res) => {
+    res.json({ lines: svc.approve(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
+  });
+  r.post('/lines/:id/request-change', validate({ params: idParams, body: requestChangeSchema }), async (req, res) => {
+    res.json({ line: await svc.requestChange(deps, shopId(req), currentUser(req).id, id(req), req.body.message) });
+  });
+
+  // press cards
+  r.get('/lines/:id/press-card', validate({ params: idParams }), (req, res) => {
+    res.json(svc.pressCards(deps.db, shopId(req), { lineId: id(req) })[0]);
+  });
+  r.get('/press-cards', (req, res) => {
+    res.json({ cards: svc.pressCards(deps.db, shopId(req), { state: 'cut' }) });
+  });
+  r.post('/lines/:id/pressed', validate({ params: idParams }), (req, res) => {
+    res.json({ lines: svc.markPressed(deps, shopId(req), currentUser(req).id, [id(req)]) });
+  });
+  r.post('/pressed', validate({ body: lineIdsSchema }), (req, res) => {
+    res.json({ lines: svc.markPressed(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
+  });
+
+  // cut sheets
+  r.post('/cut-sheets', validate({ body: lineIdsSchema }), (req, res) => {
+    res.status(201).json(svc.buildCutSheets(deps, shopId(req), req.body.lineIds));
+  });
+  r.get('/batches', (req, res) => {
+    res.json({ batches: svc.recentBatches(deps.db, shopId(req)) });
+  });
+  r.get('/batches/:id', validate({ params: idParams }), (req, res) => {
+    res.json({ batchId: id(req), sheets: svc.batch(deps.db, shopId(req), id(req)) });
+  });
+  r.post('/batches/:id/cut', validate({ params: idParams }), (req, res) => {
+    const sheets = svc.batch(deps.db, shopId(req), id(req));
+    res.json(svc.markCut(deps, shopId(req), currentUser(req).id, sheets.map((s) => s.id)));
+  });
+  r.get('/cut-sheets/:id/svg', validate({ params: idParams }), (req, res) => {
+    const { svg, name } = svc.sheetSvg(deps.db, shopId(req), id(req));
+    res.setHeader('Content-Type', 'image/svg+xml; charset=utf-8');
+    res.setHeader('Cache-Control', 'private, no-store');
+    // our own SVG has no script, but never let a browser run anything from it anyway
+    res.setHeader('Content-Security-Policy', "default-src 'none'; style-src 'unsafe-inline'");
+    if (req.query.download !== undefined) res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+    res.send(svg);
+  });
+  r.post('/cut-sheets/:id/cut', validate({ params: idParams }), (req, res) => {
+    res.json(svc.markCut(deps, shopId(req), currentUser(req).id, [id(req)]));
+  });
+
+  // work sheet PDF: start, poll, download
+  r.post('/batches/:id/worksheet', validate({ params: idParams, body: worksheetRequestSchema }), (req, res) => {
+    res.status(202).json({ job: jobs.start(deps.db, shopId(req), id(req), req.body.paper) });
+  });
+  r.get('/worksheets/:id', validate({ params: idParams }), (req, res) => {
+    res.json({ job: jobs.get(shopId(req), id(req)) });
+  });
+  r.get('/worksheets/:id/file', validate({ params: idParams }), (req, res) => {
+    const { pdf, name } = jobs.file(shopId(req), id(req));
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.send(pdf);
+  });
+
+  // stock
+  r.get('/stock', (req, res) => {
+    res.json(svc.stock(deps.db, shopId(req)));
+  });
+  r.patch('/stock/:id', validate({ params: idParams, body: lowStockSchema }), (req, res) => {
+    res.json(svc.setLowStock(deps.db, shopId(req), id(req), req.body.lowStockMm));
+  });
+  return r;
+}
+
+/** /api/order-lines — the shopper edits a line's personalisation after the shop asked for a change. */
+export function proofEditRouter(deps: AppDeps): Router {
+  const r = Router();
+  r.use(requireUser);
+  r.get('/:id/personalisation', validate({ params: idParams }), (req, res) => {
+    res.json(personalisationForEdit(deps.db, currentUser(req).id, String(req.params.id)));
+  });
+  r.put('/:id/personalisation', validate({ params: idParams }), (req, res) => {
+    res.json(savePersonalisation(deps, currentUser(req).id, String(req.params.id), req.body));
+  });
+  return r;
+}

@@ -1,0 +1,34 @@
+// The Stripe SDK client. STRIPE_API_BASE points it at the local fake (fakes/stripe) or, when empty,
+// at the real Stripe API; nothing else changes between the two (STACK.md, "The Stripe SDK against
+// the local fake").
+import Stripe from 'stripe';
+import type { Env } from '../env.ts';
+
+export type Payments = Stripe;
+
+const clients = new Map<string, Stripe>();
+
+/** One client per key + base (the SDK keeps its own keep-alive agent). */
+export function paymentsClient(env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_BASE'>): Stripe {
+  const cacheKey = `${env.STRIPE_SECRET_KEY}|${env.STRIPE_API_BASE}`;
+  const hit = clients.get(cacheKey);
+  if (hit) return hit;
+  const base: Stripe.StripeConfig = { telemetry: false, maxNetworkRetries: 2, timeout: 20_000 };
+  let client: Stripe;
+  if (env.STRIPE_API_BASE) {
+    const u = new URL(env.STRIPE_API_BASE);
+    const protocol = u.protocol === 'https:' ? 'https' : 'http';
+    client = new Stripe(env.STRIPE_SECRET_KEY, { ...base, host: u.hostname, port: Number(u.port || (protocol === 'https' ? 443 : 80)), protocol });
+  } else {
+    client = new Stripe(env.STRIPE_SECRET_KEY, base);
+  }
+  clients.set(cacheKey, client);
+  return client;
+}
+
+/** Verifies a webhook's signature and age (300 s, the SDK's default) on the raw bytes. Throws when wrong. */
+export function verifyWebhook(env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_BASE' | 'STRIPE_WEBHOOK_SECRET'>, rawBody: Buffer, signature: string, nowMs?: number): Stripe.Event {
+  const stripe = paymentsClient(env);
+  // constructEvent(payload, header, secret, tolerance, cryptoProvider, receivedAt in ms)
+  return stripe.webhooks.constructEvent(rawBody, signature, env.STRIPE_WEBHOOK_SECRET, 300, undefined, nowMs);
+}

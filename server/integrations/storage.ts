@@ -1,0 +1,123 @@
+/**
+ * Upload storage: photos and logos under DATA_DIR/uploads, with random names only (OWASP ASVS
+ * 5.3.2: no user file names in paths). Every image is checked by its bytes (ASVS 5.2.2), its pixel
+ * count is capped before decoding (ASVS 5.2.6, pixel floods) and it is re-encoded by sharp, so what
+ * we store and serve is pixels we wrote, never the uploaded bytes. Nothing is written until every
+ * check has passed: a refused file never reaches the disk.
+ */
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { type RequestHandler, Router } from 'express';
+import multer from 'multer';
+import sharp, { type Metadata, type OutputInfo } from 'sharp';
+import { fileTypeFromBuffer } from 'file-type';
+import { AppError, badRequest } from '../http/app-error.ts';
+
+export const IMAGE_LIMITS = Object.freeze({
+  maxBytes: 8 * 1024 * 1024,
+  /** 40 megapixels: a 7,000 × 5,700 camera photo passes; a 30,000 × 30,000 "pixel flood" does not */
+  maxPixels: 40_000_000,
+  /** longest side we keep; larger photos are scaled down */
+  maxSide: 2400,
+  thumbSide: 480,
+});
+export const ALLOWED_IMAGE_MIME = ['image/jpeg', 'image/png', 'image/webp'] as const;
+
+const unsupported = (message: string) => new AppError(415, 'unsupported_file', message);
+
+export type StoredImage = { fileName: string; thumbName: string; mime: 'image/jpeg' | 'image/webp'; width: number; height: number; bytes: number };
+
+export type Storage = {
+  dir: string;
+  /** checks, re-encodes and writes an image and its WebP thumbnail; throws AppError when refused */
+  saveImage(buf: Buffer): Promise<StoredImage>;
+  remove(fileName: string): void;
+};
+
+const NAME = /^[a-f0-9]{32}(?:-t)?\.(?:webp|jpg)$/;
+
+export function createStorage(dir: string): Storage {
+  return {
+    dir,
+    async saveImage(buf) {
+      if (buf.byteLength > IMAGE_LIMITS.maxBytes) throw new AppError(413, 'file_too_large', 'That file is larger than 8 MB.');
+      const type = await fileTypeFromBuffer(buf);
+      if (!type || !(ALLOWED_IMAGE_MIME as readonly string[]).includes(type.mime))
+        throw unsupported('That file is not a JPEG, PNG or WebP image (we check the file itself, not its name).');
+      let meta: Metadata;
+      try {
+        // metadata() reads the header only, so the pixel count is known before anything is decoded
+        // (no limit here, so an oversized header gets its own clear message below)
+        meta = await sharp(buf, { limitInputPixels: false }).metadata();
+      } catch {
+        throw unsupported('That image could not be read.');
+      }
+      const w = meta.width ?? 0;
+      const h = meta.height ?? 0;
+      if (!w || !h) throw unsupported('That image could not be read.');
+      if (w * h > IMAGE_LIMITS.maxPixels)
+        throw new AppError(413, 'image_too_large', `That image is ${w} × ${h} pixels; the limit is ${IMAGE_LIMITS.maxPixels / 1_000_000} megapixels.`);
+
+      const jpeg = type.mime === 'image/jpeg';
+      let main: { data: Buffer; info: OutputInfo };
+      let thumb: Buffer;
+      try {
+        const base = () => sharp(buf, { limitInputPixels: IMAGE_LIMITS.maxPixels, failOn: 'error' }).rotate();
+        const resized = base().resize({ width: IMAGE_LIMITS.maxSide, height: IMAGE_LIMITS.maxSide, fit: 'inside', withoutEnlargement: true });
+        // re-encoding drops metadata (EXIF location etc.): sharp keeps none unless asked
+        main = await (jpeg ? resized.jpeg({ quality: 85, mozjpeg: true }) : resized.webp({ quality: 85 })).toBuffer({ resolveWithObject: true });
+        thumb = await base().resize({ width: IMAGE_LIMITS.thumbSide, height: IMAGE_LIMITS.thumbSide, fit: 'inside', withoutEnlargement: true }).webp({ quality: 78 }).toBuffer();
+      } catch {
+        throw unsupported('That image is damaged or could not be read.');
+      }
+      const stem = crypto.randomBytes(16).toString('hex');
+      const fileName = `${stem}.${jpeg ? 'jpg' : 'webp'}`;
+      const thumbName = `${stem}-t.webp`;
+      fs.mkdirSync(dir, { recursive: true });
+      fs.writeFileSync(path.join(dir, fileName), main.data, { flag: 'wx' });
+      fs.writeFileSync(path.join(dir, thumbName), thumb, { flag: 'wx' });
+      return { fileName, thumbName, mime: jpeg ? 'image/jpeg' : 'image/webp', width: main.info.width, height: main.info.height, bytes: main.data.byteLength };
+    },
+    remove(fileName) {
+      if (NAME.test(fileName)) fs.rmSync(path.join(dir, fileName), { force: true });
+    },
+  };
+}
+
+export const uploadUrl = (fileName: string | null | undefined): string | null => (fileName ? `/uploads/${fileName}` : null);
+
+/**
+ * Multer with memory storage: the bytes stay in memory until checked, so nothing refused is
+ * written. One file per request, in the field `file`. Size errors become our error shape.
+ */
+export function singleFile(maxBytes: number): RequestHandler {
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 8, fieldSize: 1024, parts: 10 } }).single('file');
+  return (req, res, next) => {
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE')
+          return next(new AppError(413, 'file_too_large', `That file is larger than ${Math.round(maxBytes / 1024 / 1024) || 1} MB.`));
+        return next(badRequest(`The upload could not be read (${err.code.toLowerCase().replace(/_/g, ' ')}).`));
+      }
+      return next(badRequest('The upload could not be read.'));
+    });
+  };
+}
+
+/** GET /uploads/<name>: only our own random names, the right type, nosniff, and no script ever. */
+export function uploadsRouter(dir: string): Router {
+  const r = Router();
+  r.get('/:name', (req, res, next) => {
+    const name = req.params.name;
+    if (!NAME.test(name)) return next(new AppError(404, 'not_found', 'No such file.'));
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox");
+    res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
+    res.sendFile(path.join(dir, name), { maxAge: '365d', immutable: true, dotfiles: 'deny', headers: { 'Content-Type': name.endsWith('.jpg') ? 'image/jpeg' : 'image/webp' } }, (err) => {
+      if (err && !res.headersSent) next(new AppError(404, 'not_found', 'No such file.'));
+    });
+  });
+  return r;
+}

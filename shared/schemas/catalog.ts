@@ -1,0 +1,100 @@
+/** The public catalogue: search query, list items and the listing page. */
+import { z } from 'zod';
+import { blankKindSchema, occasionSchema, type ListingContentParsed } from './listing.ts';
+
+export const CATALOG_PAGE_SIZE = 24;
+export const CATALOG_SORTS = ['newest', 'price_asc', 'price_desc'] as const;
+
+const price = z.coerce.number({ error: 'Enter a price in cents.' }).int('Enter whole cents.').min(0, 'A price cannot be negative.').max(10_000_000);
+
+export const catalogQuerySchema = z
+  .object({
+    q: z.string().trim().max(100, 'Use at most 100 characters.').optional(),
+    occasion: occasionSchema.optional(),
+    blank: blankKindSchema.optional(),
+    /** shop slug */
+    shop: z.string().trim().max(80).optional(),
+    minPrice: price.optional(),
+    maxPrice: price.optional(),
+    sort: z.enum(CATALOG_SORTS, { error: 'Sort by newest, price_asc or price_desc.' }).default('newest'),
+    page: z.coerce.number().int().min(1, 'Pages start at 1.').max(1000).default(1),
+  })
+  .refine((q) => q.minPrice === undefined || q.maxPrice === undefined || q.minPrice <= q.maxPrice, {
+    message: 'The lowest price must not be above the highest.',
+    path: ['minPrice'],
+  });
+export type CatalogQuery = z.output<typeof catalogQuerySchema>;
+
+export const catalogItemSchema = z.object({
+  id: z.string(),
+  slug: z.string(),
+  title: z.string(),
+  shop: z.object({ slug: z.string(), name: z.string() }),
+  /** the base price (the lowest a shopper pays) */
+  priceMinor: z.number().int(),
+  currency: z.string(),
+  occasions: z.array(occasionSchema),
+  /** null when the listing has no photo */
+  thumbnailUrl: z.string().nullable(),
+});
+export type CatalogItem = z.infer<typeof catalogItemSchema>;
+
+export const catalogPageSchema = z.object({
+  items: z.array(catalogItemSchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
+export type CatalogPage = z.infer<typeof catalogPageSchema>;
+
+export const listingSlugParams = z.object({ slug: z.string().min(1).max(120) });
+
+/** A motif as the engine stores it (normalised geometry, mm); see shared/engine for the exact type. */
+export type PublicMotif = { id: string; name: string; geometry: unknown; svgUrl: string };
+export type PublicMaterial = { id: string; kind: string; colourName: string; colourHex: string };
+export type PublicPhoto = { id: string; url: string; thumbnailUrl: string; width: number; height: number };
+
+/** GET /api/listings/:slug */
+export type ListingPage = {
+  id: string;
+  slug: string;
+  currency: string;
+  priceMinor: number;
+  /** the approved content on sale (workroom costing fields removed) */
+  content: Omit<ListingContentParsed, 'blankCostMinor' | 'minutesPerLayer'>;
+  /** the description rendered to safe HTML (raw HTML in the seller's text comes out as text) */
+  descriptionHtml: string;
+  shop: { slug: string; name: string; processingDays: number; shippingMinor: number; currency: string; returnPolicy: string; logoUrl: string | null };
+  photos: PublicPhoto[];
+  motifs: PublicMotif[];
+  materials: PublicMaterial[];
+  careCard: string[];
+  /** present only when the listing has small decorations */
+  safetyNotes: string[] | null;
+};
+
+/** Care card for buyers (TRADE.md / PRODUCT.md, common practice). */
+export const CARE_CARD: readonly string[] = [
+  'Wait 24 hours before the first wash.',
+  'Wash inside out, cool or warm.',
+  'No bleach.',
+  'Tumble dry low, or hang to dry.',
+  'Never iron directly on the design.',
+];
+
+/**
+ * Small-parts warning (US CPSC, 16 CFR 1501; REFERENCES.md, Safety). Whether the item is exempt is
+ * the seller's compliance question, so the text defers to them.
+ */
+export const SMALL_PARTS_NOTES: readonly string[] = [
+  'Choking hazard: this item has small decorations (such as bows, buttons or gems). Not for children under 3 years.',
+  'Under the US small-parts rule (16 CFR 1501), a part that fits wholly in a test cylinder 1.25 in (31.7 mm) across and 1.00–2.25 in (25.4–57.1 mm) deep is a choking hazard for children under 3.',
+  "The seller is responsible for this item's compliance with the rules where you live; ask them if you are unsure.",
+];
+
+// ---------------------------------------------------------------- moderation desk inputs
+export const moderationIdParams = z.object({ id: z.string().min(1).max(64) });
+export const reasonSchema = z.object({
+  reason: z.string({ error: 'Give the seller a reason.' }).trim().min(3, 'Give the seller a reason (at least 3 characters).').max(1000, 'Use at most 1,000 characters.'),
+});
+export const optionalReasonSchema = z.object({ reason: z.string().trim().max(1000, 'Use at most 1,000 characters.').optional() });

@@ -1,0 +1,67 @@
+/** Orders as shoppers see them, and refunds. */
+import { z } from 'zod';
+import type { LineSnapshot } from './cart.ts';
+
+export const LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped', 'cancelled', 'refunded'] as const;
+export type LineState = (typeof LINE_STATES)[number];
+
+/** Shown to people; the codes stay as PRODUCT.md names them. */
+export const LINE_STATE_LABELS: Record<LineState, string> = {
+  awaiting_proof: 'Waiting for the proof check',
+  changes_requested: 'Changes requested',
+  approved: 'Proof approved',
+  cut: 'Vinyl cut',
+  pressed: 'Pressed',
+  shipped: 'Shipped',
+  cancelled: 'Cancelled',
+  refunded: 'Refunded',
+};
+
+export const orderIdParams = z.object({ id: z.string().min(1).max(64) });
+
+export const refundSchema = z.object({
+  /** one line; omitted: the whole order (what is not refunded yet, shipping included) */
+  lineId: z.string().min(1).max(64).optional(),
+  reason: z.string().trim().max(500, 'Use at most 500 characters.').optional(),
+});
+export type RefundInput = z.infer<typeof refundSchema>;
+
+export type OrderEvent = { id: string; fromState: LineState | null; toState: LineState; message: string | null; at: number; actor: 'you' | 'shop' | 'namesake' | null };
+
+export type OrderLine = {
+  id: string;
+  listingId: string;
+  listingTitle: string;
+  quantity: number;
+  unitPriceMinor: number;
+  totalMinor: number;
+  refundedMinor: number;
+  state: LineState;
+  version: number;
+  snapshot: LineSnapshot;
+  history: OrderEvent[];
+};
+
+export type OrderSummary = {
+  id: string;
+  number: string;
+  shop: { id: string; name: string; slug: string };
+  currency: string;
+  totalMinor: number;
+  itemCount: number;
+  /** the states of its lines, for a compact progress view */
+  states: LineState[];
+  paidAt: number;
+  shippedAt: number | null;
+};
+
+export type OrderDetail = OrderSummary & {
+  subtotalMinor: number;
+  shippingMinor: number;
+  refundedMinor: number;
+  carrier: string | null;
+  trackingNumber: string | null;
+  lines: OrderLine[];
+};
+
+export type RefundResult = { refundId: string; amountMinor: number; order: OrderDetail };

@@ -1,0 +1,150 @@
+/**
+ * The workroom: a seller's proofs, cut sheets, press cards, shipping and stock. Inputs (zod, used
+ * by the routes and the forms) and the shapes the API answers with. Lengths mm, money minor units.
+ */
+import { z } from 'zod';
+import { LINE_STATES, type LineState } from './order.ts';
+import { choicesSchema } from './listing.ts';
+import type { LineSnapshot } from './cart.ts';
+import type { PressCard } from '../engine/press-card.ts';
+
+export { LINE_STATES, type LineState };
+
+/** The states the workroom counts and filters on (PRODUCT.md), in production order. */
+export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped'] as const satisfies readonly LineState[];
+
+const id = z.string().trim().min(1).max(64);
+export const idParams = z.object({ id });
+export const lineIdsSchema = z.object({
+  lineIds: z.array(id, { error: 'Choose at least one line.' }).min(1, 'Choose at least one line.').max(500, 'At most 500 lines at once.')
+    .transform((ids) => [...new Set(ids)]),
+});
+export type LineIdsInput = z.input<typeof lineIdsSchema>;
+
+export const linesQuerySchema = z.object({ state: z.enum(LINE_STATES).optional() });
+
+export const requestChangeSchema = z.object({
+  message: z.string({ error: 'Tell the shopper what to change.' }).trim().min(3, 'Tell the shopper what to change (at least 3 characters).').max(1000, 'Use at most 1,000 characters.'),
+});
+export type RequestChangeInput = z.input<typeof requestChangeSchema>;
+
+export const PAPERS = ['A4', 'Letter'] as const;
+export const worksheetRequestSchema = z.object({ paper: z.enum(PAPERS, { error: 'Choose A4 or Letter.' }).default('A4') });
+export type WorksheetRequest = z.input<typeof worksheetRequestSchema>;
+
+export const CARRIERS = ['Royal Mail', 'USPS', 'UPS', 'FedEx', 'DHL', 'Canada Post', 'Other'] as const;
+export const shipSchema = z.object({
+  carrier: z.string({ error: 'Enter the carrier.' }).trim().min(2, 'Enter the carrier.').max(40, 'Use at most 40 characters.'),
+  trackingNumber: z
+    .string({ error: 'Enter the tracking number.' })
+    .trim()
+    .min(4, 'Enter the tracking number (at least 4 characters).')
+    .max(40, 'Use at most 40 characters.')
+    .regex(/^[A-Za-z0-9][A-Za-z0-9 -]*$/, 'Use letters, digits, spaces and dashes only.'),
+});
+export type ShipInput = z.input<typeof shipSchema>;
+
+export const lowStockSchema = z.object({
+  lowStockMm: z.number({ error: 'Enter the length in mm.' }).min(0, 'Cannot be negative.').max(1_000_000, 'At most 1 km.'),
+});
+export type LowStockInput = z.input<typeof lowStockSchema>;
+
+/** The shopper's edit after a change request: the same choices the listing's personaliser takes. */
+export const personalisationEditSchema = z.object({ choices: choicesSchema });
+export type PersonalisationEditInput = z.input<typeof personalisationEditSchema>;
+
+// ---------------------------------------------------------------- answers
+export type MaterialRef = { id: string; kind: string; colour: string; colourHex: string };
+
+export type WorkLine = {
+  id: string;
+  orderId: string;
+  orderNumber: string;
+  state: LineState;
+  listingId: string;
+  listingTitle: string;
+  quantity: number;
+  /** the personalisation text(s), joined, for the table */
+  text: string;
+  buyerName: string;
+  paidAt: number;
+  version: number;
+  materials: MaterialRef[];
+};
+
+export type WorkroomSummary = { counts: Record<(typeof WORK_STATES)[number], number> };
+
+export type CharInfo = { char: string; codePoints: string[]; ascii: boolean; name: string | null };
+export type ProofText = { fieldId: string; label: string; text: string; fontId: string; letterHeightMm: number | null; chars: CharInfo[]; normalized: 'NFC' | 'NFD' | 'mixed' | 'ascii' };
+export type ProofWarning = { code: string; fieldId: string | null; message: string };
+export type ProofVersion = { version: number; createdAt: number; authorName: string | null; summary: Array<{ label: string; value: string }>; texts: string[] };
+
+export type Proof = {
+  line: WorkLine;
+  snapshot: LineSnapshot;
+  /** the whole blank laid flat and where the print area sits on it, mm */
+  blank: { kind: string; name: string; widthMm: number; heightMm: number; printArea: { xMm: number; yMm: number; widthMm: number; heightMm: number } };
+  texts: ProofText[];
+  warnings: ProofWarning[];
+  versions: ProofVersion[];
+  /** the seller's latest change request, when the line waits for the shopper */
+  changeRequest: string | null;
+};
+
+export type TimelineEvent = { id: string; lineId: string; fromState: LineState | null; toState: LineState; message: string | null; at: number; actorName: string | null; actorRole: 'shopper' | 'shop' | 'namesake' | null };
+
+export type WorkOrder = {
+  id: string;
+  number: string;
+  buyerName: string;
+  buyerEmail: string;
+  paidAt: number;
+  shipByDate: string | null;
+  currency: string;
+  totalMinor: number;
+  carrier: string | null;
+  trackingNumber: string | null;
+  shippedAt: number | null;
+  lines: WorkLine[];
+  timeline: TimelineEvent[];
+};
+
+export type SheetPiece = { lineId: string; orderNumber: string; layerId: string; xMm: number; yMm: number; widthMm: number; heightMm: number; rotated: boolean };
+export type StockCheck = { stockMm: number; needMm: number; afterMm: number; low: boolean; short: boolean };
+export type WorkSheet = {
+  id: string;
+  batchId: string;
+  state: 'planned' | 'cut';
+  material: { id: string; kind: string; colour: string; colourHex: string };
+  rollWidthMm: number;
+  lengthMm: number;
+  utilisation: number;
+  pieces: SheetPiece[];
+  svgUrl: string;
+  consumedMm: number | null;
+  cutAt: number | null;
+  createdAt: number;
+  stock: StockCheck;
+};
+
+export type StockWarning = { materialId: string; level: 'low' | 'short'; message: string };
+export type MarkCutResult = { sheets: WorkSheet[]; linesCut: string[]; warnings: StockWarning[] };
+
+export type PressCardView = { line: WorkLine; card: PressCard };
+
+export type WorksheetJob = { id: string; state: 'running' | 'done' | 'failed'; progress: number; pages: number | null; downloadUrl: string | null; error: string | null };
+
+export type StockMaterial = {
+  id: string;
+  kind: string;
+  colourName: string;
+  colourHex: string;
+  rollWidthMm: number;
+  stockMm: number;
+  lowStockMm: number;
+  low: boolean;
+  /** planned (not yet cut) sheets' length + trim on this material */
+  plannedMm: number;
+};
+export type StockSheetUse = { id: string; batchId: string; materialId: string; state: 'planned' | 'cut'; lengthMm: number; consumedMm: number | null; costMinor: number | null; cutAt: number | null; createdAt: number; lineCount: number };
+export type StockView = { currency: string; trimMm: number; materials: StockMaterial[]; sheets: StockSheetUse[] };

@@ -1,0 +1,153 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request, { type Agent } from 'supertest';
+import { makeTestApp, eventually, type TestApp } from '../factories/app.ts';
+import { createListing, liveListing } from './listings.fixtures.ts';
+
+let t: TestApp;
+let seller: Awaited<ReturnType<TestApp['makeSeller']>>;
+let a: Agent;
+let admin: Agent;
+let adminUser: { id: string; email: string };
+beforeAll(async () => {
+  t = await makeTestApp();
+  seller = await t.makeSeller({ name: 'Comet Corner' });
+  adminUser = await t.makeUser('admin');
+  [a, admin] = await Promise.all([t.signIn(seller.email), t.signIn(adminUser.email)]);
+});
+afterAll(async () => t.close());
+
+const search = (q: string) => request(t.app).get('/api/listings').query({ q });
+
+describe('who may use the desk', () => {
+  it('when a shopper or a seller calls any moderation route, then 403; a guest 401', async () => {
+    const shopper = await t.signIn((await t.makeUser('shopper')).email);
+    const l = await createListing(a);
+    for (const agent of [shopper, a]) {
+      expect((await agent.get('/api/moderation/queue')).status).toBe(403);
+      expect((await agent.get('/api/moderation/audit')).status).toBe(403);
+      expect((await agent.post(`/api/moderation/listings/${l.id}/approve`).send({})).status).toBe(403);
+      expect((await agent.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'nope nope' })).status).toBe(403);
+      expect((await agent.post(`/api/moderation/shops/${seller.shopId}/suspend`).send({ reason: 'nope nope' })).status).toBe(403);
+      expect((await agent.post(`/api/moderation/shops/${seller.shopId}/approve`).send({})).status).toBe(403);
+    }
+    expect((await request(t.app).get('/api/moderation/queue')).status).toBe(401);
+    expect((await a.get(`/api/seller/listings/${l.id}`)).body.listing.state).toBe('draft');
+  });
+});
+
+describe('listing review', () => {
+  it('when a listing is submitted, then it is in the queue and invisible to shoppers and search until approved', async () => {
+    const l = await createListing(a, { title: 'Quokka picnic tote' });
+    expect((await admin.get('/api/moderation/queue')).body.listings.map((x: { id: string }) => x.id)).not.toContain(l.id); // a draft is not in review
+    await a.post(`/api/seller/listings/${l.id}/submit`).send({});
+    const queued = (await admin.get('/api/moderation/queue')).body.listings.find((x: { id: string }) => x.id === l.id);
+    expect(queued).toMatchObject({ kind: 'new', state: 'in_review', shop: { name: 'Comet Corner' } });
+    // the admin sees it rendered as a shopper would; shoppers get nothing
+    expect((await admin.get(queued.previewUrl)).body.content.title).toBe('Quokka picnic tote');
+    expect((await request(t.app).get(queued.previewUrl)).status).toBe(404);
+    expect((await request(t.app).get(`/api/listings/${l.slug}`)).status).toBe(404);
+    expect((await search('quokka')).body.total).toBe(0);
+
+    const ok = await admin.post(`/api/moderation/listings/${l.id}/approve`).send({});
+    expect(ok.body.listing.state).toBe('live');
+    expect((await request(t.app).get(`/api/listings/${l.slug}`)).status).toBe(200);
+    expect((await search('quokka')).body.items.map((x: { id: string }) => x.id)).toEqual([l.id]);
+    const mail = await eventually(async () => (await t.mailTo(seller.email)).find((m) => /Approved/.test(m.subject)));
+    expect(mail.text).toContain('Quokka picnic tote');
+  });
+
+  it('when a listing is rejected with a reason, then the seller gets the reason by e-mail (HTML escaped) and it stays hidden', async () => {
+    const l = await createListing(a, { title: 'Wombat school pouch' });
+    await a.post(`/api/seller/listings/${l.id}/submit`).send({});
+    const reason = 'The photo shows another <b>brand</b>; please use your own photo.';
+    const res = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason });
+    expect(res.body.listing).toMatchObject({ state: 'rejected', rejectionReason: reason });
+    const mail = await eventually(async () => (await t.mailTo(seller.email)).find((m) => /Wombat/.test(m.subject)));
+    expect(mail.text).toContain(reason);
+    expect(mail.html).toContain('&#60;b&#62;brand&#60;/b&#62;');
+    expect(mail.html).not.toContain('<b>brand</b>');
+    expect((await search('wombat')).body.total).toBe(0);
+  });
+
+  it('when a reject has no reason, then 400 on reason; approving something not in review is 409', async () => {
+    const l = await createListing(a);
+    await a.post(`/api/seller/listings/${l.id}/submit`).send({});
+    const res = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: ' ' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.reason).toBeTruthy();
+    const draft = await createListing(a);
+    expect((await admin.post(`/api/moderation/listings/${draft.id}/approve`).send({})).status).toBe(409);
+    expect((await admin.post('/api/moderation/listings/no-such-id/approve').send({})).status).toBe(404);
+  });
+
+  it('when an edit to a live listing is rejected, then the approved copy stays on sale', async () => {
+    const l = await liveListing(t, a, admin, { title: 'Platypus harvest tote' });
+    const body = (await a.get(`/api/seller/listings/${l.id}`)).body.listing.draft;
+    await a.put(`/api/seller/listings/${l.id}`).send({ ...body, title: 'Platypus tote with a typo' });
+    await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'Title has a typo.' });
+    const got = (await a.get(`/api/seller/listings/${l.id}`)).body.listing;
+    expect(got).toMatchObject({ state: 'live', pendingReview: false, rejectionReason: 'Title has a typo.' });
+    expect((await request(t.app).get(`/api/listings/${l.slug}`)).body.content.title).toBe('Platypus harvest tote');
+  });
+});
+
+describe('shops', () => {
+  it('when a shop is suspended, then its listings vanish from the catalogue and search at once; restore brings them back', async () => {
+    const other = await t.makeSeller({ name: 'Narwhal Prints' });
+    const o = await t.signIn(other.email);
+    const l = await liveListing(t, o, admin, { title: 'Narwhal birthday tee' });
+    expect((await search('narwhal')).body.total).toBe(1);
+    const s = await admin.post(`/api/moderation/shops/${other.shopId}/suspend`).send({ reason: 'Copied artwork reported.' });
+    expect(s.body.shop.state).toBe('suspended');
+    expect((await search('narwhal')).body.total).toBe(0);
+    expect((await request(t.app).get('/api/listings')).body.items.map((x: { id: string }) => x.id)).not.toContain(l.id);
+    expect((await request(t.app).get(`/api/listings/${l.slug}`)).status).toBe(404);
+    const mail = await eventually(async () => (await t.mailTo(other.email)).find((m) => /suspended/.test(m.subject)));
+    expect(mail.text).toContain('Copied artwork reported.');
+    await admin.post(`/api/moderation/shops/${other.shopId}/restore`).send({});
+    expect((await search('narwhal')).body.total).toBe(1);
+  });
+
+  it('when a new shop is in review, then it is in the queue; approval makes it live, rejection needs a reason', async () => {
+    const s1 = await t.makeSeller({ name: 'Kelp & Co', state: 'in_review' });
+    const s2 = await t.makeSeller({ name: 'Gull Goods', state: 'in_review' });
+    const q = (await admin.get('/api/moderation/queue')).body.shops.map((x: { id: string }) => x.id);
+    expect(q).toEqual(expect.arrayContaining([s1.shopId, s2.shopId]));
+    expect((await admin.post(`/api/moderation/shops/${s1.shopId}/approve`).send({})).body.shop.state).toBe('live');
+    expect((await admin.post(`/api/moderation/shops/${s2.shopId}/reject`).send({})).status).toBe(400);
+    expect((await admin.post(`/api/moderation/shops/${s2.shopId}/reject`).send({ reason: 'Not a craft business.' })).body.shop.state).toBe('rejected');
+    expect((await admin.post(`/api/moderation/shops/${s2.shopId}/restore`).send({})).status).toBe(409);
+    const after = (await admin.get('/api/moderation/queue')).body.shops.map((x: { id: string }) => x.id);
+    expect(after).not.toContain(s1.shopId);
+    expect(after).not.toContain(s2.shopId);
+  });
+
+  it('when a listing is approved while its shop is still in review, then it stays hidden until the shop is live', async () => {
+    const s = await t.makeSeller({ name: 'Heron House', state: 'in_review' });
+    const ag = await t.signIn(s.email);
+    const l = await liveListing(t, ag, admin, { title: 'Heron spring tote' });
+    expect((await search('heron')).body.total).toBe(0);
+    await admin.post(`/api/moderation/shops/${s.shopId}/approve`).send({});
+    expect((await search('heron')).body.items[0].id).toBe(l.id);
+  });
+});
+
+describe('audit log', () => {
+  it('when moderators act, then each action is logged with who, what, when and why, newest first', async () => {
+    const l = await createListing(a, { title: 'Audit trail tote' });
+    await a.post(`/api/seller/listings/${l.id}/submit`).send({});
+    const before = Date.now();
+    await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'Needs a clearer photo.' });
+    const res = await admin.get('/api/moderation/audit');
+    expect(res.status).toBe(200);
+    const top = res.body.items[0];
+    expect(top).toMatchObject({
+      action: 'listing.reject', reason: 'Needs a clearer photo.',
+      actor: { id: adminUser.id, email: adminUser.email }, subject: { type: 'listing', id: l.id, label: 'Audit trail tote' },
+    });
+    expect(top.at).toBeGreaterThanOrEqual(before);
+    expect(res.body.total).toBeGreaterThanOrEqual(res.body.items.length);
+    const actions = res.body.items.map((i: { action: string }) => i.action);
+    expect(actions).toEqual(expect.arrayContaining(['listing.approve', 'shop.suspend', 'shop.restore', 'shop.approve', 'shop.reject']));
+  });
+});

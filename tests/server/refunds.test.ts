@@ -1,0 +1,89 @@
+// Refunds through the Stripe fake: the charge is refunded, the shop's transfer reversed for its
+// part ("separate charges and transfers": the platform bears refunds, REFERENCES.md § Payments).
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import Stripe from 'stripe';
+import { eq } from 'drizzle-orm';
+import { checkouts, ledger, orders } from '../../server/db/schema.ts';
+import { checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, waitFor, type World } from './checkout.fixtures.ts';
+
+let w: World;
+let stripe: Stripe;
+beforeAll(async () => {
+  w = await makeWorld();
+  stripe = new Stripe('sk_test_checkout_tests', { host: '127.0.0.1', port: w.fake.port, protocol: 'http' });
+}, 30_000);
+afterAll(async () => w?.teardown());
+
+async function paidOrderWithTwoLines() {
+  const shop = await makeShopWithListing(w, { basePriceMinor: 2000, shippingMinor: 500, extraLayerPriceMinor: 0 });
+  const buyer = await w.makeUser('shopper');
+  const agent = await w.signIn(buyer.email);
+  await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Mira') }).expect(201);
+  await agent.post('/api/cart/lines').send({ listingId: shop.listingId, quantity: 2, choices: nameChoices('Theo') }).expect(201);
+  const { orders: made } = await checkoutAndPay(w, agent);
+  const orderId = made[0]!.id;
+  await waitFor(() => w.db.select().from(orders).where(eq(orders.id, orderId)).get()?.transferId);
+  const detail = (await agent.get(`/api/orders/${orderId}`)).body;
+  return { shop, buyer, agent, orderId, detail };
+}
+
+describe('refunds', () => {
+  it('when the seller refunds one line, then the provider refunds it, the transfer is reversed pro rata, the line is refunded and the shopper is told', async () => {
+    const { shop, buyer, orderId, detail } = await paidOrderWithTwoLines();
+    const theo = detail.lines.find((l: { quantity: number }) => l.quantity === 2);
+    const seller = await w.signIn(shop.seller.email);
+    const res = await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo.id, reason: 'Misspelt on our side' });
+    expect(res.status).toBe(201);
+    expect(res.body.amountMinor).toBe(4000);
+
+    const o = w.db.select().from(orders).where(eq(orders.id, orderId)).get()!;
+    const c = w.db.select().from(checkouts).where(eq(checkouts.id, o.checkoutId)).get()!;
+    const refunds = await stripe.refunds.list({ payment_intent: c.paymentIntentId! });
+    expect(refunds.data.map((r) => r.amount)).toEqual([4000]);
+    // shop total 6500, fee round(6500 × 0.08) = 520, transfer 5980; the line's share: round(4000 × 5980 / 6500) = 3680
+    const transfer = await stripe.transfers.retrieve(o.transferId!);
+    expect(transfer.amount).toBe(5980);
+    expect(transfer.amount_reversed).toBe(3680);
+    const rows = w.db.select().from(ledger).where(eq(ledger.orderId, orderId)).all();
+    expect(rows.find((r) => r.kind === 'refund')!.amountMinor).toBe(-4000);
+    expect(rows.find((r) => r.kind === 'refund_reversal')!.amountMinor).toBe(-3680);
+
+    const line = res.body.order.lines.find((l: { id: string }) => l.id === theo.id);
+    expect(line.state).toBe('refunded');
+    expect(line.history.at(-1)).toMatchObject({ fromState: 'awaiting_proof', toState: 'refunded', message: 'Misspelt on our side', actor: 'shop' });
+    expect(res.body.order.lines.find((l: { id: string }) => l.id !== theo.id).state).toBe('awaiting_proof');
+
+    const mail = await waitFor(async () => (await w.mailTo(buyer.email)).find((m) => /Refund/.test(m.subject)));
+    expect(mail.subject).toContain('$40.00');
+    expect(mail.text).toContain('Misspelt on our side');
+
+    // the same line twice → 409, nothing more refunded
+    expect((await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo.id })).status).toBe(409);
+    expect((await stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toHaveLength(1);
+  });
+
+  it('when an admin refunds the whole order after a line refund, then the rest (shipping included) goes back and the transfer is fully reversed', async () => {
+    const { orderId, detail } = await paidOrderWithTwoLines();
+    const mira = detail.lines.find((l: { quantity: number }) => l.quantity === 1);
+    const shopOwner = w.db.select().from(orders).where(eq(orders.id, orderId)).get()!;
+    const admin = await w.signIn((await w.makeUser('admin')).email);
+    expect((await admin.post(`/api/orders/${orderId}/refunds`).send({ lineId: mira.id })).body.amountMinor).toBe(2000);
+    const all = await admin.post(`/api/orders/${orderId}/refunds`).send({});
+    expect(all.status).toBe(201);
+    expect(all.body.amountMinor).toBe(6500 - 2000);
+    expect(all.body.order.lines.every((l: { state: string }) => l.state === 'refunded')).toBe(true);
+    expect(all.body.order.refundedMinor).toBe(6500);
+    const transfer = await stripe.transfers.retrieve(shopOwner.transferId!);
+    expect(transfer.amount_reversed).toBe(transfer.amount);
+    expect((await admin.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(409);
+  });
+
+  it('when someone else tries, then another seller gets 404 and the buyer 403, and nothing is refunded', async () => {
+    const { agent, orderId } = await paidOrderWithTwoLines();
+    const other = await makeShopWithListing(w);
+    const otherSeller = await w.signIn(other.seller.email);
+    expect((await otherSeller.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(404);
+    expect((await agent.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(403);
+    expect(w.db.select().from(ledger).where(eq(ledger.orderId, orderId)).all().some((r) => r.kind === 'refund')).toBe(false);
+  });
+});
