@@ -10,13 +10,13 @@ import { ResetPasswordPage } from './routes/auth/reset-password.tsx';
 import { SignInPage } from './routes/auth/sign-in.tsx';
 import { SignUpPage } from './routes/auth/sign-up.tsx';
 import { CartPage } from './routes/cart/cart.tsx';
-import { SearchPage } from './routes/catalog/search.tsx';
 import { NotFoundPage } from './routes/errors/not-found.tsx';
 import { RouteErrorPage } from './routes/errors/route-error.tsx';
 import { HomePage } from './routes/home.tsx';
 import { MailPage } from './routes/moderation/mail.tsx';
-import { ModerationDeskPage } from './routes/moderation/desk.tsx';
 import { OrdersPage } from './routes/orders/orders.tsx';
+import { OrderPage } from './routes/orders/order.tsx';
+import { CheckoutReturnPage } from './routes/checkout/return.tsx';
 import { OpenShopPage } from './routes/shop/open-shop.tsx';
 import { WorkroomPage } from './routes/workroom/workroom.tsx';
 
@@ -26,7 +26,10 @@ export const router = createBrowserRouter([
     errorElement: <RouteErrorPage />,
     children: [
       { path: paths.home.path, element: <HomePage /> },
-      { path: paths.search.path, element: <SearchPage /> },
+      // The catalogue pages load on demand; the listing page pulls in the personaliser (and the font engine) only there.
+      { path: paths.search.path, lazy: async () => ({ Component: (await import('./routes/catalog/search.tsx')).SearchPage }) },
+      { path: paths.listing.path, lazy: async () => ({ Component: (await import('./routes/listing/listing.tsx')).ListingPage }) },
+      { path: paths.shopPage.path, lazy: async () => ({ Component: (await import('./routes/shop-page/shop-page.tsx')).ShopPage }) },
       { path: paths.cart.path, element: <CartPage /> },
       { path: paths.auth.signIn.path, element: <SignInPage /> },
       { path: paths.auth.signUp.path, element: <SignUpPage /> },
@@ -36,14 +39,35 @@ export const router = createBrowserRouter([
         element: <RequireAuth />,
         children: [
           { path: paths.orders.path, element: <OrdersPage /> },
+          { path: paths.orderDetail.path, element: <OrderPage /> },
+          { path: paths.checkoutReturn.path, element: <CheckoutReturnPage /> },
           { path: paths.openShop.path, element: <OpenShopPage /> },
         ],
       },
-      { element: <RequireAuth roles={['seller']} />, children: [{ path: paths.workroom.path, element: <WorkroomPage /> }] },
+      {
+        element: <RequireAuth roles={['seller']} />,
+        children: [
+          { path: paths.workroom.path, element: <WorkroomPage /> },
+          // the production pages (proofs, cut sheets, press cards, stock) load on demand
+          { path: paths.workroomOrder.path, lazy: async () => ({ Component: (await import('./routes/workroom/order.tsx')).WorkroomOrderPage }) },
+          { path: paths.workroomProof.path, lazy: async () => ({ Component: (await import('./routes/workroom/proof.tsx')).ProofPage }) },
+          { path: paths.workroomCutSheets.path, lazy: async () => ({ Component: (await import('./routes/workroom/cut-sheets.tsx')).CutSheetsPage }) },
+          { path: paths.workroomPress.path, lazy: async () => ({ Component: (await import('./routes/workroom/press.tsx')).PressPage }) },
+          { path: paths.workroomStock.path, lazy: async () => ({ Component: (await import('./routes/workroom/stock.tsx')).StockPage }) },
+          // seller pages load on demand (shop settings, materials, listings and the editor)
+          { path: paths.seller.shop.path, lazy: async () => ({ Component: (await import('./routes/seller/shop-settings.tsx')).ShopSettingsPage }) },
+          { path: paths.seller.materials.path, lazy: async () => ({ Component: (await import('./routes/seller/materials.tsx')).MaterialsPage }) },
+          { path: paths.seller.listings.path, lazy: async () => ({ Component: (await import('./routes/seller/listings.tsx')).SellerListingsPage }) },
+          { path: paths.seller.newListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
+          { path: paths.seller.editListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
+        ],
+      },
       {
         element: <RequireAuth roles={['admin']} />,
         children: [
-          { path: paths.moderation.desk.path, element: <ModerationDeskPage /> },
+          { path: paths.moderation.desk.path, lazy: async () => ({ Component: (await import('./routes/moderation/desk.tsx')).ModerationDeskPage }) },
+          { path: paths.moderation.reviewListing.path, lazy: async () => ({ Component: (await import('./routes/moderation/review-listing.tsx')).ReviewListingPage }) },
+          { path: paths.moderation.audit.path, lazy: async () => ({ Component: (await import('./routes/moderation/audit.tsx')).AuditLogPage }) },
           { path: paths.moderation.mail.path, element: <MailPage /> },
         ],
       },

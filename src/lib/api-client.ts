@@ -134,4 +134,58 @@ export const api = {
   get: <T>(path: string, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'GET' }),
   post: <T>(path: string, body: unknown = {}, options: Omit<RequestOptions, 'method' | 'body'> = {}) =>
     apiRequest<T>(path, { ...options, method: 'POST', body }),
+  put: <T>(path: string, body: unknown, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'PUT', body }),
+  patch: <T>(path: string, body: unknown, options: Omit<RequestOptions, 'method' | 'body'> = {}) =>
+    apiRequest<T>(path, { ...options, method: 'PATCH', body }),
+  delete: <T>(path: string, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'DELETE' }),
 };
+
+/**
+ * Multipart upload with progress. fetch() cannot report upload progress, so this one call uses
+ * XMLHttpRequest; errors come back as the same ApiError as every other call.
+ * `onProgress` gets a fraction 0–1 (or null when the size is unknown).
+ */
+export function upload<T>(path: string, formData: FormData, onProgress?: (fraction: number | null) => void, signal?: AbortSignal): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', path);
+    xhr.withCredentials = true;
+    xhr.setRequestHeader('Accept', 'application/json');
+    xhr.upload.onprogress = (e) => onProgress?.(e.lengthComputable ? e.loaded / e.total : null);
+    xhr.onerror = () => reject(new ApiError(0, 'network_error', "We couldn't reach Namesake. Check your connection and try again."));
+    xhr.onabort = () => reject(new DOMException('Upload cancelled', 'AbortError'));
+    xhr.onload = () => {
+      let data: unknown = undefined;
+      try {
+        data = xhr.responseText ? JSON.parse(xhr.responseText) : undefined;
+      } catch {
+        data = undefined;
+      }
+      if (xhr.status >= 200 && xhr.status < 300) {
+        onProgress?.(1);
+        resolve(data as T);
+        return;
+      }
+      if (xhr.status === 401) unauthorizedHandler();
+      reject(toApiError(xhr.status, data));
+    };
+    signal?.addEventListener('abort', () => xhr.abort(), { once: true });
+    xhr.send(formData);
+  });
+}
+
+/**
+ * Raw bytes of a same-origin file (the personaliser's font files: the engine parses the very TTF
+ * the server uses). Failures throw the same ApiError as JSON calls.
+ */
+export async function getBytes(path: string, signal?: AbortSignal): Promise<Uint8Array> {
+  let response: Response;
+  try {
+    response = await fetch(path, { credentials: 'include', signal });
+  } catch (error) {
+    if (error instanceof DOMException && error.name === 'AbortError') throw error;
+    throw new ApiError(0, 'network_error', "We couldn't reach Namesake. Check your connection and try again.");
+  }
+  if (!response.ok) throw toApiError(response.status, await response.json().catch(() => undefined));
+  return new Uint8Array(await response.arrayBuffer());
+}

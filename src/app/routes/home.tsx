@@ -1,8 +1,8 @@
 import { Link } from 'react-router-dom';
 import { ButtonLink } from '../../components/ui/button.tsx';
-import { StitchedBox } from '../../components/ui/card.tsx';
 import { occasions, paths } from '../../config/paths.ts';
 import { useMe } from '../../features/auth/api/get-me.ts';
+import { OccasionShelves } from './home/occasion-shelves.tsx';
 
 const steps = [
   { title: 'Type the name', body: 'Choose a tote, tee, pouch or drawstring bag and type the name it should carry: Mira, Theo, Bartholomew.' },
@@ -79,12 +79,9 @@ export function HomePage() {
 
       <section aria-labelledby="listings-title" className="flex flex-col gap-5">
         <h2 id="listings-title" className="text-2xl font-extrabold">
-          Fresh from the workrooms
+          Fresh from the workrooms, by occasion
         </h2>
-        <StitchedBox className="py-12 text-center">
-          <p className="text-lg font-bold">Listings will appear here</p>
-          <p className="mt-1 text-ink-soft">Shops are setting out their first totes, tees and pouches.</p>
-        </StitchedBox>
+        <OccasionShelves />
       </section>
     </div>
   );

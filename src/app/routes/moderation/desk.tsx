@@ -1,24 +1,118 @@
 import { Link } from 'react-router-dom';
+import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
+import { Badge } from '../../../components/ui/form-controls.tsx';
 import { paths } from '../../../config/paths.ts';
+import { useAuditLog } from '../../../features/moderation/api/get-audit-log.ts';
+import { useModerationQueue } from '../../../features/moderation/api/get-queue.ts';
+import { knownShops } from '../../../features/moderation/components/known-shops.ts';
+import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
+import { DeskNav } from './desk-nav.tsx';
+
+const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const shopStateLabel = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' } as const;
 
 export function ModerationDeskPage() {
+  const queue = useModerationQueue();
+  const audit = useAuditLog(1);
+  const shops = knownShops(queue.data, audit.data?.items).filter((s) => !queue.data?.shops.some((q) => q.id === s.id));
+
   return (
     <div>
-      <PageHeading eyebrow="Moderation desk" title="New shops and listings" lead="Approve what is ready, or send it back with a reason the seller will receive by e-mail." />
-      <div className="grid gap-5 md:grid-cols-2">
-        <StitchedBox>
-          <h2 className="text-lg font-extrabold">Review queue</h2>
-          <p className="mt-1 text-ink-soft">New and edited listings and new shops will line up here.</p>
-        </StitchedBox>
-        <div className="rounded-lg border border-line bg-white p-6">
-          <h2 className="text-lg font-extrabold">Outgoing mail</h2>
-          <p className="mt-1 text-ink-soft">Every e-mail Namesake sends in this installation is captured locally, so you can read it.</p>
-          <Link to={paths.moderation.mail.getHref()} className="mt-3 inline-flex min-h-11 items-center font-bold text-thread-deep underline decoration-2 underline-offset-4">
-            Open the mail viewer
-          </Link>
+      <DeskNav />
+      <PageHeading eyebrow="Moderation desk" title="Waiting for review" lead="Approve what is ready, or send it back with a reason the seller will receive by e-mail." />
+      {queue.isPending ? <Spinner label="Loading the queue…" /> : null}
+      {queue.isError ? <p role="alert" className="font-semibold text-danger">{queue.error.message}</p> : null}
+      {queue.data ? (
+        <div className="flex flex-col gap-10">
+          <section aria-labelledby="q-listings" className="flex flex-col gap-4">
+            <h2 id="q-listings" className="text-2xl font-extrabold">
+              Listings <span className="text-ink-soft">({queue.data.listings.length})</span>
+            </h2>
+            {queue.data.listings.length === 0 ? (
+              <StitchedBox>
+                <p>No listings are waiting. New listings and edits to live ones appear here.</p>
+              </StitchedBox>
+            ) : (
+              <ul className="flex flex-col gap-3">
+                {queue.data.listings.map((l) => (
+                  <li key={l.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4 sm:flex-row sm:items-center sm:justify-between">
+                    <div className="flex min-w-0 flex-col gap-1">
+                      <span className="flex flex-wrap items-center gap-2">
+                        <Badge tone={l.kind === 'new' ? 'marigold' : 'thread'}>{l.kind === 'new' ? 'New listing' : 'Edited, live version on sale'}</Badge>
+                        {l.shop.state !== 'live' ? <Badge tone="danger">Shop {shopStateLabel[l.shop.state].toLowerCase()}</Badge> : null}
+                      </span>
+                      <p className="font-extrabold break-words">{l.title}</p>
+                      <p className="text-sm text-ink-soft">
+                        {l.shop.name} · sent {when.format(l.submittedAt)}
+                      </p>
+                    </div>
+                    <Link
+                      to={paths.moderation.reviewListing.getHref(l.id)}
+                      className="inline-flex min-h-11 shrink-0 items-center justify-center rounded-lg bg-marigold px-5 font-bold text-ink shadow-[0_2px_0_0_var(--color-marigold-deep)] hover:bg-marigold-light"
+                    >
+                      Review<span className="sr-only">&nbsp;{l.title}</span>
+                    </Link>
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
+
+          <section aria-labelledby="q-shops" className="flex flex-col gap-4">
+            <h2 id="q-shops" className="text-2xl font-extrabold">
+              New shops <span className="text-ink-soft">({queue.data.shops.length})</span>
+            </h2>
+            {queue.data.shops.length === 0 ? (
+              <StitchedBox>
+                <p>No shops are waiting.</p>
+              </StitchedBox>
+            ) : (
+              <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
+                {queue.data.shops.map((s) => (
+                  <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
+                    <div>
+                      <p className="text-lg font-extrabold break-words">{s.name}</p>
+                      <p className="text-sm [overflow-wrap:anywhere] text-ink-soft">
+                        /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {when.format(s.createdAt)}
+                      </p>
+                    </div>
+                    {s.description ? <p className="whitespace-pre-wrap">{s.description}</p> : <p className="text-ink-faint">No description yet.</p>}
+                    <ShopActions shop={s} />
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
+
+          <section aria-labelledby="q-known" className="flex flex-col gap-4">
+            <h2 id="q-known" className="text-2xl font-extrabold">
+              Suspend or restore a shop
+            </h2>
+            <p className="-mt-2 max-w-prose text-ink-soft">Shops with listings in the queue and shops moderators acted on recently. Suspending hides every listing of the shop from browse and search at once.</p>
+            {shops.length === 0 ? (
+              <StitchedBox>
+                <p>No other shops to show yet.</p>
+              </StitchedBox>
+            ) : (
+              <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
+                {shops.map((s) => (
+                  <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
+                    <div className="flex flex-wrap items-center gap-2">
+                      <p className="text-lg font-extrabold break-words">{s.name}</p>
+                      <Badge tone={s.state === 'live' ? 'thread' : s.state === 'in_review' ? 'marigold' : 'danger'}>{shopStateLabel[s.state]}</Badge>
+                    </div>
+                    {s.state === 'suspended' && s.reason ? <p className="text-sm text-ink-soft">Reason: {s.reason}</p> : null}
+                    <ShopActions shop={s} />
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
         </div>
-      </div>
+      ) : null}
     </div>
   );
 }
+
+export default ModerationDeskPage;

@@ -1,5 +1,13 @@
-import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
+import { PageHeading } from '../../../components/ui/card.tsx';
+import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+import { lazy, Suspense } from 'react';
+import { Spinner } from '../../../components/ui/button.tsx';
+
+// the order table (and TanStack Table with it) loads on demand, keeping the first page small
+const WorkroomOrders = lazy(async () => ({ default: (await import('../../../features/workroom/components/workroom-orders.tsx')).WorkroomOrders }));
 import { useMe } from '../../../features/auth/api/get-me.ts';
+import { ButtonLink } from '../../../components/ui/button.tsx';
+import { paths } from '../../../config/paths.ts';
 
 const stateText: Record<string, { label: string; body: string; tone: string }> = {
   in_review: {
@@ -18,26 +26,26 @@ export function WorkroomPage() {
 
   return (
     <div>
-      <PageHeading eyebrow="Workroom" title={shop ? shop.name : 'Your workroom'} lead={`Welcome in, ${me.data?.user.name ?? ''}. Orders, proofs and cut sheets will gather here.`} />
+      <PageHeading eyebrow="Workroom" title={shop ? shop.name : 'Your workroom'} lead={`Welcome in, ${me.data?.user.name ?? ''}. Check proofs, build cut sheets, press and ship.`} />
       {shop ? (
         <div className={`mb-8 flex flex-col gap-1 rounded-lg border-2 p-5 sm:flex-row sm:items-center sm:gap-4 ${stateText[shop.state]?.tone ?? ''}`}>
           <p className="font-extrabold whitespace-nowrap">Shop state: {stateText[shop.state]?.label ?? shop.state}</p>
           <p>{stateText[shop.state]?.body}</p>
         </div>
       ) : null}
-      <div className="grid gap-5 md:grid-cols-3">
-        {[
-          ['New orders', 'Personalisation text waiting for your proof check.'],
-          ['Cut sheets', 'Approved pieces grouped by material and colour, ready to cut.'],
-          ['Materials', 'Your vinyl rolls and sheets, with stock left on each.'],
-        ].map(([title, body]) => (
-          <StitchedBox key={title}>
-            <h2 className="text-lg font-extrabold">{title}</h2>
-            <p className="mt-1 text-ink-soft">{body}</p>
-            <p className="mt-3 text-sm font-bold text-thread-deep">Coming soon</p>
-          </StitchedBox>
-        ))}
-      </div>
+      <nav aria-label="Your shop" className="mb-8 flex flex-wrap gap-3">
+        <ButtonLink to={paths.seller.listings.getHref()}>Listings</ButtonLink>
+        <ButtonLink to={paths.seller.materials.getHref()} variant="secondary">
+          Materials
+        </ButtonLink>
+        <ButtonLink to={paths.seller.shop.getHref()} variant="secondary">
+          Shop settings
+        </ButtonLink>
+      </nav>
+      <WorkroomNav />
+      <Suspense fallback={<Spinner label="Loading orders…" />}>
+        <WorkroomOrders />
+      </Suspense>
     </div>
   );
 }

@@ -1,0 +1,105 @@
+// Journey 4 (PRODUCT.md), admin side, on a shop made for this test (so no other spec's data moves):
+// approve a new shop, approve one listing and reject another with a reason the seller receives by
+// e-mail, then suspend the shop (its listings leave search at once) and restore it.
+import { expect, test, type APIRequestContext, type Browser } from '@playwright/test';
+import { DEMO_PASSWORD, demo, signIn, waitForMail } from './fixtures.ts';
+
+/** The server's JSON answer (after checking the status); the assertions check its shape. */
+async function ok(res: Awaited<ReturnType<APIRequestContext['get']>>): Promise<any> {
+  expect(res.ok(), `${res.url()} → ${res.status()} ${await res.text()}`).toBe(true);
+  return res.json();
+}
+
+/** A fresh seller with a shop (in review), one material and two listings sent for review. */
+async function freshSeller(browser: Browser, tag: string) {
+  const context = await browser.newContext();
+  const req = context.request;
+  const email = `maker-${tag}@namesake.test`;
+  await ok(await req.post('/api/auth/sign-up/email', { data: { name: 'Priya Maker', email, password: DEMO_PASSWORD } }));
+  const { shop } = await ok(await req.post('/api/shops', { data: { name: `Priya Print ${tag}` } }));
+  const { material } = await ok(await req.post('/api/materials', { data: { kind: 'smooth', colourName: 'Pine green', colourHex: '#2f7d6d', rollWidthMm: 305, stockMm: 5000 } }));
+  const fonts: { id: string }[] = await ok(await req.get('/api/fonts'));
+  const listing = async (title: string) => {
+    const body = {
+      title,
+      description: 'A drawstring bag with a name.',
+      blank: { kind: 'drawstring_bag' },
+      basePriceMinor: 1800,
+      personalisation: { textFields: [{ id: 'name', label: 'Name', fontIds: [fonts[0]!.id], colourChoices: [material.id] }] },
+    };
+    const { listing: l } = await ok(await req.post('/api/seller/listings', { data: body }));
+    await ok(await req.post(`/api/seller/listings/${l.id}/submit`));
+    return l as { id: string };
+  };
+  return { context, email, shop: shop as { id: string; name: string }, listing };
+}
+
+const searchIds = async (req: APIRequestContext, q: string) =>
+  ((await ok(await req.get(`/api/listings?q=${encodeURIComponent(q)}`))).items as { id: string }[]).map((i) => i.id);
+
+test('when an admin approves, rejects with a reason, suspends and restores, then the seller is told and search follows at once', async ({ page, browser }) => {
+  const tag = Date.now().toString(36);
+  const seller = await freshSeller(browser, tag);
+  const goodTitle = `Theo drawstring bag ${tag}`;
+  const badTitle = `Kai drawstring bag ${tag}`;
+  const good = await seller.listing(goodTitle);
+  const bad = await seller.listing(badTitle);
+  const since = Date.now();
+
+  await signIn(page, demo.admin);
+  await page.goto('/moderation');
+
+  // the new shop waits in its queue; approving it needs no reason
+  const shopCard = page.getByRole('listitem', { name: `Shop ${seller.shop.name}` });
+  await expect(shopCard).toBeVisible();
+  await shopCard.getByRole('button', { name: `Approve shop ${seller.shop.name}` }).click();
+  await expect(page.getByText(`${seller.shop.name} is approved.`)).toBeVisible();
+
+  // approve the first listing from its review page
+  await page.getByRole('link', { name: `Review ${goodTitle}` }).click();
+  await expect(page.getByRole('article', { name: 'Listing as shoppers see it' }).getByRole('heading', { name: goodTitle })).toBeVisible();
+  await page.getByRole('button', { name: 'Approve listing' }).click();
+  await expect(page.getByText(`“${goodTitle}” is approved and on sale.`)).toBeVisible();
+  expect(await searchIds(page.request, goodTitle)).toContain(good.id);
+
+  // reject the second: a reason is required, and the seller gets it by e-mail
+  await page.getByRole('link', { name: `Review ${badTitle}` }).click();
+  await page.getByRole('button', { name: 'Reject with a reason' }).click();
+  await page.getByRole('button', { name: 'Reject listing' }).click();
+  await expect(page.getByText('Give the seller a reason (at least 3 characters).')).toBeVisible();
+  const reason = 'The photo is missing; add a photo of the finished bag.';
+  await page.getByLabel('Reason for the seller').fill(reason);
+  await page.getByRole('button', { name: 'Reject listing' }).click();
+  await expect(page.getByText(`“${badTitle}” is sent back to the seller.`)).toBeVisible();
+  const mail = await waitForMail(seller.email, /Changes needed/, since);
+  expect(mail.text).toContain(reason);
+  expect(mail.text).toContain(badTitle);
+  expect(await searchIds(page.request, badTitle)).not.toContain(bad.id);
+  const rejected = await ok(await seller.context.request.get(`/api/seller/listings/${bad.id}`));
+  expect(rejected.listing.state).toBe('rejected');
+  expect(rejected.listing.rejectionReason).toBe(reason);
+
+  // suspend the shop: its live listing leaves search at once
+  await page.goto('/moderation');
+  const known = page.getByRole('listitem', { name: `Shop ${seller.shop.name}` });
+  await known.getByRole('button', { name: `Suspend shop ${seller.shop.name}` }).click();
+  await known.getByLabel(`Why is ${seller.shop.name} suspended?`).fill('Listings copy another maker’s artwork; we are checking.');
+  await known.getByRole('button', { name: 'Suspend shop' }).click();
+  await expect(page.getByText(`${seller.shop.name} is suspended.`)).toBeVisible();
+  expect(await searchIds(page.request, goodTitle)).not.toContain(good.id);
+  await waitForMail(seller.email, /suspended/, since);
+
+  // restore it: the listing is back
+  await known.getByRole('button', { name: `Restore shop ${seller.shop.name}` }).click();
+  await expect(page.getByText(`${seller.shop.name} is restored.`)).toBeVisible();
+  expect(await searchIds(page.request, goodTitle)).toContain(good.id);
+
+  // every decision is in the audit log, with who and why
+  await page.getByRole('link', { name: 'Audit log' }).click();
+  const log = page.getByRole('table', { name: 'Audit log of moderator actions' });
+  await expect(log.getByRole('row').filter({ hasText: 'Rejected listing' }).filter({ hasText: badTitle })).toContainText(reason);
+  await expect(log.getByRole('row').filter({ hasText: 'Suspended shop' }).filter({ hasText: seller.shop.name })).toContainText('admin@namesake.test');
+  await expect(log.getByRole('row').filter({ hasText: 'Restored shop' }).filter({ hasText: seller.shop.name })).toBeVisible();
+
+  await seller.context.close();
+});

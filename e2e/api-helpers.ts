@@ -1,0 +1,72 @@
+// API shortcuts for the hardening specs (a11y, xss, phone journey): make fresh rows through the
+// same HTTP API the client uses, on the page's own cookie jar, so the browser then sees them.
+// Every call sends the app's Origin, as a browser would (the CSRF guard refuses other sites).
+import { expect, type APIResponse, type Page } from '@playwright/test';
+import { DEMO_PASSWORD } from './fixtures.ts';
+
+export const FOX_TOTE = 'autumn-fox-tote-with-a-name';
+export const ROCKET_TEE = 'rocket-name-tee-for-kids';
+
+// playwright.config.ts puts the run's port in E2E_PORT before the workers start
+function origin(_page: Page): string {
+  return `http://localhost:${process.env.E2E_PORT ?? 4319}`;
+}
+
+async function json<T = any>(res: APIResponse, what: string): Promise<T> { // eslint-disable-line @typescript-eslint/no-explicit-any
+  const text = await res.text();
+  expect(res.ok(), `${what}: HTTP ${res.status()} ${text.slice(0, 300)}`).toBe(true);
+  return (text ? JSON.parse(text) : {}) as T;
+}
+
+export async function apiPost<T = any>(page: Page, path: string, data: unknown, method: 'POST' | 'PUT' | 'PATCH' = 'POST'): Promise<T> { // eslint-disable-line @typescript-eslint/no-explicit-any
+  const res = await page.request.fetch(path, { method, data: data as object, headers: { origin: origin(page) } });
+  return json<T>(res, `${method} ${path}`);
+}
+
+export async function apiGet<T = any>(page: Page, path: string): Promise<T> { // eslint-disable-line @typescript-eslint/no-explicit-any
+  return json<T>(await page.request.get(path), `GET ${path}`);
+}
+
+/** Signs a fresh account up (and in: the session cookie lands in the page's context). */
+export async function signUpApi(page: Page, email: string, name: string, password = DEMO_PASSWORD): Promise<void> {
+  await apiPost(page, '/api/auth/sign-up/email', { email, password, name });
+}
+
+export async function signInApi(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await apiPost(page, '/api/auth/sign-in/email', { email, password });
+}
+
+export async function signOutApi(page: Page): Promise<void> {
+  await page.request.post('/api/auth/sign-out', { headers: { origin: origin(page) }, data: {} });
+  await page.context().clearCookies();
+}
+
+export function uniqueEmail(prefix: string): string {
+  return `${prefix}-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 6)}@namesake.test`;
+}
+
+/** Puts one named line of a live listing into the current cart (guest or signed in). */
+export async function addToCartApi(page: Page, slug: string, name: string): Promise<void> {
+  const l = await apiGet(page, `/api/listings/${slug}`);
+  const field = l.content.personalisation.textFields[0];
+  await apiPost(page, '/api/cart/lines', {
+    listingId: l.id,
+    quantity: 1,
+    choices: { texts: { [field.id]: { text: name, fontId: field.defaultFontId ?? field.fontIds[0], letterHeightMm: field.defaultLetterHeightMm } } },
+  });
+}
+
+/** Opens a checkout session for the cart and pays it on the fake's hosted page with card 4242. */
+export async function payCartApi(page: Page): Promise<{ sessionId: string; checkoutId: string }> {
+  const co = await apiPost(page, '/api/checkout', {});
+  const pay = await page.request.post(co.url, {
+    form: { card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' },
+    maxRedirects: 0,
+  });
+  expect(pay.status(), 'the payment page accepts the test card').toBe(303);
+  for (let i = 0; i < 20; i++) {
+    const s = await apiGet(page, `/api/checkout/${co.sessionId}/status?wait=5000`);
+    if (s.state === 'paid') return { sessionId: co.sessionId, checkoutId: co.checkoutId };
+  }
+  throw new Error('the checkout never became paid');
+}

@@ -1,0 +1,28 @@
+import { NavLink } from 'react-router-dom';
+import { paths } from '../../../config/paths.ts';
+
+const links = [
+  { to: paths.moderation.desk.getHref(), label: 'Queue', end: true },
+  { to: paths.moderation.audit.getHref(), label: 'Audit log', end: false },
+  { to: paths.moderation.mail.getHref(), label: 'Mail', end: false },
+];
+
+export function DeskNav() {
+  return (
+    <nav aria-label="Moderation desk pages" className="-mx-4 mb-6 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+      <ul className="flex gap-1 border-b border-line pb-2">
+        {links.map((l) => (
+          <li key={l.to}>
+            <NavLink
+              to={l.to}
+              end={l.end}
+              className={({ isActive }) => 'flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap ' + (isActive ? 'bg-thread-wash text-thread-deep' : 'text-ink hover:bg-paper-deep')}
+            >
+              {l.label}
+            </NavLink>
+          </li>
+        ))}
+      </ul>
+    </nav>
+  );
+}

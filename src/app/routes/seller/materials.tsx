@@ -1,0 +1,63 @@
+import { useCallback, useState } from 'react';
+import type { Material } from '../../../../shared/schemas/material.ts';
+import { Button, Spinner } from '../../../components/ui/button.tsx';
+import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
+import { useToast } from '../../../components/ui/toast.tsx';
+import { useMaterials } from '../../../features/materials/api/get-materials.ts';
+import { useUpdateMaterial } from '../../../features/materials/api/update-material.ts';
+import { MaterialForm } from '../../../features/materials/components/material-form.tsx';
+import { MaterialsTable } from '../../../features/materials/components/materials-table.tsx';
+import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts';
+import { SellerNav } from './seller-nav.tsx';
+
+export function MaterialsPage() {
+  const materials = useMaterials();
+  const shop = useOwnShop();
+  const toast = useToast();
+  const update = useUpdateMaterial();
+  const [editing, setEditing] = useState<Material | 'new' | null>(null);
+
+  const onEdit = useCallback((m: Material) => {
+    setEditing(m);
+    window.scrollTo({ top: 0, behavior: 'smooth' });
+  }, []);
+  const { mutate } = update;
+  const onArchive = useCallback(
+    (m: Material) =>
+      mutate(
+        { id: m.id, input: { archived: !m.archived } },
+        { onSuccess: () => toast.success(m.archived ? `${m.colourName} is back in use.` : `${m.colourName} is archived; new listings can't use it.`), onError: (e) => toast.error(e.message) },
+      ),
+    [mutate, toast],
+  );
+
+  return (
+    <div>
+      <SellerNav />
+      <PageHeading eyebrow="Workroom" title="Materials" lead="Your vinyl rolls and sheets: colour, width, what is left, and how each one is pressed." />
+      {editing ? (
+        <div className="mb-8 max-w-3xl">
+          <h2 className="mb-4 text-2xl font-extrabold">{editing === 'new' ? 'Add a material' : `Edit ${editing.colourName}`}</h2>
+          <MaterialForm key={editing === 'new' ? 'new' : editing.id} material={editing === 'new' ? undefined : editing} onDone={() => setEditing(null)} />
+        </div>
+      ) : (
+        <Button className="mb-6" onClick={() => setEditing('new')}>
+          Add a material
+        </Button>
+      )}
+      {materials.isPending ? <Spinner label="Loading materials…" /> : null}
+      {materials.isError ? <p role="alert" className="font-semibold text-danger">{materials.error.message}</p> : null}
+      {materials.data && materials.data.length === 0 ? (
+        <StitchedBox>
+          <p className="font-bold">No materials yet.</p>
+          <p className="text-ink-soft">Add the vinyl you cut from; listings offer these as colour choices.</p>
+        </StitchedBox>
+      ) : null}
+      {materials.data && materials.data.length > 0 ? (
+        <MaterialsTable materials={materials.data} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
+      ) : null}
+    </div>
+  );
+}
+
+export default MaterialsPage;

@@ -1,0 +1,158 @@
+import { useState } from 'react';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { Button, Spinner } from '../../../components/ui/button.tsx';
+import { PageHeading } from '../../../components/ui/card.tsx';
+import { useToast } from '../../../components/ui/toast.tsx';
+import { paths } from '../../../config/paths.ts';
+import { isApiError } from '../../../lib/api-client.ts';
+import { useBatch } from '../../../features/workroom/api/get-batch.ts';
+import { useBatches } from '../../../features/workroom/api/get-batches.ts';
+import { useLines } from '../../../features/workroom/api/get-lines.ts';
+import { useBuildCutSheets } from '../../../features/workroom/api/build-cut-sheets.ts';
+import { useMarkCut } from '../../../features/workroom/api/mark-cut.ts';
+import { CutSheetCard, stockWarningsText } from '../../../features/workroom/components/cut-sheet-card.tsx';
+import { formatDateTime, formatLength } from '../../../features/workroom/components/format.ts';
+import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
+import { WorksheetDownload } from '../../../features/workroom/components/worksheet-download.tsx';
+import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+
+function Batch({ batchId }: { batchId: string }) {
+  const batch = useBatch(batchId);
+  const markCut = useMarkCut();
+  const toast = useToast();
+  if (batch.isPending) return <Spinner label="Loading the cut sheets…" />;
+  if (batch.isError) return <p role="alert" className="font-bold text-danger">{batch.error.message}</p>;
+  const sheets = batch.data;
+  const planned = sheets.filter((s) => s.state === 'planned');
+  const total = sheets.reduce((a, s) => a + s.lengthMm, 0);
+  return (
+    <div className="flex flex-col gap-6">
+      <div className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-line bg-white p-4">
+        <p>
+          <span className="font-extrabold">{sheets.length} cut sheet{sheets.length === 1 ? '' : 's'}</span>, one per material, {formatLength(total)} of vinyl in all. Files are mirrored for cutting, 1 unit = 1 mm.
+        </p>
+        {planned.length ? (
+          <Button
+            onClick={async () => {
+              try {
+                const r = await markCut.mutateAsync({ batchId });
+                toast.success(`All sheets marked cut; ${r.linesCut.length} line${r.linesCut.length === 1 ? '' : 's'} now cut. Press cards are ready.`);
+                if (r.warnings.length) toast.error(stockWarningsText(r.warnings));
+              } catch (e) {
+                toast.error(isApiError(e) ? e.message : 'That did not work.');
+              }
+            }}
+            pending={markCut.isPending}
+            pendingLabel="Saving…"
+          >
+            Mark all {planned.length} sheets cut
+          </Button>
+        ) : (
+          <Link to={paths.workroomPress.getHref()} className="font-bold text-thread-deep underline decoration-2">All cut — go to the press cards</Link>
+        )}
+      </div>
+      <WorksheetDownload batchId={batchId} />
+      <div className="grid gap-5 md:grid-cols-2 xl:grid-cols-3">
+        {sheets.map((s, i) => (
+          <CutSheetCard key={s.id} sheet={s} index={i} />
+        ))}
+      </div>
+    </div>
+  );
+}
+
+function Choose() {
+  const lines = useLines('approved');
+  const batches = useBatches();
+  const build = useBuildCutSheets();
+  const toast = useToast();
+  const navigate = useNavigate();
+  const [picked, setPicked] = useState<Set<string> | null>(null);
+  if (lines.isPending) return <Spinner label="Loading approved lines…" />;
+  if (lines.isError) return <p role="alert" className="font-bold text-danger">{lines.error.message}</p>;
+  const chosen = picked ?? new Set(lines.data.map((l) => l.id));
+  const toggle = (id: string) => {
+    const next = new Set(chosen);
+    if (next.has(id)) next.delete(id);
+    else next.add(id);
+    setPicked(next);
+  };
+  return (
+    <div className="flex flex-col gap-8">
+      <section aria-labelledby="approved" className="flex flex-col gap-3">
+        <h2 id="approved" className="text-xl font-extrabold">Approved lines, ready to cut</h2>
+        {lines.data.length === 0 ? (
+          <p className="text-ink-soft">No approved lines yet. Approve proofs in the <Link className="underline" to={paths.workroom.getHref()}>workroom</Link> first.</p>
+        ) : (
+          <>
+            <ul className="flex flex-col gap-2">
+              {lines.data.map((l) => (
+                <li key={l.id}>
+                  <label className="flex min-h-11 cursor-pointer flex-wrap items-center gap-3 rounded-lg border border-line bg-white px-3 py-2 hover:border-thread">
+                    <input type="checkbox" className="size-5 accent-thread" checked={chosen.has(l.id)} onChange={() => toggle(l.id)} />
+                    <span className="font-bold">{l.orderNumber}</span>
+                    <span className="font-extrabold">{l.text || '—'}{l.quantity > 1 ? ` × ${l.quantity}` : ''}</span>
+                    <span className="text-ink-soft">{l.listingTitle}</span>
+                    <MaterialChips materials={l.materials} />
+                  </label>
+                </li>
+              ))}
+            </ul>
+            <div className="flex flex-wrap gap-3">
+              <Button
+                disabled={chosen.size === 0}
+                pending={build.isPending}
+                pendingLabel="Nesting…"
+                onClick={async () => {
+                  try {
+                    const r = await build.mutateAsync([...chosen]);
+                    navigate(paths.workroomCutSheets.getHref(r.batchId));
+                  } catch (e) {
+                    toast.error(isApiError(e) ? e.message : 'That did not work.');
+                  }
+                }}
+              >
+                Build cut sheets for {chosen.size} line{chosen.size === 1 ? '' : 's'}
+              </Button>
+              <Button variant="quiet" onClick={() => setPicked(new Set(lines.data.map((l) => l.id)))}>Select all</Button>
+              <Button variant="quiet" onClick={() => setPicked(new Set())}>Select none</Button>
+            </div>
+          </>
+        )}
+      </section>
+      {batches.data?.length ? (
+        <section aria-labelledby="recent" className="flex flex-col gap-2">
+          <h2 id="recent" className="text-xl font-extrabold">Earlier batches</h2>
+          <ul className="flex flex-col gap-1">
+            {batches.data.map((b) => (
+              <li key={b.batchId}>
+                <Link className="underline decoration-thread decoration-2" to={paths.workroomCutSheets.getHref(b.batchId)}>
+                  {formatDateTime(b.createdAt)}: {b.sheets} sheets, {b.lineCount} lines{b.planned ? `, ${b.planned} not cut yet` : ', all cut'}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+    </div>
+  );
+}
+
+export function CutSheetsPage() {
+  const [params] = useSearchParams();
+  const batchId = params.get('batch');
+  return (
+    <div>
+      <WorkroomNav />
+      <PageHeading eyebrow="Workroom" title="Cut sheets" lead="Approved pieces, grouped by material and colour, nested on each roll with a 6 mm gap and 6 mm edges." />
+      {batchId ? (
+        <>
+          <p className="mb-4"><Link className="font-bold underline decoration-thread decoration-2" to={paths.workroomCutSheets.getHref()}>← Choose other lines</Link></p>
+          <Batch batchId={batchId} />
+        </>
+      ) : (
+        <Choose />
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,71 @@
+import { Link, useParams } from 'react-router-dom';
+import { formatMoney } from '../../../../shared/money.ts';
+import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
+import { PageHeading } from '../../../components/ui/card.tsx';
+import { paths } from '../../../config/paths.ts';
+import { useOrder } from '../../../features/workroom/api/get-order.ts';
+import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
+import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
+import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
+import { StateBadge } from '../../../features/workroom/components/state-badge.tsx';
+import { Timeline } from '../../../features/workroom/components/timeline.tsx';
+import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+
+export function WorkroomOrderPage() {
+  const { orderId = '' } = useParams();
+  const order = useOrder(orderId);
+  if (order.isPending) return <Spinner label="Loading the order…" />;
+  if (order.isError)
+    return (
+      <div role="alert" className="flex flex-col items-start gap-4 py-8">
+        <p className="text-lg font-bold">{order.error.message}</p>
+        <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
+      </div>
+    );
+  const o = order.data;
+  const active = o.lines.filter((l) => !['shipped', 'cancelled', 'refunded'].includes(l.state));
+  const ready = active.length > 0 && active.every((l) => l.state === 'pressed');
+  const label = (lineId: string) => o.lines.find((l) => l.id === lineId)?.text || o.lines.find((l) => l.id === lineId)?.listingTitle || '';
+  return (
+    <div>
+      <WorkroomNav />
+      <PageHeading eyebrow={`Order ${o.number}`} title={`For ${o.buyerName}`} lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`} />
+      <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="flex flex-col gap-6">
+          <section aria-labelledby="items">
+            <h2 id="items" className="mb-3 text-xl font-extrabold">Items</h2>
+            <ul className="flex flex-col gap-3">
+              {o.lines.map((l) => (
+                <li key={l.id} className="flex flex-col gap-2 rounded-lg border border-line bg-white p-4 sm:flex-row sm:items-start sm:justify-between">
+                  <div className="flex flex-col gap-1.5">
+                    <p className="font-bold">{l.quantity} × {l.listingTitle}</p>
+                    <p className="text-lg font-extrabold">{l.text || '—'}</p>
+                    <MaterialChips materials={l.materials} />
+                  </div>
+                  <div className="flex flex-col items-start gap-2 sm:items-end">
+                    <StateBadge state={l.state} />
+                    <Link className="font-bold text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(l.id)}>{l.state === 'awaiting_proof' ? 'Check proof' : 'Open proof'}</Link>
+                  </div>
+                </li>
+              ))}
+            </ul>
+          </section>
+          <section aria-labelledby="tl">
+            <h2 id="tl" className="mb-3 text-xl font-extrabold">Timeline</h2>
+            <Timeline events={o.timeline} lineLabel={label} />
+          </section>
+        </div>
+        <aside className="flex h-fit flex-col gap-4 rounded-lg border border-line bg-white p-5 shadow-sm">
+          <h2 className="text-lg font-extrabold">Shipping</h2>
+          {o.trackingNumber ? (
+            <p data-testid="tracking">Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <span className="font-mono font-bold">{o.trackingNumber}</span></p>
+          ) : ready ? (
+            <ShipForm orderId={o.id} />
+          ) : (
+            <p className="text-ink-soft">Every item must be pressed before the order ships. {active.filter((l) => l.state !== 'pressed').length} still to go.</p>
+          )}
+        </aside>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,71 @@
+import { Link } from 'react-router-dom';
+import type { CatalogItem } from '../../../../shared/schemas/catalog.ts';
+import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
+import { formatMoney } from '../../../../shared/money.ts';
+import { paths } from '../../../config/paths.ts';
+
+/** One listing in a grid: photo (or a drawn stand-in), title linking to the listing, shop, base price. */
+export function ListingCard({ item, headingLevel = 3 }: { item: CatalogItem; headingLevel?: 2 | 3 }) {
+  const Heading = headingLevel === 2 ? 'h2' : 'h3';
+  return (
+    <article className="group relative flex h-full flex-col overflow-hidden rounded-lg border border-line bg-white shadow-sm transition-shadow focus-within:shadow-md hover:shadow-md">
+      <div className="aspect-[4/3] bg-paper-deep">
+        {item.thumbnailUrl ? (
+          <img src={item.thumbnailUrl} alt="" loading="lazy" className="size-full object-cover" />
+        ) : (
+          <NoPhoto />
+        )}
+      </div>
+      <div className="flex flex-1 flex-col gap-1.5 p-4">
+        <Heading className="text-lg leading-snug font-extrabold">
+          {/* the whole card is clickable through this link's ::after; the shop link sits above it */}
+          <Link to={paths.listing.getHref(item.slug)} className="after:absolute after:inset-0 after:content-[''] hover:underline">
+            {item.title}
+          </Link>
+        </Heading>
+        <p className="text-sm text-ink-soft">
+          by{' '}
+          <Link to={paths.shopPage.getHref(item.shop.slug)} className="relative z-10 font-bold text-thread-deep underline decoration-thread/50 hover:decoration-thread">
+            {item.shop.name}
+          </Link>
+        </p>
+        {item.occasions.length > 0 ? (
+          <ul className="mt-1 flex flex-wrap gap-1.5" aria-label="Occasions">
+            {item.occasions.map((o) => (
+              <li key={o} className="rounded-full bg-thread-wash px-2 py-0.5 text-xs font-bold text-thread-deep">
+                {OCCASION_LABELS[o]}
+              </li>
+            ))}
+          </ul>
+        ) : null}
+        <p className="mt-auto pt-2 text-base font-extrabold">
+          <span className="text-sm font-semibold text-ink-soft">from </span>
+          {formatMoney(item.priceMinor, item.currency)}
+        </p>
+      </div>
+    </article>
+  );
+}
+
+function NoPhoto() {
+  return (
+    <svg viewBox="0 0 160 120" aria-hidden="true" className="size-full">
+      <rect width="160" height="120" fill="#f3ecdf" />
+      <path d="M66 40 C66 22 94 22 94 40" fill="none" stroke="#4a5470" strokeWidth="4" strokeLinecap="round" />
+      <rect x="50" y="40" width="60" height="64" rx="4" fill="#fbf7f0" stroke="#4a5470" strokeWidth="2.5" />
+      <rect x="58" y="50" width="44" height="40" rx="2" fill="none" stroke="#2f7d6d" strokeWidth="1.5" strokeDasharray="4 3" />
+    </svg>
+  );
+}
+
+export function ListingGrid({ items, headingLevel }: { items: CatalogItem[]; headingLevel?: 2 | 3 }) {
+  return (
+    <ul className="grid grid-cols-1 gap-5 min-[480px]:grid-cols-2 lg:grid-cols-3 xl:grid-cols-4">
+      {items.map((item) => (
+        <li key={item.id}>
+          <ListingCard item={item} headingLevel={headingLevel} />
+        </li>
+      ))}
+    </ul>
+  );
+}

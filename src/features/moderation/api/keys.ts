@@ -1,0 +1,6 @@
+export const moderationKeys = {
+  all: ['moderation'] as const,
+  queue: () => [...moderationKeys.all, 'queue'] as const,
+  audit: (page: number) => [...moderationKeys.all, 'audit', page] as const,
+  preview: (slug: string) => [...moderationKeys.all, 'preview', slug] as const,
+};

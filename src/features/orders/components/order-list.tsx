@@ -1,0 +1,32 @@
+import { Link } from 'react-router-dom';
+import type { OrderSummary } from '../../../../shared/schemas/order.ts';
+import { formatMoney } from '../../../../shared/money.ts';
+import { paths } from '../../../config/paths.ts';
+import { StateBadge } from './state-badge.tsx';
+
+const date = (ms: number) => new Date(ms).toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' });
+
+export function OrderList({ orders }: { orders: OrderSummary[] }) {
+  return (
+    <ul className="flex flex-col gap-3">
+      {orders.map((o) => (
+        <li key={o.id}>
+          <Link to={paths.orderDetail.getHref(o.id)} className="flex flex-col gap-2 rounded-lg border border-line bg-white p-4 shadow-sm hover:border-thread sm:flex-row sm:items-center sm:justify-between">
+            <span className="flex flex-col">
+              <span className="text-lg font-extrabold">{o.number}</span>
+              <span className="text-ink-soft">
+                {o.shop.name} · {o.itemCount} {o.itemCount === 1 ? 'item' : 'items'} · paid {date(o.paidAt)}
+              </span>
+            </span>
+            <span className="flex flex-wrap items-center gap-2">
+              {[...new Set(o.states)].map((s) => (
+                <StateBadge key={s} state={s} />
+              ))}
+              <span className="font-bold">{formatMoney(o.totalMinor, o.currency)}</span>
+            </span>
+          </Link>
+        </li>
+      ))}
+    </ul>
+  );
+}

@@ -1,0 +1,4 @@
+export const personaliserKeys = {
+  all: ['personaliser'] as const,
+  fonts: () => [...personaliserKeys.all, 'fonts'] as const,
+};

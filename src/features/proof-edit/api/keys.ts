@@ -1,0 +1,4 @@
+export const proofEditKeys = {
+  all: ['proof-edit'] as const,
+  line: (lineId: string) => [...proofEditKeys.all, lineId] as const,
+};

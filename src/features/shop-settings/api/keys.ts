@@ -1,0 +1,4 @@
+export const shopSettingsKeys = {
+  all: ['own-shop'] as const,
+  detail: () => [...shopSettingsKeys.all, 'detail'] as const,
+};

@@ -1,0 +1,15 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client.ts';
+import { uploadKeys } from './keys.ts';
+import type { MotifDetail } from './types.ts';
+
+export async function getMotif(id: string, signal?: AbortSignal): Promise<MotifDetail> {
+  return (await api.get<{ motif: MotifDetail }>(`/api/motifs/${encodeURIComponent(id)}`, { signal })).motif;
+}
+
+export const getMotifQueryOptions = (id: string) =>
+  queryOptions({ queryKey: uploadKeys.motif(id), queryFn: ({ signal }) => getMotif(id, signal), staleTime: Infinity });
+
+export function useMotif(id: string | null | undefined) {
+  return useQuery({ ...getMotifQueryOptions(id ?? ''), enabled: Boolean(id) });
+}

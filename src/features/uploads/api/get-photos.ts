@@ -1,0 +1,14 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client.ts';
+import { uploadKeys } from './keys.ts';
+import type { UploadedPhoto } from './types.ts';
+
+export async function getPhotos(signal?: AbortSignal): Promise<UploadedPhoto[]> {
+  return (await api.get<{ uploads: UploadedPhoto[] }>('/api/uploads', { signal })).uploads;
+}
+
+export const getPhotosQueryOptions = () => queryOptions({ queryKey: uploadKeys.photos(), queryFn: ({ signal }) => getPhotos(signal) });
+
+export function usePhotos() {
+  return useQuery(getPhotosQueryOptions());
+}

@@ -1,0 +1,11 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { LowStockInput, StockView } from '../../../../shared/schemas/workroom.ts';
+import { apiRequest } from '../../../lib/api-client.ts';
+import { workroomKeys } from './keys.ts';
+
+export const updateLowStock = ({ materialId, ...body }: LowStockInput & { materialId: string }) =>
+  apiRequest<StockView>(`/api/workroom/stock/${encodeURIComponent(materialId)}`, { method: 'PATCH', body });
+export function useUpdateLowStock() {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: updateLowStock, onSuccess: (data) => qc.setQueryData(workroomKeys.stock(), data) });
+}

@@ -1,0 +1,107 @@
+import { useState } from 'react';
+import type { StockMaterial, StockView } from '../../../../shared/schemas/workroom.ts';
+import { lowStockSchema } from '../../../../shared/schemas/workroom.ts';
+import { formatMoney } from '../../../../shared/money.ts';
+import { Button } from '../../../components/ui/button.tsx';
+import { useToast } from '../../../components/ui/toast.tsx';
+import { isApiError } from '../../../lib/api-client.ts';
+import { useUpdateLowStock } from '../api/update-low-stock.ts';
+import { formatDateTime, formatLength } from './format.ts';
+
+function LowStockEditor({ m }: { m: StockMaterial }) {
+  const toast = useToast();
+  const update = useUpdateLowStock();
+  const [value, setValue] = useState(String(m.lowStockMm / 10));
+  const [error, setError] = useState<string | null>(null);
+  const save = async () => {
+    const parsed = lowStockSchema.safeParse({ lowStockMm: Number(value) * 10 });
+    if (!parsed.success || value.trim() === '') return setError(parsed.success ? 'Enter a length in cm.' : (parsed.error.issues[0]?.message ?? 'Enter a length in cm.'));
+    setError(null);
+    try {
+      await update.mutateAsync({ materialId: m.id, ...parsed.data });
+      toast.success(`Low-stock mark for ${m.colourName} saved.`);
+    } catch (e) {
+      toast.error(isApiError(e) ? e.message : 'That did not work.');
+    }
+  };
+  const id = `low-${m.id}`;
+  return (
+    <div className="flex flex-wrap items-start gap-2">
+      <div className="flex flex-col">
+        <label htmlFor={id} className="sr-only">Low-stock mark for {m.colourName}, cm</label>
+        <div className="flex items-center gap-1">
+          <input id={id} inputMode="decimal" className={`min-h-11 w-24 rounded-lg border-2 bg-white px-2 ${error ? 'border-danger' : 'border-field'}`} value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-e` : undefined} />
+          <span className="text-sm">cm</span>
+        </div>
+        {error ? <span id={`${id}-e`} className="text-sm font-semibold text-danger">{error}</span> : null}
+      </div>
+      <Button variant="quiet" onClick={save} pending={update.isPending} className="min-h-11 px-2">Save</Button>
+    </div>
+  );
+}
+
+export function StockTable({ stock }: { stock: StockView }) {
+  const byId = new Map(stock.materials.map((m) => [m.id, m]));
+  return (
+    <div className="flex flex-col gap-8">
+      <section aria-labelledby="stock-mat">
+        <h2 id="stock-mat" className="mb-3 text-xl font-extrabold">Remaining per material</h2>
+        <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
+          <table className="w-full min-w-[720px] text-left">
+            <thead className="bg-paper-deep text-sm">
+              <tr><th className="px-3 py-2">Material</th><th className="px-3 py-2">Roll width</th><th className="px-3 py-2">Remaining</th><th className="px-3 py-2">Planned on uncut sheets</th><th className="px-3 py-2">Low-stock mark</th></tr>
+            </thead>
+            <tbody>
+              {stock.materials.map((m) => (
+                <tr key={m.id} className="border-t border-line align-top" data-testid="stock-row">
+                  <th scope="row" className="px-3 py-2.5 font-bold">
+                    <span className="inline-flex items-center gap-2">
+                      <span aria-hidden="true" className="size-4 rounded-full border border-ink/30" style={{ background: m.colourHex }} />
+                      {m.colourName} <span className="font-normal text-ink-soft">({m.kind})</span>
+                    </span>
+                  </th>
+                  <td className="px-3 py-2.5">{formatLength(m.rollWidthMm)}</td>
+                  <td className="px-3 py-2.5">
+                    <span className="font-semibold">{formatLength(m.stockMm)}</span>
+                    {m.low ? <span className="ml-2 rounded-full bg-danger-wash px-2 py-0.5 text-sm font-bold text-danger">low</span> : null}
+                  </td>
+                  <td className="px-3 py-2.5">{m.plannedMm ? formatLength(m.plannedMm) : '—'}</td>
+                  <td className="px-3 py-2.5"><LowStockEditor m={m} /></td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      </section>
+      <section aria-labelledby="stock-use">
+        <h2 id="stock-use" className="mb-1 text-xl font-extrabold">What each cut sheet used</h2>
+        <p className="mb-3 text-sm text-ink-soft">A cut sheet takes its nested length plus {stock.trimMm} mm trim from the roll.</p>
+        {stock.sheets.length === 0 ? <p className="text-ink-soft">No cut sheets yet.</p> : (
+          <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
+            <table className="w-full min-w-[640px] text-left">
+              <thead className="bg-paper-deep text-sm">
+                <tr><th className="px-3 py-2">Material</th><th className="px-3 py-2">State</th><th className="px-3 py-2">Length</th><th className="px-3 py-2">Taken from stock</th><th className="px-3 py-2">Cost</th><th className="px-3 py-2">Lines</th><th className="px-3 py-2">When</th></tr>
+              </thead>
+              <tbody>
+                {stock.sheets.map((s) => {
+                  const m = byId.get(s.materialId);
+                  return (
+                    <tr key={s.id} className="border-t border-line">
+                      <td className="px-3 py-2">{m ? `${m.colourName} (${m.kind})` : '—'}</td>
+                      <td className="px-3 py-2">{s.state}</td>
+                      <td className="px-3 py-2">{formatLength(s.lengthMm)}</td>
+                      <td className="px-3 py-2">{s.consumedMm !== null ? formatLength(s.consumedMm) : 'not cut yet'}</td>
+                      <td className="px-3 py-2">{s.costMinor !== null ? formatMoney(s.costMinor, stock.currency) : '—'}</td>
+                      <td className="px-3 py-2">{s.lineCount}</td>
+                      <td className="px-3 py-2">{formatDateTime(s.cutAt ?? s.createdAt)}</td>
+                    </tr>
+                  );
+                })}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </section>
+    </div>
+  );
+}
