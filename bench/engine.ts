@@ -2,9 +2,15 @@
  * Engine benchmark (`npm run bench -- engine`): 1,000 names of 3–14 characters per font, laid out
  * by our engine (fontkit shaping + outlines as path data in mm) and shaped by harfbuzzjs (HarfBuzz,
  * the reference shaper) in the same run; median and p95 per layout, the ratio, and a cached layout.
+ * Then compose(): 200 names with a motif and an outline on a tote, p50/p95 per call, first time
+ * (a name never composed before; only the motif is already known) and warm (the same design
+ * composed again right after, as on a colour change or a backspace), in each weeding mode.
  */
 import { getFontFile, getFontRegistry } from '../server/integrations/fonts.ts';
 import { layoutText } from '../shared/engine/text-layout.ts';
+import { compose, type FieldDef, type WeedingMode } from '../shared/engine/compose.ts';
+import { defaultBlank } from '../shared/engine/blanks.ts';
+import { parseMotifSvg } from '../shared/engine/motif.ts';
 import { hbFont } from '../tests/shared/engine/harfbuzz-reference.ts';
 
 const LETTERS = 'abcdefghijklmnopqrstuvwxyzäöüéèàçñøåłśźżčšž';
@@ -73,4 +79,45 @@ export async function run(): Promise<void> {
   }
   const c = stats(cached);
   console.log(`cached layout: median ${(c.median).toFixed(4)} ms p95 ${(c.p95).toFixed(4)} ms (target ≤ 0.05 ms)`);
+
+  benchCompose();
+}
+
+// A three-layer motif (flame, hull with fins, window) as a seller would upload it.
+const MOTIF = `<svg xmlns="http://www.w3.org/2000/svg" width="60mm" height="100mm" viewBox="0 0 60 100">
+  <g id="flame" fill="#e0a526"><path d="M20 70 L40 70 Q42 86 30 98 Q18 86 20 70 Z"/></g>
+  <g id="hull" fill="#1f2a44"><path d="M30 2 Q46 18 44 56 L44 72 L16 72 L16 56 Q14 18 30 2 Z"/><path d="M16 52 L4 72 L16 70 Z"/><path d="M44 52 L56 72 L44 70 Z"/></g>
+  <g id="window" fill="#2f7d6d"><circle cx="30" cy="32" r="7"/></g></svg>`;
+
+function benchCompose(): void {
+  const reg = getFontRegistry();
+  const tote = defaultBlank('tote')!;
+  const geometry = parseMotifSvg(MOTIF);
+  const fonts = reg.list().map((f) => f.id);
+  const fieldsFor = (fontId: string): FieldDef[] => [
+    { kind: 'motif', id: 'motif', heightMm: 60, materialKind: 'smooth', options: [{ id: 'rocket', geometry }] },
+    { kind: 'text', id: 'name', fontId, letterHeightMm: 40, maxChars: 14, materialKind: 'smooth', colour: '#2f7d6d', outline: { offsetMm: 3, materialKind: 'smooth', colour: '#ffffff' } },
+  ];
+  const fieldSets = new Map(fonts.map((id) => [id, fieldsFor(id)]));
+  const run = (names: string[], mode: WeedingMode) => {
+    const first: number[] = [];
+    const warm: number[] = [];
+    names.forEach((n, i) => {
+      const input = { blank: tote, fields: fieldSets.get(fonts[i % fonts.length])!, choices: { motif: { motifId: 'rocket' }, name: { text: n } } };
+      let t0 = performance.now();
+      compose(reg, input, { weeding: mode });
+      first.push(performance.now() - t0);
+      t0 = performance.now();
+      compose(reg, input, { weeding: mode });
+      warm.push(performance.now() - t0);
+    });
+    return { first: stats(first), warm: stats(warm) };
+  };
+  run(makeNames(30, 11), 'full'); // JIT warm-up on other names
+  const line = (label: string, st: ReturnType<typeof stats>) => console.log(`compose ${label.padEnd(18)} p50 ${st.median.toFixed(1)} ms p95 ${st.p95.toFixed(1)} ms`);
+  for (const [mode, seed] of [['full', 21], ['fast', 22], ['none', 23]] as const) {
+    const r = run(makeNames(200, seed), mode); // every name new to the engine: nothing cached but the motif
+    line(`${mode}, first time`, r.first);
+    line(`${mode}, warm`, r.warm);
+  }
 }

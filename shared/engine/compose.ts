@@ -7,10 +7,11 @@ import type { FontRegistry } from './fonts.ts';
 import { usableArea, type Blank } from './blanks.ts';
 import { fitText, type TextWarning } from './fit.ts';
 import type { MotifGeometry } from './motif.ts';
-import { outlinePath } from './outline.ts';
-import { formatPath, mirrorPath, parsePathData, pathBBox, transformPath, unionBBox, flattenPath, type BBox } from './path.ts';
+import { outlineOfPath, type OutlineResult } from './outline.ts';
+import { formatPath, mirrorPath, parsePathData, pathBBox, roundPath, transformPath, unionBBox, flattenPath, type BBox, type Path } from './path.ts';
+import type { TextLayout } from './text-layout.ts';
 import { regionsArea, unionRegions } from './geometry.ts';
-import { analyseWeeding, combineWeeding, type WeedingReport } from './weeding.ts';
+import { analysePathWeeding, analyseQuickWeeding, combineWeeding, quickFromFull, type WeedingReport } from './weeding.ts';
 
 export type MaterialKind = 'smooth' | 'glitter' | 'flock' | 'metallic' | 'patterned';
 export type PieceRole = 'text' | 'outline' | 'motif';
@@ -67,7 +68,8 @@ export interface ComposeInput {
   gapMm?: number;
 }
 
-export interface Piece {
+/** `W` is WeedingReport unless compose() was asked for `{ weeding: 'none' }` (then null). */
+export interface Piece<W extends WeedingReport | null = WeedingReport> {
   /** Unique within the item, e.g. "name", "name-outline", "motif:flame". */
   layerId: string;
   fieldId: string;
@@ -80,18 +82,18 @@ export interface Piece {
   mirroredPath: string;
   bboxMm: BBox;
   areaMm2: number;
-  weeding: WeedingReport;
+  weeding: W;
 }
 
 export interface ComposeWarning extends TextWarning { fieldId: string }
 
-export interface ComposedItem {
+export interface ComposedItem<W extends WeedingReport | null = WeedingReport> {
   blankId: string;
   /** Press order, bottom → top. */
-  pieces: Piece[];
+  pieces: Piece<W>[];
   bboxMm: BBox;
   warnings: ComposeWarning[];
-  weeding: WeedingReport;
+  weeding: W;
   /** Letter height actually used per text field, mm. */
   letterHeights: Record<string, number>;
 }
@@ -108,26 +110,103 @@ interface Block {
   w: number;
   h: number;
   /** Pieces for a block whose ink's top-left lands at (x, y). */
-  place(x: number, y: number): Piece[];
+  place(x: number, y: number): Piece<WeedingReport | null>[];
 }
 
-function piece(layerId: string, fieldId: string, role: PieceRole, materialKind: MaterialKind, colour: string, d: string, areaMm2?: number): Piece {
-  const p = parsePathData(d);
-  const bb = pathBBox(p);
-  const area = areaMm2 ?? regionsArea(unionRegions(flattenPath(p, 0.01), 'nonzero'));
+/**
+ * How much weeding analysis compose() does per piece:
+ * - 'full' (the default; use it for proofs, cut sheets and orders): the complete report.
+ * - 'fast' (for a live preview while the shopper types): pieces, counters, areas and the
+ *   inscribed widths exactly as 'full' reports them, but no thin-stroke area (reported as 0, the
+ *   report marked `analysis: 'fast'`), so its label can be milder than the full one.
+ * - 'none': geometry only; every `weeding` is null.
+ */
+export type WeedingMode = 'full' | 'fast' | 'none';
+export interface ComposeOptions { weeding?: WeedingMode }
+
+/** A small LRU map: recently used entries stay, the oldest go first. */
+class Lru<K, V> {
+  private readonly m = new Map<K, V>();
+  constructor(private readonly size: number) {}
+  get(k: K): V | undefined {
+    const v = this.m.get(k);
+    if (v !== undefined) { this.m.delete(k); this.m.set(k, v); }
+    return v;
+  }
+  set(k: K, v: V): V {
+    this.m.set(k, v);
+    if (this.m.size > this.size) this.m.delete(this.m.keys().next().value as K);
+    return v;
+  }
+}
+
+/**
+ * Everything about a piece that depends only on its placed path data, computed once per distinct
+ * path: a motif placed where it was on the last keystroke, an outline or name seen before, is
+ * served from here. Each value is exactly what computing it afresh gives (same function, same input).
+ */
+interface PieceGeometry { parsed: Path; bboxMm: BBox; mirroredPath: string; area?: number; full?: WeedingReport; fast?: WeedingReport }
+const geometryCache = new Lru<string, PieceGeometry>(96);
+const outlineCache = new Lru<string, OutlineResult>(48);
+const placedCache = new Lru<string, string>(96);
+const layoutPaths = new WeakMap<TextLayout, Path>();
+
+function geometryOf(d: string, parsed?: Path): PieceGeometry {
+  let g = geometryCache.get(d);
+  if (!g) {
+    const p = parsed ?? parsePathData(d);
+    const bb = pathBBox(p);
+    g = geometryCache.set(d, { parsed: p, bboxMm: bb, mirroredPath: formatPath(mirrorPath(p, (bb.minX + bb.maxX) / 2)) });
+  }
+  return g;
+}
+
+function weedingOf(g: PieceGeometry, mode: WeedingMode): WeedingReport | null {
+  if (mode === 'none') return null;
+  if (mode === 'fast') return (g.fast ??= g.full ? quickFromFull(g.full) : analyseQuickWeeding(g.parsed));
+  return (g.full ??= analysePathWeeding(g.parsed));
+}
+
+const copyReport = (w: WeedingReport | null): WeedingReport | null => (w ? { ...w, reasons: [...w.reasons] } : null);
+
+function piece(layerId: string, fieldId: string, role: PieceRole, materialKind: MaterialKind, colour: string, d: string, mode: WeedingMode, areaMm2?: number, parsed?: Path): Piece<WeedingReport | null> {
+  const g = geometryOf(d, parsed);
+  const area = areaMm2 ?? (g.area ??= regionsArea(unionRegions(flattenPath(g.parsed, 0.01), 'nonzero')));
   return {
     layerId, fieldId, role, materialKind, colour,
     path: d,
-    mirroredPath: formatPath(mirrorPath(p, (bb.minX + bb.maxX) / 2)),
-    bboxMm: bb,
+    mirroredPath: g.mirroredPath,
+    bboxMm: { ...g.bboxMm },
     areaMm2: area,
-    weeding: analyseWeeding(d),
+    weeding: copyReport(weedingOf(g, mode)),
   };
 }
 
-const move = (d: string, m: [number, number, number, number, number, number]) => formatPath(transformPath(parsePathData(d), m));
+type Matrix = [number, number, number, number, number, number];
 
-export function compose(registry: FontRegistry, input: ComposeInput): ComposedItem {
+/** Path data moved by a matrix, written on the 1 µm grid (as formatPath writes it), and the path it parses to. */
+function moveParsed(p: Path, m: Matrix): { d: string; parsed: Path } {
+  const moved = transformPath(p, m);
+  return { d: formatPath(moved), parsed: roundPath(moved) };
+}
+
+/** A motif layer's path data placed by a matrix; the same placement is served from a cache. */
+function placeMotifLayer(path: string, m: Matrix): string {
+  const key = `${m.join(',')}|${path}`;
+  return placedCache.get(key) ?? placedCache.set(key, formatPath(transformPath(parsePathData(path), m)));
+}
+
+function outlineCached(d: string, parsed: Path, offsetMm: number): OutlineResult {
+  const key = `${offsetMm}|${d}`;
+  return outlineCache.get(key) ?? outlineCache.set(key, outlineOfPath(parsed, offsetMm));
+}
+
+export function compose(registry: FontRegistry, input: ComposeInput, options?: { weeding?: 'full' | 'fast' }): ComposedItem;
+export function compose(registry: FontRegistry, input: ComposeInput, options: { weeding: 'none' }): ComposedItem<null>;
+export function compose(registry: FontRegistry, input: ComposeInput, options?: ComposeOptions): ComposedItem<WeedingReport | null>;
+export function compose(registry: FontRegistry, input: ComposeInput, options: ComposeOptions = {}): ComposedItem<WeedingReport | null> {
+  const mode: WeedingMode = options.weeding ?? 'full';
+  if (mode !== 'full' && mode !== 'fast' && mode !== 'none') throw new RangeError(`Unknown weeding mode "${String(mode)}".`);
   const { blank, fields, choices } = input;
   const gap = input.gapMm ?? 8;
   const area = usableArea(blank);
@@ -166,13 +245,15 @@ export function compose(registry: FontRegistry, input: ComposeInput): ComposedIt
           w: L.widthMm + grow,
           h: L.heightMm + grow,
           place(x, y) {
-            const d = move(L.path, [1, 0, 0, 1, x + pad - L.bboxMm.minX, y + pad - L.bboxMm.minY]);
-            const out: Piece[] = [];
+            let lp = layoutPaths.get(L);
+            if (!lp) { lp = parsePathData(L.path); if (Object.isFrozen(L)) layoutPaths.set(L, lp); }
+            const { d, parsed } = moveParsed(lp, [1, 0, 0, 1, x + pad - L.bboxMm.minX, y + pad - L.bboxMm.minY]);
+            const out: Piece<WeedingReport | null>[] = [];
             if (f.outline) {
-              const o = outlinePath(d, f.outline.offsetMm);
-              out.push(piece(`${f.id}-outline`, f.id, 'outline', f.outline.materialKind, colours.get(`${f.id}:outline`) ?? f.outline.colour, o.path, o.areaMm2));
+              const o = outlineCached(d, parsed, f.outline.offsetMm);
+              out.push(piece(`${f.id}-outline`, f.id, 'outline', f.outline.materialKind, colours.get(`${f.id}:outline`) ?? f.outline.colour, o.path, mode, o.areaMm2));
             }
-            out.push(piece(f.id, f.id, 'text', f.materialKind, colours.get(f.id) ?? f.colour, d));
+            out.push(piece(f.id, f.id, 'text', f.materialKind, colours.get(f.id) ?? f.colour, d, mode, undefined, parsed));
             return out;
           },
         };
@@ -192,8 +273,8 @@ export function compose(registry: FontRegistry, input: ComposeInput): ComposedIt
         place(x, y) {
           return opt.geometry.layers.map((l) => {
             const spec = opt.layers?.[l.id];
-            const d = move(l.path, [m, 0, 0, m, x - bb.minX * m, y - bb.minY * m]);
-            return piece(`${f.id}:${l.id}`, f.id, 'motif', spec?.materialKind ?? f.materialKind, colours.get(`${f.id}:${l.id}`) ?? spec?.colour ?? l.colour ?? '#000000', d, l.areaMm2 * m * m);
+            const d = placeMotifLayer(l.path, [m, 0, 0, m, x - bb.minX * m, y - bb.minY * m]);
+            return piece(`${f.id}:${l.id}`, f.id, 'motif', spec?.materialKind ?? f.materialKind, colours.get(`${f.id}:${l.id}`) ?? spec?.colour ?? l.colour ?? '#000000', d, mode, l.areaMm2 * m * m);
           });
         },
       };
@@ -208,7 +289,7 @@ export function compose(registry: FontRegistry, input: ComposeInput): ComposedIt
     blocks = buildBlocks(k);
   }
 
-  const placed: Piece[] = [];
+  const placed: Piece<WeedingReport | null>[] = [];
   let y = blank.topOffsetMm;
   for (const b of blocks) {
     placed.push(...b.place((blank.widthMm - b.w) / 2, y));
@@ -223,7 +304,7 @@ export function compose(registry: FontRegistry, input: ComposeInput): ComposedIt
     pieces,
     bboxMm: bbox ?? { minX: 0, minY: 0, maxX: 0, maxY: 0 },
     warnings: [...warnings],
-    weeding: combineWeeding(pieces.map((p) => p.weeding)),
+    weeding: mode === 'none' ? null : combineWeeding(pieces.map((p) => p.weeding as WeedingReport)),
     letterHeights,
   };
 }

@@ -120,6 +120,194 @@ function signedDistance(x: number, y: number, polys: Polygon[]): number {
   return (inside ? 1 : -1) * Math.sqrt(best);
 }
 
+/** Polygon edges as a flat table [ax, ay, bx, by, …] in the order signedDistance walks them. */
+function edgeTable(polys: Polygon[]): Float64Array {
+  let n = 0;
+  for (const p of polys) n += p.length >> 1;
+  const e = new Float64Array(n * 4);
+  let k = 0;
+  for (const p of polys) {
+    const m = p.length;
+    for (let i = 0, j = m - 2; i < m; j = i, i += 2) { e[k++] = p[i]; e[k++] = p[i + 1]; e[k++] = p[j]; e[k++] = p[j + 1]; }
+  }
+  return e;
+}
+
+/** Squared distance from (x, y) to edge k — signedDistance's arithmetic exactly. */
+function edgeDist2(e: Float64Array, k: number, x: number, y: number): number {
+  const ax = e[k], ay = e[k + 1], bx = e[k + 2], by = e[k + 3];
+  let dx = bx - ax, dy = by - ay;
+  let px = ax, py = ay;
+  if (dx !== 0 || dy !== 0) {
+    const t = ((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy);
+    if (t > 1) { px = bx; py = by; } else if (t > 0) { px += dx * t; py += dy * t; }
+  }
+  dx = x - px; dy = y - py;
+  return dx * dx + dy * dy;
+}
+
+/** The crossing test of signedDistance's even-odd rule for edge k and the ray from (x, y) to the right. */
+function edgeCrosses(e: Float64Array, k: number, x: number, y: number): boolean {
+  const ax = e[k], ay = e[k + 1], bx = e[k + 2], by = e[k + 3];
+  return ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax;
+}
+
+/**
+ * Edges bucketed on a uniform grid (each edge in every cell its bbox touches) and by grid row, so a
+ * signed distance needs only the edges near the point and the edges of its row. It returns exactly
+ * what the plain all-edges loop returns: the nearest edge is searched in rings of cells until no
+ * unvisited edge can be nearer (a bound with a margin far above rounding), the inside test counts
+ * every edge whose y-range contains the point's y (all of them are in its row), and min and parity
+ * do not depend on the order edges are visited in.
+ */
+interface EdgeIndex {
+  e: Float64Array; n: number;
+  x0: number; y0: number; cw: number; ch: number; gx: number; gy: number;
+  cellStart: Int32Array; cellEdges: Int32Array; rowStart: Int32Array; rowEdges: Int32Array;
+  stamp: Int32Array; query: number;
+}
+
+const INDEX_MIN_EDGES = 64;
+
+function buildEdgeIndex(e: Float64Array, minX: number, minY: number, maxX: number, maxY: number): EdgeIndex {
+  const n = e.length >> 2;
+  const W = maxX - minX, H = maxY - minY;
+  const side = Math.sqrt((W * H) / Math.max(1, n / 2)) || Math.max(W, H);
+  const gx = Math.max(1, Math.min(256, Math.ceil(W / side))), gy = Math.max(1, Math.min(256, Math.ceil(H / side)));
+  const cw = W / gx || 1, ch = H / gy || 1;
+  const cx = (v: number) => { const i = Math.floor((v - minX) / cw); return i < 0 ? 0 : i >= gx ? gx - 1 : i; };
+  const cy = (v: number) => { const j = Math.floor((v - minY) / ch); return j < 0 ? 0 : j >= gy ? gy - 1 : j; };
+  const cellCount = new Int32Array(gx * gy + 1), rowCount = new Int32Array(gy + 1);
+  const range = new Int32Array(n * 4);
+  for (let q = 0; q < n; q++) {
+    const k = q * 4;
+    const i0 = cx(Math.min(e[k], e[k + 2])), i1 = cx(Math.max(e[k], e[k + 2]));
+    const j0 = cy(Math.min(e[k + 1], e[k + 3])), j1 = cy(Math.max(e[k + 1], e[k + 3]));
+    range[k] = i0; range[k + 1] = i1; range[k + 2] = j0; range[k + 3] = j1;
+    for (let j = j0; j <= j1; j++) { rowCount[j + 1]++; for (let i = i0; i <= i1; i++) cellCount[j * gx + i + 1]++; }
+  }
+  for (let c = 0; c < gx * gy; c++) cellCount[c + 1] += cellCount[c];
+  for (let r = 0; r < gy; r++) rowCount[r + 1] += rowCount[r];
+  const cellStart = cellCount.slice(), rowStart = rowCount.slice();
+  const cellEdges = new Int32Array(cellCount[gx * gy]), rowEdges = new Int32Array(rowCount[gy]);
+  const cfill = cellStart.slice(0, gx * gy), rfill = rowStart.slice(0, gy);
+  for (let q = 0; q < n; q++) {
+    const k = q * 4;
+    for (let j = range[k + 2]; j <= range[k + 3]; j++) {
+      rowEdges[rfill[j]++] = k;
+      for (let i = range[k]; i <= range[k + 1]; i++) cellEdges[cfill[j * gx + i]++] = k;
+    }
+  }
+  return { e, n, x0: minX, y0: minY, cw, ch, gx, gy, cellStart, cellEdges, rowStart, rowEdges, stamp: new Int32Array(n), query: 0 };
+}
+
+function signedDistanceIndexed(x: number, y: number, ix: EdgeIndex): number {
+  const { e, gx, gy, cellStart, cellEdges, stamp } = ix;
+  let qi = Math.floor((x - ix.x0) / ix.cw), qj = Math.floor((y - ix.y0) / ix.ch);
+  qi = qi < 0 ? 0 : qi >= gx ? gx - 1 : qi;
+  qj = qj < 0 ? 0 : qj >= gy ? gy - 1 : qj;
+  let inside = false;
+  for (let r = ix.rowStart[qj], end = ix.rowStart[qj + 1]; r < end; r++) if (edgeCrosses(e, ix.rowEdges[r], x, y)) inside = !inside;
+  const q = ++ix.query;
+  const step = Math.min(ix.cw, ix.ch);
+  const rings = Math.max(qi, gx - 1 - qi, qj, gy - 1 - qj);
+  let best = Infinity;
+  for (let k = 0; k <= rings; k++) {
+    // Every edge outside rings 0..k-1 is more than (k-1)·step away (the point is inside or beyond its clamped cell).
+    if (k >= 2) {
+      const bound = (k - 1) * step - 1e-7;
+      if (bound > 0 && bound * bound > best) break;
+    }
+    const j0 = Math.max(0, qj - k), j1 = Math.min(gy - 1, qj + k), i0 = Math.max(0, qi - k), i1 = Math.min(gx - 1, qi + k);
+    for (let j = j0; j <= j1; j++) {
+      const onEdgeRow = j === qj - k || j === qj + k;
+      for (let i = i0; i <= i1; i++) {
+        if (!onEdgeRow && i !== qi - k && i !== qi + k) continue; // only the ring's own cells
+        const c = j * gx + i;
+        for (let t = cellStart[c], end = cellStart[c + 1]; t < end; t++) {
+          const ek = cellEdges[t];
+          const id = ek >> 2;
+          if (stamp[id] === q) continue;
+          stamp[id] = q;
+          const d = edgeDist2(e, ek, x, y);
+          if (d < best) best = d;
+        }
+      }
+    }
+  }
+  return (inside ? 1 : -1) * Math.sqrt(best);
+}
+
+/** signedDistance over an edge table: the same arithmetic, edge by edge. */
+function signedDistanceEdges(x: number, y: number, e: Float64Array): number {
+  let inside = false;
+  let best = Infinity;
+  for (let k = 0; k < e.length; k += 4) {
+    if (edgeCrosses(e, k, x, y)) inside = !inside;
+    const d = edgeDist2(e, k, x, y);
+    if (d < best) best = d;
+  }
+  return (inside ? 1 : -1) * Math.sqrt(best);
+}
+
+interface Cell { x: number; y: number; h: number; d: number; max: number; pos: number; hi: number }
+
+/**
+ * The cell queue of the inscribed-circle search. It hands out cells in exactly the order a plain
+ * array scanned for the first cell with the largest `max` and emptied by swap-remove would (the
+ * straightforward form of the search): the order is (max descending, array position ascending),
+ * kept in a binary heap, with each cell's array position tracked as swap-remove moves cells.
+ * O(log n) per step instead of O(n), same cells, same result.
+ */
+class CellQueue {
+  private readonly arr: Cell[] = [];
+  private readonly heap: Cell[] = [];
+  get length(): number { return this.arr.length; }
+  private before(a: Cell, b: Cell): boolean { return a.max > b.max || (a.max === b.max && a.pos < b.pos); }
+  private up(i: number): void {
+    const h = this.heap, c = h[i];
+    while (i > 0) {
+      const pi = (i - 1) >> 1, p = h[pi];
+      if (!this.before(c, p)) break;
+      h[i] = p; p.hi = i; i = pi;
+    }
+    h[i] = c; c.hi = i;
+  }
+  private down(i: number): void {
+    const h = this.heap, n = h.length, c = h[i];
+    for (;;) {
+      let k = 2 * i + 1;
+      if (k >= n) break;
+      if (k + 1 < n && this.before(h[k + 1], h[k])) k++;
+      if (!this.before(h[k], c)) break;
+      h[i] = h[k]; h[i].hi = i; i = k;
+    }
+    h[i] = c; c.hi = i;
+  }
+  push(c: Cell): void {
+    c.pos = this.arr.length;
+    this.arr.push(c);
+    c.hi = this.heap.length;
+    this.heap.push(c);
+    this.up(c.hi);
+  }
+  /** Removes and returns the most promising cell. */
+  pop(): Cell {
+    const h = this.heap, top = h[0];
+    const tail = h.pop()!;
+    if (tail !== top) { h[0] = tail; tail.hi = 0; this.down(0); }
+    const arr = this.arr, last = arr.pop()!;
+    if (last !== top) {
+      // swap-remove: the array's last cell takes the popped cell's slot (a lower position ranks earlier among ties)
+      arr[top.pos] = last;
+      last.pos = top.pos;
+      this.up(last.hi);
+    }
+    return top;
+  }
+  cells(): readonly Cell[] { return this.arr; }
+}
+
 /**
  * The widest stroke a shape holds: the diameter of its largest inscribed circle, found with the
  * quadtree "pole of inaccessibility" search (as in Mapbox's polylabel) to `precisionMm`.
@@ -133,30 +321,25 @@ export function inscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
   if (minX === Infinity) return 0;
   const size = Math.min(maxX - minX, maxY - minY);
   if (size <= 0) return 0;
-  interface Cell { x: number; y: number; h: number; d: number; max: number }
+  const edges = edgeTable(polys);
+  const index = edges.length >> 2 >= INDEX_MIN_EDGES ? buildEdgeIndex(edges, minX, minY, maxX, maxY) : null;
   const cell = (x: number, y: number, h: number): Cell => {
-    const d = signedDistance(x, y, polys);
-    return { x, y, h, d, max: d + h * Math.SQRT2 };
+    const d = index ? signedDistanceIndexed(x, y, index) : signedDistanceEdges(x, y, edges);
+    return { x, y, h, d, max: d + h * Math.SQRT2, pos: 0, hi: 0 };
   };
-  const queue: Cell[] = [];
-  const push = (c: Cell) => { queue.push(c); };
+  const queue = new CellQueue();
   const h0 = size / 2;
-  for (let x = minX; x < maxX; x += size) for (let y = minY; y < maxY; y += size) push(cell(x + h0, y + h0, h0));
+  for (let x = minX; x < maxX; x += size) for (let y = minY; y < maxY; y += size) queue.push(cell(x + h0, y + h0, h0));
   let best = cell((minX + maxX) / 2, (minY + maxY) / 2, 0);
-  for (const c of queue) if (c.d > best.d) best = c;
+  for (const c of queue.cells()) if (c.d > best.d) best = c;
   let guard = 0;
   while (queue.length && guard++ < 20000) {
-    // take the most promising cell
-    let bi = 0;
-    for (let i = 1; i < queue.length; i++) if (queue[i].max > queue[bi].max) bi = i;
-    const c = queue[bi];
-    queue[bi] = queue[queue.length - 1];
-    queue.pop();
+    const c = queue.pop(); // the most promising cell
     if (c.d > best.d) best = c;
     if (c.max - best.d <= precisionMm / 2) continue;
     const h = c.h / 2;
-    push(cell(c.x - h, c.y - h, h)); push(cell(c.x + h, c.y - h, h));
-    push(cell(c.x - h, c.y + h, h)); push(cell(c.x + h, c.y + h, h));
+    queue.push(cell(c.x - h, c.y - h, h)); queue.push(cell(c.x + h, c.y - h, h));
+    queue.push(cell(c.x - h, c.y + h, h)); queue.push(cell(c.x + h, c.y + h, h));
   }
   return Math.max(0, 2 * best.d);
 }

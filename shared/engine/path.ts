@@ -88,6 +88,28 @@ export function formatPath(path: Path): string {
   return d;
 }
 
+const r3 = (v: number) => {
+  const r = Math.round(v * 1000) / 1000;
+  return r === 0 ? 0 : r;
+};
+
+/**
+ * The path `parsePathData(formatPath(path))` gives — every coordinate on the 1 µm grid, as written —
+ * without writing and parsing the string.
+ */
+export function roundPath(path: Path): Path {
+  return path.map((sp) => ({
+    x0: r3(sp.x0),
+    y0: r3(sp.y0),
+    segs: sp.segs.map((s): Segment => {
+      if (s.t === 'L') return { t: 'L', x: r3(s.x), y: r3(s.y) };
+      if (s.t === 'Q') return { t: 'Q', x1: r3(s.x1), y1: r3(s.y1), x: r3(s.x), y: r3(s.y) };
+      return { t: 'C', x1: r3(s.x1), y1: r3(s.y1), x2: r3(s.x2), y2: r3(s.y2), x: r3(s.x), y: r3(s.y) };
+    }),
+    closed: sp.closed,
+  }));
+}
+
 /** Applies x' = a·x + c·y + e, y' = b·x + d·y + f (the SVG matrix order). */
 export function transformPath(path: Path, m: readonly [number, number, number, number, number, number]): Path {
   const [a, b, c, d, e, f] = m;

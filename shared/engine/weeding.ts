@@ -3,7 +3,7 @@
  * 1.5 mm (1/16 in) are hard to weed (from memory); few, large pieces are quick, many small pieces and
  * tiny counters are slow (common practice). The label thresholds below are our own (no published source).
  */
-import { flattenPath, parsePathData } from './path.ts';
+import { flattenPath, parsePathData, type Path } from './path.ts';
 import { inscribedWidth, polygonAreaAbs, regionArea, simplifyRegions, thinArea, unionRegions, type Region } from './geometry.ts';
 
 export const NARROW_MM = 1.5;
@@ -29,11 +29,17 @@ export interface WeedingReport {
   totalAreaMm2: number;
   /** The reasons behind the label, in words. */
   reasons: string[];
+  /**
+   * 'fast' when the report was made without the thin-stroke analysis (compose's typing mode):
+   * thinStrokeAreaMm2 is then 0 and the label may be milder than the full report's. Absent for a full report.
+   */
+  analysis?: 'fast';
 }
 
 const minOrNull = (xs: number[]) => (xs.length ? Math.min(...xs) : null);
 
-export function analyseRegions(regions: Region[]): WeedingReport {
+export function analyseRegions(regions: Region[], opts: { thinStrokes?: boolean } = {}): WeedingReport {
+  const withThin = opts.thinStrokes !== false;
   const pieceAreas = regions.map(regionArea);
   const pieceWidths = regions.map((r) => inscribedWidth([r.outer, ...r.holes]));
   const holes = regions.flatMap((r) => r.holes);
@@ -41,8 +47,8 @@ export function analyseRegions(regions: Region[]): WeedingReport {
   const counterWidths = holes.map((h) => inscribedWidth([h]));
   const narrowPieces = pieceWidths.filter((w) => w < NARROW_MM).length;
   const narrowCounters = counterWidths.filter((w) => w < NARROW_MM).length;
-  const thin = regions.reduce((s, r, i) => s + (pieceWidths[i] < NARROW_MM ? 0 : thinArea([r.outer, ...r.holes], NARROW_MM)), 0);
-  return label({
+  const thin = withThin ? regions.reduce((s, r, i) => s + (pieceWidths[i] < NARROW_MM ? 0 : thinArea([r.outer, ...r.holes], NARROW_MM)), 0) : 0;
+  const report = label({
     pieces: regions.length,
     counters: holes.length,
     smallestPieceAreaMm2: minOrNull(pieceAreas),
@@ -54,6 +60,7 @@ export function analyseRegions(regions: Region[]): WeedingReport {
     thinStrokeAreaMm2: thin,
     totalAreaMm2: pieceAreas.reduce((a, b) => a + b, 0),
   });
+  return withThin ? report : { ...report, analysis: 'fast' };
 }
 
 function label(r: Omit<WeedingReport, 'label' | 'reasons'>): WeedingReport {
@@ -76,13 +83,31 @@ function label(r: Omit<WeedingReport, 'label' | 'reasons'>): WeedingReport {
 
 /** Weeding report for one piece's path data (nonzero fill). */
 export function analyseWeeding(pathData: string): WeedingReport {
-  return analyseRegions(simplifyRegions(unionRegions(flattenPath(parsePathData(pathData), 0.05), 'nonzero'), 0.03));
+  return analysePathWeeding(parsePathData(pathData));
+}
+
+/** analyseWeeding for path data already parsed (`parsePathData`): the same report, without parsing again. */
+export function analysePathWeeding(path: Path): WeedingReport {
+  return analyseRegions(pieceRegions(path));
+}
+
+const pieceRegions = (path: Path) => simplifyRegions(unionRegions(flattenPath(path, 0.05), 'nonzero'), 0.03);
+
+/** The 'fast' report: everything the full one has but the thin-stroke area (see WeedingReport.analysis). */
+export function analyseQuickWeeding(path: Path): WeedingReport {
+  return analyseRegions(pieceRegions(path), { thinStrokes: false });
+}
+
+/** The 'fast' report derived from a full one (the same numbers, without the thin-stroke area). */
+export function quickFromFull(r: WeedingReport): WeedingReport {
+  const { label: _l, reasons: _r, analysis: _a, ...rest } = r;
+  return { ...label({ ...rest, thinStrokeAreaMm2: 0 }), analysis: 'fast' };
 }
 
 /** Combines piece reports into the item's: totals, smallest of each, the hardest label. */
 export function combineWeeding(reports: WeedingReport[]): WeedingReport {
   const vals = (f: (r: WeedingReport) => number | null) => reports.map(f).filter((v): v is number => v !== null);
-  return label({
+  const combined = label({
     pieces: reports.reduce((s, r) => s + r.pieces, 0),
     counters: reports.reduce((s, r) => s + r.counters, 0),
     smallestPieceAreaMm2: minOrNull(vals((r) => r.smallestPieceAreaMm2)),
@@ -94,4 +119,5 @@ export function combineWeeding(reports: WeedingReport[]): WeedingReport {
     thinStrokeAreaMm2: reports.reduce((s, r) => s + r.thinStrokeAreaMm2, 0),
     totalAreaMm2: reports.reduce((s, r) => s + r.totalAreaMm2, 0),
   });
+  return reports.some((r) => r.analysis === 'fast') ? { ...combined, analysis: 'fast' } : combined;
 }
