@@ -48,11 +48,16 @@ export function uniqueEmail(prefix: string): string {
 /** Puts one named line of a live listing into the current cart (guest or signed in). */
 export async function addToCartApi(page: Page, slug: string, name: string): Promise<void> {
   const l = await apiGet(page, `/api/listings/${slug}`);
-  const field = l.content.personalisation.textFields[0];
+  const p = l.content.personalisation;
+  const field = p.textFields[0];
+  const motif = p.motifChoices[0]; // the first motif with its default colours
   await apiPost(page, '/api/cart/lines', {
     listingId: l.id,
     quantity: 1,
-    choices: { texts: { [field.id]: { text: name, fontId: field.defaultFontId ?? field.fontIds[0], letterHeightMm: field.defaultLetterHeightMm } } },
+    choices: {
+      texts: { [field.id]: { text: name, fontId: field.defaultFontId ?? field.fontIds[0], letterHeightMm: field.defaultLetterHeightMm } },
+      motifId: motif ? motif.motifId : null,
+    },
   });
 }
 

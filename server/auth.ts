@@ -38,7 +38,7 @@ export function createAuth({ db, env, mailer }: AuthDeps) {
     session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
     // IP-wide limits from better-auth; per-account sign-in limits live in server/http/auth-guards.ts
     rateLimit: {
-      enabled: env.NODE_ENV !== 'test',
+      enabled: env.AUTH_IP_RATE_LIMIT ?? env.NODE_ENV !== 'test',
       window: 60,
       max: 200,
       customRules: { '/sign-in/email': { window: 60, max: 30 }, '/request-password-reset': { window: 60, max: 5 } },

@@ -30,7 +30,17 @@ const schema = z.object({
   /** port of the local Stripe fake (default: the port in STRIPE_API_BASE; 0 = any free port) */
   STRIPE_FAKE_PORT: z.coerce.number().int().min(0).max(65535).optional(),
   PLATFORM_FEE_BPS: z.coerce.number().int().min(0).max(5000).default(800),
+  /** the payment provider's fee, for the seller's cost of goods: percentage in basis points + fixed per charge */
+  PAYMENT_FEE_BPS: z.coerce.number().int().min(0).max(5000).default(290),
+  PAYMENT_FEE_FIXED_MINOR: z.coerce.number().int().min(0).max(10_000).default(30),
+  /** IANA time zone for shops' calendar days (ship-by dates, the morning digest) */
+  BUSINESS_TIME_ZONE: z.string().default('UTC').refine((tz) => { try { new Intl.DateTimeFormat('en', { timeZone: tz }); return true; } catch { return false; } }, 'Use an IANA time zone name, e.g. Europe/London.'),
+  /** when the sellers' morning digest goes out (cron, in BUSINESS_TIME_ZONE); DIGEST=false turns it off */
+  DIGEST_CRON: z.string().default('0 7 * * *'),
+  DIGEST: bool.default(true),
   LOG_REQUESTS: bool.default(true),
+  /** better-auth's per-IP limits on the auth routes (default: on, except under NODE_ENV=test so suites can sign in freely) */
+  AUTH_IP_RATE_LIMIT: bool.optional(),
 });
 
 export type Env = ReturnType<typeof loadEnv>;

@@ -9,6 +9,8 @@ import { createMailer } from './integrations/mailer.ts';
 import { createApp } from './app.ts';
 import { isEmpty, seedDemo } from './db/seed.ts';
 import { startMailFake } from '../fakes/mail/server.ts';
+import { startJobs } from './jobs/scheduler.ts';
+import { writePidFile } from './runtime-lock.ts';
 
 export type Running = { url: string; env: Env; stop(): Promise<void> };
 
@@ -38,7 +40,11 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
   });
+  // the morning digest (croner) and its start-up catch-up; after the seed so the demo shops get it
+  const jobs = env.DIGEST ? startJobs(app.locals.deps, log) : null;
   const port = (server.address() as AddressInfo).port;
+  // while it runs, DATA_DIR/namesake.pid says so (scripts/db-restore.ts refuses then)
+  const removePidFile = writePidFile(env.dataDir);
   const url = `http://localhost:${port}`;
   extra.onListening(`http://127.0.0.1:${port}`);
   let stopping: Promise<void> | null = null;
@@ -49,13 +55,18 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
       // finish in-flight requests, then close fakes and the database
       stopping ??= (async () => {
         await new Promise<void>((resolve) => {
-          server.close(() => resolve());
+          // a keep-alive connection whose request finishes after this point turns idle later:
+          // keep closing idle ones, so the process need not wait for the 5 s cut-off
+          const idle = setInterval(() => server.closeIdleConnections(), 100);
+          server.close(() => (clearInterval(idle), resolve()));
           server.closeIdleConnections();
           setTimeout(() => server.closeAllConnections(), 5000).unref();
         });
+        await jobs?.stop();
         for (const c of closers.reverse()) await c();
         mailer.close();
         sqlite.close();
+        removePidFile();
       })();
       return stopping;
     },

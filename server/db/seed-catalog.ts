@@ -7,7 +7,7 @@ import { fileURLToPath } from 'node:url';
 import sharp from 'sharp';
 import type { AppDeps } from '../app.ts';
 import { listings, materials, motifs, uploads, type ListingContent } from './schema.ts';
-import { registerSeedHook } from './seed.ts';
+import type { SeedContext } from './seed.ts';
 import { createStorage } from '../integrations/storage.ts';
 import { parseMotifSvg, renderMotifSvg } from '../../shared/engine/motif.ts';
 import { defaultPressProfile, type MaterialKind } from '../../shared/engine/press-defaults.ts';
@@ -248,7 +248,7 @@ async function photoFor(svg: string): Promise<Buffer> {
   return sharp({ create: { width: 800, height: 800, channels: 3, background: '#fbf7f0' } }).composite([{ input: art, gravity: 'centre' }]).png().toBuffer();
 }
 
-async function seedCatalog(deps: AppDeps, ctx: { userIds: Record<string, string>; shopIds: Record<string, string> }) {
+export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void> {
   const { db } = deps;
   const storage = createStorage(deps.env.uploadsDir);
   const base = deps.now();
@@ -296,5 +296,3 @@ async function seedCatalog(deps: AppDeps, ctx: { userIds: Record<string, string>
     }
   }
 }
-
-registerSeedHook(seedCatalog);

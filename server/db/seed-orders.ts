@@ -8,7 +8,7 @@ import { and, eq } from 'drizzle-orm';
 import type { AppDeps } from '../app.ts';
 import type { Db } from './client.ts';
 import { checkouts, lineEvents, listings, materials, motifs, orderLines, orders, ledger } from './schema.ts';
-import type { SeedHook } from './seed.ts';
+import type { SeedContext } from './seed.ts';
 import { getFontRegistry } from '../integrations/fonts.ts';
 import { buildSnapshot, readLiveContent, type MaterialInfo, type MotifInfo } from '../features/cart/design.ts';
 import { createOrdersForCheckout, type PricedShop } from '../features/orders/orders.service.ts';
@@ -44,7 +44,7 @@ const PURCHASES: Array<{ daysAgo: number; items: Item[] }> = [
   ] },
 ];
 
-const seedOrders: SeedHook = async (deps: AppDeps, ctx) => {
+export async function seedOrders(deps: AppDeps, ctx: SeedContext): Promise<void> {
   const db = deps.db;
   const shopId = ctx.shopIds['fern-and-fable-goods'];
   const buyerId = ctx.userIds['dana@namesake.test'];
@@ -128,10 +128,4 @@ const seedOrders: SeedHook = async (deps: AppDeps, ctx) => {
       }
     });
   }
-};
-
-// Like seed-catalog.ts: seed.ts imports this file from its bottom and ESM hoists that import, so a
-// static registerSeedHook would meet the hook list in its TDZ. The dynamic import resolves after
-// seed.ts has run; seed-catalog.ts is imported first, so its hook (listings, materials) is
-// registered first and runs before this one.
-void import('./seed.ts').then((m) => m.registerSeedHook(seedOrders));
+}

@@ -3,6 +3,8 @@ import crypto from 'node:crypto';
 import { eq, sql } from 'drizzle-orm';
 import type { AppDeps } from '../app.ts';
 import { shops, user } from './schema.ts';
+import { seedCatalog } from './seed-catalog.ts';
+import { seedOrders } from './seed-orders.ts';
 
 export const DEMO_PASSWORD = 'namesake-demo';
 
@@ -27,18 +29,8 @@ export function isEmpty(deps: Pick<AppDeps, 'db'>): boolean {
   return (deps.db.get<{ n: number }>(sql`select count(*) as n from user`)?.n ?? 0) === 0;
 }
 
-export type SeedHook = (deps: AppDeps, ctx: { userIds: Record<string, string>; shopIds: Record<string, string> }) => Promise<void> | void;
-
-/**
- * Later features add their part of the demo (listings, orders …) here, in order. `var` without an
- * initialiser on purpose: the hook modules imported at the bottom of this file run before its body
- * (ESM hoists imports), and a `const` list would still be in its TDZ when they register.
- */
-// eslint-disable-next-line no-var
-var hooks: SeedHook[] | undefined;
-export function registerSeedHook(hook: SeedHook) {
-  (hooks ??= []).push(hook);
-}
+/** What the later parts of the demo (catalogue, orders) need from the accounts and shops made here. */
+export type SeedContext = { userIds: Record<string, string>; shopIds: Record<string, string> };
 
 export async function seedDemo(deps: AppDeps): Promise<void> {
   const userIds: Record<string, string> = {};
@@ -55,11 +47,13 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
     deps.db.insert(shops).values({
       id, ownerId: userIds[s.owner], name: s.name, slug: s.slug, state: s.state, description: s.description,
       processingDays: s.processingDays, shippingMinor: s.shippingMinor, pressType: s.pressType,
+      hourlyRateMinor: 1800, // demo: $18.00 an hour for labour in the cost of goods
       returnPolicy: 'Personalised items can be returned only if they arrive damaged or with a mistake on our side. Tell us within 14 days.',
       createdAt: at, updatedAt: at,
     }).run();
   }
-  for (const hook of hooks ?? []) await hook(deps, { userIds, shopIds });
+  const ctx: SeedContext = { userIds, shopIds };
+  // in order: the orders are made from the catalogue's live listings and materials
+  await seedCatalog(deps, ctx);
+  await seedOrders(deps, ctx);
 }
-import './seed-catalog.ts';
-import './seed-orders.ts';

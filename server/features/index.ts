@@ -13,6 +13,7 @@ import { refundsRouter } from './refunds/refunds.routes.ts';
 import { paymentsWebhookRouter } from './payments/payments.routes.ts';
 import { engineRouter } from './engine/engine.routes.ts';
 import { proofEditRouter, workroomRouter } from './workroom/workroom.routes.ts';
+import { businessRouter } from './business/business.routes.ts';
 
 type Mounted = { path: string; router: Router };
 
@@ -40,6 +41,7 @@ export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[]
       { path: '/api/orders', router: ordersRouter(deps) },
       { path: '/api/orders', router: refundsRouter(deps) },
       { path: '/api/workroom', router: workroomRouter(deps) },
+      { path: '/api/business', router: businessRouter(deps) },
       { path: '/api/order-lines', router: proofEditRouter(deps) },
       { path: '/api', router: engineRouter() },
       { path: '/api', router: catalogRouter(deps) },

@@ -17,9 +17,18 @@ export function sameOrigin(allowed: string[]): RequestHandler {
     if (site === 'cross-site') throw forbidden('Requests from other sites are not accepted.');
     if (origin && origin !== 'null' && !ok.has(origin)) {
       const host = req.get('host');
-      if (!host || new URL(origin).host !== host) throw forbidden('Requests from other sites are not accepted.');
+      if (!host || hostOf(origin) !== host) throw forbidden('Requests from other sites are not accepted.');
     }
     if (origin === 'null') throw forbidden('Requests from other sites are not accepted.');
     next();
   };
+}
+
+/** The host of an Origin header; a malformed one (never sent by a browser) matches nothing. */
+function hostOf(origin: string): string | null {
+  try {
+    return new URL(origin).host;
+  } catch {
+    return null;
+  }
 }

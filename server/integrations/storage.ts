@@ -98,13 +98,16 @@ export function singleFile(maxBytes: number): RequestHandler {
       if (!err) return next();
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE')
-          return next(new AppError(413, 'file_too_large', `That file is larger than ${Math.round(maxBytes / 1024 / 1024) || 1} MB.`));
+          return next(new AppError(413, 'file_too_large', `That file is larger than ${sizeLabel(maxBytes)}.`));
         return next(badRequest(`The upload could not be read (${err.code.toLowerCase().replace(/_/g, ' ')}).`));
       }
       return next(badRequest('The upload could not be read.'));
     });
   };
 }
+
+/** 8 MB, 512 kB: whole megabytes when the limit is one, else kilobytes (a 512 kB cap is not "1 MB") */
+const sizeLabel = (bytes: number) => (bytes >= 1024 * 1024 && bytes % (1024 * 1024) === 0 ? `${bytes / 1024 / 1024} MB` : `${Math.round(bytes / 1024)} kB`);
 
 /** GET /uploads/<name>: only our own random names, the right type, nosniff, and no script ever. */
 export function uploadsRouter(dir: string): Router {

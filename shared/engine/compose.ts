@@ -6,6 +6,7 @@
 import type { FontRegistry } from './fonts.ts';
 import { usableArea, type Blank } from './blanks.ts';
 import { fitText, type TextWarning } from './fit.ts';
+import { LayoutError } from './text-layout.ts';
 import type { MotifGeometry } from './motif.ts';
 import { outlineOfPath, type OutlineResult } from './outline.ts';
 import { formatPath, mirrorPath, parsePathData, pathBBox, roundPath, transformPath, unionBBox, flattenPath, type BBox, type Path } from './path.ts';
@@ -231,11 +232,17 @@ export function compose(registry: FontRegistry, input: ComposeInput, options: Co
         if (!c || !('text' in c) || c.text.trim() === '') throw new ComposeError(f.id, 'Enter the text for this item.');
         const chosen = Math.min(c.letterHeightMm ?? f.letterHeightMm, f.maxLetterHeightMm ?? Infinity, f.letterHeightMm * 4);
         const grow = f.outline ? 2 * f.outline.offsetMm : 0;
-        const fitted = fitText(
-          registry,
-          { text: c.text, fontId: f.fontId, letterHeightMm: Math.max(0.5, Math.floor(chosen * k * 1000) / 1000), trackingMm: f.trackingMm },
-          { maxWidthMm: area.widthMm - grow, maxHeightMm: Math.max(1, area.heightMm - stackGaps - grow), minLetterHeightMm: f.minLetterHeightMm, maxChars: f.maxChars },
-        );
+        let fitted: ReturnType<typeof fitText>;
+        try {
+          fitted = fitText(
+            registry,
+            { text: c.text, fontId: f.fontId, letterHeightMm: Math.max(0.5, Math.floor(chosen * k * 1000) / 1000), trackingMm: f.trackingMm },
+            { maxWidthMm: area.widthMm - grow, maxHeightMm: Math.max(1, area.heightMm - stackGaps - grow), minLetterHeightMm: f.minLetterHeightMm, maxChars: f.maxChars },
+          );
+        } catch (e) {
+          if (e instanceof LayoutError) throw new ComposeError(f.id, e.message);
+          throw e;
+        }
         for (const w of fitted.warnings) warnings.push({ ...w, fieldId: f.id });
         letterHeights[f.id] = fitted.letterHeightMm;
         const L = fitted.layout;

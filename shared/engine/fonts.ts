@@ -5,6 +5,7 @@
  */
 import * as fontkit from 'fontkit';
 import type { FontKind } from './font-catalog.ts';
+import { accelerateShaping } from './shaping.ts';
 
 export interface FontSource {
   id: string;
@@ -46,7 +47,7 @@ export interface FontRegistry {
 }
 
 /** Parses one font's bytes. Throws when the bytes are not a single TrueType/OpenType font or lack "H". */
-export function loadFont(src: FontSource): LoadedFont {
+export function loadFont(src: FontSource, opts: { accelerate?: boolean } = {}): LoadedFont {
   // fontkit reads through a DataView, so a plain Uint8Array works in Node and the browser alike.
   const parsed = fontkit.create(src.bytes as unknown as Buffer);
   if (!('layout' in parsed) || !('unitsPerEm' in parsed)) throw new Error(`Font ${src.id}: not a single font file.`);
@@ -59,8 +60,14 @@ export function loadFont(src: FontSource): LoadedFont {
   fk.getGlyph = (id: number, cps: number[] = []) => {
     const g = getGlyph(id, cps);
     if (!g || g.codePoints === cps || sameCodePoints(g.codePoints, cps)) return g;
+    // Metrics go on the cached glyph first, so views read them from it instead of each computing
+    // their own (fontkit memoises them on `this`, which for a view would be the view).
+    void (g as unknown as { advanceWidth: number }).advanceWidth;
     return Object.create(g, { codePoints: { value: cps, enumerable: true } });
   };
+  // Exact speed-ups of fontkit's shaping (shaping.ts); `accelerate: false` only for tests that
+  // compare against fontkit as published.
+  if (opts.accelerate !== false) accelerateShaping(font);
   const h = font.glyphForCodePoint(0x48);
   if (!h || h.id === 0) throw new Error(`Font ${src.id}: it has no "H" to measure the letter height.`);
   const capHeightUnits = h.bbox.maxY; // H sits on the baseline: its top is the cap height

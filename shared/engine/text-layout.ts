@@ -1,10 +1,12 @@
 /**
  * Text layout: a name in a font at a letter height → glyph outlines as SVG path data in mm.
- * Shaping (kerning, ligatures, contextual forms as the font defines them) is fontkit's `layout()`.
+ * Shaping (kerning, ligatures, contextual forms as the font defines them) is fontkit's `layout()`,
+ * through shaping.ts (which takes an exact shortcut for strings that need only kerning).
  * Coordinates: x = 0 at the pen start, y = 0 on the cap line, y down; the baseline is at
  * y = letterHeightMm. Letter height is the cap height, measured from the "H" glyph (see fonts.ts).
  */
 import type { FontRegistry, LoadedFont } from './fonts.ts';
+import { shapeText } from './shaping.ts';
 import type { BBox } from './path.ts';
 
 export interface LayoutTextInput {
@@ -85,9 +87,10 @@ function cubicEx(p0: number, p1: number, p2: number, p3: number, acc: (v: number
   if (t2 > 0 && t2 < 1) acc(at(t2));
 }
 
-function glyphData(f: LoadedFont, c: FontCaches, glyph: { id: number; path: { commands: { command: string; args: number[] }[] } }): GlyphData {
-  let g = c.glyphs.get(glyph.id);
+function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
+  let g = c.glyphs.get(id);
   if (g) return g;
+  const glyph = f.font.getGlyph(id) as unknown as { id: number; path: { commands: { command: string; args: number[] }[] } };
   const ops: number[] = [];
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   const ax = (v: number) => { if (v < minX) minX = v; if (v > maxX) maxX = v; };
@@ -113,7 +116,7 @@ function glyphData(f: LoadedFont, c: FontCaches, glyph: { id: number; path: { co
   }
   const empty = minX === Infinity;
   g = empty ? { ops, minX: 0, minY: 0, maxX: 0, maxY: 0, empty } : { ops, minX, minY, maxX, maxY, empty };
-  c.glyphs.set(glyph.id, g);
+  c.glyphs.set(id, g);
   return g;
 }
 
@@ -168,6 +171,15 @@ function glyphOutline(c: FontCaches, gd: GlyphData, id: number, s: number, cap: 
 }
 
 /** Lays out text in one line. Repeated calls with the same input are served from a cache (same object). */
+/** The font engine could not shape the text at all (not the same as missing characters). */
+export class LayoutError extends Error {
+  readonly code = 'unshapeable_text';
+  constructor(message: string) {
+    super(message);
+    this.name = 'LayoutError';
+  }
+}
+
 export function layoutText(registry: FontRegistry, input: LayoutTextInput, opts: { cache?: boolean } = {}): TextLayout {
   const f = registry.require(input.fontId);
   return layoutWithFont(f, input, opts);
@@ -193,20 +205,25 @@ export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { ca
   const s = h / f.capHeightUnits;
   const cap = f.capHeightUnits;
   const trackUnits = tracking / s;
-  const run = f.font.layout(text);
+  let run: ReturnType<typeof shapeText>;
+  try {
+    run = shapeText(f.font, text);
+  } catch {
+    // fontkit throws on a few odd mixes (e.g. a fraction slash beside CJK, emoji after a combining mark)
+    throw new LayoutError('This font cannot set that mix of characters. Try removing symbols or emoji.');
+  }
   const glyphs: LaidOutGlyph[] = [];
   let d = '';
   let pen = 0;
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  const n = run.glyphs.length;
+  const n = run.glyphIds.length;
   for (let i = 0; i < n; i++) {
-    const glyph = run.glyphs[i];
-    const pos = run.positions[i];
-    const gd = glyphData(f, c, glyph as never);
-    const ox = pen + pos.xOffset;
-    const oy = pos.yOffset;
+    const id = run.glyphIds[i];
+    const gd = glyphData(f, c, id);
+    const ox = pen + run.xOffset[i];
+    const oy = run.yOffset[i];
     if (!gd.empty) {
-      const go = glyphOutline(c, gd, glyph.id, s, cap);
+      const go = glyphOutline(c, gd, id, s, cap);
       // Glyph origin on the 1 µm grid; the outline after the first point is relative, so its string
       // is reused for every occurrence of the glyph at this size.
       const OX = Math.round(ox * s * 1000), OY = Math.round(-oy * s * 1000);
@@ -218,8 +235,9 @@ export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { ca
       if (gy0 < minY) minY = gy0;
       if (gy1 > maxY) maxY = gy1;
     }
-    const adv = pos.xAdvance + (i < n - 1 ? trackUnits : 0);
-    glyphs.push({ char: String.fromCodePoint(...glyph.codePoints), glyphId: glyph.id, xMm: pen * s, advanceMm: adv * s });
+    const adv = run.xAdvance[i] + (i < n - 1 ? trackUnits : 0);
+    const cps = run.codePoints[i];
+    glyphs.push({ char: cps.length === 1 ? String.fromCodePoint(cps[0]) : String.fromCodePoint(...cps), glyphId: id, xMm: pen * s, advanceMm: adv * s });
     pen += adv;
   }
 

@@ -1,6 +1,7 @@
 /** The public catalogue: search query, list items and the listing page. */
 import { z } from 'zod';
 import { blankKindSchema, occasionSchema, type ListingContentParsed } from './listing.ts';
+import { SHOP_STATES, type ShopState } from './shop.ts';
 
 export const CATALOG_PAGE_SIZE = 24;
 export const CATALOG_SORTS = ['newest', 'price_asc', 'price_desc'] as const;
@@ -98,3 +99,23 @@ export const reasonSchema = z.object({
   reason: z.string({ error: 'Give the seller a reason.' }).trim().min(3, 'Give the seller a reason (at least 3 characters).').max(1000, 'Use at most 1,000 characters.'),
 });
 export const optionalReasonSchema = z.object({ reason: z.string().trim().max(1000, 'Use at most 1,000 characters.').optional() });
+
+/** GET /api/moderation/shops: every shop, found by name, address or owner e-mail, optionally by state. */
+export const MODERATION_SHOPS_PAGE_SIZE = 20;
+export const moderationShopsQuery = z.object({
+  q: z.string().trim().max(100, 'Use at most 100 characters.').default(''),
+  state: z.enum(SHOP_STATES, { error: 'Pick one of the shop states.' }).optional(),
+  page: z.coerce.number().int().min(1, 'Pages start at 1.').max(10_000).default(1),
+});
+export type ModerationShopsQuery = z.input<typeof moderationShopsQuery>;
+export type ModerationShop = {
+  id: string;
+  name: string;
+  slug: string;
+  state: ShopState;
+  /** the moderator's reason for the current state (suspension, rejection), if any */
+  stateReason: string | null;
+  owner: { name: string; email: string };
+  createdAt: number;
+};
+export type ModerationShopsPage = { items: ModerationShop[]; total: number; page: number; pageSize: number };

@@ -60,6 +60,10 @@ export const router = createBrowserRouter([
           { path: paths.seller.listings.path, lazy: async () => ({ Component: (await import('./routes/seller/listings.tsx')).SellerListingsPage }) },
           { path: paths.seller.newListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
           { path: paths.seller.editListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
+          // the business view (charts pull in recharts) loads on demand
+          { path: paths.business.overview.path, lazy: async () => ({ Component: (await import('./routes/business/overview.tsx')).BusinessOverviewPage }) },
+          { path: paths.business.payouts.path, lazy: async () => ({ Component: (await import('./routes/business/payouts.tsx')).PayoutsPage }) },
+          { path: paths.business.settings.path, lazy: async () => ({ Component: (await import('./routes/business/settings.tsx')).BusinessSettingsPage }) },
         ],
       },
       {

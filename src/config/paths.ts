@@ -47,6 +47,11 @@ export const paths = {
     newListing: { path: '/workroom/listings/new', getHref: () => '/workroom/listings/new' },
     editListing: { path: '/workroom/listings/:id/edit', getHref: (id: string) => `/workroom/listings/${encodeURIComponent(id)}/edit` },
   },
+  business: {
+    overview: { path: '/workroom/business', getHref: () => '/workroom/business' },
+    payouts: { path: '/workroom/business/payouts', getHref: () => '/workroom/business/payouts' },
+    settings: { path: '/workroom/business/settings', getHref: () => '/workroom/business/settings' },
+  },
   moderation: {
     desk: { path: '/moderation', getHref: () => '/moderation' },
     reviewListing: { path: '/moderation/listings/:id', getHref: (id: string) => `/moderation/listings/${encodeURIComponent(id)}` },

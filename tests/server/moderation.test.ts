@@ -132,6 +132,62 @@ describe('shops', () => {
   });
 });
 
+describe('shop directory', () => {
+  const find = (agent: Agent, query: Record<string, string | number>) => agent.get('/api/moderation/shops').query(query);
+  const names = (res: request.Response) => res.body.items.map((x: { name: string }) => x.name);
+
+  it('when anyone but an admin asks for the shop list, then 403; a guest 401', async () => {
+    const shopper = await t.signIn((await t.makeUser('shopper')).email);
+    expect((await find(shopper, {})).status).toBe(403);
+    expect((await find(a, {})).status).toBe(403);
+    expect((await request(t.app).get('/api/moderation/shops')).status).toBe(401);
+  });
+
+  it('when the admin searches, then shops in every state match by name, address or owner e-mail, and the state filter narrows them', async () => {
+    const live = await t.makeSeller({ name: 'Wren Lane Studio' });
+    const review = await t.makeSeller({ name: 'Wren & Willow', state: 'in_review' });
+    const gone = await t.makeSeller({ name: 'Wrenfield Bags' });
+    await admin.post(`/api/moderation/shops/${gone.shopId}/suspend`).send({ reason: 'Chargebacks under review.' }).expect(200);
+
+    const all = await find(admin, { q: '  WREN ' });
+    expect(all.status).toBe(200);
+    expect(names(all)).toEqual(['Wren & Willow', 'Wren Lane Studio', 'Wrenfield Bags']); // by name, case-insensitive
+    expect(all.body).toMatchObject({ total: 3, page: 1 });
+    expect(all.body.items.find((x: { id: string }) => x.id === gone.shopId)).toMatchObject({ state: 'suspended', stateReason: 'Chargebacks under review.', owner: { email: gone.email } });
+
+    expect(names(await find(admin, { q: 'wren', state: 'suspended' }))).toEqual(['Wrenfield Bags']);
+    expect(names(await find(admin, { q: 'wren', state: 'in_review' }))).toEqual(['Wren & Willow']);
+    expect((await find(admin, { q: review.email })).body.items.map((x: { id: string }) => x.id)).toEqual([review.shopId]);
+    const slug = (await find(admin, { q: 'wren lane' })).body.items[0].slug as string;
+    expect((await find(admin, { q: slug })).body.items.map((x: { id: string }) => x.id)).toEqual([live.shopId]);
+    // LIKE wildcards are searched for literally, not as patterns
+    expect((await find(admin, { q: 'wren%studio' })).body.total).toBe(0);
+    expect((await find(admin, { q: 'w_en' })).body.total).toBe(0);
+
+    // the suspended shop can be restored from the list, and the list follows
+    await admin.post(`/api/moderation/shops/${gone.shopId}/restore`).send({}).expect(200);
+    expect((await find(admin, { q: 'wren', state: 'suspended' })).body.total).toBe(0);
+  });
+
+  it('when there are more shops than a page, then pages of 20 follow each other without gaps or repeats', async () => {
+    for (let i = 0; i < 23; i++) await t.makeSeller({ name: `Pipit Print ${String(i).padStart(2, '0')}` });
+    const p1 = await find(admin, { q: 'pipit print' });
+    const p2 = await find(admin, { q: 'pipit print', page: 2 });
+    expect(p1.body).toMatchObject({ total: 23, page: 1, pageSize: 20 });
+    expect(p1.body.items).toHaveLength(20);
+    expect(p2.body.items).toHaveLength(3);
+    expect([...names(p1), ...names(p2)]).toEqual(Array.from({ length: 23 }, (_, i) => `Pipit Print ${String(i).padStart(2, '0')}`));
+  });
+
+  it('when the query is malformed, then 400 with a message on the field', async () => {
+    const bad = await find(admin, { state: 'deleted' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.state).toBeTruthy();
+    expect((await find(admin, { page: 0 })).body.error.fields.page).toBe('Pages start at 1.');
+    expect((await find(admin, { q: 'x'.repeat(101) })).body.error.fields.q).toBeTruthy();
+  });
+});
+
 describe('audit log', () => {
   it('when moderators act, then each action is logged with who, what, when and why, newest first', async () => {
     const l = await createListing(a, { title: 'Audit trail tote' });

@@ -10,7 +10,7 @@ import { listings, materials, motifs, shops, uploads } from '../../db/schema.ts'
 import type { CatalogQuery } from '../../../shared/schemas/catalog.ts';
 
 export type CatalogRow = {
-  id: string; slug: string; title: string; priceMinor: number; currency: string; occasions: string; thumb: string | null; shopSlug: string; shopName: string;
+  id: string; slug: string; title: string; priceMinor: number; currency: string; occasions: string | null; thumb: string | null; shopSlug: string; shopName: string;
 };
 
 /** Words of the query as FTS5 prefix terms, quoted so no FTS syntax from the user is interpreted. */

@@ -12,7 +12,8 @@ import { renderDescription } from './markdown.ts';
 
 const toItem = (r: repo.CatalogRow): CatalogItem => ({
   id: r.id, slug: r.slug, title: r.title, shop: { slug: r.shopSlug, name: r.shopName }, priceMinor: r.priceMinor, currency: r.currency,
-  occasions: r.occasions.split(',').filter(Boolean) as Occasion[], thumbnailUrl: uploadUrl(r.thumb),
+  // live_occasions is nullable (rows written before it existed, or straight inserts): no occasions then
+  occasions: (r.occasions ?? '').split(',').filter(Boolean) as Occasion[], thumbnailUrl: uploadUrl(r.thumb),
 });
 
 export function search(db: Db, q: CatalogQuery): CatalogPage {

@@ -7,10 +7,10 @@
 import { Router, type RequestHandler } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import { validate } from '../../http/validate.ts';
-import { AppError, notFound } from '../../http/app-error.ts';
+import { AppError, badRequest, notFound } from '../../http/app-error.ts';
 import { fontParamsSchema, layoutTextRequestSchema, type FontInfo, type LayoutTextRequest, type LayoutTextResponse } from '../../../shared/schemas/engine.ts';
 import { getFontFile, getFontRegistry, listFontFiles } from '../../integrations/fonts.ts';
-import { layoutText } from '../../../shared/engine/text-layout.ts';
+import { layoutText, LayoutError } from '../../../shared/engine/text-layout.ts';
 import { textWarnings, type TextWarning } from '../../../shared/engine/fit.ts';
 
 export interface EngineRouterOptions {
@@ -102,7 +102,12 @@ export function engineRouter(opts: EngineRouterOptions = {}): Router {
   }) satisfies RequestHandler);
 
   r.post('/layout/text', layoutLimit, validate({ body: layoutTextRequestSchema }), ((req, res) => {
-    res.json(layoutTextResponse(req.body as LayoutTextRequest));
+    try {
+      res.json(layoutTextResponse(req.body as LayoutTextRequest));
+    } catch (e) {
+      if (e instanceof LayoutError) throw badRequest(e.message, { text: e.message });
+      throw e;
+    }
   }) satisfies RequestHandler);
 
   return r;

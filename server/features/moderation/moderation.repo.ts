@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
 
@@ -30,3 +30,20 @@ export const auditCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).fr
 export const shopNames = (db: Db, ids: string[]) => (ids.length ? db.select({ id: shops.id, name: shops.name }).from(shops).where(inArray(shops.id, ids)).all() : []);
 export const listingTitles = (db: Db, ids: string[]) =>
   ids.length ? db.select({ id: listings.id, draft: listings.draft }).from(listings).where(inArray(listings.id, ids)).all() : [];
+
+/** Every shop, filtered by a case-insensitive substring of name, slug or owner e-mail and by state. */
+function shopFilter(q: string, state: string | undefined): SQL | undefined {
+  const conds: (SQL | undefined)[] = [];
+  if (state) conds.push(eq(shops.state, state));
+  if (q) {
+    // LIKE wildcards in the search text are literal
+    const pat = `%${q.toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    conds.push(or(sql`lower(${shops.name}) like ${pat} escape '\\'`, sql`lower(${shops.slug}) like ${pat} escape '\\'`, sql`lower(${user.email}) like ${pat} escape '\\'`));
+  }
+  return conds.length ? and(...conds) : undefined;
+}
+export const shopsPage = (db: Db, f: { q: string; state?: string }, limit: number, offset: number) =>
+  db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
+    .where(shopFilter(f.q, f.state)).orderBy(asc(sql`lower(${shops.name})`), asc(shops.id)).limit(limit).offset(offset).all();
+export const shopsCount = (db: Db, f: { q: string; state?: string }) =>
+  db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopFilter(f.q, f.state)).get()?.n ?? 0;

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../../app.ts';
 import { currentUser, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { moderationIdParams, optionalReasonSchema, reasonSchema } from '../../../shared/schemas/catalog.ts';
+import { moderationIdParams, moderationShopsQuery, optionalReasonSchema, reasonSchema } from '../../../shared/schemas/catalog.ts';
 import * as svc from './moderation.service.ts';
 
 /** /api/moderation: the moderation desk, admins only (403 for everyone else, 401 for guests). */
@@ -13,6 +13,9 @@ export function moderationRouter(deps: AppDeps): Router {
   const id = (req: { params: Record<string, unknown> }) => String(req.params.id);
   r.get('/queue', (_req, res) => {
     res.json(svc.queue(deps.db));
+  });
+  r.get('/shops', validate({ query: moderationShopsQuery }), (_req, res) => {
+    res.json(svc.shops(deps.db, res.locals.query as z.output<typeof moderationShopsQuery>));
   });
   r.post('/listings/:id/approve', validate({ params: moderationIdParams }), async (req, res) => {
     res.json({ listing: await svc.approveListing(deps, currentUser(req), id(req)) });

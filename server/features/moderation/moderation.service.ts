@@ -5,6 +5,8 @@ import { escapeHtml, mailLayout } from '../../integrations/mailer.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
 import { liveColumns, type ListingContentParsed } from '../../../shared/schemas/listing.ts';
+import { MODERATION_SHOPS_PAGE_SIZE, type ModerationShopsPage } from '../../../shared/schemas/catalog.ts';
+import type { ShopState } from '../../../shared/schemas/shop.ts';
 import * as repo from './moderation.repo.ts';
 
 type Deps = { db: Db; now: () => number; mailer: Mailer; env: { baseUrl: string } };
@@ -43,6 +45,20 @@ export function queue(db: Db) {
       previewUrl: `/api/listings/${listing.slug}?version=draft`,
       submittedAt: listing.updatedAt,
     })),
+  };
+}
+
+/** The desk's shop directory: any shop in any state, so a live one can be found and suspended. */
+export function shops(db: Db, f: { q: string; state?: ShopState; page: number }, pageSize = MODERATION_SHOPS_PAGE_SIZE): ModerationShopsPage {
+  const rows = repo.shopsPage(db, f, pageSize, (f.page - 1) * pageSize);
+  return {
+    items: rows.map(({ shop, ownerEmail, ownerName }) => ({
+      id: shop.id, name: shop.name, slug: shop.slug, state: shop.state as ShopState, stateReason: shop.stateReason ?? null,
+      owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+    })),
+    total: repo.shopsCount(db, f),
+    page: f.page,
+    pageSize,
   };
 }
 

@@ -2,6 +2,7 @@
 import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
 import { splitForShop } from '../../../shared/money.ts';
+import { shipByDate as businessShipBy } from '../../../shared/business/working-days.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { notFound } from '../../http/app-error.ts';
 import { ordersRepo, type OrderRow } from './orders.repo.ts';
@@ -16,26 +17,19 @@ export type PricedShop = {
   lines: Array<{ listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; snapshot: LineSnapshot }>;
 };
 
-/** The date a shop should ship by: `days` of its working days after payment (UTC dates). */
-export function shipByDate(paidAt: number, days: number, workingDays: number[], daysOff: string[]): string {
-  const d = new Date(paidAt);
-  let left = Math.max(0, days);
-  const works = (x: Date) => {
-    const iso = x.getUTCDay() === 0 ? 7 : x.getUTCDay();
-    return workingDays.includes(iso) && !daysOff.includes(x.toISOString().slice(0, 10));
-  };
-  for (let guard = 0; left > 0 && guard < 400; guard++) {
-    d.setUTCDate(d.getUTCDate() + 1);
-    if (works(d)) left--;
-  }
-  return d.toISOString().slice(0, 10);
+/**
+ * The date a shop should ship by: `days` of its working days (weekdays it works, less its days
+ * off) after the day of payment — shared/business/working-days.ts (date-fns), in the shops' time zone.
+ */
+export function shipByDate(paidAt: number, days: number, workingDays: number[], daysOff: string[], timeZone = 'UTC'): string {
+  return businessShipBy(paidAt, days, { workingDays: workingDays.length ? workingDays : [1, 2, 3, 4, 5], daysOff }, timeZone);
 }
 
 /**
  * Creates the orders of one paid checkout. Runs inside the webhook's transaction (the caller's
  * `db` is the transaction), so the orders and the processed event id commit together or not at all.
  */
-export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buyerId: string; currency: string; shops: PricedShop[]; paidAt: number; feeBps: number; paymentIntentId: string | null }): OrderRow[] {
+export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buyerId: string; currency: string; shops: PricedShop[]; paidAt: number; feeBps: number; paymentIntentId: string | null; timeZone?: string }): OrderRow[] {
   const shopRows = new Map(ordersRepo.shopsByIds(db, args.shops.map((s) => s.shopId)).map((s) => [s.id, s]));
   const made: OrderRow[] = [];
   for (const s of args.shops) {
@@ -53,7 +47,7 @@ export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buye
       shippingMinor: s.shippingMinor,
       platformFeeMinor: split.feeMinor,
       totalMinor: split.shopTotalMinor,
-      shipByDate: shop ? shipByDate(args.paidAt, shop.processingDays, shop.workingDays, shop.daysOff) : null,
+      shipByDate: shop ? shipByDate(args.paidAt, shop.processingDays, shop.workingDays, shop.daysOff, args.timeZone) : null,
       paidAt: args.paidAt,
       createdAt: args.paidAt,
     });

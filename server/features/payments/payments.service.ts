@@ -50,6 +50,7 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
         paidAt: at,
         feeBps: deps.env.PLATFORM_FEE_BPS,
         paymentIntentId: pi,
+        timeZone: deps.env.BUSINESS_TIME_ZONE,
       });
       paymentsRepo.removeCartLines(t, c.cartId, priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
       created = true;

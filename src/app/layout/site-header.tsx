@@ -7,7 +7,21 @@ import { useMe } from '../../features/auth/api/get-me.ts';
 import { useSignOut } from '../../features/auth/api/sign-out.ts';
 import { Wordmark } from './wordmark.tsx';
 
-type NavItem = { to: string; label: string; end?: boolean };
+type NavItem = {
+  to: string;
+  label: string;
+  /** when the item is the current section; default: its own path and everything below it */
+  activeFor?: (pathname: string) => boolean;
+};
+
+const under = (base: string, pathname: string) => pathname === base || pathname.startsWith(`${base}/`);
+
+/** 'page' on the item's own page, 'true' on its sub-pages (the section is current, not the page). */
+export function currentFor(item: NavItem, pathname: string): 'page' | 'true' | undefined {
+  const base = item.to.split('?')[0]!;
+  const active = item.activeFor ? item.activeFor(pathname) : under(base, pathname);
+  return active ? (pathname === base ? 'page' : 'true') : undefined;
+}
 
 /** Navigation by role: every account shops; sellers add the workroom; admins the desk and mail. */
 export function navItemsFor(me: Me | null | undefined): NavItem[] {
@@ -21,7 +35,10 @@ export function navItemsFor(me: Me | null | undefined): NavItem[] {
   if (role === 'shopper' && !me.shop) items.push({ to: paths.openShop.getHref(), label: 'Open a shop' });
   if (role === 'seller' || me.shop) items.push({ to: paths.workroom.getHref(), label: 'Workroom' });
   if (role === 'admin') {
-    items.push({ to: paths.moderation.desk.getHref(), label: 'Moderation desk', end: true });
+    const desk = paths.moderation.desk.getHref();
+    const mail = paths.moderation.mail.path;
+    // the desk's sub-pages (review, audit log) are the desk's; its mail page has its own item
+    items.push({ to: desk, label: 'Moderation desk', activeFor: (p) => under(desk, p) && !under(mail, p) });
     items.push({ to: paths.moderation.mail.getHref(), label: 'Mail' });
   }
   return items;
@@ -83,13 +100,16 @@ export function SiteHeader() {
 
         <nav id={menuId} aria-label="Main" className={`${open ? 'flex' : 'hidden'} w-full md:flex md:w-auto`}>
           <ul className="flex w-full flex-col gap-1 border-t border-line pt-2 pb-1 md:flex-row md:items-center md:border-0 md:p-0">
-            {items.map((item) => (
-              <li key={item.to}>
-                <NavLink to={item.to} end={item.end} className={linkClasses}>
-                  {item.label}
-                </NavLink>
-              </li>
-            ))}
+            {items.map((item) => {
+              const current = currentFor(item, location.pathname);
+              return (
+                <li key={item.to}>
+                  <Link to={item.to} aria-current={current} className={linkClasses({ isActive: Boolean(current) })}>
+                    {item.label}
+                  </Link>
+                </li>
+              );
+            })}
             <li className="mt-1 md:mt-0 md:ml-2">
               {signedIn ? (
                 <button

@@ -3,10 +3,9 @@ import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 import { paths } from '../../../config/paths.ts';
-import { useAuditLog } from '../../../features/moderation/api/get-audit-log.ts';
 import { useModerationQueue } from '../../../features/moderation/api/get-queue.ts';
-import { knownShops } from '../../../features/moderation/components/known-shops.ts';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
+import { ShopFinder } from '../../../features/moderation/components/shop-finder.tsx';
 import { DeskNav } from './desk-nav.tsx';
 
 const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
@@ -14,8 +13,6 @@ const shopStateLabel = { in_review: 'In review', live: 'Live', suspended: 'Suspe
 
 export function ModerationDeskPage() {
   const queue = useModerationQueue();
-  const audit = useAuditLog(1);
-  const shops = knownShops(queue.data, audit.data?.items).filter((s) => !queue.data?.shops.some((q) => q.id === s.id));
 
   return (
     <div>
@@ -87,27 +84,10 @@ export function ModerationDeskPage() {
 
           <section aria-labelledby="q-known" className="flex flex-col gap-4">
             <h2 id="q-known" className="text-2xl font-extrabold">
-              Suspend or restore a shop
+              All shops
             </h2>
-            <p className="-mt-2 max-w-prose text-ink-soft">Shops with listings in the queue and shops moderators acted on recently. Suspending hides every listing of the shop from browse and search at once.</p>
-            {shops.length === 0 ? (
-              <StitchedBox>
-                <p>No other shops to show yet.</p>
-              </StitchedBox>
-            ) : (
-              <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
-                {shops.map((s) => (
-                  <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
-                    <div className="flex flex-wrap items-center gap-2">
-                      <p className="text-lg font-extrabold break-words">{s.name}</p>
-                      <Badge tone={s.state === 'live' ? 'thread' : s.state === 'in_review' ? 'marigold' : 'danger'}>{shopStateLabel[s.state]}</Badge>
-                    </div>
-                    {s.state === 'suspended' && s.reason ? <p className="text-sm text-ink-soft">Reason: {s.reason}</p> : null}
-                    <ShopActions shop={s} />
-                  </li>
-                ))}
-              </ul>
-            )}
+            <p className="-mt-2 max-w-prose text-ink-soft">Find any shop, live, in review or suspended. Suspending hides every listing of the shop from browse and search at once; the seller gets your reason by e-mail.</p>
+            <ShopFinder />
           </section>
         </div>
       ) : null}

@@ -6,6 +6,8 @@ const links = [
   { to: paths.seller.listings.getHref(), label: 'Listings', end: false },
   { to: paths.seller.materials.getHref(), label: 'Materials', end: false },
   { to: paths.seller.shop.getHref(), label: 'Shop settings', end: false },
+  { to: paths.business.overview.getHref(), label: 'Business', end: true },
+  { to: paths.business.payouts.getHref(), label: 'Payouts', end: false },
 ];
 
 /** The seller pages' own sub-navigation (scrolls sideways on a phone rather than wrapping). */

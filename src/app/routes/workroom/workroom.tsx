@@ -41,6 +41,12 @@ export function WorkroomPage() {
         <ButtonLink to={paths.seller.shop.getHref()} variant="secondary">
           Shop settings
         </ButtonLink>
+        <ButtonLink to={paths.business.overview.getHref()} variant="secondary">
+          Business
+        </ButtonLink>
+        <ButtonLink to={paths.business.payouts.getHref()} variant="secondary">
+          Payouts
+        </ButtonLink>
       </nav>
       <WorkroomNav />
       <Suspense fallback={<Spinner label="Loading orders…" />}>

@@ -24,6 +24,7 @@ import { useListingAction } from '../api/listing-actions.ts';
 import { useCreateListing, useUpdateListing } from '../api/save-listing.ts';
 import { LISTING_STATE_LABELS, ListingStateBadges } from './listing-state.tsx';
 import { PersonalisationEditor, type EditorMotif, type MotifPreviewProps } from './personalisation-editor.tsx';
+import { PricingHelper } from '../../business/components/pricing-helper.tsx';
 
 export type PhotoPickerProps = { value: string[]; onChange: (ids: string[]) => void; error?: string };
 
@@ -342,6 +343,7 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
           />
           <TextField label="Minutes per layer" type="number" inputMode="decimal" min={0} max={240} error={e.minutesPerLayer?.message} {...register('minutesPerLayer', { valueAsNumber: true })} />
         </div>
+        <PricingHelper values={values} currency={currency} />
       </FormSection>
 
       <div className="sticky bottom-0 z-10 -mx-4 flex flex-col gap-3 border-t border-line bg-paper/95 px-4 py-4 sm:mx-0 sm:rounded-lg sm:border sm:px-5">

@@ -10,6 +10,7 @@ import { paths } from '../../../config/paths.ts';
 import { formatDate, stateWords } from './format.ts';
 import { MaterialChips } from './material-chips.tsx';
 import { StateBadge } from './state-badge.tsx';
+import { ShipByCell, useShipByLookup } from '../../business/components/ship-by-cell.tsx';
 
 const col = createColumnHelper<WorkLine>();
 
@@ -33,7 +34,9 @@ type Props = {
 
 /** Every line of the shop: filter by state, date paid, material and listing; sort by any column. */
 export function LinesTable({ lines, state, onStateChange, actions }: Props) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'paidAt', desc: true }]);
+  // most urgent first: late, due today, at risk, then by ship-by date (shared/business/marks.ts)
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'shipBy', desc: false }]);
+  const shipBy = useShipByLookup();
   const [from, setFrom] = useState('');
   const [to, setTo] = useState('');
   const [material, setMaterial] = useState('');
@@ -77,6 +80,7 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
         ),
       }),
       col.accessor('paidAt', { header: 'Paid', cell: (c) => formatDate(c.getValue()), filterFn: dateRange }),
+      col.accessor((r) => shipBy.sortKey(r.id), { id: 'shipBy', header: 'Ship by', cell: (c) => <ShipByCell info={shipBy.get(c.row.original.id)} /> }),
       col.accessor('listingTitle', { header: 'Listing', filterFn: (row, _id, v: string) => row.original.listingId === v }),
       col.accessor('text', {
         header: 'Personalisation',
@@ -99,11 +103,13 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
         ),
       }),
     ],
-    [],
+    [shipBy],
   );
 
+  // a fresh array when the ship-by marks arrive, so the table re-reads the ship-by sort key
+  const data = useMemo(() => [...lines], [lines, shipBy]);
   const table = useReactTable({
-    data: lines,
+    data,
     columns,
     state: { sorting, columnFilters, rowSelection },
     getRowId: (r) => r.id,

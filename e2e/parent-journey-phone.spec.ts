@@ -1,0 +1,113 @@
+// Journey 1 of PRODUCT.md ("Parent ordering a named holiday tote") on a phone-sized screen
+// (375 × 740 CSS px, touch): the same steps as parent-journey.spec.ts, but as a guest who builds
+// the cart first and creates an account at checkout, through the phone menu. At each step the
+// page must not scroll sideways (WCAG 2.2 1.4.10 Reflow: no two-dimensional scrolling at 320+ px)
+// and the controls we tap must be at least 24 × 24 px (2.5.8).
+import type { Locator, Page } from '@playwright/test';
+import { expect, test, waitForMail } from './fixtures.ts';
+import { uniqueEmail } from './api-helpers.ts';
+
+test.use({ viewport: { width: 375, height: 740 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
+
+async function expectNoSideScroll(page: Page, where: string) {
+  const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+  expect(overflow, `${where}: the page scrolls sideways by ${overflow}px at 375 px`).toBeLessThanOrEqual(1);
+}
+
+async function tap(target: Locator) {
+  await target.scrollIntoViewIfNeeded();
+  const box = await target.boundingBox();
+  expect(box, `${target} is on screen`).not.toBeNull();
+  expect(Math.min(box!.width, box!.height), `${target} is at least 24 px`).toBeGreaterThanOrEqual(24);
+  await target.tap();
+}
+
+test('on a phone, a parent builds a two-shop cart, signs up at checkout, pays and follows the order', async ({ page }) => {
+  test.setTimeout(120_000);
+  const since = Date.now();
+  const email = uniqueEmail('phone-parent');
+
+  // browse by occasion from the home page
+  await page.goto('/');
+  await expectNoSideScroll(page, 'home');
+  await page.goto('/search?occasion=autumn-harvest');
+  await expectNoSideScroll(page, 'search');
+  await tap(page.getByRole('link', { name: /Autumn fox tote with a name/ }).first());
+  await expect(page.getByRole('heading', { level: 1, name: 'Autumn fox tote with a name' })).toBeVisible();
+
+  // personalise: the name adds a layer (the price changes), another colour keeps the price
+  const form = page.getByRole('form', { name: 'Personalise this item' });
+  const price = page.getByTestId('price');
+  await expect(price).toContainText('$');
+  const motifOnly = await price.textContent();
+  await form.getByLabel('Name', { exact: true }).fill('Mira');
+  await expect(price).not.toHaveText(motifOnly!);
+  const withName = await price.textContent();
+  await tap(form.getByRole('group', { name: 'Name colour' }).locator('label').nth(2));
+  const preview = page.getByTestId('design-preview');
+  await expect(preview).toBeVisible();
+  await expect(price).toHaveText(withName!);
+  // the preview fits the phone's width
+  const pbox = await preview.boundingBox();
+  expect(pbox!.x).toBeGreaterThanOrEqual(0);
+  expect(pbox!.x + pbox!.width).toBeLessThanOrEqual(376);
+  await expectNoSideScroll(page, 'listing with personaliser');
+  await tap(form.getByRole('button', { name: /Add to cart/ }));
+  await expect(page.getByText(/Added to your cart with “Mira”/)).toBeVisible();
+
+  // a kids' tee from the second shop
+  await page.goto('/search?q=rocket');
+  await tap(page.getByRole('link', { name: /Rocket name tee for kids/ }).first());
+  const form2 = page.getByRole('form', { name: 'Personalise this item' });
+  await form2.getByLabel('Name', { exact: true }).fill('Theo');
+  await tap(form2.getByRole('button', { name: /Add to cart/ }));
+  await expect(page.getByText(/Added to your cart with “Theo”/)).toBeVisible();
+
+  // to the cart through the phone menu
+  await tap(page.getByRole('button', { name: 'Menu' }));
+  await tap(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /cart/i }).first());
+  await expect(page).toHaveURL(/\/cart$/);
+  await expect(page.getByRole('heading', { name: /From Fern & Fable Goods/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /From Little Comet Print Co\./ })).toBeVisible();
+  await expectNoSideScroll(page, 'cart');
+
+  // a guest is asked to sign up; the cart survives it
+  await tap(page.getByRole('link', { name: 'Create an account' }));
+  await page.getByLabel('Your name').fill('Dana Phone');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill('phone-parent-password-1');
+  await expectNoSideScroll(page, 'sign-up');
+  await tap(page.getByRole('button', { name: 'Create account' }));
+  await expect(page).toHaveURL(/\/cart$/);
+  await expect(page.getByRole('img', { name: /Preview of the design: .*Mira/ })).toBeVisible();
+  const total = (await page.getByTestId('cart-total').textContent())!;
+  await tap(page.getByRole('button', { name: `Pay ${total}` }));
+
+  // the payment page at phone width
+  await expect(page.getByLabel('Card number')).toBeVisible();
+  await expectNoSideScroll(page, 'payment page');
+  await page.getByLabel('Card number').fill('4242 4242 4242 4242');
+  await page.getByLabel('Expiry date (MM/YY)').fill('12/34');
+  await page.getByLabel('Security code (CVC)').fill('123');
+  await tap(page.getByRole('button', { name: /^Pay / }));
+
+  await expect(page).toHaveURL(/\/checkout\/return\?session_id=/);
+  await expect(page.getByRole('heading', { name: 'Thank you, your order is confirmed' })).toBeVisible({ timeout: 20_000 });
+  await expectNoSideScroll(page, 'checkout return');
+  const numbers = await page.getByText(/^NS-\d+$/).allTextContents();
+  expect(numbers).toHaveLength(2);
+
+  const mail = await waitForMail(email, /Your Namesake order/, since);
+  for (const n of numbers) expect(mail.subject).toContain(n);
+  expect(mail.text).toContain('Name: Mira');
+  expect(mail.text).toContain('Name: Theo');
+
+  // the order's progress, reached through the phone menu
+  await tap(page.getByRole('button', { name: 'Menu' }));
+  await tap(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /orders/i }).first());
+  await expect(page).toHaveURL(/\/orders$/);
+  await expectNoSideScroll(page, 'orders');
+  await tap(page.getByRole('link', { name: new RegExp(numbers[0]!) }));
+  await expect(page.getByText('Waiting for the proof check').first()).toBeVisible();
+  await expectNoSideScroll(page, 'order detail');
+});

@@ -1,0 +1,23 @@
+import { PageHeading } from '../../../components/ui/card.tsx';
+import { BusinessNav } from '../../../features/business/components/business-nav.tsx';
+import { BusinessCharts } from '../../../features/business/components/business-charts.tsx';
+import { CostsTable } from '../../../features/business/components/costs-table.tsx';
+import { DueList } from '../../../features/business/components/due-list.tsx';
+import { SellerNav } from '../seller/seller-nav.tsx';
+
+export function BusinessOverviewPage() {
+  return (
+    <div>
+      <SellerNav />
+      <PageHeading eyebrow="Workroom" title="Your business" lead="What is due when, what each item really cost you, and what you earn after fees." />
+      <BusinessNav />
+      <div className="flex flex-col gap-10">
+        <DueList />
+        <BusinessCharts />
+        <CostsTable />
+      </div>
+    </div>
+  );
+}
+
+export default BusinessOverviewPage;

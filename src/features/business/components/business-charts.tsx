@@ -1,0 +1,139 @@
+import { useState, type ReactNode } from 'react';
+import { Bar, BarChart, CartesianGrid, Legend, Line, ComposedChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import { formatMoney, minorDigits } from '../../../../shared/money.ts';
+import type { ChartsView } from '../../../../shared/schemas/business.ts';
+import { Spinner } from '../../../components/ui/button.tsx';
+import { useCharts } from '../api/get-charts.ts';
+
+const INK = '#1f2a44';
+const THREAD = '#2f7d6d';
+const MARIGOLD = '#e0a526';
+const PALETTE = [THREAD, MARIGOLD, INK, '#8a5a9e', '#b5523b', '#4f7fb8'];
+
+const cmIn = (mm: number) => `${(mm / 10).toFixed(1)} cm (${(mm / 25.4).toFixed(1)} in)`;
+
+/** A chart panel with a switch between the chart and the same numbers as a table. */
+function ChartPanel({ id, title, lead, chart, table, empty }: { id: string; title: string; lead: string; chart: ReactNode; table: ReactNode; empty?: string }) {
+  const [asTable, setAsTable] = useState(false);
+  return (
+    <section aria-labelledby={`${id}-title`} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4 sm:p-6">
+      <div className="flex flex-wrap items-start justify-between gap-2">
+        <div>
+          <h2 id={`${id}-title`} className="text-xl font-extrabold">{title}</h2>
+          <p className="text-sm text-ink-soft">{lead}</p>
+        </div>
+        {empty ? null : <button type="button" aria-pressed={asTable} className="min-h-11 rounded-lg border-2 border-thread px-3 font-bold text-thread-deep hover:bg-thread-wash" onClick={() => setAsTable((v) => !v)}>
+          {asTable ? 'Show chart' : 'Show table'}
+        </button>}
+      </div>
+      {/* the chart is a picture of the table: screen readers get the table either way */}
+      {empty ? <p className="rounded-lg bg-paper-deep p-4 text-ink-soft">{empty}</p> : asTable ? table : (
+        <>
+          <div aria-hidden="true" className="h-64 w-full">{chart}</div>
+          <div className="sr-only">{table}</div>
+        </>
+      )}
+    </section>
+  );
+}
+
+function Table({ caption, head, rows }: { caption: string; head: string[]; rows: Array<Array<string | number>> }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full min-w-[22rem] text-left">
+        <caption className="sr-only">{caption}</caption>
+        <thead className="bg-paper-deep text-sm">
+          <tr>{head.map((h, i) => <th key={h} scope="col" className={`px-3 py-2 ${i ? 'text-right' : ''}`}>{h}</th>)}</tr>
+        </thead>
+        <tbody>
+          {rows.map((r, k) => (
+            <tr key={k} className="border-t border-line">
+              {r.map((v, i) => (i === 0 ? <th key={i} scope="row" className="px-3 py-2 font-semibold">{v}</th> : <td key={i} className="px-3 py-2 text-right tabular-nums">{v}</td>))}
+            </tr>
+          ))}
+          {rows.length === 0 ? <tr><td colSpan={head.length} className="px-3 py-4 text-ink-soft">Nothing yet.</td></tr> : null}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+export function BusinessCharts() {
+  const charts = useCharts();
+  if (charts.isPending) return <Spinner label="Loading charts…" />;
+  if (charts.isError) return <p role="alert" className="font-semibold text-danger">{charts.error.message}</p>;
+  return <ChartsBody data={charts.data} />;
+}
+
+function ChartsBody({ data }: { data: ChartsView }) {
+  const { currency } = data;
+  const major = (m: number) => m / 10 ** minorDigits(currency);
+  const money = (m: number) => formatMoney(m, currency);
+  const weeks = data.weeks.map((w) => ({ week: w.week, sales: major(w.salesMinor), margin: major(w.marginMinor) }));
+  const materials = [...new Map(data.vinyl.map((v) => [v.materialId, v.material])).entries()];
+  const months = [...new Set(data.vinyl.map((v) => v.month))].map((month) => ({
+    month,
+    ...Object.fromEntries(materials.map(([id]) => [id, (data.vinyl.find((v) => v.month === month && v.materialId === id)?.usedMm ?? 0) / 10])),
+  }));
+  return (
+    <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
+      <ChartPanel
+        id="sales-week"
+        empty={data.weeks.length ? undefined : 'No sales yet.'}
+        title="Sales and margin by week"
+        lead="Weeks start on Monday. Sales include shipping; margin is after every cost and fee."
+        chart={
+          <ResponsiveContainer width="100%" height="100%">
+            <ComposedChart data={weeks} margin={{ top: 8, right: 8, left: 0, bottom: 0 }}>
+              <CartesianGrid stroke="#e4dccd" vertical={false} />
+              <XAxis dataKey="week" tick={{ fill: INK, fontSize: 12 }} />
+              <YAxis tick={{ fill: INK, fontSize: 12 }} width={48} />
+              <Tooltip formatter={(v) => formatMoney(Math.round(Number(v) * 10 ** minorDigits(currency)), currency)} />
+              <Legend />
+              <Bar dataKey="sales" name="Sales" fill={THREAD} radius={[4, 4, 0, 0]} isAnimationActive={false} />
+              <Line dataKey="margin" name="Margin" stroke={MARIGOLD} strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
+            </ComposedChart>
+          </ResponsiveContainer>
+        }
+        table={<Table caption="Sales and margin by week" head={['Week of', 'Items', 'Sales', 'Margin']} rows={data.weeks.map((w) => [w.week, w.items, money(w.salesMinor), money(w.marginMinor)])} />}
+      />
+      <ChartPanel
+        id="vinyl-month"
+        empty={data.vinyl.length ? undefined : 'No cut sheets marked cut yet. Vinyl shows here once you cut.'}
+        title="Vinyl used per material, by month"
+        lead="Length of roll taken by cut sheets, trim included, in cm."
+        chart={
+          <ResponsiveContainer width="100%" height="100%">
+            <BarChart data={months} margin={{ top: 8, right: 8, left: 0, bottom: 0 }}>
+              <CartesianGrid stroke="#e4dccd" vertical={false} />
+              <XAxis dataKey="month" tick={{ fill: INK, fontSize: 12 }} />
+              <YAxis tick={{ fill: INK, fontSize: 12 }} width={48} unit=" cm" />
+              <Tooltip formatter={(v) => cmIn(Number(v) * 10)} />
+              <Legend />
+              {materials.map(([id, label], i) => <Bar key={id} dataKey={id} name={label} stackId="v" fill={PALETTE[i % PALETTE.length]} isAnimationActive={false} />)}
+            </BarChart>
+          </ResponsiveContainer>
+        }
+        table={<Table caption="Vinyl used per material per month" head={['Month', 'Material', 'Used']} rows={data.vinyl.map((v) => [v.month, v.material, cmIn(v.usedMm)])} />}
+      />
+      <ChartPanel
+        id="by-listing"
+        empty={data.listings.length ? undefined : 'No orders yet.'}
+        title="Orders by listing"
+        lead="How many orders included each listing."
+        chart={
+          <ResponsiveContainer width="100%" height="100%">
+            <BarChart data={data.listings} layout="vertical" margin={{ top: 8, right: 16, left: 8, bottom: 0 }}>
+              <CartesianGrid stroke="#e4dccd" horizontal={false} />
+              <XAxis type="number" allowDecimals={false} tick={{ fill: INK, fontSize: 12 }} />
+              <YAxis type="category" dataKey="title" width={140} tick={{ fill: INK, fontSize: 12 }} />
+              <Tooltip />
+              <Bar dataKey="orders" name="Orders" fill={THREAD} radius={[0, 4, 4, 0]} isAnimationActive={false} />
+            </BarChart>
+          </ResponsiveContainer>
+        }
+        table={<Table caption="Orders by listing" head={['Listing', 'Orders', 'Items', 'Sales']} rows={data.listings.map((l) => [l.title, l.orders, l.items, money(l.salesMinor)])} />}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,106 @@
+import { useEffect, useState } from 'react';
+import { SHOP_STATES, type ShopState } from '../../../../shared/schemas/shop.ts';
+import { Button, Spinner } from '../../../components/ui/button.tsx';
+import { StitchedBox } from '../../../components/ui/card.tsx';
+import { Badge, SelectField } from '../../../components/ui/form-controls.tsx';
+import { TextField } from '../../../components/ui/text-field.tsx';
+import { useShops } from '../api/get-shops.ts';
+import { ShopActions } from './shop-actions.tsx';
+
+export const SHOP_STATE_LABELS: Record<ShopState, string> = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' };
+const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
+
+/** Any shop, found by name, web address or owner e-mail, with the moves its state allows. */
+export function ShopFinder() {
+  const [typed, setTyped] = useState('');
+  const [q, setQ] = useState('');
+  const [state, setState] = useState<ShopState | ''>('');
+  const [page, setPage] = useState(1);
+  // search a moment after typing stops, not on every key
+  useEffect(() => {
+    const t = window.setTimeout(() => {
+      setQ(typed.trim());
+      setPage(1);
+    }, 300);
+    return () => window.clearTimeout(t);
+  }, [typed]);
+
+  const shops = useShops({ q, page, ...(state ? { state } : {}) });
+  const pages = shops.data ? Math.max(1, Math.ceil(shops.data.total / shops.data.pageSize)) : 1;
+
+  return (
+    <div className="flex flex-col gap-4">
+      <form
+        role="search"
+        aria-label="Find a shop"
+        className="grid grid-cols-1 gap-3 sm:grid-cols-[1fr_14rem]"
+        onSubmit={(e) => {
+          e.preventDefault();
+          setQ(typed.trim());
+          setPage(1);
+        }}
+      >
+        <TextField label="Find a shop" hint="Name, web address or owner e-mail" type="search" value={typed} maxLength={100} onChange={(e) => setTyped(e.target.value)} />
+        <SelectField
+          label="State"
+          hint="Which shops to list"
+          value={state}
+          onChange={(e) => {
+            setState(e.target.value as ShopState | '');
+            setPage(1);
+          }}
+        >
+          <option value="">All states</option>
+          {SHOP_STATES.map((s) => (
+            <option key={s} value={s}>
+              {SHOP_STATE_LABELS[s]}
+            </option>
+          ))}
+        </SelectField>
+      </form>
+
+      {shops.isPending ? <Spinner label="Loading shops…" /> : null}
+      {shops.isError ? <p role="alert" className="font-semibold text-danger">{shops.error.message}</p> : null}
+      {shops.data ? (
+        <>
+          <p aria-live="polite" className="text-ink-soft">
+            {shops.data.total === 0 ? 'No shops match.' : `${shops.data.total} ${shops.data.total === 1 ? 'shop' : 'shops'}${pages > 1 ? ` · page ${page} of ${pages}` : ''}`}
+          </p>
+          {shops.data.items.length === 0 ? (
+            <StitchedBox>
+              <p>No shops match. Try part of the name, or another state.</p>
+            </StitchedBox>
+          ) : (
+            <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
+              {shops.data.items.map((s) => (
+                <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
+                  <div className="flex flex-col gap-1">
+                    <div className="flex flex-wrap items-center gap-2">
+                      <p className="text-lg font-extrabold break-words">{s.name}</p>
+                      <Badge tone={s.state === 'live' ? 'thread' : s.state === 'in_review' ? 'marigold' : 'danger'}>{SHOP_STATE_LABELS[s.state]}</Badge>
+                    </div>
+                    <p className="text-sm [overflow-wrap:anywhere] text-ink-soft">
+                      /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {when.format(s.createdAt)}
+                    </p>
+                  </div>
+                  {s.stateReason && (s.state === 'suspended' || s.state === 'rejected') ? <p className="text-sm whitespace-pre-wrap">Reason: {s.stateReason}</p> : null}
+                  <ShopActions shop={s} />
+                </li>
+              ))}
+            </ul>
+          )}
+          {pages > 1 ? (
+            <nav aria-label="Shop list pages" className="flex flex-wrap items-center gap-2">
+              <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
+                Previous page
+              </Button>
+              <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
+                Next page
+              </Button>
+            </nav>
+          ) : null}
+        </>
+      ) : null}
+    </div>
+  );
+}
