@@ -50,7 +50,7 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
   await page.goto('/moderation');
 
   // the new shop waits in its queue; approving it needs no reason
-  const shopCard = page.getByRole('listitem', { name: `Shop ${seller.shop.name}` });
+  const shopCard = page.getByRole('region', { name: /New shops/ }).getByRole('listitem', { name: `Shop ${seller.shop.name}` });
   await expect(shopCard).toBeVisible();
   await shopCard.getByRole('button', { name: `Approve shop ${seller.shop.name}` }).click();
   await expect(page.getByText(`${seller.shop.name} is approved.`)).toBeVisible();
@@ -81,7 +81,10 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
 
   // suspend the shop: its live listing leaves search at once
   await page.goto('/moderation');
-  const known = page.getByRole('listitem', { name: `Shop ${seller.shop.name}` });
+  const allShops = page.getByRole('region', { name: 'All shops' });
+  await allShops.getByLabel('Find a shop').fill(seller.shop.name);
+  await allShops.getByLabel('Find a shop').press('Enter');
+  const known = allShops.getByRole('listitem', { name: `Shop ${seller.shop.name}` });
   await known.getByRole('button', { name: `Suspend shop ${seller.shop.name}` }).click();
   await known.getByLabel(`Why is ${seller.shop.name} suspended?`).fill('Listings copy another maker’s artwork; we are checking.');
   await known.getByRole('button', { name: 'Suspend shop' }).click();

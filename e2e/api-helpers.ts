@@ -27,18 +27,28 @@ export async function apiGet<T = any>(page: Page, path: string): Promise<T> { //
   return json<T>(await page.request.get(path), `GET ${path}`);
 }
 
+/**
+ * A client address of its own for each test user. Sign-up is rate-limited per address (a few per
+ * 10 s), and every spec runs from 127.0.0.1; the app trusts X-Forwarded-For only from loopback
+ * (`trust proxy: loopback`), so this is how a test speaks for many different people.
+ */
+export function testClientAddress(): string {
+  const n = Math.floor(Math.random() * 65_536);
+  return `10.77.${n >> 8}.${n & 255}`;
+}
+
+async function authPost(page: Page, path: string, data: object): Promise<void> {
+  const res = await page.request.post(path, { data, headers: { origin: origin(page), 'x-forwarded-for': testClientAddress() } });
+  await json(res, `POST ${path}`);
+}
+
 /** Signs a fresh account up (and in: the session cookie lands in the page's context). */
 export async function signUpApi(page: Page, email: string, name: string, password = DEMO_PASSWORD): Promise<void> {
-  await apiPost(page, '/api/auth/sign-up/email', { email, password, name });
+  await authPost(page, '/api/auth/sign-up/email', { email, password, name });
 }
 
 export async function signInApi(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
-  await apiPost(page, '/api/auth/sign-in/email', { email, password });
-}
-
-export async function signOutApi(page: Page): Promise<void> {
-  await page.request.post('/api/auth/sign-out', { headers: { origin: origin(page) }, data: {} });
-  await page.context().clearCookies();
+  await authPost(page, '/api/auth/sign-in/email', { email, password });
 }
 
 export function uniqueEmail(prefix: string): string {

@@ -5,9 +5,10 @@
 // and the controls we tap must be at least 24 × 24 px (2.5.8).
 import type { Locator, Page } from '@playwright/test';
 import { expect, test, waitForMail } from './fixtures.ts';
-import { uniqueEmail } from './api-helpers.ts';
+import { testClientAddress, uniqueEmail } from './api-helpers.ts';
 
-test.use({ viewport: { width: 375, height: 740 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2 });
+// this parent's own client address: sign-up is rate-limited per address (see api-helpers.ts)
+test.use({ viewport: { width: 375, height: 740 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, extraHTTPHeaders: { 'x-forwarded-for': testClientAddress() } });
 
 async function expectNoSideScroll(page: Page, where: string) {
   const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);

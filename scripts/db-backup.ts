@@ -25,7 +25,9 @@ export async function backupDatabase(dbFile: string, outFile: string): Promise<{
     const tmp = `${outFile}.partial`;
     fs.rmSync(tmp, { force: true });
     // 256 pages a step keeps each read lock short, so the app's writers are barely held up
-    await db.backup(tmp, { progress: ({ totalPages }) => ((pages = totalPages), 256) });
+    // one step for the whole file: a step holds a read transaction, so writers on other connections
+    // (WAL) carry on and cannot restart the copy half-way, however busy the shop is
+    await db.backup(tmp, { progress: ({ totalPages }) => ((pages = totalPages), Math.max(totalPages, 1) * 2) });
     const copy = new Database(tmp);
     try {
       const check = copy.pragma('integrity_check', { simple: true });

@@ -41,7 +41,7 @@ export function createAuth({ db, env, mailer }: AuthDeps) {
       enabled: env.AUTH_IP_RATE_LIMIT ?? env.NODE_ENV !== 'test',
       window: 60,
       max: 200,
-      customRules: { '/sign-in/email': { window: 60, max: 30 }, '/request-password-reset': { window: 60, max: 5 } },
+      customRules: { '/sign-in/email': { window: 60, max: 30 }, '/sign-up/email': { window: 60, max: 20 }, '/request-password-reset': { window: 60, max: 5 } },
     },
     advanced: {
       ipAddress: { ipAddressHeaders: [CLIENT_IP_HEADER] },

@@ -1,0 +1,229 @@
+/**
+ * Load benchmark (`npm run bench -- load`, issue 7 point 4): the built app (dist/, built first if
+ * missing) runs as its own process on a free port with a throw-away, seeded DATA_DIR; autocannon
+ * then drives a mixed load for BENCH_LOAD_SECONDS (default 60) s, all kinds at once:
+ *   home      GET /  and  GET /api/listings            (browse)
+ *   search    GET /api/listings?q=…&occasion=…
+ *   listing   GET /api/listings/:slug
+ *   layout    POST /api/layout/text                   (the personaliser's live preview)
+ *   cart      POST /api/cart/lines, POST /api/checkout (Checkout Session on the local Stripe
+ *             fake), DELETE the line again — as signed-in shoppers, one session per connection
+ * and prints per kind and overall: requests, throughput, p50/p99 latency and errors by cause.
+ *
+ * The preview endpoint is rate-limited per client address (240/min). Real shoppers come from many
+ * addresses, so each layout request carries its own X-Forwarded-For from a pool of 10 000 (the app
+ * trusts that header from loopback only); a 429 still counts as an error if one shows up.
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+// @ts-expect-error autocannon ships no type declarations; the few calls used are typed below
+import autocannonUntyped from 'autocannon';
+
+type AcRequest = { method?: string; path?: string; headers?: Record<string, string>; body?: string };
+type AcRequestStep = AcRequest & {
+  setupRequest?: (req: AcRequest, context: Record<string, unknown>) => AcRequest;
+  onResponse?: (status: number, body: string, context: Record<string, unknown>) => void;
+};
+type AcResult = { errors: number; timeouts: number; non2xx: number; requests: { total: number }; duration: number };
+type AcInstance = { on(ev: 'response', fn: (client: object, status: number, bytes: number, ms: number) => void): void; on(ev: 'done', fn: (r: AcResult) => void): void };
+type AcOptions = { url: string; connections: number; duration: number; pipelining?: number; timeout?: number; requests: AcRequestStep[] };
+const autocannon = autocannonUntyped as (opts: AcOptions) => AcInstance & PromiseLike<AcResult>;
+
+const root = path.resolve(import.meta.dirname, '..');
+const SECONDS = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
+const SHOPPERS = 20;
+const PASSWORD = 'bench-load-password-1';
+const NAMES = ['Mira', 'Theo', 'Anouk', 'Kai', 'Priya', 'Leon', 'Zoë', 'Bartholomew'];
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+async function waitUp(url: string, child: ChildProcess, log: string[]): Promise<void> {
+  const until = Date.now() + 120_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`the server exited during start-up:\n${log.join('')}`);
+    try {
+      if ((await fetch(url)).ok) return;
+    } catch {
+      /* not up yet */
+    }
+    if (Date.now() > until) throw new Error(`the server did not start:\n${log.join('')}`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+/** fetch with a cookie jar; returns the jar's Cookie header after the call */
+async function signedInCookie(base: string, i: number): Promise<string> {
+  const res = await fetch(`${base}/api/auth/sign-up/email`, {
+    method: 'POST',
+    // each shopper from its own address: sign-up is rate-limited per address
+    headers: { origin: base, 'content-type': 'application/json', 'x-forwarded-for': `10.1.${i >> 8}.${i & 255}` },
+    body: JSON.stringify({ email: `load-${i}@namesake.test`, password: PASSWORD, name: `Load Shopper ${i}` }),
+  });
+  if (!res.ok) throw new Error(`sign-up ${i}: ${res.status} ${await res.text()}`);
+  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+}
+
+function pct(sorted: number[], p: number): number {
+  if (sorted.length === 0) return NaN;
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)]!;
+}
+
+type Stats = { kind: string; ms: number[]; byStatus: Map<number, number> };
+
+export async function run(): Promise<void> {
+  if (!fs.existsSync(path.join(root, 'dist/index.html'))) {
+    console.log('building the client (vite build) …');
+    const b = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
+    if (b.status !== 0) throw new Error('vite build failed');
+  }
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-bench-load-'));
+  const port = await freePort();
+  const base = `http://localhost:${port}`;
+  const log: string[] = [];
+  // one process (`node --import tsx`), so stopping it stops the server
+  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    cwd: root,
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      AUTH_SECRET: crypto.randomBytes(24).toString('hex'),
+      DEMO_MODE: 'true',
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      BASE_URL: base,
+      CLIENT_DIR: path.join(root, 'dist'),
+      SMTP_PORT: '0',
+      STRIPE_FAKE_PORT: '0',
+      LOG_REQUESTS: 'false',
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  server.stdout!.on('data', (d: Buffer) => log.push(d.toString()));
+  server.stderr!.on('data', (d: Buffer) => log.push(d.toString()));
+
+  try {
+    await waitUp(`${base}/api/health`, server, log);
+    const fox = (await (await fetch(`${base}/api/listings/autumn-fox-tote-with-a-name`)).json()) as {
+      id: string;
+      content: { personalisation: { textFields: Array<{ id: string; defaultFontId: string; defaultLetterHeightMm: number }>; motifChoices: Array<{ motifId: string }> } };
+    };
+    const field = fox.content.personalisation.textFields[0]!;
+    const cookies = await Promise.all(Array.from({ length: SHOPPERS }, (_, i) => signedInCookie(base, i)));
+
+    const all: Stats[] = [];
+    const track = (kind: string): Stats => {
+      const s = { kind, ms: [], byStatus: new Map<number, number>() };
+      all.push(s);
+      return s;
+    };
+    const json = { 'content-type': 'application/json', origin: base };
+    let ipSeq = 0;
+    let cookieSeq = 0;
+
+    /** runs one autocannon instance; `kinds` names its requests in pipeline order */
+    const load = (kinds: string[], connections: number, requests: AcRequestStep[]) => {
+      const stats = kinds.map(track);
+      const inst = autocannon({ url: base, connections, duration: SECONDS, timeout: 20, requests });
+      // with pipelining 1 each connection walks its requests in order: the n-th response is kinds[n % k]
+      const seq = new WeakMap<object, number>();
+      inst.on('response', (client, status, _bytes, ms) => {
+        const n = seq.get(client) ?? 0;
+        seq.set(client, n + 1);
+        const s = stats[n % stats.length]!;
+        s.ms.push(ms);
+        s.byStatus.set(status, (s.byStatus.get(status) ?? 0) + 1);
+      });
+      return Promise.resolve(inst).then((r) => ({ kinds, r }));
+    };
+
+    console.log(`load: ${SECONDS} s against ${base} (NODE_ENV=production, seeded demo, ${SHOPPERS} signed-in shoppers) …`);
+    const started = performance.now();
+    const results = await Promise.all([
+      load(['home (GET /)', 'home (GET /api/listings)'], 8, [{ method: 'GET', path: '/' }, { method: 'GET', path: '/api/listings' }]),
+      load(['search'], 8, [
+        {
+          method: 'GET',
+          path: '/api/listings?q=tote',
+          setupRequest: (req) => ({ ...req, path: `/api/listings?q=${['tote', 'name', 'bag', 'rocket', 'fox'][ipSeq++ % 5]}&occasion=${ipSeq % 2 ? 'autumn-harvest' : 'birthday'}` }),
+        },
+      ]),
+      load(['listing'], 8, [{ method: 'GET', path: '/api/listings/autumn-fox-tote-with-a-name' }]),
+      load(['layout'], 8, [
+        {
+          method: 'POST',
+          path: '/api/layout/text',
+          headers: json,
+          setupRequest: (req) => {
+            const n = ipSeq++;
+            const k = n % 10_000; // a pool of 10 000 shopper addresses
+            return {
+              ...req,
+              headers: { ...json, 'x-forwarded-for': `10.0.${k >> 8}.${k & 255}` },
+              body: JSON.stringify({ text: NAMES[n % NAMES.length], fontId: field.defaultFontId, letterHeightMm: 40 + (n % 20) }),
+            };
+          },
+        },
+      ]),
+      load(['cart add', 'checkout session', 'cart remove'], SHOPPERS, [
+        {
+          method: 'POST',
+          path: '/api/cart/lines',
+          setupRequest: (req, ctx) => {
+            ctx.cookie ??= cookies[cookieSeq++ % cookies.length];
+            const name = NAMES[Math.floor(Math.random() * NAMES.length)];
+            const choices = { texts: { [field.id]: { text: name, fontId: field.defaultFontId, letterHeightMm: field.defaultLetterHeightMm } }, motifId: fox.content.personalisation.motifChoices[0]?.motifId ?? null };
+            return { ...req, headers: { ...json, cookie: String(ctx.cookie) }, body: JSON.stringify({ listingId: fox.id, quantity: 1, choices }) };
+          },
+          onResponse: (status, body, ctx) => {
+            if (status !== 201) return;
+            const cart = JSON.parse(body) as { shops?: Array<{ lines?: Array<{ id: string }> }> };
+            ctx.lineId = (cart.shops ?? []).flatMap((s) => s.lines ?? []).at(-1)?.id;
+          },
+        },
+        { method: 'POST', path: '/api/checkout', setupRequest: (req, ctx) => ({ ...req, headers: { ...json, cookie: String(ctx.cookie) }, body: '{}' }) },
+        {
+          method: 'DELETE',
+          path: '/api/cart/lines/x',
+          setupRequest: (req, ctx) => ({ ...req, path: `/api/cart/lines/${String(ctx.lineId ?? 'none')}`, headers: { origin: base, cookie: String(ctx.cookie) } }),
+        },
+      ]),
+    ]);
+    const seconds = (performance.now() - started) / 1000;
+
+    const line = (kind: string, ms: number[], byStatus: Map<number, number>, extra = 0) => {
+      const sorted = [...ms].sort((a, b) => a - b);
+      const errs = [...byStatus].filter(([s]) => s >= 400 || s === 0).map(([s, n]) => `${s}×${n}`);
+      if (extra) errs.push(`connection/timeouts×${extra}`);
+      console.log(
+        `  ${kind.padEnd(26)} ${String(ms.length).padStart(7)} req  ${(ms.length / seconds).toFixed(0).padStart(6)} req/s  p50 ${pct(sorted, 50).toFixed(1).padStart(6)} ms  p99 ${pct(sorted, 99).toFixed(1).padStart(7)} ms  errors: ${errs.length ? errs.join(', ') : '0'}`,
+      );
+    };
+    console.log(`\nresults over ${seconds.toFixed(1)} s (${os.cpus().length} CPUs, Node ${process.version}):`);
+    for (const s of all) line(s.kind, s.ms, s.byStatus);
+    const allMs = all.flatMap((s) => s.ms);
+    const allStatus = new Map<number, number>();
+    for (const s of all) for (const [k, v] of s.byStatus) allStatus.set(k, (allStatus.get(k) ?? 0) + v);
+    const socketErrors = results.reduce((n, { r }) => n + r.errors + r.timeouts, 0);
+    line('overall', allMs, allStatus, socketErrors);
+    const failed = [...allStatus].filter(([s]) => s >= 400).reduce((n, [, v]) => n + v, 0) + socketErrors;
+    console.log(`\nthroughput: ${(allMs.length / seconds).toFixed(0)} req/s; errors: ${failed} of ${allMs.length} (${((100 * failed) / Math.max(1, allMs.length)).toFixed(2)} %)`);
+    if (failed > 0) process.exitCode = 1;
+  } finally {
+    server.kill('SIGTERM');
+    await new Promise<void>((r) => (server.exitCode !== null ? r() : server.once('exit', () => r())));
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  }
+}
