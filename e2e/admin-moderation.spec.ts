@@ -82,8 +82,8 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
   // suspend the shop: its live listing leaves search at once
   await page.goto('/moderation');
   const allShops = page.getByRole('region', { name: 'All shops' });
-  await allShops.getByLabel('Find a shop').fill(seller.shop.name);
-  await allShops.getByLabel('Find a shop').press('Enter');
+  await allShops.getByRole('searchbox', { name: 'Find a shop' }).fill(seller.shop.name);
+  await allShops.getByRole('searchbox', { name: 'Find a shop' }).press('Enter');
   const known = allShops.getByRole('listitem', { name: `Shop ${seller.shop.name}` });
   await known.getByRole('button', { name: `Suspend shop ${seller.shop.name}` }).click();
   await known.getByLabel(`Why is ${seller.shop.name} suspended?`).fill('Listings copy another maker’s artwork; we are checking.');

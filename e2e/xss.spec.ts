@@ -150,6 +150,9 @@ test('payloads typed by sellers, shoppers and admins never run in another user\'
   }
 
   expect(seen.length).toBeGreaterThanOrEqual(18);
+
+  // tidy up: suspend the test shop so its listing leaves the public catalogue other specs browse
+  await apiPost(admin, `/api/moderation/shops/${shop.id}/suspend`, { reason: 'End of the XSS sweep.' });
 });
 
 /** The seller's page kept its session from sign-up; re-check it is still the seller. */
