@@ -184,7 +184,7 @@ export function cutSheetSvg(sheet: CutSheet, pieces: readonly CutSheetSvgPiece[]
     '<?xml version="1.0" encoding="UTF-8"?>',
     `<svg xmlns="http://www.w3.org/2000/svg" version="1.1" width="${W}mm" height="${H}mm" viewBox="0 0 ${W} ${H}">`,
     '<!-- Namesake cut sheet: mirrored for cutting; 1 user unit = 1 mm -->',
-    '<g fill="none" stroke="#000000" stroke-width="0.2">',
+    '<g fill="none" stroke="#000000" stroke-width="0.5">',
   ];
   for (const pl of sheet.placements) {
     const piece = byId.get(pl.pieceId);

@@ -18,6 +18,7 @@ import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
 import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
 import { CutSheetError, nestCutSheets, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM, type CutSheet, type NestPiece } from '../../../shared/engine/cut-sheets.ts';
+import { cutOutline } from '../../../shared/engine/cut-path.ts';
 import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
 import { pressCard, type PressType } from '../../../shared/engine/press-card.ts';
 import { MATERIAL_KINDS, type MaterialKind } from '../../../shared/engine/press-defaults.ts';
@@ -445,7 +446,8 @@ export function sheetSvg(db: Db, shopId: string, sheetId: string): { svg: string
   const m = repo.material(db, shopId, s.materialId);
   const cs = asCutSheet(s);
   const name = `cut-sheet-${(m ? `${m.colourName}-${m.kind}` : 'material').toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${s.id.slice(0, 8)}.svg`;
-  return { svg: cutSheetSvg(cs, cs.pieces), name };
+  // the blade follows each piece's outer outline, not the overlapping contours the font drew
+  return { svg: cutSheetSvg(cs, cs.pieces.map((p) => ({ ...p, path: cutOutline(p.path) }))), name };
 }
 
 /**
