@@ -5,20 +5,9 @@ import { setUnauthorizedHandler } from '../lib/api-client.ts';
 import { queryClient } from '../lib/query-client.ts';
 import { authKeys } from '../features/auth/api/keys.ts';
 import { AppLayout } from './layout/app-layout.tsx';
-import { ForgotPasswordPage } from './routes/auth/forgot-password.tsx';
-import { ResetPasswordPage } from './routes/auth/reset-password.tsx';
-import { SignInPage } from './routes/auth/sign-in.tsx';
-import { SignUpPage } from './routes/auth/sign-up.tsx';
-import { CartPage } from './routes/cart/cart.tsx';
 import { NotFoundPage } from './routes/errors/not-found.tsx';
 import { RouteErrorPage } from './routes/errors/route-error.tsx';
 import { HomePage } from './routes/home.tsx';
-import { MailPage } from './routes/moderation/mail.tsx';
-import { OrdersPage } from './routes/orders/orders.tsx';
-import { OrderPage } from './routes/orders/order.tsx';
-import { CheckoutReturnPage } from './routes/checkout/return.tsx';
-import { OpenShopPage } from './routes/shop/open-shop.tsx';
-import { WorkroomPage } from './routes/workroom/workroom.tsx';
 
 export const router = createBrowserRouter([
   {
@@ -30,24 +19,24 @@ export const router = createBrowserRouter([
       { path: paths.search.path, lazy: async () => ({ Component: (await import('./routes/catalog/search.tsx')).SearchPage }) },
       { path: paths.listing.path, lazy: async () => ({ Component: (await import('./routes/listing/listing.tsx')).ListingPage }) },
       { path: paths.shopPage.path, lazy: async () => ({ Component: (await import('./routes/shop-page/shop-page.tsx')).ShopPage }) },
-      { path: paths.cart.path, element: <CartPage /> },
-      { path: paths.auth.signIn.path, element: <SignInPage /> },
-      { path: paths.auth.signUp.path, element: <SignUpPage /> },
-      { path: paths.auth.forgotPassword.path, element: <ForgotPasswordPage /> },
-      { path: paths.auth.resetPassword.path, element: <ResetPasswordPage /> },
+      { path: paths.cart.path, lazy: async () => ({ Component: (await import('./routes/cart/cart.tsx')).CartPage }) },
+      { path: paths.auth.signIn.path, lazy: async () => ({ Component: (await import('./routes/auth/sign-in.tsx')).SignInPage }) },
+      { path: paths.auth.signUp.path, lazy: async () => ({ Component: (await import('./routes/auth/sign-up.tsx')).SignUpPage }) },
+      { path: paths.auth.forgotPassword.path, lazy: async () => ({ Component: (await import('./routes/auth/forgot-password.tsx')).ForgotPasswordPage }) },
+      { path: paths.auth.resetPassword.path, lazy: async () => ({ Component: (await import('./routes/auth/reset-password.tsx')).ResetPasswordPage }) },
       {
         element: <RequireAuth />,
         children: [
-          { path: paths.orders.path, element: <OrdersPage /> },
-          { path: paths.orderDetail.path, element: <OrderPage /> },
-          { path: paths.checkoutReturn.path, element: <CheckoutReturnPage /> },
-          { path: paths.openShop.path, element: <OpenShopPage /> },
+          { path: paths.orders.path, lazy: async () => ({ Component: (await import('./routes/orders/orders.tsx')).OrdersPage }) },
+          { path: paths.orderDetail.path, lazy: async () => ({ Component: (await import('./routes/orders/order.tsx')).OrderPage }) },
+          { path: paths.checkoutReturn.path, lazy: async () => ({ Component: (await import('./routes/checkout/return.tsx')).CheckoutReturnPage }) },
+          { path: paths.openShop.path, lazy: async () => ({ Component: (await import('./routes/shop/open-shop.tsx')).OpenShopPage }) },
         ],
       },
       {
         element: <RequireAuth roles={['seller']} />,
         children: [
-          { path: paths.workroom.path, element: <WorkroomPage /> },
+          { path: paths.workroom.path, lazy: async () => ({ Component: (await import('./routes/workroom/workroom.tsx')).WorkroomPage }) },
           // the production pages (proofs, cut sheets, press cards, stock) load on demand
           { path: paths.workroomOrder.path, lazy: async () => ({ Component: (await import('./routes/workroom/order.tsx')).WorkroomOrderPage }) },
           { path: paths.workroomProof.path, lazy: async () => ({ Component: (await import('./routes/workroom/proof.tsx')).ProofPage }) },
@@ -72,7 +61,7 @@ export const router = createBrowserRouter([
           { path: paths.moderation.desk.path, lazy: async () => ({ Component: (await import('./routes/moderation/desk.tsx')).ModerationDeskPage }) },
           { path: paths.moderation.reviewListing.path, lazy: async () => ({ Component: (await import('./routes/moderation/review-listing.tsx')).ReviewListingPage }) },
           { path: paths.moderation.audit.path, lazy: async () => ({ Component: (await import('./routes/moderation/audit.tsx')).AuditLogPage }) },
-          { path: paths.moderation.mail.path, element: <MailPage /> },
+          { path: paths.moderation.mail.path, lazy: async () => ({ Component: (await import('./routes/moderation/mail.tsx')).MailPage }) },
         ],
       },
       { path: '*', element: <NotFoundPage /> },

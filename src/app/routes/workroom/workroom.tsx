@@ -34,7 +34,9 @@ export function WorkroomPage() {
         </div>
       ) : null}
       <nav aria-label="Your shop" className="mb-8 flex flex-wrap gap-3">
-        <ButtonLink to={paths.seller.listings.getHref()}>Listings</ButtonLink>
+        <ButtonLink to={paths.seller.listings.getHref()} variant="secondary">
+          Listings
+        </ButtonLink>
         <ButtonLink to={paths.seller.materials.getHref()} variant="secondary">
           Materials
         </ButtonLink>
