@@ -127,7 +127,7 @@ export async function run(): Promise<void> {
         }
         const co = await c('/api/checkout', { body: {} });
         if (co.status !== 201) throw new Error(`checkout: ${co.status} ${JSON.stringify(co.body)}`);
-        const pay = await fetch(co.body.url, { method: 'POST', body: new URLSearchParams({ card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
+        const pay = await fetch(co.body.url, { method: 'POST', body: new URLSearchParams({ ship_name: 'Dana Field', ship_line1: '12 Acorn Lane', ship_city: 'Harbourtown', ship_postal_code: 'HT1 2AB', ship_country: 'GB', card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
         if (pay.status !== 303) throw new Error(`pay: ${pay.status}`);
         for (;;) {
           const s = await c(`/api/checkout/${co.body.sessionId}/status?wait=10000`);

@@ -6,7 +6,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import type { Page } from '@playwright/test';
 import { demo, expect, signIn, test } from './fixtures.ts';
-import { addToCartApi, apiGet, FOX_TOTE, payCartApi, ROCKET_TEE, signUpApi, uniqueEmail } from './api-helpers.ts';
+import { addToCartApi, apiGet, fillShipTo, FOX_TOTE, payCartApi, ROCKET_TEE, signUpApi, uniqueEmail } from './api-helpers.ts';
 
 test.describe.configure({ timeout: 180_000 });
 
@@ -75,6 +75,7 @@ test('shopper pages, the payment page and the checkout return have no serious or
   await page.getByRole('button', { name: /^Pay / }).click();
   await expect(page.getByLabel('Card number')).toBeVisible();
   f.push(...(await audit(page, 'payment page (Stripe fake)', null)));
+  await fillShipTo(page, 'Priya Shah');
   await page.getByLabel('Card number').fill('4000 0000 0000 0002'); // declined test card
   await page.getByLabel('Expiry date (MM/YY)').fill('12/34');
   await page.getByLabel('Security code (CVC)').fill('123');

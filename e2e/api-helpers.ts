@@ -75,7 +75,16 @@ export async function addToCartApi(page: Page, slug: string, name: string): Prom
 export async function payCartApi(page: Page): Promise<{ sessionId: string; checkoutId: string }> {
   const co = await apiPost(page, '/api/checkout', {});
   const pay = await page.request.post(co.url, {
-    form: { card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' },
+    form: {
+      ship_name: 'Dana Field',
+      ship_line1: '12 Acorn Lane',
+      ship_city: 'Harbourtown',
+      ship_postal_code: 'HT1 2AB',
+      ship_country: 'GB',
+      card_number: '4242 4242 4242 4242',
+      card_expiry: '12/34',
+      card_cvc: '123',
+    },
     maxRedirects: 0,
   });
   expect(pay.status(), 'the payment page accepts the test card').toBe(303);
@@ -84,4 +93,13 @@ export async function payCartApi(page: Page): Promise<{ sessionId: string; check
     if (s.state === 'paid') return { sessionId: co.sessionId, checkoutId: co.checkoutId };
   }
   throw new Error('the checkout never became paid');
+}
+
+/** Fills the parcel address on the fake's hosted payment page (invented, per PRODUCT.md's scenario). */
+export async function fillShipTo(page: Page, name = 'Dana Field'): Promise<void> {
+  await page.getByLabel('Full name').fill(name);
+  await page.getByLabel('Address line 1').fill('12 Acorn Lane');
+  await page.getByLabel('Town or city').fill('Harbourtown');
+  await page.getByLabel('Postal code').fill('HT1 2AB');
+  await page.getByLabel('Country').selectOption('GB');
 }

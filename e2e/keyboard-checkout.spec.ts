@@ -73,6 +73,16 @@ test('a shopper personalises, adds to cart and pays using only the keyboard', as
   // the payment page: type the card with the keyboard, Enter on Pay
   const card = page.getByLabel('Card number');
   await expect(card).toBeVisible();
+  // the parcel address first, field by field (invented, per PRODUCT.md's scenario)
+  for (const [label, value] of [['Full name', 'Anouk Field'], ['Address line 1', '12 Acorn Lane'], ['Town or city', 'Harbourtown'], ['Postal code', 'HT1 2AB']] as const) {
+    await tabTo(page, page.getByLabel(label));
+    await page.keyboard.type(value);
+  }
+  const country = page.getByLabel('Country');
+  await tabTo(page, country);
+  // a focused select picks the option whose name starts with what is typed
+  await page.keyboard.type('United Kingdom');
+  await expect(country).toHaveValue('GB');
   await tabTo(page, card);
   await page.keyboard.type('4242 4242 4242 4242');
   await tabTo(page, page.getByLabel('Expiry date (MM/YY)'));

@@ -5,7 +5,7 @@
 // and the controls we tap must be at least 24 × 24 px (2.5.8).
 import type { Locator, Page } from '@playwright/test';
 import { expect, test, waitForMail } from './fixtures.ts';
-import { testClientAddress, uniqueEmail } from './api-helpers.ts';
+import { fillShipTo, testClientAddress, uniqueEmail } from './api-helpers.ts';
 
 // this parent's own client address: sign-up is rate-limited per address (see api-helpers.ts)
 test.use({ viewport: { width: 375, height: 740 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, extraHTTPHeaders: { 'x-forwarded-for': testClientAddress() } });
@@ -87,6 +87,7 @@ test('on a phone, a parent builds a two-shop cart, signs up at checkout, pays an
   // the payment page at phone width
   await expect(page.getByLabel('Card number')).toBeVisible();
   await expectNoSideScroll(page, 'payment page');
+  await fillShipTo(page);
   await page.getByLabel('Card number').fill('4242 4242 4242 4242');
   await page.getByLabel('Expiry date (MM/YY)').fill('12/34');
   await page.getByLabel('Security code (CVC)').fill('123');

@@ -3,6 +3,7 @@
 // add to cart with an item from a second shop, pay with the test card 4242 on the payment page,
 // land on the confirmation, read the e-mail from the mail fake's store, then follow the order.
 import { demo, expect, signIn, test, waitForMail } from './fixtures.ts';
+import { fillShipTo } from './api-helpers.ts';
 
 test('a parent orders a named tote and a tee from two shops and pays once', async ({ page }) => {
   const since = Date.now();
@@ -47,6 +48,7 @@ test('a parent orders a named tote and a tee from two shops and pays once', asyn
   // the payment page (the Stripe fake's hosted page)
   await expect(page.getByRole('button', { name: /^Pay / })).toBeVisible();
   await expect(page.getByRole('button', { name: /^Pay / })).toContainText(total.replace('$', ''));
+  await fillShipTo(page);
   await page.getByLabel('Card number').fill('4242 4242 4242 4242');
   await page.getByLabel('Expiry date (MM/YY)').fill('12/34');
   await page.getByLabel('Security code (CVC)').fill('123');
@@ -72,4 +74,7 @@ test('a parent orders a named tote and a tee from two shops and pays once', asyn
   await page.goto('/orders');
   await page.getByRole('link', { name: new RegExp(numbers[0]!) }).click();
   await expect(page.getByText('Waiting for the proof check').first()).toBeVisible();
+  // the address typed on the payment page is where the parcel goes
+  await expect(page.getByTestId('ship-to')).toContainText('12 Acorn Lane');
+  await expect(page.getByTestId('ship-to')).toContainText('HT1 2AB');
 });

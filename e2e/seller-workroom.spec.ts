@@ -5,6 +5,7 @@
 // enters the tracking number, and the shopper's shipped e-mail is read from the mail fake's store.
 import type { Browser, Page } from '@playwright/test';
 import { demo, expect, signIn, test, waitForMail } from './fixtures.ts';
+import { fillShipTo } from './api-helpers.ts';
 
 const PASSWORD = 'workroom-journey-9';
 
@@ -30,6 +31,7 @@ async function buyFoxTote(page: Page, name: string): Promise<string> {
   await page.goto('/cart');
   const total = (await page.getByTestId('cart-total').textContent())!;
   await page.getByRole('button', { name: `Pay ${total}` }).click();
+  await fillShipTo(page);
   await page.getByLabel('Card number').fill('4242 4242 4242 4242');
   await page.getByLabel('Expiry date (MM/YY)').fill('12/34');
   await page.getByLabel('Security code (CVC)').fill('123');

@@ -9,6 +9,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from '@playwright/test';
 import sharp from 'sharp';
+import { fillShipTo } from '../e2e/api-helpers.ts';
 
 const root = path.resolve(import.meta.dirname, '..');
 const outDir = path.join(root, 'public/screenshots');
@@ -109,6 +110,7 @@ async function main(): Promise<void> {
     await save(dana, 'cart');
     await dana.getByRole('button', { name: /^Pay / }).click();
     await dana.getByLabel('Card number').waitFor();
+    await fillShipTo(dana, 'Dana Whitlock');
     await dana.getByLabel('Card number').fill('4242 4242 4242 4242');
     await save(dana, 'payment-page');
     await dana.goto('/orders');

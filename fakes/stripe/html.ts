@@ -43,11 +43,14 @@ ul.items li { display: flex; justify-content: space-between; gap: 1rem; border-b
 label { display: block; font-weight: 600; margin: .75rem 0 .25rem; }
 .hint { font-size: .875rem; margin: 0 0 .25rem; }
 input { width: 100%; font: inherit; color: #1f2a44; padding: .6rem .7rem; border: 2px solid #6b6f7d; border-radius: 8px; background: #fff; min-height: 44px; }
-input[aria-invalid="true"] { border-color: #a3261b; }
+input[aria-invalid="true"], select[aria-invalid="true"] { border-color: #a3261b; }
+select { width: 100%; font: inherit; color: #1f2a44; padding: .6rem .7rem; border: 2px solid #6b6f7d; border-radius: 8px; background: #fff; min-height: 44px; }
+fieldset { border: 1px solid #d9cfbf; border-radius: 8px; margin: 1rem 0 0; padding: .25rem 1rem 1rem; }
+legend { font-weight: 700; padding: 0 .25rem; }
 .row { display: flex; gap: 1rem; } .row > div { flex: 1; }
 button { font: inherit; font-weight: 700; background: #e0a526; color: #1f2a44; border: 2px solid #1f2a44; border-radius: 8px; padding: .7rem 1.2rem; min-height: 44px; min-width: 44px; cursor: pointer; margin-top: 1.25rem; }
 button.secondary { background: #fffdf9; }
-button:focus-visible, input:focus-visible, a:focus-visible { outline: 3px solid #1f2a44; outline-offset: 2px; }
+button:focus-visible, input:focus-visible, select:focus-visible, a:focus-visible { outline: 3px solid #1f2a44; outline-offset: 2px; }
 .error { border: 2px solid #a3261b; background: #fdeceb; color: #5c130d; padding: .75rem; border-radius: 8px; margin: 1rem 0; }
 .field-error { color: #8a1f16; font-size: .875rem; margin: .25rem 0 0; }
 a { color: #1f2a44; }
@@ -89,10 +92,15 @@ export interface PayPageInput {
   items: PageItem[];
   email: string | null;
   cancelUrl: string | null;
+  /** Set when the session has `shipping_address_collection`: the page then asks for the address too. */
+  shippingCountries?: string[] | null;
   error?: string | null;
-  fieldErrors?: Partial<Record<'card_number' | 'card_expiry' | 'card_cvc', string>>;
-  values?: { card_number?: string; card_expiry?: string };
+  fieldErrors?: Partial<Record<CardField | ShippingField, string>>;
+  values?: { card_number?: string; card_expiry?: string } & Partial<Record<ShippingField, string>>;
 }
+
+type CardField = 'card_number' | 'card_expiry' | 'card_cvc';
+export type ShippingField = 'ship_name' | 'ship_line1' | 'ship_line2' | 'ship_city' | 'ship_postal_code' | 'ship_state' | 'ship_country';
 
 function amountBlock(amount: number, currency: string, items: PageItem[]): string {
   const list = items
@@ -108,7 +116,7 @@ function cancelLink(url: string | null, text = 'Back to the shop'): string {
 }
 
 function field(
-  name: 'card_number' | 'card_expiry' | 'card_cvc',
+  name: CardField,
   label: string,
   hint: string,
   autocomplete: string,
@@ -126,6 +134,58 @@ function field(
 ${err ? `<p class="field-error" id="${errId}">${esc(err)}</p>` : ''}`;
 }
 
+function describe(name: ShippingField, hint: string | null, input: PayPageInput): { attrs: string; after: string; before: string } {
+  const err = input.fieldErrors?.[name];
+  const ids = [hint ? `${name}-hint` : null, err ? `${name}-error` : null].filter(Boolean).join(' ');
+  return {
+    before: hint ? `<p class="hint" id="${name}-hint">${esc(hint)}</p>` : '',
+    attrs: `${ids ? ` aria-describedby="${ids}"` : ''}${err ? ' aria-invalid="true"' : ''}`,
+    after: err ? `<p class="field-error" id="${name}-error">${esc(err)}</p>` : '',
+  };
+}
+
+function textField(name: ShippingField, label: string, autocomplete: string, required: boolean, input: PayPageInput, hint: string | null = null): string {
+  const d = describe(name, hint, input);
+  return `<label for="${name}">${esc(label)}</label>
+${d.before}<input id="${name}" name="${name}" autocomplete="${autocomplete}"${required ? ' required' : ''} value="${esc(input.values?.[name] ?? '')}"${d.attrs}>
+${d.after}`;
+}
+
+function countryName(code: string): string {
+  try {
+    return new Intl.DisplayNames(['en'], { type: 'region' }).of(code) ?? code;
+  } catch {
+    return code;
+  }
+}
+
+function shippingBlock(countries: string[], input: PayPageInput): string {
+  const chosen = input.values?.ship_country ?? (countries.length === 1 ? countries[0] : '');
+  const options = countries
+    .map((c) => ({ c, name: countryName(c) }))
+    .sort((a, b) => a.name.localeCompare(b.name, 'en'))
+    .map(({ c, name }) => `<option value="${esc(c)}"${c === chosen ? ' selected' : ''}>${esc(name)}</option>`)
+    .join('');
+  const d = describe('ship_country', null, input);
+  return `<fieldset>
+<legend>Where should the parcel go?</legend>
+${textField('ship_name', 'Full name', 'shipping name', true, input)}
+${textField('ship_line1', 'Address line 1', 'shipping address-line1', true, input, 'House number and street')}
+${textField('ship_line2', 'Address line 2 (optional)', 'shipping address-line2', false, input, 'Flat, unit or building')}
+${textField('ship_city', 'Town or city', 'shipping address-level2', true, input)}
+<div class="row">
+<div>${textField('ship_postal_code', 'Postal code', 'shipping postal-code', true, input)}</div>
+<div>${textField('ship_state', 'State or county (optional)', 'shipping address-level1', false, input)}</div>
+</div>
+<label for="ship_country">Country</label>
+<select id="ship_country" name="ship_country" autocomplete="shipping country" required${d.attrs}>
+<option value=""${chosen ? '' : ' selected'}>Choose a country</option>
+${options}
+</select>
+${d.after}
+</fieldset>`;
+}
+
 export function payPage(input: PayPageInput): string {
   const items = input.items;
   const error = input.error
@@ -137,6 +197,7 @@ export function payPage(input: PayPageInput): string {
 ${input.email ? `<p>Receipt to ${esc(input.email)}</p>` : ''}
 ${error}
 <form method="post" action="${esc(input.action)}" novalidate>
+${input.shippingCountries?.length ? shippingBlock(input.shippingCountries, input) : ''}
 ${field('card_number', 'Card number', '16 digits, as printed on the card', 'cc-number', input, input.values?.card_number ?? '')}
 <div class="row">
 <div>${field('card_expiry', 'Expiry date (MM/YY)', 'For example 12/34', 'cc-exp', input, input.values?.card_expiry ?? '')}</div>

@@ -78,6 +78,13 @@ interface SessionExtra {
   pi_description: string | null;
   api_version: string;
   pending_auth: PendingCard | null;
+  /** The address typed with the card, held while a card asks for the extra confirmation step. */
+  pending_shipping?: ShippingDetails | null;
+}
+
+interface ShippingDetails {
+  name: string;
+  address: { line1: string; line2: string | null; city: string; postal_code: string; state: string | null; country: string };
 }
 
 interface DeliveryAttempt {
@@ -262,6 +269,15 @@ const sessionCreateSchema = z.object({
     .optional(),
   expires_at: intStr.transform(Number).optional(),
   locale: z.string().optional(),
+  // Stripe API docs, Checkout Session create: `shipping_address_collection[allowed_countries][]`.
+  shipping_address_collection: z
+    .object({
+      allowed_countries: z
+        .array(z.string().regex(/^[A-Z]{2}$/, 'expected two-letter ISO 3166-1 country codes in capitals'))
+        .min(1)
+        .max(250),
+    })
+    .optional(),
   expand: expandList,
 });
 
@@ -320,6 +336,52 @@ const cardFormSchema = z.object({
   card_expiry: z.string().max(20).default(''),
   card_cvc: z.string().max(10).default(''),
 });
+const shippingFormSchema = z.object({
+  ship_name: z.string().max(200).default(''),
+  ship_line1: z.string().max(200).default(''),
+  ship_line2: z.string().max(200).default(''),
+  ship_city: z.string().max(200).default(''),
+  ship_postal_code: z.string().max(40).default(''),
+  ship_state: z.string().max(200).default(''),
+  ship_country: z.string().max(10).default(''),
+});
+type ShippingForm = z.output<typeof shippingFormSchema>;
+type ShippingField = keyof ShippingForm;
+
+/** Checks the address typed on the payment page; every message says what to type. */
+function checkShipping(raw: Record<string, unknown>, allowed: string[]): { values: ShippingForm; errors: Partial<Record<ShippingField, string>>; details: ShippingDetails | null } {
+  const r = shippingFormSchema.safeParse(raw);
+  const values: ShippingForm = r.success
+    ? r.data
+    : { ship_name: '', ship_line1: '', ship_line2: '', ship_city: '', ship_postal_code: '', ship_state: '', ship_country: '' };
+  const t = (v: string) => v.trim().replace(/\s+/g, ' ');
+  const errors: Partial<Record<ShippingField, string>> = {};
+  if (!t(values.ship_name)) errors.ship_name = 'Enter the name of the person the parcel is for.';
+  if (!t(values.ship_line1)) errors.ship_line1 = 'Enter the first line of the address, for example the house number and street.';
+  if (!t(values.ship_city)) errors.ship_city = 'Enter the town or city.';
+  if (!t(values.ship_postal_code)) errors.ship_postal_code = 'Enter the postal code.';
+  else if (!/^[A-Za-z0-9][A-Za-z0-9 -]{1,11}$/.test(t(values.ship_postal_code))) errors.ship_postal_code = 'Enter the postal code using letters, digits, spaces or hyphens.';
+  const country = t(values.ship_country).toUpperCase();
+  if (!country) errors.ship_country = 'Choose the country the parcel goes to.';
+  else if (!allowed.includes(country)) errors.ship_country = 'We can only send parcels to the countries in the list. Choose one of them.';
+  if (Object.keys(errors).length > 0) return { values, errors, details: null };
+  return {
+    values,
+    errors,
+    details: {
+      name: t(values.ship_name),
+      address: {
+        line1: t(values.ship_line1),
+        line2: t(values.ship_line2) || null,
+        city: t(values.ship_city),
+        postal_code: t(values.ship_postal_code).toUpperCase(),
+        state: t(values.ship_state) || null,
+        country,
+      },
+    },
+  };
+}
+
 const authFormSchema = z.object({ result: z.enum(['complete', 'fail']) });
 
 function getAt(raw: unknown, p: PropertyKey[]): unknown {
@@ -692,7 +754,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
     return ch;
   }
 
-  function succeed(s: Obj, card: PendingCard): void {
+  function succeed(s: Obj, card: PendingCard, shipping: ShippingDetails | null): void {
     const pi = ensurePaymentIntent(s);
     pi.payment_method = newId('pm_');
     const ch = makeCharge(s, pi, card, null);
@@ -701,10 +763,16 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
       status: 'complete',
       payment_status: 'paid',
       url: null,
-      customer_details: { email: s.customer_email, name: null, address: null, phone: null, tax_exempt: 'none', tax_ids: [] },
+      customer_details: { email: s.customer_email, name: shipping?.name ?? null, address: null, phone: null, tax_exempt: 'none', tax_ids: [] },
     });
+    if (shipping) {
+      // Newer API versions put it under collected_information; older ones read `shipping_details`.
+      s.collected_information = { shipping_details: clone(shipping) };
+      s.shipping_details = clone(shipping);
+    }
     const extra = state.session_extra[s.id]!;
     extra.pending_auth = null;
+    extra.pending_shipping = null;
     emit('checkout.session.completed', s, { apiVersion: extra.api_version });
   }
 
@@ -723,6 +791,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
       last_payment_error: { ...failure, charge: chargeId, payment_method: { id: pi.payment_method, object: 'payment_method', type: 'card' } },
     });
     state.session_extra[s.id]!.pending_auth = null;
+    state.session_extra[s.id]!.pending_shipping = null;
   }
 
   function refundableCharge(pi: Obj | undefined, chargeId: string | undefined): Obj {
@@ -816,6 +885,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
       amount_total: total,
       cancel_url: p.cancel_url ?? null,
       client_reference_id: p.client_reference_id ?? null,
+      collected_information: null,
       created,
       currency: cur,
       customer: null,
@@ -829,6 +899,8 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
       payment_intent: null,
       payment_method_types: ['card'],
       payment_status: 'unpaid',
+      shipping_address_collection: p.shipping_address_collection ? { allowed_countries: [...new Set(p.shipping_address_collection.allowed_countries)] } : null,
+      shipping_details: null,
       status: 'open',
       success_url: p.success_url,
       total_details: { amount_discount: 0, amount_shipping: 0, amount_tax: 0 },
@@ -1192,6 +1264,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
         items: pageItems(s),
         email: s.customer_email,
         cancelUrl: s.cancel_url,
+        shippingCountries: s.shipping_address_collection?.allowed_countries ?? null,
         ...extra,
       }),
     );
@@ -1241,7 +1314,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
       const r = authFormSchema.safeParse(form);
       if (!extra.pending_auth || !r.success) return redirect(res, `/pay/${s.id}`);
       if (r.data.result === 'complete') {
-        succeed(s, extra.pending_auth);
+        succeed(s, extra.pending_auth, extra.pending_shipping ?? null);
         await persist();
         return redirect(res, successUrl(s));
       }
@@ -1256,7 +1329,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
 
     const f = cardFormSchema.safeParse(form);
     const values = f.success ? f.data : { card_number: '', card_expiry: '', card_cvc: '' };
-    const fieldErrors: Partial<Record<'card_number' | 'card_expiry' | 'card_cvc', string>> = {};
+    const fieldErrors: NonNullable<Parameters<typeof payPage>[0]['fieldErrors']> = {};
     const number = values.card_number.replace(/[\s-]/g, '');
     if (!/^\d{12,19}$/.test(number)) fieldErrors.card_number = 'Enter the card number: 16 digits, spaces allowed.';
     else if (!luhn(number)) fieldErrors.card_number = "That card number isn't valid. Check the digits and try again.";
@@ -1271,17 +1344,21 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
     if (!exp || expMonth < 1 || expMonth > 12) fieldErrors.card_expiry = 'Enter the expiry date as MM/YY, for example 12/34.';
     else if (expYear * 12 + expMonth < today.getUTCFullYear() * 12 + today.getUTCMonth() + 1) fieldErrors.card_expiry = 'This card has expired. Enter a month and year that have not passed.';
     if (!/^\d{3,4}$/.test(values.card_cvc.trim())) fieldErrors.card_cvc = 'Enter the 3 or 4 digits of the security code.';
+    const allowed: string[] | null = s.shipping_address_collection?.allowed_countries ?? null;
+    const ship = allowed ? checkShipping(form, allowed) : null;
+    if (ship) Object.assign(fieldErrors, ship.errors);
     if (Object.keys(fieldErrors).length > 0) {
       return renderPay(res, s, 400, {
-        error: 'Please correct the card details marked below.',
+        error: ship && Object.keys(ship.errors).length > 0 ? 'Please correct the details marked below.' : 'Please correct the card details marked below.',
         fieldErrors,
-        values: { card_number: values.card_number, card_expiry: values.card_expiry },
+        values: { card_number: values.card_number, card_expiry: values.card_expiry, ...(ship ? ship.values : {}) },
       });
     }
+    const shipping = ship?.details ?? null;
     const card: PendingCard = { last4: number.slice(-4), exp_month: expMonth, exp_year: expYear, brand: brandOf(number) };
     const behaviour = TEST_CARDS[number];
     if (behaviour === 'succeed') {
-      succeed(s, card);
+      succeed(s, card, shipping);
       await persist();
       return redirect(res, successUrl(s));
     }
@@ -1289,6 +1366,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
       const pi = ensurePaymentIntent(s);
       Object.assign(pi, { status: 'requires_action', payment_method: newId('pm_'), next_action: { type: 'use_stripe_sdk', use_stripe_sdk: {} }, last_payment_error: null });
       extra.pending_auth = card;
+      extra.pending_shipping = shipping;
       await persist();
       return sendHtml(res, 200, authPage({ action: `/pay/${s.id}/authenticate`, amount: s.amount_total, currency: s.currency, cancelUrl: s.cancel_url }));
     }

@@ -11,10 +11,13 @@ import { checkouts, lineEvents, listings, materials, motifs, orderLines, orders,
 import type { SeedContext } from './seed.ts';
 import { getFontRegistry } from '../integrations/fonts.ts';
 import { buildSnapshot, readLiveContent, type MaterialInfo, type MotifInfo } from '../features/cart/design.ts';
+import type { ShipTo } from '../../shared/schemas/checkout.ts';
 import { createOrdersForCheckout, type PricedShop } from '../features/orders/orders.service.ts';
 import type { MotifGeometry } from '../../shared/engine/motif.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
 import { choicesSchema } from '../../shared/schemas/listing.ts';
+
+const DEMO_SHIP_TO: ShipTo = { name: 'Dana Whitlock', line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' };
 
 const DAY = 86_400_000;
 
@@ -112,7 +115,8 @@ export async function seedOrders(deps: AppDeps, ctx: SeedContext): Promise<void>
       const [order] = createOrdersForCheckout(t, { checkoutId, buyerId, currency: 'USD', shops: [shop], paidAt, feeBps: deps.env.PLATFORM_FEE_BPS, paymentIntentId: `pi_demo_${ref}` });
       // the settlement that follows a real payment: fee and transfer rows, the transfer id on the order
       const transferId = `tr_demo_${ref}`;
-      t.update(orders).set({ transferId }).where(eq(orders.id, order!.id)).run();
+      // an invented address in the demo scenario, so packing slips and the order pages show one
+      t.update(orders).set({ transferId, shipTo: DEMO_SHIP_TO }).where(eq(orders.id, order!.id)).run();
       t.insert(ledger).values([
         { id: crypto.randomUUID(), shopId, orderId: order!.id, kind: 'platform_fee', amountMinor: order!.platformFeeMinor, currency: 'USD', providerRef: `ch_demo_${ref}`, memo: `fee ${deps.env.PLATFORM_FEE_BPS} bps`, createdAt: paidAt + 1000 },
         { id: crypto.randomUUID(), shopId, orderId: order!.id, kind: 'transfer', amountMinor: order!.totalMinor - order!.platformFeeMinor, currency: 'USD', providerRef: transferId, memo: 'payout to the shop', createdAt: paidAt + 1000 },

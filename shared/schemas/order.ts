@@ -1,6 +1,7 @@
 /** Orders as shoppers see them, and refunds. */
 import { z } from 'zod';
 import type { LineSnapshot } from './cart.ts';
+import type { ShipTo } from './checkout.ts';
 
 export const LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped', 'cancelled', 'refunded'] as const;
 export type LineState = (typeof LINE_STATES)[number];
@@ -61,6 +62,8 @@ export type OrderDetail = OrderSummary & {
   refundedMinor: number;
   carrier: string | null;
   trackingNumber: string | null;
+  /** where the parcel goes, as typed on the payment page; null for orders paid before we asked */
+  shipTo: ShipTo | null;
   lines: OrderLine[];
 };
 

@@ -6,6 +6,7 @@ import { z } from 'zod';
 import { LINE_STATES, type LineState } from './order.ts';
 import { choicesSchema } from './listing.ts';
 import type { LineSnapshot } from './cart.ts';
+import type { ShipTo } from './checkout.ts';
 import type { PressCard } from '../engine/press-card.ts';
 
 export { LINE_STATES, type LineState };
@@ -105,6 +106,8 @@ export type WorkOrder = {
   carrier: string | null;
   trackingNumber: string | null;
   shippedAt: number | null;
+  /** where to post the parcel; null for orders paid before the payment page asked */
+  shipTo: ShipTo | null;
   lines: WorkLine[];
   timeline: TimelineEvent[];
 };

@@ -150,6 +150,7 @@ describe('checkout sessions and the hosted page', () => {
       expect(html).toMatch(new RegExp(`<label for="${id}">`));
       expect(html).toMatch(new RegExp(`<input id="${id}" name="${id}"`));
     }
+    expect(html).not.toContain('id="ship_name"'); // no shipping_address_collection, no address fields
     expect(html).toMatch(/background: #fbf7f0/);
     expect(html).toMatch(/color: #1f2a44/);
     expect(html).toMatch(/background: #e0a526/);
@@ -294,6 +295,66 @@ describe('checkout sessions and the hosted page', () => {
     expect((await stripe.checkout.sessions.retrieve(s.id)).payment_intent).toBeNull();
     const past = await pay(s.url!, '4242424242424242', '01/20');
     expect(await past.text()).toContain('This card has expired');
+  });
+
+  // Stripe API docs, Checkout Session: `shipping_address_collection.allowed_countries` makes the hosted
+  // page ask for an address; the result is `collected_information.shipping_details` (`shipping_details` in older versions).
+  it('when shipping_address_collection is set, then the page asks for the address, checks it and stores it on the session', async () => {
+    const { stripe } = await fake();
+    const s = await stripe.checkout.sessions.create(sessionParams({ shipping_address_collection: { allowed_countries: ['GB', 'US'] } }));
+    expect(s.shipping_address_collection?.allowed_countries).toEqual(['GB', 'US']);
+    const page = await (await fetch(s.url!)).text();
+    for (const id of ['ship_name', 'ship_line1', 'ship_line2', 'ship_city', 'ship_postal_code', 'ship_state', 'ship_country']) expect(page).toContain(`id="${id}"`);
+    expect(page).toContain('<option value="GB">United Kingdom</option>');
+    expect(page).not.toContain('<option value="FR">');
+
+    const card = { card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' };
+    const post = (form: Record<string, string>) => fetch(s.url!, { method: 'POST', body: new URLSearchParams(form), redirect: 'manual' });
+    // no address at all: each required field is marked, the optional ones are not, and nothing is charged
+    const bare = await post(card);
+    const bareHtml = await bare.text();
+    expect(bare.status).toBe(400);
+    expect(bareHtml).toContain('Enter the name of the person the parcel is for.');
+    expect(bareHtml).toContain('Enter the first line of the address');
+    expect(bareHtml).toContain('Enter the town or city.');
+    expect(bareHtml).toContain('Enter the postal code.');
+    expect(bareHtml).toContain('Choose the country the parcel goes to.');
+    expect(bareHtml).not.toContain('id="ship_line2-error"');
+    expect(bareHtml).not.toContain('id="ship_state-error"');
+    // a country outside the list is refused, and what was typed comes back in the fields
+    const address = { ship_name: 'Dana Field', ship_line1: '12 Acorn Lane', ship_line2: '', ship_city: 'Harbourtown', ship_postal_code: 'ht1 2ab', ship_state: '' };
+    const wrong = await post({ ...card, ...address, ship_country: 'FR' });
+    const wrongHtml = await wrong.text();
+    expect(wrong.status).toBe(400);
+    expect(wrongHtml).toContain('We can only send parcels to the countries in the list.');
+    expect(wrongHtml).toContain('value="12 Acorn Lane"');
+    expect((await stripe.checkout.sessions.retrieve(s.id)).payment_intent).toBeNull();
+
+    const ok = await post({ ...card, ...address, ship_country: 'GB' });
+    expect(ok.status).toBe(303);
+    const done = await stripe.checkout.sessions.retrieve(s.id);
+    const expected = { name: 'Dana Field', address: { line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postal_code: 'HT1 2AB', state: null, country: 'GB' } };
+    expect(done.status).toBe('complete');
+    expect(done.collected_information?.shipping_details).toEqual(expected);
+    expect((done as unknown as { shipping_details: unknown }).shipping_details).toEqual(expected);
+  });
+
+  it('when a card needs the extra confirmation, then the address typed with it is kept until the payment completes', async () => {
+    const { stripe } = await fake();
+    const s = await stripe.checkout.sessions.create(sessionParams({ shipping_address_collection: { allowed_countries: ['US'] } }));
+    const form = { ship_name: 'Priya Lane', ship_line1: '7 Lantern Row', ship_line2: 'Unit 2', ship_city: 'Springfield', ship_postal_code: '12345', ship_state: 'OR', ship_country: 'US', card_number: '4000 0027 6000 3184', card_expiry: '12/34', card_cvc: '123' };
+    expect((await fetch(s.url!, { method: 'POST', body: new URLSearchParams(form), redirect: 'manual' })).status).toBe(200);
+    expect((await fetch(`${s.url}/authenticate`, { method: 'POST', body: new URLSearchParams({ result: 'complete' }), redirect: 'manual' })).status).toBe(303);
+    const done = await stripe.checkout.sessions.retrieve(s.id);
+    expect(done.collected_information?.shipping_details?.address).toEqual({ line1: '7 Lantern Row', line2: 'Unit 2', city: 'Springfield', postal_code: '12345', state: 'OR', country: 'US' });
+  });
+
+  it('when shipping_address_collection names a country badly, then the API answers 400 naming the parameter', async () => {
+    const { stripe } = await fake();
+    await expect(stripe.checkout.sessions.create(sessionParams({ shipping_address_collection: { allowed_countries: ['gbr' as 'GB'] } }))).rejects.toMatchObject({
+      statusCode: 400,
+      param: 'shipping_address_collection[allowed_countries][0]',
+    });
   });
 
   it('when a session is expired through the API, then the page refuses payment and the session cannot be expired twice', async () => {

@@ -111,9 +111,20 @@ export const nameChoices = (name: string, colour?: string): ChoicesInput => ({
   ...(colour ? { textColours: { name: colour } } : {}),
 });
 
-/** Pays on the fake's hosted page the way the browser's form does. */
+/** The parcel address typed on the payment page (invented; see PRODUCT.md's demo scenario). */
+export const SHIP_FORM = {
+  ship_name: 'Dana Field',
+  ship_line1: '12 Acorn Lane',
+  ship_line2: 'Flat 3',
+  ship_city: 'Harbourtown',
+  ship_postal_code: 'HT1 2AB',
+  ship_state: '',
+  ship_country: 'GB',
+} as const;
+
+/** Pays on the fake's hosted page the way the browser's form does, address included. */
 export function payOnPage(url: string, card: string) {
-  return fetch(url, { method: 'POST', body: new URLSearchParams({ card_number: card, card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
+  return fetch(url, { method: 'POST', body: new URLSearchParams({ ...SHIP_FORM, card_number: card, card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
 }
 
 export async function waitFor<T>(fn: () => T | undefined | null | false | Promise<T | undefined | null | false>, ms = 10_000): Promise<T> {

@@ -46,6 +46,10 @@ describe('checkout across two shops', () => {
     const checkout = w.db.select().from(checkouts).where(eq(checkouts.id, started.body.checkoutId)).get()!;
     const os = w.db.select().from(orders).where(eq(orders.checkoutId, checkout.id)).all();
     expect(os).toHaveLength(2);
+    // both parcels go to the address typed on the payment page (SHIP_FORM); empty optional fields are null
+    for (const o of os) {
+      expect(o.shipTo).toEqual({ name: 'Dana Field', line1: '12 Acorn Lane', line2: 'Flat 3', city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' });
+    }
     const lines = w.db.select().from(orderLines).all().filter((l) => os.some((o) => o.id === l.orderId));
     expect(lines.every((l) => l.state === 'awaiting_proof')).toBe(true);
 

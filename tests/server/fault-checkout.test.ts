@@ -148,7 +148,7 @@ describe('checkout survives a killed server', () => {
 
     // pay on the fake's hosted page, the same form POST a browser makes
     const pay = async (s: { url: string }) => {
-      const r = await fetch(s.url, { method: 'POST', body: new URLSearchParams({ card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
+      const r = await fetch(s.url, { method: 'POST', body: new URLSearchParams({ ship_name: 'Dana Field', ship_line1: '12 Acorn Lane', ship_city: 'Harbourtown', ship_postal_code: 'HT1 2AB', ship_country: 'GB', card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
       expect(r.status).toBe(303);
     };
     // the first half pay; the server is killed while their webhooks are being delivered

@@ -237,6 +237,22 @@ describe('cut sheets, stock, pressing and shipping', () => {
     expect(stockOf(b!.material.id)).toBeCloseTo(500, 6);
   });
 
+  test('when an order has a parcel address, then the seller and the shopper both see it on the order', async () => {
+    const theo = await byText('Theo', 'approved');
+    const shipTo = { name: 'Dana Field', line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' };
+    const before = t.db.select().from(orders).where(eq(orders.id, theo.orderId)).get()!.shipTo;
+    t.db.update(orders).set({ shipTo }).where(eq(orders.id, theo.orderId)).run();
+    try {
+      expect((await fern.get(`/api/workroom/orders/${theo.orderId}`)).body.order.shipTo).toEqual(shipTo);
+      expect((await dana.get(`/api/orders/${theo.orderId}`)).body.shipTo).toEqual(shipTo);
+      // a malformed stored value is shown as "no address", never passed through
+      t.db.update(orders).set({ shipTo: { line1: '<script>' } }).where(eq(orders.id, theo.orderId)).run();
+      expect((await fern.get(`/api/workroom/orders/${theo.orderId}`)).body.order.shipTo).toBeNull();
+    } finally {
+      t.db.update(orders).set({ shipTo: before }).where(eq(orders.id, theo.orderId)).run();
+    }
+  });
+
   test('when every item is pressed and tracking is entered, then the lines ship and the shopper is e-mailed the tracking number', async () => {
     const theo = await byText('Theo', 'approved');
     const order = (await fern.get(`/api/workroom/orders/${theo.orderId}`)).body.order;

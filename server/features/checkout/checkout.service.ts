@@ -10,7 +10,7 @@ import type { Db } from '../../db/client.ts';
 import { AppError, badRequest, conflict, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
-import type { CheckoutStarted, CheckoutStatus, CheckoutState } from '../../../shared/schemas/checkout.ts';
+import { SHIPPING_COUNTRIES, type CheckoutStarted, type CheckoutStatus, type CheckoutState } from '../../../shared/schemas/checkout.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
 import { cartView, resolveCart } from '../cart/cart.service.ts';
@@ -58,6 +58,8 @@ function sessionParams(deps: CheckoutDeps, c: CheckoutRow, email: string): Strip
     client_reference_id: c.id,
     customer_email: email,
     payment_intent_data: { transfer_group: transferGroupOf(c.id), metadata: { checkoutId: c.id } },
+    // the shops post parcels, so the payment page asks where to
+    shipping_address_collection: { allowed_countries: [...SHIPPING_COUNTRIES] },
     success_url: `${base}/checkout/return?session_id={CHECKOUT_SESSION_ID}`,
     cancel_url: `${base}/cart?checkout=cancelled`,
   };

@@ -1,6 +1,7 @@
 // Orders as the API shows them (shopper pages, the seller's refund answer).
 import type { Db } from '../../db/client.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { parseShipTo } from '../../../shared/schemas/checkout.ts';
 import type { LineState, OrderDetail, OrderEvent, OrderSummary } from '../../../shared/schemas/order.ts';
 import { ordersRepo, type OrderLineRow, type OrderRow } from './orders.repo.ts';
 
@@ -40,6 +41,7 @@ export function orderDetail(db: Db, o: OrderRow): OrderDetail {
     refundedMinor: refunded,
     carrier: o.carrier,
     trackingNumber: o.trackingNumber,
+    shipTo: parseShipTo(o.shipTo),
     lines: lines.map((l) => ({
       id: l.id,
       listingId: l.listingId,

@@ -1,6 +1,7 @@
 import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
-import { cartLines, carts, checkouts, shops, user, webhookEvents } from '../../db/schema.ts';
+import { cartLines, carts, checkouts, orders, shops, user, webhookEvents } from '../../db/schema.ts';
+import type { ShipTo } from '../../../shared/schemas/checkout.ts';
 
 export const paymentsRepo = {
   /** records an event id; false when it was processed already (the primary key says so) */
@@ -17,6 +18,8 @@ export const paymentsRepo = {
     if (lineIds.length) db.delete(cartLines).where(and(eq(cartLines.cartId, cartId), inArray(cartLines.id, lineIds))).run();
     db.update(carts).set({ version: sql`${carts.version} + 1`, updatedAt: at }).where(eq(carts.id, cartId)).run();
   },
+  /** every order of one checkout goes to the one address the shopper gave when paying */
+  setShipTo: (db: Db, checkoutId: string, shipTo: ShipTo) => db.update(orders).set({ shipTo }).where(eq(orders.checkoutId, checkoutId)).run(),
   shop: (db: Db, id: string) => db.select().from(shops).where(eq(shops.id, id)).get(),
   shopOwner: (db: Db, shopId: string) =>
     db.select({ email: user.email, name: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(eq(shops.id, shopId)).get(),

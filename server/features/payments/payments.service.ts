@@ -11,6 +11,7 @@ import type { AppDeps } from '../../app.ts';
 import type { Db } from '../../db/client.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
 // payments drives orders and reads checkouts (one-way: neither imports payments)
 import { createOrdersForCheckout, type PricedShop } from '../orders/orders.service.ts';
 import { ordersRepo } from '../orders/orders.repo.ts';
@@ -52,6 +53,8 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
         paymentIntentId: pi,
         timeZone: deps.env.BUSINESS_TIME_ZONE,
       });
+      const shipTo = shipToOf(session);
+      if (shipTo) paymentsRepo.setShipTo(t, c.id, shipTo);
       paymentsRepo.removeCartLines(t, c.cartId, priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
       created = true;
       return true;
@@ -71,6 +74,19 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
   // other events (charge.refunded for refunds we made ourselves, …) need nothing from us
   paymentsRepo.recordEvent(db, event.id, event.type, at);
   return { outcome: 'ignored' };
+}
+
+/**
+ * The parcel address from the session: `collected_information.shipping_details` in current API
+ * versions, `shipping_details` in older ones (Stripe API docs, Checkout Session object).
+ */
+export function shipToOf(session: Stripe.Checkout.Session): ShipTo | null {
+  const s = session as unknown as { collected_information?: { shipping_details?: unknown } | null; shipping_details?: unknown };
+  const d = (s.collected_information?.shipping_details ?? s.shipping_details ?? null) as { name?: unknown; address?: Record<string, unknown> | null } | null;
+  if (!d?.address) return null;
+  const a = d.address;
+  const opt = (v: unknown) => (typeof v === 'string' && v.trim() ? v : null);
+  return parseShipTo({ name: d.name, line1: a.line1, line2: opt(a.line2), city: a.city, postalCode: a.postal_code, state: opt(a.state), country: a.country });
 }
 
 /** The shop's connected account, created on first need (Idempotency-Key per shop). */

@@ -8,6 +8,7 @@ import { AppError, conflict, notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import type { LineState } from '../../../shared/schemas/order.ts';
+import { parseShipTo } from '../../../shared/schemas/checkout.ts';
 import { personalisationSchema, type Personalisation } from '../../../shared/schemas/listing.ts';
 import {
   WORK_STATES,
@@ -134,6 +135,7 @@ export function orderView(db: Db, shopId: string, orderId: string): WorkOrder {
     carrier: order.carrier,
     trackingNumber: order.trackingNumber,
     shippedAt: order.shippedAt,
+    shipTo: parseShipTo(order.shipTo),
     lines: views(db, shopId, lines.map((line) => ({ line, order }))),
     timeline,
   };

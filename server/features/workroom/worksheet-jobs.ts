@@ -5,6 +5,7 @@ import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import type { WorksheetJob } from '../../../shared/schemas/workroom.ts';
+import { parseShipTo, shipToLines } from '../../../shared/schemas/checkout.ts';
 import { buildWorksheetPdf, worksheetPageCount, worksheetInputSchema, type Paper } from './worksheet-pdf.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { asCutSheet, lineSnapshot, lineText, pressCardFor } from './workroom.service.ts';
@@ -36,10 +37,14 @@ export function createWorksheetJobs(now: () => number = Date.now) {
     const lineIds = [...new Set(sheets.flatMap((s) => (s.pieces as Array<{ lineId: string }>).map((p) => p.lineId)))];
     const rows = repo.linesByIds(db, shopId, lineIds).sort((a, b) => a.order.number.localeCompare(b.order.number));
     const buyers = new Map(repo.users(db, [...new Set(rows.map((r) => r.order.buyerId))]).map((u) => [u.id, u.name]));
-    const orders = new Map<string, { orderNumber: string; buyerName: string; lines: Array<{ title: string; text?: string; quantity: number }> }>();
+    const orders = new Map<string, { orderNumber: string; buyerName: string; shipTo?: string[]; lines: Array<{ title: string; text?: string; quantity: number }> }>();
     for (const r of rows) {
       let o = orders.get(r.order.id);
-      if (!o) orders.set(r.order.id, (o = { orderNumber: r.order.number, buyerName: buyers.get(r.order.buyerId) ?? 'A shopper', lines: [] }));
+      if (!o) {
+        const shipTo = parseShipTo(r.order.shipTo);
+        o = { orderNumber: r.order.number, buyerName: buyers.get(r.order.buyerId) ?? 'A shopper', ...(shipTo ? { shipTo: shipToLines(shipTo).map((l) => l.slice(0, 200)) } : {}), lines: [] };
+        orders.set(r.order.id, o);
+      }
       o.lines.push({ title: r.line.listingTitle.slice(0, 200), text: lineText(lineSnapshot(r.line)).slice(0, 500), quantity: r.line.quantity });
     }
     return worksheetInputSchema.parse({

@@ -2,6 +2,7 @@ import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
 import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
+import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useOrder } from '../../../features/workroom/api/get-order.ts';
 import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
@@ -57,6 +58,10 @@ export function WorkroomOrderPage() {
         </div>
         <aside className="flex h-fit flex-col gap-4 rounded-lg border border-line bg-white p-5 shadow-sm">
           <h2 className="text-lg font-extrabold">Shipping</h2>
+          <div>
+            <h3 className="mb-1 text-sm font-bold tracking-wide text-thread-deep uppercase">Post to</h3>
+            <ShipToAddress shipTo={o.shipTo} label="Post to" />
+          </div>
           {o.trackingNumber ? (
             <p data-testid="tracking">Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <span className="font-mono font-bold">{o.trackingNumber}</span></p>
           ) : ready ? (

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import type { LineSnapshot } from '../../../../shared/schemas/cart.ts';
 import { LINE_STATE_LABELS, type OrderDetail } from '../../../../shared/schemas/order.ts';
 import { formatMoney } from '../../../../shared/money.ts';
+import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { StateBadge } from './state-badge.tsx';
 
 const when = (ms: number) => new Date(ms).toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
@@ -52,6 +53,10 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
           <div className="flex justify-between border-t border-line pt-1 font-bold"><dt>Paid</dt><dd>{formatMoney(order.totalMinor, cur)}</dd></div>
           {order.refundedMinor > 0 ? <div className="flex justify-between"><dt>Refunded</dt><dd>{formatMoney(order.refundedMinor, cur)}</dd></div> : null}
         </dl>
+        <div>
+          <h2 className="mb-1 text-sm font-bold tracking-wide text-thread-deep uppercase">Sending to</h2>
+          <ShipToAddress shipTo={order.shipTo} label="Sending to" />
+        </div>
         {order.trackingNumber ? (
           <p className="text-sm">
             Shipped with {order.carrier ?? 'the carrier'}: <span className="font-mono font-bold">{order.trackingNumber}</span>
