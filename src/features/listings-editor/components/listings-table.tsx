@@ -1,10 +1,11 @@
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { BLANK_DEFAULTS, type SellerListing } from '../../../../shared/schemas/listing.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import type { ListingAction } from '../api/listing-actions.ts';
 import { ListingStateBadges } from './listing-state.tsx';
+import { CardTable } from '../../../components/ui/card-table.tsx';
 
 const col = createColumnHelper<SellerListing>();
 const dateFmt = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
@@ -80,70 +81,5 @@ export function ListingsTable({
   );
   const table = useReactTable({ data: listings, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
 
-  return (
-    <>
-      {/* phones: one card per row, each value with its column name */}
-      <ul className="flex flex-col gap-3 md:hidden" aria-label="Your listings">
-        {table.getRowModel().rows.map((row) => {
-          const [first, ...rest] = row.getVisibleCells();
-          return (
-            <li key={row.id} className="flex flex-col gap-2 rounded-lg border border-line bg-white p-4">
-              {first ? <div>{flexRender(first.column.columnDef.cell, first.getContext())}</div> : null}
-              <dl className="grid grid-cols-[auto_minmax(0,1fr)] gap-x-3 gap-y-1.5">
-                {rest.map((cell) =>
-                  cell.column.id === 'actions' ? null : (
-                    <div key={cell.id} className="contents">
-                      <dt className="text-sm font-bold text-ink-soft">{typeof cell.column.columnDef.header === 'string' ? cell.column.columnDef.header : ''}</dt>
-                      <dd>{flexRender(cell.column.columnDef.cell, cell.getContext())}</dd>
-                    </div>
-                  ),
-                )}
-              </dl>
-              {rest
-                .filter((cell) => cell.column.id === 'actions')
-                .map((cell) => (
-                  <div key={cell.id} className="-mx-3 border-t border-line pt-1">
-                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                  </div>
-                ))}
-            </li>
-          );
-        })}
-      </ul>
-    <div className="relative hidden overflow-x-auto rounded-lg border border-line bg-white md:block">
-      <table className="w-full min-w-[46rem] border-collapse text-left">
-        <caption className="sr-only">Your listings</caption>
-        <thead className="bg-paper-deep">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => (
-                <th key={h.id} scope="col" className="px-4 py-3 text-sm font-extrabold" aria-sort={h.column.getIsSorted() === 'asc' ? 'ascending' : h.column.getIsSorted() === 'desc' ? 'descending' : undefined}>
-                  {h.column.getCanSort() ? (
-                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="flex min-h-8 items-center gap-1 font-extrabold">
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden="true">{h.column.getIsSorted() === 'asc' ? '▲' : h.column.getIsSorted() === 'desc' ? '▼' : '↕'}</span>
-                    </button>
-                  ) : (
-                    flexRender(h.column.columnDef.header, h.getContext())
-                  )}
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-t border-line">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-4 py-3 align-top">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-    </>
-  );
+  return <CardTable table={table} label="Your listings" minWidthClass="min-w-[46rem]" />;
 }
