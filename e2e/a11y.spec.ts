@@ -1,5 +1,5 @@
 // Accessibility (issue 7, point 2): axe-core on every main page, as each role sees it, with the
-// WCAG 2.2 AA rule tags (W3C WCAG 2.2; REFERENCES.md "User experience"). No serious or critical
+// WCAG 2.2 AA rule tags (W3C WCAG 2.2). No serious or critical
 // violation is allowed; axe's `label` rule is what proves every form field has a label. Then two
 // checks axe cannot make: a failed form's errors are announced (3.3.1), and the checkout can be
 // done with the keyboard alone (e2e/keyboard-checkout.spec.ts).

@@ -1,4 +1,4 @@
-// Journey 4 (PRODUCT.md), admin side, on a shop made for this test (so no other spec's data moves):
+// Journey 4 (DEVELOPERS.md, "Journeys"), admin side, on a shop made for this test (so no other spec's data moves):
 // approve a new shop, approve one listing and reject another with a reason the seller receives by
 // e-mail, then suspend the shop (its listings leave search at once) and restore it.
 import { expect, test, type APIRequestContext, type Browser } from '@playwright/test';

@@ -95,7 +95,7 @@ export async function payCartApi(page: Page): Promise<{ sessionId: string; check
   throw new Error('the checkout never became paid');
 }
 
-/** Fills the parcel address on the fake's hosted payment page (invented, per PRODUCT.md's scenario). */
+/** Fills the parcel address on the fake's hosted payment page (invented, like all demo data). */
 export async function fillShipTo(page: Page, name = 'Dana Field'): Promise<void> {
   await page.getByLabel('Full name').fill(name);
   await page.getByLabel('Address line 1').fill('12 Acorn Lane');

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 
-// Demo accounts seeded by the server in demo mode (PRODUCT.md's invented scenario).
+// Demo accounts seeded by the server in demo mode (the invented demo scenario; README.md lists them).
 const DEMO_PASSWORD = 'namesake-demo';
 const accounts = {
   shopper: 'dana@namesake.test',

@@ -73,7 +73,7 @@ test('a shopper personalises, adds to cart and pays using only the keyboard', as
   // the payment page: type the card with the keyboard, Enter on Pay
   const card = page.getByLabel('Card number');
   await expect(card).toBeVisible();
-  // the parcel address first, field by field (invented, per PRODUCT.md's scenario)
+  // the parcel address first, field by field (invented, like all demo data)
   for (const [label, value] of [['Full name', 'Anouk Field'], ['Address line 1', '12 Acorn Lane'], ['Town or city', 'Harbourtown'], ['Postal code', 'HT1 2AB']] as const) {
     await tabTo(page, page.getByLabel(label));
     await page.keyboard.type(value);

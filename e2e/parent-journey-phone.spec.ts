@@ -1,4 +1,4 @@
-// Journey 1 of PRODUCT.md ("Parent ordering a named holiday tote") on a phone-sized screen
+// Journey 1 ("Parent ordering a named holiday tote", DEVELOPERS.md) on a phone-sized screen
 // (375 × 740 CSS px, touch): the same steps as parent-journey.spec.ts, but as a guest who builds
 // the cart first and creates an account at checkout, through the phone menu. At each step the
 // page must not scroll sideways (WCAG 2.2 1.4.10 Reflow: no two-dimensional scrolling at 320+ px)

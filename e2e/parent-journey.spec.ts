@@ -1,4 +1,4 @@
-// Journey 1 of PRODUCT.md, "Parent ordering a named holiday tote", up to the confirmation e-mail:
+// Journey 1 (DEVELOPERS.md), "Parent ordering a named holiday tote", up to the confirmation e-mail:
 // browse by occasion, open a tote listing, type a child's name, pick colours, watch the price,
 // add to cart with an item from a second shop, pay with the test card 4242 on the payment page,
 // land on the confirmation, read the e-mail from the mail fake's store, then follow the order.

@@ -1,4 +1,4 @@
-// Journey 4 (PRODUCT.md), seller side: a seller builds a listing with a text field and a
+// Journey 4 (DEVELOPERS.md, "Journeys"), seller side: a seller builds a listing with a text field and a
 // two-layer motif in the editor, sends it for review, and an admin approves it from the desk;
 // only then does the catalogue's search find it.
 import fs from 'node:fs';

@@ -1,4 +1,4 @@
-// Journeys 2 and 3 of PRODUCT.md in the workroom of Fern & Fable Goods. The spec makes its own
+// Journeys 2 and 3 (DEVELOPERS.md) in the workroom of Fern & Fable Goods. The spec makes its own
 // order (a fresh shopper buys one fox tote) so it changes no other spec's rows: Fern asks for a
 // change, the shopper edits the name on the order page, Fern approves the new proof, builds the
 // cut sheets, downloads the SVG and the work sheet PDF, marks the sheets cut and the item pressed,

@@ -1,4 +1,4 @@
-// XSS sweep, browser half (issue 7, point 3b; PRODUCT.md "Nothing a user types or uploads can run
+// XSS sweep, browser half (issue 7, point 3b; a product rule: "Nothing a user types or uploads can run
 // script in anyone's browser"; OWASP ASVS 5.0.0 V1 encoding and sanitisation). Users whose names
 // and texts carry script payloads make a shop, a material, listings, an order with personalised
 // lines, a change request and a rejection reason through the API; then every page where ANOTHER

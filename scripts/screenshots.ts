@@ -1,7 +1,7 @@
 // `npm run screenshots`: pictures of the main screens for the README (issue 7, point 6).
 // Builds the client if dist/ is missing, starts the app on a free port with a throw-away seeded
 // DATA_DIR, signs in as each demo role in Chromium and saves small PNGs (palette-quantised with
-// sharp, ≤ 200 KB each) to public/screenshots/. Chromium: /usr/bin/chromium (see STACK.md).
+// sharp, ≤ 200 KB each) to public/screenshots/. Chromium: /usr/bin/chromium (Debian's package).
 import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';

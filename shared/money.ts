@@ -2,7 +2,7 @@
  * Money: integer minor units everywhere. Digits per currency follow ISO 4217 Table A.1 (list of the
  * maintenance agency): USD 2, EUR 2, GBP 2, JPY 0. Stripe takes the same smallest-unit integers
  * (Stripe API docs, "Currencies": JPY is zero-decimal). We format digits ourselves rather than
- * trusting CLDR through Intl for the number of decimals (REFERENCES.md, Money).
+ * trusting CLDR through Intl for the number of decimals: CLDR's need not match ISO 4217's for every currency.
  */
 
 export const CURRENCIES = {

@@ -1,7 +1,7 @@
 // A local stand-in for the subset of the Stripe API that Namesake uses (issue 5, point 2).
 // The official `stripe` SDK talks to it with `new Stripe(key, { host: '127.0.0.1', port, protocol: 'http' })`.
-// Behaviour follows the Stripe API docs (test cards, webhook signing, idempotency) as listed in
-// handbook/REFERENCES.md; where the fake is simpler than Stripe, a comment says so.
+// Behaviour follows the Stripe API docs (test cards, webhook signing, idempotency) and stripe-node's
+// src/Webhooks.ts; where the fake is simpler than Stripe, a comment says so.
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createHash, createHmac, randomBytes } from 'node:crypto';
@@ -48,7 +48,7 @@ const DEFAULT_API_VERSION = '2026-10-28.endive';
 const MAX_BODY = 1024 * 1024;
 const IDEMPOTENCY_TTL_MS = 24 * 3600 * 1000; // Stripe keeps keys for at least 24 hours.
 
-// Test cards (Stripe API docs, "Testing"; handbook/REFERENCES.md § Payments).
+// Test cards (Stripe API docs, "Testing").
 type CardBehaviour = 'succeed' | 'generic_decline' | 'insufficient_funds' | 'authenticate';
 const TEST_CARDS: Record<string, CardBehaviour> = {
   '4242424242424242': 'succeed',

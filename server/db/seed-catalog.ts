@@ -1,4 +1,4 @@
-// Demo catalogue (PRODUCT.md's invented scenario): materials, layered motifs, photos and listings
+// Demo catalogue (the invented demo scenario): materials, layered motifs, photos and listings
 // for Fern & Fable Goods and Little Comet Print Co. (live), and Harbour Thread (waiting in review).
 import crypto from 'node:crypto';
 import fs from 'node:fs';

@@ -1,4 +1,4 @@
-// Demo orders (PRODUCT.md's invented scenario): Dana has bought from Fern & Fable Goods, so the
+// Demo orders (the invented demo scenario): Dana has bought from Fern & Fable Goods, so the
 // workroom has work on first start — some proofs waiting, most approved, over several materials.
 // Every line is composed by the engine from the real demo listings and materials (the same
 // buildSnapshot the cart uses), and the money rows follow checkout: a paid checkout, one order per

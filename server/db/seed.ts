@@ -1,4 +1,4 @@
-// The invented demo scenario of PRODUCT.md. Runs when the database has no users.
+// The invented demo scenario (DEVELOPERS.md, "Demo scenario"). Runs when the database has no users.
 import crypto from 'node:crypto';
 import { eq, sql } from 'drizzle-orm';
 import type { AppDeps } from '../app.ts';

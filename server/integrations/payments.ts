@@ -1,6 +1,6 @@
 // The Stripe SDK client. STRIPE_API_BASE points it at the local fake (fakes/stripe) or, when empty,
-// at the real Stripe API; nothing else changes between the two (STACK.md, "The Stripe SDK against
-// the local fake").
+// at the real Stripe API; nothing else changes between the two (only the SDK's host, port and
+// protocol options; DEVELOPERS.md, "Decisions").
 import Stripe from 'stripe';
 import type { Env } from '../env.ts';
 

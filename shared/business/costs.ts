@@ -48,7 +48,7 @@ export function sheetCostShares(costMinor: number, pieces: ReadonlyArray<{ lineI
 
 // ---------------------------------------------------------------- estimates before cutting
 
-/** The nesting's gap between pieces and margin at the roll edges (TRADE.md: 6 mm each, from memory). */
+/** The nesting's gap between pieces and margin at the roll edges (6 mm each, from memory, as in shared/engine/cut-sheets.ts). */
 export const ESTIMATE_GAP_MM = 6;
 export const ESTIMATE_MARGIN_MM = 6;
 
@@ -202,7 +202,7 @@ export function priceCheck(args: {
   return { priceMinor: args.priceMinor, blankMinor, vinylMinor, labourMinor, platformFeeMinor, paymentFeeMinor, costMinor, marginMinor: args.priceMinor - costMinor };
 }
 
-/** The longest name a text field allows, made from a long demo name (PRODUCT.md) repeated. */
+/** The longest name a text field allows, made from a long name of the invented demo scenario, repeated. */
 export function longestSampleName(maxLength: number): string {
   const base = 'Bartholomew';
   return base.repeat(Math.ceil(maxLength / base.length)).slice(0, Math.max(1, maxLength));

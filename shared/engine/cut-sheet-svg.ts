@@ -2,7 +2,7 @@
  * A cut sheet as an SVG file for the cutter: real units (the outer width/height in mm and a viewBox
  * of the same numbers, so one user unit is one millimetre — W3C CSS Values, absolute lengths; no
  * px anywhere, so the old 90 px/in of SVG 1.1's example cannot creep in), every piece MIRRORED
- * (HTV is cut mirrored, adhesive side up — TRADE.md, from memory; universal) and placed where the
+ * (HTV is cut mirrored, adhesive side up — from memory; true of every HTV) and placed where the
  * nesting put it, cut paths only: stroked outlines, no fill, no text.
  * Path data is re-serialised from parsed geometry, so nothing from the input reaches the file
  * verbatim except escaped ids. Pure.

@@ -1,6 +1,6 @@
 /**
  * Cut sheets: nest one material's pieces onto its roll with a weeding gap between pieces and a
- * margin at the roll edges (6 mm / ¼ in each, TRADE.md, from memory), rotation allowed.
+ * margin at the roll edges (6 mm / ¼ in each, from memory), rotation allowed.
  *
  * The rectangle packing is maxrects-packer's MaxRects bin. The gap is honoured by padding every
  * rectangle by `gap` on its right and bottom and giving the bin `usable + gap` of width: a padded
@@ -9,7 +9,7 @@
  * Pure: plain data in, plain data out; mm, y down (x across the roll, y along it).
  */
 // The package's main entry is UMD; its ESM build ships no .d.mts, so its types come from the main
-// entry's declarations (STACK.md: import the .mjs).
+// entry's declarations (so we import the .mjs; checked with maxrects-packer 2.7.4).
 // @ts-ignore TS7016: no declaration file next to the .mjs
 import * as maxrectsEsm from 'maxrects-packer/dist/maxrects-packer.mjs';
 import type { MaxRectsPacker as MaxRectsPackerClass, IOption } from 'maxrects-packer';
@@ -20,8 +20,8 @@ const PACKING_LOGIC = { MAX_AREA: 0, MAX_EDGE: 1 } as const;
 type Logic = NonNullable<IOption['logic']>;
 import { z } from 'zod';
 
-export const DEFAULT_GAP_MM = 6; // TRADE.md: weeding gap 6 mm (¼ in), from memory
-export const DEFAULT_MARGIN_MM = 6; // TRADE.md: margin at the roll edge 6 mm, from memory
+export const DEFAULT_GAP_MM = 6; // weeding gap 6 mm (¼ in), from memory
+export const DEFAULT_MARGIN_MM = 6; // margin at the roll edge 6 mm, from memory
 
 export const nestPieceSchema = z.object({
   id: z.string().min(1).max(128),

@@ -4,7 +4,7 @@
  * (Zoë, José, Łukasz, Ørjan) are in the same file. Static weights, never variable fonts.
  * The server reads `packageFile` from node_modules; the browser fetches the same bytes from the API.
  *
- * Minimum letter heights (cap height): script 12 mm from TRADE.md ("script letters under about
+ * Minimum letter heights (cap height): script 12 mm, the trade's rule of thumb ("script letters under about
  * 12 mm cap height get hard to weed and read", from memory); print faces are our own defaults
  * (no published source): bold faces 8 mm; the condensed caps and the thin handwriting 10 mm.
  */

@@ -1,12 +1,12 @@
 /**
  * Press cards: one item's pressing steps from its layers' materials and the shop's press type.
- * The rules are TRADE.md's (from memory unless marked there): pre-press about 5 s; layers bottom →
+ * The rules (from memory unless DEVELOPERS.md, "Pressing", marks them): pre-press about 5 s; layers bottom →
  * top, every layer but the last gets a short tack of its own material's tack time, then its carrier
  * is peeled; a protective sheet whenever the press touches vinyl without a carrier; the final press
  * at the lowest temperature every layer accepts, for the top layer's time unless the seller
  * overrides; optional back press about 15 s; warnings for non-overlapping temperatures, a top-only
  * material that isn't last, and more than 4 layers. Settings come from a seller-editable table
- * (press-defaults.ts, TRADE.md's Materials table); a layer's own profile overrides it. Pure.
+ * (press-defaults.ts, the materials table); a layer's own profile overrides it. Pure.
  * Temperatures are kept in °C; °F is derived per NIST SP 811 (t/°F = 1.8 · t/°C + 32).
  */
 import { z } from 'zod';
@@ -103,7 +103,7 @@ export interface PressCard {
   steps: PressStep[];
   warnings: PressWarning[];
   placementNote: string;
-  /** "common practice" / "from memory": where the default settings come from (TRADE.md). */
+  /** "common practice" / "from memory": where the default settings come from (DEVELOPERS.md, "Pressing"). */
   notes: string[];
 }
 
@@ -138,7 +138,7 @@ export function placementNote(blank: { kind: string; name?: string; topOffsetMm:
   const isTee = /tee|shirt/i.test(blank.kind);
   const from = blank.topOffsetFrom ?? (isTee ? 'collar' : 'top edge');
   let note = `Centre the design horizontally on the ${blank.name ?? blank.kind.replace(/_/g, ' ')}; its top sits ${formatLength(blank.topOffsetMm)} below the ${from}.`;
-  // TRADE.md (common practice): a tote rests on the ground; keep the design off its lower part.
+  // Common practice: a tote rests on the ground; keep the design off its lower part.
   if (/tote|bag/i.test(blank.kind)) note += ' Keep the design in the upper half, off the lower part of the bag, which rests on the ground.';
   note += ' Lay the pieces on the blank to check the placement before any heat.';
   return note;

@@ -1,5 +1,5 @@
 /**
- * Default press profiles per material kind: TRADE.md's "Materials" table (defaults from memory; the
+ * Default press profiles per material kind (DEVELOPERS.md, "Pressing"; defaults from memory; the
  * smooth PU press values are common practice). Every value is a seller-editable default, never a
  * hard-wired rule. Temperatures in °C (stored), times in seconds.
  */
@@ -32,7 +32,7 @@ export function defaultPressProfile(kind: MaterialKind): PressProfile {
 }
 
 /**
- * Where each row of the defaults comes from, as TRADE.md marks it: the smooth PU row's press values
+ * Where each row of the defaults comes from: the smooth PU row's press values
  * and tack are "common practice" (practitioners, no published source); the rest of the table is
  * "from memory" (the team's recollection; a seller may correct it). Kept apart from PressProfile so
  * stored profiles and their schema stay as they are.
@@ -53,9 +53,9 @@ export function pressDefaultRow(kind: MaterialKind): PressDefaultRow {
   return { ...defaultPressProfile(kind), source: PRESS_DEFAULT_SOURCES[kind] };
 }
 
-/** About 5 s to drive out moisture and flatten the blank (TRADE.md, common practice). */
+/** About 5 s to drive out moisture and flatten the blank (common practice). */
 export const PRE_PRESS_S = 5;
-/** Some makers ask for a second press from the back, about 15 s (TRADE.md, common practice). */
+/** Some makers ask for a second press from the back, about 15 s (common practice). */
 export const BACK_PRESS_S = 15;
-/** At most 4 layers on one item (TRADE.md, from memory). */
+/** At most 4 layers on one item (from memory). */
 export const MAX_LAYERS = 4;

@@ -1,5 +1,5 @@
 /**
- * Weeding difficulty: how fiddly a piece is to weed. TRADE.md: strokes or pieces narrower than about
+ * Weeding difficulty: how fiddly a piece is to weed. Strokes or pieces narrower than about
  * 1.5 mm (1/16 in) are hard to weed (from memory); few, large pieces are quick, many small pieces and
  * tiny counters are slow (common practice). The label thresholds below are our own (no published source).
  */

@@ -74,7 +74,7 @@ export type ListingPage = {
   safetyNotes: string[] | null;
 };
 
-/** Care card for buyers (TRADE.md / PRODUCT.md, common practice). */
+/** Care card for buyers (common practice, no published source; DEVELOPERS.md, "Care card and safety notes"). */
 export const CARE_CARD: readonly string[] = [
   'Wait 24 hours before the first wash.',
   'Wash inside out, cool or warm.',
@@ -84,7 +84,7 @@ export const CARE_CARD: readonly string[] = [
 ];
 
 /**
- * Small-parts warning (US CPSC, 16 CFR 1501; REFERENCES.md, Safety). Whether the item is exempt is
+ * Small-parts warning (US CPSC, 16 CFR 1501: items for children under 3). Whether the item is exempt is
  * the seller's compliance question, so the text defers to them.
  */
 export const SMALL_PARTS_NOTES: readonly string[] = [

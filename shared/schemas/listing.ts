@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { FONT_IDS } from '../engine/font-catalog.ts';
 import { DEFAULT_BLANKS, type BlankKind as EngineBlankKind } from '../engine/blanks.ts';
 
-// ---------------------------------------------------------------- occasions (PRODUCT.md)
+// ---------------------------------------------------------------- occasions (shoppers browse by these)
 export const OCCASIONS = ['autumn-harvest', 'winter-lights', 'spring-picnic', 'back-to-school', 'birthday'] as const;
 export const occasionSchema = z.enum(OCCASIONS, { error: 'Pick one of the occasions.' });
 export type Occasion = z.infer<typeof occasionSchema>;
@@ -23,7 +23,7 @@ export const BLANK_KINDS = ['tote', 'kids_tee', 'adult_tee', 'pouch', 'drawstrin
 export const blankKindSchema = z.enum(BLANK_KINDS, { error: 'Pick a blank.' });
 export type BlankKind = z.infer<typeof blankKindSchema>;
 
-/** Print area and top offset per blank, from shared/engine/blanks.ts (TRADE.md sizes); seller-editable. */
+/** Print area and top offset per blank, from shared/engine/blanks.ts (sizes from memory); seller-editable. */
 export const BLANK_DEFAULTS: Record<BlankKind, { label: string; widthMm: number; heightMm: number; topOffsetMm: number }> = Object.fromEntries(
   BLANK_KINDS.map((k) => {
     const b = DEFAULT_BLANKS.find((x) => x.kind === k)!;
@@ -98,7 +98,7 @@ export type MotifLayerChoice = z.output<typeof motifLayerChoiceSchema>;
 export const motifChoiceSchema = z.object({
   motifId: id('motif'),
   label,
-  layers: z.array(motifLayerChoiceSchema).min(1, 'Map at least one layer.').max(4, 'At most 4 layers on one item (TRADE.md).'),
+  layers: z.array(motifLayerChoiceSchema).min(1, 'Map at least one layer.').max(4, 'At most 4 layers on one item.'),
 });
 export type MotifChoice = z.output<typeof motifChoiceSchema>;
 
@@ -187,7 +187,7 @@ export type PricedContent = Pick<ListingContentParsed, 'basePriceMinor' | 'extra
  * The layers (one vinyl material each, cut and pressed as one) that a set of choices uses, bottom
  * to top: outline, motif layers, then text. A text field left empty adds no layer; a field without
  * a chosen colour uses its first colour. Pieces of the same material share one layer: they are cut
- * from the same sheet and pressed together (TRADE.md, "Cut").
+ * from the same sheet and pressed together (DEVELOPERS.md, "Cutting and nesting").
  */
 export function layersForChoices(content: PricedContent, choices: Choices): string[] {
   const p = content.personalisation;

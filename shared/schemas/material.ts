@@ -7,7 +7,7 @@ export type { MaterialKind, PressProfile };
 
 export const materialKindSchema = z.enum(MATERIAL_KINDS, { error: 'Pick smooth, glitter, flock, metallic or patterned.' });
 
-/** Common roll widths: 305 mm (12 in) and 381 mm (15 in) (TRADE.md, from memory); others allowed. */
+/** Common roll widths: 305 mm (12 in) and 381 mm (15 in) (from memory); others allowed. */
 export const COMMON_ROLL_WIDTHS_MM = [305, 381] as const;
 
 // Press temperatures for HTV sit well inside 100–220 °C; outside that range is a typing mistake.
@@ -38,7 +38,7 @@ const fields = {
   pressProfile: pressProfileSchema,
 };
 
-/** POST /api/materials: the press profile is optional and defaults to TRADE.md's row for the kind. */
+/** POST /api/materials: the press profile is optional and defaults to the kind's row in shared/engine/press-defaults.ts. */
 export const createMaterialSchema = z
   .object({
     ...fields,

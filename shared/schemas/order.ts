@@ -6,7 +6,7 @@ import type { ShipTo } from './checkout.ts';
 export const LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped', 'cancelled', 'refunded'] as const;
 export type LineState = (typeof LINE_STATES)[number];
 
-/** Shown to people; the codes stay as PRODUCT.md names them. */
+/** Shown to people; the codes stay the product's state names (DEVELOPERS.md, "Order-line states"). */
 export const LINE_STATE_LABELS: Record<LineState, string> = {
   awaiting_proof: 'Waiting for the proof check',
   changes_requested: 'Changes requested',

@@ -11,7 +11,7 @@ import type { PressCard } from '../engine/press-card.ts';
 
 export { LINE_STATES, type LineState };
 
-/** The states the workroom counts and filters on (PRODUCT.md), in production order. */
+/** The states the workroom counts and filters on (DEVELOPERS.md, "Order-line states"), in production order. */
 export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped'] as const satisfies readonly LineState[];
 
 const id = z.string().trim().min(1).max(64);

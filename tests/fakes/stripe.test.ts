@@ -1,7 +1,7 @@
 // The local Stripe fake, driven through the official `stripe` SDK (23.1.0) and plain HTTP.
 // Reference for the expected behaviour: Stripe API docs (test cards, webhook signatures,
 // idempotent requests, Connect "separate charges and transfers") and stripe-node `src/Webhooks.ts`,
-// as summarised in handbook/REFERENCES.md § Payments.
+// as summarised in DEVELOPERS.md, "Money and payments".
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';

@@ -111,7 +111,7 @@ export const nameChoices = (name: string, colour?: string): ChoicesInput => ({
   ...(colour ? { textColours: { name: colour } } : {}),
 });
 
-/** The parcel address typed on the payment page (invented; see PRODUCT.md's demo scenario). */
+/** The parcel address typed on the payment page (invented, like all demo data). */
 export const SHIP_FORM = {
   ship_name: 'Dana Field',
   ship_line1: '12 Acorn Lane',

@@ -1,6 +1,6 @@
 // Checkout across shops, end to end against the Stripe fake (fakes/stripe). Expected behaviour from
 // the Stripe API docs ("separate charges and transfers", test cards, idempotent requests) as
-// summarised in handbook/REFERENCES.md § Payments; amounts are integer minor units (ISO 4217: USD 2).
+// summarised in DEVELOPERS.md, "Money and payments"; amounts are integer minor units (ISO 4217: USD 2).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import request from 'supertest';

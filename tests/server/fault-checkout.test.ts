@@ -1,7 +1,7 @@
 // Fault test (issue 7, point 4): the real server process is killed with SIGKILL while shoppers are
 // paying, then started again on the same data folder. The Stripe fake runs as its own process, so
 // it keeps taking payments and keeps retrying the webhooks it could not deliver (Stripe retries
-// failed deliveries with a growing back-off; REFERENCES.md "Payments"). At the end every paid
+// failed deliveries with a growing back-off; Stripe webhook docs). At the end every paid
 // Checkout Session must have exactly one order per shop in its cart — none lost, none doubled —
 // and every order exactly one transfer to its shop.
 import { spawn, type ChildProcess } from 'node:child_process';

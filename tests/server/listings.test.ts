@@ -52,7 +52,7 @@ describe('seller listings: ownership', () => {
 });
 
 describe('listing editor input', () => {
-  it('when the blank gives only its kind, then TRADE.md\'s print area is filled in (kids\' tee 20 × 20 cm, 5 cm below the collar)', async () => {
+  it('when the blank gives only its kind, then the default print area is filled in (kids\' tee 20 × 20 cm, 5 cm below the collar; from memory)', async () => {
     const l = await createListing(a, { blank: { kind: 'kids_tee' } });
     const got = (await a.get(`/api/seller/listings/${l.id}`)).body.listing.draft.blank;
     expect(got).toMatchObject({ kind: 'kids_tee', widthMm: 200, heightMm: 200, topOffsetMm: 50 });

@@ -1,5 +1,5 @@
 // Refunds through the Stripe fake: the charge is refunded, the shop's transfer reversed for its
-// part ("separate charges and transfers": the platform bears refunds, REFERENCES.md § Payments).
+// part ("separate charges and transfers": the platform bears refunds; Stripe Connect docs).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import { eq } from 'drizzle-orm';

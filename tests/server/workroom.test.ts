@@ -197,7 +197,7 @@ describe('cut sheets, stock, pressing and shipping', () => {
       expect(s.utilisation).toBeGreaterThan(0);
       expect(s.utilisation).toBeLessThanOrEqual(1);
       for (const p of s.pieces) {
-        expect(p.xMm).toBeGreaterThanOrEqual(6 - 1e-9); // 6 mm margin, TRADE.md (from memory)
+        expect(p.xMm).toBeGreaterThanOrEqual(6 - 1e-9); // 6 mm margin (from memory, no published source)
         expect(p.xMm + p.widthMm).toBeLessThanOrEqual(s.rollWidthMm - 6 + 1e-9);
       }
     }

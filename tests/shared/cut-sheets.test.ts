@@ -70,7 +70,7 @@ describe('nestCutSheets', () => {
   it('when fixed-length sheets are asked for, then pieces spread over several, each within its length (property)', () => {
     fc.assert(
       fc.property(fc.array(fc.tuple(fc.integer({ min: 10, max: 200 }), fc.integer({ min: 10, max: 200 })), { minLength: 1, maxLength: 30 }), (dims) => {
-        // 305 × 305 mm sheets (12 × 12 in, TRADE.md, from memory)
+        // 305 × 305 mm sheets (12 × 12 in, a common sheet size; from memory)
         const pieces = dims.map(([w, h], i) => piece(`s${i}`, w, h));
         const sheets = nestCutSheets({ rollWidthMm: 305, maxLengthMm: 305, pieces });
         expect(sheets.flatMap((s) => s.placements).length).toBe(pieces.length);
@@ -128,7 +128,7 @@ describe('nestCutSheets', () => {
     expect(nestCutSheets({ rollWidthMm: 305, pieces: [] })).toEqual([]);
   });
 
-  it('when defaults apply, then the gap and margin are 6 mm (¼ in) each (TRADE.md, from memory)', () => {
+  it('when defaults apply, then the gap and margin are 6 mm (¼ in) each (from memory, no published source)', () => {
     const s = nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 100, 20)] })[0];
     expect([s.gapMm, s.marginMm]).toEqual([6, 6]);
     expect(s.placements[0]).toMatchObject({ xMm: 6, yMm: 6 });

@@ -4,9 +4,9 @@ import { MATERIAL_KINDS, PRESS_DEFAULTS, PRESS_DEFAULT_SOURCES, pressDefaultRow,
 import { cToF, fToC } from '../../shared/units.ts';
 
 /**
- * TRADE.md, "Materials (defaults from memory; seller-editable)", transcribed by hand. The smooth PU
+ * The press defaults (DEVELOPERS.md, "Pressing": from memory, seller-editable), copied by hand. The smooth PU
  * row is marked "common practice" there (no published source); the others are "from memory".
- * Nothing citable exists for HTV settings (REFERENCES.md): the card must reproduce this table.
+ * No published source exists for HTV settings beyond makers' own instructions: the card must reproduce this table.
  */
 const TRADE_TABLE: Record<MaterialKind, { handheld: [number, number]; clamshell: [number, number]; tackS: number; peel: string; topOnly: boolean; source: string }> = {
   smooth: { handheld: [157, 30], clamshell: [155, 10], tackS: 2, peel: 'hot', topOnly: false, source: 'common practice' },
@@ -21,7 +21,7 @@ const layer = (layerId: string, materialKind: MaterialKind, colourName = 'Navy',
   ({ layerId, materialKind, colourName, ...(profile ? { profile } : {}) });
 
 describe('press defaults', () => {
-  it('when read, then the defaults table is TRADE.md\'s Materials table row for row, with its source marks', () => {
+  it('when read, then the defaults table is the hand-copied materials table row for row, with its source marks', () => {
     expect([...MATERIAL_KINDS].sort()).toEqual(Object.keys(TRADE_TABLE).sort());
     for (const kind of MATERIAL_KINDS) {
       const t = TRADE_TABLE[kind];
@@ -42,7 +42,7 @@ describe('press defaults', () => {
 describe('pressCard', () => {
   for (const kind of MATERIAL_KINDS) {
     for (const pressType of ['handheld', 'clamshell'] as const) {
-      it(`when one ${kind} layer is pressed on a ${pressType} press, then the final press is TRADE.md's ${TRADE_TABLE[kind][pressType].join(' °C / ')} s, peel ${TRADE_TABLE[kind].peel} (${TRADE_TABLE[kind].source})`, () => {
+      it(`when one ${kind} layer is pressed on a ${pressType} press, then the final press is ${TRADE_TABLE[kind][pressType].join(' °C / ')} s, peel ${TRADE_TABLE[kind].peel} (${TRADE_TABLE[kind].source})`, () => {
         const card = pressCard({ pressType, layers: [layer('a', kind)], blank: tote });
         const [tempC, timeS] = TRADE_TABLE[kind][pressType];
         const final = card.steps.find((s) => s.kind === 'final_press')!;
@@ -68,7 +68,7 @@ describe('pressCard', () => {
     expect(fToC(212)).toBe(100);
     const card = pressCard({ pressType: 'handheld', layers: [layer('g', 'glitter', 'Gold')], blank: tote });
     expect(card.tempF).toBe(320);
-    // TRADE.md's "157 °C (315 °F)" for smooth on a handheld press
+    // "157 °C (315 °F)" for smooth on a handheld press (common practice; 157 °C = 314.6 °F by NIST SP 811)
     expect(pressCard({ pressType: 'handheld', layers: [layer('s', 'smooth')], blank: tote }).tempLabel).toBe('157 °C (315 °F)');
   });
 

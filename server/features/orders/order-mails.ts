@@ -1,5 +1,5 @@
 // The e-mails about orders: confirmation to the shopper, a new-order notice to each shop, refunds.
-// HTML and plain text; every value a person typed is escaped (PRODUCT.md: nothing typed may run
+// HTML and plain text; every value a person typed is escaped (a product rule: nothing typed may run
 // script anywhere, an e-mail client included).
 import { escapeHtml as esc, mailLayout, type Mail } from '../../integrations/mailer.ts';
 import { formatMoney } from '../../../shared/money.ts';

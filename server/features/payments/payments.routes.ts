@@ -5,7 +5,7 @@ import { handleEvent } from './payments.service.ts';
 
 /**
  * POST /api/payments/webhook — mounted before the JSON parser: the signature covers the raw bytes
- * (REFERENCES.md, Payments). A bad signature or a timestamp older than 300 s → 400, nothing written.
+ * (Stripe's webhook signing; stripe-node's constructEvent). A bad signature or a timestamp older than 300 s → 400, nothing written.
  */
 export function paymentsWebhookRouter(deps: AppDeps): Router {
   const r = Router();

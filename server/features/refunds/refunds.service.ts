@@ -1,6 +1,6 @@
 // Refunds: the shop (its own orders) or an admin gives money back for one line or the whole order.
 // The platform refunds the shopper from the charge and reverses the shop's transfer for its part
-// ("separate charges and transfers": the platform bears refunds, REFERENCES.md, Payments).
+// ("separate charges and transfers": the platform bears refunds; Stripe Connect docs).
 import crypto from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import type { AppDeps } from '../../app.ts';

@@ -1,5 +1,5 @@
 /**
- * Fonts for the work sheet PDF. pdfkit renders woff2 fonts invisible (STACK.md), and the UI font
+ * Fonts for the work sheet PDF. pdfkit renders woff2 fonts invisible (seen with pdfkit 0.20.2), and the UI font
  * package ships only woff2 split by Unicode range, so the PDF embeds Nunito as complete TTFs from
  * @expo-google-fonts/nunito (OFL 1.1): Latin-extended included, so Zoë and Łukasz print.
  * Characters the font has no glyph for (美咲) are reported so the page can name them by code point

@@ -1,5 +1,5 @@
 // E-mails from the workroom to the shopper: a change request on a proof, and the shipped notice.
-// HTML and plain text; every value a person typed is escaped (PRODUCT.md: nothing typed may run
+// HTML and plain text; every value a person typed is escaped (a product rule: nothing typed may run
 // script anywhere, an e-mail client included).
 import { escapeHtml as esc, mailLayout, type Mail } from '../../integrations/mailer.ts';
 

@@ -453,7 +453,7 @@ export function sheetSvg(db: Db, shopId: string, sheetId: string): { svg: string
 }
 
 /**
- * Marks sheets cut: each takes its length plus the 25 mm trim allowance (TRADE.md, from memory)
+ * Marks sheets cut: each takes its length plus the 25 mm trim allowance (from memory)
  * from its material's stock; a line moves to `cut` once every sheet of the batch holding its
  * pieces is cut. Stock never goes below zero: a shortfall is reported instead.
  */

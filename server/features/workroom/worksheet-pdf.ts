@@ -29,7 +29,7 @@ const MAP_HEADER = 62; // heading + scale line above the roll drawing
 const CARE_PER_PAGE = 6;
 const SUMMARY_ROWS_FIRST = 18;
 const SUMMARY_ROWS_NEXT = 34;
-/** Stock is taken as the nested length plus a 25 mm trim allowance (TRADE.md, from memory). */
+/** Stock is taken as the nested length plus a 25 mm trim allowance (from memory). */
 export const TRIM_ALLOWANCE_MM = 25;
 
 const str = (max: number) => z.string().max(max);

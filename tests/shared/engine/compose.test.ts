@@ -71,7 +71,7 @@ describe('outline layer', () => {
   });
 });
 
-describe('weeding difficulty (TRADE.md: under 1.5 mm is hard to weed, from memory)', () => {
+describe('weeding difficulty (under 1.5 mm is hard to weed: from memory, no published source)', () => {
   it('when a bold short name is large, then it is quick with the pieces and counters counted', () => {
     const r = analyseWeeding(layoutText(reg, { text: 'Leon', fontId: 'baloo-bold', letterHeightMm: 50 }).path);
     expect(r.label).toBe('quick');

@@ -1,7 +1,7 @@
 /**
  * HarfBuzz (harfbuzzjs, published by the HarfBuzz project) as the reference shaper: the text shaper
  * used by Chrome, Firefox, Android and LibreOffice (HarfBuzz project documentation). Our width for a
- * string must equal HarfBuzz's: sum of x-advances × size / unitsPerEm (REFERENCES.md, Text).
+ * string must equal HarfBuzz's: sum of x-advances × size / unitsPerEm (HarfBuzz project documentation).
  * Test/bench only — never imported by the engine.
  */
 import * as hb from 'harfbuzzjs';

@@ -7,7 +7,7 @@ import { ListingGridSkeleton } from '../../../features/catalog/components/listin
 
 const PER_SHELF = 4;
 
-/** The home page's listings, one shelf per occasion (PRODUCT.md's five), newest first. */
+/** The home page's listings, one shelf per occasion (the five in shared/schemas/listing.ts), newest first. */
 export function OccasionShelves() {
   return (
     <div className="flex flex-col gap-12">

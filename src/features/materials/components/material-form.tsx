@@ -44,7 +44,7 @@ const blank = (): Values => ({
 const fahrenheit = (c: number) => (Number.isFinite(c) ? `${roundTo(cToF(c), 0)} °F` : '— °F');
 const lengthHint = (mm: number) => (Number.isFinite(mm) && mm > 0 ? formatLength(mm) : '\u00a0');
 
-/** Add or edit one material. The press profile follows the kind's defaults (TRADE.md) until edited. */
+/** Add or edit one material. The press profile follows the kind's defaults (shared/engine/press-defaults.ts) until edited. */
 export function MaterialForm({ material, onDone }: { material?: Material; onDone: () => void }) {
   const toast = useToast();
   const create = useCreateMaterial();

@@ -3,7 +3,7 @@ import type { LineState } from '../../../../shared/schemas/order.ts';
 
 export { formatLength, formatTemperature };
 
-/** The state words of PRODUCT.md, as people read them ("awaiting proof"). */
+/** The order-line state codes, as people read them ("awaiting proof"). */
 export const stateWords = (s: LineState | string) => s.replace(/_/g, ' ');
 
 export const formatDate = (ms: number) => new Date(ms).toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' });
