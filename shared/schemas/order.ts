@@ -6,6 +6,31 @@ import type { ShipTo } from './checkout.ts';
 export const LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped', 'cancelled', 'refunded'] as const;
 export type LineState = (typeof LINE_STATES)[number];
 
+/** Who moves a line: the shop that makes it, the shopper who bought it, an admin, or the app itself. */
+export type LineActor = 'shop' | 'shopper' | 'admin' | 'system';
+
+/**
+ * The order-line state machine: every allowed move and who may make it. A move not in this table
+ * is refused; `cancelled` and `refunded` are final. server/features/orders/line-state.ts is the only
+ * code that changes a line's state, and it checks every move against this table.
+ */
+export const LINE_TRANSITIONS: Record<LineState, Partial<Record<LineState, readonly LineActor[]>>> = {
+  awaiting_proof: { approved: ['shop'], changes_requested: ['shop'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
+  changes_requested: { awaiting_proof: ['shopper'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
+  approved: { cut: ['shop'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
+  cut: { pressed: ['shop'], refunded: ['shop', 'admin', 'system'] },
+  pressed: { shipped: ['shop'], refunded: ['shop', 'admin', 'system'] },
+  shipped: { refunded: ['shop', 'admin', 'system'] },
+  cancelled: {},
+  refunded: {},
+};
+
+/** The state a new line starts in, when its order is paid. */
+export const FIRST_LINE_STATE: LineState = 'awaiting_proof';
+
+/** May `actor` move a line from `from` to `to`? */
+export const canMoveLine = (from: LineState, to: LineState, actor: LineActor): boolean => LINE_TRANSITIONS[from][to]?.includes(actor) ?? false;
+
 /** Shown to people; the codes stay the product's state names (DEVELOPERS.md, "Order-line states"). */
 export const LINE_STATE_LABELS: Record<LineState, string> = {
   awaiting_proof: 'Waiting for the proof check',

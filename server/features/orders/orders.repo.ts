@@ -28,6 +28,9 @@ export const ordersRepo = {
   setTransfer: (db: Db, orderId: string, transferId: string) =>
     db.update(orders).set({ transferId }).where(and(eq(orders.id, orderId), isNull(orders.transferId))).run().changes === 1,
   setLine: (db: Db, lineId: string, set: Partial<typeof orderLines.$inferInsert>) => db.update(orderLines).set(set).where(eq(orderLines.id, lineId)).run(),
+  /** writes a state move only while the line is still in `from`; false when another move got there first */
+  moveLine: (db: Db, lineId: string, from: string, set: Partial<typeof orderLines.$inferInsert>) =>
+    db.update(orderLines).set(set).where(and(eq(orderLines.id, lineId), eq(orderLines.state, from))).run().changes === 1,
   refundsOf: (db: Db, orderId: string) => db.select().from(refunds).where(eq(refunds.orderId, orderId)).all(),
   insertRefund: (db: Db, row: typeof refunds.$inferInsert) => db.insert(refunds).values(row).run(),
   refundByProviderId: (db: Db, id: string) => db.select().from(refunds).where(eq(refunds.providerRefundId, id)).get(),
