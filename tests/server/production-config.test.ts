@@ -97,7 +97,7 @@ async function call(port: number, pathname: string, opts: { method?: string; ori
 }
 
 describe('loadEnv: production needs its own secrets', () => {
-  const complete = { NODE_ENV: 'production', AUTH_SECRET: SECRET, BASE_URL: 'https://shop.example.com', STRIPE_SECRET_KEY: 'sk_live_x', STRIPE_WEBHOOK_SECRET: 'whsec_x', SMTP_HOST: 'smtp.example.com' };
+  const complete: Record<string, string> = { NODE_ENV: 'production', AUTH_SECRET: SECRET, BASE_URL: 'https://shop.example.com', STRIPE_SECRET_KEY: 'sk_live_x', STRIPE_WEBHOOK_SECRET: 'whsec_x', SMTP_HOST: 'smtp.example.com' };
   const problemsOf = (env: Record<string, string>) => {
     try {
       loadEnv(env);
