@@ -22,7 +22,14 @@ const schema = z.object({
   /** the older name of DEMO_DATA, still read */
   DEMO_MODE: bool.optional(),
   /** which proxies may set X-Forwarded-For / -Proto: `loopback`, a hop count, or addresses/CIDRs separated by commas */
-  TRUST_PROXY: z.string().default('loopback').transform((v) => (/^\d+$/.test(v.trim()) ? Number(v) : v)),
+  TRUST_PROXY: z
+    .string()
+    .default('loopback')
+    .refine(
+      (v) => /^\s*\d+\s*$/.test(v) || v.split(',').every((t) => /^(loopback|linklocal|uniquelocal|[0-9a-f:.]+(\/\d{1,3})?)$/i.test(t.trim())),
+      'use loopback, a hop count, or proxy addresses/CIDRs separated by commas (e.g. 10.0.0.5, 172.16.0.0/12)',
+    )
+    .transform((v) => (/^\s*\d+\s*$/.test(v) ? Number(v) : v)),
   SMTP_HOST: optional(z.string()),
   SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
   SMTP_SECURE: bool.default(false),

@@ -52,7 +52,7 @@ function run(script: string, args: string[], env: Record<string, string>): Promi
   });
 }
 
-/** Starts `server/index.ts` and resolves once it says it is running. */
+/** Starts `server/index.ts` and resolves once it has printed its whole start-up message. */
 function startServer(env: Record<string, string>): Promise<{ proc: ChildProcess; output: () => string }> {
   const proc = spawn(process.execPath, [...TSX, 'server/index.ts'], { env: clean(env), stdio: ['ignore', 'pipe', 'pipe'] });
   children.push(proc);
@@ -61,7 +61,7 @@ function startServer(env: Record<string, string>): Promise<{ proc: ChildProcess;
   proc.stderr!.on('data', (d) => (out += d));
   return new Promise((resolve, reject) => {
     proc.stdout!.on('data', () => {
-      if (out.includes('Namesake is running at')) resolve({ proc, output: () => out });
+      if (out.includes('Press Ctrl-C to stop.')) resolve({ proc, output: () => out });
     });
     proc.on('close', (code) => reject(new Error(`server exited ${code} before starting:\n${out}`)));
   });
@@ -124,10 +124,12 @@ describe('loadEnv: production needs its own secrets', () => {
     }
   });
 
-  test('when AUTH_SECRET is short, BASE_URL is plain http on a public host, or a fake is asked for without LOCAL_FAKES, then it is refused', () => {
+  test('when AUTH_SECRET is short, BASE_URL is plain http on a public host, a fake is asked for without LOCAL_FAKES, or TRUST_PROXY trusts anyone, then it is refused', () => {
     expect(problemsOf({ ...complete, AUTH_SECRET: 'short' })).toEqual(['AUTH_SECRET']);
     expect(problemsOf({ ...complete, BASE_URL: 'http://shop.example.com' })).toEqual(['BASE_URL']);
     expect(problemsOf({ ...complete, STRIPE_FAKE: 'true', MAIL_FAKE: 'true' })).toEqual(['MAIL_FAKE', 'STRIPE_FAKE']);
+    expect(problemsOf({ ...complete, TRUST_PROXY: 'true' })).toEqual(['TRUST_PROXY']);
+    expect(loadEnv({ ...complete, TRUST_PROXY: '127.0.0.1, 172.16.0.0/12' }).TRUST_PROXY).toBe('127.0.0.1, 172.16.0.0/12');
   });
 
   test('when LOCAL_FAKES=true, then only AUTH_SECRET is required and the fakes run with their own keys', () => {
@@ -162,6 +164,8 @@ describe('npm start with NODE_ENV=production', () => {
     const port = await freePort();
     const base = `http://localhost:${port}`;
     const env = { NODE_ENV: 'production', LOCAL_FAKES: 'true', AUTH_SECRET: SECRET, DATA_DIR: dataDir, PORT: String(port), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', LOG_REQUESTS: 'false', DIGEST: 'false', CLIENT_DIR: path.join(dataDir, 'no-client') };
+    // a bad address is refused before anything is opened (run meanwhile: start-ups are the slow part)
+    const refusal = run('scripts/admin-create.ts', ['not-an-email'], env);
     const { proc, output } = await startServer(env);
     expect(output()).toMatch(/mail fake/);
     expect(output()).toMatch(/payment fake/);
@@ -182,7 +186,7 @@ describe('npm start with NODE_ENV=production', () => {
     }
 
     // the first admin
-    const bad = await run('scripts/admin-create.ts', ['not-an-email'], env);
+    const bad = await refusal;
     expect(bad.code).toBe(1);
     expect(bad.err).toMatch(/"not-an-email" is not an e-mail address/);
     const made = await run('scripts/admin-create.ts', ['--', 'Boss@Example.com'], env);
