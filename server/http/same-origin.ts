@@ -24,7 +24,7 @@ export function appOrigins(env: Pick<Env, 'production' | 'baseUrl' | 'PORT'>): s
  * Sec-Fetch-Site) says it came from another site is refused. Cookies are also SameSite=Lax.
  * `sameHost` (outside production) also lets an Origin through whose host is the request's Host.
  */
-export function sameOrigin(allowed: string[], opts: { sameHost?: boolean } = { sameHost: true }): RequestHandler {
+export function sameOrigin(allowed: string[], { sameHost = true }: { sameHost?: boolean } = {}): RequestHandler {
   const ok = new Set(allowed.map((o) => o.replace(/\/$/, '')));
   return (req, _res, next) => {
     if (SAFE.has(req.method)) return next();
@@ -34,7 +34,7 @@ export function sameOrigin(allowed: string[], opts: { sameHost?: boolean } = { s
     if (site === 'cross-site') throw forbidden('Requests from other sites are not accepted.');
     if (origin && origin !== 'null' && !ok.has(origin)) {
       const host = req.get('host');
-      if (!opts.sameHost || !host || hostOf(origin) !== host) throw forbidden('Requests from other sites are not accepted.');
+      if (!sameHost || !host || hostOf(origin) !== host) throw forbidden('Requests from other sites are not accepted.');
     }
     if (origin === 'null') throw forbidden('Requests from other sites are not accepted.');
     next();

@@ -8,7 +8,10 @@ import path from 'node:path';
 import { spawn, type ChildProcess } from 'node:child_process';
 import Database from 'better-sqlite3';
 import { afterAll, describe, expect, test } from 'vitest';
+import request from 'supertest';
 import { loadEnv } from '../../server/env.ts';
+import { makeTestApp } from '../factories/app.ts';
+import { seedDemo } from '../../server/db/seed.ts';
 
 const TSX = ['node_modules/tsx/dist/cli.mjs'];
 const SECRET = 'a-test-secret-of-forty-characters-xxxxxxx';
@@ -233,4 +236,32 @@ describe('npm start in development', () => {
     expect((await call(port, '/api/config')).json).toEqual({ demoMode: false }); // DEMO_DATA=false: nothing seeded, nothing listed
     expect(await stopServer(proc)).toBe(0);
   }, 60_000);
+});
+
+describe('the sign-in page\'s demo list (/api/config)', () => {
+  const DEMO_EMAILS = ['dana@namesake.test', 'fern@namesake.test', 'comet@namesake.test', 'harbour@namesake.test', 'admin@namesake.test'];
+
+  test('when DEMO_DATA is on, then the demo accounts are listed only once they are in the database', async () => {
+    const t = await makeTestApp();
+    try {
+      expect((await request(t.app).get('/api/config')).body).toEqual({ demoMode: false });
+      for (const email of DEMO_EMAILS) await t.makeUser('shopper', { email });
+      const config = (await request(t.app).get('/api/config')).body;
+      expect(config.demoMode).toBe(true);
+      expect(config.demoAccounts.map((a: { email: string }) => a.email)).toContain('admin@namesake.test');
+    } finally {
+      await t.close();
+    }
+  });
+
+  test('when DEMO_DATA is off, then nothing is listed even with the demo accounts there, and seeding is refused', async () => {
+    const t = await makeTestApp({ env: { DEMO_DATA: 'false' } });
+    try {
+      for (const email of DEMO_EMAILS) await t.makeUser('shopper', { email });
+      expect((await request(t.app).get('/api/config')).body).toEqual({ demoMode: false });
+      await expect(seedDemo(t.deps)).rejects.toThrow(/DEMO_DATA=true/);
+    } finally {
+      await t.close();
+    }
+  });
 });
