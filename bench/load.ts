@@ -100,7 +100,9 @@ export async function run(): Promise<void> {
       ...process.env,
       NODE_ENV: 'production',
       AUTH_SECRET: crypto.randomBytes(24).toString('hex'),
-      DEMO_MODE: 'true',
+      // production settings with the local fakes and their keys, and the demo scenario to drive
+      LOCAL_FAKES: 'true',
+      DEMO_DATA: 'true',
       DATA_DIR: dataDir,
       PORT: String(port),
       BASE_URL: base,

@@ -6,6 +6,10 @@ import { createApp } from '../server/app.ts';
 import { isEmpty, seedDemo } from '../server/db/seed.ts';
 
 const env = loadEnv();
+if (!env.demoData) {
+  console.error('db:seed: demo data is off (production): set DEMO_DATA=true to seed the demo scenario, never on a real shop (its passwords are public).');
+  process.exit(1);
+}
 const { db, sqlite } = openDb(env.dbFile);
 const mailer = createMailer(env);
 const app = createApp({ db, env, mailer });

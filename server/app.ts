@@ -12,12 +12,13 @@ import { createAuth, type Auth } from './auth.ts';
 import { errorHandler } from './http/error-handler.ts';
 import { authInput } from './http/auth-input.ts';
 import { loadSession } from './http/auth-guards.ts';
-import { sameOrigin } from './http/same-origin.ts';
+import { appOrigins, sameOrigin } from './http/same-origin.ts';
 import { notFound } from './http/app-error.ts';
 import { accountRouter } from './features/account/account.routes.ts';
 import { adminMailRouter } from './features/admin/admin-mail.routes.ts';
 import { featureRouters } from './features/index.ts';
 import { withOurErrorShape } from './http/auth-errors.ts';
+import { DEMO_PASSWORD, hasDemoData } from './db/seed.ts';
 
 export type AppDeps = {
   db: Db;
@@ -37,7 +38,8 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
   const app = express();
   app.locals.deps = deps;
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // who may set X-Forwarded-For/-Proto (req.ip for rate limits, req.secure): TRUST_PROXY, default loopback
+  app.set('trust proxy', env.TRUST_PROXY);
 
   app.use(
     helmet({
@@ -62,7 +64,7 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
   );
   if (env.LOG_REQUESTS && env.NODE_ENV !== 'test') app.use(morgan(env.production ? 'combined' : 'dev'));
 
-  app.use('/api', sameOrigin([env.baseUrl, 'http://localhost:5173', 'http://127.0.0.1:5173']));
+  app.use('/api', sameOrigin(appOrigins(env), { sameHost: !env.production }));
 
   // better-auth reads its own bodies; our front guard validates and limits first
   app.use('/api/auth', authInput({ signInFailuresPerMinute: 5 }));
@@ -80,11 +82,12 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
     res.json({ ok: true });
   });
   app.get('/api/config', (_req, res) => {
+    // the demo accounts are listed only when DEMO_DATA is on and they are really in the database
     res.json(
-      env.demoMode
+      env.demoData && hasDemoData(deps)
         ? {
             demoMode: true,
-            demoPassword: 'namesake-demo',
+            demoPassword: DEMO_PASSWORD,
             demoAccounts: [
               { email: 'dana@namesake.test', role: 'shopper', label: 'Dana, a parent buying gifts' },
               { email: 'fern@namesake.test', role: 'seller', label: 'Fern & Fable Goods' },

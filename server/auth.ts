@@ -5,6 +5,7 @@ import type { Db } from './db/client.ts';
 import * as authSchema from './db/auth-schema.ts';
 import type { Env } from './env.ts';
 import { CLIENT_IP_HEADER } from './http/auth-input.ts';
+import { appOrigins } from './http/same-origin.ts';
 import { mailLayout, escapeHtml, type Mailer } from './integrations/mailer.ts';
 
 export type AuthDeps = { db: Db; env: Env; mailer: Mailer };
@@ -15,7 +16,7 @@ export function createAuth({ db, env, mailer }: AuthDeps) {
     baseURL: env.baseUrl,
     basePath: '/api/auth',
     secret: env.authSecret,
-    trustedOrigins: [env.baseUrl, 'http://localhost:5173', 'http://127.0.0.1:5173'],
+    trustedOrigins: appOrigins(env),
     database: drizzleAdapter(db, { provider: 'sqlite', schema: authSchema }),
     telemetry: { enabled: false },
     logger: { disabled: env.NODE_ENV === 'test' },

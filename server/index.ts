@@ -1,17 +1,22 @@
-// Reads env, migrates, seeds when empty, starts the local fakes, listens; stops cleanly on SIGTERM/Ctrl-C.
+// Reads env, migrates, seeds the demo when asked (DEMO_DATA), starts the local fakes, listens; stops cleanly on SIGTERM/Ctrl-C.
+// A bad or incomplete environment stops it with exit code 1 and one line per problem.
 import path from 'node:path';
 import { startNamesake } from './runtime.ts';
+import { DEMO_PASSWORD } from './db/seed.ts';
 
 const clientDir = path.resolve(process.env.CLIENT_DIR ?? 'dist');
 try {
   const running = await startNamesake({ clientDir });
-  console.log(`\nNamesake is running at ${running.url}`);
-  if (running.env.demoMode) {
-    console.log('\nDemo sign-ins (password: namesake-demo):');
+  const publicUrl = running.env.baseUrl !== running.url ? ` (public address ${running.env.baseUrl})` : '';
+  console.log(`\nNamesake is running at ${running.url}${publicUrl}`);
+  if (running.demo) {
+    console.log(`\nDemo sign-ins (password: ${DEMO_PASSWORD}):`);
     console.log('  shopper  dana@namesake.test');
     console.log('  seller   fern@namesake.test   (Fern & Fable Goods)');
     console.log('  seller   comet@namesake.test  (Little Comet Print Co.)');
     console.log('  admin    admin@namesake.test');
+  } else if (running.noAccounts) {
+    console.log('\nNo accounts yet. Make the first administrator with:  npm run admin:create -- you@example.com');
   }
   console.log('\nPress Ctrl-C to stop.');
   let stopping = false;

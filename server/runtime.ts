@@ -7,12 +7,20 @@ import { loadEnv, type Env } from './env.ts';
 import { openDb } from './db/client.ts';
 import { createMailer } from './integrations/mailer.ts';
 import { createApp } from './app.ts';
-import { isEmpty, seedDemo } from './db/seed.ts';
+import { hasDemoData, isEmpty, seedDemo } from './db/seed.ts';
 import { startMailFake } from '../fakes/mail/server.ts';
 import { startJobs } from './jobs/scheduler.ts';
 import { writePidFile } from './runtime-lock.ts';
 
-export type Running = { url: string; env: Env; stop(): Promise<void> };
+export type Running = {
+  url: string;
+  env: Env;
+  /** the demo accounts are there (and DEMO_DATA is on), so the sign-in page lists them */
+  demo: boolean;
+  /** no account at all yet: the first admin comes from `npm run admin:create -- EMAIL` */
+  noAccounts: boolean;
+  stop(): Promise<void>;
+};
 
 export async function startNamesake(opts: { envSource?: Record<string, string | undefined>; clientDir?: string; seed?: boolean; log?: (s: string) => void } = {}): Promise<Running> {
   const log = opts.log ?? ((s: string) => console.log(s));
@@ -20,37 +28,64 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
   fs.mkdirSync(env.dataDir, { recursive: true });
   const closers: Array<() => Promise<void> | void> = [];
 
-  if (env.startMailFake) {
-    const mail = await startMailFake({ port: env.SMTP_PORT, dir: env.mailDir });
-    closers.push(() => mail.close());
-    env = { ...env, SMTP_PORT: mail.port, SMTP_HOST: '127.0.0.1' };
-    log(`  mail fake       smtp://127.0.0.1:${mail.port} (stored in ${path.relative(process.cwd(), env.mailDir) || env.mailDir})`);
+  const closeAll = async () => {
+    for (const c of closers.reverse()) await c();
+  };
+  try {
+    if (env.startMailFake) {
+      // the usual port, or any free one when another Namesake on this machine holds it
+      const mail = await startMailFake({ port: env.SMTP_PORT, dir: env.mailDir, orFreePort: true });
+      closers.push(() => mail.close());
+      env = { ...env, SMTP_PORT: mail.port, SMTP_HOST: '127.0.0.1' };
+      log(`  mail fake       smtp://127.0.0.1:${mail.port} (stored in ${path.relative(process.cwd(), env.mailDir) || env.mailDir})`);
+    }
+    const extra = await startExtraFakes(env, log);
+    env = extra.env;
+    closers.push(...extra.closers);
+    return await startApp(env, opts, log, closers, extra.onListening);
+  } catch (err) {
+    await closeAll();
+    throw err;
   }
-  const extra = await startExtraFakes(env, log);
-  env = extra.env;
-  closers.push(...extra.closers);
+}
 
+async function startApp(
+  env: Env,
+  opts: { clientDir?: string; seed?: boolean },
+  log: (s: string) => void,
+  closers: Array<() => Promise<void> | void>,
+  onListening: (appUrl: string) => void,
+): Promise<Running> {
   const { db, sqlite } = openDb(env.dbFile);
   const mailer = createMailer(env);
-  const app = createApp({ db, env, mailer, clientDir: opts.clientDir });
-  if ((opts.seed ?? true) && isEmpty({ db })) {
-    log('  seeding the demo scenario …');
-    await seedDemo(app.locals.deps);
+  let app: ReturnType<typeof createApp>;
+  let server: Server;
+  try {
+    app = createApp({ db, env, mailer, clientDir: opts.clientDir });
+    // the demo scenario only when asked for (DEMO_DATA; never implied in production)
+    if ((opts.seed ?? env.demoData) && isEmpty({ db })) {
+      log('  seeding the demo scenario …');
+      await seedDemo(app.locals.deps);
+    }
+    server = await listen(app, env);
+  } catch (err) {
+    mailer.close();
+    sqlite.close();
+    throw err;
   }
-  const server: Server = await new Promise((resolve) => {
-    const s = app.listen(env.PORT, env.HOST, () => resolve(s));
-  });
   // the morning digest (croner) and its start-up catch-up; after the seed so the demo shops get it
   const jobs = env.DIGEST ? startJobs(app.locals.deps, log) : null;
   const port = (server.address() as AddressInfo).port;
   // while it runs, DATA_DIR/namesake.pid says so (scripts/db-restore.ts refuses then)
   const removePidFile = writePidFile(env.dataDir);
   const url = `http://localhost:${port}`;
-  extra.onListening(`http://127.0.0.1:${port}`);
+  onListening(`http://127.0.0.1:${port}`);
   let stopping: Promise<void> | null = null;
   return {
     url,
     env,
+    demo: env.demoData && hasDemoData({ db }),
+    noAccounts: isEmpty({ db }),
     stop() {
       // finish in-flight requests, then close fakes and the database
       stopping ??= (async () => {
@@ -73,12 +108,32 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
   };
 }
 
+/** The app on PORT; a taken port is a clear one-line refusal, not a stack trace. */
+function listen(app: ReturnType<typeof createApp>, env: Env): Promise<Server> {
+  return new Promise((resolve, reject) => {
+    const s = app.listen(env.PORT, env.HOST);
+    s.once('listening', () => resolve(s));
+    s.once('error', (err: NodeJS.ErrnoException) => {
+      reject(err.code === 'EADDRINUSE' ? new Error(`Namesake cannot start: ${env.HOST}:${env.PORT} is already in use (by another program or another Namesake); set PORT to a free port.`) : err);
+    });
+  });
+}
+
+function portOf(url: string): number | null {
+  try {
+    return Number(new URL(url).port) || null;
+  } catch {
+    return null;
+  }
+}
+
 /** The local payment fake (fakes/stripe), when STRIPE_API_BASE points at this machine. */
 async function startExtraFakes(env: Env, log: (s: string) => void): Promise<{ env: Env; closers: Array<() => Promise<void>>; onListening: (appUrl: string) => void }> {
   if (!env.startStripeFake) return { env, closers: [], onListening: () => {} };
   const { startStripeFake } = await import('../fakes/stripe/server.ts');
-  const port = env.STRIPE_FAKE_PORT ?? Number(new URL(env.STRIPE_API_BASE).port || 12111);
-  const fake = await startStripeFake({ port, dataDir: path.join(env.dataDir, 'stripe'), webhookSecret: env.STRIPE_WEBHOOK_SECRET });
+  const port = env.STRIPE_FAKE_PORT ?? portOf(env.STRIPE_API_BASE) ?? 12111;
+  // the usual port, or any free one when another Namesake on this machine holds it
+  const fake = await startStripeFake({ port, orFreePort: true, dataDir: path.join(env.dataDir, 'stripe'), webhookSecret: env.STRIPE_WEBHOOK_SECRET });
   log(`  payment fake    ${fake.url} (test cards only; state in ${path.join(env.dataDir, 'stripe')})`);
   return {
     env: { ...env, STRIPE_API_BASE: fake.url },

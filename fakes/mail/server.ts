@@ -4,13 +4,14 @@ import { SMTPServer } from 'smtp-server';
 import fs from 'node:fs';
 import path from 'node:path';
 import crypto from 'node:crypto';
-import type { AddressInfo } from 'node:net';
+import { listenLocal } from '../listen.ts';
 
 export type MailFake = { port: number; dir: string; close(): Promise<void> };
 
 const MAX_MESSAGE_BYTES = 5 * 1024 * 1024;
 
-export async function startMailFake(opts: { port?: number; dir: string }): Promise<MailFake> {
+/** `port` 0 or omitted: a free port; `orFreePort`: a free port when `port` is taken. */
+export async function startMailFake(opts: { port?: number; dir: string; orFreePort?: boolean }): Promise<MailFake> {
   fs.mkdirSync(opts.dir, { recursive: true });
   const server = new SMTPServer({
     authOptional: true,
@@ -37,11 +38,7 @@ export async function startMailFake(opts: { port?: number; dir: string }): Promi
       });
     },
   });
-  await new Promise<void>((resolve, reject) => {
-    server.once('error', reject);
-    server.listen(opts.port ?? 0, '127.0.0.1', () => resolve());
-  });
-  const port = (server.server.address() as AddressInfo).port;
+  const port = await listenLocal(server, () => server.server.address(), opts.port ?? 0, opts.orFreePort);
   return {
     port,
     dir: opts.dir,

@@ -3,17 +3,19 @@
 // Behaviour follows the Stripe API docs (test cards, webhook signing, idempotency) and stripe-node's
 // src/Webhooks.ts; where the fake is simpler than Stripe, a comment says so.
 import http from 'node:http';
-import type { AddressInfo } from 'node:net';
 import { createHash, createHmac, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
 import { FormParseError, parseForm } from './form.ts';
 import { authPage, messagePage, payPage } from './html.ts';
+import { listenLocal } from '../listen.ts';
 
 export interface StripeFakeOptions {
   /** 0 or omitted: a free port. */
   port?: number;
+  /** When `port` is taken, listen on a free port instead of failing (`url`/`port` tell which). */
+  orFreePort?: boolean;
   /** State lives in `${dataDir}/stripe-state.json`. */
   dataDir: string;
   /** Where events are POSTed. Deliveries wait (without using up attempts) while no URL is set. */
@@ -1422,14 +1424,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
     });
   });
 
-  await new Promise<void>((resolve, reject) => {
-    server.once('error', reject);
-    server.listen(opts.port ?? 0, '127.0.0.1', () => {
-      server.off('error', reject);
-      resolve();
-    });
-  });
-  const port = (server.address() as AddressInfo).port;
+  const port = await listenLocal(server, () => server.address(), opts.port ?? 0, opts.orFreePort);
   const url = `http://127.0.0.1:${port}`;
   publicUrl = (opts.publicUrl ?? url).replace(/\/+$/, '');
   // Open sessions made under an earlier port point at the current one after a restart.

@@ -1,4 +1,5 @@
-// The invented demo scenario (DEVELOPERS.md, "Demo scenario"). Runs when the database has no users.
+// The invented demo scenario (DEVELOPERS.md, "Demo scenario"). Runs when the database has no users
+// and DEMO_DATA is on (the default outside production; never implied in production).
 import crypto from 'node:crypto';
 import { eq, sql } from 'drizzle-orm';
 import type { AppDeps } from '../app.ts';
@@ -29,10 +30,19 @@ export function isEmpty(deps: Pick<AppDeps, 'db'>): boolean {
   return (deps.db.get<{ n: number }>(sql`select count(*) as n from user`)?.n ?? 0) === 0;
 }
 
+/** Whether the demo accounts are in the database (the sign-in page lists them only then). */
+export function hasDemoData(deps: Pick<AppDeps, 'db'>): boolean {
+  const emails = ACCOUNTS.map((a) => a.email);
+  const n = deps.db.get<{ n: number }>(sql`select count(*) as n from user where email in (${sql.join(emails.map((e) => sql`${e}`), sql`, `)})`)?.n ?? 0;
+  return n === emails.length;
+}
+
 /** What the later parts of the demo (catalogue, orders) need from the accounts and shops made here. */
 export type SeedContext = { userIds: Record<string, string>; shopIds: Record<string, string> };
 
 export async function seedDemo(deps: AppDeps): Promise<void> {
+  // accounts with a published password: only when asked for (DEMO_DATA=true, or outside production)
+  if (!deps.env.demoData) throw new Error('Demo data is off: set DEMO_DATA=true to seed the demo scenario (never on a real shop: its passwords are public).');
   const userIds: Record<string, string> = {};
   for (const a of ACCOUNTS) {
     const res = await deps.auth.api.signUpEmail({ body: { email: a.email, password: DEMO_PASSWORD, name: a.name } });
