@@ -113,6 +113,8 @@ const revisionSchema = z
 export const decisionSchema = z.object({ revision: revisionSchema });
 export const rejectDecisionSchema = reasonSchema.extend({ revision: revisionSchema });
 export type DecisionInput = z.infer<typeof decisionSchema>;
+/** approving a new shop may name the revision of its name/description the desk showed */
+export const approveShopSchema = optionalReasonSchema.extend({ revision: revisionSchema.optional() });
 export const STALE_LISTING_MESSAGE = 'The seller changed this listing after you opened it; review the new version.';
 export const STALE_SHOP_CHANGE_MESSAGE = 'The seller changed the shop details after you opened them; review the new version.';
 

@@ -364,11 +364,21 @@ describe('shop name and description changes', () => {
     expect((await admin.post(`/api/moderation/shops/${s.shopId}/approve-change`).send({ revision: change.revision })).status).toBe(409);
   });
 
-  it('when a shop still in review changes its name, then it applies at once (the whole shop is reviewed before it goes live)', async () => {
+  it('when a shop still in review is renamed after the admin opened the queue, then approving the shown revision is 409; the new one is approved', async () => {
     const s = await t.makeSeller({ name: 'Egret Goods', state: 'in_review' });
     const sa = await t.signIn(s.email);
-    const res = await sa.patch('/api/shop').send({ name: 'Egret Bags' });
-    expect(res.body.shop).toMatchObject({ name: 'Egret Bags', pendingChange: null });
+    const shown = ((await admin.get('/api/moderation/queue')).body.shops as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
+    expect(shown.name).toBe('Egret Goods');
+    // the whole shop is reviewed before it goes live, so the name applies at once, with a new revision
+    const res = await sa.patch('/api/shop').send({ name: 'Egret Knock-offs' });
+    expect(res.body.shop).toMatchObject({ name: 'Egret Knock-offs', pendingChange: null });
     expect(await changeOf(s.shopId)).toBeUndefined();
+    const stale = await admin.post(`/api/moderation/shops/${s.shopId}/approve`).send({ revision: shown.revision });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.message).toMatch(/review the new version/);
+    expect((await sa.get('/api/shop')).body.shop.state).toBe('in_review');
+    const now = ((await admin.get('/api/moderation/queue')).body.shops as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
+    expect(now).toMatchObject({ name: 'Egret Knock-offs', revision: shown.revision + 1 });
+    expect((await admin.post(`/api/moderation/shops/${s.shopId}/approve`).send({ revision: now.revision })).body.shop.state).toBe('live');
   });
 });

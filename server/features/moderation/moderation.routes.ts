@@ -4,7 +4,7 @@ import type { AppDeps } from '../../app.ts';
 import { currentUser, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
 import {
-  decisionSchema, moderationIdParams, moderationShopsQuery, optionalReasonSchema, reasonSchema, rejectDecisionSchema,
+  approveShopSchema, decisionSchema, moderationIdParams, moderationShopsQuery, optionalReasonSchema, reasonSchema, rejectDecisionSchema,
 } from '../../../shared/schemas/catalog.ts';
 import * as svc from './moderation.service.ts';
 
@@ -37,8 +37,8 @@ export function moderationRouter(deps: AppDeps): Router {
     res.json({ shop: await svc.rejectShopChange(deps, currentUser(req), id(req), req.body.revision, req.body.reason) });
   });
   for (const move of ['approve', 'restore'] as const)
-    r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: optionalReasonSchema }), async (req, res) => {
-      res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason ?? null) });
+    r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: move === 'approve' ? approveShopSchema : optionalReasonSchema }), async (req, res) => {
+      res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason ?? null, req.body.revision) });
     });
   for (const move of ['reject', 'suspend'] as const)
     r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: reasonSchema }), async (req, res) => {

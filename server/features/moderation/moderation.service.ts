@@ -59,6 +59,8 @@ export function queue(db: Db) {
   return {
     shops: repo.shopsInReview(db).map(({ shop, ownerEmail, ownerName }) => ({
       id: shop.id, name: shop.name, slug: shop.slug, state: shop.state, description: shop.description, owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+      /** the revision of the name/description shown; approving may name it */
+      revision: shop.changeRevision,
     })),
     listings: repo.listingsInReview(db).map(queueListing),
     /** name/description changes of approved shops: the public shop keeps `before` until approval */
@@ -166,12 +168,14 @@ export type ShopMove = keyof typeof SHOP_MOVES;
  * Shop decisions. The catalogue shows only listings of live shops (it joins on the shop's state),
  * so a suspension takes the shop's listings out of browse and search in this one update.
  */
-export async function moveShop(deps: Deps, actor: SessionUser, id: string, move: ShopMove, reason: string | null) {
+export async function moveShop(deps: Deps, actor: SessionUser, id: string, move: ShopMove, reason: string | null, revision?: number) {
   const shop = repo.findShop(deps.db, id);
   if (!shop) throw notFound('No such shop.');
   if (shop.ownerId === actor.id) throw forbidden('This is your own shop: another admin must decide on it.');
   const m = SHOP_MOVES[move];
   if (!(m.from as readonly string[]).includes(shop.state)) throw conflict(`A shop that is ${shop.state.replace('_', ' ')} cannot be moved that way.`);
+  // the desk sends the revision of the name/description it showed; a rename since then is a 409
+  if (move === 'approve' && revision !== undefined && revision !== shop.changeRevision) throw stale(STALE_SHOP_CHANGE_MESSAGE);
   const row = deps.db.transaction((tx) => {
     const updated = repo.updateShop(tx as unknown as Db, id, { state: m.to, stateReason: reason, updatedAt: deps.now() })!;
     audit(deps, actor, m.action, 'shop', id, reason);

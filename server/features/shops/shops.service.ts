@@ -51,8 +51,11 @@ export function updateSettings(deps: { db: Db; now: () => number }, shop: ShopRo
   const { logoId, name, description, ...rest } = input;
   const at = deps.now();
   const set: Record<string, unknown> = { ...rest, updatedAt: at };
-  if (!reviewsChanges(shop)) Object.assign(set, name === undefined ? {} : { name }, description === undefined ? {} : { description });
-  else if (name !== undefined || description !== undefined) {
+  if (!reviewsChanges(shop)) {
+    Object.assign(set, name === undefined ? {} : { name }, description === undefined ? {} : { description });
+    // a shop in review is approved as a whole: a new name/description makes an opened review stale
+    if ((name !== undefined && name !== shop.name) || (description !== undefined && description !== shop.description)) set.changeRevision = shop.changeRevision + 1;
+  } else if (name !== undefined || description !== undefined) {
     const next = nextChange(shop, { name, description }, at);
     if ((next ?? null) !== (shop.pendingChange ?? null)) {
       // every altered change gets a new revision, so a moderator's decision on an older one is refused
