@@ -96,7 +96,8 @@ export async function ensureLiveDemoListing(base: string): Promise<ListingSummar
   await fern('POST', `/api/seller/listings/${created.listing.id}/submit`, {});
   const admin = apiAgent(base);
   await admin('POST', '/api/auth/sign-in/email', { email: 'admin@namesake.test', password: 'namesake-demo' });
-  await admin('POST', `/api/moderation/listings/${created.listing.id}/approve`, {});
+  const shown = await admin<{ listing: { revision: number } }>('GET', `/api/moderation/listings/${created.listing.id}`);
+  await admin('POST', `/api/moderation/listings/${created.listing.id}/approve`, { revision: shown.listing.revision });
   const live = await anon<{ slug: string }>('GET', `/api/listings/${created.listing.slug}`);
   return { slug: live.slug, title, textFields: 1, fonts: 4, motifs: 1 };
 }

@@ -31,7 +31,7 @@ async function freshSeller(browser: Browser, tag: string) {
     await ok(await req.post(`/api/seller/listings/${l.id}/submit`));
     return l as { id: string };
   };
-  return { context, email, shop: shop as { id: string; name: string }, listing };
+  return { context, email, shop: shop as { id: string; name: string; slug: string }, listing };
 }
 
 const searchIds = async (req: APIRequestContext, q: string) =>
@@ -103,6 +103,45 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
   await expect(log.getByRole('row').filter({ hasText: 'Rejected listing' }).filter({ hasText: badTitle })).toContainText(reason);
   await expect(log.getByRole('row').filter({ hasText: 'Suspended shop' }).filter({ hasText: seller.shop.name })).toContainText('admin@namesake.test');
   await expect(log.getByRole('row').filter({ hasText: 'Restored shop' }).filter({ hasText: seller.shop.name })).toBeVisible();
+
+  await seller.context.close();
+});
+
+test('when the seller edits a listing the admin has open, then Approve shows why it was refused and the new version is approved instead; a shop rename waits on the desk as before → after', async ({ page, browser }) => {
+  const tag = `${Date.now().toString(36)}r`;
+  const seller = await freshSeller(browser, tag);
+  const title = `Leon tote ${tag}`;
+  const l = await seller.listing(title);
+  await signIn(page, demo.admin);
+  await ok(await page.request.post(`/api/moderation/shops/${seller.shop.id}/approve`, { data: {} }));
+
+  const shown = page.getByRole('article', { name: 'Listing as shoppers see it' });
+  await page.goto(`/moderation/listings/${l.id}`);
+  await expect(shown.getByRole('heading', { name: title })).toBeVisible();
+  // meanwhile the seller changes the title
+  const cur = await ok(await seller.context.request.get(`/api/seller/listings/${l.id}`));
+  await ok(await seller.context.request.put(`/api/seller/listings/${l.id}`, { data: { ...cur.listing.draft, title: `${title} for sale elsewhere` } }));
+
+  await page.getByRole('button', { name: 'Approve listing' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'The seller changed this listing after you opened it; review the new version.' })).toBeVisible();
+  expect(await searchIds(page.request, tag)).not.toContain(l.id);
+  await page.getByRole('button', { name: 'Show the new version' }).click();
+  await expect(shown.getByRole('heading', { name: `${title} for sale elsewhere` })).toBeVisible();
+  await page.getByRole('button', { name: 'Approve listing' }).click();
+  await expect(page.getByText(`“${title} for sale elsewhere” is approved and on sale.`)).toBeVisible();
+  expect((await ok(await page.request.get(`/api/listings/${(cur.listing as { slug: string }).slug}`))).content.title).toBe(`${title} for sale elsewhere`);
+
+  // the live shop is renamed: the public page keeps the old name until the desk approves the change
+  const newName = `Priya Prints Studio ${tag}`;
+  await ok(await seller.context.request.patch('/api/shop', { data: { name: newName } }));
+  expect((await ok(await page.request.get(`/api/shops/${seller.shop.slug}`))).shop.name).toBe(seller.shop.name);
+  await page.goto('/moderation');
+  const card = page.getByRole('listitem', { name: `Changes to shop ${seller.shop.name}` });
+  await expect(card).toContainText(seller.shop.name);
+  await expect(card).toContainText(newName);
+  await card.getByRole('button', { name: `Approve change to ${seller.shop.name}` }).click();
+  await expect(page.getByText(`The new details of ${seller.shop.name} are public.`)).toBeVisible();
+  expect((await ok(await page.request.get(`/api/shops/${seller.shop.slug}`))).shop.name).toBe(newName);
 
   await seller.context.close();
 });

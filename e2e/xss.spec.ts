@@ -100,8 +100,10 @@ test('payloads typed by sellers, shoppers and admins never run in another user\'
   await check(admin, 'admin', 'moderation desk (queue)', '/moderation', `${P[1]} tote`);
   await check(admin, 'admin', 'review listing', `/moderation/listings/${good.id}`, `${P[1]} tote`);
   await apiPost(admin, `/api/moderation/shops/${shop.id}/approve`, {});
-  await apiPost(admin, `/api/moderation/listings/${good.id}/approve`, {});
-  await apiPost(admin, `/api/moderation/listings/${bad.id}/reject`, { reason: `Please fix: ${ALL}` });
+  // a decision names the revision the desk shows
+  const shown = async (id: string) => (await apiGet(admin, `/api/moderation/listings/${id}`)).listing.revision as number;
+  await apiPost(admin, `/api/moderation/listings/${good.id}/approve`, { revision: await shown(good.id) });
+  await apiPost(admin, `/api/moderation/listings/${bad.id}/reject`, { revision: await shown(bad.id), reason: `Please fix: ${ALL}` });
   const live = await apiGet(guest, `/api/listings/${good.slug ?? (await apiGet(seller, `/api/seller/listings/${good.id}`)).listing.slug}`);
 
   // --- guests browse: search (also with a payload as the query), the listing, the shop

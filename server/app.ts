@@ -67,7 +67,7 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
   app.use('/api', sameOrigin(appOrigins(env), { sameHost: !env.production }));
 
   // better-auth reads its own bodies; our front guard validates and limits first
-  app.use('/api/auth', authInput({ signInFailuresPerMinute: 5 }));
+  app.use('/api/auth', authInput({ signInFailuresPerMinute: 5, session: loadSession(deps) }));
   app.all('/api/auth/{*any}', toNodeHandler(withOurErrorShape(deps.auth)));
 
   // routes that need the raw body (payment webhooks) mount before the JSON parser
@@ -75,7 +75,7 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
   for (const r of routers.raw) app.use(r.path, r.router);
 
   app.use(express.json({ limit: '256kb' }));
-  app.use('/api', loadSession(deps.auth));
+  app.use('/api', loadSession(deps));
 
   app.get('/api/health', (_req, res) => {
     deps.db.get(sql`select 1`);

@@ -1,6 +1,8 @@
 import { betterAuth } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
 import { admin } from 'better-auth/plugins';
+import { APIError, createAuthMiddleware } from 'better-auth/api';
+import { newPasswordSchema } from '../shared/schemas/auth.ts';
 import type { Db } from './db/client.ts';
 import * as authSchema from './db/auth-schema.ts';
 import type { Env } from './env.ts';
@@ -9,6 +11,38 @@ import { appOrigins } from './http/same-origin.ts';
 import { mailLayout, escapeHtml, type Mailer } from './integrations/mailer.ts';
 
 export type AuthDeps = { db: Db; env: Env; mailer: Mailer };
+
+/**
+ * Session lifetime. Sliding: a session lasts 14 days from its last use (better-auth moves
+ * `expiresAt` forward at most once a day, `updateAge`). Absolute: whatever the use, a session ends
+ * 30 days after it was created (sign-in); server/http/auth-guards.ts refuses and deletes an older
+ * one where every session is loaded. OWASP ASVS 7.3.1 (inactivity) and 7.3.2 (absolute lifetime).
+ */
+export const SESSION_IDLE_SECONDS = 60 * 60 * 24 * 14;
+export const SESSION_REFRESH_SECONDS = 60 * 60 * 24;
+export const SESSION_ABSOLUTE_MS = 30 * 24 * 60 * 60 * 1000;
+
+/** Body fields of better-auth endpoints that set a password (every other endpoint only checks one). */
+const NEW_PASSWORD_FIELD: Record<string, 'password' | 'newPassword'> = {
+  '/sign-up/email': 'password',
+  '/admin/create-user': 'password',
+  '/change-password': 'newPassword',
+  '/reset-password': 'newPassword',
+  '/set-password': 'newPassword',
+  '/admin/set-user-password': 'newPassword',
+};
+
+/**
+ * The password rules of sign-up for every endpoint that sets a password, however it is called
+ * (HTTP through our input guard, or `auth.api.*` on the server): a backstop for the guard.
+ */
+const passwordRules = createAuthMiddleware(async (ctx) => {
+  const body = (ctx.body ?? {}) as Record<string, unknown>;
+  const field = NEW_PASSWORD_FIELD[ctx.path] ?? ('newPassword' in body ? 'newPassword' : undefined);
+  if (!field || body[field] === undefined) return;
+  const checked = newPasswordSchema.safeParse(body[field]);
+  if (!checked.success) throw new APIError('BAD_REQUEST', { code: 'WEAK_PASSWORD', message: checked.error.issues[0]?.message ?? 'Choose another password.' });
+});
 
 /** better-auth with e-mail + password, the admin plugin's role column, and reset mail through our mailer. */
 export function createAuth({ db, env, mailer }: AuthDeps) {
@@ -36,8 +70,10 @@ export function createAuth({ db, env, mailer }: AuthDeps) {
         });
       },
     },
-    session: { expiresIn: 60 * 60 * 24 * 14, updateAge: 60 * 60 * 24 },
-    // IP-wide limits from better-auth; per-account sign-in limits live in server/http/auth-guards.ts
+    // sliding 14 days with a 30-day absolute cap (SESSION_ABSOLUTE_MS, enforced in auth-guards.ts)
+    session: { expiresIn: SESSION_IDLE_SECONDS, updateAge: SESSION_REFRESH_SECONDS },
+    hooks: { before: passwordRules },
+    // IP-wide limits from better-auth; per-account sign-in limits live in server/http/auth-input.ts
     rateLimit: {
       enabled: env.AUTH_IP_RATE_LIMIT ?? env.NODE_ENV !== 'test',
       window: 60,

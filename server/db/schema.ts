@@ -11,6 +11,8 @@ const createdAt = () => integer('created_at').notNull();
 const json = <T>(name: string) => text(name, { mode: 'json' }).$type<T>();
 
 // ---------------------------------------------------------------- shops
+/** Only the fields the seller changed; the live shop keeps its approved values until approval. */
+export type ShopChange = { name?: string; description?: string; submittedAt: number };
 export const shops = sqliteTable('shops', {
   id: id(),
   ownerId: text('owner_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
@@ -32,6 +34,12 @@ export const shops = sqliteTable('shops', {
   daysOff: json<string[]>('days_off').notNull().default([]),
   hourlyRateMinor: integer('hourly_rate_minor').notNull().default(0),
   paymentAccountId: text('payment_account_id'),
+  /** a change of name/description to a shop already approved, waiting for moderation (null: none) */
+  pendingChange: json<ShopChange>('pending_change'),
+  /** bumped whenever the pending change is altered; an admin's decision names the one it saw */
+  changeRevision: integer('change_revision').notNull().default(0),
+  /** why the last name/description change was not approved (cleared by the next change) */
+  changeRejectionReason: text('change_rejection_reason'),
   createdAt: createdAt(),
   updatedAt: integer('updated_at').notNull(),
 }, (t) => [uniqueIndex('shops_slug_uq').on(t.slug), uniqueIndex('shops_owner_uq').on(t.ownerId)]);
@@ -115,6 +123,8 @@ export const listings = sqliteTable('listings', {
   live: json<ListingContent>('live'),
   /** true when the working copy has changes not yet approved */
   pendingReview: integer('pending_review', { mode: 'boolean' }).notNull().default(false),
+  /** bumped on every seller edit of the working copy; approve/reject name the revision reviewed */
+  revision: integer('revision').notNull().default(1),
   rejectionReason: text('rejection_reason'),
   // denormalised from `live` for the catalogue's filters and sort
   liveTitle: text('live_title'),

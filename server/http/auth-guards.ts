@@ -1,9 +1,9 @@
 import type { RequestHandler, Request } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
 import { eq } from 'drizzle-orm';
-import type { Auth } from '../auth.ts';
+import { SESSION_ABSOLUTE_MS, type Auth } from '../auth.ts';
 import type { Db } from '../db/client.ts';
-import { shops } from '../db/schema.ts';
+import { session, shops } from '../db/schema.ts';
 import type { Role } from '../../shared/schemas/auth.ts';
 import { forbidden, unauthorized } from './app-error.ts';
 
@@ -20,12 +20,20 @@ declare module 'express-serve-static-core' {
 
 const asRole = (r: unknown): Role => (r === 'seller' || r === 'admin' ? r : 'shopper');
 
-/** Reads the session cookie (if any) through better-auth and puts the user on `req.user`. */
-export function loadSession(auth: Auth): RequestHandler {
+/**
+ * Reads the session cookie (if any) through better-auth and puts the user on `req.user`.
+ * better-auth slides the expiry (server/auth.ts); here a session older than the absolute cap
+ * (SESSION_ABSOLUTE_MS from its creation, by `now`) is refused and deleted, so the cookie is dead.
+ */
+export function loadSession(deps: { auth: Auth; db: Db; now: () => number }): RequestHandler {
   return async (req, _res, next) => {
     // no session cookie, nothing to look up: guests' requests skip the database
     if (!req.headers.cookie?.includes('session_token')) return next();
-    const result = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
+    const result = await deps.auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
+    if (result && deps.now() - new Date(result.session.createdAt).getTime() > SESSION_ABSOLUTE_MS) {
+      deps.db.delete(session).where(eq(session.id, result.session.id)).run();
+      return next();
+    }
     if (result && !result.user.banned) {
       req.user = { id: result.user.id, email: result.user.email, name: result.user.name, role: asRole(result.user.role) };
       req.sessionId = result.session.id;

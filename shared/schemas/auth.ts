@@ -36,6 +36,32 @@ export type RequestResetInput = z.infer<typeof requestResetSchema>;
 export const resetPasswordSchema = z.object({ token: z.string().min(1, 'This reset link is incomplete.'), newPassword: newPasswordSchema });
 export type ResetPasswordInput = z.infer<typeof resetPasswordSchema>;
 
+/** POST /api/auth/change-password: the new password follows the sign-up rules. */
+export const changePasswordSchema = z
+  .object({
+    currentPassword: z.string({ error: 'Enter your current password.' }).min(1, 'Enter your current password.').max(128, 'Use at most 128 characters.'),
+    newPassword: newPasswordSchema,
+    revokeOtherSessions: z.boolean().optional(),
+  })
+  .refine((v) => v.newPassword !== v.currentPassword, { path: ['newPassword'], message: 'Choose a password different from the current one.' });
+export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
+
+/**
+ * POST /api/auth/update-user: only the name can be changed there. Anything else in the body (a
+ * role, a ban flag, an e-mail, a password) is refused by name, never passed on.
+ */
+export const updateUserSchema = z
+  .looseObject({ name: nameSchema.optional() })
+  .superRefine((v, ctx) => {
+    for (const key of Object.keys(v)) if (key !== 'name') ctx.addIssue({ code: 'custom', path: [key], message: 'This cannot be changed here.' });
+  })
+  .transform(({ name }) => (name === undefined ? {} : { name }));
+export type UpdateUserInput = z.output<typeof updateUserSchema>;
+
+/** The admin plugin's endpoints that set a password use the same rules (the endpoints are admin-only). */
+export const adminSetUserPasswordSchema = z.object({ userId: z.string().min(1).max(64), newPassword: newPasswordSchema });
+export const adminCreateUserSchema = z.object({ email: emailSchema, name: nameSchema, password: newPasswordSchema });
+
 export const roleSchema = z.enum(['shopper', 'seller', 'admin']);
 export type Role = z.infer<typeof roleSchema>;
 

@@ -100,6 +100,24 @@ export const reasonSchema = z.object({
 });
 export const optionalReasonSchema = z.object({ reason: z.string().trim().max(1000, 'Use at most 1,000 characters.').optional() });
 
+/**
+ * A decision names the revision the moderator was shown (a listing's `revision`, a shop change's
+ * `revision`); if the seller saved since, the decision is refused with 409 and the new version
+ * is reviewed instead, so what goes live is exactly what was read.
+ */
+const revisionSchema = z
+  .number({ error: 'Say which version you reviewed (revision).' })
+  .int('Say which version you reviewed (revision).')
+  .min(0, 'Say which version you reviewed (revision).')
+  .max(1_000_000_000, 'Say which version you reviewed (revision).');
+export const decisionSchema = z.object({ revision: revisionSchema });
+export const rejectDecisionSchema = reasonSchema.extend({ revision: revisionSchema });
+export type DecisionInput = z.infer<typeof decisionSchema>;
+/** approving a new shop may name the revision of its name/description the desk showed */
+export const approveShopSchema = optionalReasonSchema.extend({ revision: revisionSchema.optional() });
+export const STALE_LISTING_MESSAGE = 'The seller changed this listing after you opened it; review the new version.';
+export const STALE_SHOP_CHANGE_MESSAGE = 'The seller changed the shop details after you opened them; review the new version.';
+
 /** GET /api/moderation/shops: every shop, found by name, address or owner e-mail, optionally by state. */
 export const MODERATION_SHOPS_PAGE_SIZE = 20;
 export const moderationShopsQuery = z.object({

@@ -258,6 +258,8 @@ export type SellerListing = {
   state: ListingState;
   pendingReview: boolean;
   rejectionReason: string | null;
+  /** goes up by one on every save of the working copy; moderation decides on one revision */
+  revision: number;
   draft: ListingContentParsed;
   live: ListingContentParsed | null;
   currency: string;

@@ -43,6 +43,13 @@ export type OwnShop = {
   returnPolicy: string;
   pressType: 'handheld' | 'clamshell';
   logoUrl: string | null;
+  /**
+   * A new name/description of an approved shop, waiting for moderation (`name`/`description` above
+   * stay the approved, public ones until then); only the changed fields are present.
+   */
+  pendingChange: { name?: string; description?: string; submittedAt: number } | null;
+  /** why the last name/description change was not approved */
+  changeRejectionReason: string | null;
 };
 
 /** GET /api/shops/:slug */

@@ -52,12 +52,27 @@ export async function createListing(agent: Agent, over: Partial<ListingInput> = 
   return res.body.listing as { id: string; slug: string; state: string };
 }
 
+/** The revision the moderation desk shows for a listing waiting for review. */
+export async function shownRevision(admin: Agent, id: string): Promise<number> {
+  const res = await admin.get(`/api/moderation/listings/${id}`);
+  if (res.status !== 200) throw new Error(`review: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.listing.revision as number;
+}
+
+/** Approves (or rejects, with a reason) the revision the desk shows, as a moderator does. */
+export async function decide(admin: Agent, id: string, reason?: string) {
+  const revision = await shownRevision(admin, id);
+  return reason === undefined
+    ? admin.post(`/api/moderation/listings/${id}/approve`).send({ revision })
+    : admin.post(`/api/moderation/listings/${id}/reject`).send({ revision, reason });
+}
+
 /** Creates, submits and approves a listing: it is live afterwards. */
 export async function liveListing(t: TestApp, agent: Agent, admin: Agent, over: Partial<ListingInput> = {}) {
   const l = await createListing(agent, over);
   const s = await agent.post(`/api/seller/listings/${l.id}/submit`).send({});
   if (s.status !== 200) throw new Error(`submit: ${s.status}`);
-  const a = await admin.post(`/api/moderation/listings/${l.id}/approve`).send({});
+  const a = await decide(admin, l.id);
   if (a.status !== 200) throw new Error(`approve: ${a.status} ${JSON.stringify(a.body)}`);
   void t;
   return l;

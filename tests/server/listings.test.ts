@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { createListing, listingBody, liveListing, makeMaterial } from './listings.fixtures.ts';
+import { createListing, decide, listingBody, liveListing, makeMaterial } from './listings.fixtures.ts';
 
 let t: TestApp;
 let a: Agent; // seller A
@@ -101,7 +101,7 @@ describe('listing states', () => {
     expect((await a.post(`/api/seller/listings/${l.id}/pause`).send({})).status).toBe(409);
     const sub = await a.post(`/api/seller/listings/${l.id}/submit`).send({});
     expect(sub.body.listing.state).toBe('in_review');
-    await admin.post(`/api/moderation/listings/${l.id}/approve`).send({});
+    await decide(admin, l.id);
     expect((await a.get(`/api/seller/listings/${l.id}`)).body.listing.state).toBe('live');
     expect((await a.post(`/api/seller/listings/${l.id}/pause`).send({})).body.listing.state).toBe('paused');
     expect((await request(t.app).get(`/api/listings/${l.slug}`)).status).toBe(404);
@@ -127,7 +127,7 @@ describe('listing states', () => {
     expect(pub.body.priceMinor).toBe(2000);
     const queue = await admin.get('/api/moderation/queue');
     expect(queue.body.listings.find((x: { id: string }) => x.id === l.id)).toMatchObject({ kind: 'edit', title: 'Edited title here' });
-    await admin.post(`/api/moderation/listings/${l.id}/approve`).send({});
+    await decide(admin, l.id);
     const after = await request(t.app).get(`/api/listings/${l.slug}`);
     expect(after.body.content.title).toBe('Edited title here');
     expect(after.body.priceMinor).toBe(9900);
@@ -136,7 +136,7 @@ describe('listing states', () => {
   it('when a rejected listing is edited, then it is a draft again and can be resubmitted', async () => {
     const l = await createListing(a);
     await a.post(`/api/seller/listings/${l.id}/submit`).send({});
-    await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'Photo missing.' });
+    await decide(admin, l.id, 'Photo missing.');
     const got = (await a.get(`/api/seller/listings/${l.id}`)).body.listing;
     expect(got).toMatchObject({ state: 'rejected', rejectionReason: 'Photo missing.' });
     const put = await a.put(`/api/seller/listings/${l.id}`).send(await listingBody(a));

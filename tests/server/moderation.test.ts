@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
 import { makeTestApp, eventually, type TestApp } from '../factories/app.ts';
-import { createListing, liveListing } from './listings.fixtures.ts';
+import { createListing, decide, liveListing, shownRevision } from './listings.fixtures.ts';
 
 let t: TestApp;
 let seller: Awaited<ReturnType<TestApp['makeSeller']>>;
@@ -48,7 +48,7 @@ describe('listing review', () => {
     expect((await request(t.app).get(`/api/listings/${l.slug}`)).status).toBe(404);
     expect((await search('quokka')).body.total).toBe(0);
 
-    const ok = await admin.post(`/api/moderation/listings/${l.id}/approve`).send({});
+    const ok = await decide(admin, l.id);
     expect(ok.body.listing.state).toBe('live');
     expect((await request(t.app).get(`/api/listings/${l.slug}`)).status).toBe(200);
     expect((await search('quokka')).body.items.map((x: { id: string }) => x.id)).toEqual([l.id]);
@@ -60,7 +60,7 @@ describe('listing review', () => {
     const l = await createListing(a, { title: 'Wombat school pouch' });
     await a.post(`/api/seller/listings/${l.id}/submit`).send({});
     const reason = 'The photo shows another <b>brand</b>; please use your own photo.';
-    const res = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason });
+    const res = await decide(admin, l.id, reason);
     expect(res.body.listing).toMatchObject({ state: 'rejected', rejectionReason: reason });
     const mail = await eventually(async () => (await t.mailTo(seller.email)).find((m) => /Wombat/.test(m.subject)));
     expect(mail.text).toContain(reason);
@@ -72,19 +72,19 @@ describe('listing review', () => {
   it('when a reject has no reason, then 400 on reason; approving something not in review is 409', async () => {
     const l = await createListing(a);
     await a.post(`/api/seller/listings/${l.id}/submit`).send({});
-    const res = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: ' ' });
+    const res = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ revision: await shownRevision(admin, l.id), reason: ' ' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.reason).toBeTruthy();
     const draft = await createListing(a);
-    expect((await admin.post(`/api/moderation/listings/${draft.id}/approve`).send({})).status).toBe(409);
-    expect((await admin.post('/api/moderation/listings/no-such-id/approve').send({})).status).toBe(404);
+    expect((await admin.post(`/api/moderation/listings/${draft.id}/approve`).send({ revision: 1 })).status).toBe(409);
+    expect((await admin.post('/api/moderation/listings/no-such-id/approve').send({ revision: 1 })).status).toBe(404);
   });
 
   it('when an edit to a live listing is rejected, then the approved copy stays on sale', async () => {
     const l = await liveListing(t, a, admin, { title: 'Platypus harvest tote' });
     const body = (await a.get(`/api/seller/listings/${l.id}`)).body.listing.draft;
     await a.put(`/api/seller/listings/${l.id}`).send({ ...body, title: 'Platypus tote with a typo' });
-    await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'Title has a typo.' });
+    await decide(admin, l.id, 'Title has a typo.');
     const got = (await a.get(`/api/seller/listings/${l.id}`)).body.listing;
     expect(got).toMatchObject({ state: 'live', pendingReview: false, rejectionReason: 'Title has a typo.' });
     expect((await request(t.app).get(`/api/listings/${l.slug}`)).body.content.title).toBe('Platypus harvest tote');
@@ -193,7 +193,7 @@ describe('audit log', () => {
     const l = await createListing(a, { title: 'Audit trail tote' });
     await a.post(`/api/seller/listings/${l.id}/submit`).send({});
     const before = Date.now();
-    await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'Needs a clearer photo.' });
+    await decide(admin, l.id, 'Needs a clearer photo.');
     const res = await admin.get('/api/moderation/audit');
     expect(res.status).toBe(200);
     const top = res.body.items[0];
@@ -205,5 +205,180 @@ describe('audit log', () => {
     expect(res.body.total).toBeGreaterThanOrEqual(res.body.items.length);
     const actions = res.body.items.map((i: { action: string }) => i.action);
     expect(actions).toEqual(expect.arrayContaining(['listing.approve', 'shop.suspend', 'shop.restore', 'shop.approve', 'shop.reject']));
+  });
+});
+
+describe('moderation decides on the revision it showed', () => {
+  const STALE = 'The seller changed this listing after you opened it; review the new version.';
+  const edit = async (id: string, title: string) => {
+    const body = (await a.get(`/api/seller/listings/${id}`)).body.listing.draft;
+    const res = await a.put(`/api/seller/listings/${id}`).send({ ...body, title });
+    expect(res.status).toBe(200);
+    return res.body.listing as { revision: number; state: string; pendingReview: boolean };
+  };
+
+  it('when the seller edits a listing in review after the admin opened it, then approving the opened revision is 409 and nothing goes live', async () => {
+    const l = await createListing(a, { title: 'Otter autumn tote' });
+    await a.post(`/api/seller/listings/${l.id}/submit`).send({});
+    const shown = (await admin.get(`/api/moderation/listings/${l.id}`)).body;
+    expect(shown.page.content.title).toBe('Otter autumn tote');
+    const saved = await edit(l.id, 'Otter tote with a rude word');
+    expect(saved.revision).toBe(shown.listing.revision + 1);
+    expect(saved.state).toBe('in_review'); // still in the queue, now with the new revision
+
+    const res = await admin.post(`/api/moderation/listings/${l.id}/approve`).send({ revision: shown.listing.revision });
+    expect(res.status).toBe(409);
+    expect(res.body.error).toMatchObject({ code: 'stale_revision', message: STALE });
+    expect((await request(t.app).get(`/api/listings/${l.slug}`)).status).toBe(404);
+    const rejectOld = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ revision: shown.listing.revision, reason: 'Photo is blurry.' });
+    expect(rejectOld.status).toBe(409);
+    expect(rejectOld.body.error.message).toBe(STALE);
+
+    // the queue and the review page show the new revision; rejecting that one works
+    const queued = (await admin.get('/api/moderation/queue')).body.listings.find((x: { id: string }) => x.id === l.id);
+    expect(queued).toMatchObject({ revision: saved.revision, title: 'Otter tote with a rude word', state: 'in_review' });
+    const now = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ revision: saved.revision, reason: 'Please drop the rude word.' });
+    expect(now.status).toBe(200);
+    expect(now.body.listing.state).toBe('rejected');
+  });
+
+  it('when a live listing is edited twice while the admin reviews the first edit, then it goes back to the queue and only the shown text is published', async () => {
+    const l = await liveListing(t, a, admin, { title: 'Badger school pouch' });
+    await edit(l.id, 'Badger school pouch, now in green');
+    const first = (await admin.get(`/api/moderation/listings/${l.id}`)).body;
+    expect(first.listing).toMatchObject({ kind: 'edit', pendingReview: true });
+    expect(first.page.content.title).toBe('Badger school pouch, now in green');
+
+    const second = await edit(l.id, 'Badger pouch: buy elsewhere cheaper');
+    expect(second).toMatchObject({ state: 'live', pendingReview: true, revision: first.listing.revision + 1 });
+    expect((await admin.post(`/api/moderation/listings/${l.id}/approve`).send({ revision: first.listing.revision })).status).toBe(409);
+    // the approved copy stays on sale meanwhile
+    expect((await request(t.app).get(`/api/listings/${l.slug}`)).body.content.title).toBe('Badger school pouch');
+
+    // the admin reloads: the review page shows the second edit; approving it publishes exactly that text
+    const again = (await admin.get(`/api/moderation/listings/${l.id}`)).body;
+    expect(again.listing.revision).toBe(second.revision);
+    expect(again.page.content.title).toBe('Badger pouch: buy elsewhere cheaper');
+    const ok = await admin.post(`/api/moderation/listings/${l.id}/approve`).send({ revision: again.listing.revision });
+    expect(ok.status).toBe(200);
+    const pub = (await request(t.app).get(`/api/listings/${l.slug}`)).body;
+    expect(pub.content.title).toBe(again.page.content.title);
+    expect(pub.content.description).toBe(again.page.content.description);
+    expect(pub.priceMinor).toBe(again.page.priceMinor);
+
+    // an edit after approval is a new review round again
+    const third = await edit(l.id, 'Badger pouch, third edit');
+    expect(third).toMatchObject({ pendingReview: true, revision: second.revision + 1 });
+    expect((await admin.get('/api/moderation/queue')).body.listings.map((x: { id: string }) => x.id)).toContain(l.id);
+  });
+
+  it('when an approve names no revision, then 400 on revision', async () => {
+    const l = await createListing(a);
+    await a.post(`/api/seller/listings/${l.id}/submit`).send({});
+    const res = await admin.post(`/api/moderation/listings/${l.id}/approve`).send({});
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields.revision).toMatch(/revision/);
+  });
+
+  it('when an admin who keeps a shop reviews their own listing, then 403; another admin decides', async () => {
+    const adminSeller = await t.makeUser('admin');
+    const own = await t.signIn(adminSeller.email);
+    expect((await own.post('/api/shops').send({ name: 'Moderator Makes' })).status).toBe(201);
+    const shopId = (await own.get('/api/shop')).body.shop.id as string;
+    await admin.post(`/api/moderation/shops/${shopId}/approve`).send({}).expect(200);
+    const l = await createListing(own, { title: 'Self-approved tote' });
+    await own.post(`/api/seller/listings/${l.id}/submit`).send({});
+    const revision = await shownRevision(own, l.id);
+    const res = await own.post(`/api/moderation/listings/${l.id}/approve`).send({ revision });
+    expect(res.status).toBe(403);
+    expect(res.body.error.message).toMatch(/another admin/);
+    expect((await own.post(`/api/moderation/shops/${shopId}/suspend`).send({ reason: 'Suspend myself' })).status).toBe(403);
+    expect((await admin.post(`/api/moderation/listings/${l.id}/approve`).send({ revision })).status).toBe(200);
+  });
+});
+
+describe('shop name and description changes', () => {
+  type Change = { id: string; revision: number; before: { name: string; description: string }; after: { name: string; description: string }; changed: string[] };
+  const changeOf = async (shopId: string) =>
+    ((await admin.get('/api/moderation/queue')).body.shopChanges as Change[]).find((c) => c.id === shopId);
+
+  it('when a live shop is renamed, then the old name stays public until an admin approves the change shown to them', async () => {
+    const s = await t.makeSeller({ name: 'Puffin Press' });
+    const sa = await t.signIn(s.email);
+    const slug = (await sa.get('/api/shop')).body.shop.slug as string;
+    const saved = await sa.patch('/api/shop').send({ name: 'Puffin Press & Co', description: 'Totes for little puffins.', processingDays: 4 });
+    expect(saved.status).toBe(200);
+    // the other settings apply at once; name and description wait
+    expect(saved.body.shop).toMatchObject({ name: 'Puffin Press', description: '', processingDays: 4, pendingChange: { name: 'Puffin Press & Co', description: 'Totes for little puffins.' } });
+    expect((await request(t.app).get(`/api/shops/${slug}`)).body.shop).toMatchObject({ name: 'Puffin Press', description: '' });
+
+    const change = (await changeOf(s.shopId))!;
+    expect(change).toMatchObject({ before: { name: 'Puffin Press', description: '' }, after: { name: 'Puffin Press & Co', description: 'Totes for little puffins.' } });
+    expect(change.changed.sort()).toEqual(['description', 'name']);
+
+    // saving unrelated settings does not restart the review
+    await sa.patch('/api/shop').send({ name: 'Puffin Press & Co', description: 'Totes for little puffins.', shippingMinor: 350 }).expect(200);
+    expect((await changeOf(s.shopId))!.revision).toBe(change.revision);
+
+    // the seller cannot approve their own change
+    expect((await sa.post(`/api/moderation/shops/${s.shopId}/approve-change`).send({ revision: change.revision })).status).toBe(403);
+    expect((await request(t.app).post(`/api/moderation/shops/${s.shopId}/approve-change`).send({ revision: change.revision })).status).toBe(401);
+
+    const ok = await admin.post(`/api/moderation/shops/${s.shopId}/approve-change`).send({ revision: change.revision });
+    expect(ok.status).toBe(200);
+    expect((await request(t.app).get(`/api/shops/${slug}`)).body.shop).toMatchObject({ name: 'Puffin Press & Co', description: 'Totes for little puffins.' });
+    expect((await sa.get('/api/shop')).body.shop).toMatchObject({ name: 'Puffin Press & Co', pendingChange: null });
+    expect(await changeOf(s.shopId)).toBeUndefined();
+    const mail = await eventually(async () => (await t.mailTo(s.email)).find((m) => /details are approved/.test(m.subject)));
+    expect(mail.text).toContain('Puffin Press & Co');
+    const audit = (await admin.get('/api/moderation/audit')).body.items[0];
+    expect(audit).toMatchObject({ action: 'shop.change.approve', subject: { type: 'shop', id: s.shopId } });
+  });
+
+  it('when the seller changes the name again after the admin opened it, then the stale approve is 409 and the public name is unchanged', async () => {
+    const s = await t.makeSeller({ name: 'Tern Threads' });
+    const sa = await t.signIn(s.email);
+    await sa.patch('/api/shop').send({ name: 'Tern Threads Kids' }).expect(200);
+    const opened = (await changeOf(s.shopId))!;
+    await sa.patch('/api/shop').send({ name: 'Cheap Copies Outlet' }).expect(200);
+    const res = await admin.post(`/api/moderation/shops/${s.shopId}/approve-change`).send({ revision: opened.revision });
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/changed the shop details after you opened them/);
+    expect((await sa.get('/api/shop')).body.shop.name).toBe('Tern Threads');
+    const now = (await changeOf(s.shopId))!;
+    expect(now).toMatchObject({ revision: opened.revision + 1, after: { name: 'Cheap Copies Outlet' } });
+  });
+
+  it('when a change is rejected, then the old name and description stay, and the seller gets the reason', async () => {
+    const s = await t.makeSeller({ name: 'Lark Linen' });
+    const sa = await t.signIn(s.email);
+    await sa.patch('/api/shop').send({ description: 'Visit my other shop for lower prices.' }).expect(200);
+    const change = (await changeOf(s.shopId))!;
+    expect(change.changed).toEqual(['description']);
+    expect((await admin.post(`/api/moderation/shops/${s.shopId}/reject-change`).send({ revision: change.revision })).status).toBe(400); // a reason is needed
+    const res = await admin.post(`/api/moderation/shops/${s.shopId}/reject-change`).send({ revision: change.revision, reason: 'No links to other shops, please.' });
+    expect(res.status).toBe(200);
+    expect((await sa.get('/api/shop')).body.shop).toMatchObject({ name: 'Lark Linen', description: '', pendingChange: null, changeRejectionReason: 'No links to other shops, please.' });
+    const mail = await eventually(async () => (await t.mailTo(s.email)).find((m) => /not approved/.test(m.subject)));
+    expect(mail.text).toContain('No links to other shops, please.');
+    expect((await admin.post(`/api/moderation/shops/${s.shopId}/approve-change`).send({ revision: change.revision })).status).toBe(409);
+  });
+
+  it('when a shop still in review is renamed after the admin opened the queue, then approving the shown revision is 409; the new one is approved', async () => {
+    const s = await t.makeSeller({ name: 'Egret Goods', state: 'in_review' });
+    const sa = await t.signIn(s.email);
+    const shown = ((await admin.get('/api/moderation/queue')).body.shops as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
+    expect(shown.name).toBe('Egret Goods');
+    // the whole shop is reviewed before it goes live, so the name applies at once, with a new revision
+    const res = await sa.patch('/api/shop').send({ name: 'Egret Knock-offs' });
+    expect(res.body.shop).toMatchObject({ name: 'Egret Knock-offs', pendingChange: null });
+    expect(await changeOf(s.shopId)).toBeUndefined();
+    const stale = await admin.post(`/api/moderation/shops/${s.shopId}/approve`).send({ revision: shown.revision });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.message).toMatch(/review the new version/);
+    expect((await sa.get('/api/shop')).body.shop.state).toBe('in_review');
+    const now = ((await admin.get('/api/moderation/queue')).body.shops as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
+    expect(now).toMatchObject({ name: 'Egret Knock-offs', revision: shown.revision + 1 });
+    expect((await admin.post(`/api/moderation/shops/${s.shopId}/approve`).send({ revision: now.revision })).body.shop.state).toBe('live');
   });
 });

@@ -10,7 +10,7 @@ type Deps = { db: Db; now: () => number };
 
 export function toSellerListing(l: ListingRow): SellerListing {
   return {
-    id: l.id, slug: l.slug, state: l.state as ListingState, pendingReview: l.pendingReview, rejectionReason: l.rejectionReason,
+    id: l.id, slug: l.slug, state: l.state as ListingState, pendingReview: l.pendingReview, rejectionReason: l.rejectionReason, revision: l.revision,
     draft: l.draft as unknown as ListingContentParsed, live: (l.live as unknown as ListingContentParsed | null) ?? null,
     currency: l.currency, publishedAt: l.publishedAt, createdAt: l.createdAt, updatedAt: l.updatedAt,
   };
@@ -80,8 +80,10 @@ export function create(deps: Deps, shop: { id: string; currency: string }, conte
 }
 
 /**
- * Saves the working copy. A listing on sale (live or paused) keeps its approved copy on sale and
- * the change waits for review (pendingReview); a rejected listing becomes a draft again.
+ * Saves the working copy as a new revision. A listing on sale (live or paused) keeps its approved
+ * copy on sale and the change waits for review (pendingReview); a listing in review stays in the
+ * queue with the new revision, so a moderator who opened an older one cannot approve it (409); a
+ * rejected listing becomes a draft again.
  */
 export function update(deps: Deps, shopId: string, id: string, content: ListingContentParsed): SellerListing {
   const l = findOwn(deps.db, shopId, id);
@@ -91,7 +93,7 @@ export function update(deps: Deps, shopId: string, id: string, content: ListingC
   const state = l.state === 'rejected' ? 'draft' : l.state;
   return toSellerListing(updateOwn(deps.db, shopId, id, {
     draft: content as unknown as ListingContent, state, pendingReview: onSale ? true : l.pendingReview,
-    rejectionReason: onSale ? l.rejectionReason : null, updatedAt: deps.now(),
+    rejectionReason: onSale ? l.rejectionReason : null, revision: l.revision + 1, updatedAt: deps.now(),
   })!);
 }
 

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
 
@@ -11,14 +11,22 @@ export const shopsInReview = (db: Db) =>
 export const listingsInReview = (db: Db) =>
   db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId))
     .where(or(eq(listings.state, 'in_review'), eq(listings.pendingReview, true))).orderBy(listings.updatedAt).all();
+/** live (or suspended) shops whose name/description change waits for review */
+export const shopsWithChanges = (db: Db) =>
+  db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
+    .where(isNotNull(shops.pendingChange)).orderBy(shops.updatedAt).all();
 
 export const findShop = (db: Db, id: string) => db.select().from(shops).where(eq(shops.id, id)).get();
 export const findListing = (db: Db, id: string) => db.select().from(listings).where(eq(listings.id, id)).get();
 export const ownerOf = (db: Db, shopId: string) =>
   db.select({ email: user.email, name: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(eq(shops.id, shopId)).get();
 export const updateShop = (db: Db, id: string, set: Partial<typeof shops.$inferInsert>) => db.update(shops).set(set).where(eq(shops.id, id)).returning().get();
-export const updateListing = (db: Db, id: string, set: Partial<typeof listings.$inferInsert>) =>
-  db.update(listings).set(set).where(eq(listings.id, id)).returning().get();
+/** updates only while the listing is still at the revision the moderator saw; undefined otherwise */
+export const updateListingAt = (db: Db, id: string, revision: number, set: Partial<typeof listings.$inferInsert>) =>
+  db.update(listings).set(set).where(and(eq(listings.id, id), eq(listings.revision, revision))).returning().get();
+/** updates only while the shop's pending change is still the revision the moderator saw */
+export const updateShopAt = (db: Db, id: string, changeRevision: number, set: Partial<typeof shops.$inferInsert>) =>
+  db.update(shops).set(set).where(and(eq(shops.id, id), eq(shops.changeRevision, changeRevision), isNotNull(shops.pendingChange))).returning().get();
 export const thumbOf = (db: Db, shopId: string, uploadId: string | undefined) =>
   uploadId ? (db.select({ t: uploads.thumbPath }).from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.shopId, shopId))).get()?.t ?? null) : null;
 

@@ -3,7 +3,9 @@ import { z } from 'zod';
 import type { AppDeps } from '../../app.ts';
 import { currentUser, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { moderationIdParams, moderationShopsQuery, optionalReasonSchema, reasonSchema } from '../../../shared/schemas/catalog.ts';
+import {
+  approveShopSchema, decisionSchema, moderationIdParams, moderationShopsQuery, optionalReasonSchema, reasonSchema, rejectDecisionSchema,
+} from '../../../shared/schemas/catalog.ts';
 import * as svc from './moderation.service.ts';
 
 /** /api/moderation: the moderation desk, admins only (403 for everyone else, 401 for guests). */
@@ -17,15 +19,26 @@ export function moderationRouter(deps: AppDeps): Router {
   r.get('/shops', validate({ query: moderationShopsQuery }), (_req, res) => {
     res.json(svc.shops(deps.db, res.locals.query as z.output<typeof moderationShopsQuery>));
   });
-  r.post('/listings/:id/approve', validate({ params: moderationIdParams }), async (req, res) => {
-    res.json({ listing: await svc.approveListing(deps, currentUser(req), id(req)) });
+  r.get('/listings/:id', validate({ params: moderationIdParams }), (req, res) => {
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.json(svc.listingForReview(deps.db, currentUser(req), id(req)));
   });
-  r.post('/listings/:id/reject', validate({ params: moderationIdParams, body: reasonSchema }), async (req, res) => {
-    res.json({ listing: await svc.rejectListing(deps, currentUser(req), id(req), req.body.reason) });
+  // a decision names the revision the moderator was shown: 409 if the seller changed it since
+  r.post('/listings/:id/approve', validate({ params: moderationIdParams, body: decisionSchema }), async (req, res) => {
+    res.json({ listing: await svc.approveListing(deps, currentUser(req), id(req), req.body.revision) });
+  });
+  r.post('/listings/:id/reject', validate({ params: moderationIdParams, body: rejectDecisionSchema }), async (req, res) => {
+    res.json({ listing: await svc.rejectListing(deps, currentUser(req), id(req), req.body.revision, req.body.reason) });
+  });
+  r.post('/shops/:id/approve-change', validate({ params: moderationIdParams, body: decisionSchema }), async (req, res) => {
+    res.json({ shop: await svc.approveShopChange(deps, currentUser(req), id(req), req.body.revision) });
+  });
+  r.post('/shops/:id/reject-change', validate({ params: moderationIdParams, body: rejectDecisionSchema }), async (req, res) => {
+    res.json({ shop: await svc.rejectShopChange(deps, currentUser(req), id(req), req.body.revision, req.body.reason) });
   });
   for (const move of ['approve', 'restore'] as const)
-    r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: optionalReasonSchema }), async (req, res) => {
-      res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason ?? null) });
+    r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: move === 'approve' ? approveShopSchema : optionalReasonSchema }), async (req, res) => {
+      res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason ?? null, req.body.revision) });
     });
   for (const move of ['reject', 'suspend'] as const)
     r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: reasonSchema }), async (req, res) => {

@@ -3,10 +3,13 @@ import type { Db } from '../../db/client.ts';
 import type { Mailer } from '../../integrations/mailer.ts';
 import { escapeHtml, mailLayout } from '../../integrations/mailer.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
-import { conflict, notFound } from '../../http/app-error.ts';
+import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
 import { liveColumns, type ListingContentParsed } from '../../../shared/schemas/listing.ts';
-import { MODERATION_SHOPS_PAGE_SIZE, type ModerationShopsPage } from '../../../shared/schemas/catalog.ts';
+import {
+  MODERATION_SHOPS_PAGE_SIZE, STALE_LISTING_MESSAGE, STALE_SHOP_CHANGE_MESSAGE, type ListingPage, type ModerationShopsPage,
+} from '../../../shared/schemas/catalog.ts';
 import type { ShopState } from '../../../shared/schemas/shop.ts';
+import { listingPage } from '../catalog/catalog.service.ts';
 import * as repo from './moderation.repo.ts';
 
 type Deps = { db: Db; now: () => number; mailer: Mailer; env: { baseUrl: string } };
@@ -28,24 +31,60 @@ async function tell(deps: Deps, shopId: string, subject: string, lines: string[]
   }
 }
 
+const stale = (message: string) => new AppError(409, 'stale_revision', message);
+
+/** Separation of duties: an admin who also keeps a shop cannot decide on that shop's things. */
+function notOwnShop(db: Db, actor: SessionUser, shopId: string) {
+  if (repo.findShop(db, shopId)?.ownerId === actor.id) throw forbidden('This is your own shop: another admin must decide on it.');
+}
+
+function queueListing({ listing, shop }: { listing: repo.ListingRow; shop: repo.ShopRow }) {
+  return {
+    id: listing.id, slug: listing.slug, state: listing.state, pendingReview: listing.pendingReview,
+    /** the revision shown here; approve/reject must name it */
+    revision: listing.revision,
+    /** "new" waits for its first approval; "edit" is a change to a listing already on sale */
+    kind: listing.live ? ('edit' as const) : ('new' as const),
+    title: (listing.draft as unknown as ListingContentParsed).title,
+    shop: { id: shop.id, name: shop.name, slug: shop.slug, state: shop.state },
+    draft: listing.draft as unknown as ListingContentParsed,
+    live: (listing.live as unknown as ListingContentParsed | null) ?? null,
+    /** the listing page as a shopper would see it: GET this URL (admin only for drafts) */
+    previewUrl: `/api/listings/${listing.slug}?version=draft`,
+    submittedAt: listing.updatedAt,
+  };
+}
+
 export function queue(db: Db) {
   return {
     shops: repo.shopsInReview(db).map(({ shop, ownerEmail, ownerName }) => ({
       id: shop.id, name: shop.name, slug: shop.slug, state: shop.state, description: shop.description, owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+      /** the revision of the name/description shown; approving may name it */
+      revision: shop.changeRevision,
     })),
-    listings: repo.listingsInReview(db).map(({ listing, shop }) => ({
-      id: listing.id, slug: listing.slug, state: listing.state, pendingReview: listing.pendingReview,
-      /** "new" waits for its first approval; "edit" is a change to a listing already on sale */
-      kind: listing.live ? ('edit' as const) : ('new' as const),
-      title: (listing.draft as unknown as ListingContentParsed).title,
-      shop: { id: shop.id, name: shop.name, slug: shop.slug, state: shop.state },
-      draft: listing.draft as unknown as ListingContentParsed,
-      live: (listing.live as unknown as ListingContentParsed | null) ?? null,
-      /** the listing page as a shopper would see it: GET this URL (admin only for drafts) */
-      previewUrl: `/api/listings/${listing.slug}?version=draft`,
-      submittedAt: listing.updatedAt,
+    listings: repo.listingsInReview(db).map(queueListing),
+    /** name/description changes of approved shops: the public shop keeps `before` until approval */
+    shopChanges: repo.shopsWithChanges(db).map(({ shop, ownerEmail, ownerName }) => ({
+      id: shop.id, slug: shop.slug, state: shop.state, owner: { name: ownerName, email: ownerEmail },
+      revision: shop.changeRevision,
+      before: { name: shop.name, description: shop.description },
+      after: { name: shop.pendingChange?.name ?? shop.name, description: shop.pendingChange?.description ?? shop.description },
+      changed: [...(shop.pendingChange?.name !== undefined ? ['name' as const] : []), ...(shop.pendingChange?.description !== undefined ? ['description' as const] : [])],
+      submittedAt: shop.pendingChange?.submittedAt ?? shop.updatedAt,
     })),
   };
+}
+
+/**
+ * One listing waiting for review, with its page rendered from the same read of the row: the
+ * revision returned is the one whose text the moderator is shown.
+ */
+export function listingForReview(db: Db, actor: SessionUser, id: string): { listing: ReturnType<typeof queueListing>; page: ListingPage } {
+  const l = repo.findListing(db, id);
+  const shop = l ? repo.findShop(db, l.shopId) : undefined;
+  if (!l || !shop) throw notFound('No such listing.');
+  if (l.state !== 'in_review' && !l.pendingReview) throw notFound('This listing is not waiting for review (it may have been decided already).');
+  return { listing: queueListing({ listing: l, shop }), page: listingPage(db, l.slug, 'draft', actor) };
 }
 
 /** The desk's shop directory: any shop in any state, so a live one can be found and suspended. */
@@ -69,17 +108,21 @@ function waiting(db: Db, id: string) {
   return l;
 }
 
-export async function approveListing(deps: Deps, actor: SessionUser, id: string) {
+/** Publishes exactly the revision the moderator reviewed; a later seller edit makes this a 409. */
+export async function approveListing(deps: Deps, actor: SessionUser, id: string, revision: number) {
   const l = waiting(deps.db, id);
+  notOwnShop(deps.db, actor, l.shopId);
+  if (l.revision !== revision) throw stale(STALE_LISTING_MESSAGE);
   const content = l.draft as unknown as ListingContentParsed;
   const at = deps.now();
   const row = deps.db.transaction((tx) => {
     const db = tx as unknown as Db;
-    const updated = repo.updateListing(db, id, {
+    const updated = repo.updateListingAt(db, id, revision, {
       live: l.draft, ...liveColumns(content), liveThumbPath: repo.thumbOf(db, l.shopId, content.photoIds[0]),
       state: l.state === 'paused' ? 'paused' : 'live', pendingReview: false, rejectionReason: null,
       publishedAt: l.publishedAt ?? at, updatedAt: at,
-    })!;
+    });
+    if (!updated) throw stale(STALE_LISTING_MESSAGE);
     audit(deps, actor, 'listing.approve', 'listing', id, null);
     return updated;
   });
@@ -90,13 +133,16 @@ export async function approveListing(deps: Deps, actor: SessionUser, id: string)
   return { id: row.id, state: row.state, pendingReview: row.pendingReview };
 }
 
-export async function rejectListing(deps: Deps, actor: SessionUser, id: string, reason: string) {
+export async function rejectListing(deps: Deps, actor: SessionUser, id: string, revision: number, reason: string) {
   const l = waiting(deps.db, id);
+  notOwnShop(deps.db, actor, l.shopId);
+  if (l.revision !== revision) throw stale(STALE_LISTING_MESSAGE);
   const content = l.draft as unknown as ListingContentParsed;
   const at = deps.now();
   // a rejected edit leaves the approved copy on sale; a new listing goes back to the seller
   const row = deps.db.transaction((tx) => {
-    const updated = repo.updateListing(tx as unknown as Db, id, l.live ? { pendingReview: false, rejectionReason: reason, updatedAt: at } : { state: 'rejected', rejectionReason: reason, updatedAt: at })!;
+    const updated = repo.updateListingAt(tx as unknown as Db, id, revision, l.live ? { pendingReview: false, rejectionReason: reason, updatedAt: at } : { state: 'rejected', rejectionReason: reason, updatedAt: at });
+    if (!updated) throw stale(STALE_LISTING_MESSAGE);
     audit(deps, actor, 'listing.reject', 'listing', id, reason);
     return updated;
   });
@@ -122,11 +168,14 @@ export type ShopMove = keyof typeof SHOP_MOVES;
  * Shop decisions. The catalogue shows only listings of live shops (it joins on the shop's state),
  * so a suspension takes the shop's listings out of browse and search in this one update.
  */
-export async function moveShop(deps: Deps, actor: SessionUser, id: string, move: ShopMove, reason: string | null) {
+export async function moveShop(deps: Deps, actor: SessionUser, id: string, move: ShopMove, reason: string | null, revision?: number) {
   const shop = repo.findShop(deps.db, id);
   if (!shop) throw notFound('No such shop.');
+  if (shop.ownerId === actor.id) throw forbidden('This is your own shop: another admin must decide on it.');
   const m = SHOP_MOVES[move];
   if (!(m.from as readonly string[]).includes(shop.state)) throw conflict(`A shop that is ${shop.state.replace('_', ' ')} cannot be moved that way.`);
+  // the desk sends the revision of the name/description it showed; a rename since then is a 409
+  if (move === 'approve' && revision !== undefined && revision !== shop.changeRevision) throw stale(STALE_SHOP_CHANGE_MESSAGE);
   const row = deps.db.transaction((tx) => {
     const updated = repo.updateShop(tx as unknown as Db, id, { state: m.to, stateReason: reason, updatedAt: deps.now() })!;
     audit(deps, actor, m.action, 'shop', id, reason);
@@ -141,6 +190,51 @@ export async function moveShop(deps: Deps, actor: SessionUser, id: string, move:
   const subjects: Record<ShopMove, string> = { approve: 'Your shop is approved', reject: 'Your shop was not approved', suspend: 'Your shop is suspended', restore: 'Your shop is restored' };
   await tell(deps, id, subjects[move], text[move]);
   return { id: row.id, state: row.state, stateReason: row.stateReason };
+}
+
+function changeWaiting(db: Db, actor: SessionUser, id: string, revision: number) {
+  const shop = repo.findShop(db, id);
+  if (!shop) throw notFound('No such shop.');
+  if (shop.ownerId === actor.id) throw forbidden('This is your own shop: another admin must decide on it.');
+  if (!shop.pendingChange) throw conflict('This shop has no change waiting for review.');
+  if (shop.changeRevision !== revision) throw stale(STALE_SHOP_CHANGE_MESSAGE);
+  return { shop, change: shop.pendingChange };
+}
+
+/** Applies exactly the reviewed name/description change to the public shop. */
+export async function approveShopChange(deps: Deps, actor: SessionUser, id: string, revision: number) {
+  const { shop, change } = changeWaiting(deps.db, actor, id, revision);
+  const name = change.name ?? shop.name;
+  const row = deps.db.transaction((tx) => {
+    const updated = repo.updateShopAt(tx as unknown as Db, id, revision, {
+      name, description: change.description ?? shop.description, pendingChange: null, changeRejectionReason: null, updatedAt: deps.now(),
+    });
+    if (!updated) throw stale(STALE_SHOP_CHANGE_MESSAGE);
+    audit(deps, actor, 'shop.change.approve', 'shop', id, null);
+    return updated;
+  });
+  await tell(deps, id, 'Your shop details are approved', [
+    change.name !== undefined ? `Your shop is now called "${name}".` : `The new description of "${name}" is approved.`,
+    'Shoppers see the new details from now on.',
+  ]);
+  return { id: row.id, name: row.name, description: row.description };
+}
+
+/** The public shop keeps its approved name/description; the seller gets the reason. */
+export async function rejectShopChange(deps: Deps, actor: SessionUser, id: string, revision: number, reason: string) {
+  const { shop } = changeWaiting(deps.db, actor, id, revision);
+  const row = deps.db.transaction((tx) => {
+    const updated = repo.updateShopAt(tx as unknown as Db, id, revision, { pendingChange: null, changeRejectionReason: reason, updatedAt: deps.now() });
+    if (!updated) throw stale(STALE_SHOP_CHANGE_MESSAGE);
+    audit(deps, actor, 'shop.change.reject', 'shop', id, reason);
+    return updated;
+  });
+  await tell(deps, id, 'Your shop details were not approved', [
+    `Your change to the name or description of "${shop.name}" was not approved; shoppers keep seeing the current details.`,
+    `Reason from the moderator:\n${reason}`,
+    'Change them in your shop settings and they will be reviewed again.',
+  ]);
+  return { id: row.id, name: row.name, description: row.description, changeRejectionReason: row.changeRejectionReason };
 }
 
 export function auditLog(db: Db, page: number, pageSize = 50) {

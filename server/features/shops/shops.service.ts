@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
+import type { ShopChange } from '../../db/schema.ts';
 import type { ShopRow, SessionUser } from '../../http/auth-guards.ts';
 import { badRequest, conflict } from '../../http/app-error.ts';
 import { uploadUrl, type Storage } from '../../integrations/storage.ts';
@@ -20,13 +21,48 @@ export function toOwnShop(s: ShopRow): OwnShop {
     returnPolicy: s.returnPolicy,
     pressType: s.pressType as OwnShop['pressType'],
     logoUrl: uploadUrl(s.logoPath),
+    pendingChange: s.pendingChange ?? null,
+    changeRejectionReason: s.changeRejectionReason,
   };
+}
+
+/** A shop that has been approved shows its name and description in public: changes wait for review. */
+const reviewsChanges = (s: ShopRow) => s.state === 'live' || s.state === 'suspended';
+
+/**
+ * The pending change after this save: the saved name/description where given (else the one
+ * already pending), minus whatever equals the approved value. `undefined` when nothing differs.
+ */
+function nextChange(s: ShopRow, input: { name?: string; description?: string }, at: number): ShopChange | undefined {
+  const cur = s.pendingChange;
+  const name = input.name ?? cur?.name;
+  const description = input.description ?? cur?.description;
+  const next: ShopChange = { submittedAt: at };
+  if (name !== undefined && name !== s.name) next.name = name;
+  if (description !== undefined && description !== s.description) next.description = description;
+  if (next.name === undefined && next.description === undefined) return undefined;
+  // unchanged content keeps its revision (saving other settings does not restart a review)
+  if (cur && cur.name === next.name && cur.description === next.description) return cur;
+  return next;
 }
 
 export function updateSettings(deps: { db: Db; now: () => number }, shop: ShopRow, input: ShopSettingsInput): OwnShop {
   const { db } = deps;
-  const { logoId, ...rest } = input;
-  const set: Record<string, unknown> = { ...rest, updatedAt: deps.now() };
+  const { logoId, name, description, ...rest } = input;
+  const at = deps.now();
+  const set: Record<string, unknown> = { ...rest, updatedAt: at };
+  if (!reviewsChanges(shop)) {
+    Object.assign(set, name === undefined ? {} : { name }, description === undefined ? {} : { description });
+    // a shop in review is approved as a whole: a new name/description makes an opened review stale
+    if ((name !== undefined && name !== shop.name) || (description !== undefined && description !== shop.description)) set.changeRevision = shop.changeRevision + 1;
+  } else if (name !== undefined || description !== undefined) {
+    const next = nextChange(shop, { name, description }, at);
+    if ((next ?? null) !== (shop.pendingChange ?? null)) {
+      // every altered change gets a new revision, so a moderator's decision on an older one is refused
+      Object.assign(set, { pendingChange: next ?? null, changeRevision: shop.changeRevision + 1 });
+      if (next) set.changeRejectionReason = null;
+    }
+  }
   if (rest.slug && slugTakenByOther(db, rest.slug, shop.id)) throw conflict('Another shop already uses this web address.', { slug: 'Another shop already uses this web address.' });
   if (logoId !== undefined) {
     if (logoId === null) set.logoPath = null;

@@ -5,6 +5,7 @@ import { Badge } from '../../../components/ui/form-controls.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useModerationQueue } from '../../../features/moderation/api/get-queue.ts';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
+import { ShopChangeCard } from '../../../features/moderation/components/shop-change.tsx';
 import { ShopFinder } from '../../../features/moderation/components/shop-finder.tsx';
 import { DeskNav } from './desk-nav.tsx';
 
@@ -77,6 +78,24 @@ export function ModerationDeskPage() {
                     {s.description ? <p className="whitespace-pre-wrap">{s.description}</p> : <p className="text-ink-faint">No description yet.</p>}
                     <ShopActions shop={s} />
                   </li>
+                ))}
+              </ul>
+            )}
+          </section>
+
+          <section aria-labelledby="q-changes" className="flex flex-col gap-4">
+            <h2 id="q-changes" className="text-2xl font-extrabold">
+              Shop detail changes <span className="text-ink-soft">({queue.data.shopChanges.length})</span>
+            </h2>
+            <p className="-mt-2 max-w-prose text-ink-soft">A live shop keeps showing its current name and description until you approve the new ones.</p>
+            {queue.data.shopChanges.length === 0 ? (
+              <StitchedBox>
+                <p>No shop changes are waiting.</p>
+              </StitchedBox>
+            ) : (
+              <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
+                {queue.data.shopChanges.map((c) => (
+                  <ShopChangeCard key={c.id} change={c} />
                 ))}
               </ul>
             )}

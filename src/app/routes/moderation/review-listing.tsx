@@ -6,9 +6,9 @@ import { PageHeading } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
+import { isApiError } from '../../../lib/api-client.ts';
 import { useApproveListing, useRejectListing } from '../../../features/moderation/api/decide-listing.ts';
-import { useListingPreview } from '../../../features/moderation/api/get-listing-preview.ts';
-import { useModerationQueue } from '../../../features/moderation/api/get-queue.ts';
+import { useListingReview } from '../../../features/moderation/api/get-listing-review.ts';
 import { ListingPreview } from '../../../features/moderation/components/listing-preview.tsx';
 import { ReasonForm } from '../../../features/moderation/components/reason-form.tsx';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
@@ -27,29 +27,41 @@ export function ReviewListingPage() {
   const { id } = useParams();
   const navigate = useNavigate();
   const toast = useToast();
-  const queue = useModerationQueue();
-  const item = queue.data?.listings.find((l) => l.id === id);
-  const preview = useListingPreview(item?.slug);
+  const review = useListingReview(id);
+  const item = review.data?.listing;
   const approve = useApproveListing();
   const reject = useRejectListing();
   const [rejecting, setRejecting] = useState(false);
+  // the seller saved a newer revision than the one on screen: the decision was refused (409)
+  const [stale, setStale] = useState<string | null>(null);
 
   const back = () => navigate(paths.moderation.desk.getHref());
+  /** true when the error was the 409 for a stale revision (then shown above the buttons) */
+  const staleError = (e: unknown) => {
+    if (!isApiError(e) || e.status !== 409) return false;
+    setStale(e.message);
+    setRejecting(false);
+    return true;
+  };
+  const showNewVersion = async () => {
+    await review.refetch();
+    setStale(null);
+  };
 
   return (
     <div>
       <DeskNav />
       <PageHeading eyebrow="Moderation desk" title={item ? item.title : 'Review a listing'} />
-      {queue.isPending ? <Spinner label="Loading…" /> : null}
-      {queue.data && !item ? (
+      {review.isPending && id ? <Spinner label="Loading…" /> : null}
+      {review.isError ? (
         <div className="flex flex-col items-start gap-3">
-          <p>This listing is not waiting for review (it may have been decided already).</p>
+          <p>{isApiError(review.error) && review.error.status === 404 ? review.error.message : `This listing could not be loaded: ${review.error.message}`}</p>
           <ButtonLink to={paths.moderation.desk.getHref()} variant="secondary">
             Back to the queue
           </ButtonLink>
         </div>
       ) : null}
-      {item ? (
+      {item && review.data ? (
         <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
           <div className="flex min-w-0 flex-col gap-4">
             {item.kind === 'edit' && item.live ? (
@@ -57,9 +69,7 @@ export function ReviewListingPage() {
                 <strong>Edit of a live listing.</strong> Changed: {changedParts(item.draft, item.live).join(', ') || 'nothing visible'}. The approved version stays on sale until you decide.
               </p>
             ) : null}
-            {preview.isPending ? <Spinner label="Loading the preview…" /> : null}
-            {preview.isError ? <p role="alert" className="text-danger">{preview.error.message}</p> : null}
-            {preview.data ? <ListingPreview page={preview.data} /> : null}
+            <ListingPreview page={review.data.page} />
           </div>
           <aside className="flex flex-col gap-5 lg:sticky lg:top-4 lg:self-start" aria-label="Decision">
             <div className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4">
@@ -67,14 +77,27 @@ export function ReviewListingPage() {
               <span>
                 <Badge tone={item.kind === 'new' ? 'marigold' : 'thread'}>{item.kind === 'new' ? 'New listing' : 'Edited listing'}</Badge>
               </span>
-              {rejecting ? (
+              <p className="text-sm text-ink-soft">Version {item.revision} of the seller's text, as shown here.</p>
+              {stale ? (
+                <div role="alert" className="flex flex-col items-start gap-2 rounded-lg border border-danger bg-danger-wash p-3">
+                  <p className="font-semibold text-danger">{stale}</p>
+                  <Button variant="secondary" pending={review.isFetching} onClick={() => void showNewVersion()}>
+                    Show the new version
+                  </Button>
+                </div>
+              ) : rejecting ? (
                 <ReasonForm
                   label="Reason for the seller"
                   submitLabel="Reject listing"
                   danger
                   onCancel={() => setRejecting(false)}
                   onSubmit={async (reason) => {
-                    await reject.mutateAsync({ id: item.id, reason });
+                    try {
+                      await reject.mutateAsync({ id: item.id, revision: item.revision, reason });
+                    } catch (e) {
+                      if (staleError(e)) return;
+                      throw e;
+                    }
                     toast.success(`“${item.title}” is sent back to the seller.`);
                     back();
                   }}
@@ -84,13 +107,18 @@ export function ReviewListingPage() {
                   <Button
                     pending={approve.isPending}
                     onClick={() =>
-                      approve.mutate(item.id, {
-                        onSuccess: () => {
-                          toast.success(`“${item.title}” is approved and on sale.`);
-                          back();
+                      approve.mutate(
+                        { id: item.id, revision: item.revision },
+                        {
+                          onSuccess: () => {
+                            toast.success(`“${item.title}” is approved and on sale.`);
+                            back();
+                          },
+                          onError: (e) => {
+                            if (!staleError(e)) toast.error(e.message);
+                          },
                         },
-                        onError: (e) => toast.error(e.message),
-                      })
+                      )
                     }
                   >
                     Approve listing

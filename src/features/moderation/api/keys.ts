@@ -5,5 +5,5 @@ export const moderationKeys = {
   queue: () => [...moderationKeys.all, 'queue'] as const,
   audit: (page: number) => [...moderationKeys.all, 'audit', page] as const,
   shops: (filters: ModerationShopsQuery) => [...moderationKeys.all, 'shops', filters] as const,
-  preview: (slug: string) => [...moderationKeys.all, 'preview', slug] as const,
+  review: (id: string) => [...moderationKeys.all, 'review', id] as const,
 };

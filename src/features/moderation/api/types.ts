@@ -1,13 +1,16 @@
+import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import type { ListingContentParsed, ListingState } from '../../../../shared/schemas/listing.ts';
 import type { ShopState } from '../../../../shared/schemas/shop.ts';
 
 /** GET /api/moderation/queue (server/features/moderation/moderation.service.ts) */
-export type QueueShop = { id: string; name: string; slug: string; state: ShopState; description: string; owner: { name: string; email: string }; createdAt: number };
+export type QueueShop = { id: string; name: string; slug: string; state: ShopState; description: string; owner: { name: string; email: string }; createdAt: number; revision: number };
 export type QueueListing = {
   id: string;
   slug: string;
   state: ListingState;
   pendingReview: boolean;
+  /** the revision shown; approve/reject send it back (409 when the seller changed it since) */
+  revision: number;
   kind: 'new' | 'edit';
   title: string;
   shop: { id: string; name: string; slug: string; state: ShopState };
@@ -16,7 +19,21 @@ export type QueueListing = {
   previewUrl: string;
   submittedAt: number;
 };
-export type ModerationQueue = { shops: QueueShop[]; listings: QueueListing[] };
+/** A live (or suspended) shop's new name/description, waiting; the public shop shows `before`. */
+export type QueueShopChange = {
+  id: string;
+  slug: string;
+  state: ShopState;
+  owner: { name: string; email: string };
+  revision: number;
+  before: { name: string; description: string };
+  after: { name: string; description: string };
+  changed: Array<'name' | 'description'>;
+  submittedAt: number;
+};
+export type ModerationQueue = { shops: QueueShop[]; listings: QueueListing[]; shopChanges: QueueShopChange[] };
+/** GET /api/moderation/listings/:id */
+export type ListingReview = { listing: QueueListing; page: ListingPage };
 
 export type AuditEntry = {
   id: string;

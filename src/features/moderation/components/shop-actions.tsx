@@ -16,14 +16,15 @@ export function movesFor(state: ShopState): ShopMove[] {
   return [];
 }
 
-export function ShopActions({ shop }: { shop: { id: string; name: string; state: ShopState } }) {
+/** `revision`: the revision of the name/description on screen (the queue has it), sent with approve. */
+export function ShopActions({ shop }: { shop: { id: string; name: string; state: ShopState; revision?: number } }) {
   const toast = useToast();
   const move = useMoveShop();
   const [asking, setAsking] = useState<'reject' | 'suspend' | null>(null);
   const moves = movesFor(shop.state);
 
   const run = async (m: ShopMove, reason?: string) => {
-    await move.mutateAsync({ id: shop.id, move: m, reason });
+    await move.mutateAsync({ id: shop.id, move: m, reason, revision: shop.revision });
     toast.success(`${shop.name} is ${done[m]}.`);
     setAsking(null);
   };

@@ -34,10 +34,11 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
   const update = useUpdateShopSettings();
   const { register, handleSubmit, setError, control, formState, reset } = useForm<Values, unknown, ShopSettingsInput>({
     resolver: zodResolver(shopSettingsSchema) as never,
+    // a change waiting for review is what the seller last saved: the form shows it
     defaultValues: {
-      name: shop.name,
+      name: shop.pendingChange?.name ?? shop.name,
       slug: shop.slug,
-      description: shop.description,
+      description: shop.pendingChange?.description ?? shop.description,
       processingDays: shop.processingDays,
       shippingMinor: shop.shippingMinor,
       returnPolicy: shop.returnPolicy,
@@ -49,8 +50,8 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
   const onSubmit = handleSubmit(async (values) => {
     try {
       const saved = await update.mutateAsync(values);
-      reset({ ...values, slug: saved.slug, name: saved.name } as Values);
-      toast.success('Shop settings saved.');
+      reset({ ...values, slug: saved.slug, name: saved.pendingChange?.name ?? saved.name, description: saved.pendingChange?.description ?? saved.description } as Values);
+      toast.success(saved.pendingChange ? 'Shop settings saved. The new name or description waits for review.' : 'Shop settings saved.');
       onSaved?.(saved);
     } catch (error) {
       const message = applyServerErrors(error, setError, FIELDS);
@@ -64,6 +65,17 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
         <strong>Shop state:</strong> {stateNote[shop.state]}
         {shop.stateReason ? <span className="mt-1 block text-ink-soft">Message from the team: {shop.stateReason}</span> : null}
       </p>
+      {shop.pendingChange ? (
+        <p className="rounded-lg border border-marigold bg-paper-deep p-4 text-ink" role="status">
+          <strong>Waiting for review:</strong> your new {[shop.pendingChange.name !== undefined ? 'name' : null, shop.pendingChange.description !== undefined ? 'description' : null].filter(Boolean).join(' and ')}.
+          Shoppers keep seeing “{shop.name}” and its current description until the Namesake team approves the change.
+        </p>
+      ) : shop.changeRejectionReason ? (
+        <p className="rounded-lg border border-danger bg-danger-wash p-4 text-ink">
+          <strong>Your last change to the name or description was not approved.</strong>
+          <span className="mt-1 block">Message from the team: {shop.changeRejectionReason}</span>
+        </p>
+      ) : null}
       <LogoPanel shop={shop} />
       <form noValidate onSubmit={onSubmit} className="flex flex-col gap-6">
         <FormSection title="About the shop">
