@@ -5,7 +5,8 @@ import { escapeHtml, mailLayout } from '../../integrations/mailer.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
 import { liveColumns, type ListingContentParsed } from '../../../shared/schemas/listing.ts';
-import { MODERATION_SHOPS_PAGE_SIZE, type ModerationShopsPage } from '../../../shared/schemas/catalog.ts';
+import type { ModerationShopsFilter, ModerationShopsPage } from '../../../shared/schemas/catalog.ts';
+import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagination.ts';
 import type { ShopState } from '../../../shared/schemas/shop.ts';
 import * as repo from './moderation.repo.ts';
 
@@ -28,38 +29,48 @@ async function tell(deps: Deps, shopId: string, subject: string, lines: string[]
   }
 }
 
-export function queue(db: Db) {
-  return {
-    shops: repo.shopsInReview(db).map(({ shop, ownerEmail, ownerName }) => ({
-      id: shop.id, name: shop.name, slug: shop.slug, state: shop.state, description: shop.description, owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
-    })),
-    listings: repo.listingsInReview(db).map(({ listing, shop }) => ({
-      id: listing.id, slug: listing.slug, state: listing.state, pendingReview: listing.pendingReview,
-      /** "new" waits for its first approval; "edit" is a change to a listing already on sale */
-      kind: listing.live ? ('edit' as const) : ('new' as const),
-      title: (listing.draft as unknown as ListingContentParsed).title,
-      shop: { id: shop.id, name: shop.name, slug: shop.slug, state: shop.state },
-      draft: listing.draft as unknown as ListingContentParsed,
-      live: (listing.live as unknown as ListingContentParsed | null) ?? null,
-      /** the listing page as a shopper would see it: GET this URL (admin only for drafts) */
-      previewUrl: `/api/listings/${listing.slug}?version=draft`,
-      submittedAt: listing.updatedAt,
-    })),
-  };
+/** Shops waiting for their first review, oldest first, a page at a time. */
+export function shopQueue(db: Db, q: PageQuery) {
+  const rows = repo.shopsInReview(db, q.limit, pageOffset(q)).map(({ shop, ownerEmail, ownerName }) => ({
+    id: shop.id, name: shop.name, slug: shop.slug, state: shop.state, description: shop.description, owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+  }));
+  return toPage(rows, repo.shopsInReviewCount(db), q);
+}
+
+type ReviewRow = NonNullable<ReturnType<typeof repo.listingInReview>>;
+const queueListing = ({ listing, shop }: ReviewRow) => ({
+  id: listing.id, slug: listing.slug, state: listing.state, pendingReview: listing.pendingReview,
+  /** "new" waits for its first approval; "edit" is a change to a listing already on sale */
+  kind: listing.live ? ('edit' as const) : ('new' as const),
+  title: (listing.draft as unknown as ListingContentParsed).title,
+  shop: { id: shop.id, name: shop.name, slug: shop.slug, state: shop.state },
+  draft: listing.draft as unknown as ListingContentParsed,
+  live: (listing.live as unknown as ListingContentParsed | null) ?? null,
+  /** the listing page as a shopper would see it: GET this URL (admin only for drafts) */
+  previewUrl: `/api/listings/${listing.slug}?version=draft`,
+  submittedAt: listing.updatedAt,
+});
+
+/** Listings waiting for review (new ones and edits of live ones), oldest first, a page at a time. */
+export function listingQueue(db: Db, q: PageQuery) {
+  return toPage(repo.listingsInReview(db, q.limit, pageOffset(q)).map(queueListing), repo.listingsInReviewCount(db), q);
+}
+
+/** One listing of the queue (the review page opens it by id, whatever page of the queue it is on). */
+export function listingQueueItem(db: Db, id: string) {
+  const row = repo.listingInReview(db, id);
+  if (!row) throw notFound('This listing is not waiting for review (it may have been decided already).');
+  return queueListing(row);
 }
 
 /** The desk's shop directory: any shop in any state, so a live one can be found and suspended. */
-export function shops(db: Db, f: { q: string; state?: ShopState; page: number }, pageSize = MODERATION_SHOPS_PAGE_SIZE): ModerationShopsPage {
-  const rows = repo.shopsPage(db, f, pageSize, (f.page - 1) * pageSize);
-  return {
-    items: rows.map(({ shop, ownerEmail, ownerName }) => ({
-      id: shop.id, name: shop.name, slug: shop.slug, state: shop.state as ShopState, stateReason: shop.stateReason ?? null,
-      owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
-    })),
-    total: repo.shopsCount(db, f),
-    page: f.page,
-    pageSize,
-  };
+export function shops(db: Db, f: ModerationShopsFilter): ModerationShopsPage {
+  const rows = repo.shopsPage(db, f, f.limit, pageOffset(f));
+  const items = rows.map(({ shop, ownerEmail, ownerName }) => ({
+    id: shop.id, name: shop.name, slug: shop.slug, state: shop.state as ShopState, stateReason: shop.stateReason ?? null,
+    owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+  }));
+  return toPage(items, repo.shopsCount(db, f), f);
 }
 
 function waiting(db: Db, id: string) {
@@ -143,21 +154,18 @@ export async function moveShop(deps: Deps, actor: SessionUser, id: string, move:
   return { id: row.id, state: row.state, stateReason: row.stateReason };
 }
 
-export function auditLog(db: Db, page: number, pageSize = 50) {
-  const rows = repo.auditPage(db, pageSize, (page - 1) * pageSize);
+/** Every moderation decision, newest first, a page at a time. */
+export function auditLog(db: Db, q: PageQuery) {
+  const rows = repo.auditPage(db, q.limit, pageOffset(q));
   const shopIds = rows.filter((r) => r.entry.subjectType === 'shop').map((r) => r.entry.subjectId);
   const listingIds = rows.filter((r) => r.entry.subjectType === 'listing').map((r) => r.entry.subjectId);
   const labels = new Map<string, string>([
     ...repo.shopNames(db, shopIds).map((s) => [s.id, s.name] as [string, string]),
     ...repo.listingTitles(db, listingIds).map((l) => [l.id, (l.draft as unknown as ListingContentParsed).title] as [string, string]),
   ]);
-  return {
-    items: rows.map(({ entry, actorName, actorEmail }) => ({
-      id: entry.id, at: entry.createdAt, actor: { id: entry.actorId, name: actorName, email: actorEmail }, action: entry.action,
-      subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null }, reason: entry.reason,
-    })),
-    total: repo.auditCount(db),
-    page,
-    pageSize,
-  };
+  const items = rows.map(({ entry, actorName, actorEmail }) => ({
+    id: entry.id, at: entry.createdAt, actor: { id: entry.actorId, name: actorName, email: actorEmail }, action: entry.action,
+    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null }, reason: entry.reason,
+  }));
+  return toPage(items, repo.auditCount(db), q);
 }
