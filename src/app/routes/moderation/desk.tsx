@@ -3,7 +3,8 @@ import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 import { paths } from '../../../config/paths.ts';
-import { useModerationQueue } from '../../../features/moderation/api/get-queue.ts';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { useListingQueue, useShopQueue } from '../../../features/moderation/api/get-queue.ts';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
 import { ShopFinder } from '../../../features/moderation/components/shop-finder.tsx';
 import { DeskNav } from './desk-nav.tsx';
@@ -12,27 +13,34 @@ const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle
 const shopStateLabel = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' } as const;
 
 export function ModerationDeskPage() {
-  const queue = useModerationQueue();
+  // two queues on one page, each with its own page in the URL
+  const [listingsPage, setListingsPage] = usePageParam('listingsPage');
+  const [shopsPage, setShopsPage] = usePageParam('shopsPage');
+  const listingQueue = useListingQueue({ page: listingsPage });
+  const shopQueue = useShopQueue({ page: shopsPage });
+  const pending = listingQueue.isPending || shopQueue.isPending;
+  const error = listingQueue.error ?? shopQueue.error;
+  const queue = listingQueue.data && shopQueue.data ? { listings: listingQueue.data, shops: shopQueue.data } : undefined;
 
   return (
     <div>
       <DeskNav />
       <PageHeading eyebrow="Moderation desk" title="Waiting for review" lead="Approve what is ready, or send it back with a reason the seller will receive by e-mail." />
-      {queue.isPending ? <Spinner label="Loading the queue…" /> : null}
-      {queue.isError ? <p role="alert" className="font-semibold text-danger">{queue.error.message}</p> : null}
-      {queue.data ? (
+      {pending ? <Spinner label="Loading the queue…" /> : null}
+      {error ? <p role="alert" className="font-semibold text-danger">{error.message}</p> : null}
+      {queue ? (
         <div className="flex flex-col gap-10">
           <section aria-labelledby="q-listings" className="flex flex-col gap-4">
             <h2 id="q-listings" className="text-2xl font-extrabold">
-              Listings <span className="text-ink-soft">({queue.data.listings.length})</span>
+              Listings <span className="text-ink-soft">({queue.listings.total})</span>
             </h2>
-            {queue.data.listings.length === 0 ? (
+            {queue.listings.total === 0 ? (
               <StitchedBox>
                 <p>No listings are waiting. New listings and edits to live ones appear here.</p>
               </StitchedBox>
             ) : (
               <ul className="flex flex-col gap-3">
-                {queue.data.listings.map((l) => (
+                {queue.listings.items.map((l) => (
                   <li key={l.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4 sm:flex-row sm:items-center sm:justify-between">
                     <div className="flex min-w-0 flex-col gap-1">
                       <span className="flex flex-wrap items-center gap-2">
@@ -54,19 +62,20 @@ export function ModerationDeskPage() {
                 ))}
               </ul>
             )}
+            <Pager page={listingsPage} total={queue.listings.total} limit={queue.listings.limit} label="Listing queue pages" noun="listings" onPageChange={setListingsPage} />
           </section>
 
           <section aria-labelledby="q-shops" className="flex flex-col gap-4">
             <h2 id="q-shops" className="text-2xl font-extrabold">
-              New shops <span className="text-ink-soft">({queue.data.shops.length})</span>
+              New shops <span className="text-ink-soft">({queue.shops.total})</span>
             </h2>
-            {queue.data.shops.length === 0 ? (
+            {queue.shops.total === 0 ? (
               <StitchedBox>
                 <p>No shops are waiting.</p>
               </StitchedBox>
             ) : (
               <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
-                {queue.data.shops.map((s) => (
+                {queue.shops.items.map((s) => (
                   <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
                     <div>
                       <p className="text-lg font-extrabold break-words">{s.name}</p>
@@ -80,6 +89,7 @@ export function ModerationDeskPage() {
                 ))}
               </ul>
             )}
+            <Pager page={shopsPage} total={queue.shops.total} limit={queue.shops.limit} label="New shop queue pages" noun="shops" onPageChange={setShopsPage} />
           </section>
 
           <section aria-labelledby="q-known" className="flex flex-col gap-4">

@@ -8,7 +8,8 @@ import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useApproveListing, useRejectListing } from '../../../features/moderation/api/decide-listing.ts';
 import { useListingPreview } from '../../../features/moderation/api/get-listing-preview.ts';
-import { useModerationQueue } from '../../../features/moderation/api/get-queue.ts';
+import { useQueuedListing } from '../../../features/moderation/api/get-queue.ts';
+import { isApiError } from '../../../lib/api-client.ts';
 import { ListingPreview } from '../../../features/moderation/components/listing-preview.tsx';
 import { ReasonForm } from '../../../features/moderation/components/reason-form.tsx';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
@@ -27,8 +28,10 @@ export function ReviewListingPage() {
   const { id } = useParams();
   const navigate = useNavigate();
   const toast = useToast();
-  const queue = useModerationQueue();
-  const item = queue.data?.listings.find((l) => l.id === id);
+  // opened by id, whichever page of the queue the listing is on
+  const queue = useQueuedListing(id ?? '');
+  const item = queue.data;
+  const notWaiting = queue.isError && isApiError(queue.error) && queue.error.status === 404;
   const preview = useListingPreview(item?.slug);
   const approve = useApproveListing();
   const reject = useRejectListing();
@@ -41,7 +44,8 @@ export function ReviewListingPage() {
       <DeskNav />
       <PageHeading eyebrow="Moderation desk" title={item ? item.title : 'Review a listing'} />
       {queue.isPending ? <Spinner label="Loading…" /> : null}
-      {queue.data && !item ? (
+      {queue.isError && !item && !notWaiting ? <p role="alert" className="text-danger">{queue.error.message}</p> : null}
+      {notWaiting && !item ? (
         <div className="flex flex-col items-start gap-3">
           <p>This listing is not waiting for review (it may have been decided already).</p>
           <ButtonLink to={paths.moderation.desk.getHref()} variant="secondary">

@@ -1,7 +1,8 @@
 import type { ListingContentParsed, ListingState } from '../../../../shared/schemas/listing.ts';
 import type { ShopState } from '../../../../shared/schemas/shop.ts';
+import type { Page } from '../../../../shared/schemas/pagination.ts';
 
-/** GET /api/moderation/queue (server/features/moderation/moderation.service.ts) */
+/** GET /api/moderation/queue/listings and /queue/shops (server/features/moderation/moderation.service.ts) */
 export type QueueShop = { id: string; name: string; slug: string; state: ShopState; description: string; owner: { name: string; email: string }; createdAt: number };
 export type QueueListing = {
   id: string;
@@ -16,7 +17,6 @@ export type QueueListing = {
   previewUrl: string;
   submittedAt: number;
 };
-export type ModerationQueue = { shops: QueueShop[]; listings: QueueListing[] };
 
 export type AuditEntry = {
   id: string;
@@ -26,5 +26,5 @@ export type AuditEntry = {
   subject: { type: 'shop' | 'listing'; id: string; label: string | null };
   reason: string | null;
 };
-export type AuditPage = { items: AuditEntry[]; total: number; page: number; pageSize: number };
+export type AuditPage = Page<AuditEntry>;
 export type ShopMove = 'approve' | 'reject' | 'suspend' | 'restore';
