@@ -23,14 +23,16 @@ describe('who may use the desk', () => {
     const shopper = await t.signIn((await t.makeUser('shopper')).email);
     const l = await createListing(a);
     for (const agent of [shopper, a]) {
-      expect((await agent.get('/api/moderation/queue')).status).toBe(403);
+      expect((await agent.get('/api/moderation/queue/listings')).status).toBe(403);
+      expect((await agent.get('/api/moderation/queue/shops')).status).toBe(403);
+      expect((await agent.get(`/api/moderation/queue/listings/${l.id}`)).status).toBe(403);
       expect((await agent.get('/api/moderation/audit')).status).toBe(403);
       expect((await agent.post(`/api/moderation/listings/${l.id}/approve`).send({})).status).toBe(403);
       expect((await agent.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'nope nope' })).status).toBe(403);
       expect((await agent.post(`/api/moderation/shops/${seller.shopId}/suspend`).send({ reason: 'nope nope' })).status).toBe(403);
       expect((await agent.post(`/api/moderation/shops/${seller.shopId}/approve`).send({})).status).toBe(403);
     }
-    expect((await request(t.app).get('/api/moderation/queue')).status).toBe(401);
+    expect((await request(t.app).get('/api/moderation/queue/listings')).status).toBe(401);
     expect((await a.get(`/api/seller/listings/${l.id}`)).body.listing.state).toBe('draft');
   });
 });
@@ -38,10 +40,13 @@ describe('who may use the desk', () => {
 describe('listing review', () => {
   it('when a listing is submitted, then it is in the queue and invisible to shoppers and search until approved', async () => {
     const l = await createListing(a, { title: 'Quokka picnic tote' });
-    expect((await admin.get('/api/moderation/queue')).body.listings.map((x: { id: string }) => x.id)).not.toContain(l.id); // a draft is not in review
+    expect((await admin.get('/api/moderation/queue/listings?limit=100')).body.items.map((x: { id: string }) => x.id)).not.toContain(l.id); // a draft is not in review
+    expect((await admin.get(`/api/moderation/queue/listings/${l.id}`)).status).toBe(404);
     await a.post(`/api/seller/listings/${l.id}/submit`).send({});
-    const queued = (await admin.get('/api/moderation/queue')).body.listings.find((x: { id: string }) => x.id === l.id);
+    const queued = (await admin.get('/api/moderation/queue/listings?limit=100')).body.items.find((x: { id: string }) => x.id === l.id);
     expect(queued).toMatchObject({ kind: 'new', state: 'in_review', shop: { name: 'Comet Corner' } });
+    // the review page opens it by id with the same content
+    expect((await admin.get(`/api/moderation/queue/listings/${l.id}`)).body.listing).toEqual(queued);
     // the admin sees it rendered as a shopper would; shoppers get nothing
     expect((await admin.get(queued.previewUrl)).body.content.title).toBe('Quokka picnic tote');
     expect((await request(t.app).get(queued.previewUrl)).status).toBe(404);
@@ -111,13 +116,13 @@ describe('shops', () => {
   it('when a new shop is in review, then it is in the queue; approval makes it live, rejection needs a reason', async () => {
     const s1 = await t.makeSeller({ name: 'Kelp & Co', state: 'in_review' });
     const s2 = await t.makeSeller({ name: 'Gull Goods', state: 'in_review' });
-    const q = (await admin.get('/api/moderation/queue')).body.shops.map((x: { id: string }) => x.id);
+    const q = (await admin.get('/api/moderation/queue/shops?limit=100')).body.items.map((x: { id: string }) => x.id);
     expect(q).toEqual(expect.arrayContaining([s1.shopId, s2.shopId]));
     expect((await admin.post(`/api/moderation/shops/${s1.shopId}/approve`).send({})).body.shop.state).toBe('live');
     expect((await admin.post(`/api/moderation/shops/${s2.shopId}/reject`).send({})).status).toBe(400);
     expect((await admin.post(`/api/moderation/shops/${s2.shopId}/reject`).send({ reason: 'Not a craft business.' })).body.shop.state).toBe('rejected');
     expect((await admin.post(`/api/moderation/shops/${s2.shopId}/restore`).send({})).status).toBe(409);
-    const after = (await admin.get('/api/moderation/queue')).body.shops.map((x: { id: string }) => x.id);
+    const after = (await admin.get('/api/moderation/queue/shops?limit=100')).body.items.map((x: { id: string }) => x.id);
     expect(after).not.toContain(s1.shopId);
     expect(after).not.toContain(s2.shopId);
   });
@@ -173,7 +178,7 @@ describe('shop directory', () => {
     for (let i = 0; i < 23; i++) await t.makeSeller({ name: `Pipit Print ${String(i).padStart(2, '0')}` });
     const p1 = await find(admin, { q: 'pipit print' });
     const p2 = await find(admin, { q: 'pipit print', page: 2 });
-    expect(p1.body).toMatchObject({ total: 23, page: 1, pageSize: 20 });
+    expect(p1.body).toMatchObject({ total: 23, page: 1, limit: 20 });
     expect(p1.body.items).toHaveLength(20);
     expect(p2.body.items).toHaveLength(3);
     expect([...names(p1), ...names(p2)]).toEqual(Array.from({ length: 23 }, (_, i) => `Pipit Print ${String(i).padStart(2, '0')}`));

@@ -53,7 +53,7 @@ const seen = async (to: string) => new Set((await t.mailTo(to)).map((m) => m.id)
 describe('XSS payloads in user-typed text (server half)', () => {
   test('when payloads are typed by sellers, shoppers and moderators, then every HTML answer and e-mail another user gets has them escaped', async () => {
     const slug = (await fern.get('/api/shop')).body.shop.slug as string;
-    const waiting = ((await fern.get('/api/workroom/lines?state=awaiting_proof')).body.lines as { id: string }[]).map((l) => l.id);
+    const waiting = ((await fern.get('/api/workroom/lines?state=awaiting_proof&limit=100')).body.items as { id: string }[]).map((l) => l.id);
 
     for (const [i, p] of XSS_PAYLOADS.entries()) {
       // shop name, description and return policy → the public shop page and listing page
