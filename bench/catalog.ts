@@ -67,7 +67,7 @@ async function server(): Promise<void> {
   const times: number[] = [];
   for (let i = 0; i < 400; i++) {
     const t0 = process.hrtime.bigint();
-    catalogPage(db, { q: QUERIES[i % QUERIES.length], sort: 'newest', page: 1, maxPrice: 100_000 + i }, 24);
+    catalogPage(db, { q: QUERIES[i % QUERIES.length], sort: 'newest', page: 1, limit: 24, maxPrice: 100_000 + i });
     times.push(Number(process.hrtime.bigint() - t0) / 1e6);
   }
   times.sort((a, b) => a - b);

@@ -62,7 +62,7 @@ test('shopper pages, the payment page and the checkout return have no serious or
   const f: Finding[] = [];
   await signIn(page, demo.shopper);
   f.push(...(await audit(page, 'orders', '/orders')));
-  const { orders } = await apiGet(page, '/api/orders');
+  const { items: orders } = await apiGet(page, '/api/orders');
   f.push(...(await audit(page, 'order detail', `/orders/${orders[0].id}`)));
   f.push(...(await audit(page, 'open a shop', '/open-shop')));
 
@@ -95,9 +95,9 @@ test('shopper pages, the payment page and the checkout return have no serious or
 test('seller pages (workroom, proof, cut sheets, press, stock, shop, listings) have no serious or critical violations', async ({ page }) => {
   const f: Finding[] = [];
   await signIn(page, demo.fern);
-  const { lines } = await apiGet(page, '/api/workroom/lines');
+  const { items: lines } = await apiGet(page, '/api/workroom/lines?limit=100');
   const waiting = lines.find((l: { state: string }) => l.state === 'awaiting_proof') ?? lines[0];
-  const { listings } = await apiGet(page, '/api/seller/listings');
+  const { items: listings } = await apiGet(page, '/api/seller/listings');
   f.push(...(await audit(page, 'workroom', '/workroom')));
   f.push(...(await audit(page, 'workroom order', `/workroom/orders/${waiting.orderId}`)));
   f.push(...(await audit(page, 'proof', `/workroom/lines/${waiting.id}`)));
@@ -115,7 +115,7 @@ test('seller pages (workroom, proof, cut sheets, press, stock, shop, listings) h
 test('moderation desk pages have no serious or critical violations', async ({ page }) => {
   const f: Finding[] = [];
   await signIn(page, demo.admin);
-  const queue = await apiGet(page, '/api/moderation/queue');
+  const queue = { listings: (await apiGet(page, '/api/moderation/queue/listings')).items };
   f.push(...(await audit(page, 'moderation desk', '/moderation')));
   if (queue.listings[0]) f.push(...(await audit(page, 'review listing', `/moderation/listings/${queue.listings[0].id}`)));
   f.push(...(await audit(page, 'audit log', '/moderation/audit')));

@@ -115,8 +115,8 @@ test('a seller checks a proof, asks for a change, cuts, presses and ships; the s
   await card.getByRole('button', { name: 'Mark pressed' }).click();
   await expect(card).toHaveCount(0);
 
-  // shipping: carrier and tracking number
-  await page.goto('/workroom');
+  // shipping: carrier and tracking number (the pressed lines: one page, whatever else the shop has)
+  await page.goto('/workroom?state=pressed');
   await page.getByTestId('work-line').filter({ hasText: number }).getByRole('link', { name: number }).click();
   await page.getByLabel('Carrier').fill('UPS');
   await page.getByLabel('Tracking number').fill('1Z999AA10123456784');

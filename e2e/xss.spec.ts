@@ -122,7 +122,7 @@ test('payloads typed by sellers, shoppers and admins never run in another user\'
 
   // --- the seller sees the shopper's name and texts; asks for a change with a payload message
   await signInSeller(seller);
-  const { lines } = await apiGet(seller, '/api/workroom/lines');
+  const { items: lines } = await apiGet(seller, '/api/workroom/lines?limit=100');
   const mine = lines.filter((l: { listingId: string }) => l.listingId === good.id);
   expect(mine.length).toBe(4);
   await check(seller, 'seller', 'workroom', '/workroom', P[0]);
@@ -139,7 +139,7 @@ test('payloads typed by sellers, shoppers and admins never run in another user\'
   // --- the admin reads the audit log (the reason) and the captured mail (names, messages)
   await check(admin, 'admin', 'audit log', '/moderation/audit', /Please fix/);
   await check(admin, 'admin', 'mail list', '/moderation/mail', /./);
-  const { messages } = await apiGet(admin, '/api/admin/mail');
+  const { items: messages } = await apiGet(admin, '/api/admin/mail');
   const change = (messages as Array<{ id: string; subject: string }>).find((m) => /asks you to check your personalisation/.test(m.subject));
   expect(change, 'the change-request e-mail reached the mail fake').toBeTruthy();
   await check(admin, 'admin', 'mail message (change request)', `/moderation/mail?message=${encodeURIComponent(change!.id)}`, /asks you to check/);

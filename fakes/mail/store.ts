@@ -32,6 +32,17 @@ export async function readMail(dir: string, id: string): Promise<StoredMail | nu
   };
 }
 
+/** One page of the stored messages, newest first: only that page's files are read and parsed. */
+export async function mailPage(dir: string, offset: number, limit: number): Promise<{ items: StoredMail[]; total: number }> {
+  const ids = listMailIds(dir).reverse();
+  const items: StoredMail[] = [];
+  for (const id of ids.slice(offset, offset + limit)) {
+    const m = await readMail(dir, id);
+    if (m) items.push(m);
+  }
+  return { items, total: ids.length };
+}
+
 /** Newest first. */
 export async function listMail(dir: string, opts: { to?: string; limit?: number } = {}): Promise<StoredMail[]> {
   const ids = listMailIds(dir).reverse();

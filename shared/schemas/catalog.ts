@@ -2,14 +2,15 @@
 import { z } from 'zod';
 import { blankKindSchema, occasionSchema, type ListingContentParsed } from './listing.ts';
 import { SHOP_STATES, type ShopState } from './shop.ts';
+import { pageQuery, pageSchema, type Page } from './pagination.ts';
 
 export const CATALOG_PAGE_SIZE = 24;
 export const CATALOG_SORTS = ['newest', 'price_asc', 'price_desc'] as const;
 
 const price = z.coerce.number({ error: 'Enter a price in cents.' }).int('Enter whole cents.').min(0, 'A price cannot be negative.').max(10_000_000);
 
-export const catalogQuerySchema = z
-  .object({
+export const catalogQuerySchema = pageQuery(CATALOG_PAGE_SIZE)
+  .extend({
     q: z.string().trim().max(100, 'Use at most 100 characters.').optional(),
     occasion: occasionSchema.optional(),
     blank: blankKindSchema.optional(),
@@ -18,7 +19,6 @@ export const catalogQuerySchema = z
     minPrice: price.optional(),
     maxPrice: price.optional(),
     sort: z.enum(CATALOG_SORTS, { error: 'Sort by newest, price_asc or price_desc.' }).default('newest'),
-    page: z.coerce.number().int().min(1, 'Pages start at 1.').max(1000).default(1),
   })
   .refine((q) => q.minPrice === undefined || q.maxPrice === undefined || q.minPrice <= q.maxPrice, {
     message: 'The lowest price must not be above the highest.',
@@ -40,12 +40,7 @@ export const catalogItemSchema = z.object({
 });
 export type CatalogItem = z.infer<typeof catalogItemSchema>;
 
-export const catalogPageSchema = z.object({
-  items: z.array(catalogItemSchema),
-  total: z.number().int(),
-  page: z.number().int(),
-  pageSize: z.number().int(),
-});
+export const catalogPageSchema = pageSchema(catalogItemSchema);
 export type CatalogPage = z.infer<typeof catalogPageSchema>;
 
 export const listingSlugParams = z.object({ slug: z.string().min(1).max(120) });
@@ -117,15 +112,21 @@ export type DecisionInput = z.infer<typeof decisionSchema>;
 export const approveShopSchema = optionalReasonSchema.extend({ revision: revisionSchema.optional() });
 export const STALE_LISTING_MESSAGE = 'The seller changed this listing after you opened it; review the new version.';
 export const STALE_SHOP_CHANGE_MESSAGE = 'The seller changed the shop details after you opened them; review the new version.';
+/** GET /api/moderation/queue/listings and /queue/shops: what waits for review, oldest first */
+export const QUEUE_PAGE_SIZE = 20;
+export const queueQuerySchema = pageQuery(QUEUE_PAGE_SIZE);
+/** GET /api/moderation/audit: decisions, newest first */
+export const AUDIT_PAGE_SIZE = 50;
+export const auditQuerySchema = pageQuery(AUDIT_PAGE_SIZE);
 
 /** GET /api/moderation/shops: every shop, found by name, address or owner e-mail, optionally by state. */
 export const MODERATION_SHOPS_PAGE_SIZE = 20;
-export const moderationShopsQuery = z.object({
+export const moderationShopsQuery = pageQuery(MODERATION_SHOPS_PAGE_SIZE).extend({
   q: z.string().trim().max(100, 'Use at most 100 characters.').default(''),
   state: z.enum(SHOP_STATES, { error: 'Pick one of the shop states.' }).optional(),
-  page: z.coerce.number().int().min(1, 'Pages start at 1.').max(10_000).default(1),
 });
 export type ModerationShopsQuery = z.input<typeof moderationShopsQuery>;
+export type ModerationShopsFilter = z.output<typeof moderationShopsQuery>;
 export type ModerationShop = {
   id: string;
   name: string;
@@ -136,4 +137,4 @@ export type ModerationShop = {
   owner: { name: string; email: string };
   createdAt: number;
 };
-export type ModerationShopsPage = { items: ModerationShop[]; total: number; page: number; pageSize: number };
+export type ModerationShopsPage = Page<ModerationShop>;

@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { FONT_IDS } from '../engine/font-catalog.ts';
 import { DEFAULT_BLANKS, type BlankKind as EngineBlankKind } from '../engine/blanks.ts';
+import { pageQuery } from './pagination.ts';
 
 // ---------------------------------------------------------------- occasions (shoppers browse by these)
 export const OCCASIONS = ['autumn-harvest', 'winter-lights', 'spring-picnic', 'back-to-school', 'birthday'] as const;
@@ -249,7 +250,10 @@ export function checkChoices(content: PricedContent, choices: Choices): Record<s
 
 // ---------------------------------------------------------------- seller-side views
 export const listingIdParams = z.object({ id: z.string().min(1).max(64) });
-export const sellerListingsQuerySchema = z.object({ state: listingStateSchema.optional() });
+/** GET /api/seller/listings: the shop's listings, last changed first, a page at a time */
+export const SELLER_LISTINGS_PAGE_SIZE = 25;
+export const sellerListingsQuerySchema = pageQuery(SELLER_LISTINGS_PAGE_SIZE).extend({ state: listingStateSchema.optional() });
+export type SellerListingsQuery = z.output<typeof sellerListingsQuerySchema>;
 
 /** A listing as the seller's API returns it. */
 export type SellerListing = {

@@ -1,6 +1,7 @@
 /** Materials: a shop's vinyl stock. Lengths mm, temperatures °C (shown °F too), money minor units. */
 import { z } from 'zod';
 import { MATERIAL_KINDS, PRESS_DEFAULTS, defaultPressProfile, type MaterialKind, type PressProfile } from '../engine/press-defaults.ts';
+import { pageQuery } from './pagination.ts';
 
 export { MATERIAL_KINDS, PRESS_DEFAULTS, defaultPressProfile };
 export type { MaterialKind, PressProfile };
@@ -57,7 +58,10 @@ export const updateMaterialSchema = z
 export type UpdateMaterialInput = z.input<typeof updateMaterialSchema>;
 
 export const materialIdParams = z.object({ id: z.string().min(1).max(64) });
-export const materialsQuerySchema = z.object({ archived: z.enum(['true', 'false']).optional() });
+/** GET /api/materials: the shop's materials by kind and colour, a page at a time; `archived` picks one side */
+export const MATERIALS_PAGE_SIZE = 50;
+export const materialsQuerySchema = pageQuery(MATERIALS_PAGE_SIZE).extend({ archived: z.enum(['true', 'false'], { error: 'Use archived=true or archived=false.' }).optional() });
+export type MaterialsQuery = z.output<typeof materialsQuerySchema>;
 
 export type Material = {
   id: string;

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import type { LineSnapshot } from './cart.ts';
 import type { ShipTo } from './checkout.ts';
+import { pageQuery } from './pagination.ts';
 
 export const LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped', 'cancelled', 'refunded'] as const;
 export type LineState = (typeof LINE_STATES)[number];
@@ -44,6 +45,10 @@ export const LINE_STATE_LABELS: Record<LineState, string> = {
 };
 
 export const orderIdParams = z.object({ id: z.string().min(1).max(64) });
+
+/** GET /api/orders: the shopper's orders, newest first, a page at a time */
+export const ORDERS_PAGE_SIZE = 20;
+export const ordersQuerySchema = pageQuery(ORDERS_PAGE_SIZE);
 
 export const refundSchema = z.object({
   /** one line; omitted: the whole order (what is not refunded yet, shipping included) */

@@ -8,6 +8,7 @@ import { choicesSchema } from './listing.ts';
 import type { LineSnapshot } from './cart.ts';
 import type { ShipTo } from './checkout.ts';
 import type { PressCard } from '../engine/press-card.ts';
+import { pageQuery, type Page } from './pagination.ts';
 
 export { LINE_STATES, type LineState };
 
@@ -22,7 +23,25 @@ export const lineIdsSchema = z.object({
 });
 export type LineIdsInput = z.input<typeof lineIdsSchema>;
 
-export const linesQuerySchema = z.object({ state: z.enum(LINE_STATES).optional() });
+/** an instant as milliseconds since 1970 (the client turns its calendar day into these) */
+const instant = z.coerce.number({ error: 'Give a time as milliseconds since 1970.' }).int('Give a time as milliseconds since 1970.').min(0, 'Give a time after 1970.').max(8_640_000_000_000_000, 'Give a real date.');
+
+/**
+ * GET /api/workroom/lines: the shop's lines a page at a time, most urgent first (open lines by
+ * ship-by date, then finished ones), filtered by state, time paid, material and listing.
+ */
+export const LINES_PAGE_SIZE = 50;
+export const linesQuerySchema = pageQuery(LINES_PAGE_SIZE)
+  .extend({
+    state: z.enum(LINE_STATES, { error: 'Pick one of the line states.' }).optional(),
+    paidFrom: instant.optional(),
+    paidTo: instant.optional(),
+    material: id.optional(),
+    listing: id.optional(),
+  })
+  .refine((q) => q.paidFrom === undefined || q.paidTo === undefined || q.paidFrom <= q.paidTo, { message: 'The first day must not be after the last.', path: ['paidFrom'] });
+export type LinesQuery = z.output<typeof linesQuerySchema>;
+export type LinesFilter = Omit<LinesQuery, 'page' | 'limit'>;
 
 export const requestChangeSchema = z.object({
   message: z.string({ error: 'Tell the shopper what to change.' }).trim().min(3, 'Tell the shopper what to change (at least 3 characters).').max(1000, 'Use at most 1,000 characters.'),
@@ -72,6 +91,9 @@ export type WorkLine = {
   version: number;
   materials: MaterialRef[];
 };
+
+/** A page of lines, with what the filters can offer across all of the shop's lines. */
+export type WorkLinesPage = Page<WorkLine> & { options: { materials: MaterialRef[]; listings: Array<{ id: string; title: string }> } };
 
 export type WorkroomSummary = { counts: Record<(typeof WORK_STATES)[number], number> };
 
@@ -150,4 +172,7 @@ export type StockMaterial = {
   plannedMm: number;
 };
 export type StockSheetUse = { id: string; batchId: string; materialId: string; state: 'planned' | 'cut'; lengthMm: number; consumedMm: number | null; costMinor: number | null; cutAt: number | null; createdAt: number; lineCount: number };
-export type StockView = { currency: string; trimMm: number; materials: StockMaterial[]; sheets: StockSheetUse[] };
+/** GET /api/workroom/stock: every roll in use, and the cut sheets' use a page at a time (newest first) */
+export const STOCK_SHEETS_PAGE_SIZE = 25;
+export const stockQuerySchema = pageQuery(STOCK_SHEETS_PAGE_SIZE);
+export type StockView = { currency: string; trimMm: number; materials: StockMaterial[]; sheets: Page<StockSheetUse> };

@@ -58,7 +58,7 @@ export const paths = {
     audit: { path: '/moderation/audit', getHref: () => '/moderation/audit' },
     mail: {
       path: '/moderation/mail',
-      getHref: (messageId?: string) => withQuery('/moderation/mail', { message: messageId }),
+      getHref: (messageId?: string, page?: number) => withQuery('/moderation/mail', { message: messageId, page: page && page > 1 ? String(page) : undefined }),
     },
   },
   auth: {

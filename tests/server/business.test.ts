@@ -159,7 +159,7 @@ describe('cost of goods (Must show)', () => {
 
 describe('price check', () => {
   test('when the price is far too low, then the margin is negative and the longest name is warned about', async () => {
-    const listing = (await fern.get('/api/seller/listings')).body.listings[0] as SellerListing;
+    const listing = (await fern.get('/api/seller/listings')).body.items[0] as SellerListing;
     const draft = { ...listing.draft, basePriceMinor: 100, blankCostMinor: 450 };
     const res = await fern.post('/api/business/price-check').send({ draft, sampleName: 'Mira' });
     expect(res.status).toBe(200);
@@ -172,14 +172,14 @@ describe('price check', () => {
   });
 
   test('when the price is healthy, then the margin is positive and no loss is warned about', async () => {
-    const listing = (await fern.get('/api/seller/listings')).body.listings[0] as SellerListing;
+    const listing = (await fern.get('/api/seller/listings')).body.items[0] as SellerListing;
     const r = (await fern.post('/api/business/price-check').send({ draft: { ...listing.draft, basePriceMinor: 6000 }, sampleName: 'Theo' })).body as PriceCheckResult;
     expect(r.sample.marginMinor).toBeGreaterThan(0);
     expect(r.warnings.some((w) => /lose|longest/.test(w))).toBe(false);
   });
 
   test('when the sample name is too long for the field, then 400 names the sample field', async () => {
-    const listing = (await fern.get('/api/seller/listings')).body.listings[0] as SellerListing;
+    const listing = (await fern.get('/api/seller/listings')).body.items[0] as SellerListing;
     const res = await fern.post('/api/business/price-check').send({ draft: listing.draft, sampleName: 'Bartholomew-Bartholomew-Bartholomew' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.sampleName).toMatch(/at most \d+ characters/);

@@ -29,9 +29,11 @@ describe('demo catalogue', () => {
     expect(per('harbour-thread')).toBe(0);
     expect(new Set(items.flatMap((i) => i.occasions))).toEqual(new Set(OCCASIONS));
     for (const i of items) expect(i.thumbnailUrl).toMatch(/^\/uploads\/[a-f0-9]{32}-t\.webp$/);
-    const queue = (await admin.get('/api/moderation/queue')).body;
-    expect(queue.shops.map((s: { slug: string }) => s.slug)).toContain('harbour-thread');
-    expect(queue.listings.filter((l: { shop: { slug: string } }) => l.shop.slug === 'harbour-thread').length).toBeGreaterThanOrEqual(1);
+    const shops = (await admin.get('/api/moderation/queue/shops?limit=100')).body;
+    const waiting = (await admin.get('/api/moderation/queue/listings?limit=100')).body;
+    expect(shops.total).toBe(shops.items.length);
+    expect(shops.items.map((s: { slug: string }) => s.slug)).toContain('harbour-thread');
+    expect(waiting.items.filter((l: { shop: { slug: string } }) => l.shop.slug === 'harbour-thread').length).toBeGreaterThanOrEqual(1);
   });
 
   it('when a demo listing is opened, then it has fonts, colour choices, a motif with its geometry, and public material fields only', async () => {
@@ -90,7 +92,7 @@ describe('search (FTS5)', () => {
     // a live shop's new name is public once a moderator approves it (server/features/shops)
     const rename = async (name: string) => {
       await fern.patch('/api/shop').send({ name });
-      const change = (await admin.get('/api/moderation/queue')).body.shopChanges.find((c: { slug: string }) => c.slug === 'fern-and-fable-goods');
+      const change = (await admin.get('/api/moderation/queue/shop-changes')).body.items.find((c: { slug: string }) => c.slug === 'fern-and-fable-goods');
       await admin.post(`/api/moderation/shops/${change.id}/approve-change`).send({ revision: change.revision }).expect(200);
     };
     await rename('Fern & Fable Woodland Goods');

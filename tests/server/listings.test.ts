@@ -33,7 +33,7 @@ describe('seller listings: ownership', () => {
     expect(mine.status).toBe(200);
     expect(mine.body.listing.state).toBe('draft');
     expect(mine.body.listing.draft.title).toBe('Star name tote');
-    expect((await b.get('/api/seller/listings')).body.listings.map((x: { id: string }) => x.id)).not.toContain(l.id);
+    expect((await b.get('/api/seller/listings')).body.items.map((x: { id: string }) => x.id)).not.toContain(l.id);
   });
 
   it('when seller B names seller A\'s material or motif in a listing, then 400 naming the field', async () => {
@@ -59,12 +59,12 @@ describe('listing editor input', () => {
   });
 
   it('when the input is bad, then 400 with a message per field and nothing is stored', async () => {
-    const before = (await a.get('/api/seller/listings')).body.listings.length;
+    const before = (await a.get('/api/seller/listings')).body.total;
     const body = await listingBody(a, { title: '', basePriceMinor: -5, photoIds: Array.from({ length: 9 }, (_, i) => `p${i}`), occasions: ['halloween' as never] });
     const res = await a.post('/api/seller/listings').send(body);
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['title', 'basePriceMinor', 'photoIds', 'occasions.0']));
-    expect((await a.get('/api/seller/listings')).body.listings.length).toBe(before);
+    expect((await a.get('/api/seller/listings')).body.total).toBe(before);
   });
 
   it('when a text field\'s default font is not one of its fonts, then 400 on defaultFontId', async () => {
@@ -125,8 +125,8 @@ describe('listing states', () => {
     const pub = await request(t.app).get(`/api/listings/${l.slug}`);
     expect(pub.body.content.title).toBe('Original title here');
     expect(pub.body.priceMinor).toBe(2000);
-    const queue = await admin.get('/api/moderation/queue');
-    expect(queue.body.listings.find((x: { id: string }) => x.id === l.id)).toMatchObject({ kind: 'edit', title: 'Edited title here' });
+    const queued = await admin.get(`/api/moderation/listings/${l.id}`);
+    expect(queued.body.listing).toMatchObject({ kind: 'edit', title: 'Edited title here' });
     await decide(admin, l.id);
     const after = await request(t.app).get(`/api/listings/${l.slug}`);
     expect(after.body.content.title).toBe('Edited title here');

@@ -53,14 +53,14 @@ describe('materials', () => {
       b.patch(`/api/materials/${m.id}`).send({ colourName: 'Stolen' }),
       b.delete(`/api/materials/${m.id}`),
     ])) expect(res.status).toBe(404);
-    expect((await b.get('/api/materials')).body.materials.map((x: { id: string }) => x.id)).not.toContain(m.id);
+    expect((await b.get('/api/materials')).body.items.map((x: { id: string }) => x.id)).not.toContain(m.id);
     expect((await a.get(`/api/materials/${m.id}`)).body.material.colourName).toBe('Secret teal');
   });
 
   it('when a material is used by a listing, then delete is refused (archive instead); an unused one is deleted', async () => {
     await createListing(a);
     const listed = await a.get('/api/seller/listings');
-    const usedId = listed.body.listings[0].draft.personalisation.textFields[0].colourChoices[0];
+    const usedId = listed.body.items[0].draft.personalisation.textFields[0].colourChoices[0];
     expect((await a.delete(`/api/materials/${usedId}`)).status).toBe(409);
     const spare = await makeMaterial(a, { colourName: 'Spare' });
     expect((await a.delete(`/api/materials/${spare.id}`)).status).toBe(200);

@@ -23,14 +23,16 @@ describe('who may use the desk', () => {
     const shopper = await t.signIn((await t.makeUser('shopper')).email);
     const l = await createListing(a);
     for (const agent of [shopper, a]) {
-      expect((await agent.get('/api/moderation/queue')).status).toBe(403);
+      expect((await agent.get('/api/moderation/queue/listings')).status).toBe(403);
+      expect((await agent.get('/api/moderation/queue/shops')).status).toBe(403);
+      expect((await agent.get(`/api/moderation/queue/listings/${l.id}`)).status).toBe(403);
       expect((await agent.get('/api/moderation/audit')).status).toBe(403);
       expect((await agent.post(`/api/moderation/listings/${l.id}/approve`).send({})).status).toBe(403);
       expect((await agent.post(`/api/moderation/listings/${l.id}/reject`).send({ reason: 'nope nope' })).status).toBe(403);
       expect((await agent.post(`/api/moderation/shops/${seller.shopId}/suspend`).send({ reason: 'nope nope' })).status).toBe(403);
       expect((await agent.post(`/api/moderation/shops/${seller.shopId}/approve`).send({})).status).toBe(403);
     }
-    expect((await request(t.app).get('/api/moderation/queue')).status).toBe(401);
+    expect((await request(t.app).get('/api/moderation/queue/listings')).status).toBe(401);
     expect((await a.get(`/api/seller/listings/${l.id}`)).body.listing.state).toBe('draft');
   });
 });
@@ -38,10 +40,13 @@ describe('who may use the desk', () => {
 describe('listing review', () => {
   it('when a listing is submitted, then it is in the queue and invisible to shoppers and search until approved', async () => {
     const l = await createListing(a, { title: 'Quokka picnic tote' });
-    expect((await admin.get('/api/moderation/queue')).body.listings.map((x: { id: string }) => x.id)).not.toContain(l.id); // a draft is not in review
+    expect((await admin.get('/api/moderation/queue/listings?limit=100')).body.items.map((x: { id: string }) => x.id)).not.toContain(l.id); // a draft is not in review
+    expect((await admin.get(`/api/moderation/queue/listings/${l.id}`)).status).toBe(404);
     await a.post(`/api/seller/listings/${l.id}/submit`).send({});
-    const queued = (await admin.get('/api/moderation/queue')).body.listings.find((x: { id: string }) => x.id === l.id);
+    const queued = (await admin.get('/api/moderation/queue/listings?limit=100')).body.items.find((x: { id: string }) => x.id === l.id);
     expect(queued).toMatchObject({ kind: 'new', state: 'in_review', shop: { name: 'Comet Corner' } });
+    // the review page opens it by id with the same content
+    expect((await admin.get(`/api/moderation/queue/listings/${l.id}`)).body.listing).toEqual(queued);
     // the admin sees it rendered as a shopper would; shoppers get nothing
     expect((await admin.get(queued.previewUrl)).body.content.title).toBe('Quokka picnic tote');
     expect((await request(t.app).get(queued.previewUrl)).status).toBe(404);
@@ -111,13 +116,13 @@ describe('shops', () => {
   it('when a new shop is in review, then it is in the queue; approval makes it live, rejection needs a reason', async () => {
     const s1 = await t.makeSeller({ name: 'Kelp & Co', state: 'in_review' });
     const s2 = await t.makeSeller({ name: 'Gull Goods', state: 'in_review' });
-    const q = (await admin.get('/api/moderation/queue')).body.shops.map((x: { id: string }) => x.id);
+    const q = (await admin.get('/api/moderation/queue/shops?limit=100')).body.items.map((x: { id: string }) => x.id);
     expect(q).toEqual(expect.arrayContaining([s1.shopId, s2.shopId]));
     expect((await admin.post(`/api/moderation/shops/${s1.shopId}/approve`).send({})).body.shop.state).toBe('live');
     expect((await admin.post(`/api/moderation/shops/${s2.shopId}/reject`).send({})).status).toBe(400);
     expect((await admin.post(`/api/moderation/shops/${s2.shopId}/reject`).send({ reason: 'Not a craft business.' })).body.shop.state).toBe('rejected');
     expect((await admin.post(`/api/moderation/shops/${s2.shopId}/restore`).send({})).status).toBe(409);
-    const after = (await admin.get('/api/moderation/queue')).body.shops.map((x: { id: string }) => x.id);
+    const after = (await admin.get('/api/moderation/queue/shops?limit=100')).body.items.map((x: { id: string }) => x.id);
     expect(after).not.toContain(s1.shopId);
     expect(after).not.toContain(s2.shopId);
   });
@@ -173,7 +178,7 @@ describe('shop directory', () => {
     for (let i = 0; i < 23; i++) await t.makeSeller({ name: `Pipit Print ${String(i).padStart(2, '0')}` });
     const p1 = await find(admin, { q: 'pipit print' });
     const p2 = await find(admin, { q: 'pipit print', page: 2 });
-    expect(p1.body).toMatchObject({ total: 23, page: 1, pageSize: 20 });
+    expect(p1.body).toMatchObject({ total: 23, page: 1, limit: 20 });
     expect(p1.body.items).toHaveLength(20);
     expect(p2.body.items).toHaveLength(3);
     expect([...names(p1), ...names(p2)]).toEqual(Array.from({ length: 23 }, (_, i) => `Pipit Print ${String(i).padStart(2, '0')}`));
@@ -235,7 +240,7 @@ describe('moderation decides on the revision it showed', () => {
     expect(rejectOld.body.error.message).toBe(STALE);
 
     // the queue and the review page show the new revision; rejecting that one works
-    const queued = (await admin.get('/api/moderation/queue')).body.listings.find((x: { id: string }) => x.id === l.id);
+    const queued = (await admin.get('/api/moderation/queue/listings?limit=100')).body.items.find((x: { id: string }) => x.id === l.id);
     expect(queued).toMatchObject({ revision: saved.revision, title: 'Otter tote with a rude word', state: 'in_review' });
     const now = await admin.post(`/api/moderation/listings/${l.id}/reject`).send({ revision: saved.revision, reason: 'Please drop the rude word.' });
     expect(now.status).toBe(200);
@@ -269,7 +274,7 @@ describe('moderation decides on the revision it showed', () => {
     // an edit after approval is a new review round again
     const third = await edit(l.id, 'Badger pouch, third edit');
     expect(third).toMatchObject({ pendingReview: true, revision: second.revision + 1 });
-    expect((await admin.get('/api/moderation/queue')).body.listings.map((x: { id: string }) => x.id)).toContain(l.id);
+    expect((await admin.get('/api/moderation/queue/listings?limit=100')).body.items.map((x: { id: string }) => x.id)).toContain(l.id);
   });
 
   it('when an approve names no revision, then 400 on revision', async () => {
@@ -300,7 +305,7 @@ describe('moderation decides on the revision it showed', () => {
 describe('shop name and description changes', () => {
   type Change = { id: string; revision: number; before: { name: string; description: string }; after: { name: string; description: string }; changed: string[] };
   const changeOf = async (shopId: string) =>
-    ((await admin.get('/api/moderation/queue')).body.shopChanges as Change[]).find((c) => c.id === shopId);
+    ((await admin.get('/api/moderation/queue/shop-changes?limit=100')).body.items as Change[]).find((c) => c.id === shopId);
 
   it('when a live shop is renamed, then the old name stays public until an admin approves the change shown to them', async () => {
     const s = await t.makeSeller({ name: 'Puffin Press' });
@@ -367,7 +372,7 @@ describe('shop name and description changes', () => {
   it('when a shop still in review is renamed after the admin opened the queue, then approving the shown revision is 409; the new one is approved', async () => {
     const s = await t.makeSeller({ name: 'Egret Goods', state: 'in_review' });
     const sa = await t.signIn(s.email);
-    const shown = ((await admin.get('/api/moderation/queue')).body.shops as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
+    const shown = ((await admin.get('/api/moderation/queue/shops?limit=100')).body.items as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
     expect(shown.name).toBe('Egret Goods');
     // the whole shop is reviewed before it goes live, so the name applies at once, with a new revision
     const res = await sa.patch('/api/shop').send({ name: 'Egret Knock-offs' });
@@ -377,7 +382,7 @@ describe('shop name and description changes', () => {
     expect(stale.status).toBe(409);
     expect(stale.body.error.message).toMatch(/review the new version/);
     expect((await sa.get('/api/shop')).body.shop.state).toBe('in_review');
-    const now = ((await admin.get('/api/moderation/queue')).body.shops as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
+    const now = ((await admin.get('/api/moderation/queue/shops?limit=100')).body.items as { id: string; name: string; revision: number }[]).find((x) => x.id === s.shopId)!;
     expect(now).toMatchObject({ name: 'Egret Knock-offs', revision: shown.revision + 1 });
     expect((await admin.post(`/api/moderation/shops/${s.shopId}/approve`).send({ revision: now.revision })).body.shop.state).toBe('live');
   });

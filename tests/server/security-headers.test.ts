@@ -83,7 +83,7 @@ describe('security headers', () => {
     check(motif, 'motif svg');
     expect(motif.headers['content-security-policy']).toMatch(/sandbox/);
 
-    const lines = (await fern.get('/api/workroom/lines?state=approved')).body.lines;
+    const lines = (await fern.get('/api/workroom/lines?state=approved')).body.items;
     const built = await fern.post('/api/workroom/cut-sheets').send({ lineIds: [lines[0].id] });
     const sheet = await fern.get(built.body.sheets[0].svgUrl);
     expect(sheet.status).toBe(200);

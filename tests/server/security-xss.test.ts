@@ -53,14 +53,14 @@ const seen = async (to: string) => new Set((await t.mailTo(to)).map((m) => m.id)
 describe('XSS payloads in user-typed text (server half)', () => {
   test('when payloads are typed by sellers, shoppers and moderators, then every HTML answer and e-mail another user gets has them escaped', async () => {
     const slug = (await fern.get('/api/shop')).body.shop.slug as string;
-    const waiting = ((await fern.get('/api/workroom/lines?state=awaiting_proof')).body.lines as { id: string }[]).map((l) => l.id);
+    const waiting = ((await fern.get('/api/workroom/lines?state=awaiting_proof&limit=100')).body.items as { id: string }[]).map((l) => l.id);
 
     for (const [i, p] of XSS_PAYLOADS.entries()) {
       // shop name, description and return policy → the public shop page and listing page
       const shop = await fern.patch('/api/shop').send({ name: `Fern ${p}`.slice(0, 60), description: `About us ${p}`, returnPolicy: `Returns ${p}` });
       expect(shop.status, JSON.stringify(shop.body)).toBe(200);
       // a live shop's new name and description go public once a moderator approves them
-      const change = (await admin.get('/api/moderation/queue')).body.shopChanges.find((c: { slug: string }) => c.slug === slug);
+      const change = (await admin.get('/api/moderation/queue/shop-changes')).body.items.find((c: { slug: string }) => c.slug === slug);
       await admin.post(`/api/moderation/shops/${change.id}/approve-change`).send({ revision: change.revision }).expect(200);
       typed('shop name', 'shop description', 'return policy');
       const page = await request(t.app).get(`/api/shops/${slug}`);

@@ -21,10 +21,15 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(async () => t?.close());
 
+/** every line of Fern's (in one state), page after page */
 async function lines(state?: string): Promise<WorkLine[]> {
-  const res = await fern.get(`/api/workroom/lines${state ? `?state=${state}` : ''}`);
-  expect(res.status).toBe(200);
-  return res.body.lines;
+  const out: WorkLine[] = [];
+  for (let page = 1; ; page++) {
+    const res = await fern.get('/api/workroom/lines').query({ page, limit: 100, ...(state ? { state } : {}) });
+    expect(res.status).toBe(200);
+    out.push(...(res.body.items as WorkLine[]));
+    if (out.length >= res.body.total || res.body.items.length === 0) return out;
+  }
 }
 const byText = async (text: string, state?: string) => {
   const l = (await lines(state)).find((x) => x.text === text);
@@ -69,7 +74,7 @@ describe('access', () => {
     expect((await comet.post(`/api/workroom/orders/${approved[0]!.orderId}/ship`).send({ carrier: 'UPS', trackingNumber: '1Z999' })).status).toBe(404);
     // comet's own list holds none of them
     const theirs = await comet.get('/api/workroom/lines');
-    expect(theirs.body.lines.map((l: WorkLine) => l.id)).not.toContain(ids[0]);
+    expect(theirs.body.items.map((l: WorkLine) => l.id)).not.toContain(ids[0]);
     // a sheet of Fern's, asked for by Comet
     const mine = await fern.post('/api/workroom/cut-sheets').send({ lineIds: [ids[0]] });
     expect(mine.status).toBe(201);
@@ -219,7 +224,7 @@ describe('cut sheets, stock, pressing and shipping', () => {
     expect(new Set((all.body as MarkCutResult).linesCut)).toEqual(new Set(chosen.map((l) => l.id)));
     expect((await fern.post(`/api/workroom/batches/${res.body.batchId}/cut`)).status).toBe(409);
     const stock = (await fern.get('/api/workroom/stock')).body;
-    const used = stock.sheets.find((x: { id: string }) => x.id === sheets[0]!.id);
+    const used = stock.sheets.items.find((x: { id: string }) => x.id === sheets[0]!.id);
     expect(used.consumedMm).toBeCloseTo(sheets[0]!.lengthMm + 25, 6);
   });
 

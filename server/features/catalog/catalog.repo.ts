@@ -86,7 +86,8 @@ function prepared(db: Db, key: string, sqlText: string): Statement {
 const cache = new WeakMap<object, Map<string, { version: string; value: { rows: CatalogRow[]; total: number } }>>();
 const CACHE_MAX = 500;
 
-export function catalogPage(db: Db, q: CatalogQuery, pageSize: number): { rows: CatalogRow[]; total: number } {
+export function catalogPage(db: Db, q: CatalogQuery): { rows: CatalogRow[]; total: number } {
+  const pageSize = q.limit;
   const fts = q.q ? ftsQuery(q.q) : null;
   if (q.q && !fts) return { rows: [], total: 0 };
   const version = `${stmts(db).version.get()}:${db.$client.pragma('data_version', { simple: true })}`;

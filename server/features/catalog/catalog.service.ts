@@ -3,10 +3,11 @@ import type { SessionUser } from '../../http/auth-guards.ts';
 import { notFound } from '../../http/app-error.ts';
 import { uploadUrl } from '../../integrations/storage.ts';
 import {
-  CARE_CARD, CATALOG_PAGE_SIZE, SMALL_PARTS_NOTES, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage,
+  CARE_CARD, SMALL_PARTS_NOTES, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage,
 } from '../../../shared/schemas/catalog.ts';
 import { materialIdsOf, type ListingContentParsed, type Occasion } from '../../../shared/schemas/listing.ts';
 import type { PublicShop } from '../../../shared/schemas/shop.ts';
+import { toPage } from '../../../shared/schemas/pagination.ts';
 import * as repo from './catalog.repo.ts';
 import { renderDescription } from './markdown.ts';
 
@@ -17,8 +18,8 @@ const toItem = (r: repo.CatalogRow): CatalogItem => ({
 });
 
 export function search(db: Db, q: CatalogQuery): CatalogPage {
-  const { rows, total } = repo.catalogPage(db, q, CATALOG_PAGE_SIZE);
-  return { items: rows.map(toItem), total, page: q.page, pageSize: CATALOG_PAGE_SIZE };
+  const { rows, total } = repo.catalogPage(db, q);
+  return toPage(rows.map(toItem), total, q);
 }
 
 export function publicShop(db: Db, slug: string): PublicShop {
@@ -27,7 +28,7 @@ export function publicShop(db: Db, slug: string): PublicShop {
   // a shop page shows every live listing (a demo shop has dozens at most; capped for safety)
   const items: CatalogItem[] = [];
   for (let page = 1; page <= 10; page++) {
-    const { rows, total } = repo.catalogPage(db, { shop: slug, sort: 'newest', page }, 100);
+    const { rows, total } = repo.catalogPage(db, { shop: slug, sort: 'newest', page, limit: 100 });
     items.push(...rows.map(toItem));
     if (page * 100 >= total) break;
   }

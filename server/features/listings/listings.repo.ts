@@ -1,12 +1,14 @@
-import { and, desc, eq, inArray, like } from 'drizzle-orm';
+import { and, desc, eq, inArray, like, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { listings, materials, motifs, uploads } from '../../db/schema.ts';
 
 export type ListingRow = typeof listings.$inferSelect;
 
-export const listOwn = (db: Db, shopId: string, state?: string) =>
-  db.select().from(listings).where(state ? and(eq(listings.shopId, shopId), eq(listings.state, state)) : eq(listings.shopId, shopId))
-    .orderBy(desc(listings.updatedAt)).all();
+const ownWhere = (shopId: string, state?: string) => (state ? and(eq(listings.shopId, shopId), eq(listings.state, state)) : eq(listings.shopId, shopId));
+/** one page of the shop's listings, last changed first */
+export const listOwn = (db: Db, shopId: string, state: string | undefined, limit: number, offset: number) =>
+  db.select().from(listings).where(ownWhere(shopId, state)).orderBy(desc(listings.updatedAt), listings.id).limit(limit).offset(offset).all();
+export const countOwn = (db: Db, shopId: string, state?: string) => db.select({ n: sql<number>`count(*)` }).from(listings).where(ownWhere(shopId, state)).get()?.n ?? 0;
 /** scoped by shop: another shop's listing id is not found */
 export const findOwn = (db: Db, shopId: string, id: string) =>
   db.select().from(listings).where(and(eq(listings.id, id), eq(listings.shopId, shopId))).get();

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type { AppDeps } from '../../app.ts';
 import { ownShop, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { listingIdParams, listingInputSchema, sellerListingsQuerySchema } from '../../../shared/schemas/listing.ts';
+import { listingIdParams, listingInputSchema, sellerListingsQuerySchema, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
 import * as svc from './listings.service.ts';
 
 /** /api/seller/listings: the signed-in seller's own listings. Every lookup is scoped by their shop. */
@@ -11,7 +11,7 @@ export function listingsRouter(deps: AppDeps): Router {
   r.use(requireRole('seller'));
   const id = (p: unknown) => String(p);
   r.get('/', validate({ query: sellerListingsQuerySchema }), (req, res) => {
-    res.json({ listings: svc.list(deps.db, ownShop(deps.db, req).id, (res.locals.query as { state?: string }).state) });
+    res.json(svc.list(deps.db, ownShop(deps.db, req).id, res.locals.query as SellerListingsQuery));
   });
   r.post('/', validate({ body: listingInputSchema }), (req, res) => {
     res.status(201).json({ listing: svc.create(deps, ownShop(deps.db, req), req.body) });

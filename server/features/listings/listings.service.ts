@@ -3,8 +3,9 @@ import slugify from 'slugify';
 import type { Db } from '../../db/client.ts';
 import type { ListingContent } from '../../db/schema.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
-import { materialIdsOf, type ListingContentParsed, type ListingState, type SellerListing } from '../../../shared/schemas/listing.ts';
-import { deleteOwn, findOwn, insertListing, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn, type ListingRow } from './listings.repo.ts';
+import { materialIdsOf, type ListingContentParsed, type ListingState, type SellerListing, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
+import { pageOffset, toPage, type Page } from '../../../shared/schemas/pagination.ts';
+import { countOwn, deleteOwn, findOwn, insertListing, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn, type ListingRow } from './listings.repo.ts';
 
 type Deps = { db: Db; now: () => number };
 
@@ -62,7 +63,10 @@ function uniqueSlug(db: Db, title: string): string {
   for (let i = 2; ; i++) if (!taken.has(`${base}-${i}`)) return `${base}-${i}`;
 }
 
-export const list = (db: Db, shopId: string, state?: string) => listOwn(db, shopId, state).map(toSellerListing);
+/** One page of the shop's listings, last changed first, optionally in one state. */
+export function list(db: Db, shopId: string, q: SellerListingsQuery): Page<SellerListing> {
+  return toPage(listOwn(db, shopId, q.state, q.limit, pageOffset(q)).map(toSellerListing), countOwn(db, shopId, q.state), q);
+}
 
 export function get(db: Db, shopId: string, id: string): SellerListing {
   const l = findOwn(db, shopId, id);

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type { AppDeps } from '../../app.ts';
 import { ownShop, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { createMaterialSchema, materialIdParams, materialsQuerySchema, PRESS_DEFAULTS, updateMaterialSchema } from '../../../shared/schemas/material.ts';
+import { createMaterialSchema, materialIdParams, materialsQuerySchema, PRESS_DEFAULTS, updateMaterialSchema, type MaterialsQuery } from '../../../shared/schemas/material.ts';
 import * as svc from './materials.service.ts';
 
 /** /api/materials: the signed-in seller's vinyl stock. Every query is scoped by their shop. */
@@ -13,8 +13,7 @@ export function materialsRouter(deps: AppDeps): Router {
     res.json({ pressDefaults: PRESS_DEFAULTS });
   });
   r.get('/', validate({ query: materialsQuerySchema }), (req, res) => {
-    const q = res.locals.query as { archived?: 'true' | 'false' };
-    res.json({ materials: svc.list(deps.db, ownShop(deps.db, req).id, q.archived === undefined ? undefined : q.archived === 'true') });
+    res.json(svc.list(deps.db, ownShop(deps.db, req).id, res.locals.query as MaterialsQuery));
   });
   r.post('/', validate({ body: createMaterialSchema }), (req, res) => {
     res.status(201).json({ material: svc.create(deps, ownShop(deps.db, req).id, req.body) });

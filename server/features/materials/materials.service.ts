@@ -1,9 +1,10 @@
 import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
-import type { CreateMaterialInput, Material, MaterialKind, UpdateMaterialInput } from '../../../shared/schemas/material.ts';
+import type { CreateMaterialInput, Material, MaterialKind, MaterialsQuery, UpdateMaterialInput } from '../../../shared/schemas/material.ts';
 import { createMaterialSchema, updateMaterialSchema } from '../../../shared/schemas/material.ts';
-import { deleteMaterial, findMaterial, insertMaterial, listingsUsing, listMaterials, updateMaterial, type MaterialRow } from './materials.repo.ts';
+import { countMaterials, deleteMaterial, findMaterial, insertMaterial, listingsUsing, listMaterials, updateMaterial, type MaterialRow } from './materials.repo.ts';
+import { pageOffset, toPage, type Page } from '../../../shared/schemas/pagination.ts';
 import type { z } from 'zod';
 
 export function toMaterial(m: MaterialRow): Material {
@@ -16,7 +17,11 @@ export function toMaterial(m: MaterialRow): Material {
 
 const gone = () => notFound('No such material in your shop.');
 
-export const list = (db: Db, shopId: string, archived?: boolean) => listMaterials(db, shopId, archived).map(toMaterial);
+/** One page of the shop's materials; `archived` undefined lists both. */
+export function list(db: Db, shopId: string, q: MaterialsQuery): Page<Material> {
+  const archived = q.archived === undefined ? undefined : q.archived === 'true';
+  return toPage(listMaterials(db, shopId, archived, q.limit, pageOffset(q)).map(toMaterial), countMaterials(db, shopId, archived), q);
+}
 
 export function get(db: Db, shopId: string, id: string): Material {
   const m = findMaterial(db, shopId, id);

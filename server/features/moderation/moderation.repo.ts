@@ -5,16 +5,28 @@ import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
 export type ShopRow = typeof shops.$inferSelect;
 export type ListingRow = typeof listings.$inferSelect;
 
-export const shopsInReview = (db: Db) =>
+// the review queue, oldest first (a page at a time)
+const shopWaits = eq(shops.state, 'in_review');
+export const shopsInReview = (db: Db, limit: number, offset: number) =>
   db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
-    .where(eq(shops.state, 'in_review')).orderBy(shops.createdAt).all();
-export const listingsInReview = (db: Db) =>
+    .where(shopWaits).orderBy(shops.createdAt, shops.id).limit(limit).offset(offset).all();
+export const shopsInReviewCount = (db: Db) =>
+  db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopWaits).get()?.n ?? 0;
+const listingWaits = or(eq(listings.state, 'in_review'), eq(listings.pendingReview, true));
+export const listingsInReview = (db: Db, limit: number, offset: number) =>
   db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId))
-    .where(or(eq(listings.state, 'in_review'), eq(listings.pendingReview, true))).orderBy(listings.updatedAt).all();
-/** live (or suspended) shops whose name/description change waits for review */
-export const shopsWithChanges = (db: Db) =>
+    .where(listingWaits).orderBy(listings.updatedAt, listings.id).limit(limit).offset(offset).all();
+export const listingInReview = (db: Db, id: string) =>
+  db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(and(eq(listings.id, id), listingWaits)).get();
+export const listingsInReviewCount = (db: Db) =>
+  db.select({ n: sql<number>`count(*)` }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(listingWaits).get()?.n ?? 0;
+/** live (or suspended) shops whose name/description change waits for review, oldest first */
+const shopHasChange = isNotNull(shops.pendingChange);
+export const shopsWithChanges = (db: Db, limit: number, offset: number) =>
   db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
-    .where(isNotNull(shops.pendingChange)).orderBy(shops.updatedAt).all();
+    .where(shopHasChange).orderBy(shops.updatedAt, shops.id).limit(limit).offset(offset).all();
+export const shopsWithChangesCount = (db: Db) =>
+  db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopHasChange).get()?.n ?? 0;
 
 export const findShop = (db: Db, id: string) => db.select().from(shops).where(eq(shops.id, id)).get();
 export const findListing = (db: Db, id: string) => db.select().from(listings).where(eq(listings.id, id)).get();

@@ -1,11 +1,12 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import type { AppDeps } from '../../app.ts';
 import { currentUser, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
 import {
-  approveShopSchema, decisionSchema, moderationIdParams, moderationShopsQuery, optionalReasonSchema, reasonSchema, rejectDecisionSchema,
+  approveShopSchema, auditQuerySchema, decisionSchema, moderationIdParams, moderationShopsQuery, optionalReasonSchema, queueQuerySchema, reasonSchema,
+  rejectDecisionSchema, type ModerationShopsFilter,
 } from '../../../shared/schemas/catalog.ts';
+import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import * as svc from './moderation.service.ts';
 
 /** /api/moderation: the moderation desk, admins only (403 for everyone else, 401 for guests). */
@@ -13,11 +14,20 @@ export function moderationRouter(deps: AppDeps): Router {
   const r = Router();
   r.use(requireRole('admin'));
   const id = (req: { params: Record<string, unknown> }) => String(req.params.id);
-  r.get('/queue', (_req, res) => {
-    res.json(svc.queue(deps.db));
+  r.get('/queue/listings', validate({ query: queueQuerySchema }), (_req, res) => {
+    res.json(svc.listingQueue(deps.db, res.locals.query as PageQuery));
+  });
+  r.get('/queue/listings/:id', validate({ params: moderationIdParams }), (req, res) => {
+    res.json({ listing: svc.listingQueueItem(deps.db, id(req)) });
+  });
+  r.get('/queue/shop-changes', validate({ query: queueQuerySchema }), (_req, res) => {
+    res.json(svc.shopChangeQueue(deps.db, res.locals.query as PageQuery));
+  });
+  r.get('/queue/shops', validate({ query: queueQuerySchema }), (_req, res) => {
+    res.json(svc.shopQueue(deps.db, res.locals.query as PageQuery));
   });
   r.get('/shops', validate({ query: moderationShopsQuery }), (_req, res) => {
-    res.json(svc.shops(deps.db, res.locals.query as z.output<typeof moderationShopsQuery>));
+    res.json(svc.shops(deps.db, res.locals.query as ModerationShopsFilter));
   });
   r.get('/listings/:id', validate({ params: moderationIdParams }), (req, res) => {
     res.setHeader('Cache-Control', 'private, no-store');
@@ -44,8 +54,8 @@ export function moderationRouter(deps: AppDeps): Router {
     r.post(`/shops/:id/${move}`, validate({ params: moderationIdParams, body: reasonSchema }), async (req, res) => {
       res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason) });
     });
-  r.get('/audit', validate({ query: z.object({ page: z.coerce.number().int().min(1).max(10_000).default(1) }) }), (_req, res) => {
-    res.json(svc.auditLog(deps.db, (res.locals.query as { page: number }).page));
+  r.get('/audit', validate({ query: auditQuerySchema }), (_req, res) => {
+    res.json(svc.auditLog(deps.db, res.locals.query as PageQuery));
   });
   return r;
 }

@@ -6,8 +6,9 @@ import type { SessionUser } from '../../http/auth-guards.ts';
 import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
 import { liveColumns, type ListingContentParsed } from '../../../shared/schemas/listing.ts';
 import {
-  MODERATION_SHOPS_PAGE_SIZE, STALE_LISTING_MESSAGE, STALE_SHOP_CHANGE_MESSAGE, type ListingPage, type ModerationShopsPage,
+  STALE_LISTING_MESSAGE, STALE_SHOP_CHANGE_MESSAGE, type ListingPage, type ModerationShopsFilter, type ModerationShopsPage,
 } from '../../../shared/schemas/catalog.ts';
+import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagination.ts';
 import type { ShopState } from '../../../shared/schemas/shop.ts';
 import { listingPage } from '../catalog/catalog.service.ts';
 import * as repo from './moderation.repo.ts';
@@ -38,6 +39,29 @@ function notOwnShop(db: Db, actor: SessionUser, shopId: string) {
   if (repo.findShop(db, shopId)?.ownerId === actor.id) throw forbidden('This is your own shop: another admin must decide on it.');
 }
 
+/** Shops waiting for their first review, oldest first, a page at a time. */
+export function shopQueue(db: Db, q: PageQuery) {
+  const rows = repo.shopsInReview(db, q.limit, pageOffset(q)).map(({ shop, ownerEmail, ownerName }) => ({
+    id: shop.id, name: shop.name, slug: shop.slug, state: shop.state, description: shop.description, owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+    /** the revision of the name/description shown; approving may name it */
+    revision: shop.changeRevision,
+  }));
+  return toPage(rows, repo.shopsInReviewCount(db), q);
+}
+
+/** Name/description changes of approved shops: the public shop keeps `before` until approval. */
+export function shopChangeQueue(db: Db, q: PageQuery) {
+  const rows = repo.shopsWithChanges(db, q.limit, pageOffset(q)).map(({ shop, ownerEmail, ownerName }) => ({
+    id: shop.id, slug: shop.slug, state: shop.state, owner: { name: ownerName, email: ownerEmail },
+    revision: shop.changeRevision,
+    before: { name: shop.name, description: shop.description },
+    after: { name: shop.pendingChange?.name ?? shop.name, description: shop.pendingChange?.description ?? shop.description },
+    changed: [...(shop.pendingChange?.name !== undefined ? ['name' as const] : []), ...(shop.pendingChange?.description !== undefined ? ['description' as const] : [])],
+    submittedAt: shop.pendingChange?.submittedAt ?? shop.updatedAt,
+  }));
+  return toPage(rows, repo.shopsWithChangesCount(db), q);
+}
+
 function queueListing({ listing, shop }: { listing: repo.ListingRow; shop: repo.ShopRow }) {
   return {
     id: listing.id, slug: listing.slug, state: listing.state, pendingReview: listing.pendingReview,
@@ -55,24 +79,16 @@ function queueListing({ listing, shop }: { listing: repo.ListingRow; shop: repo.
   };
 }
 
-export function queue(db: Db) {
-  return {
-    shops: repo.shopsInReview(db).map(({ shop, ownerEmail, ownerName }) => ({
-      id: shop.id, name: shop.name, slug: shop.slug, state: shop.state, description: shop.description, owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
-      /** the revision of the name/description shown; approving may name it */
-      revision: shop.changeRevision,
-    })),
-    listings: repo.listingsInReview(db).map(queueListing),
-    /** name/description changes of approved shops: the public shop keeps `before` until approval */
-    shopChanges: repo.shopsWithChanges(db).map(({ shop, ownerEmail, ownerName }) => ({
-      id: shop.id, slug: shop.slug, state: shop.state, owner: { name: ownerName, email: ownerEmail },
-      revision: shop.changeRevision,
-      before: { name: shop.name, description: shop.description },
-      after: { name: shop.pendingChange?.name ?? shop.name, description: shop.pendingChange?.description ?? shop.description },
-      changed: [...(shop.pendingChange?.name !== undefined ? ['name' as const] : []), ...(shop.pendingChange?.description !== undefined ? ['description' as const] : [])],
-      submittedAt: shop.pendingChange?.submittedAt ?? shop.updatedAt,
-    })),
-  };
+/** Listings waiting for review (new ones and edits of live ones), oldest first, a page at a time. */
+export function listingQueue(db: Db, q: PageQuery) {
+  return toPage(repo.listingsInReview(db, q.limit, pageOffset(q)).map(queueListing), repo.listingsInReviewCount(db), q);
+}
+
+/** One listing of the queue, whatever page of the queue it is on (404 once it is decided). */
+export function listingQueueItem(db: Db, id: string) {
+  const row = repo.listingInReview(db, id);
+  if (!row) throw notFound('This listing is not waiting for review (it may have been decided already).');
+  return queueListing(row);
 }
 
 /**
@@ -88,17 +104,13 @@ export function listingForReview(db: Db, actor: SessionUser, id: string): { list
 }
 
 /** The desk's shop directory: any shop in any state, so a live one can be found and suspended. */
-export function shops(db: Db, f: { q: string; state?: ShopState; page: number }, pageSize = MODERATION_SHOPS_PAGE_SIZE): ModerationShopsPage {
-  const rows = repo.shopsPage(db, f, pageSize, (f.page - 1) * pageSize);
-  return {
-    items: rows.map(({ shop, ownerEmail, ownerName }) => ({
-      id: shop.id, name: shop.name, slug: shop.slug, state: shop.state as ShopState, stateReason: shop.stateReason ?? null,
-      owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
-    })),
-    total: repo.shopsCount(db, f),
-    page: f.page,
-    pageSize,
-  };
+export function shops(db: Db, f: ModerationShopsFilter): ModerationShopsPage {
+  const rows = repo.shopsPage(db, f, f.limit, pageOffset(f));
+  const items = rows.map(({ shop, ownerEmail, ownerName }) => ({
+    id: shop.id, name: shop.name, slug: shop.slug, state: shop.state as ShopState, stateReason: shop.stateReason ?? null,
+    owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+  }));
+  return toPage(items, repo.shopsCount(db, f), f);
 }
 
 function waiting(db: Db, id: string) {
@@ -237,21 +249,18 @@ export async function rejectShopChange(deps: Deps, actor: SessionUser, id: strin
   return { id: row.id, name: row.name, description: row.description, changeRejectionReason: row.changeRejectionReason };
 }
 
-export function auditLog(db: Db, page: number, pageSize = 50) {
-  const rows = repo.auditPage(db, pageSize, (page - 1) * pageSize);
+/** Every moderation decision, newest first, a page at a time. */
+export function auditLog(db: Db, q: PageQuery) {
+  const rows = repo.auditPage(db, q.limit, pageOffset(q));
   const shopIds = rows.filter((r) => r.entry.subjectType === 'shop').map((r) => r.entry.subjectId);
   const listingIds = rows.filter((r) => r.entry.subjectType === 'listing').map((r) => r.entry.subjectId);
   const labels = new Map<string, string>([
     ...repo.shopNames(db, shopIds).map((s) => [s.id, s.name] as [string, string]),
     ...repo.listingTitles(db, listingIds).map((l) => [l.id, (l.draft as unknown as ListingContentParsed).title] as [string, string]),
   ]);
-  return {
-    items: rows.map(({ entry, actorName, actorEmail }) => ({
-      id: entry.id, at: entry.createdAt, actor: { id: entry.actorId, name: actorName, email: actorEmail }, action: entry.action,
-      subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null }, reason: entry.reason,
-    })),
-    total: repo.auditCount(db),
-    page,
-    pageSize,
-  };
+  const items = rows.map(({ entry, actorName, actorEmail }) => ({
+    id: entry.id, at: entry.createdAt, actor: { id: entry.actorId, name: actorName, email: actorEmail }, action: entry.action,
+    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null }, reason: entry.reason,
+  }));
+  return toPage(items, repo.auditCount(db), q);
 }

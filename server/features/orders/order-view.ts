@@ -3,6 +3,7 @@ import type { Db } from '../../db/client.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { parseShipTo } from '../../../shared/schemas/checkout.ts';
 import type { LineState, OrderDetail, OrderEvent, OrderSummary } from '../../../shared/schemas/order.ts';
+import { pageOffset, toPage, type Page, type PageQuery } from '../../../shared/schemas/pagination.ts';
 import { ordersRepo, type OrderLineRow, type OrderRow } from './orders.repo.ts';
 
 type ShopRow = ReturnType<typeof ordersRepo.shopsByIds>[number];
@@ -21,11 +22,13 @@ function summary(o: OrderRow, shop: ShopRow | undefined, lines: OrderLineRow[]):
   };
 }
 
-export function listOrders(db: Db, buyerId: string): OrderSummary[] {
-  const os = ordersRepo.forBuyer(db, buyerId);
+/** One page of the shopper's orders, newest first. */
+export function listOrders(db: Db, buyerId: string, q: PageQuery): Page<OrderSummary> {
+  const os = ordersRepo.forBuyer(db, buyerId, q.limit, pageOffset(q));
   const lines = ordersRepo.lines(db, os.map((o) => o.id));
   const shops = new Map(ordersRepo.shopsByIds(db, [...new Set(os.map((o) => o.shopId))]).map((s) => [s.id, s]));
-  return os.map((o) => summary(o, shops.get(o.shopId), lines.filter((l) => l.orderId === o.id)));
+  const items = os.map((o) => summary(o, shops.get(o.shopId), lines.filter((l) => l.orderId === o.id)));
+  return toPage(items, ordersRepo.countForBuyer(db, buyerId), q);
 }
 
 export function orderDetail(db: Db, o: OrderRow): OrderDetail {

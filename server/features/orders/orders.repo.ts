@@ -8,7 +8,10 @@ export type OrderLineRow = typeof orderLines.$inferSelect;
 
 export const ordersRepo = {
   find: (db: Db, id: string) => db.select().from(orders).where(eq(orders.id, id)).get(),
-  forBuyer: (db: Db, buyerId: string) => db.select().from(orders).where(eq(orders.buyerId, buyerId)).orderBy(desc(orders.paidAt), desc(orders.number)).all(),
+  /** one page of the shopper's orders, newest first */
+  forBuyer: (db: Db, buyerId: string, limit: number, offset: number) =>
+    db.select().from(orders).where(eq(orders.buyerId, buyerId)).orderBy(desc(orders.paidAt), desc(orders.number), orders.id).limit(limit).offset(offset).all(),
+  countForBuyer: (db: Db, buyerId: string) => db.select({ n: sql<number>`count(*)` }).from(orders).where(eq(orders.buyerId, buyerId)).get()?.n ?? 0,
   ofCheckout: (db: Db, checkoutId: string) => db.select().from(orders).where(eq(orders.checkoutId, checkoutId)).orderBy(orders.number).all(),
   lines: (db: Db, orderIds: string[]) => (orderIds.length ? db.select().from(orderLines).where(inArray(orderLines.orderId, orderIds)).orderBy(orderLines.createdAt, orderLines.id).all() : []),
   events: (db: Db, lineIds: string[]) => (lineIds.length ? db.select().from(lineEvents).where(inArray(lineEvents.lineId, lineIds)).orderBy(lineEvents.createdAt, lineEvents.id).all() : []),

@@ -5,6 +5,7 @@ import { splitForShop } from '../../../shared/money.ts';
 import { shipByDate as businessShipBy } from '../../../shared/business/working-days.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { notFound } from '../../http/app-error.ts';
+import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import { ordersRepo, type OrderRow } from './orders.repo.ts';
 import { listOrders, orderDetail } from './order-view.ts';
 
@@ -76,7 +77,7 @@ export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buye
   return made;
 }
 
-export const shopperOrders = (db: Db, buyerId: string) => listOrders(db, buyerId);
+export const shopperOrders = (db: Db, buyerId: string, q: PageQuery) => listOrders(db, buyerId, q);
 
 /** A shopper sees only their own orders; anyone else's is "not found" (no hint that it exists). */
 export function shopperOrder(db: Db, buyerId: string, orderId: string) {

@@ -1,13 +1,43 @@
 // Every database call of the workroom. Each read that takes an id from the client is scoped by
 // the seller's shop, so another shop's ids simply find nothing (→ 404, nothing revealed).
-import { and, desc, eq, inArray } from 'drizzle-orm';
+import { and, desc, eq, gte, inArray, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { cutSheets, lineEvents, lineVersions, listings, materials, motifs, orderLines, orders, shops, user } from '../../db/schema.ts';
+import type { LinesFilter } from '../../../shared/schemas/workroom.ts';
 
 export type LineRow = typeof orderLines.$inferSelect;
 export type OrderRow = typeof orders.$inferSelect;
 export type MaterialRow = typeof materials.$inferSelect;
 export type SheetRow = typeof cutSheets.$inferSelect;
+
+/** The shop's lines that pass the workroom's filters (always scoped by the shop). */
+function linesWhere(shopId: string, f: LinesFilter): SQL | undefined {
+  return and(
+    eq(orders.shopId, shopId),
+    f.state ? eq(orderLines.state, f.state) : undefined,
+    f.paidFrom !== undefined ? gte(orders.paidAt, f.paidFrom) : undefined,
+    f.paidTo !== undefined ? lte(orders.paidAt, f.paidTo) : undefined,
+    f.listing ? eq(orderLines.listingId, f.listing) : undefined,
+    // a line uses a material when one of its snapshot's pieces is cut from it
+    f.material ? sql`exists (select 1 from json_each(${orderLines.snapshot}, '$.geometry.pieces') as p where json_extract(p.value, '$.materialId') = ${f.material})` : undefined,
+  );
+}
+
+/**
+ * Most urgent first: lines still to ship before finished ones, then by ship-by date (late ones
+ * have the earliest dates), lines not yet cut before cut ones on the same date, then newest paid.
+ */
+const FINISHED = sql`('shipped', 'cancelled', 'refunded')`;
+const NOT_CUT = sql`('awaiting_proof', 'changes_requested', 'approved')`;
+const urgency = [
+  sql`case when ${orderLines.state} in ${FINISHED} then 1 else 0 end`,
+  sql`coalesce(${orders.shipByDate}, '9999-12-31')`,
+  sql`case when ${orderLines.state} in ${NOT_CUT} then 0 else 1 end`,
+  desc(orders.paidAt),
+  orders.number,
+  orderLines.createdAt,
+  orderLines.id,
+];
 
 export const workroomRepo = {
   /** every line of the shop with its order */
@@ -19,6 +49,27 @@ export const workroomRepo = {
       .where(state ? and(eq(orders.shopId, shopId), eq(orderLines.state, state)) : eq(orders.shopId, shopId))
       .orderBy(desc(orders.paidAt), orders.number, orderLines.createdAt)
       .all(),
+  /** one page of the shop's lines that pass the filters, most urgent first */
+  linesPage: (db: Db, shopId: string, f: LinesFilter, limit: number, offset: number) =>
+    db
+      .select({ line: orderLines, order: orders })
+      .from(orderLines)
+      .innerJoin(orders, eq(orders.id, orderLines.orderId))
+      .where(linesWhere(shopId, f))
+      .orderBy(...urgency)
+      .limit(limit)
+      .offset(offset)
+      .all(),
+  linesCount: (db: Db, shopId: string, f: LinesFilter) =>
+    db.select({ n: sql<number>`count(*)` }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId)).where(linesWhere(shopId, f)).get()?.n ?? 0,
+  /** how many of the shop's lines are in each state */
+  stateCounts: (db: Db, shopId: string) =>
+    db.select({ state: orderLines.state, n: sql<number>`count(*)` }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId))
+      .where(eq(orders.shopId, shopId)).groupBy(orderLines.state).all(),
+  /** every listing the shop has sold (id and the title on its latest line), for the listing filter */
+  soldListings: (db: Db, shopId: string) =>
+    db.select({ id: orderLines.listingId, title: sql<string>`max(${orderLines.listingTitle})` }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId))
+      .where(eq(orders.shopId, shopId)).groupBy(orderLines.listingId).orderBy(sql`max(${orderLines.listingTitle})`).all(),
   /** the shop's lines among `ids` (others' ids are simply absent) */
   linesByIds: (db: Db, shopId: string, ids: string[]) =>
     ids.length
@@ -52,5 +103,13 @@ export const workroomRepo = {
   sheetsOfBatch: (db: Db, shopId: string, batchId: string) =>
     db.select().from(cutSheets).where(and(eq(cutSheets.batchId, batchId), eq(cutSheets.shopId, shopId))).orderBy(cutSheets.createdAt, cutSheets.id).all(),
   sheetsOfShop: (db: Db, shopId: string) => db.select().from(cutSheets).where(eq(cutSheets.shopId, shopId)).orderBy(desc(cutSheets.createdAt), cutSheets.id).all(),
+  /** one page of the shop's cut sheets, newest first */
+  sheetsPage: (db: Db, shopId: string, limit: number, offset: number) =>
+    db.select().from(cutSheets).where(eq(cutSheets.shopId, shopId)).orderBy(desc(cutSheets.createdAt), cutSheets.id).limit(limit).offset(offset).all(),
+  sheetsCount: (db: Db, shopId: string) => db.select({ n: sql<number>`count(*)` }).from(cutSheets).where(eq(cutSheets.shopId, shopId)).get()?.n ?? 0,
+  /** per material: the sheets not cut yet (their count and nested length) */
+  plannedByMaterial: (db: Db, shopId: string) =>
+    db.select({ materialId: cutSheets.materialId, sheets: sql<number>`count(*)`, lengthMm: sql<number>`sum(${cutSheets.lengthMm})` }).from(cutSheets)
+      .where(and(eq(cutSheets.shopId, shopId), ne(cutSheets.state, 'cut'))).groupBy(cutSheets.materialId).all(),
   setSheet: (db: Db, id: string, set: Partial<typeof cutSheets.$inferInsert>) => db.update(cutSheets).set(set).where(eq(cutSheets.id, id)).run(),
 };

@@ -3,9 +3,9 @@ import type { AppDeps } from '../../app.ts';
 import { currentUser, ownShop, requireRole, requireUser } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
 import {
-  idParams, lineIdsSchema, linesQuerySchema, lowStockSchema, requestChangeSchema, shipSchema, worksheetRequestSchema,
+  idParams, lineIdsSchema, linesQuerySchema, lowStockSchema, requestChangeSchema, shipSchema, stockQuerySchema, worksheetRequestSchema, type LinesQuery,
 } from '../../../shared/schemas/workroom.ts';
-import type { LineState } from '../../../shared/schemas/order.ts';
+import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import * as svc from './workroom.service.ts';
 import { createWorksheetJobs } from './worksheet-jobs.ts';
 import { personalisationForEdit, savePersonalisation } from './proof-edit.service.ts';
@@ -25,8 +25,7 @@ export function workroomRouter(deps: AppDeps): Router {
     res.json(svc.summary(deps.db, shopId(req)));
   });
   r.get('/lines', validate({ query: linesQuerySchema }), (req, res) => {
-    const q = res.locals.query as { state?: LineState };
-    res.json({ lines: svc.listLines(deps.db, shopId(req), q.state) });
+    res.json(svc.listLines(deps.db, shopId(req), res.locals.query as LinesQuery));
   });
   r.get('/orders/:id', validate({ params: idParams }), (req, res) => {
     res.json({ order: svc.orderView(deps.db, shopId(req), id(req)) });
@@ -106,8 +105,8 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // stock
-  r.get('/stock', (req, res) => {
-    res.json(svc.stock(deps.db, shopId(req)));
+  r.get('/stock', validate({ query: stockQuerySchema }), (req, res) => {
+    res.json(svc.stock(deps.db, shopId(req), res.locals.query as PageQuery));
   });
   r.patch('/stock/:id', validate({ params: idParams, body: lowStockSchema }), (req, res) => {
     res.json(svc.setLowStock(deps.db, shopId(req), id(req), req.body.lowStockMm));

@@ -13,8 +13,10 @@ import { personalisationSchema, type Personalisation } from '../../../shared/sch
 import {
   WORK_STATES,
   type CharInfo, type MarkCutResult, type MaterialRef, type Proof, type ProofText, type ProofVersion, type ProofWarning, type PressCardView,
-  type SheetPiece, type StockView, type StockWarning, type TimelineEvent, type WorkLine, type WorkOrder, type WorkroomSummary, type WorkSheet,
+  type SheetPiece, type StockView, type StockWarning, type TimelineEvent, type WorkLine, type WorkLinesPage, type WorkOrder, type WorkroomSummary, type WorkSheet,
+  type LinesQuery, stockQuerySchema,
 } from '../../../shared/schemas/workroom.ts';
+import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagination.ts';
 import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
 import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
@@ -55,8 +57,8 @@ function materialRef(m: MaterialRow | undefined, id: string, s: LineSnapshot): M
   return { id, kind: 'unknown', colour: 'a material no longer in stock', colourHex: hex };
 }
 
-function views(db: Db, shopId: string, rows: Row[]): WorkLine[] {
-  const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
+function views(db: Db, shopId: string, rows: Row[], shopMaterials = repo.materialsOfShop(db, shopId)): WorkLine[] {
+  const mats = new Map(shopMaterials.map((m) => [m.id, m]));
   const buyers = new Map(repo.users(db, [...new Set(rows.map((r) => r.order.buyerId))]).map((u) => [u.id, u]));
   return rows.map(({ line, order }) => {
     const s = snap(line);
@@ -99,11 +101,23 @@ function requireState(line: LineRow, from: LineState[], doing: string) {
 
 export function summary(db: Db, shopId: string): WorkroomSummary {
   const counts = Object.fromEntries(WORK_STATES.map((s) => [s, 0])) as WorkroomSummary['counts'];
-  for (const { line } of repo.linesOfShop(db, shopId)) if (line.state in counts) counts[line.state as keyof typeof counts]++;
+  for (const { state, n } of repo.stateCounts(db, shopId)) if (state in counts) counts[state as keyof typeof counts] = n;
   return { counts };
 }
 
-export const listLines = (db: Db, shopId: string, state?: LineState): WorkLine[] => views(db, shopId, repo.linesOfShop(db, shopId, state));
+/** One page of the shop's lines (most urgent first), and what the filters can offer. */
+export function listLines(db: Db, shopId: string, q: LinesQuery): WorkLinesPage {
+  const { page, limit, ...filter } = q;
+  const rows = repo.linesPage(db, shopId, filter, limit, pageOffset({ page, limit }));
+  const mats = repo.materialsOfShop(db, shopId);
+  return {
+    ...toPage(views(db, shopId, rows, mats), repo.linesCount(db, shopId, filter), { page, limit }),
+    options: {
+      materials: mats.map((m) => ({ id: m.id, kind: m.kind, colour: m.colourName, colourHex: m.colourHex })).sort((a, b) => a.colour.localeCompare(b.colour)),
+      listings: repo.soldListings(db, shopId),
+    },
+  };
+}
 
 export function orderView(db: Db, shopId: string, orderId: string): WorkOrder {
   const order = repo.order(db, shopId, orderId);
@@ -574,11 +588,12 @@ export async function ship(deps: WorkroomDeps, shopId: string, actorId: string, 
 
 // ---------------------------------------------------------------- stock
 
-export function stock(db: Db, shopId: string): StockView {
+/** Every roll in use with what uncut sheets will take from it; the sheets' use a page at a time. */
+export function stock(db: Db, shopId: string, q: PageQuery): StockView {
   const shop = repo.shop(db, shopId);
-  const sheets = repo.sheetsOfShop(db, shopId);
-  const planned = new Map<string, number>();
-  for (const s of sheets) if (s.state !== 'cut') planned.set(s.materialId, (planned.get(s.materialId) ?? 0) + s.lengthMm + TRIM_ALLOWANCE_MM);
+  const sheets = repo.sheetsPage(db, shopId, q.limit, pageOffset(q));
+  // each uncut sheet takes its nested length plus the trim
+  const planned = new Map(repo.plannedByMaterial(db, shopId).map((p) => [p.materialId, p.lengthMm + p.sheets * TRIM_ALLOWANCE_MM]));
   return {
     currency: shop?.currency ?? 'USD',
     trimMm: TRIM_ALLOWANCE_MM,
@@ -586,18 +601,23 @@ export function stock(db: Db, shopId: string): StockView {
       id: m.id, kind: m.kind, colourName: m.colourName, colourHex: m.colourHex, rollWidthMm: m.rollWidthMm, stockMm: m.stockMm, lowStockMm: m.lowStockMm,
       low: m.stockMm < m.lowStockMm, plannedMm: r3(planned.get(m.id) ?? 0),
     })),
-    sheets: sheets.map((s) => ({
-      id: s.id, batchId: s.batchId, materialId: s.materialId, state: s.state === 'cut' ? 'cut' : 'planned', lengthMm: s.lengthMm, consumedMm: s.consumedMm,
-      costMinor: s.costMinor, cutAt: s.cutAt, createdAt: s.createdAt, lineCount: new Set((s.pieces as StoredPiece[]).map((p) => p.lineId)).size,
-    })),
+    sheets: toPage(
+      sheets.map((s) => ({
+        id: s.id, batchId: s.batchId, materialId: s.materialId, state: s.state === 'cut' ? ('cut' as const) : ('planned' as const), lengthMm: s.lengthMm, consumedMm: s.consumedMm,
+        costMinor: s.costMinor, cutAt: s.cutAt, createdAt: s.createdAt, lineCount: new Set((s.pieces as StoredPiece[]).map((p) => p.lineId)).size,
+      })),
+      repo.sheetsCount(db, shopId),
+      q,
+    ),
   };
 }
 
+/** Sets a roll's low-stock mark; answers with the stock view's first page. */
 export function setLowStock(db: Db, shopId: string, materialId: string, lowStockMm: number): StockView {
   const m = repo.material(db, shopId, materialId);
   if (!m) throw notFound('We could not find that material in your shop.');
   repo.setMaterial(db, m.id, { lowStockMm });
-  return stock(db, shopId);
+  return stock(db, shopId, stockQuerySchema.parse({}));
 }
 
 export { snap as lineSnapshot, lineText, views as lineViews, ownLine };

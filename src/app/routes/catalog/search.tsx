@@ -1,8 +1,9 @@
 import { useEffect, useId, useMemo, useState, type FormEvent } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import { CATALOG_PAGE_SIZE } from '../../../../shared/schemas/catalog.ts';
+import { pageCount } from '../../../../shared/schemas/pagination.ts';
 import { BLANK_DEFAULTS, BLANK_KINDS, OCCASION_LABELS, OCCASIONS } from '../../../../shared/schemas/listing.ts';
 import { Button } from '../../../components/ui/button.tsx';
+import { Pager } from '../../../components/ui/pager.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -55,7 +56,7 @@ export function SearchPage() {
   const serverFields = list.error && 'fields' in list.error ? (list.error.fields as Record<string, string> | undefined) : undefined;
   const priceError = invalid ? 'Enter a price like 15 or 15.50.' : (serverFields?.minPrice ?? serverFields?.maxPrice);
   const title = state.q ? `Results for “${state.q}”` : state.occasion ? OCCASION_LABELS[state.occasion] : 'Everything on Namesake';
-  const pages = list.data ? Math.max(1, Math.ceil(list.data.total / (list.data.pageSize || CATALOG_PAGE_SIZE))) : 1;
+  const pages = list.data ? pageCount(list.data.total, list.data.limit) : 1;
   const selectClass = 'min-h-11 w-full rounded-lg border-2 border-field bg-white px-3 py-2 text-base text-ink hover:border-ink';
 
   return (
@@ -130,23 +131,9 @@ export function SearchPage() {
         </div>
       )}
 
-      {pages > 1 ? (
-        <nav aria-label="Pages" className="mt-8 flex items-center justify-center gap-3">
-          <PageLink state={state} page={state.page - 1} disabled={state.page <= 1} label="← Previous" />
-          <span className="font-bold">Page {state.page} of {pages}</span>
-          <PageLink state={state} page={state.page + 1} disabled={state.page >= pages} label="Next →" />
-        </nav>
+      {list.data ? (
+        <Pager className="mt-8 items-center" page={state.page} total={list.data.total} limit={list.data.limit} label="Result pages" noun="listings" onPageChange={(page) => update({ page })} />
       ) : null}
     </div>
-  );
-}
-
-function PageLink({ state, page, disabled, label }: { state: SearchState; page: number; disabled: boolean; label: string }) {
-  const cls = 'flex min-h-11 items-center rounded-lg border-2 px-4 font-bold';
-  if (disabled) return <span aria-disabled="true" className={`${cls} border-line text-ink-faint`}>{label}</span>;
-  return (
-    <Link to={paths.search.getHref(writeSearchState({ ...state, page }))} className={`${cls} border-thread text-thread-deep hover:bg-thread-wash`}>
-      {label}
-    </Link>
   );
 }

@@ -3,7 +3,8 @@ import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 import { paths } from '../../../config/paths.ts';
-import { useModerationQueue } from '../../../features/moderation/api/get-queue.ts';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { useListingQueue, useShopChangeQueue, useShopQueue } from '../../../features/moderation/api/get-queue.ts';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
 import { ShopChangeCard } from '../../../features/moderation/components/shop-change.tsx';
 import { ShopFinder } from '../../../features/moderation/components/shop-finder.tsx';
@@ -13,27 +14,37 @@ const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle
 const shopStateLabel = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' } as const;
 
 export function ModerationDeskPage() {
-  const queue = useModerationQueue();
+  // two queues on one page, each with its own page in the URL
+  const [listingsPage, setListingsPage] = usePageParam('listingsPage');
+  const [shopsPage, setShopsPage] = usePageParam('shopsPage');
+  const [changesPage, setChangesPage] = usePageParam('changesPage');
+  const listingQueue = useListingQueue({ page: listingsPage });
+  const shopQueue = useShopQueue({ page: shopsPage });
+  const changeQueue = useShopChangeQueue({ page: changesPage });
+  const pending = listingQueue.isPending || shopQueue.isPending || changeQueue.isPending;
+  const error = listingQueue.error ?? shopQueue.error ?? changeQueue.error;
+  const queue =
+    listingQueue.data && shopQueue.data && changeQueue.data ? { listings: listingQueue.data, shops: shopQueue.data, changes: changeQueue.data } : undefined;
 
   return (
     <div>
       <DeskNav />
       <PageHeading eyebrow="Moderation desk" title="Waiting for review" lead="Approve what is ready, or send it back with a reason the seller will receive by e-mail." />
-      {queue.isPending ? <Spinner label="Loading the queue…" /> : null}
-      {queue.isError ? <p role="alert" className="font-semibold text-danger">{queue.error.message}</p> : null}
-      {queue.data ? (
+      {pending ? <Spinner label="Loading the queue…" /> : null}
+      {error ? <p role="alert" className="font-semibold text-danger">{error.message}</p> : null}
+      {queue ? (
         <div className="flex flex-col gap-10">
           <section aria-labelledby="q-listings" className="flex flex-col gap-4">
             <h2 id="q-listings" className="text-2xl font-extrabold">
-              Listings <span className="text-ink-soft">({queue.data.listings.length})</span>
+              Listings <span className="text-ink-soft">({queue.listings.total})</span>
             </h2>
-            {queue.data.listings.length === 0 ? (
+            {queue.listings.total === 0 ? (
               <StitchedBox>
                 <p>No listings are waiting. New listings and edits to live ones appear here.</p>
               </StitchedBox>
             ) : (
               <ul className="flex flex-col gap-3">
-                {queue.data.listings.map((l) => (
+                {queue.listings.items.map((l) => (
                   <li key={l.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4 sm:flex-row sm:items-center sm:justify-between">
                     <div className="flex min-w-0 flex-col gap-1">
                       <span className="flex flex-wrap items-center gap-2">
@@ -55,19 +66,20 @@ export function ModerationDeskPage() {
                 ))}
               </ul>
             )}
+            <Pager page={listingsPage} total={queue.listings.total} limit={queue.listings.limit} label="Listing queue pages" noun="listings" onPageChange={setListingsPage} />
           </section>
 
           <section aria-labelledby="q-shops" className="flex flex-col gap-4">
             <h2 id="q-shops" className="text-2xl font-extrabold">
-              New shops <span className="text-ink-soft">({queue.data.shops.length})</span>
+              New shops <span className="text-ink-soft">({queue.shops.total})</span>
             </h2>
-            {queue.data.shops.length === 0 ? (
+            {queue.shops.total === 0 ? (
               <StitchedBox>
                 <p>No shops are waiting.</p>
               </StitchedBox>
             ) : (
               <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
-                {queue.data.shops.map((s) => (
+                {queue.shops.items.map((s) => (
                   <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
                     <div>
                       <p className="text-lg font-extrabold break-words">{s.name}</p>
@@ -81,24 +93,26 @@ export function ModerationDeskPage() {
                 ))}
               </ul>
             )}
+            <Pager page={shopsPage} total={queue.shops.total} limit={queue.shops.limit} label="New shop queue pages" noun="shops" onPageChange={setShopsPage} />
           </section>
 
           <section aria-labelledby="q-changes" className="flex flex-col gap-4">
             <h2 id="q-changes" className="text-2xl font-extrabold">
-              Shop detail changes <span className="text-ink-soft">({queue.data.shopChanges.length})</span>
+              Shop detail changes <span className="text-ink-soft">({queue.changes.total})</span>
             </h2>
             <p className="-mt-2 max-w-prose text-ink-soft">A live shop keeps showing its current name and description until you approve the new ones.</p>
-            {queue.data.shopChanges.length === 0 ? (
+            {queue.changes.total === 0 ? (
               <StitchedBox>
                 <p>No shop changes are waiting.</p>
               </StitchedBox>
             ) : (
               <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
-                {queue.data.shopChanges.map((c) => (
+                {queue.changes.items.map((c) => (
                   <ShopChangeCard key={c.id} change={c} />
                 ))}
               </ul>
             )}
+            <Pager page={changesPage} total={queue.changes.total} limit={queue.changes.limit} label="Shop change pages" noun="changes" onPageChange={setChangesPage} />
           </section>
 
           <section aria-labelledby="q-known" className="flex flex-col gap-4">

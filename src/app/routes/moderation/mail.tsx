@@ -17,7 +17,7 @@ export function MailPage() {
       <DeskNav />
       <PageHeading eyebrow="Moderation desk" title="Mail" lead="Messages Namesake has sent, captured by the local mail server instead of going out." />
       <div className="mb-4">
-        <Button variant="secondary" onClick={() => queryClient.invalidateQueries({ queryKey: mailKeys.list() })}>
+        <Button variant="secondary" onClick={() => queryClient.invalidateQueries({ queryKey: mailKeys.lists() })}>
           Check for new mail
         </Button>
       </div>

@@ -5,7 +5,7 @@ import { paths } from '../../../config/paths.ts';
 import { useFonts } from '../../../features/listings-editor/api/get-fonts.ts';
 import { useSellerListing } from '../../../features/listings-editor/api/get-seller-listing.ts';
 import { ListingEditor } from '../../../features/listings-editor/components/listing-editor.tsx';
-import { useMaterials } from '../../../features/materials/api/get-materials.ts';
+import { useAllMaterials } from '../../../features/materials/api/get-materials.ts';
 import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts';
 import { useMotifs } from '../../../features/uploads/api/get-motifs.ts';
 import { MotifPreview, MotifUpload } from '../../../features/uploads/components/motif-upload.tsx';
@@ -19,7 +19,7 @@ export function ListingEditPage() {
   const listing = useSellerListing(id);
   const shop = useOwnShop();
   const fonts = useFonts();
-  const materials = useMaterials({ archived: false });
+  const materials = useAllMaterials({ archived: false });
   const motifs = useMotifs();
 
   const queries = [shop, fonts, materials, motifs, ...(id ? [listing] : [])];

@@ -2,6 +2,7 @@ import { useCallback, useState } from 'react';
 import type { SellerListing } from '../../../../shared/schemas/listing.ts';
 import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useSellerListings } from '../../../features/listings-editor/api/get-seller-listings.ts';
@@ -12,7 +13,8 @@ import { SellerNav } from './seller-nav.tsx';
 const done: Record<ListingAction, string> = { submit: 'sent for review', pause: 'paused', unpause: 'back on sale' };
 
 export function SellerListingsPage() {
-  const listings = useSellerListings();
+  const [page, setPage] = usePageParam();
+  const listings = useSellerListings({ page });
   const toast = useToast();
   const { mutate } = useListingAction();
   const [busyId, setBusyId] = useState<string | null>(null);
@@ -41,14 +43,19 @@ export function SellerListingsPage() {
       </ButtonLink>
       {listings.isPending ? <Spinner label="Loading listings…" /> : null}
       {listings.isError ? <p role="alert" className="font-semibold text-danger">{listings.error.message}</p> : null}
-      {listings.data && listings.data.length === 0 ? (
+      {listings.data && listings.data.total === 0 ? (
         <StitchedBox>
           <p className="font-bold">No listings yet.</p>
           <p className="text-ink-soft">Start with a blank, a name field and the colours you stock.</p>
         </StitchedBox>
       ) : null}
-      {listings.data && listings.data.length > 0 ? (
-        <ListingsTable listings={listings.data} editHref={paths.seller.editListing.getHref} onAction={onAction} busyId={busyId} />
+      {listings.data && listings.data.total > 0 ? (
+        <div className="flex flex-col gap-4">
+          <div className={listings.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>
+            <ListingsTable listings={listings.data.items} editHref={paths.seller.editListing.getHref} onAction={onAction} busyId={busyId} />
+          </div>
+          <Pager page={page} total={listings.data.total} limit={listings.data.limit} label="Listing pages" noun="listings" onPageChange={setPage} />
+        </div>
       ) : null}
     </div>
   );

@@ -2,6 +2,7 @@ import { useCallback, useState } from 'react';
 import type { Material } from '../../../../shared/schemas/material.ts';
 import { Button, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useMaterials } from '../../../features/materials/api/get-materials.ts';
 import { useUpdateMaterial } from '../../../features/materials/api/update-material.ts';
@@ -11,7 +12,8 @@ import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts'
 import { SellerNav } from './seller-nav.tsx';
 
 export function MaterialsPage() {
-  const materials = useMaterials();
+  const [page, setPage] = usePageParam();
+  const materials = useMaterials({ page });
   const shop = useOwnShop();
   const toast = useToast();
   const update = useUpdateMaterial();
@@ -47,14 +49,19 @@ export function MaterialsPage() {
       )}
       {materials.isPending ? <Spinner label="Loading materials…" /> : null}
       {materials.isError ? <p role="alert" className="font-semibold text-danger">{materials.error.message}</p> : null}
-      {materials.data && materials.data.length === 0 ? (
+      {materials.data && materials.data.total === 0 ? (
         <StitchedBox>
           <p className="font-bold">No materials yet.</p>
           <p className="text-ink-soft">Add the vinyl you cut from; listings offer these as colour choices.</p>
         </StitchedBox>
       ) : null}
-      {materials.data && materials.data.length > 0 ? (
-        <MaterialsTable materials={materials.data} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
+      {materials.data && materials.data.total > 0 ? (
+        <div className="flex flex-col gap-4">
+          <div className={materials.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>
+            <MaterialsTable materials={materials.data.items} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
+          </div>
+          <Pager page={page} total={materials.data.total} limit={materials.data.limit} label="Material pages" noun="materials" onPageChange={setPage} />
+        </div>
       ) : null}
     </div>
   );

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { Button, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -62,31 +63,36 @@ function Batch({ batchId }: { batchId: string }) {
 }
 
 function Choose() {
-  const lines = useLines('approved');
+  // approved lines a page at a time, most urgent first; a batch is built from the page's lines
+  const [page, setPage] = usePageParam();
+  const lines = useLines({ state: 'approved', page });
   const batches = useBatches();
   const build = useBuildCutSheets();
   const toast = useToast();
   const navigate = useNavigate();
-  const [picked, setPicked] = useState<Set<string> | null>(null);
+  // the lines ticked on the page shown; until one is touched, every line of the page is
+  const [picked, setPicked] = useState<{ page: number; ids: Set<string> } | null>(null);
   if (lines.isPending) return <Spinner label="Loading approved lines…" />;
   if (lines.isError) return <p role="alert" className="font-bold text-danger">{lines.error.message}</p>;
-  const chosen = picked ?? new Set(lines.data.map((l) => l.id));
+  const items = lines.data.items;
+  const chosen = picked && picked.page === lines.data.page ? picked.ids : new Set(items.map((l) => l.id));
+  const pick = (ids: Set<string>) => setPicked({ page: lines.data.page, ids });
   const toggle = (id: string) => {
     const next = new Set(chosen);
     if (next.has(id)) next.delete(id);
     else next.add(id);
-    setPicked(next);
+    pick(next);
   };
   return (
     <div className="flex flex-col gap-8">
       <section aria-labelledby="approved" className="flex flex-col gap-3">
         <h2 id="approved" className="text-xl font-extrabold">Approved lines, ready to cut</h2>
-        {lines.data.length === 0 ? (
+        {lines.data.total === 0 ? (
           <p className="text-ink-soft">No approved lines yet. Approve proofs in the <Link className="underline" to={paths.workroom.getHref()}>workroom</Link> first.</p>
         ) : (
           <>
             <ul className="flex flex-col gap-2">
-              {lines.data.map((l) => (
+              {items.map((l) => (
                 <li key={l.id}>
                   <label className="flex min-h-11 cursor-pointer flex-wrap items-center gap-3 rounded-lg border border-line bg-white px-3 py-2 hover:border-thread">
                     <input type="checkbox" className="size-5 accent-thread" checked={chosen.has(l.id)} onChange={() => toggle(l.id)} />
@@ -114,9 +120,10 @@ function Choose() {
               >
                 Build cut sheets for {chosen.size} line{chosen.size === 1 ? '' : 's'}
               </Button>
-              <Button variant="quiet" onClick={() => setPicked(new Set(lines.data.map((l) => l.id)))}>Select all</Button>
-              <Button variant="quiet" onClick={() => setPicked(new Set())}>Select none</Button>
+              <Button variant="quiet" onClick={() => pick(new Set(items.map((l) => l.id)))}>Select all{lines.data.total > items.length ? ' on this page' : ''}</Button>
+              <Button variant="quiet" onClick={() => pick(new Set())}>Select none</Button>
             </div>
+            <Pager page={page} total={lines.data.total} limit={lines.data.limit} label="Approved line pages" noun="approved lines" onPageChange={setPage} />
           </>
         )}
       </section>

@@ -1,16 +1,20 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { SellerListing } from '../../../../shared/schemas/listing.ts';
+import { pageSearch, type Page } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
-import { sellerListingKeys } from './keys.ts';
+import { sellerListingKeys, type SellerListingsFilters } from './keys.ts';
 
-export async function getSellerListings(filters: { state?: string }, signal?: AbortSignal): Promise<SellerListing[]> {
-  const qs = filters.state ? `?state=${encodeURIComponent(filters.state)}` : '';
-  return (await api.get<{ listings: SellerListing[] }>(`/api/seller/listings${qs}`, { signal })).listings;
+/** GET /api/seller/listings: one page of the shop's listings, last changed first. */
+export async function getSellerListings(filters: SellerListingsFilters, signal?: AbortSignal): Promise<Page<SellerListing>> {
+  const params = pageSearch(filters);
+  if (filters.state) params.set('state', filters.state);
+  const qs = params.toString();
+  return api.get<Page<SellerListing>>(`/api/seller/listings${qs ? `?${qs}` : ''}`, { signal });
 }
 
-export const getSellerListingsQueryOptions = (filters: { state?: string } = {}) =>
-  queryOptions({ queryKey: sellerListingKeys.list(filters), queryFn: ({ signal }) => getSellerListings(filters, signal) });
+export const getSellerListingsQueryOptions = (filters: SellerListingsFilters = {}) =>
+  queryOptions({ queryKey: sellerListingKeys.list(filters), queryFn: ({ signal }) => getSellerListings(filters, signal), placeholderData: keepPreviousData });
 
-export function useSellerListings(filters: { state?: string } = {}) {
+export function useSellerListings(filters: SellerListingsFilters = {}) {
   return useQuery(getSellerListingsQueryOptions(filters));
 }

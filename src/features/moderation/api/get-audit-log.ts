@@ -1,13 +1,18 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { pageSearch, type PageInput } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
 import { moderationKeys } from './keys.ts';
 import type { AuditPage } from './types.ts';
 
-export const getAuditLog = (page: number, signal?: AbortSignal) => api.get<AuditPage>(`/api/moderation/audit?page=${page}`, { signal });
+/** GET /api/moderation/audit: decisions, newest first, a page at a time. */
+export const getAuditLog = (p: PageInput, signal?: AbortSignal) => {
+  const qs = pageSearch(p).toString();
+  return api.get<AuditPage>(`/api/moderation/audit${qs ? `?${qs}` : ''}`, { signal });
+};
 
-export const getAuditLogQueryOptions = (page: number) =>
-  queryOptions({ queryKey: moderationKeys.audit(page), queryFn: ({ signal }) => getAuditLog(page, signal), placeholderData: keepPreviousData, staleTime: 5_000 });
+export const getAuditLogQueryOptions = (p: PageInput = {}) =>
+  queryOptions({ queryKey: moderationKeys.audit(p), queryFn: ({ signal }) => getAuditLog(p, signal), placeholderData: keepPreviousData, staleTime: 5_000 });
 
-export function useAuditLog(page: number) {
-  return useQuery(getAuditLogQueryOptions(page));
+export function useAuditLog(p: PageInput = {}) {
+  return useQuery(getAuditLogQueryOptions(p));
 }

@@ -1,8 +1,9 @@
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import type { ListingContentParsed, ListingState } from '../../../../shared/schemas/listing.ts';
 import type { ShopState } from '../../../../shared/schemas/shop.ts';
+import type { Page } from '../../../../shared/schemas/pagination.ts';
 
-/** GET /api/moderation/queue (server/features/moderation/moderation.service.ts) */
+/** GET /api/moderation/queue/shops (server/features/moderation/moderation.service.ts) */
 export type QueueShop = { id: string; name: string; slug: string; state: ShopState; description: string; owner: { name: string; email: string }; createdAt: number; revision: number };
 export type QueueListing = {
   id: string;
@@ -31,7 +32,6 @@ export type QueueShopChange = {
   changed: Array<'name' | 'description'>;
   submittedAt: number;
 };
-export type ModerationQueue = { shops: QueueShop[]; listings: QueueListing[]; shopChanges: QueueShopChange[] };
 /** GET /api/moderation/listings/:id */
 export type ListingReview = { listing: QueueListing; page: ListingPage };
 
@@ -43,5 +43,5 @@ export type AuditEntry = {
   subject: { type: 'shop' | 'listing'; id: string; label: string | null };
   reason: string | null;
 };
-export type AuditPage = { items: AuditEntry[]; total: number; page: number; pageSize: number };
+export type AuditPage = Page<AuditEntry>;
 export type ShopMove = 'approve' | 'reject' | 'suspend' | 'restore';

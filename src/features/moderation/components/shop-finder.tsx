@@ -1,6 +1,8 @@
 import { useEffect, useState } from 'react';
 import { SHOP_STATES, type ShopState } from '../../../../shared/schemas/shop.ts';
-import { Button, Spinner } from '../../../components/ui/button.tsx';
+import { pageCount } from '../../../../shared/schemas/pagination.ts';
+import { Spinner } from '../../../components/ui/button.tsx';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge, SelectField } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
@@ -15,18 +17,21 @@ export function ShopFinder() {
   const [typed, setTyped] = useState('');
   const [q, setQ] = useState('');
   const [state, setState] = useState<ShopState | ''>('');
-  const [page, setPage] = useState(1);
-  // search a moment after typing stops, not on every key
+  // the directory's page lives in the URL (the desk's queues have their own)
+  const [page, setPage] = usePageParam('directoryPage');
+  // search a moment after typing stops, not on every key; a new search starts on page 1
   useEffect(() => {
     const t = window.setTimeout(() => {
-      setQ(typed.trim());
-      setPage(1);
+      const next = typed.trim();
+      if (next === q) return;
+      setQ(next);
+      setPage(1, { replace: true });
     }, 300);
     return () => window.clearTimeout(t);
-  }, [typed]);
+  }, [typed, q, setPage]);
 
   const shops = useShops({ q, page, ...(state ? { state } : {}) });
-  const pages = shops.data ? Math.max(1, Math.ceil(shops.data.total / shops.data.pageSize)) : 1;
+  const pages = shops.data ? pageCount(shops.data.total, shops.data.limit) : 1;
 
   return (
     <div className="flex flex-col gap-4">
@@ -37,7 +42,7 @@ export function ShopFinder() {
         onSubmit={(e) => {
           e.preventDefault();
           setQ(typed.trim());
-          setPage(1);
+          setPage(1, { replace: true });
         }}
       >
         <TextField label="Find a shop" hint="Name, web address or owner e-mail" type="search" value={typed} maxLength={100} onChange={(e) => setTyped(e.target.value)} />
@@ -47,7 +52,7 @@ export function ShopFinder() {
           value={state}
           onChange={(e) => {
             setState(e.target.value as ShopState | '');
-            setPage(1);
+            setPage(1, { replace: true });
           }}
         >
           <option value="">All states</option>
@@ -89,16 +94,7 @@ export function ShopFinder() {
               ))}
             </ul>
           )}
-          {pages > 1 ? (
-            <nav aria-label="Shop list pages" className="flex flex-wrap items-center gap-2">
-              <Button variant="secondary" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
-                Previous page
-              </Button>
-              <Button variant="secondary" disabled={page >= pages} onClick={() => setPage((p) => p + 1)}>
-                Next page
-              </Button>
-            </nav>
-          ) : null}
+          <Pager page={page} total={shops.data.total} limit={shops.data.limit} label="Shop list pages" noun="shops" onPageChange={setPage} />
         </>
       ) : null}
     </div>

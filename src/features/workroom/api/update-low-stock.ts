@@ -7,5 +7,6 @@ export const updateLowStock = ({ materialId, ...body }: LowStockInput & { materi
   apiRequest<StockView>(`/api/workroom/stock/${encodeURIComponent(materialId)}`, { method: 'PATCH', body });
 export function useUpdateLowStock() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: updateLowStock, onSuccess: (data) => qc.setQueryData(workroomKeys.stock(), data) });
+  // the answer is the first page; every page shows the roll, so every stock page is fetched again
+  return useMutation({ mutationFn: updateLowStock, onSuccess: () => qc.invalidateQueries({ queryKey: workroomKeys.stocks() }) });
 }

@@ -1,10 +1,10 @@
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import {
-  createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable,
-  type ColumnFiltersState, type FilterFn, type RowSelectionState, type SortingState,
+  createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable,
+  type RowSelectionState, type SortingState,
 } from '@tanstack/react-table';
-import type { WorkLine } from '../../../../shared/schemas/workroom.ts';
+import type { WorkLine, WorkLinesPage } from '../../../../shared/schemas/workroom.ts';
 import { WORK_STATES } from '../../../../shared/schemas/workroom.ts';
 import { paths } from '../../../config/paths.ts';
 import { formatDate, stateWords } from './format.ts';
@@ -14,51 +14,42 @@ import { ShipByCell, useShipByLookup } from '../../business/components/ship-by-c
 
 const col = createColumnHelper<WorkLine>();
 
-const dateRange: FilterFn<WorkLine> = (row, _id, value: { from?: string; to?: string }) => {
-  const paid = row.original.paidAt;
-  if (value.from && paid < Date.parse(`${value.from}T00:00:00`)) return false;
-  if (value.to && paid > Date.parse(`${value.to}T23:59:59.999`)) return false;
-  return true;
-};
-const hasMaterial: FilterFn<WorkLine> = (row, _id, value: string) => row.original.materials.some((m) => m.id === value);
-
 const selectClass = 'min-h-11 w-full rounded-lg border-2 border-field bg-white px-3 py-2 text-base hover:border-ink';
 
+/** The table's filters, as they sit in the page's URL (dates as YYYY-MM-DD, '' = any). */
+export type LinesFilterValues = { state: string; from: string; to: string; material: string; listing: string };
+
 type Props = {
+  /** the lines of the current page (the server filtered them) */
   lines: WorkLine[];
-  state: string;
-  onStateChange: (s: string) => void;
-  /** bulk actions on the selected lines */
+  /** how many lines pass the filters, on every page */
+  total: number;
+  filters: LinesFilterValues;
+  onFiltersChange: (patch: Partial<LinesFilterValues>) => void;
+  /** what the material and listing filters offer (across every line of the shop) */
+  options: WorkLinesPage['options'];
+  /** bulk actions on the selected lines (of this page) */
   actions?: (selected: WorkLine[], clear: () => void) => React.ReactNode;
 };
 
-/** Every line of the shop: filter by state, date paid, material and listing; sort by any column. */
-export function LinesTable({ lines, state, onStateChange, actions }: Props) {
+/**
+ * One page of the shop's lines: filter by state, date paid, material and listing (the server
+ * filters and pages); sort the page by any column; select lines of the page for bulk actions.
+ */
+export function LinesTable({ lines, total, filters, onFiltersChange, options, actions }: Props) {
   // most urgent first: late, due today, at risk, then by ship-by date (shared/business/marks.ts)
   const [sorting, setSorting] = useState<SortingState>([{ id: 'shipBy', desc: false }]);
   const shipBy = useShipByLookup();
-  const [from, setFrom] = useState('');
-  const [to, setTo] = useState('');
-  const [material, setMaterial] = useState('');
-  const [listing, setListing] = useState('');
+  const { state, from, to, material, listing } = filters;
   const [rowSelection, setRowSelection] = useState<RowSelectionState>({});
-
-  const materials = useMemo(() => {
-    const m = new Map<string, WorkLine['materials'][number]>();
-    for (const l of lines) for (const x of l.materials) m.set(x.id, x);
-    return [...m.values()].sort((a, b) => a.colour.localeCompare(b.colour));
-  }, [lines]);
-  const listings = useMemo(() => [...new Map(lines.map((l) => [l.listingId, l.listingTitle])).entries()].sort((a, b) => a[1].localeCompare(b[1])), [lines]);
-
-  const columnFilters: ColumnFiltersState = useMemo(
-    () => [
-      ...(state ? [{ id: 'state', value: state }] : []),
-      ...(from || to ? [{ id: 'paidAt', value: { from, to } }] : []),
-      ...(material ? [{ id: 'materials', value: material }] : []),
-      ...(listing ? [{ id: 'listingTitle', value: listing }] : []),
-    ],
-    [state, from, to, material, listing],
-  );
+  // a selection belongs to the rows on screen: another page or filter starts with none selected
+  const [selectionRows, setSelectionRows] = useState(lines);
+  if (selectionRows !== lines) {
+    setSelectionRows(lines);
+    setRowSelection({});
+  }
+  const materials = options.materials;
+  const listings = options.listings;
 
   const columns = useMemo(
     () => [
@@ -79,9 +70,9 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
           </Link>
         ),
       }),
-      col.accessor('paidAt', { header: 'Paid', cell: (c) => formatDate(c.getValue()), filterFn: dateRange }),
+      col.accessor('paidAt', { header: 'Paid', cell: (c) => formatDate(c.getValue()) }),
       col.accessor((r) => shipBy.sortKey(r.id), { id: 'shipBy', header: 'Ship by', cell: (c) => <ShipByCell info={shipBy.get(c.row.original.id)} /> }),
-      col.accessor('listingTitle', { header: 'Listing', filterFn: (row, _id, v: string) => row.original.listingId === v }),
+      col.accessor('listingTitle', { header: 'Listing' }),
       col.accessor('text', {
         header: 'Personalisation',
         cell: (c) => (
@@ -91,8 +82,8 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
           </span>
         ),
       }),
-      col.accessor('materials', { header: 'Materials', enableSorting: false, cell: (c) => <MaterialChips materials={c.getValue()} />, filterFn: hasMaterial }),
-      col.accessor('state', { header: 'State', cell: (c) => <StateBadge state={c.getValue()} />, filterFn: 'equals', sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never) }),
+      col.accessor('materials', { header: 'Materials', enableSorting: false, cell: (c) => <MaterialChips materials={c.getValue()} /> }),
+      col.accessor('state', { header: 'State', cell: (c) => <StateBadge state={c.getValue()} />, sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never) }),
       col.display({
         id: 'open',
         header: () => <span className="sr-only">Open</span>,
@@ -111,13 +102,12 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
   const table = useReactTable({
     data,
     columns,
-    state: { sorting, columnFilters, rowSelection },
+    state: { sorting, rowSelection },
     getRowId: (r) => r.id,
     onSortingChange: setSorting,
     onRowSelectionChange: setRowSelection,
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
-    getFilteredRowModel: getFilteredRowModel(),
   });
   const visible = table.getRowModel().rows;
   const selected = visible.filter((r) => r.getIsSelected()).map((r) => r.original);
@@ -129,7 +119,7 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
         <legend className="px-1 text-sm font-bold text-ink-soft">Filter</legend>
         <label className="flex flex-col gap-1 font-bold">
           State
-          <select className={selectClass} value={state} onChange={(e) => onStateChange(e.target.value)}>
+          <select className={selectClass} value={state} onChange={(e) => onFiltersChange({ state: e.target.value })}>
             <option value="">Every state</option>
             {[...WORK_STATES, 'cancelled', 'refunded'].map((s) => (
               <option key={s} value={s}>{stateWords(s)}</option>
@@ -138,15 +128,15 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
         </label>
         <label className="flex flex-col gap-1 font-bold">
           Paid from
-          <input type="date" className={selectClass} value={from} onChange={(e) => setFrom(e.target.value)} />
+          <input type="date" className={selectClass} value={from} onChange={(e) => onFiltersChange({ from: e.target.value })} />
         </label>
         <label className="flex flex-col gap-1 font-bold">
           Paid until
-          <input type="date" className={selectClass} value={to} onChange={(e) => setTo(e.target.value)} />
+          <input type="date" className={selectClass} value={to} onChange={(e) => onFiltersChange({ to: e.target.value })} />
         </label>
         <label className="flex flex-col gap-1 font-bold">
           Material
-          <select className={selectClass} value={material} onChange={(e) => setMaterial(e.target.value)}>
+          <select className={selectClass} value={material} onChange={(e) => onFiltersChange({ material: e.target.value })}>
             <option value="">Any material</option>
             {materials.map((m) => (
               <option key={m.id} value={m.id}>{m.colour} ({m.kind})</option>
@@ -155,9 +145,9 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
         </label>
         <label className="flex flex-col gap-1 font-bold">
           Listing
-          <select className={selectClass} value={listing} onChange={(e) => setListing(e.target.value)}>
+          <select className={selectClass} value={listing} onChange={(e) => onFiltersChange({ listing: e.target.value })}>
             <option value="">Any listing</option>
-            {listings.map(([id, title]) => (
+            {listings.map(({ id, title }) => (
               <option key={id} value={id}>{title}</option>
             ))}
           </select>
@@ -166,7 +156,7 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
 
       <div className="flex flex-wrap items-center gap-3" aria-live="polite">
         <p className="text-ink-soft">
-          {visible.length} line{visible.length === 1 ? '' : 's'} shown{selected.length ? `, ${selected.length} selected` : ''}.
+          {total} line{total === 1 ? '' : 's'} match{total === 1 ? 'es' : ''}; {visible.length} shown on this page{selected.length ? `, ${selected.length} selected` : ''}.
         </p>
         {actions?.(selected, () => setRowSelection({}))}
       </div>

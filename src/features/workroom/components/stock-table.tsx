@@ -40,7 +40,8 @@ function LowStockEditor({ m }: { m: StockMaterial }) {
   );
 }
 
-export function StockTable({ stock }: { stock: StockView }) {
+/** Every roll in use, and one page of what the cut sheets used (`sheetsPager` goes under it). */
+export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPager?: React.ReactNode }) {
   const byId = new Map(stock.materials.map((m) => [m.id, m]));
   return (
     <div className="flex flex-col gap-8">
@@ -76,14 +77,14 @@ export function StockTable({ stock }: { stock: StockView }) {
       <section aria-labelledby="stock-use">
         <h2 id="stock-use" className="mb-1 text-xl font-extrabold">What each cut sheet used</h2>
         <p className="mb-3 text-sm text-ink-soft">A cut sheet takes its nested length plus {stock.trimMm} mm trim from the roll.</p>
-        {stock.sheets.length === 0 ? <p className="text-ink-soft">No cut sheets yet.</p> : (
+        {stock.sheets.total === 0 ? <p className="text-ink-soft">No cut sheets yet.</p> : (
           <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
             <table className="w-full min-w-[640px] text-left">
               <thead className="bg-paper-deep text-sm">
                 <tr><th className="px-3 py-2">Material</th><th className="px-3 py-2">State</th><th className="px-3 py-2">Length</th><th className="px-3 py-2">Taken from stock</th><th className="px-3 py-2">Cost</th><th className="px-3 py-2">Lines</th><th className="px-3 py-2">When</th></tr>
               </thead>
               <tbody>
-                {stock.sheets.map((s) => {
+                {stock.sheets.items.map((s) => {
                   const m = byId.get(s.materialId);
                   return (
                     <tr key={s.id} className="border-t border-line">
@@ -101,6 +102,7 @@ export function StockTable({ stock }: { stock: StockView }) {
             </table>
           </div>
         )}
+        {sheetsPager}
       </section>
     </div>
   );

@@ -1,5 +1,7 @@
 import { useNavigate, useSearchParams } from 'react-router-dom';
+import { LINE_STATES, type LineState } from '../../../../shared/schemas/order.ts';
 import { Button, Spinner } from '../../../components/ui/button.tsx';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -7,16 +9,46 @@ import { useApproveProofs } from '../api/approve-proofs.ts';
 import { useBuildCutSheets } from '../api/build-cut-sheets.ts';
 import { useLines } from '../api/get-lines.ts';
 import { useSummary } from '../api/get-summary.ts';
-import { LinesTable } from './lines-table.tsx';
+import { LinesTable, type LinesFilterValues } from './lines-table.tsx';
 import { StateCounts } from './state-counts.tsx';
 
-/** The workroom home: counts per state, the filterable table, and the bulk actions. */
+const FILTER_KEYS = ['state', 'from', 'to', 'material', 'listing'] as const;
+/** a calendar day typed in the date field, as the first or last millisecond of that day here */
+const dayEdge = (day: string, edge: 'start' | 'end') => {
+  const ms = Date.parse(`${day}T${edge === 'start' ? '00:00:00' : '23:59:59.999'}`);
+  return day && Number.isFinite(ms) && ms >= 0 ? ms : undefined;
+};
+
+/**
+ * The workroom home: counts per state, the filterable table a page at a time, and the bulk
+ * actions on the lines selected on the page. Filters and page live in the URL.
+ */
 export function WorkroomOrders() {
   const [params, setParams] = useSearchParams();
-  const state = params.get('state') ?? '';
-  const setState = (s: string) => setParams(s ? { state: s } : {}, { replace: true });
+  const [page, setPage] = usePageParam();
+  const filters = Object.fromEntries(FILTER_KEYS.map((k) => [k, params.get(k) ?? ''])) as LinesFilterValues;
+  const state = filters.state;
+  // a filter change starts again from page 1
+  const setFilters = (patch: Partial<LinesFilterValues>) =>
+    setParams(
+      (prev) => {
+        const next = new URLSearchParams(prev);
+        for (const [k, v] of Object.entries(patch)) if (v) next.set(k, v); else next.delete(k);
+        next.delete('page');
+        return next;
+      },
+      { replace: true },
+    );
+  const setState = (s: string) => setFilters({ state: s });
   const summary = useSummary();
-  const lines = useLines();
+  const lines = useLines({
+    page,
+    state: (LINE_STATES as readonly string[]).includes(state) ? (state as LineState) : undefined,
+    paidFrom: dayEdge(filters.from, 'start'),
+    paidTo: dayEdge(filters.to, 'end'),
+    material: filters.material || undefined,
+    listing: filters.listing || undefined,
+  });
   const approve = useApproveProofs();
   const build = useBuildCutSheets();
   const toast = useToast();
@@ -27,52 +59,58 @@ export function WorkroomOrders() {
       <StateCounts summary={summary.data} active={state} onPick={setState} />
       {lines.isPending ? (
         <Spinner label="Loading orders…" />
-      ) : lines.isError ? (
+      ) : lines.isError && !lines.data ? (
         <p role="alert" className="font-bold text-danger">{lines.error.message}</p>
       ) : (
-        <LinesTable
-          lines={lines.data}
-          state={state}
-          onStateChange={setState}
-          actions={(selected, clear) => {
-            const proofs = selected.filter((l) => l.state === 'awaiting_proof');
-            const approved = selected.filter((l) => l.state === 'approved');
-            return (
-              <>
-                <Button
-                  variant="secondary"
-                  disabled={proofs.length === 0}
-                  pending={approve.isPending}
-                  onClick={async () => {
-                    try {
-                      await approve.mutateAsync(proofs.map((l) => l.id));
-                      toast.success(`${proofs.length} proof${proofs.length === 1 ? '' : 's'} approved.`);
-                      clear();
-                    } catch (e) {
-                      toast.error(isApiError(e) ? e.message : 'That did not work.');
-                    }
-                  }}
-                >
-                  Approve {proofs.length || ''} selected proof{proofs.length === 1 ? '' : 's'}
-                </Button>
-                <Button
-                  disabled={approved.length === 0}
-                  pending={build.isPending}
-                  onClick={async () => {
-                    try {
-                      const r = await build.mutateAsync(approved.map((l) => l.id));
-                      navigate(paths.workroomCutSheets.getHref(r.batchId));
-                    } catch (e) {
-                      toast.error(isApiError(e) ? e.message : 'That did not work.');
-                    }
-                  }}
-                >
-                  Build cut sheets from {approved.length || ''} approved
-                </Button>
-              </>
-            );
-          }}
-        />
+        <div className={`flex min-w-0 max-w-full flex-col gap-4 ${lines.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}`}>
+          {lines.isError ? <p role="alert" className="font-bold text-danger">{lines.error.message}</p> : null}
+          <LinesTable
+            lines={lines.data.items}
+            total={lines.data.total}
+            filters={filters}
+            onFiltersChange={setFilters}
+            options={lines.data.options}
+            actions={(selected, clear) => {
+              const proofs = selected.filter((l) => l.state === 'awaiting_proof');
+              const approved = selected.filter((l) => l.state === 'approved');
+              return (
+                <>
+                  <Button
+                    variant="secondary"
+                    disabled={proofs.length === 0}
+                    pending={approve.isPending}
+                    onClick={async () => {
+                      try {
+                        await approve.mutateAsync(proofs.map((l) => l.id));
+                        toast.success(`${proofs.length} proof${proofs.length === 1 ? '' : 's'} approved.`);
+                        clear();
+                      } catch (e) {
+                        toast.error(isApiError(e) ? e.message : 'That did not work.');
+                      }
+                    }}
+                  >
+                    Approve {proofs.length || ''} selected proof{proofs.length === 1 ? '' : 's'}
+                  </Button>
+                  <Button
+                    disabled={approved.length === 0}
+                    pending={build.isPending}
+                    onClick={async () => {
+                      try {
+                        const r = await build.mutateAsync(approved.map((l) => l.id));
+                        navigate(paths.workroomCutSheets.getHref(r.batchId));
+                      } catch (e) {
+                        toast.error(isApiError(e) ? e.message : 'That did not work.');
+                      }
+                    }}
+                  >
+                    Build cut sheets from {approved.length || ''} approved
+                  </Button>
+                </>
+              );
+            }}
+          />
+          <Pager page={page} total={lines.data.total} limit={lines.data.limit} label="Order line pages" noun="lines" onPageChange={setPage} />
+        </div>
       )}
     </div>
   );

@@ -1,0 +1,78 @@
+import { useCallback } from 'react';
+import { useSearchParams } from 'react-router-dom';
+import { PAGE_MAX, pageCount } from '../../../shared/schemas/pagination.ts';
+import { Button } from './button.tsx';
+
+/**
+ * The page number of a list, kept in the URL (`?page=2`, or another name when a screen has two
+ * lists) so a reload, the back button or a shared link opens the same page. Page 1 is left out.
+ */
+export function usePageParam(name = 'page'): [number, (page: number, opts?: { replace?: boolean }) => void] {
+  const [params, setParams] = useSearchParams();
+  const raw = Number(params.get(name) ?? '1');
+  const page = Number.isInteger(raw) && raw >= 1 && raw <= PAGE_MAX ? raw : 1;
+  const setPage = useCallback(
+    (next: number, opts?: { replace?: boolean }) =>
+      setParams(
+        (prev) => {
+          const out = new URLSearchParams(prev);
+          if (next > 1) out.set(name, String(next));
+          else out.delete(name);
+          return out;
+        },
+        { replace: opts?.replace },
+      ),
+    [name, setParams],
+  );
+  return [page, setPage];
+}
+
+type PagerProps = {
+  page: number;
+  total: number;
+  limit: number;
+  /** names the navigation for screen readers, e.g. "Order pages" */
+  label: string;
+  /** what the rows are, plural, e.g. "orders" */
+  noun: string;
+  onPageChange: (page: number) => void;
+  className?: string;
+};
+
+/**
+ * Previous / "Page 2 of 7" / Next under a list. The buttons stay focusable at either end (they
+ * say they are unavailable instead of vanishing from the tab order), and the page reached is
+ * announced. A page past the end (rows were removed meanwhile) offers the way back to the last.
+ */
+export function Pager({ page, total, limit, label, noun, onPageChange, className = '' }: PagerProps) {
+  const pages = pageCount(total, limit);
+  if (pages <= 1 && page <= 1) return null;
+  const canPrev = page > 1;
+  const canNext = page < pages;
+  const first = Math.min(total, (page - 1) * limit + 1);
+  const last = Math.min(total, page * limit);
+  const off = 'cursor-not-allowed opacity-60';
+  return (
+    <nav aria-label={label} className={`flex flex-col gap-2 ${className}`}>
+      {page > pages ? (
+        <p className="font-semibold text-danger">
+          There is no page {page}: the list has {pages} {pages === 1 ? 'page' : 'pages'} now.
+        </p>
+      ) : null}
+      <div className="flex flex-wrap items-center gap-3">
+        <Button variant="secondary" aria-disabled={!canPrev || undefined} className={canPrev ? '' : off} onClick={() => canPrev && onPageChange(Math.min(page - 1, pages))}>
+          <span aria-hidden="true">←</span> {page > pages ? `Back to page ${pages}` : 'Previous page'}
+        </Button>
+        <p aria-live="polite" aria-atomic="true" className="flex flex-col leading-tight">
+          <span className="font-bold">
+            Page {page} of {pages}
+          </span>
+          <span className="text-sm text-ink-soft">{page > pages ? `${total} ${noun} in all` : `${first}–${last} of ${total} ${noun}`}</span>
+        </p>
+        <Button variant="secondary" aria-disabled={!canNext || undefined} className={canNext ? '' : off} onClick={() => canNext && onPageChange(page + 1)}>
+          Next page <span aria-hidden="true">→</span>
+        </Button>
+      </div>
+    </nav>
+  );
+}
