@@ -87,6 +87,24 @@ export function splitForShop(linesMinor: number, shippingMinor: number, feeBps: 
 }
 
 /**
+ * What the shop gives back of `refundedMinor` refunded on its order: its transfer's share, pro rata
+ * (the platform bears refunds and returns its fee on the refunded part). Computed on the running
+ * total, so the shares of several refunds always add up to the share of their sum, and a full
+ * refund takes back exactly the whole transfer.
+ */
+export function shopShareOfRefunds(order: { totalMinor: number; platformFeeMinor: number }, refundedMinor: number): number {
+  const transferMinor = order.totalMinor - order.platformFeeMinor;
+  if (refundedMinor <= 0) return 0;
+  if (refundedMinor >= order.totalMinor) return transferMinor;
+  return roundDiv(refundedMinor * transferMinor, order.totalMinor);
+}
+
+/** The shop's payout for one order, net of what has been refunded on it: transfer − its share of refunds. */
+export function payoutDue(order: { totalMinor: number; platformFeeMinor: number }, refundedMinor: number): number {
+  return order.totalMinor - order.platformFeeMinor - shopShareOfRefunds(order, refundedMinor);
+}
+
+/**
  * Splits `amount` across parts in proportion to `weights`, with the remainder handed out by the
  * largest-remainder method, so the parts always add up to `amount` exactly (used to reverse a
  * transfer proportionally when one line is refunded).

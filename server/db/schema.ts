@@ -1,6 +1,7 @@
 // Namesake's tables. snake_case in SQL, camelCase in TS. Money: integer minor units.
 // Lengths: millimetres (real). Temperatures: °C. Timestamps: integer ms since epoch.
 // JSON columns hold plain data validated by the shared zod schemas before they are written.
+import { sql } from 'drizzle-orm';
 import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { user } from './auth-schema.ts';
 
@@ -208,6 +209,13 @@ export const orders = sqliteTable('orders', {
   platformFeeMinor: integer('platform_fee_minor').notNull(),
   totalMinor: integer('total_minor').notNull(),
   transferId: text('transfer_id'),
+  /**
+   * The payout call claimed and not yet recorded (a transfer to the shop or a reversal of it), with
+   * its Idempotency-Key and amount frozen, so a retry after a crash sends exactly the same request.
+   */
+  payoutStep: json<PayoutStep>('payout_step'),
+  /** how many payout calls were claimed: numbers the keys of later ones */
+  payoutSeq: integer('payout_seq').notNull().default(0),
   shipTo: json<unknown>('ship_to'),
   carrier: text('carrier'),
   trackingNumber: text('tracking_number'),
@@ -216,6 +224,8 @@ export const orders = sqliteTable('orders', {
   shippedAt: integer('shipped_at'),
   createdAt: createdAt(),
 }, (t) => [uniqueIndex('orders_number_uq').on(t.number), uniqueIndex('orders_checkout_shop_uq').on(t.checkoutId, t.shopId), index('orders_shop_idx').on(t.shopId), index('orders_buyer_idx').on(t.buyerId)]);
+
+export type PayoutStep = { kind: 'transfer' | 'reversal'; key: string; amountMinor: number; destination?: string };
 
 export const orderLines = sqliteTable('order_lines', {
   id: id(),
@@ -280,6 +290,28 @@ export const refunds = sqliteTable('refunds', {
   reason: text('reason'),
   createdAt: createdAt(),
 });
+
+/**
+ * A refund claimed before the provider is asked: the amount is taken from what is left to refund in
+ * one transaction, so two requests at once can never give back more than was paid. `scope` is
+ * `line:<id>` or `remainder`; at most one pending or succeeded intent per (order, scope).
+ */
+export const refundIntents = sqliteTable('refund_intents', {
+  id: id(),
+  orderId: text('order_id').notNull().references(() => orders.id),
+  lineId: text('line_id').references(() => orderLines.id),
+  scope: text('scope').notNull(),
+  idempotencyKey: text('idempotency_key').notNull(),
+  amountMinor: integer('amount_minor').notNull(),
+  /** pending | succeeded | failed */
+  state: text('state').notNull().default('pending'),
+  providerRefundId: text('provider_refund_id'),
+  actorId: text('actor_id').notNull().references(() => user.id),
+  reason: text('reason'),
+  error: text('error'),
+  createdAt: createdAt(),
+  updatedAt: integer('updated_at').notNull(),
+}, (t) => [uniqueIndex('refund_intents_key_uq').on(t.idempotencyKey), uniqueIndex('refund_intents_live_uq').on(t.orderId, t.scope).where(sql`state <> 'failed'`)]);
 
 /** payment-provider webhook events already processed (each handled once) */
 export const webhookEvents = sqliteTable('webhook_events', {

@@ -1,21 +1,31 @@
 // Demo orders (the invented demo scenario): Dana has bought from Fern & Fable Goods, so the
 // workroom has work on first start — some proofs waiting, most approved, over several materials.
-// Every line is composed by the engine from the real demo listings and materials (the same
-// buildSnapshot the cart uses), and the money rows follow checkout: a paid checkout, one order per
-// shop, a charge, the platform fee (PLATFORM_FEE_BPS, 8 % by default) and the transfer.
+// Each purchase goes the way a shopper's does: the items into Dana's cart (priced and composed by
+// the cart), a Checkout Session opened by our checkout service, paid at the local payment fake with
+// a test card on its payment page, and the orders made by the same webhook handler from the
+// provider's checkout.session.completed event; the shop is paid by its transfer. So the demo orders
+// are real payments there, and refunds, transfers and payouts of them work. Each purchase is dated
+// some days back (the clock handed to the services), and proofs are approved by the workroom's own
+// approve. No e-mails go out for them.
 import crypto from 'node:crypto';
-import { and, eq } from 'drizzle-orm';
+import type Stripe from 'stripe';
 import type { AppDeps } from '../app.ts';
-import type { Db } from './client.ts';
-import { checkouts, lineEvents, listings, materials, motifs, orderLines, orders, ledger } from './schema.ts';
 import type { SeedContext } from './seed.ts';
-import { getFontRegistry } from '../integrations/fonts.ts';
-import { buildSnapshot, readLiveContent, type MaterialInfo, type MotifInfo } from '../features/cart/design.ts';
+import { demoPaymentProvider } from './seed-payments.ts';
+import { paymentsClient } from '../integrations/payments.ts';
 import type { ShipTo } from '../../shared/schemas/checkout.ts';
-import { createOrdersForCheckout, type PricedShop } from '../features/orders/orders.service.ts';
-import type { MotifGeometry } from '../../shared/engine/motif.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
-import { choicesSchema } from '../../shared/schemas/listing.ts';
+import type { LineSnapshot } from '../../shared/schemas/cart.ts';
+import { and, eq } from 'drizzle-orm';
+import { listings, materials } from './schema.ts';
+import { addLine } from '../features/cart/cart.service.ts';
+import { readLiveContent } from '../features/cart/design.ts';
+import { cartRepo } from '../features/cart/cart.repo.ts';
+import { openCheckout } from '../features/checkout/checkout.service.ts';
+import { handleEvent } from '../features/payments/payments.service.ts';
+import { paymentsRepo } from '../features/payments/payments.repo.ts';
+import { ordersRepo } from '../features/orders/orders.repo.ts';
+import { approve } from '../features/workroom/workroom.service.ts';
 
 const DEMO_SHIP_TO: ShipTo = { name: 'Dana Whitlock', line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' };
 
@@ -47,89 +57,84 @@ const PURCHASES: Array<{ daysAgo: number; items: Item[] }> = [
   ] },
 ];
 
+/** The payment page's form as a shopper fills it: the parcel address and the test card that pays. */
+const PAY_FORM = {
+  ship_name: DEMO_SHIP_TO.name, ship_line1: DEMO_SHIP_TO.line1, ship_line2: '', ship_city: DEMO_SHIP_TO.city,
+  ship_postal_code: DEMO_SHIP_TO.postalCode, ship_state: '', ship_country: DEMO_SHIP_TO.country,
+  card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123',
+};
+
+/** The provider's checkout.session.completed event of one session (the one its webhook delivers). */
+async function completedEvent(stripe: Stripe, sessionId: string): Promise<Stripe.Event> {
+  for await (const e of stripe.events.list({ type: 'checkout.session.completed', limit: 100 })) {
+    if ((e.data.object as { id?: string }).id === sessionId) return e;
+  }
+  throw new Error(`demo orders: the payment provider has no completed event for session ${sessionId}`);
+}
+
 export async function seedOrders(deps: AppDeps, ctx: SeedContext): Promise<void> {
-  const db = deps.db;
   const shopId = ctx.shopIds['fern-and-fable-goods'];
   const buyerId = ctx.userIds['dana@namesake.test'];
   const sellerId = ctx.userIds['fern@namesake.test'];
   if (!shopId || !buyerId || !sellerId) return;
+  const provider = await demoPaymentProvider(deps.env);
+  if (!provider) {
+    console.log('  demo orders skipped: they are paid with a test card at the local payment fake, and STRIPE_API_BASE names a real provider');
+    return;
+  }
+  try {
+    await buyAll({ ...deps, env: provider.env }, shopId, buyerId, sellerId);
+  } finally {
+    await provider.close();
+  }
+}
 
-  const mats = db.select().from(materials).where(eq(materials.shopId, shopId)).all();
-  const matByName = new Map(mats.map((m) => [m.colourName, m]));
-  const matInfo = new Map<string, MaterialInfo>(mats.map((m) => [m.id, { id: m.id, kind: m.kind, colourName: m.colourName, colourHex: m.colourHex }]));
-  const motifInfo = new Map<string, MotifInfo>(
-    db.select().from(motifs).where(eq(motifs.shopId, shopId)).all().map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
-  );
+async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: string): Promise<void> {
+  const db = deps.db;
+  const mats = new Map(db.select().from(materials).where(eq(materials.shopId, shopId)).all().map((m) => [m.colourName, m.id]));
   const shopListings = db.select().from(listings).where(and(eq(listings.shopId, shopId), eq(listings.state, 'live'))).all();
   const mat = (name: string) => {
-    const m = matByName.get(name);
-    if (!m) throw new Error(`demo orders: no material ${name} in Fern & Fable Goods`);
-    return m.id;
+    const id = mats.get(name);
+    if (!id) throw new Error(`demo orders: no material ${name} in Fern & Fable Goods`);
+    return id;
   };
-  const registry = getFontRegistry();
+  const buyer = ordersRepo.userEmail(db, buyerId)!;
+  const stripe = paymentsClient(deps.env);
   const now = deps.now();
+  const at = (ms: number): AppDeps => ({ ...deps, now: () => ms });
 
   for (const [k, purchase] of PURCHASES.entries()) {
     const paidAt = now - purchase.daysAgo * DAY - k * 3_600_000;
-    const lines: PricedShop['lines'] = [];
-    const approvedIdx: boolean[] = [];
+    const cart = cartRepo.findForUser(db, buyerId) ?? cartRepo.create(db, { id: crypto.randomUUID(), userId: buyerId, at: paidAt - 600_000 });
+    const wanted: Array<{ listingId: string; name: string; approved: boolean }> = [];
     for (const item of purchase.items) {
       const listing = shopListings.find((l) => l.liveTitle === item.listing);
       const content = listing ? readLiveContent(listing.live) : null;
       if (!listing || !content) throw new Error(`demo orders: no live listing “${item.listing}”`);
       const field = content.personalisation.textFields[0]!;
       const motif = content.personalisation.motifChoices[0];
-      const raw: ChoicesInput = {
+      const choices: ChoicesInput = {
         texts: { [field.id]: { text: item.name, fontId: item.font ?? field.defaultFontId, letterHeightMm: field.defaultLetterHeightMm } },
         textColours: { [field.id]: mat(item.textColour) },
         motifId: motif?.motifId ?? null,
         motifColours: Object.fromEntries(Object.entries(item.motifColours ?? {}).map(([layer, name]) => [layer, mat(name)])),
         outlineMaterialId: null,
       };
-      const choices = choicesSchema.parse(raw);
-      const snapshot = buildSnapshot({
-        registry,
-        listing: { id: listing.id, slug: listing.slug, shopId, currency: listing.currency },
-        content,
-        choices,
-        materials: matInfo,
-        motifs: motifInfo,
-      });
-      const quantity = item.quantity ?? 1;
-      lines.push({ listingId: listing.id, title: content.title, quantity, unitPriceMinor: snapshot.unitPriceMinor, totalMinor: snapshot.unitPriceMinor * quantity, snapshot });
-      approvedIdx.push(item.approved);
+      addLine(at(paidAt - 300_000), cart, { listingId: listing.id, quantity: item.quantity ?? 1, choices });
+      wanted.push({ listingId: listing.id, name: item.name, approved: item.approved });
     }
-    const shippingMinor = 450;
-    const subtotalMinor = lines.reduce((a, l) => a + l.totalMinor, 0);
-    const shop: PricedShop = { shopId, shopName: 'Fern & Fable Goods', shippingMinor, subtotalMinor, totalMinor: subtotalMinor + shippingMinor, lines };
-    const checkoutId = crypto.randomUUID();
-    const ref = crypto.randomBytes(6).toString('hex');
-    db.transaction((tx) => {
-      const t = tx as unknown as Db;
-      t.insert(checkouts).values({
-        id: checkoutId, userId: buyerId, cartId: crypto.randomUUID(), cartVersion: 1, state: 'paid', providerSessionId: `cs_demo_${ref}`,
-        currency: 'USD', totalMinor: shop.totalMinor,
-        priced: { currency: 'USD', totalMinor: shop.totalMinor, shops: [{ ...shop, lines: lines.map((l) => ({ ...l, cartLineId: crypto.randomUUID() })) }] },
-        paymentIntentId: `pi_demo_${ref}`, chargeId: `ch_demo_${ref}`, mailedAt: paidAt, createdAt: paidAt - 120_000, paidAt,
-      }).run();
-      const [order] = createOrdersForCheckout(t, { checkoutId, buyerId, currency: 'USD', shops: [shop], paidAt, feeBps: deps.env.PLATFORM_FEE_BPS, paymentIntentId: `pi_demo_${ref}` });
-      // the settlement that follows a real payment: fee and transfer rows, the transfer id on the order
-      const transferId = `tr_demo_${ref}`;
-      // an invented address in the demo scenario, so packing slips and the order pages show one
-      t.update(orders).set({ transferId, shipTo: DEMO_SHIP_TO }).where(eq(orders.id, order!.id)).run();
-      t.insert(ledger).values([
-        { id: crypto.randomUUID(), shopId, orderId: order!.id, kind: 'platform_fee', amountMinor: order!.platformFeeMinor, currency: 'USD', providerRef: `ch_demo_${ref}`, memo: `fee ${deps.env.PLATFORM_FEE_BPS} bps`, createdAt: paidAt + 1000 },
-        { id: crypto.randomUUID(), shopId, orderId: order!.id, kind: 'transfer', amountMinor: order!.totalMinor - order!.platformFeeMinor, currency: 'USD', providerRef: transferId, memo: 'payout to the shop', createdAt: paidAt + 1000 },
-      ]).run();
-      const made = t.select().from(orderLines).where(eq(orderLines.orderId, order!.id)).orderBy(orderLines.createdAt, orderLines.id).all();
-      // lines are inserted in the priced order; match them by listing + text to be safe
-      for (const line of made) {
-        const i = lines.findIndex((l, j) => approvedIdx[j] !== undefined && l.listingId === line.listingId && JSON.stringify(l.snapshot.choices) === JSON.stringify((line.snapshot as typeof l.snapshot).choices));
-        if (i < 0 || !approvedIdx[i]) continue;
-        const at = paidAt + 6 * 3_600_000;
-        t.update(orderLines).set({ state: 'approved', updatedAt: at }).where(eq(orderLines.id, line.id)).run();
-        t.insert(lineEvents).values({ id: crypto.randomUUID(), lineId: line.id, actorId: sellerId, fromState: 'awaiting_proof', toState: 'approved', message: 'Proof approved (version 1).', createdAt: at }).run();
-      }
-    });
+    const started = await openCheckout(at(paidAt - 120_000), cartRepo.find(db, cart.id)!, { id: buyerId, email: buyer.email });
+    paymentsRepo.claimMail(db, started.checkoutId, paidAt); // demo purchases send no e-mail
+    const paid = await fetch(started.url, { method: 'POST', body: new URLSearchParams(PAY_FORM), redirect: 'manual' });
+    if (paid.status !== 303) throw new Error(`demo orders: the payment page answered ${paid.status}: ${(await paid.text()).slice(0, 300)}`);
+    await handleEvent(at(paidAt), await completedEvent(stripe, started.sessionId));
+
+    const order = ordersRepo.ofCheckout(db, started.checkoutId)[0];
+    if (!order?.transferId) throw new Error(`demo orders: checkout ${started.checkoutId} made no paid-out order`);
+    const lines = ordersRepo.lines(db, [order.id]);
+    const toApprove = lines
+      .filter((l) => wanted.some((w) => w.approved && w.listingId === l.listingId && Object.values((l.snapshot as LineSnapshot).choices.texts).some((t) => t.text === w.name)))
+      .map((l) => l.id);
+    if (toApprove.length) approve(at(paidAt + 6 * 3_600_000), shopId, sellerId, toApprove);
   }
 }

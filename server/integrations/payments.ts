@@ -32,3 +32,21 @@ export function verifyWebhook(env: Pick<Env, 'STRIPE_SECRET_KEY' | 'STRIPE_API_B
   // constructEvent(payload, header, secret, tolerance, cryptoProvider, receivedAt in ms)
   return stripe.webhooks.constructEvent(rawBody, signature, env.STRIPE_WEBHOOK_SECRET, 300, undefined, nowMs);
 }
+
+/**
+ * True when the provider answered that a request did not and will not happen (a 4xx such as an
+ * invalid request, a missing account or a declined card): the claim for it can be released and a
+ * later attempt made under a new Idempotency-Key. Anything else (no answer, a timeout, a 5xx, a
+ * concurrent request with the same key, a rate limit) may still have happened: the claim is kept and
+ * retried with the same key and parameters (Stripe API docs, "Idempotent requests" and "Errors").
+ */
+export function isDefiniteFailure(e: unknown): boolean {
+  if (!(e instanceof Stripe.errors.StripeError)) return false;
+  const status = e.statusCode ?? 0;
+  return status >= 400 && status < 500 && status !== 409 && status !== 429;
+}
+
+/** The provider's own words for a failure, for logs and for the people who asked. */
+export function providerMessage(e: unknown): string {
+  return e instanceof Error ? e.message : String(e);
+}

@@ -23,7 +23,7 @@ export type LedgerEntry = {
   kind: LedgerKind;
   orderId: string | null;
   orderNumber: string | null;
-  /** as stored (charges, fees and transfers positive; refunds and reversals negative) */
+  /** as stored (charges, fees and transfers positive; refunds, reversals and fees returned with a refund negative) */
   amountMinor: number;
   /** from the shop's side: what the shop earned (+) or gave up (−); 0 for money merely moved */
   earnedMinor: number;
@@ -39,7 +39,8 @@ export function signForShop(kind: string, amountMinor: number): { earnedMinor: n
     case 'charge':
       return { earnedMinor: amountMinor, paidOutMinor: 0 };
     case 'platform_fee':
-      return { earnedMinor: -Math.abs(amountMinor), paidOutMinor: 0 };
+      // a fee is stored positive; the part returned with a refund is stored negative
+      return { earnedMinor: -amountMinor, paidOutMinor: 0 };
     case 'refund':
       return { earnedMinor: -Math.abs(amountMinor), paidOutMinor: 0 };
     case 'transfer':

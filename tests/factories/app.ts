@@ -13,6 +13,7 @@ import { createApp } from '../../server/app.ts';
 import { shops, user } from '../../server/db/schema.ts';
 import { seedDemo } from '../../server/db/seed.ts';
 import { startMailFake } from '../../fakes/mail/server.ts';
+import { startStripeFake } from '../../fakes/stripe/server.ts';
 import { listMail } from '../../fakes/mail/store.ts';
 import type { Role } from '../../shared/schemas/auth.ts';
 
@@ -21,6 +22,8 @@ export const TEST_PASSWORD = 'correct-horse-battery';
 export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, string>; now?: () => number } = {}) {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-test-'));
   const mail = await startMailFake({ port: 0, dir: path.join(dataDir, 'mail') });
+  // the demo orders are paid at a payment fake: one on a free port, unless the test names its own
+  const fake = opts.seed && !opts.env?.STRIPE_API_BASE ? await startStripeFake({ port: 0, dataDir: path.join(dataDir, 'stripe'), webhookSecret: 'whsec_namesake_local' }) : null;
   const env = loadEnv({
     NODE_ENV: 'test',
     DATA_DIR: dataDir,
@@ -28,6 +31,7 @@ export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, s
     BASE_URL: 'http://localhost:3000',
     LOG_REQUESTS: 'false',
     STRIPE_FAKE: 'false',
+    ...(fake ? { STRIPE_API_BASE: fake.url } : {}),
     ...opts.env,
   });
   const { db, sqlite } = openDb(env.dbFile);
@@ -76,6 +80,7 @@ export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, s
     async close() {
       mailer.close();
       await mail.close();
+      await fake?.close();
       sqlite.close();
       fs.rmSync(dataDir, { recursive: true, force: true });
     },

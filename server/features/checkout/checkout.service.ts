@@ -14,7 +14,7 @@ import { SHIPPING_COUNTRIES, type CheckoutStarted, type CheckoutStatus, type Che
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
 import { cartView, resolveCart } from '../cart/cart.service.ts';
-import { cartRepo } from '../cart/cart.repo.ts';
+import { cartRepo, type CartRow } from '../cart/cart.repo.ts';
 import { checkoutRepo, type CheckoutRow } from './checkout.repo.ts';
 import { CANCELLED_WORDS, declineInOurWords } from './decline-words.ts';
 
@@ -81,9 +81,13 @@ function freeze(view: ReturnType<typeof cartView>): PricedCheckout {
 }
 
 /** POST /api/checkout */
-export async function startCheckout(deps: CheckoutDeps, req: Request, res: Response, user: SessionUser, attempt = 0): Promise<CheckoutStarted> {
+export async function startCheckout(deps: CheckoutDeps, req: Request, res: Response, user: SessionUser): Promise<CheckoutStarted> {
+  return openCheckout(deps, resolveCart(deps, req, res, { create: false }), user);
+}
+
+/** Opens (or finds) the Checkout Session for this version of the user's cart. */
+export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, user: Pick<SessionUser, 'id' | 'email'>, attempt = 0): Promise<CheckoutStarted> {
   const { db } = deps;
-  const cart = resolveCart(deps, req, res, { create: false });
   const view = cartView(db, cart);
   if (!cart || view.itemCount === 0) throw badRequest('Your cart is empty. Add something first.');
   const gone = view.shops.flatMap((s) => s.lines).filter((l) => !l.available);
@@ -129,7 +133,7 @@ export async function startCheckout(deps: CheckoutDeps, req: Request, res: Respo
     // the page for this cart version timed out: mark it and start afresh with a new version
     checkoutRepo.setState(db, c.id, 'expired');
     cartRepo.touch(db, cart.id, deps.now());
-    return startCheckout(deps, req, res, user, 1);
+    return openCheckout(deps, cartRepo.find(db, cart.id)!, user, 1);
   }
   const url = session.status === 'complete' ? `${deps.env.baseUrl}/checkout/return?session_id=${session.id}` : session.url;
   if (!url) throw new AppError(502, 'payment_provider', 'The payment page is not available. Nothing was charged; please try again.');

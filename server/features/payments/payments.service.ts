@@ -1,49 +1,89 @@
 // Webhook handling and the money that follows a payment.
 //
+// The posted event is signed, but its body is not taken at its word: the Checkout Session is fetched
+// from the provider by id and must belong to the checkout it names (our row, its metadata and
+// client_reference_id), be complete and paid, and match the amount and currency we asked for.
+//
 // checkout.session.completed → in ONE transaction: record the event id, create one order per shop,
-// write the charge rows, mark the checkout paid, take the paid lines out of the cart. A repeat of
-// the event finds its id and changes nothing. After the commit, `settle` makes one transfer per
-// order (Idempotency-Key per order, so a crash and a retry never pay a shop twice) and sends the
-// e-mails once. If settling fails, the endpoint answers 500 and the provider's retry settles again.
+// write the charge and platform-fee rows, mark the checkout paid, take the paid lines out of the
+// cart. A repeat of the event finds its id and changes nothing. After the commit, `settle` pays each
+// shop (payouts.service.ts: net of refunds, each call claimed with its Idempotency-Key, so a crash and
+// a retry never pay a shop twice) and sends the e-mails once. If a payout fails, the endpoint answers
+// 500 and the provider's retry settles again.
+//
+// charge.refunded → refunds we asked for whose local write did not happen (the provider said yes and
+// we crashed, or the write failed) are recorded from the provider's list of refunds of that payment,
+// matched by the refund intent id in their metadata; never refunded again. Then each order's payout
+// is brought to what is due.
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
 import type { AppDeps } from '../../app.ts';
 import type { Db } from '../../db/client.ts';
-import { paymentsClient } from '../../integrations/payments.ts';
+import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
-// payments drives orders and reads checkouts (one-way: neither imports payments)
+// payments drives orders and refunds and reads checkouts (one-way: none of them imports payments)
 import { createOrdersForCheckout, type PricedShop } from '../orders/orders.service.ts';
 import { ordersRepo } from '../orders/orders.repo.ts';
 import { confirmationMail, newOrderMail, type MailOrder } from '../orders/order-mails.ts';
-import { transferGroupOf, type PricedCheckout } from '../checkout/checkout.service.ts';
+import type { PricedCheckout } from '../checkout/checkout.service.ts';
+import type { CheckoutRow } from '../checkout/checkout.repo.ts';
+import { recordProviderRefund } from '../refunds/refunds.service.ts';
 import { paymentsRepo } from './payments.repo.ts';
+import { settleOrder } from './payouts.service.ts';
 
 export type PaymentsDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'>;
 
-export type Handled = { outcome: 'orders_created' | 'duplicate' | 'ignored' | 'recorded'; checkoutId?: string };
+export type Handled = { outcome: 'orders_created' | 'duplicate' | 'ignored' | 'recorded' | 'rejected'; checkoutId?: string };
+
+/**
+ * The session as the provider has it, and our checkout it belongs to; or why the posted body is not
+ * believed. A provider that cannot be reached throws (the webhook answers 500 and is retried).
+ */
+async function trustedSession(deps: PaymentsDeps, posted: Stripe.Checkout.Session): Promise<{ c: CheckoutRow; s: Stripe.Checkout.Session } | { rejected: string }> {
+  const { db } = deps;
+  const sessionId = typeof posted?.id === 'string' ? posted.id : '';
+  if (!sessionId) return { rejected: 'the event names no session' };
+  const named = posted.metadata?.checkoutId;
+  const c = paymentsRepo.checkoutBySession(db, sessionId) ?? (named ? paymentsRepo.checkout(db, named) : undefined);
+  if (!c) return { rejected: `session ${sessionId} belongs to no checkout of ours` };
+  if (c.providerSessionId && c.providerSessionId !== sessionId) return { rejected: `checkout ${c.id} was opened with another session than ${sessionId}` };
+  if (named && named !== c.id) return { rejected: `the body names checkout ${named}, session ${sessionId} belongs to ${c.id}` };
+  let s: Stripe.Checkout.Session;
+  try {
+    s = await paymentsClient(deps.env).checkout.sessions.retrieve(sessionId);
+  } catch (e) {
+    if (isDefiniteFailure(e)) return { rejected: `the provider does not know session ${sessionId}: ${providerMessage(e)}` };
+    throw e;
+  }
+  if (s.metadata?.checkoutId !== c.id || (s.client_reference_id && s.client_reference_id !== c.id)) {
+    return { rejected: `session ${sessionId} at the provider belongs to checkout ${s.metadata?.checkoutId ?? '?'}, not ${c.id}` };
+  }
+  return { c, s };
+}
 
 export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Promise<Handled> {
   const { db } = deps;
   const at = deps.now();
   if (event.type === 'checkout.session.completed' || event.type === 'checkout.session.async_payment_succeeded') {
-    const session = event.data.object as Stripe.Checkout.Session;
-    const checkoutId = session.metadata?.checkoutId ?? '';
+    const trusted = await trustedSession(deps, event.data.object as Stripe.Checkout.Session);
+    if ('rejected' in trusted) return reject(deps, event, trusted.rejected);
+    const { c: checkout, s: session } = trusted;
+    const checkoutId = checkout.id;
+    if (session.status !== 'complete' || session.payment_status !== 'paid') return reject(deps, event, `session ${session.id} is ${session.status}, ${session.payment_status}`);
+    if (session.amount_total !== checkout.totalMinor || (session.currency ?? '').toUpperCase() !== checkout.currency.toUpperCase()) {
+      // never make orders for a payment that does not match what we asked for
+      return reject(deps, event, `session ${session.id} paid ${session.amount_total} ${session.currency}, checkout ${checkoutId} expected ${checkout.totalMinor} ${checkout.currency}`);
+    }
     let created = false;
     const fresh = db.transaction((tx) => {
       const t = tx as unknown as Db;
       if (!paymentsRepo.recordEvent(t, event.id, event.type, at)) return false;
-      const c = paymentsRepo.checkout(t, checkoutId);
-      if (!c || session.payment_status !== 'paid') return true;
+      const c = paymentsRepo.checkout(t, checkoutId)!;
       const priced = c.priced as PricedCheckout;
-      if (session.amount_total !== c.totalMinor || (session.currency ?? '').toUpperCase() !== c.currency.toUpperCase()) {
-        // never make orders for a payment that does not match what we asked for
-        console.error(`payments: session ${session.id} paid ${session.amount_total} ${session.currency}, checkout ${c.id} expected ${c.totalMinor} ${c.currency}`);
-        return true;
-      }
       const pi = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
       if (!paymentsRepo.markPaid(t, c.id, at, pi)) return true; // paid through an earlier event
-      createOrdersForCheckout(t, {
+      const made = createOrdersForCheckout(t, {
         checkoutId: c.id,
         buyerId: c.userId,
         currency: c.currency,
@@ -53,6 +93,10 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
         paymentIntentId: pi,
         timeZone: deps.env.BUSINESS_TIME_ZONE,
       });
+      // the platform's fee is earned with the charge; what is paid out follows in settle
+      for (const o of made) {
+        ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: o.shopId, orderId: o.id, kind: 'platform_fee', amountMinor: o.platformFeeMinor, currency: o.currency, providerRef: pi, memo: `fee ${deps.env.PLATFORM_FEE_BPS} bps`, createdAt: at });
+      }
       const shipTo = shipToOf(session);
       if (shipTo) paymentsRepo.setShipTo(t, c.id, shipTo);
       paymentsRepo.removeCartLines(t, c.cartId, priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
@@ -60,20 +104,54 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       return true;
     });
     // a repeat still settles: the first delivery may have committed and then died before transfers
-    if (checkoutId) await settle(deps, checkoutId);
+    await settle(deps, checkoutId);
     return { outcome: !fresh ? 'duplicate' : created ? 'orders_created' : 'recorded', checkoutId };
   }
   if (event.type === 'checkout.session.expired') {
-    const session = event.data.object as Stripe.Checkout.Session;
+    const trusted = await trustedSession(deps, event.data.object as Stripe.Checkout.Session);
+    if ('rejected' in trusted) return reject(deps, event, trusted.rejected);
+    if (trusted.s.status !== 'expired') return reject(deps, event, `session ${trusted.s.id} is ${trusted.s.status}, not expired`);
     db.transaction((tx) => {
       const t = tx as unknown as Db;
-      if (paymentsRepo.recordEvent(t, event.id, event.type, at) && session.metadata?.checkoutId) paymentsRepo.markExpired(t, session.metadata.checkoutId);
+      if (paymentsRepo.recordEvent(t, event.id, event.type, at)) paymentsRepo.markExpired(t, trusted.c.id);
     });
-    return { outcome: 'recorded' };
+    return { outcome: 'recorded', checkoutId: trusted.c.id };
   }
-  // other events (charge.refunded for refunds we made ourselves, …) need nothing from us
+  if (event.type === 'charge.refunded') {
+    const checkoutId = await reconcileRefunds(deps, event.data.object as Stripe.Charge);
+    paymentsRepo.recordEvent(db, event.id, event.type, at);
+    return { outcome: checkoutId ? 'recorded' : 'ignored', ...(checkoutId ? { checkoutId } : {}) };
+  }
   paymentsRepo.recordEvent(db, event.id, event.type, at);
   return { outcome: 'ignored' };
+}
+
+function reject(deps: PaymentsDeps, event: Stripe.Event, why: string): Handled {
+  console.error(`payments: ${event.type} ${event.id} not acted on: ${why}`);
+  paymentsRepo.recordEvent(deps.db, event.id, event.type, deps.now());
+  return { outcome: 'rejected' };
+}
+
+/**
+ * Records every refund of the charge's payment that we asked for and have not recorded (the list
+ * comes from the provider, not from the posted body), then brings the payouts of the checkout's
+ * orders to what is due. Returns the checkout id, or null when the payment is not one of ours.
+ */
+async function reconcileRefunds(deps: PaymentsDeps, posted: Stripe.Charge): Promise<string | null> {
+  const pi = typeof posted?.payment_intent === 'string' ? posted.payment_intent : (posted?.payment_intent?.id ?? null);
+  const c = pi ? paymentsRepo.checkoutByPaymentIntent(deps.db, pi) : undefined;
+  if (!pi || !c) return null;
+  const stripe = paymentsClient(deps.env);
+  const orderIds = new Set(ordersRepo.ofCheckout(deps.db, c.id).map((o) => o.id));
+  for await (const r of stripe.refunds.list({ payment_intent: pi, limit: 100 })) {
+    const intentId = r.metadata?.refundIntentId;
+    if (r.status !== 'succeeded' || !intentId) continue;
+    await recordProviderRefund(deps, intentId, { id: r.id, amount: r.amount }, orderIds);
+  }
+  const failures: unknown[] = [];
+  for (const id of orderIds) await settleOrder(deps, id).catch((e: unknown) => failures.push(e));
+  if (failures.length) throw failures[0];
+  return c.id;
 }
 
 /**
@@ -89,57 +167,24 @@ export function shipToOf(session: Stripe.Checkout.Session): ShipTo | null {
   return parseShipTo({ name: d.name, line1: a.line1, line2: opt(a.line2), city: a.city, postalCode: a.postal_code, state: opt(a.state), country: a.country });
 }
 
-/** The shop's connected account, created on first need (Idempotency-Key per shop). */
-async function shopAccount(deps: PaymentsDeps, stripe: Stripe, shopId: string): Promise<string> {
-  const shop = paymentsRepo.shop(deps.db, shopId)!;
-  if (shop.paymentAccountId) return shop.paymentAccountId;
-  const owner = paymentsRepo.shopOwner(deps.db, shopId);
-  const acct = await stripe.accounts.create(
-    { type: 'express', country: 'US', email: owner?.email, business_profile: { name: shop.name }, capabilities: { transfers: { requested: true } }, metadata: { shopId } },
-    { idempotencyKey: `account-${shopId}` },
-  );
-  paymentsRepo.setShopAccount(deps.db, shopId, acct.id);
-  return paymentsRepo.shop(deps.db, shopId)!.paymentAccountId ?? acct.id;
-}
-
-/** Transfers (one per order, lines + shipping − fee) and the e-mails, each exactly once. */
+/**
+ * Pays each shop of a paid checkout what is due (payouts.service.ts) and sends the e-mails once. The
+ * e-mails go even when a payout fails (the shopper has paid); the failure is then thrown so the
+ * webhook answers 500 and the provider's retry pays again.
+ */
 export async function settle(deps: PaymentsDeps, checkoutId: string): Promise<void> {
   const { db } = deps;
-  let c = paymentsRepo.checkout(db, checkoutId);
+  const c = paymentsRepo.checkout(db, checkoutId);
   if (!c || c.state !== 'paid') return;
-  const stripe = paymentsClient(deps.env);
   if (!c.chargeId && c.paymentIntentId) {
-    const pi = await stripe.paymentIntents.retrieve(c.paymentIntentId);
+    const pi = await paymentsClient(deps.env).paymentIntents.retrieve(c.paymentIntentId);
     const charge = typeof pi.latest_charge === 'string' ? pi.latest_charge : (pi.latest_charge?.id ?? null);
     if (charge) paymentsRepo.setCharge(db, c.id, charge);
-    c = paymentsRepo.checkout(db, checkoutId)!;
   }
-  const orders = ordersRepo.ofCheckout(db, c.id);
-  for (const o of orders.filter((x) => !x.transferId)) {
-    const amount = o.totalMinor - o.platformFeeMinor;
-    if (amount <= 0) continue;
-    const destination = await shopAccount(deps, stripe, o.shopId);
-    const tr = await stripe.transfers.create(
-      {
-        amount,
-        currency: o.currency.toLowerCase(),
-        destination,
-        transfer_group: transferGroupOf(c.id),
-        ...(c.chargeId ? { source_transaction: c.chargeId } : {}),
-        description: `Order ${o.number}`,
-        metadata: { orderId: o.id, orderNumber: o.number },
-      },
-      { idempotencyKey: `transfer-${o.id}` },
-    );
-    const at = deps.now();
-    db.transaction((tx) => {
-      const t = tx as unknown as Db;
-      if (!ordersRepo.setTransfer(t, o.id, tr.id)) return; // another delivery recorded this one
-      ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: o.shopId, orderId: o.id, kind: 'platform_fee', amountMinor: o.platformFeeMinor, currency: o.currency, providerRef: c!.chargeId, memo: `fee ${deps.env.PLATFORM_FEE_BPS} bps`, createdAt: at });
-      ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: o.shopId, orderId: o.id, kind: 'transfer', amountMinor: amount, currency: o.currency, providerRef: tr.id, memo: 'payout to the shop', createdAt: at });
-    });
-  }
+  const failures: unknown[] = [];
+  for (const o of ordersRepo.ofCheckout(db, c.id)) await settleOrder(deps, o.id).catch((e: unknown) => failures.push(e));
   if (paymentsRepo.claimMail(db, c.id, deps.now())) await sendOrderMails(deps, c.id).catch((e: unknown) => console.error('payments: order e-mails failed', e));
+  if (failures.length) throw failures[0];
 }
 
 async function sendOrderMails(deps: PaymentsDeps, checkoutId: string): Promise<void> {
