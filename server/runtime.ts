@@ -33,6 +33,8 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
   const { db, sqlite } = openDb(env.dbFile);
   const mailer = createMailer(env);
   const app = createApp({ db, env, mailer, clientDir: opts.clientDir });
+  // the worker pool: closed (its threads ended) after the server stops taking requests
+  closers.push(() => app.locals.deps.pool.close());
   if ((opts.seed ?? true) && isEmpty({ db })) {
     log('  seeding the demo scenario …');
     await seedDemo(app.locals.deps);
