@@ -79,7 +79,7 @@ export class LimitError extends Error {
 
 /** Throws LimitError unless `v` is a finite number within ±MAX_COORDINATE_MM. */
 export function checkCoordinate(v: number, what = 'A coordinate'): void {
-  if (!Number.isFinite(v)) throw new LimitError('MAX_COORDINATE_MM', `${what} is not a finite number.`);
+  if (!Number.isFinite(v)) throw new LimitError('MAX_COORDINATE_MM', `${what} is not a finite number; the limit is ${MAX_COORDINATE_MM.toLocaleString('en')} mm from the origin.`);
   if (v > MAX_COORDINATE_MM || v < -MAX_COORDINATE_MM) {
     throw new LimitError('MAX_COORDINATE_MM', `${what} lies ${fmtMm(Math.abs(v))} from the origin; the limit is ${MAX_COORDINATE_MM.toLocaleString('en')} mm.`);
   }

@@ -16,7 +16,7 @@ import { cssLengthToMm, MM_PER_CSS_PX } from '../units.ts';
 import { checkPathBounds, flattenPath, fromSvgPath, pathBBox, polygonsToPath, formatPath, parsePathData, type BBox, type Path, type Polygon } from './path.ts';
 import { unionRegions, regionsToPolygons, regionsArea, type FillRule } from './geometry.ts';
 import {
-  LimitError, MOTIF_MAX_BYTES, MOTIF_MAX_DEPTH, MOTIF_MAX_ELEMENTS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_COMMANDS, MOTIF_MAX_SIDE_MM,
+  LimitError, MOTIF_MAX_BYTES, MOTIF_MAX_DEPTH, MOTIF_MAX_ELEMENTS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_CHARS, MOTIF_MAX_PATH_COMMANDS, MOTIF_MAX_SIDE_MM,
 } from './limits.ts';
 
 /** The motif caps of limits.ts, by short name (a test may pass lower ones to parseMotifSvg). */
@@ -374,7 +374,10 @@ function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
     const regions = unionRegions(acc.polys, 'nonzero');
     const p: Path = [...polygonsToPath(regionsToPolygons(regions)), ...acc.lines.flat()];
     if (p.length === 0) continue;
-    out.push({ id: acc.id, colour: acc.colour, path: formatPath(p), bboxMm: pathBBox(p), areaMm2: regionsArea(regions) });
+    const d = formatPath(p);
+    // what compose() will be handed later: refused now rather than stored and unusable
+    if (d.length > MOTIF_MAX_PATH_CHARS) throw new MotifError('too_complex', `The motif's layer "${acc.id}" is too detailed: its outline is longer than the ${MOTIF_MAX_PATH_CHARS.toLocaleString('en')}-character limit. Simplify the artwork.`);
+    out.push({ id: acc.id, colour: acc.colour, path: d, bboxMm: pathBBox(p), areaMm2: regionsArea(regions) });
   }
   if (out.length === 0) throw new MotifError('no_geometry', 'The motif has no filled shapes to cut.');
   return { widthMm: wMm, heightMm: hMm, layers: out, dropped: [...dropped.values()] };
