@@ -42,6 +42,8 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(env.PORT, env.HOST, () => resolve(s));
   });
+  // worker threads start now, in the background, so the first heavy request need not wait for one
+  app.locals.deps.pool.warm();
   // the morning digest (croner) and its start-up catch-up; after the seed so the demo shops get it
   const jobs = env.DIGEST ? startJobs(app.locals.deps, log) : null;
   const port = (server.address() as AddressInfo).port;

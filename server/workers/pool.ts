@@ -15,14 +15,16 @@ import { MotifError, type MotifErrorCode } from '../../shared/engine/motif.ts';
 import { LayoutError } from '../../shared/engine/text-layout.ts';
 import { ComposeError } from '../../shared/engine/compose.ts';
 import { CutSheetError } from '../../shared/engine/cut-sheets.ts';
-import type { Task, TaskError, TaskKind, TaskResult, TaskValue } from './tasks.ts';
+import type { Task, TaskError, TaskKind, TaskMessage, TaskResult, TaskValue } from './tasks.ts';
 
 export type { Task, TaskKind, TaskValue } from './tasks.ts';
 
 export type WorkPoolOptions = {
-  /** Time limit of one task (queue wait included), ms. Default 20 s. */
+  /** Time limit of one task from when a worker starts on it, ms. Default 20 s. */
   timeoutMs?: number;
-  /** Threads: default half the machine's parallelism, at least 1, at most 4. */
+  /** Longest a task may wait for a free worker before it is refused as busy, ms. Default 60 s. */
+  maxWaitMs?: number;
+  /** Threads: default one less than the machine's parallelism (the request thread keeps one), 2 to 4. */
   maxThreads?: number;
   /** Tasks waiting for a thread before new ones are refused as busy. Default 64. */
   maxQueue?: number;
@@ -36,6 +38,8 @@ export type WorkPool = {
   run<K extends TaskKind>(task: Extract<Task, { kind: K }>, opts?: RunOptions): Promise<TaskValue[K]>;
   /** Builds a work sheet PDF in a worker; `onProgress` hears the fraction of pages done. */
   worksheet(input: Extract<Task, { kind: 'worksheet' }>['input'], onProgress?: (fraction: number) => void): Promise<Buffer>;
+  /** Starts every thread now and keeps them (the server calls this at start-up, so no request waits for one). */
+  warm(): void;
   /** Worker threads running now (0 before first use). */
   readonly threadIds: number[];
   close(): Promise<void>;
@@ -57,7 +61,8 @@ const WORKER = fileURLToPath(new URL('./worker.mjs', import.meta.url));
 
 function defaultThreads(): number {
   const n = typeof os.availableParallelism === 'function' ? os.availableParallelism() : os.cpus().length;
-  return Math.max(1, Math.min(4, Math.floor(n / 2)));
+  // at least 2, so one long task never queues every other design behind it
+  return Math.max(2, Math.min(4, n - 1));
 }
 
 /** An error sent back as data by a worker → the same class on this thread. */
@@ -76,16 +81,21 @@ function rebuild(e: TaskError): Error {
 
 export function createWorkPool(opts: WorkPoolOptions = {}): WorkPool {
   const timeoutMs = opts.timeoutMs ?? DEFAULT_TASK_TIMEOUT_MS;
+  const maxWaitMs = opts.maxWaitMs ?? 60_000;
+  const maxThreads = opts.maxThreads ?? defaultThreads();
   let piscina: Piscina | null = null;
   let closed = false;
-  const get = (): Piscina => {
+  const get = (warm = false): Piscina => {
     if (closed) throw new AppError(503, 'shutting_down', 'The server is shutting down. Please try again in a moment.');
     piscina ??= new Piscina({
       filename: WORKER,
-      minThreads: 0,
-      maxThreads: opts.maxThreads ?? defaultThreads(),
+      minThreads: warm ? maxThreads : 0,
+      maxThreads,
       maxQueue: opts.maxQueue ?? 64,
       idleTimeout: 60_000,
+      // workers run at a lower priority than the request thread: when the CPU is short, answering
+      // requests comes first and geometry waits (Linux; ignored where thread priority is not set)
+      niceIncrement: 10,
       // a clean worker: it registers tsx itself (worker.mjs), whatever loader flags this process has
       execArgv: [],
       resourceLimits: { maxOldGenerationSizeMb: opts.maxHeapMb ?? 512 },
@@ -96,15 +106,26 @@ export function createWorkPool(opts: WorkPoolOptions = {}): WorkPool {
   async function run<K extends TaskKind>(task: Extract<Task, { kind: K }>, ro: RunOptions = {}): Promise<TaskValue[K]> {
     const pool = get();
     const limit = ro.timeoutMs ?? timeoutMs;
-    const signal = AbortSignal.timeout(limit);
+    // Two clocks: the wait for a free worker (bounded, answered as busy), then the task's own time
+    // limit, started when the worker says it has begun. Either ends the task through one signal.
+    const ac = new AbortController();
+    let why: 'wait' | 'limit' | null = null;
+    let limitTimer: NodeJS.Timeout | undefined;
+    const waitTimer = setTimeout(() => ((why = 'wait'), ac.abort()), maxWaitMs);
+    const { port1, port2 } = new MessageChannel();
+    port1.once('message', () => {
+      clearTimeout(waitTimer);
+      limitTimer = setTimeout(() => ((why = 'limit'), ac.abort()), limit);
+    });
+    const message: TaskMessage = { task, started: port2 };
     let res: TaskResult<K>;
     try {
-      res = (await pool.run(task, { signal, transferList: ro.transferList })) as TaskResult<K>;
+      res = (await pool.run(message, { signal: ac.signal, transferList: [port2, ...(ro.transferList ?? [])] })) as TaskResult<K>;
     } catch (e) {
-      if (signal.aborted) {
+      if (why === 'limit') {
         throw new AppError(503, 'task_timeout', `${WHAT[task.kind]} (over ${formatSeconds(limit)}), so we stopped. Try something simpler, or try again in a moment.`);
       }
-      if (e instanceof Error && /queue is at limit/i.test(e.message)) {
+      if (why === 'wait' || (e instanceof Error && /queue is at limit/i.test(e.message))) {
         throw new AppError(503, 'busy', 'The server is busy preparing other designs. Please try again in a moment.');
       }
       // the worker itself died (e.g. its heap cap): report it as the task failing, not the server
@@ -112,6 +133,10 @@ export function createWorkPool(opts: WorkPoolOptions = {}): WorkPool {
         throw new AppError(422, 'task_failed', `${WHAT[task.kind].replace(/took too long to \w+/, 'could not be prepared')}: it needs more memory than we allow.`);
       }
       throw e;
+    } finally {
+      clearTimeout(waitTimer);
+      clearTimeout(limitTimer);
+      port1.close();
     }
     if (!res.ok) throw rebuild(res.error);
     return res.value;
@@ -128,6 +153,9 @@ export function createWorkPool(opts: WorkPoolOptions = {}): WorkPool {
       } finally {
         port1.close();
       }
+    },
+    warm() {
+      get(true);
     },
     get threadIds() {
       return piscina ? piscina.threads.map((t) => t.threadId) : [];

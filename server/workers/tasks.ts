@@ -98,8 +98,17 @@ function asData(e: unknown): TaskError {
   return out;
 }
 
-/** What piscina calls (worker.mjs): never throws for an expected refusal, returns it as data. */
-export async function runTask(task: Task): Promise<TaskResult> {
+/** What the pool posts: the task, and a port on which the worker says when it starts on it. */
+export type TaskMessage = { task: Task; started?: MessagePort };
+
+/**
+ * What piscina calls (worker.mjs): tells the pool it has started (its time limit runs from here,
+ * not from when the task was queued or the thread was still loading), then works. Never throws for
+ * an expected refusal: that comes back as data.
+ */
+export async function runTask({ task, started }: TaskMessage): Promise<TaskResult> {
+  started?.postMessage('started');
+  started?.close();
   try {
     return { ok: true, value: await perform(task) };
   } catch (e) {
