@@ -19,6 +19,8 @@ import { adminMailRouter } from './features/admin/admin-mail.routes.ts';
 import { featureRouters } from './features/index.ts';
 import { withOurErrorShape } from './http/auth-errors.ts';
 import { DEMO_PASSWORD, hasDemoData } from './db/seed.ts';
+import { DEFAULT_RATE_LIMITS, type RateLimits } from './http/account-rate-limit.ts';
+import { createWorkPool, type WorkPool } from './workers/pool.ts';
 
 export type AppDeps = {
   db: Db;
@@ -27,13 +29,32 @@ export type AppDeps = {
   /** the clock, injectable for tests */
   now: () => number;
   auth: Auth;
+  /** worker threads for CPU-heavy work (server/workers/pool.ts); closed by the runtime on stop */
+  pool: WorkPool;
+  /** per-account limits on the routes that start heavy work */
+  rateLimits: RateLimits;
 };
 
-export type CreateAppInput = Omit<AppDeps, 'auth' | 'now'> & { now?: () => number; clientDir?: string };
+export type CreateAppInput = Omit<AppDeps, 'auth' | 'now' | 'pool' | 'rateLimits'> & {
+  now?: () => number;
+  clientDir?: string;
+  /** a pool to use; by default one is made (its threads start on first use) */
+  pool?: WorkPool;
+  /** time limit of one pooled task, ms (when the app makes its pool) */
+  taskTimeoutMs?: number;
+  rateLimits?: Partial<RateLimits>;
+};
 
 /** Builds the Express app; never listens (tests start it on port 0, server/index.ts on PORT). */
 export function createApp(input: CreateAppInput): Express & { locals: { deps: AppDeps } } {
-  const deps: AppDeps = { ...input, now: input.now ?? Date.now, auth: createAuth(input) };
+  const { pool, taskTimeoutMs, rateLimits, ...rest } = input;
+  const deps: AppDeps = {
+    ...rest,
+    now: input.now ?? Date.now,
+    auth: createAuth(input),
+    pool: pool ?? createWorkPool({ timeoutMs: taskTimeoutMs }),
+    rateLimits: { ...DEFAULT_RATE_LIMITS, ...rateLimits },
+  };
   const { env } = deps;
   const app = express();
   app.locals.deps = deps;

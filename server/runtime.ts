@@ -62,6 +62,8 @@ async function startApp(
   let server: Server;
   try {
     app = createApp({ db, env, mailer, clientDir: opts.clientDir });
+    // the worker pool: closed (its threads ended) after the server stops taking requests
+    closers.push(() => app.locals.deps.pool.close());
     // the demo scenario only when asked for (DEMO_DATA; never implied in production)
     if ((opts.seed ?? env.demoData) && isEmpty({ db })) {
       log('  seeding the demo scenario …');
@@ -71,8 +73,10 @@ async function startApp(
   } catch (err) {
     mailer.close();
     sqlite.close();
-    throw err;
+    throw err; // the caller closes the fakes and the pool
   }
+  // worker threads start now, in the background, so the first heavy request need not wait for one
+  app.locals.deps.pool.warm();
   // the morning digest (croner) and its start-up catch-up; after the seed so the demo shops get it
   const jobs = env.DIGEST ? startJobs(app.locals.deps, log) : null;
   const port = (server.address() as AddressInfo).port;

@@ -37,47 +37,67 @@ export type Storage = {
 
 const NAME = /^[a-f0-9]{32}(?:-t)?\.(?:webp|jpg)$/;
 
-export function createStorage(dir: string): Storage {
+/** An image checked and re-encoded, not yet written: what the CPU-heavy half of saveImage makes. */
+export type ProcessedImage = { main: Uint8Array; thumb: Uint8Array; jpeg: boolean; width: number; height: number };
+
+/**
+ * Checks an image by its bytes and re-encodes it (main size and WebP thumbnail). Pure CPU, no
+ * disk: the server runs it in its worker pool (server/workers). Throws AppError when refused.
+ */
+export async function processImage(buf: Uint8Array): Promise<ProcessedImage> {
+  if (buf.byteLength > IMAGE_LIMITS.maxBytes) throw new AppError(413, 'file_too_large', 'That file is larger than 8 MB.');
+  const type = await fileTypeFromBuffer(buf);
+  if (!type || !(ALLOWED_IMAGE_MIME as readonly string[]).includes(type.mime))
+    throw unsupported('That file is not a JPEG, PNG or WebP image (we check the file itself, not its name).');
+  let meta: Metadata;
+  try {
+    // metadata() reads the header only, so the pixel count is known before anything is decoded
+    // (no limit here, so an oversized header gets its own clear message below)
+    meta = await sharp(buf, { limitInputPixels: false }).metadata();
+  } catch {
+    throw unsupported('That image could not be read.');
+  }
+  const w = meta.width ?? 0;
+  const h = meta.height ?? 0;
+  if (!w || !h) throw unsupported('That image could not be read.');
+  if (w * h > IMAGE_LIMITS.maxPixels)
+    throw new AppError(413, 'image_too_large', `That image is ${w} × ${h} pixels; the limit is ${IMAGE_LIMITS.maxPixels / 1_000_000} megapixels.`);
+
+  const jpeg = type.mime === 'image/jpeg';
+  let main: { data: Buffer; info: OutputInfo };
+  let thumb: Buffer;
+  try {
+    const base = () => sharp(buf, { limitInputPixels: IMAGE_LIMITS.maxPixels, failOn: 'error' }).rotate();
+    const resized = base().resize({ width: IMAGE_LIMITS.maxSide, height: IMAGE_LIMITS.maxSide, fit: 'inside', withoutEnlargement: true });
+    // re-encoding drops metadata (EXIF location etc.): sharp keeps none unless asked
+    main = await (jpeg ? resized.jpeg({ quality: 85, mozjpeg: true }) : resized.webp({ quality: 85 })).toBuffer({ resolveWithObject: true });
+    thumb = await base().resize({ width: IMAGE_LIMITS.thumbSide, height: IMAGE_LIMITS.thumbSide, fit: 'inside', withoutEnlargement: true }).webp({ quality: 78 }).toBuffer();
+  } catch {
+    throw unsupported('That image is damaged or could not be read.');
+  }
+  return { main: main.data, thumb, jpeg, width: main.info.width, height: main.info.height };
+}
+
+const asBuffer = (u: Uint8Array) => (Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength));
+
+/**
+ * `process` does the checking and re-encoding; by default in this thread, the server passes its
+ * worker pool's (server/workers/pool.ts) so the request thread never decodes an image.
+ */
+export function createStorage(dir: string, opts: { process?: (buf: Uint8Array) => Promise<ProcessedImage> } = {}): Storage {
+  const process = opts.process ?? processImage;
   return {
     dir,
     async saveImage(buf) {
       if (buf.byteLength > IMAGE_LIMITS.maxBytes) throw new AppError(413, 'file_too_large', 'That file is larger than 8 MB.');
-      const type = await fileTypeFromBuffer(buf);
-      if (!type || !(ALLOWED_IMAGE_MIME as readonly string[]).includes(type.mime))
-        throw unsupported('That file is not a JPEG, PNG or WebP image (we check the file itself, not its name).');
-      let meta: Metadata;
-      try {
-        // metadata() reads the header only, so the pixel count is known before anything is decoded
-        // (no limit here, so an oversized header gets its own clear message below)
-        meta = await sharp(buf, { limitInputPixels: false }).metadata();
-      } catch {
-        throw unsupported('That image could not be read.');
-      }
-      const w = meta.width ?? 0;
-      const h = meta.height ?? 0;
-      if (!w || !h) throw unsupported('That image could not be read.');
-      if (w * h > IMAGE_LIMITS.maxPixels)
-        throw new AppError(413, 'image_too_large', `That image is ${w} × ${h} pixels; the limit is ${IMAGE_LIMITS.maxPixels / 1_000_000} megapixels.`);
-
-      const jpeg = type.mime === 'image/jpeg';
-      let main: { data: Buffer; info: OutputInfo };
-      let thumb: Buffer;
-      try {
-        const base = () => sharp(buf, { limitInputPixels: IMAGE_LIMITS.maxPixels, failOn: 'error' }).rotate();
-        const resized = base().resize({ width: IMAGE_LIMITS.maxSide, height: IMAGE_LIMITS.maxSide, fit: 'inside', withoutEnlargement: true });
-        // re-encoding drops metadata (EXIF location etc.): sharp keeps none unless asked
-        main = await (jpeg ? resized.jpeg({ quality: 85, mozjpeg: true }) : resized.webp({ quality: 85 })).toBuffer({ resolveWithObject: true });
-        thumb = await base().resize({ width: IMAGE_LIMITS.thumbSide, height: IMAGE_LIMITS.thumbSide, fit: 'inside', withoutEnlargement: true }).webp({ quality: 78 }).toBuffer();
-      } catch {
-        throw unsupported('That image is damaged or could not be read.');
-      }
+      const img = await process(buf);
       const stem = crypto.randomBytes(16).toString('hex');
-      const fileName = `${stem}.${jpeg ? 'jpg' : 'webp'}`;
+      const fileName = `${stem}.${img.jpeg ? 'jpg' : 'webp'}`;
       const thumbName = `${stem}-t.webp`;
       fs.mkdirSync(dir, { recursive: true });
-      fs.writeFileSync(path.join(dir, fileName), main.data, { flag: 'wx' });
-      fs.writeFileSync(path.join(dir, thumbName), thumb, { flag: 'wx' });
-      return { fileName, thumbName, mime: jpeg ? 'image/jpeg' : 'image/webp', width: main.info.width, height: main.info.height, bytes: main.data.byteLength };
+      fs.writeFileSync(path.join(dir, fileName), asBuffer(img.main), { flag: 'wx' });
+      fs.writeFileSync(path.join(dir, thumbName), asBuffer(img.thumb), { flag: 'wx' });
+      return { fileName, thumbName, mime: img.jpeg ? 'image/jpeg' : 'image/webp', width: img.width, height: img.height, bytes: img.main.byteLength };
     },
     remove(fileName) {
       if (NAME.test(fileName)) fs.rmSync(path.join(dir, fileName), { force: true });

@@ -12,6 +12,7 @@ import { outlineOfPath, type OutlineResult } from './outline.ts';
 import { formatPath, mirrorPath, parsePathData, pathBBox, roundPath, transformPath, unionBBox, flattenPath, type BBox, type Path } from './path.ts';
 import type { TextLayout } from './text-layout.ts';
 import { regionsArea, unionRegions } from './geometry.ts';
+import { LimitError, MAX_COORDINATE_MM, MAX_TEXT_CHARS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_CHARS } from './limits.ts';
 import { analysePathWeeding, analyseQuickWeeding, combineWeeding, quickFromFull, type WeedingReport } from './weeding.ts';
 
 export type MaterialKind = 'smooth' | 'glitter' | 'flock' | 'metallic' | 'patterned';
@@ -202,12 +203,41 @@ function outlineCached(d: string, parsed: Path, offsetMm: number): OutlineResult
   return outlineCache.get(key) ?? outlineCache.set(key, outlineOfPath(parsed, offsetMm));
 }
 
+/**
+ * The bounds of limits.ts on what compose() is handed (the routes check them first; this is the
+ * engine's own check): texts, motif layers and their path data, the blank's size.
+ */
+function checkComposeInput(input: ComposeInput): void {
+  const { blank } = input;
+  for (const v of [blank.widthMm, blank.heightMm, blank.topOffsetMm]) {
+    if (!(Math.abs(v) <= MAX_COORDINATE_MM)) throw new LimitError('MAX_COORDINATE_MM', `The blank's size is outside the ${MAX_COORDINATE_MM} mm limit.`);
+  }
+  for (const f of input.fields) {
+    if (f.kind === 'text') {
+      const c = input.choices[f.id];
+      if (c && 'text' in c && (typeof c.text !== 'string' || c.text.length > MAX_TEXT_CHARS * 2 || [...c.text].length > MAX_TEXT_CHARS)) {
+        throw new LimitError('MAX_TEXT_CHARS', `The text is longer than the ${MAX_TEXT_CHARS}-character limit.`);
+      }
+    } else if (f.kind === 'motif') {
+      for (const o of f.options) {
+        if (o.geometry.layers.length > MOTIF_MAX_LAYERS) throw new LimitError('MOTIF_MAX_LAYERS', `A motif has more than ${MOTIF_MAX_LAYERS} layers.`);
+        for (const l of o.geometry.layers) {
+          if (l.path.length > MOTIF_MAX_PATH_CHARS) throw new LimitError('MOTIF_MAX_PATH_CHARS', `A motif layer's outline is longer than ${MOTIF_MAX_PATH_CHARS.toLocaleString('en')} characters.`);
+          const b = l.bboxMm;
+          if (![b.minX, b.minY, b.maxX, b.maxY].every((v) => Math.abs(v) <= MAX_COORDINATE_MM)) throw new LimitError('MAX_COORDINATE_MM', `A motif layer lies outside the ${MAX_COORDINATE_MM} mm limit.`);
+        }
+      }
+    }
+  }
+}
+
 export function compose(registry: FontRegistry, input: ComposeInput, options?: { weeding?: 'full' | 'fast' }): ComposedItem;
 export function compose(registry: FontRegistry, input: ComposeInput, options: { weeding: 'none' }): ComposedItem<null>;
 export function compose(registry: FontRegistry, input: ComposeInput, options?: ComposeOptions): ComposedItem<WeedingReport | null>;
 export function compose(registry: FontRegistry, input: ComposeInput, options: ComposeOptions = {}): ComposedItem<WeedingReport | null> {
   const mode: WeedingMode = options.weeding ?? 'full';
   if (mode !== 'full' && mode !== 'fast' && mode !== 'none') throw new RangeError(`Unknown weeding mode "${String(mode)}".`);
+  checkComposeInput(input);
   const { blank, fields, choices } = input;
   const gap = input.gapMm ?? 8;
   const area = usableArea(blank);

@@ -19,6 +19,7 @@ const { MaxRectsPacker } = maxrectsEsm as { MaxRectsPacker: typeof MaxRectsPacke
 const PACKING_LOGIC = { MAX_AREA: 0, MAX_EDGE: 1 } as const;
 type Logic = NonNullable<IOption['logic']>;
 import { z } from 'zod';
+import { LimitError, MAX_NEST_PIECES, MOTIF_MAX_PATH_CHARS } from './limits.ts';
 
 export const DEFAULT_GAP_MM = 6; // weeding gap 6 mm (¼ in), from memory
 export const DEFAULT_MARGIN_MM = 6; // margin at the roll edge 6 mm, from memory
@@ -32,7 +33,7 @@ export const nestPieceSchema = z.object({
   heightMm: z.number().positive().finite(),
   areaMm2: z.number().nonnegative().finite(),
   /** SVG path data, mm, y down, as previewed (not mirrored); carried through for the SVG. */
-  path: z.string().max(2_000_000),
+  path: z.string().max(MOTIF_MAX_PATH_CHARS),
 });
 export type NestPiece = z.infer<typeof nestPieceSchema>;
 
@@ -43,7 +44,7 @@ export const nestInputSchema = z
     marginMm: z.number().nonnegative().finite().max(200).default(DEFAULT_MARGIN_MM),
     /** Cut from fixed-length sheets (e.g. 305 × 305 mm) instead of one long roll. */
     maxLengthMm: z.number().positive().finite().optional(),
-    pieces: z.array(nestPieceSchema).max(20_000),
+    pieces: z.array(nestPieceSchema),
   })
   .refine((v) => v.rollWidthMm > 2 * v.marginMm, { message: 'The roll is narrower than its two margins.', path: ['rollWidthMm'] });
 export type NestInput = z.input<typeof nestInputSchema>;
@@ -158,6 +159,10 @@ function toSheet(rects: PackedRect[], rollWidthMm: number, gap: number, margin: 
  * Throws CutSheetError('piece_too_wide') when a piece fits the usable width in neither orientation.
  */
 export function nestCutSheets(input: NestInput): CutSheet[] {
+  // the bound first, before zod reads every piece
+  if (Array.isArray(input?.pieces) && input.pieces.length > MAX_NEST_PIECES) {
+    throw new LimitError('MAX_NEST_PIECES', `There are ${input.pieces.length.toLocaleString('en')} pieces to nest; the limit is ${MAX_NEST_PIECES.toLocaleString('en')} at once. Build cut sheets for fewer lines.`);
+  }
   const parsed = nestInputSchema.safeParse(input);
   if (!parsed.success) {
     const fields: Record<string, string> = {};

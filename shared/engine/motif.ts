@@ -3,7 +3,9 @@
  * path data with bbox and area — and nothing else. Only geometry survives: script, foreignObject,
  * event attributes, external references, images, text, styles… are dropped (and reported);
  * a DOCTYPE or ENTITY declaration refuses the file outright (OWASP ASVS 1.5.1, 1.3.4), as do
- * files over the size or element caps (ASVS 5.2.1). Serve motifs only through `renderMotifSvg`,
+ * files over the size, element, depth, path-command or coordinate caps of limits.ts (ASVS 5.2.1).
+ * Coordinates are checked after every transform, so `scale(1e12)` is refused like a point at 1e12.
+ * Serve motifs only through `renderMotifSvg`,
  * which writes back just the path elements we generate.
  *
  * Units: W3C CSS Values and Units, absolute lengths — 1in = 96px = 25.4mm. A bare number is px.
@@ -11,12 +13,27 @@
 import svgpath from 'svgpath';
 import { XMLParser, XMLValidator } from 'fast-xml-parser';
 import { cssLengthToMm, MM_PER_CSS_PX } from '../units.ts';
-import { flattenPath, fromSvgPath, pathBBox, polygonsToPath, formatPath, parsePathData, type BBox, type Path, type Polygon } from './path.ts';
+import { checkPathBounds, flattenPath, fromSvgPath, pathBBox, polygonsToPath, formatPath, parsePathData, type BBox, type Path, type Polygon } from './path.ts';
 import { unionRegions, regionsToPolygons, regionsArea, type FillRule } from './geometry.ts';
+import {
+  LimitError, MOTIF_MAX_BYTES, MOTIF_MAX_DEPTH, MOTIF_MAX_ELEMENTS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_CHARS, MOTIF_MAX_PATH_COMMANDS, MOTIF_MAX_SIDE_MM,
+} from './limits.ts';
 
-export const MOTIF_LIMITS = Object.freeze({ maxBytes: 512 * 1024, maxElements: 5000, maxDepth: 48, maxLayers: 12 });
+/** The motif caps of limits.ts, by short name (a test may pass lower ones to parseMotifSvg). */
+export const MOTIF_LIMITS = Object.freeze({
+  maxBytes: MOTIF_MAX_BYTES,
+  maxElements: MOTIF_MAX_ELEMENTS,
+  maxDepth: MOTIF_MAX_DEPTH,
+  maxLayers: MOTIF_MAX_LAYERS,
+  maxPathCommands: MOTIF_MAX_PATH_COMMANDS,
+});
 
-export type MotifErrorCode = 'too_large' | 'too_many_elements' | 'too_deep' | 'doctype_refused' | 'malformed' | 'not_svg' | 'bad_size' | 'no_geometry' | 'too_many_layers';
+export type MotifErrorCode =
+  | 'too_large' | 'too_many_elements' | 'too_deep' | 'doctype_refused' | 'malformed' | 'not_svg' | 'bad_size' | 'no_geometry'
+  | 'too_many_layers' | 'too_many_commands' | 'out_of_range' | 'too_complex';
+
+/** Codes for a file refused because it crosses one of the limits (not because it is broken). */
+export const MOTIF_LIMIT_CODES: ReadonlySet<MotifErrorCode> = new Set(['too_large', 'too_many_elements', 'too_deep', 'too_many_layers', 'too_many_commands', 'out_of_range', 'too_complex']);
 
 export class MotifError extends Error {
   constructor(public readonly code: MotifErrorCode, message: string) {
@@ -164,8 +181,42 @@ function attrsOf(node: XNode): Record<string, string> {
   return out;
 }
 
+/**
+ * Deepest element nesting, found by a linear scan of the tags (comments, CDATA and processing
+ * instructions skipped) before the XML parser builds anything: a file nested thousands deep is
+ * refused without recursing into it.
+ */
+function nestingDepth(svg: string, stopAbove: number): number {
+  const text = svg.replace(/<!--[\s\S]*?-->|<!\[CDATA\[[\s\S]*?\]\]>|<\?[\s\S]*?\?>/g, '');
+  let depth = 0, max = 0;
+  for (const m of text.matchAll(/<(\/?)[A-Za-z][^>]*?(\/?)>/g)) {
+    if (m[1]) depth--;
+    else if (!m[2]) {
+      depth++;
+      if (depth > max) max = depth;
+      if (max > stopAbove) return max;
+    }
+  }
+  return max;
+}
+
 /** Parses and sanitises a motif SVG. Throws MotifError when the file is refused. */
 export function parseMotifSvg(svg: string, limits: Partial<typeof MOTIF_LIMITS> = {}): MotifGeometry {
+  try {
+    return parseMotif(svg, { ...MOTIF_LIMITS, ...limits });
+  } catch (e) {
+    // a bound crossed deep in the geometry (flattening) is a refusal like any other
+    if (e instanceof LimitError) throw new MotifError(e.limit === 'MAX_COORDINATE_MM' ? 'out_of_range' : 'too_complex', `The motif is refused: ${e.message}`);
+    throw e;
+  }
+}
+
+/**
+ * The checks that need no parsing — byte size, DOCTYPE/ENTITY, element count, nesting depth — in
+ * one linear pass over the text. The server runs them on the request thread before it hands the
+ * file to a worker; parseMotifSvg runs them again first.
+ */
+export function checkMotifBounds(svg: string, limits: Partial<typeof MOTIF_LIMITS> = {}): void {
   const lim = { ...MOTIF_LIMITS, ...limits };
   if (typeof svg !== 'string') throw new MotifError('malformed', 'The motif must be SVG text.');
   if (new TextEncoder().encode(svg).byteLength > lim.maxBytes) throw new MotifError('too_large', `The motif file is larger than ${Math.round(lim.maxBytes / 1024)} KB.`);
@@ -173,6 +224,12 @@ export function parseMotifSvg(svg: string, limits: Partial<typeof MOTIF_LIMITS> 
   if (/<!DOCTYPE|<!ENTITY|<!ELEMENT|<!ATTLIST/i.test(svg)) throw new MotifError('doctype_refused', 'The motif has a DOCTYPE or ENTITY declaration; save it as plain SVG without one.');
   const tagCount = (svg.match(/<[A-Za-z]/g) ?? []).length;
   if (tagCount > lim.maxElements) throw new MotifError('too_many_elements', `The motif has more than ${lim.maxElements} elements.`);
+  // the root <svg> is depth 1 and its children depth 2; maxDepth counts the groups around an element
+  if (nestingDepth(svg, lim.maxDepth + 2) > lim.maxDepth + 2) throw new MotifError('too_deep', `The motif nests groups more than ${lim.maxDepth} deep.`);
+}
+
+function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
+  checkMotifBounds(svg, lim);
   const valid = XMLValidator.validate(svg, { allowBooleanAttributes: true });
   if (valid !== true) throw new MotifError('malformed', `The motif is not well-formed SVG (line ${valid.err.line}: ${valid.err.msg}).`);
 
@@ -203,8 +260,11 @@ export function parseMotifSvg(svg: string, limits: Partial<typeof MOTIF_LIMITS> 
     else if (wMm === null) wMm = (hMm! * vb[2]) / vb[3];
     else if (hMm === null) hMm = (wMm * vb[3]) / vb[2];
   }
-  if (wMm === null || hMm === null || !(wMm > 0 && hMm > 0) || wMm > 5000 || hMm > 5000) {
+  if (wMm === null || hMm === null || !(wMm > 0 && hMm > 0)) {
     throw new MotifError('bad_size', 'The motif needs a viewBox or an absolute width and height (mm, cm, in, pt or px).');
+  }
+  if (wMm > MOTIF_MAX_SIDE_MM || hMm > MOTIF_MAX_SIDE_MM) {
+    throw new MotifError('bad_size', `The motif's canvas is larger than the ${MOTIF_MAX_SIDE_MM} mm limit on each side.`);
   }
   // user units → mm (preserveAspectRatio: xMidYMid meet by default, or none)
   let sx: number, sy: number, tx = 0, ty = 0;
@@ -231,6 +291,7 @@ export function parseMotifSvg(svg: string, limits: Partial<typeof MOTIF_LIMITS> 
   };
   const layers = new Map<string, LayerAcc>();
   let elements = 0;
+  let commands = 0;
 
   const walk = (children: XNode[], ctx: Ctx) => {
     for (const node of children) {
@@ -290,9 +351,14 @@ export function parseMotifSvg(svg: string, limits: Partial<typeof MOTIF_LIMITS> 
         layers.set(key, acc);
       }
       let sp = svgpath(d);
+      // counted before any transform or flattening work: the file's segments, implicit repeats expanded
+      commands += (sp as unknown as { segments: unknown[] }).segments.length;
+      if (commands > lim.maxPathCommands) throw new MotifError('too_many_commands', `The motif has more than ${lim.maxPathCommands.toLocaleString('en')} path commands.`);
       if (next.transform.trim()) sp = sp.transform(next.transform.trim());
       sp = sp.scale(sx, sy).translate(tx, ty);
       const path = fromSvgPath(sp);
+      // every point where it lands in mm, after the element's and its groups' transforms
+      checkPathBounds(path, 'A point of the motif');
       if (isLine) acc.lines.push(path);
       else {
         // Each shape fills by its own rule; uniting it first makes the layer a plain nonzero fill.
@@ -308,7 +374,10 @@ export function parseMotifSvg(svg: string, limits: Partial<typeof MOTIF_LIMITS> 
     const regions = unionRegions(acc.polys, 'nonzero');
     const p: Path = [...polygonsToPath(regionsToPolygons(regions)), ...acc.lines.flat()];
     if (p.length === 0) continue;
-    out.push({ id: acc.id, colour: acc.colour, path: formatPath(p), bboxMm: pathBBox(p), areaMm2: regionsArea(regions) });
+    const d = formatPath(p);
+    // what compose() will be handed later: refused now rather than stored and unusable
+    if (d.length > MOTIF_MAX_PATH_CHARS) throw new MotifError('too_complex', `The motif's layer "${acc.id}" is too detailed: its outline is longer than the ${MOTIF_MAX_PATH_CHARS.toLocaleString('en')}-character limit. Simplify the artwork.`);
+    out.push({ id: acc.id, colour: acc.colour, path: d, bboxMm: pathBBox(p), areaMm2: regionsArea(regions) });
   }
   if (out.length === 0) throw new MotifError('no_geometry', 'The motif has no filled shapes to cut.');
   return { widthMm: wMm, heightMm: hMm, layers: out, dropped: [...dropped.values()] };

@@ -4,6 +4,7 @@
  * into cubics by svgpath's `unarc`). Pure functions, no I/O.
  */
 import svgpath from 'svgpath';
+import { LimitError, MAX_COORDINATE_MM, MAX_FLATTENED_POINTS, MAX_SEGMENTS_PER_CURVE, checkCoordinate } from './limits.ts';
 
 export type Segment =
   | { t: 'L'; x: number; y: number }
@@ -241,17 +242,58 @@ export function pathArea(path: Path): number {
 
 // ---- flattening (Wang's formula for the number of chords per curve) ----
 
-/** Flattens each subpath into a closed polygon; `tolMm` is the largest distance from the true curve. */
+/** Every coordinate of a path is finite and within ±MAX_COORDINATE_MM; throws LimitError otherwise. */
+export function checkPathBounds(path: Path, what = 'A point of the path'): void {
+  const M = MAX_COORDINATE_MM;
+  const bad = (v: number) => !(v <= M && v >= -M); // NaN fails too
+  for (const sp of path) {
+    if (bad(sp.x0)) checkCoordinate(sp.x0, what);
+    if (bad(sp.y0)) checkCoordinate(sp.y0, what);
+    for (const s of sp.segs) {
+      if (bad(s.x)) checkCoordinate(s.x, what);
+      if (bad(s.y)) checkCoordinate(s.y, what);
+      if (s.t !== 'L') {
+        if (bad(s.x1)) checkCoordinate(s.x1, what);
+        if (bad(s.y1)) checkCoordinate(s.y1, what);
+        if (s.t === 'C') {
+          if (bad(s.x2)) checkCoordinate(s.x2, what);
+          if (bad(s.y2)) checkCoordinate(s.y2, what);
+        }
+      }
+    }
+  }
+}
+
+/** Number of segments in a path (each line or curve). */
+export const segmentCount = (path: Path): number => path.reduce((n, sp) => n + sp.segs.length, 0);
+
+/**
+ * Flattens each subpath into a closed polygon; `tolMm` is the largest distance from the true curve.
+ * Bounded (shared/engine/limits.ts): every coordinate within ±MAX_COORDINATE_MM, at most
+ * MAX_SEGMENTS_PER_CURVE chords per curve and MAX_FLATTENED_POINTS points in all, else LimitError.
+ */
 export function flattenPath(path: Path, tolMm = 0.01): Polygon[] {
+  checkPathBounds(path);
+  if (!(tolMm > 0)) throw new RangeError('The flattening tolerance must be positive.');
+  const chords = (k: number, m: number) => Math.min(MAX_SEGMENTS_PER_CURVE, Math.max(1, Math.ceil(Math.sqrt((k * m) / tolMm))));
   const polys: Polygon[] = [];
+  let budget = MAX_FLATTENED_POINTS;
+  const spend = (n: number) => {
+    budget -= n;
+    if (budget < 0) throw new LimitError('MAX_FLATTENED_POINTS', `The shape is too detailed: flattening it takes more than ${MAX_FLATTENED_POINTS.toLocaleString('en')} points.`);
+  };
   for (const sp of path) {
     const pts: number[] = [sp.x0, sp.y0];
     let px = sp.x0, py = sp.y0;
+    spend(1);
     for (const s of sp.segs) {
-      if (s.t === 'L') pts.push(s.x, s.y);
-      else if (s.t === 'Q') {
+      if (s.t === 'L') {
+        spend(1);
+        pts.push(s.x, s.y);
+      } else if (s.t === 'Q') {
         const m = Math.hypot(px - 2 * s.x1 + s.x, py - 2 * s.y1 + s.y);
-        const n = Math.max(1, Math.ceil(Math.sqrt((0.25 * m) / tolMm)));
+        const n = chords(0.25, m);
+        spend(n);
         for (let i = 1; i <= n; i++) {
           const t = i / n, u = 1 - t;
           pts.push(u * u * px + 2 * u * t * s.x1 + t * t * s.x, u * u * py + 2 * u * t * s.y1 + t * t * s.y);
@@ -261,7 +303,8 @@ export function flattenPath(path: Path, tolMm = 0.01): Polygon[] {
           Math.hypot(px - 2 * s.x1 + s.x2, py - 2 * s.y1 + s.y2),
           Math.hypot(s.x1 - 2 * s.x2 + s.x, s.y1 - 2 * s.y2 + s.y),
         );
-        const n = Math.max(1, Math.ceil(Math.sqrt((0.75 * m) / tolMm)));
+        const n = chords(0.75, m);
+        spend(n);
         for (let i = 1; i <= n; i++) {
           const t = i / n;
           pts.push(cubicAt(px, s.x1, s.x2, s.x, t), cubicAt(py, s.y1, s.y2, s.y, t));

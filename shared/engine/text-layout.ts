@@ -8,6 +8,7 @@
 import type { FontRegistry, LoadedFont } from './fonts.ts';
 import { shapeText } from './shaping.ts';
 import type { BBox } from './path.ts';
+import { LimitError, MAX_LETTER_HEIGHT_MM, MAX_TEXT_CHARS } from './limits.ts';
 
 export interface LayoutTextInput {
   text: string;
@@ -190,6 +191,10 @@ export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { ca
   const tracking = input.trackingMm ?? 0;
   const h = input.letterHeightMm;
   if (!(h > 0) || !Number.isFinite(h)) throw new RangeError('letterHeightMm must be a positive number.');
+  if (h > MAX_LETTER_HEIGHT_MM) throw new LimitError('MAX_LETTER_HEIGHT_MM', `The letter height is over the ${MAX_LETTER_HEIGHT_MM} mm limit.`);
+  if (!Number.isFinite(tracking)) throw new RangeError('trackingMm must be a finite number.');
+  // length in code points, counted without building an array for a huge string
+  if (text.length > MAX_TEXT_CHARS * 2 || [...text].length > MAX_TEXT_CHARS) throw new LimitError('MAX_TEXT_CHARS', `The text is longer than the ${MAX_TEXT_CHARS}-character limit.`);
   const c = cachesFor(f);
   const key = `${h}|${tracking}|${text}`;
   const useCache = opts.cache !== false;

@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import { FONT_IDS } from '../engine/font-catalog.ts';
 
-/** Most characters a text field accepts over the API (code points, after NFC). */
-export const MAX_TEXT_CHARS = 60;
-export const MIN_LETTER_HEIGHT_MM = 5;
-export const MAX_LETTER_HEIGHT_MM = 300;
+import { MAX_LETTER_HEIGHT_MM, MAX_TEXT_CHARS, MIN_LETTER_HEIGHT_MM } from '../engine/limits.ts';
+
+/** Most characters a text field accepts over the API (code points, after NFC), and the letter heights. */
+export { MAX_LETTER_HEIGHT_MM, MAX_TEXT_CHARS, MIN_LETTER_HEIGHT_MM };
 
 export const fontIdSchema = z.enum(FONT_IDS, { error: 'Choose one of the fonts offered.' });
 

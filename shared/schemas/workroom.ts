@@ -9,6 +9,7 @@ import type { LineSnapshot } from './cart.ts';
 import type { ShipTo } from './checkout.ts';
 import type { PressCard } from '../engine/press-card.ts';
 import { pageQuery, type Page } from './pagination.ts';
+import { MAX_CUT_SHEET_LINES } from '../engine/limits.ts';
 
 export { LINE_STATES, type LineState };
 
@@ -18,7 +19,7 @@ export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', '
 const id = z.string().trim().min(1).max(64);
 export const idParams = z.object({ id });
 export const lineIdsSchema = z.object({
-  lineIds: z.array(id, { error: 'Choose at least one line.' }).min(1, 'Choose at least one line.').max(500, 'At most 500 lines at once.')
+  lineIds: z.array(id, { error: 'Choose at least one line.' }).min(1, 'Choose at least one line.').max(MAX_CUT_SHEET_LINES, `At most ${MAX_CUT_SHEET_LINES} lines at once.`)
     .transform((ids) => [...new Set(ids)]),
 });
 export type LineIdsInput = z.input<typeof lineIdsSchema>;

@@ -9,7 +9,7 @@ import { eq } from 'drizzle-orm';
 import { loadEnv } from '../../server/env.ts';
 import { openDb } from '../../server/db/client.ts';
 import { createMailer } from '../../server/integrations/mailer.ts';
-import { createApp } from '../../server/app.ts';
+import { createApp, type CreateAppInput } from '../../server/app.ts';
 import { shops, user } from '../../server/db/schema.ts';
 import { seedDemo } from '../../server/db/seed.ts';
 import { startMailFake } from '../../fakes/mail/server.ts';
@@ -19,7 +19,9 @@ import type { Role } from '../../shared/schemas/auth.ts';
 
 export const TEST_PASSWORD = 'correct-horse-battery';
 
-export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, string>; now?: () => number } = {}) {
+export async function makeTestApp(
+  opts: { seed?: boolean; env?: Record<string, string>; now?: () => number; app?: Pick<CreateAppInput, 'rateLimits' | 'taskTimeoutMs' | 'pool'> } = {},
+) {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-test-'));
   const mail = await startMailFake({ port: 0, dir: path.join(dataDir, 'mail') });
   // the demo orders are paid at a payment fake: one on a free port, unless the test names its own
@@ -36,7 +38,7 @@ export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, s
   });
   const { db, sqlite } = openDb(env.dbFile);
   const mailer = createMailer(env);
-  const app = createApp({ db, env, mailer, now: opts.now });
+  const app = createApp({ db, env, mailer, now: opts.now, ...opts.app });
   const deps = app.locals.deps;
   if (opts.seed) await seedDemo(deps);
 
@@ -78,6 +80,7 @@ export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, s
     signIn,
     mailTo: (to: string) => listMail(mail.dir, { to }),
     async close() {
+      await deps.pool.close();
       mailer.close();
       await mail.close();
       await fake?.close();

@@ -60,7 +60,7 @@ const MOTIF_BAD: Bad[] = [
   { label: 'nested entities (billion laughs)', file: () => Buffer.from(SVG('<text>&c;</text>', `<?xml version="1.0"?><!DOCTYPE svg [<!ENTITY a "${'x'.repeat(100)}"><!ENTITY b "&a;&a;&a;&a;&a;&a;&a;&a;&a;&a;"><!ENTITY c "&b;&b;&b;&b;&b;&b;&b;&b;&b;&b;">]>`)), status: 422, code: /^motif_/ },
   { label: 'a PNG', file: () => png(), status: 422, code: /^motif_/ },
   { label: 'a 600 kB file (over 512 kB)', file: () => Buffer.from(SVG(`<!--${'x'.repeat(600 * 1024)}-->`)), status: 413, code: /too_large/, message: /512 kB/ },
-  { label: '6,000 elements (element flood, under the byte cap)', file: () => Buffer.from(SVG('<g/>'.repeat(6_000))), status: 422, code: /^motif_/ },
+  { label: '6,000 elements (element flood, under the byte cap)', file: () => Buffer.from(SVG('<g/>'.repeat(6_000))), status: 400, code: /^motif_too_many_elements/, message: /5000 elements/ },
 ];
 
 const ROUTES: Array<{ route: string; send: (file: Buffer) => ReturnType<Agent['post']>; bad: Bad[] }> = [

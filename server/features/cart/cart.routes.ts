@@ -3,6 +3,7 @@ import type { AppDeps } from '../../app.ts';
 import { validate } from '../../http/validate.ts';
 import { addCartLineSchema, cartLineParams, updateCartLineSchema } from '../../../shared/schemas/cart.ts';
 import { cartRepo } from './cart.repo.ts';
+import { perAccountLimit } from '../../http/account-rate-limit.ts';
 import { addLine, cartView, removeLine, resolveCart, setQuantity } from './cart.service.ts';
 
 /** /api/cart — guests and signed-in shoppers alike. */
@@ -15,9 +16,9 @@ export function cartRouter(deps: AppDeps): Router {
   r.get('/', (req, res) => {
     res.json(cartView(deps.db, resolveCart(deps, req, res, { create: false })));
   });
-  r.post('/lines', validate({ body: addCartLineSchema }), (req, res) => {
+  r.post('/lines', perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'items added to the cart'), validate({ body: addCartLineSchema }), async (req, res) => {
     const cart = resolveCart(deps, req, res, { create: true })!;
-    addLine(deps, cart, req.body);
+    await addLine(deps, cart, req.body);
     res.status(201).json(cartView(deps.db, cartRepo.find(deps.db, cart.id) ?? null));
   });
   r.patch('/lines/:lineId', validate({ params: cartLineParams, body: updateCartLineSchema }), (req, res) => {

@@ -5,13 +5,12 @@ import type { Request, Response } from 'express';
 import type { AppDeps } from '../../app.ts';
 import type { Db } from '../../db/client.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
-import { getFontRegistry } from '../../integrations/fonts.ts';
 import type { AddCartLineInput, Cart, CartLine, CartShop, LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
 import type { MotifGeometry } from '../../../shared/engine/motif.ts';
 import { cartRepo, type CartRow } from './cart.repo.ts';
 import { clearCartCookie, readCartCookie, setCartCookie } from './cart-cookie.ts';
-import { buildSnapshot, readLiveContent, unitPrice, type LiveContent, type MaterialInfo, type MotifInfo } from './design.ts';
+import { buildSnapshotOffThread, readLiveContent, unitPrice, type LiveContent, type MaterialInfo, type MotifInfo } from './design.ts';
 
 export type CartDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
 
@@ -125,7 +124,7 @@ export function cartView(db: Db, cart: CartRow | null): Cart {
 }
 
 /** Adds one personalised item: choices checked against the live listing, composed, priced, frozen. */
-export function addLine(deps: CartDeps, cart: CartRow, raw: AddCartLineInput): void {
+export async function addLine(deps: CartDeps & Pick<AppDeps, 'pool'>, cart: CartRow, raw: AddCartLineInput): Promise<void> {
   const { db } = deps;
   const input = addCartLineSchema.parse(raw);
   const row = cartRepo.listingWithShop(db, input.listingId);
@@ -146,8 +145,9 @@ export function addLine(deps: CartDeps, cart: CartRow, raw: AddCartLineInput): v
     cartRepo.motifs(db, row.shop.id, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
   );
 
-  const snapshot = buildSnapshot({
-    registry: getFontRegistry(),
+  // composed in the worker pool: the request thread never runs the geometry
+  const snapshot = await buildSnapshotOffThread({
+    pool: deps.pool,
     listing: { id: row.listing.id, slug: row.listing.slug, shopId: row.shop.id, currency: row.listing.currency },
     content,
     choices: input.choices,

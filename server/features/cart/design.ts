@@ -2,12 +2,13 @@
 // keeps (title, personalisation in words, pieces for the preview, unit price). The mapping from the
 // listing's personalisation schema to the engine's field definitions is shared with the personaliser
 // (shared/engine/listing-design.ts); here the server adds validation, pricing and the snapshot.
-import { compose, ComposeError } from '../../../shared/engine/compose.ts';
+import { compose, ComposeError, type ComposedItem, type ComposeInput } from '../../../shared/engine/compose.ts';
 import { listingDesign, type DesignBlank, type DesignMaterial, type DesignMotif } from '../../../shared/engine/listing-design.ts';
 import type { FontRegistry } from '../../../shared/engine/fonts.ts';
 import { checkChoices, layersForChoices, priceForChoices, personalisationSchema, type Choices, type Personalisation } from '../../../shared/schemas/listing.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
+import type { WorkPool } from '../../workers/pool.ts';
 
 export type LiveContent = {
   title: string;
@@ -38,18 +39,38 @@ export function readLiveContent(live: unknown): LiveContent | null {
 /** Price of one item from the live listing and the choices (never from the client). */
 export const unitPrice = (content: LiveContent, choices: Choices) => priceForChoices(content, choices);
 
-/**
- * Validates the choices against the listing (shared checkChoices), composes the item with the
- * engine and returns the line's snapshot. Bad choices → 400 with field messages in the form's keys.
- */
-export function buildSnapshot(args: {
+type SnapshotArgs = {
   registry: FontRegistry;
   listing: { id: string; slug: string; shopId: string; currency: string };
   content: LiveContent;
   choices: Choices;
   materials: Map<string, MaterialInfo>;
   motifs: Map<string, MotifInfo>;
-}): LineSnapshot {
+};
+
+/**
+ * Validates the choices against the listing (shared checkChoices), composes the item with the
+ * engine and returns the line's snapshot. Bad choices → 400 with field messages in the form's keys.
+ * Composes in this thread (seeding, price checks); the cart uses buildSnapshotOffThread.
+ */
+export function buildSnapshot(args: SnapshotArgs): LineSnapshot {
+  const design = prepare(args);
+  return finish(args, design, composeHere(() => compose(args.registry, design.input)));
+}
+
+/** buildSnapshot with the composition done in the worker pool (plain data in, plain data out). */
+export async function buildSnapshotOffThread(args: Omit<SnapshotArgs, 'registry'> & { pool: WorkPool }): Promise<LineSnapshot> {
+  const design = prepare(args);
+  let composed: ComposedItem;
+  try {
+    composed = await args.pool.run({ kind: 'compose', input: design.input });
+  } catch (e) {
+    throw composeRefusal(e);
+  }
+  return finish(args, design, composed);
+}
+
+function prepare(args: Omit<SnapshotArgs, 'registry'>) {
   const { content, choices, materials, motifs } = args;
   const errs = checkChoices(content, choices);
   if (Object.keys(errs).length > 0) throw badRequest('Some of the personalisation needs attention.', prefix(errs));
@@ -68,14 +89,23 @@ export function buildSnapshot(args: {
   });
   const { summary, pieceMaterial } = design;
   if (!design.input) throw badRequest('Add a name or pick a motif first.', { choices: 'Add a name or pick a motif first.' });
+  return { summary, pieceMaterial, input: design.input as ComposeInput };
+}
 
-  let composed;
+const composeRefusal = (e: unknown): unknown =>
+  e instanceof ComposeError ? badRequest(e.message, { [`choices.texts.${e.fieldId}.text`]: e.message }) : e;
+
+function composeHere(fn: () => ComposedItem): ComposedItem {
   try {
-    composed = compose(args.registry, design.input);
+    return fn();
   } catch (e) {
-    if (e instanceof ComposeError) throw badRequest(e.message, { [`choices.texts.${e.fieldId}.text`]: e.message });
-    throw e;
+    throw composeRefusal(e);
   }
+}
+
+function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof prepare>, composed: ComposedItem): LineSnapshot {
+  const { content, choices } = args;
+  const { summary, pieceMaterial } = design;
   const missing = composed.warnings.filter((w) => w.code === 'missing_characters');
   if (missing.length > 0) {
     const fieldsOut: Record<string, string> = {};

@@ -10,7 +10,9 @@ import { validate } from '../../http/validate.ts';
 import { AppError, badRequest, notFound } from '../../http/app-error.ts';
 import { fontParamsSchema, layoutTextRequestSchema, type FontInfo, type LayoutTextRequest, type LayoutTextResponse } from '../../../shared/schemas/engine.ts';
 import { getFontFile, getFontRegistry, listFontFiles } from '../../integrations/fonts.ts';
-import { layoutText, LayoutError } from '../../../shared/engine/text-layout.ts';
+import { layoutText, LayoutError, type TextLayout } from '../../../shared/engine/text-layout.ts';
+import type { WorkPool } from '../../workers/pool.ts';
+import { createLayoutCache } from '../../workers/layout.ts';
 import { textWarnings, type TextWarning } from '../../../shared/engine/fit.ts';
 
 export interface EngineRouterOptions {
@@ -18,6 +20,8 @@ export interface EngineRouterOptions {
   layoutPerMinute?: number;
   /** Font list/file requests per minute per client (default 600). */
   fontsPerMinute?: number;
+  /** Where layouts that are not cached run (the app's worker pool); without it, in this thread. */
+  pool?: WorkPool;
 }
 
 const limiter = (limit: number) =>
@@ -43,10 +47,11 @@ export function fontList(): FontInfo[] {
   }));
 }
 
-export function layoutTextResponse(input: LayoutTextRequest): LayoutTextResponse {
+/** `l` is the layout when it was made elsewhere (the worker pool); by default it is made here. */
+export function layoutTextResponse(input: LayoutTextRequest, layout?: TextLayout): LayoutTextResponse {
   const reg = getFontRegistry();
   const font = reg.require(input.fontId);
-  const l = layoutText(reg, input);
+  const l = layout ?? layoutText(reg, input);
   const warnings: TextWarning[] = textWarnings(l.text);
   if (input.letterHeightMm < font.minLetterHeightMm) {
     warnings.push({
@@ -78,6 +83,7 @@ export function engineRouter(opts: EngineRouterOptions = {}): Router {
   const r = Router();
   const fontsLimit = limiter(opts.fontsPerMinute ?? 600);
   const layoutLimit = limiter(opts.layoutPerMinute ?? 240);
+  const layout = opts.pool ? createLayoutCache(opts.pool) : null;
 
   r.get('/fonts', fontsLimit, ((_req, res) => {
     res.set('Cache-Control', 'public, max-age=3600');
@@ -101,9 +107,10 @@ export function engineRouter(opts: EngineRouterOptions = {}): Router {
     res.send(Buffer.from(file.bytes.buffer, file.bytes.byteOffset, file.bytes.byteLength));
   }) satisfies RequestHandler);
 
-  r.post('/layout/text', layoutLimit, validate({ body: layoutTextRequestSchema }), ((req, res) => {
+  r.post('/layout/text', layoutLimit, validate({ body: layoutTextRequestSchema }), (async (req, res) => {
     try {
-      res.json(layoutTextResponse(req.body as LayoutTextRequest));
+      const input = req.body as LayoutTextRequest;
+      res.json(layoutTextResponse(input, layout ? await layout(input) : undefined));
     } catch (e) {
       if (e instanceof LayoutError) throw badRequest(e.message, { text: e.message });
       throw e;

@@ -6,11 +6,13 @@ import { badRequest } from '../../http/app-error.ts';
 import { createStorage, IMAGE_LIMITS, singleFile } from '../../integrations/storage.ts';
 import { shopSettingsSchema } from '../../../shared/schemas/shop.ts';
 import { replaceLogo, toOwnShop, updateSettings } from './shops.service.ts';
+import { perAccountLimit } from '../../http/account-rate-limit.ts';
 
 /** The seller's own shop: /api/shop. (The public page is the catalogue's GET /api/shops/:slug.) */
 export function shopsRouter(deps: AppDeps): Router {
   const r = Router();
-  const storage = createStorage(deps.env.uploadsDir);
+  // the logo is checked and re-encoded in the worker pool, like every uploaded image
+  const storage = createStorage(deps.env.uploadsDir, { process: (bytes) => deps.pool.run({ kind: 'image', bytes }) });
   r.use(requireRole('seller'));
   r.get('/', (req, res) => {
     res.json({ shop: toOwnShop(ownShop(deps.db, req)) });
@@ -18,7 +20,7 @@ export function shopsRouter(deps: AppDeps): Router {
   r.patch('/', validate({ body: shopSettingsSchema }), (req, res) => {
     res.json({ shop: updateSettings(deps, ownShop(deps.db, req), req.body) });
   });
-  r.post('/logo', (req, _res, next) => (ownShop(deps.db, req), next()), singleFile(IMAGE_LIMITS.maxBytes), async (req, res) => {
+  r.post('/logo', (req, _res, next) => (ownShop(deps.db, req), next()), perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads'), singleFile(IMAGE_LIMITS.maxBytes), async (req, res) => {
     if (!req.file) throw badRequest('Choose an image file.', { file: 'Choose an image file.' });
     res.json({ shop: await replaceLogo({ ...deps, storage }, currentUser(req), ownShop(deps.db, req), req.file.buffer) });
   });

@@ -8,6 +8,7 @@ import { badRequest } from '../../http/app-error.ts';
 import { createStorage, IMAGE_LIMITS, singleFile, uploadsRouter } from '../../integrations/storage.ts';
 import { shops } from '../../db/schema.ts';
 import { MOTIF_LIMITS } from '../../../shared/engine/motif.ts';
+import { perAccountLimit } from '../../http/account-rate-limit.ts';
 import * as svc from './uploads.service.ts';
 
 const idParams = z.object({ id: z.string().min(1).max(64) });
@@ -16,12 +17,15 @@ const motifName = z.object({ name: z.string({ error: 'Name the motif.' }).trim()
 
 /** Photo uploads (/api/uploads) and motif uploads (/api/motifs): multipart, one `file` per request. */
 export function uploadsApiRouter(deps: AppDeps): { uploads: Router; motifs: Router; files: Router } {
-  const storage = createStorage(deps.env.uploadsDir);
+  // images are checked and re-encoded in the worker pool, never on the request thread
+  const storage = createStorage(deps.env.uploadsDir, { process: (bytes) => deps.pool.run({ kind: 'image', bytes }) });
+  // one limiter for photos and motifs alike: an account's uploads per minute
+  const uploadLimit = perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads');
 
   const up = Router();
   up.use(requireRole('seller'));
   // the shop is checked before multer reads a byte, so a user without a shop uploads nothing
-  up.post('/', (req, _res, next) => (ownShop(deps.db, req), next()), singleFile(IMAGE_LIMITS.maxBytes), async (req, res) => {
+  up.post('/', (req, _res, next) => (ownShop(deps.db, req), next()), uploadLimit, singleFile(IMAGE_LIMITS.maxBytes), async (req, res) => {
     const { kind } = photoKind.parse(req.body ?? {});
     if (!req.file) throw badRequest('Choose an image file.', { file: 'Choose an image file.' });
     res.status(201).json({ upload: await svc.savePhoto({ ...deps, storage }, currentUser(req), ownShop(deps.db, req).id, kind, req.file.buffer) });
@@ -43,10 +47,10 @@ export function uploadsApiRouter(deps: AppDeps): { uploads: Router; motifs: Rout
     res.type('image/svg+xml').send(svg);
   });
   motifs.use(requireRole('seller'));
-  motifs.post('/', (req, _res, next) => (ownShop(deps.db, req), next()), singleFile(MOTIF_LIMITS.maxBytes), (req, res) => {
+  motifs.post('/', (req, _res, next) => (ownShop(deps.db, req), next()), uploadLimit, singleFile(MOTIF_LIMITS.maxBytes), async (req, res) => {
     const { name } = motifName.parse(req.body ?? {});
     if (!req.file) throw badRequest('Choose an SVG file.', { file: 'Choose an SVG file.' });
-    res.status(201).json(svc.saveMotif(deps, ownShop(deps.db, req).id, name, req.file.buffer));
+    res.status(201).json(await svc.saveMotif(deps, ownShop(deps.db, req).id, name, req.file.buffer));
   });
   motifs.get('/', (req, res) => {
     res.json({ motifs: svc.listOwnMotifs(deps.db, ownShop(deps.db, req).id) });

@@ -3,7 +3,8 @@ import type { Db } from '../../db/client.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
 import { uploadUrl, type Storage } from '../../integrations/storage.ts';
-import { MotifError, parseMotifSvg, renderMotifSvg, type MotifGeometry } from '../../../shared/engine/motif.ts';
+import { checkMotifBounds, MOTIF_LIMIT_CODES, MotifError, renderMotifSvg, type MotifGeometry } from '../../../shared/engine/motif.ts';
+import type { WorkPool } from '../../workers/pool.ts';
 import {
   deleteMotif, deleteUpload, findMotif, findMotifAnyShop, findUpload, insertMotif, insertUpload, listingsMentioning,
   listMotifs, listUploads, motifOnSale, type MotifRow, type UploadRow,
@@ -58,14 +59,27 @@ export function toMotif(m: MotifRow): MotifView {
   };
 }
 
-/** Sanitises an uploaded motif through the engine; only the normalised geometry is stored. */
-export function saveMotif(deps: { db: Db; now: () => number }, shopId: string, name: string, bytes: Buffer) {
+/**
+ * A refused motif → our error shape: over the byte cap 413; over another limit (limits.ts) 400,
+ * the message naming the limit; a broken or unusable file 422.
+ */
+function motifRefusal(e: MotifError): AppError {
+  const status = e.code === 'too_large' ? 413 : MOTIF_LIMIT_CODES.has(e.code) ? 400 : 422;
+  return new AppError(status, `motif_${e.code}`, e.message, { file: e.message });
+}
+
+/**
+ * Sanitises an uploaded motif through the engine, in the worker pool; only the normalised geometry
+ * is stored. The bounds that need no parsing are checked here first, before any work is queued.
+ */
+export async function saveMotif(deps: { db: Db; now: () => number; pool: WorkPool }, shopId: string, name: string, bytes: Buffer) {
   let geometry: MotifGeometry;
   const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
   try {
-    geometry = parseMotifSvg(text);
+    checkMotifBounds(text);
+    geometry = await deps.pool.run({ kind: 'motif', svg: text });
   } catch (e) {
-    if (e instanceof MotifError) throw new AppError(e.code === 'too_large' ? 413 : 422, `motif_${e.code}`, e.message, { file: e.message });
+    if (e instanceof MotifError) throw motifRefusal(e);
     throw e;
   }
   const { dropped, ...stored } = geometry;

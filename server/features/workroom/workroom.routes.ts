@@ -9,6 +9,7 @@ import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import * as svc from './workroom.service.ts';
 import { createWorksheetJobs } from './worksheet-jobs.ts';
 import { personalisationForEdit, savePersonalisation } from './proof-edit.service.ts';
+import { perAccountLimit } from '../../http/account-rate-limit.ts';
 
 /**
  * /api/workroom — the signed-in seller's production desk. Every route is seller-only and scoped by
@@ -16,7 +17,7 @@ import { personalisationForEdit, savePersonalisation } from './proof-edit.servic
  */
 export function workroomRouter(deps: AppDeps): Router {
   const r = Router();
-  const jobs = createWorksheetJobs(deps.now);
+  const jobs = createWorksheetJobs(deps.pool, deps.now);
   const shopId = (req: Parameters<typeof ownShop>[1]) => ownShop(deps.db, req).id;
   const id = (req: { params: Record<string, unknown> }) => String(req.params.id);
   r.use(requireRole('seller'));
@@ -63,8 +64,8 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // cut sheets
-  r.post('/cut-sheets', validate({ body: lineIdsSchema }), (req, res) => {
-    res.status(201).json(svc.buildCutSheets(deps, shopId(req), req.body.lineIds));
+  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: lineIdsSchema }), async (req, res) => {
+    res.status(201).json(await svc.buildCutSheets(deps, shopId(req), req.body.lineIds));
   });
   r.get('/batches', (req, res) => {
     res.json({ batches: svc.recentBatches(deps.db, shopId(req)) });
@@ -90,7 +91,7 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // work sheet PDF: start, poll, download
-  r.post('/batches/:id/worksheet', validate({ params: idParams, body: worksheetRequestSchema }), (req, res) => {
+  r.post('/batches/:id/worksheet', perAccountLimit(deps.rateLimits.pdfJobsPerMinute, 'work sheets'), validate({ params: idParams, body: worksheetRequestSchema }), (req, res) => {
     res.status(202).json({ job: jobs.start(deps.db, shopId(req), id(req), req.body.paper) });
   });
   r.get('/worksheets/:id', validate({ params: idParams }), (req, res) => {

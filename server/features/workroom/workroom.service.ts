@@ -20,12 +20,14 @@ import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagi
 import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
 import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
-import { CutSheetError, nestCutSheets, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM, type CutSheet, type NestPiece } from '../../../shared/engine/cut-sheets.ts';
+import { CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM, type CutSheet, type NestPiece } from '../../../shared/engine/cut-sheets.ts';
 import { cutOutline } from '../../../shared/engine/cut-path.ts';
 import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
 import { pressCard, type PressType } from '../../../shared/engine/press-card.ts';
 import { MATERIAL_KINDS, type MaterialKind } from '../../../shared/engine/press-defaults.ts';
 import { TRIM_ALLOWANCE_MM } from './worksheet-pdf.ts';
+import { MAX_NEST_PIECES } from '../../../shared/engine/limits.ts';
+import type { RawPiece } from '../../workers/tasks.ts';
 import { changeRequestMail, shippedMail } from './workroom-mails.ts';
 import { workroomRepo as repo, type LineRow, type MaterialRow, type OrderRow, type SheetRow } from './workroom.repo.ts';
 
@@ -364,7 +366,7 @@ export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string
  * roll width), 6 mm gap and margins, rotation allowed (shared/engine/cut-sheets.ts). A line with
  * quantity n gives its pieces n times. All sheets of one call share a batch id.
  */
-export function buildCutSheets(deps: WorkroomDeps, shopId: string, lineIds: string[]): { batchId: string; sheets: WorkSheet[] } {
+export async function buildCutSheets(deps: WorkroomDeps & Pick<AppDeps, 'pool'>, shopId: string, lineIds: string[]): Promise<{ batchId: string; sheets: WorkSheet[] }> {
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
@@ -374,18 +376,16 @@ export function buildCutSheets(deps: WorkroomDeps, shopId: string, lineIds: stri
       Object.fromEntries(wrong.map((r) => [`lineIds.${r.line.id}`, r.line.state])));
   }
   const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
-  const groups = new Map<string, { material: MaterialRow; pieces: Array<NestPiece & { path: string }> }>();
+  const groups = new Map<string, { material: MaterialRow; pieces: RawPiece[] }>();
+  let pieceCount = 0;
   for (const { line, order } of rows) {
     const s = snap(line);
+    pieceCount += line.quantity * s.geometry.pieces.length;
+    if (pieceCount > MAX_NEST_PIECES) throw new AppError(400, 'limit_exceeded', `These lines make more than ${MAX_NEST_PIECES.toLocaleString('en')} pieces, the most one cut-sheet build nests. Choose fewer lines.`);
     for (let unit = 0; unit < line.quantity; unit++) {
       s.geometry.pieces.forEach((pc, i) => {
         const m = pc.materialId ? mats.get(pc.materialId) : undefined;
         if (!m) throw conflict(`Order ${order.number}: a piece's material is no longer in your materials. Add it back, or refund the line.`);
-        const path = parsePathData(pc.d);
-        const bb = pathBBox(path);
-        const w = bb.maxX - bb.minX;
-        const h = bb.maxY - bb.minY;
-        if (!(w > 0 && h > 0)) return; // an empty piece cuts nothing
         let g = groups.get(m.id);
         if (!g) groups.set(m.id, (g = { material: m, pieces: [] }));
         g.pieces.push({
@@ -393,26 +393,27 @@ export function buildCutSheets(deps: WorkroomDeps, shopId: string, lineIds: stri
           lineId: line.id,
           orderNumber: line.quantity > 1 ? `${order.number}·${unit + 1}` : order.number,
           layerId: `piece-${i + 1}`,
-          // a hair over the outline's bbox so float noise never makes the path larger than its slot
-          widthMm: r3(w) + 0.002,
-          heightMm: r3(h) + 0.002,
-          areaMm2: pathArea(path),
           path: pc.d,
         });
       });
+    }
+  }
+  // measuring and nesting run in the worker pool (server/workers/tasks.ts measureAndNest), one
+  // material at a time; an empty piece cuts nothing and is left out there
+  const nestedByMaterial = new Map<string, CutSheet[]>();
+  for (const g of groups.values()) {
+    try {
+      nestedByMaterial.set(g.material.id, await deps.pool.run({ kind: 'nest', rollWidthMm: g.material.rollWidthMm, pieces: g.pieces }));
+    } catch (e) {
+      if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
+      throw e;
     }
   }
   const batchId = crypto.randomUUID();
   const at = deps.now();
   const made: SheetRow[] = [];
   for (const g of groups.values()) {
-    let nested: CutSheet[];
-    try {
-      nested = nestCutSheets({ rollWidthMm: g.material.rollWidthMm, pieces: g.pieces.map(({ path, ...p }) => ({ ...p, path })) });
-    } catch (e) {
-      if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
-      throw e;
-    }
+    const nested = nestedByMaterial.get(g.material.id)!;
     const paths = new Map(g.pieces.map((p) => [p.id, p.path]));
     for (const n of nested) {
       const row = {

@@ -3,10 +3,12 @@
 // in memory for 15 minutes; each belongs to one shop and is "not found" for any other.
 import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
-import { notFound } from '../../http/app-error.ts';
+import { AppError, notFound } from '../../http/app-error.ts';
+import type { WorkPool } from '../../workers/pool.ts';
+import { MAX_WORKSHEET_PAGES } from '../../../shared/engine/limits.ts';
 import type { WorksheetJob } from '../../../shared/schemas/workroom.ts';
 import { parseShipTo, shipToLines } from '../../../shared/schemas/checkout.ts';
-import { buildWorksheetPdf, worksheetPageCount, worksheetInputSchema, type Paper } from './worksheet-pdf.ts';
+import { worksheetPageCount, worksheetInputSchema, type Paper } from './worksheet-pdf.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { asCutSheet, lineSnapshot, lineText, pressCardFor } from './workroom.service.ts';
 
@@ -14,7 +16,8 @@ type Job = { id: string; shopId: string; batchId: string; paper: Paper; state: W
 
 const TTL_MS = 15 * 60_000;
 
-export function createWorksheetJobs(now: () => number = Date.now) {
+/** The PDFs are built in the worker pool (server/workers), with its time limit. */
+export function createWorksheetJobs(pool: WorkPool, now: () => number = Date.now) {
   const jobs = new Map<string, Job>();
   const sweep = () => {
     for (const [id, j] of jobs) if (now() - j.at > TTL_MS) jobs.delete(id);
@@ -65,9 +68,13 @@ export function createWorksheetJobs(now: () => number = Date.now) {
     start(db: Db, shopId: string, batchId: string, paper: Paper): WorksheetJob {
       sweep();
       const input = inputFor(db, shopId, batchId, paper);
-      const job: Job = { id: crypto.randomUUID(), shopId, batchId, paper, state: 'running', progress: 0, pages: worksheetPageCount(input), pdf: null, error: null, at: now() };
+      const pages = worksheetPageCount(input);
+      if (pages > MAX_WORKSHEET_PAGES) {
+        throw new AppError(400, 'limit_exceeded', `This work sheet would have ${pages} pages; the limit is ${MAX_WORKSHEET_PAGES}. Build cut sheets for fewer lines.`);
+      }
+      const job: Job = { id: crypto.randomUUID(), shopId, batchId, paper, state: 'running', progress: 0, pages, pdf: null, error: null, at: now() };
       jobs.set(job.id, job);
-      buildWorksheetPdf({ ...input, onProgress: (f) => (job.progress = f) })
+      pool.worksheet(input, (f) => (job.progress = f))
         .then((pdf) => {
           job.pdf = pdf;
           job.progress = 1;
@@ -76,7 +83,8 @@ export function createWorksheetJobs(now: () => number = Date.now) {
         .catch((e: unknown) => {
           console.error('workroom: work sheet PDF failed', e);
           job.state = 'failed';
-          job.error = 'The work sheet could not be built. Please try again.';
+          // a time limit or a bound says which; anything else is ours
+          job.error = e instanceof AppError ? e.message : 'The work sheet could not be built. Please try again.';
         });
       return view(job);
     },

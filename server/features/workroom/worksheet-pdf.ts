@@ -14,6 +14,7 @@ import type { CutSheet } from '../../../shared/engine/cut-sheets.ts';
 import type { PressCard } from '../../../shared/engine/press-card.ts';
 import { placedCutPath } from '../../../shared/engine/cut-sheet-svg.ts';
 import { formatPath } from '../../../shared/engine/path.ts';
+import { LimitError, MAX_WORKSHEET_PAGES } from '../../../shared/engine/limits.ts';
 import { codePoints, missingCharacters, PDF_FONT, registerPdfFonts } from './pdf-fonts.ts';
 
 const PT_PER_MM = 72 / MM_PER_IN;
@@ -304,6 +305,7 @@ export async function buildWorksheetPdf(input: WorksheetInput & { compress?: boo
   const { onProgress, compress, ...rest } = input;
   const inp = worksheetInputSchema.parse(rest);
   const total = worksheetPageCount(inp);
+  if (total > MAX_WORKSHEET_PAGES) throw new LimitError('MAX_WORKSHEET_PAGES', `The work sheet would have ${total} pages; the limit is ${MAX_WORKSHEET_PAGES}.`);
   const size = PAPER_PT[inp.paper];
   const doc = new PDFDocument({
     size: [size.width, size.height],

@@ -1,0 +1,117 @@
+/**
+ * The CPU-heavy work the server hands its worker pool (pool.ts), one function per task kind.
+ * Tasks are plain data in and plain data out (structured clone): no functions, no classes. An
+ * error the caller must tell apart (a refused motif, a text the font cannot set, a limit…) comes
+ * back as data in `error` and is rebuilt on the request thread by pool.ts.
+ */
+import type { MessagePort } from 'node:worker_threads';
+import { getFontRegistry } from '../integrations/fonts.ts';
+import { processImage, type ProcessedImage } from '../integrations/storage.ts';
+import { AppError } from '../http/app-error.ts';
+import { parseMotifSvg, MotifError, type MotifGeometry } from '../../shared/engine/motif.ts';
+import { layoutText, LayoutError, type LayoutTextInput, type TextLayout } from '../../shared/engine/text-layout.ts';
+import { compose, ComposeError, type ComposedItem, type ComposeInput } from '../../shared/engine/compose.ts';
+import { CutSheetError, nestCutSheets, type CutSheet, type NestPiece } from '../../shared/engine/cut-sheets.ts';
+import { parsePathData, pathArea, pathBBox } from '../../shared/engine/path.ts';
+import { LimitError } from '../../shared/engine/limits.ts';
+import { buildWorksheetPdf, type WorksheetInput } from '../features/workroom/worksheet-pdf.ts';
+
+/** A piece to nest as the workroom has it: its path data, not yet measured. */
+export type RawPiece = Omit<NestPiece, 'widthMm' | 'heightMm' | 'areaMm2'>;
+
+export type Task =
+  | { kind: 'motif'; svg: string }
+  | { kind: 'layout'; input: LayoutTextInput }
+  | { kind: 'compose'; input: ComposeInput }
+  | { kind: 'nest'; rollWidthMm: number; pieces: RawPiece[] }
+  | { kind: 'worksheet'; input: Omit<WorksheetInput, 'onProgress'>; progress?: MessagePort }
+  | { kind: 'image'; bytes: Uint8Array };
+
+export type TaskValue = {
+  motif: MotifGeometry;
+  layout: TextLayout;
+  compose: ComposedItem;
+  nest: CutSheet[];
+  worksheet: Uint8Array;
+  image: ProcessedImage;
+};
+export type TaskKind = Task['kind'];
+
+/** An error as data: its class name and the fields its class carries. */
+export type TaskError = { name: string; message: string; code?: string; status?: number; fields?: Record<string, string>; fieldId?: string; limit?: string };
+export type TaskResult<K extends TaskKind = TaskKind> = { ok: true; value: TaskValue[K] } | { ok: false; error: TaskError };
+
+const r3 = (v: number) => Math.round(v * 1000) / 1000;
+
+/** Measures each piece (an empty one cuts nothing and is left out) and nests them on the roll. */
+export function measureAndNest(rollWidthMm: number, raw: RawPiece[]): CutSheet[] {
+  const pieces: NestPiece[] = [];
+  for (const p of raw) {
+    const path = parsePathData(p.path);
+    const bb = pathBBox(path);
+    const w = bb.maxX - bb.minX;
+    const h = bb.maxY - bb.minY;
+    if (!(w > 0 && h > 0)) continue;
+    // a hair over the outline's bbox so float noise never makes the path larger than its slot
+    pieces.push({ ...p, widthMm: r3(w) + 0.002, heightMm: r3(h) + 0.002, areaMm2: pathArea(path) });
+  }
+  return nestCutSheets({ rollWidthMm, pieces });
+}
+
+async function perform(task: Task): Promise<TaskValue[TaskKind]> {
+  switch (task.kind) {
+    case 'motif':
+      return parseMotifSvg(task.svg);
+    case 'layout':
+      return layoutText(getFontRegistry(), task.input);
+    case 'compose':
+      return compose(getFontRegistry(), task.input);
+    case 'nest':
+      return measureAndNest(task.rollWidthMm, task.pieces);
+    case 'worksheet': {
+      const port = task.progress;
+      try {
+        return await buildWorksheetPdf({ ...task.input, onProgress: port ? (f) => port.postMessage(f) : undefined });
+      } finally {
+        port?.close();
+      }
+    }
+    case 'image':
+      return processImage(task.bytes);
+  }
+}
+
+function asData(e: unknown): TaskError {
+  if (!(e instanceof Error)) return { name: 'Error', message: String(e) };
+  const out: TaskError = { name: e.name, message: e.message };
+  if (e instanceof AppError) Object.assign(out, { status: e.status, code: e.code, fields: e.fields });
+  else if (e instanceof MotifError) out.code = e.code;
+  else if (e instanceof ComposeError) out.fieldId = e.fieldId;
+  else if (e instanceof CutSheetError) Object.assign(out, { code: e.code, fields: e.fields });
+  else if (e instanceof LimitError) out.limit = e.limit;
+  else if (e instanceof LayoutError) out.code = e.code;
+  else {
+    // an unexpected failure: logged here with its stack, reported by the request thread as a 500
+    console.error('worker task failed', e);
+    out.name = 'Error';
+  }
+  return out;
+}
+
+/** What the pool posts: the task, and a port on which the worker says when it starts on it. */
+export type TaskMessage = { task: Task; started?: MessagePort };
+
+/**
+ * What piscina calls (worker.mjs): tells the pool it has started (its time limit runs from here,
+ * not from when the task was queued or the thread was still loading), then works. Never throws for
+ * an expected refusal: that comes back as data.
+ */
+export async function runTask({ task, started }: TaskMessage): Promise<TaskResult> {
+  started?.postMessage('started');
+  started?.close();
+  try {
+    return { ok: true, value: await perform(task) };
+  } catch (e) {
+    return { ok: false, error: asData(e) };
+  }
+}
