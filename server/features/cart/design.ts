@@ -79,7 +79,7 @@ export function buildSnapshot(args: {
   const missing = composed.warnings.filter((w) => w.code === 'missing_characters');
   if (missing.length > 0) {
     const fieldsOut: Record<string, string> = {};
-    for (const w of missing) fieldsOut[`choices.texts.${w.fieldId}.text`] = `This font cannot draw ${(w.characters ?? []).map((ch) => `“${ch}”`).join(', ')}. Remove ${(w.characters ?? []).length > 1 ? 'them' : 'it'} or pick another font.`;
+    for (const w of missing) fieldsOut[`choices.texts.${w.fieldId}.text`] = w.message;
     throw new AppError(400, 'unsupported_characters', Object.values(fieldsOut)[0]!, fieldsOut);
   }
 

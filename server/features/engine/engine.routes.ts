@@ -11,7 +11,7 @@ import { AppError, badRequest, notFound } from '../../http/app-error.ts';
 import { fontParamsSchema, layoutTextRequestSchema, type FontInfo, type LayoutTextRequest, type LayoutTextResponse } from '../../../shared/schemas/engine.ts';
 import { getFontFile, getFontRegistry, listFontFiles } from '../../integrations/fonts.ts';
 import { layoutText, LayoutError } from '../../../shared/engine/text-layout.ts';
-import { textWarnings, type TextWarning } from '../../../shared/engine/fit.ts';
+import { layoutWarnings } from '../../../shared/engine/fit.ts';
 
 export interface EngineRouterOptions {
   /** Layout requests per minute per client (default 240). */
@@ -47,18 +47,7 @@ export function layoutTextResponse(input: LayoutTextRequest): LayoutTextResponse
   const reg = getFontRegistry();
   const font = reg.require(input.fontId);
   const l = layoutText(reg, input);
-  const warnings: TextWarning[] = textWarnings(l.text);
-  if (input.letterHeightMm < font.minLetterHeightMm) {
-    warnings.push({
-      code: 'below_min_letter_height',
-      message: `Letters under ${font.minLetterHeightMm} mm are hard to weed and read in this font.`,
-      letterHeightMm: input.letterHeightMm,
-      minLetterHeightMm: font.minLetterHeightMm,
-    });
-  }
-  if (l.missing.length) {
-    warnings.push({ code: 'missing_characters', message: `This font cannot draw: ${l.missing.join(' ')}.`, characters: [...l.missing] });
-  }
+  const warnings = layoutWarnings(l, { letterHeightMm: input.letterHeightMm, minLetterHeightMm: font.minLetterHeightMm });
   return {
     text: l.text,
     fontId: l.fontId,

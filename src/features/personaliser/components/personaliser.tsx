@@ -23,7 +23,7 @@ import { loadClientRegistry } from '../lib/font-registry.ts';
 import { placeDesign, type Placement } from '../lib/place.ts';
 import { loadChoices, saveChoices } from '../lib/saved-choices.ts';
 import { BlankPreview } from './blank-preview.tsx';
-import { FieldError, FontPicker, MotifPicker, SwatchPicker, nameChars } from './pickers.tsx';
+import { FieldError, FontPicker, MotifPicker, SwatchPicker } from './pickers.tsx';
 
 export type PersonaliserProps = {
   listing: ListingPage;
@@ -218,11 +218,7 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
                   <FieldError message={err} />
                   {warnings.map((w, i) => (
                     <p key={`${w.code}-${i}`} className={`rounded-lg border-l-4 px-3 py-2 text-sm ${w.code === 'missing_characters' || w.code === 'below_min_letter_height' || w.code === 'too_long' ? 'border-danger bg-danger-wash' : 'border-marigold bg-marigold-wash'}`} data-warning={w.code}>
-                      {w.code === 'missing_characters' && w.characters
-                        ? `This font can't draw ${nameChars(w.characters)}. Pick another font or change the text.`
-                        : w.code === 'too_long' && count <= f.maxLength
-                          ? 'This text is too long to fit at a readable size. Try a shorter text or a narrower font.'
-                          : w.message}
+                      {w.message}
                     </p>
                   ))}
                 </div>

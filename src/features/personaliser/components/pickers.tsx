@@ -28,8 +28,6 @@ export function missingIn(registry: FontRegistry | null, fontId: string, text: s
   return out;
 }
 
-export const codePoint = (ch: string) => `U+${ch.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`;
-export const nameChars = (chars: string[]) => chars.map((c) => `“${c}” (${codePoint(c)})`).join(', ');
 
 /** The typed name set in one font, from the engine's outlines (not a CSS font): the real geometry. */
 const FontSample = memo(function FontSample({ registry, fontId, text }: { registry: FontRegistry; fontId: string; text: string }) {
