@@ -13,7 +13,6 @@ import { getFontRegistry } from '../integrations/fonts.ts';
 import { buildSnapshot, readLiveContent, type MaterialInfo, type MotifInfo } from '../features/cart/design.ts';
 import type { ShipTo } from '../../shared/schemas/checkout.ts';
 import { createOrdersForCheckout, type PricedShop } from '../features/orders/orders.service.ts';
-import type { MotifGeometry } from '../../shared/engine/motif.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
 import { choicesSchema } from '../../shared/schemas/listing.ts';
 
@@ -58,7 +57,7 @@ export async function seedOrders(deps: AppDeps, ctx: SeedContext): Promise<void>
   const matByName = new Map(mats.map((m) => [m.colourName, m]));
   const matInfo = new Map<string, MaterialInfo>(mats.map((m) => [m.id, { id: m.id, kind: m.kind, colourName: m.colourName, colourHex: m.colourHex }]));
   const motifInfo = new Map<string, MotifInfo>(
-    db.select().from(motifs).where(eq(motifs.shopId, shopId)).all().map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
+    db.select().from(motifs).where(eq(motifs.shopId, shopId)).all().map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry }]),
   );
   const shopListings = db.select().from(listings).where(and(eq(listings.shopId, shopId), eq(listings.state, 'live'))).all();
   const mat = (name: string) => {
@@ -124,7 +123,7 @@ export async function seedOrders(deps: AppDeps, ctx: SeedContext): Promise<void>
       const made = t.select().from(orderLines).where(eq(orderLines.orderId, order!.id)).orderBy(orderLines.createdAt, orderLines.id).all();
       // lines are inserted in the priced order; match them by listing + text to be safe
       for (const line of made) {
-        const i = lines.findIndex((l, j) => approvedIdx[j] !== undefined && l.listingId === line.listingId && JSON.stringify(l.snapshot.choices) === JSON.stringify((line.snapshot as typeof l.snapshot).choices));
+        const i = lines.findIndex((l, j) => approvedIdx[j] !== undefined && l.listingId === line.listingId && JSON.stringify(l.snapshot.choices) === JSON.stringify(line.snapshot.choices));
         if (i < 0 || !approvedIdx[i]) continue;
         const at = paidAt + 6 * 3_600_000;
         t.update(orderLines).set({ state: 'approved', updatedAt: at }).where(eq(orderLines.id, line.id)).run();

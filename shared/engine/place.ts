@@ -14,7 +14,7 @@ import type { FontRegistry } from './fonts.ts';
 import { usableArea } from './blanks.ts';
 import { fitText, type TextWarning } from './fit.ts';
 import { LayoutError } from './text-layout.ts';
-import type { MotifGeometry } from './motif.ts';
+import type { StoredMotifGeometry } from './motif.ts';
 import { unionBBox, type BBox } from './path.ts';
 import type { Blank } from './blanks.ts';
 
@@ -39,7 +39,7 @@ export interface TextFieldDef {
 
 export interface MotifOption {
   id: string;
-  geometry: MotifGeometry;
+  geometry: StoredMotifGeometry;
   /** Material and colour per motif layer id; layers not listed use the field default and their own colour. */
   layers?: Record<string, { materialKind?: MaterialKind; colour?: string }>;
 }

@@ -113,6 +113,8 @@ export type WorkOrder = {
 };
 
 export type SheetPiece = { lineId: string; orderNumber: string; layerId: string; xMm: number; yMm: number; widthMm: number; heightMm: number; rotated: boolean };
+/** A nested piece as a cut sheet stores it: where it lies, which piece of the nest it is, its cut path. */
+export type StoredSheetPiece = SheetPiece & { pieceId: string; path: string };
 export type StockCheck = { stockMm: number; needMm: number; afterMm: number; low: boolean; short: boolean };
 export type WorkSheet = {
   id: string;

@@ -3,40 +3,28 @@
 // listing's personalisation schema to the engine's field definitions is shared with the personaliser
 // (shared/engine/listing-design.ts); here the server adds validation, pricing and the snapshot.
 import { compose, ComposeError } from '../../../shared/engine/compose.ts';
-import { listingDesign, type DesignBlank, type DesignMaterial, type DesignMotif } from '../../../shared/engine/listing-design.ts';
+import { listingDesign, type DesignMaterial, type DesignMotif } from '../../../shared/engine/listing-design.ts';
 import type { FontRegistry } from '../../../shared/engine/fonts.ts';
-import { checkChoices, layersForChoices, priceForChoices, personalisationSchema, type Choices, type Personalisation } from '../../../shared/schemas/listing.ts';
+import { checkChoices, layersForChoices, priceForChoices, personalisationSchema, type Choices, type ListingContent } from '../../../shared/schemas/listing.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
-
-export type LiveContent = {
-  title: string;
-  blank: DesignBlank;
-  basePriceMinor: number;
-  extraLayerPriceMinor: number;
-  personalisation: Personalisation;
-};
 
 export type MaterialInfo = DesignMaterial;
 export type MotifInfo = DesignMotif & { name: string };
 
-/** The live copy of a listing as stored (validated by the listing editor); re-read through the shared schema. */
-export function readLiveContent(live: unknown): LiveContent | null {
-  if (!live || typeof live !== 'object') return null;
-  const l = live as Record<string, unknown>;
-  const p = personalisationSchema.safeParse(l.personalisation);
-  if (!p.success || typeof l.title !== 'string' || typeof l.basePriceMinor !== 'number') return null;
-  return {
-    title: l.title,
-    blank: l.blank as LiveContent['blank'],
-    basePriceMinor: l.basePriceMinor,
-    extraLayerPriceMinor: typeof l.extraLayerPriceMinor === 'number' ? l.extraLayerPriceMinor : 0,
-    personalisation: p.data,
-  };
+/**
+ * The copy of a listing a shopper buys from, as stored (written through the editor's schema), or
+ * null when there is none or it is malformed; its personalisation is read through the shared schema
+ * again so older rows get today's defaults.
+ */
+export function readLiveContent(live: ListingContent | null | undefined): ListingContent | null {
+  if (!live || typeof live.title !== 'string' || typeof live.basePriceMinor !== 'number') return null;
+  const p = personalisationSchema.safeParse(live.personalisation);
+  return p.success ? { ...live, personalisation: p.data } : null;
 }
 
 /** Price of one item from the live listing and the choices (never from the client). */
-export const unitPrice = (content: LiveContent, choices: Choices) => priceForChoices(content, choices);
+export const unitPrice = (content: ListingContent, choices: Choices) => priceForChoices(content, choices);
 
 /**
  * Validates the choices against the listing (shared checkChoices), composes the item with the
@@ -45,7 +33,7 @@ export const unitPrice = (content: LiveContent, choices: Choices) => priceForCho
 export function buildSnapshot(args: {
   registry: FontRegistry;
   listing: { id: string; slug: string; shopId: string; currency: string };
-  content: LiveContent;
+  content: Pick<ListingContent, 'title' | 'blank' | 'basePriceMinor' | 'extraLayerPriceMinor' | 'personalisation'>;
   choices: Choices;
   materials: Map<string, MaterialInfo>;
   motifs: Map<string, MotifInfo>;

@@ -4,7 +4,7 @@ import type { Mailer } from '../../integrations/mailer.ts';
 import { escapeHtml, mailLayout } from '../../integrations/mailer.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
-import { liveColumns, type ListingContentParsed } from '../../../shared/schemas/listing.ts';
+import { liveColumns } from '../../../shared/schemas/listing.ts';
 import { MODERATION_SHOPS_PAGE_SIZE, type ModerationShopsPage } from '../../../shared/schemas/catalog.ts';
 import type { ShopState } from '../../../shared/schemas/shop.ts';
 import * as repo from './moderation.repo.ts';
@@ -37,10 +37,10 @@ export function queue(db: Db) {
       id: listing.id, slug: listing.slug, state: listing.state, pendingReview: listing.pendingReview,
       /** "new" waits for its first approval; "edit" is a change to a listing already on sale */
       kind: listing.live ? ('edit' as const) : ('new' as const),
-      title: (listing.draft as unknown as ListingContentParsed).title,
+      title: listing.draft.title,
       shop: { id: shop.id, name: shop.name, slug: shop.slug, state: shop.state },
-      draft: listing.draft as unknown as ListingContentParsed,
-      live: (listing.live as unknown as ListingContentParsed | null) ?? null,
+      draft: listing.draft,
+      live: listing.live,
       /** the listing page as a shopper would see it: GET this URL (admin only for drafts) */
       previewUrl: `/api/listings/${listing.slug}?version=draft`,
       submittedAt: listing.updatedAt,
@@ -71,7 +71,7 @@ function waiting(db: Db, id: string) {
 
 export async function approveListing(deps: Deps, actor: SessionUser, id: string) {
   const l = waiting(deps.db, id);
-  const content = l.draft as unknown as ListingContentParsed;
+  const content = l.draft;
   const at = deps.now();
   const row = deps.db.transaction((tx) => {
     const db = tx as unknown as Db;
@@ -92,7 +92,7 @@ export async function approveListing(deps: Deps, actor: SessionUser, id: string)
 
 export async function rejectListing(deps: Deps, actor: SessionUser, id: string, reason: string) {
   const l = waiting(deps.db, id);
-  const content = l.draft as unknown as ListingContentParsed;
+  const content = l.draft;
   const at = deps.now();
   // a rejected edit leaves the approved copy on sale; a new listing goes back to the seller
   const row = deps.db.transaction((tx) => {
@@ -149,7 +149,7 @@ export function auditLog(db: Db, page: number, pageSize = 50) {
   const listingIds = rows.filter((r) => r.entry.subjectType === 'listing').map((r) => r.entry.subjectId);
   const labels = new Map<string, string>([
     ...repo.shopNames(db, shopIds).map((s) => [s.id, s.name] as [string, string]),
-    ...repo.listingTitles(db, listingIds).map((l) => [l.id, (l.draft as unknown as ListingContentParsed).title] as [string, string]),
+    ...repo.listingTitles(db, listingIds).map((l) => [l.id, l.draft.title] as [string, string]),
   ]);
   return {
     items: rows.map(({ entry, actorName, actorEmail }) => ({

@@ -10,13 +10,12 @@ import type Stripe from 'stripe';
 import type { AppDeps } from '../../app.ts';
 import type { Db } from '../../db/client.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
 // payments drives orders and reads checkouts (one-way: neither imports payments)
-import { createOrdersForCheckout, type PricedShop } from '../orders/orders.service.ts';
+import { createOrdersForCheckout } from '../orders/orders.service.ts';
 import { ordersRepo } from '../orders/orders.repo.ts';
 import { confirmationMail, newOrderMail, type MailOrder } from '../orders/order-mails.ts';
-import { transferGroupOf, type PricedCheckout } from '../checkout/checkout.service.ts';
+import { transferGroupOf } from '../checkout/checkout.service.ts';
 import { paymentsRepo } from './payments.repo.ts';
 
 export type PaymentsDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'>;
@@ -35,7 +34,6 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       if (!paymentsRepo.recordEvent(t, event.id, event.type, at)) return false;
       const c = paymentsRepo.checkout(t, checkoutId);
       if (!c || session.payment_status !== 'paid') return true;
-      const priced = c.priced as PricedCheckout;
       if (session.amount_total !== c.totalMinor || (session.currency ?? '').toUpperCase() !== c.currency.toUpperCase()) {
         // never make orders for a payment that does not match what we asked for
         console.error(`payments: session ${session.id} paid ${session.amount_total} ${session.currency}, checkout ${c.id} expected ${c.totalMinor} ${c.currency}`);
@@ -47,7 +45,7 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
         checkoutId: c.id,
         buyerId: c.userId,
         currency: c.currency,
-        shops: priced.shops as PricedShop[],
+        shops: c.priced.shops,
         paidAt: at,
         feeBps: deps.env.PLATFORM_FEE_BPS,
         paymentIntentId: pi,
@@ -55,7 +53,7 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       });
       const shipTo = shipToOf(session);
       if (shipTo) paymentsRepo.setShipTo(t, c.id, shipTo);
-      paymentsRepo.removeCartLines(t, c.cartId, priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
+      paymentsRepo.removeCartLines(t, c.cartId, c.priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
       created = true;
       return true;
     });
@@ -158,7 +156,7 @@ async function sendOrderMails(deps: PaymentsDeps, checkoutId: string): Promise<v
     shippingMinor: o.shippingMinor,
     totalMinor: o.totalMinor,
     feeMinor: o.platformFeeMinor,
-    lines: lines.filter((l) => l.orderId === o.id).map((l) => ({ title: l.listingTitle, quantity: l.quantity, totalMinor: l.totalMinor, snapshot: l.snapshot as LineSnapshot })),
+    lines: lines.filter((l) => l.orderId === o.id).map((l) => ({ title: l.listingTitle, quantity: l.quantity, totalMinor: l.totalMinor, snapshot: l.snapshot })),
   }));
   const sends: Promise<void>[] = [];
   if (buyer) sends.push(deps.mailer.send(confirmationMail(buyer, mailOrders, deps.env.baseUrl)));

@@ -10,7 +10,6 @@ import { getFontRegistry } from '../../integrations/fonts.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import type { Choices } from '../../../shared/schemas/listing.ts';
 import { personalisationEditSchema } from '../../../shared/schemas/workroom.ts';
-import type { MotifGeometry } from '../../../shared/engine/motif.ts';
 import { catalogEntry } from '../../../shared/engine/font-catalog.ts';
 // the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
 import { buildSnapshot, readLiveContent, type MaterialInfo, type MotifInfo } from '../cart/design.ts';
@@ -51,7 +50,7 @@ export function personalisationForEdit(db: Db, buyerId: string, lineId: string):
     line: { id: line.id, orderId: line.orderId, state: line.state, listingTitle: line.listingTitle, version: line.version },
     editable: line.state === 'changes_requested',
     changeRequest: line.state === 'changes_requested' ? (request?.message ?? null) : null,
-    choices: (line.snapshot as LineSnapshot).choices,
+    choices: line.snapshot.choices,
     textFields: content.personalisation.textFields.map((f) => ({
       id: f.id,
       label: f.label,
@@ -77,7 +76,7 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
     throw new AppError(409, 'wrong_state', 'This item can be edited only while the shop has asked for a change.');
   }
   const { listing, content } = contentOf(db, line.listingId);
-  const old = line.snapshot as LineSnapshot;
+  const old = line.snapshot;
 
   const p = content.personalisation;
   const materialIds = new Set<string>();
@@ -90,7 +89,7 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
   p.outline?.colourChoices.forEach((c) => materialIds.add(c));
   const materials = new Map<string, MaterialInfo>(repo.materialsOfShop(db, listing.shopId).filter((m) => materialIds.has(m.id)).map((m) => [m.id, m]));
   const motifs = new Map<string, MotifInfo>(
-    repo.motifsOfShop(db, listing.shopId, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
+    repo.motifsOfShop(db, listing.shopId, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry }]),
   );
   const fresh = buildSnapshot({
     registry: getFontRegistry(),

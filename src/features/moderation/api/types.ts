@@ -1,4 +1,4 @@
-import type { ListingContentParsed, ListingState } from '../../../../shared/schemas/listing.ts';
+import type { ListingContent, ListingState } from '../../../../shared/schemas/listing.ts';
 import type { ShopState } from '../../../../shared/schemas/shop.ts';
 
 /** GET /api/moderation/queue (server/features/moderation/moderation.service.ts) */
@@ -11,8 +11,8 @@ export type QueueListing = {
   kind: 'new' | 'edit';
   title: string;
   shop: { id: string; name: string; slug: string; state: ShopState };
-  draft: ListingContentParsed;
-  live: ListingContentParsed | null;
+  draft: ListingContent;
+  live: ListingContent | null;
   previewUrl: string;
   submittedAt: number;
 };

@@ -8,7 +8,6 @@ import { useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type Form
 import type { Cart } from '../../../../shared/schemas/cart.ts';
 import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { FontRegistry } from '../../../../shared/engine/fonts.ts';
-import type { MotifGeometry } from '../../../../shared/engine/motif.ts';
 import { priceForChoices, layersForChoices, type Choices } from '../../../../shared/schemas/listing.ts';
 import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
 import { formatMoney } from '../../../../shared/money.ts';
@@ -282,7 +281,7 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
             options={p.motifChoices.map((m) => ({
               motifId: m.motifId,
               label: m.label,
-              geometry: (listing.motifs.find((x) => x.id === m.motifId)?.geometry as MotifGeometry | undefined) ?? null,
+              geometry: listing.motifs.find((x) => x.id === m.motifId)?.geometry ?? null,
               colours: Object.fromEntries(
                 m.layers.map((l) => [l.layerId, materials.get(l.mode === 'fixed' ? (l.materialId ?? '') : (m.motifId === choices.motifId ? choices.motifColours[l.layerId] : undefined) ?? l.colourChoices?.[0] ?? '')?.colourHex]),
               ),

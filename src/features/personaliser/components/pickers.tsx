@@ -1,6 +1,6 @@
 import { memo, useEffect, useId, useState } from 'react';
 import type { FontRegistry } from '../../../../shared/engine/fonts.ts';
-import type { MotifGeometry } from '../../../../shared/engine/motif.ts';
+import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
 import { layoutText } from '../../../../shared/engine/text-layout.ts';
 import type { PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
@@ -122,7 +122,7 @@ export function SwatchPicker(props: {
   );
 }
 
-function MotifThumb({ geometry, colours }: { geometry: MotifGeometry; colours: Record<string, string | undefined> }) {
+function MotifThumb({ geometry, colours }: { geometry: StoredMotifGeometry; colours: Record<string, string | undefined> }) {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const l of geometry.layers) {
     minX = Math.min(minX, l.bboxMm.minX); minY = Math.min(minY, l.bboxMm.minY);
@@ -138,7 +138,7 @@ function MotifThumb({ geometry, colours }: { geometry: MotifGeometry; colours: R
 export function MotifPicker(props: {
   legend: string;
   name: string;
-  options: { motifId: string; label: string; geometry: MotifGeometry | null; colours: Record<string, string | undefined> }[];
+  options: { motifId: string; label: string; geometry: StoredMotifGeometry | null; colours: Record<string, string | undefined> }[];
   allowNone: boolean;
   value: string | null;
   onChange: (motifId: string | null) => void;
