@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { LINE_STATES, type LineState } from './order.ts';
-import { choicesSchema } from './listing.ts';
+import { choicesSchema, type Choices } from './listing.ts';
 import type { LineSnapshot } from './cart.ts';
 import type { ShipTo } from './checkout.ts';
 import type { PressCard } from '../engine/press-card.ts';
@@ -53,6 +53,16 @@ export type LowStockInput = z.input<typeof lowStockSchema>;
 /** The shopper's edit after a change request: the same choices the listing's personaliser takes. */
 export const personalisationEditSchema = z.object({ choices: choicesSchema });
 export type PersonalisationEditInput = z.input<typeof personalisationEditSchema>;
+
+/** GET /api/order-lines/:id/personalisation: what the shopper may change after a change request. */
+export type EditableTextField = { id: string; label: string; maxLength: number; required: boolean; fonts: Array<{ id: string; label: string }>; colours: Array<{ id: string; label: string; hex: string }> };
+export type PersonalisationEdit = {
+  line: { id: string; orderId: string; state: string; listingTitle: string; version: number };
+  editable: boolean;
+  changeRequest: string | null;
+  choices: Choices;
+  textFields: EditableTextField[];
+};
 
 // ---------------------------------------------------------------- answers
 export type MaterialRef = { id: string; kind: string; colour: string; colourHex: string };

@@ -20,7 +20,7 @@ import type {
 import { priceCheckSchema } from '../../../shared/schemas/business.ts';
 // The cart's mapping from a listing's personalisation to the engine is the one a real order goes
 // through; the price check reuses it rather than keep a second copy that could drift.
-import { buildSnapshot, type MaterialInfo, type MotifInfo } from '../cart/design.ts';
+import { buildSnapshot, snapshotLookups } from '../cart/design.ts';
 import { businessRepo as repo, type LineRow, type OrderRow, type SheetRow, type ShopRow } from './business.repo.ts';
 
 export type BusinessDeps = Pick<AppDeps, 'db' | 'env' | 'now'>;
@@ -212,10 +212,7 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
   const { draft } = input;
   const p = draft.personalisation;
   const matRows = repo.materialsOfShop(deps.db, shop.id);
-  const materials = new Map<string, MaterialInfo>(matRows.map((m) => [m.id, { id: m.id, kind: m.kind, colourName: m.colourName, colourHex: m.colourHex }]));
-  const motifs = new Map<string, MotifInfo>(
-    repo.motifsOfShop(deps.db, shop.id, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry }]),
-  );
+  const { materials, motifs } = snapshotLookups(p, matRows, repo.motifsOfShop(deps.db, shop.id, p.motifChoices.map((m) => m.motifId)));
   const content = { title: 'Price check', blank: draft.blank, basePriceMinor: draft.basePriceMinor, extraLayerPriceMinor: draft.extraLayerPriceMinor, personalisation: p };
   const fees = feesOf(deps.env);
   const prices = priceMap(matRows);

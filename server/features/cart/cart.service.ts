@@ -10,8 +10,8 @@ import type { AddCartLineInput, Cart, CartLine, CartShop } from '../../../shared
 import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
 import { cartRepo, type CartRow } from './cart.repo.ts';
 import { clearCartCookie, readCartCookie, setCartCookie } from './cart-cookie.ts';
-import { buildSnapshot, readLiveContent, unitPrice, type MaterialInfo, type MotifInfo } from './design.ts';
-import type { ListingContent } from '../../../shared/schemas/listing.ts';
+import { buildSnapshot, readLiveContent, snapshotLookups, unitPrice } from './design.ts';
+import { materialIdsOf, type ListingContent } from '../../../shared/schemas/listing.ts';
 
 export type CartDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
 
@@ -133,18 +133,7 @@ export function addLine(deps: CartDeps, cart: CartRow, raw: AddCartLineInput): v
   if (!row || !content) throw notFound('This listing is not on sale right now.');
 
   const p = content.personalisation;
-  const materialIds = new Set<string>();
-  for (const f of p.textFields) f.colourChoices.forEach((c) => materialIds.add(c));
-  for (const m of p.motifChoices)
-    for (const l of m.layers) {
-      if (l.materialId) materialIds.add(l.materialId);
-      l.colourChoices?.forEach((c) => materialIds.add(c));
-    }
-  p.outline?.colourChoices.forEach((c) => materialIds.add(c));
-  const materials = new Map<string, MaterialInfo>(cartRepo.materials(db, row.shop.id, [...materialIds]).map((m) => [m.id, m]));
-  const motifs = new Map<string, MotifInfo>(
-    cartRepo.motifs(db, row.shop.id, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry }]),
-  );
+  const { materials, motifs } = snapshotLookups(p, cartRepo.materials(db, row.shop.id, materialIdsOf(p)), cartRepo.motifs(db, row.shop.id, p.motifChoices.map((m) => m.motifId)));
 
   const snapshot = buildSnapshot({
     registry: getFontRegistry(),

@@ -5,7 +5,7 @@
 import { compose, ComposeError } from '../../../shared/engine/compose.ts';
 import { listingDesign, type DesignMaterial, type DesignMotif } from '../../../shared/engine/listing-design.ts';
 import type { FontRegistry } from '../../../shared/engine/fonts.ts';
-import { checkChoices, layersForChoices, priceForChoices, personalisationSchema, type Choices, type ListingContent } from '../../../shared/schemas/listing.ts';
+import { checkChoices, layersForChoices, materialIdsOf, priceForChoices, personalisationSchema, type Choices, type ListingContent, type Personalisation } from '../../../shared/schemas/listing.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
 
@@ -21,6 +21,18 @@ export function readLiveContent(live: ListingContent | null | undefined): Listin
   if (!live || typeof live.title !== 'string' || typeof live.basePriceMinor !== 'number') return null;
   const p = personalisationSchema.safeParse(live.personalisation);
   return p.success ? { ...live, personalisation: p.data } : null;
+}
+
+/**
+ * The materials and motifs buildSnapshot looks up, keyed by id, from a shop's rows: only materials
+ * the listing's personalisation refers to (materialIdsOf), so any other id is "no longer available".
+ */
+export function snapshotLookups(p: Personalisation, materialRows: readonly MaterialInfo[], motifRows: readonly MotifInfo[]): { materials: Map<string, MaterialInfo>; motifs: Map<string, MotifInfo> } {
+  const ids = new Set(materialIdsOf(p));
+  return {
+    materials: new Map(materialRows.filter((m) => ids.has(m.id)).map((m) => [m.id, m])),
+    motifs: new Map(motifRows.map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry }])),
+  };
 }
 
 /** Price of one item from the live listing and the choices (never from the client). */

@@ -17,6 +17,7 @@ import {
 } from '../../../shared/schemas/workroom.ts';
 import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
 import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
+import { blankFor } from '../../../shared/engine/listing-design.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
 import { CutSheetError, nestCutSheets, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM, type CutSheet, type NestPiece } from '../../../shared/engine/cut-sheets.ts';
 import { cutOutline } from '../../../shared/engine/cut-path.ts';
@@ -172,7 +173,7 @@ function normalForm(text: string): ProofText['normalized'] {
 
 function listingContent(db: Db, listingId: string): { personalisation: Personalisation | null; topOffsetMm: number | null } {
   const l = repo.listing(db, listingId);
-  const c = (l?.live ?? l?.draft) as { personalisation?: unknown; blank?: { topOffsetMm?: number } } | undefined;
+  const c = l?.live ?? l?.draft;
   const p = personalisationSchema.safeParse(c?.personalisation);
   return { personalisation: p.success ? p.data : null, topOffsetMm: typeof c?.blank?.topOffsetMm === 'number' ? c.blank.topOffsetMm : null };
 }
@@ -197,12 +198,8 @@ export function proofBlank(s: LineSnapshot, topOffsetMm: number | null): Proof['
 export function proofWarnings(s: LineSnapshot, p: Personalisation | null, topOffsetMm: number | null): { texts: ProofText[]; warnings: ProofWarning[] } {
   const registry = getFontRegistry();
   const base = defaultBlank(s.blank.kind) ?? defaultBlank('tote')!;
-  const blank = {
-    ...base,
-    printArea: { widthMm: s.blank.widthMm, heightMm: s.blank.heightMm },
-    topOffsetMm: topOffsetMm ?? base.topOffsetMm,
-    maxDesignBottomMm: Math.max(base.maxDesignBottomMm, (topOffsetMm ?? base.topOffsetMm) + s.blank.heightMm),
-  };
+  // the blank as the cart composed on it (the listing's print area and top offset)
+  const blank = blankFor({ blank: { ...s.blank, topOffsetMm: topOffsetMm ?? base.topOffsetMm } });
   const area = usableArea(blank);
   const entries = Object.entries(s.choices.texts).filter(([, t]) => t.text.trim() !== '');
   const blocks = entries.length + (s.choices.motifId ? 1 : 0);
