@@ -72,9 +72,23 @@ export function roundDiv(num: number, den: number): number {
   return sign * (2 * r >= den ? q + 1 : q);
 }
 
-/** The platform's fee on one shop's total: round(total × bps / 10000), in minor units. */
-export function platformFee(shopTotalMinor: number, feeBps: number): number {
-  return roundDiv(shopTotalMinor * feeBps, 10_000);
+/** Basis points in one whole: 10 000 bps = 100 %. */
+export const BPS_PER_WHOLE = 10_000;
+
+/**
+ * A share of an amount given in basis points, in minor units: amount × bps / 10 000, rounded once,
+ * half away from zero, on integers (roundDiv). Every percentage fee is computed here.
+ */
+export function bpsOf(amountMinor: number, bps: number): number {
+  return roundDiv(amountMinor * bps, BPS_PER_WHOLE);
+}
+
+/**
+ * The platform's fee on an amount (one shop's lines + shipping at checkout; one item's price in the
+ * seller's margin check), in minor units: bpsOf(amount, feeBps) — rounded half away from zero, once.
+ */
+export function platformFee(amountMinor: number, feeBps: number): number {
+  return bpsOf(amountMinor, feeBps);
 }
 
 export type ShopSplit = { shopTotalMinor: number; feeMinor: number; transferMinor: number };

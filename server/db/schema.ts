@@ -4,6 +4,11 @@
 import { sql } from 'drizzle-orm';
 import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { user } from './auth-schema.ts';
+import type { ListingContent } from '../../shared/schemas/listing.ts';
+import type { StoredMotifGeometry } from '../../shared/engine/motif.ts';
+import type { LineSnapshot } from '../../shared/schemas/cart.ts';
+import type { PricedCheckout, ShipTo } from '../../shared/schemas/checkout.ts';
+import type { StoredSheetPiece } from '../../shared/schemas/workroom.ts';
 
 export * from './auth-schema.ts';
 
@@ -75,7 +80,7 @@ export const motifs = sqliteTable('motifs', {
   shopId: text('shop_id').notNull().references(() => shops.id, { onDelete: 'cascade' }),
   name: text('name').notNull(),
   /** the engine's normalised motif: layers with path data in mm, bbox, area */
-  geometry: json<unknown>('geometry').notNull(),
+  geometry: json<StoredMotifGeometry>('geometry').notNull(),
   createdAt: createdAt(),
 }, (t) => [index('motifs_shop_idx').on(t.shopId)]);
 
@@ -96,29 +101,13 @@ export const uploads = sqliteTable('uploads', {
 });
 
 // ---------------------------------------------------------------- listings
-/** The content of a listing that review approves; the live copy is a frozen one of these. */
-export type ListingContent = {
-  title: string;
-  description: string;
-  blank: { kind: string; label: string; widthMm: number; heightMm: number; topOffsetMm: number };
-  basePriceMinor: number;
-  extraLayerPriceMinor: number;
-  occasions: string[];
-  photoIds: string[];
-  /** plain (text with line breaks) or markdown (rendered with HTML disabled); plain when absent */
-  descriptionFormat?: 'plain' | 'markdown';
-  personalisation: unknown;
-  hasSmallDecorations: boolean;
-  blankCostMinor: number;
-  minutesPerLayer: number;
-};
 export const listings = sqliteTable('listings', {
   id: id(),
   shopId: text('shop_id').notNull().references(() => shops.id, { onDelete: 'cascade' }),
   slug: text('slug').notNull(),
   /** draft | in_review | live | rejected | paused */
   state: text('state').notNull().default('draft'),
-  /** the seller's working copy (what the editor shows and review checks) */
+  /** the seller's working copy (what the editor shows and review checks), as the editor's schema outputs it */
   draft: json<ListingContent>('draft').notNull(),
   /** the approved copy on sale; stays on sale while an edit waits for review */
   live: json<ListingContent>('live'),
@@ -171,7 +160,7 @@ export const cartLines = sqliteTable('cart_lines', {
   listingId: text('listing_id').notNull().references(() => listings.id),
   quantity: integer('quantity').notNull().default(1),
   /** immutable snapshot of the shopper's choices and the computed geometry summary */
-  snapshot: json<unknown>('snapshot').notNull(),
+  snapshot: json<LineSnapshot>('snapshot').notNull(),
   createdAt: createdAt(),
 });
 
@@ -187,7 +176,7 @@ export const checkouts = sqliteTable('checkouts', {
   currency: text('currency').notNull(),
   totalMinor: integer('total_minor').notNull(),
   /** the priced cart frozen at session creation: shops, lines, shipping */
-  priced: json<unknown>('priced').notNull(),
+  priced: json<PricedCheckout>('priced').notNull(),
   paymentIntentId: text('payment_intent_id'),
   chargeId: text('charge_id'),
   /** set when the confirmation e-mails were handed to the mailer (sent once) */
@@ -216,7 +205,7 @@ export const orders = sqliteTable('orders', {
   payoutStep: json<PayoutStep>('payout_step'),
   /** how many payout calls were claimed: numbers the keys of later ones */
   payoutSeq: integer('payout_seq').notNull().default(0),
-  shipTo: json<unknown>('ship_to'),
+  shipTo: json<ShipTo>('ship_to'),
   carrier: text('carrier'),
   trackingNumber: text('tracking_number'),
   shipByDate: text('ship_by_date'),
@@ -238,7 +227,7 @@ export const orderLines = sqliteTable('order_lines', {
   /** awaiting_proof | changes_requested | approved | cut | pressed | shipped | cancelled | refunded */
   state: text('state').notNull().default('awaiting_proof'),
   /** the current personalisation snapshot (latest version) */
-  snapshot: json<unknown>('snapshot').notNull(),
+  snapshot: json<LineSnapshot>('snapshot').notNull(),
   version: integer('version').notNull().default(1),
   refundedMinor: integer('refunded_minor').notNull().default(0),
   createdAt: createdAt(),
@@ -250,7 +239,7 @@ export const lineVersions = sqliteTable('line_versions', {
   id: id(),
   lineId: text('line_id').notNull().references(() => orderLines.id, { onDelete: 'cascade' }),
   version: integer('version').notNull(),
-  snapshot: json<unknown>('snapshot').notNull(),
+  snapshot: json<LineSnapshot>('snapshot').notNull(),
   authorId: text('author_id').references(() => user.id),
   createdAt: createdAt(),
 }, (t) => [uniqueIndex('line_versions_uq').on(t.lineId, t.version)]);
@@ -330,7 +319,7 @@ export const cutSheets = sqliteTable('cut_sheets', {
   lengthMm: real('length_mm').notNull(),
   utilisation: real('utilisation').notNull(),
   /** nested pieces: [{ lineId, layerId, xMm, yMm, widthMm, heightMm, rotated, path }] */
-  pieces: json<unknown[]>('pieces').notNull(),
+  pieces: json<StoredSheetPiece[]>('pieces').notNull(),
   /** planned | cut */
   state: text('state').notNull().default('planned'),
   consumedMm: real('consumed_mm'),

@@ -6,7 +6,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import sharp from 'sharp';
 import type { AppDeps } from '../app.ts';
-import { listings, materials, motifs, uploads, type ListingContent } from './schema.ts';
+import { listings, materials, motifs, uploads } from './schema.ts';
 import type { SeedContext } from './seed.ts';
 import { createStorage } from '../integrations/storage.ts';
 import { parseMotifSvg, renderMotifSvg } from '../../shared/engine/motif.ts';
@@ -288,8 +288,8 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
       const live = spec.state === 'live';
       const thumbPath = live ? thumbs[spec.photoOf] : null;
       db.insert(listings).values({
-        id: crypto.randomUUID(), shopId, slug, state: spec.state, draft: content as unknown as ListingContent,
-        live: live ? (content as unknown as ListingContent) : null,
+        id: crypto.randomUUID(), shopId, slug, state: spec.state, draft: content,
+        live: live ? content : null,
         ...(live ? { ...liveColumns(content), liveThumbPath: thumbPath, publishedAt: at } : {}),
         createdAt: at, updatedAt: at,
       }).run();

@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { createHash } from 'node:crypto';
 import { FONT_CATALOG, type FontCatalogEntry } from '../../shared/engine/font-catalog.ts';
-import { createFontRegistry, type FontRegistry } from '../../shared/engine/fonts.ts';
+import { createFontRegistry, fontSource, type FontRegistry } from '../../shared/engine/fonts.ts';
 
 const require = createRequire(import.meta.url);
 
@@ -44,15 +44,6 @@ export function listFontFiles(): FontFile[] {
 /** The server's font registry (parsed once, on first use). */
 export function getFontRegistry(): FontRegistry {
   if (registry) return registry;
-  registry = createFontRegistry(
-    listFontFiles().map(({ entry, bytes }) => ({
-      id: entry.id,
-      family: entry.family,
-      kind: entry.kind,
-      licence: entry.licence,
-      minLetterHeightMm: entry.minLetterHeightMm,
-      bytes,
-    })),
-  );
+  registry = createFontRegistry(listFontFiles().map(({ entry, bytes }) => fontSource(entry, bytes)));
   return registry;
 }

@@ -4,7 +4,7 @@
  * (a sheet's vinyl cost, the platform fee, the payment fee, shipping) are split across lines with
  * the largest-remainder method so the parts add up to the whole exactly.
  */
-import { roundDiv } from '../money.ts';
+import { bpsOf, platformFee } from '../money.ts';
 
 // ---------------------------------------------------------------- exact splitting
 
@@ -81,7 +81,7 @@ export type FeeConfig = { platformFeeBps: number; paymentFeeBps: number; payment
 
 /** The payment provider's fee on one charge: percentage (basis points) + fixed, rounded once. */
 export const paymentFee = (chargeMinor: number, cfg: Pick<FeeConfig, 'paymentFeeBps' | 'paymentFeeFixedMinor'>): number =>
-  chargeMinor <= 0 ? 0 : roundDiv(chargeMinor * cfg.paymentFeeBps, 10_000) + cfg.paymentFeeFixedMinor;
+  chargeMinor <= 0 ? 0 : bpsOf(chargeMinor, cfg.paymentFeeBps) + cfg.paymentFeeFixedMinor;
 
 /** Labour of a line, exact (minutes per layer × layers × quantity at the hourly rate). */
 export const labourExact = (minutesPerLayer: number, layers: number, quantity: number, hourlyRateMinor: number): number =>
@@ -196,7 +196,7 @@ export function priceCheck(args: {
   const blankMinor = args.blankCostMinor;
   const vinylMinor = Math.round(args.vinylEstimateExact);
   const labourMinor = Math.round(labourExact(args.minutesPerLayer, args.layers, 1, args.hourlyRateMinor));
-  const platformFeeMinor = roundDiv(args.priceMinor * args.fees.platformFeeBps, 10_000);
+  const platformFeeMinor = platformFee(args.priceMinor, args.fees.platformFeeBps);
   const paymentFeeMinor = paymentFee(args.priceMinor, args.fees);
   const costMinor = blankMinor + vinylMinor + labourMinor + platformFeeMinor + paymentFeeMinor;
   return { priceMinor: args.priceMinor, blankMinor, vinylMinor, labourMinor, platformFeeMinor, paymentFeeMinor, costMinor, marginMinor: args.priceMinor - costMinor };

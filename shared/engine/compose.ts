@@ -1,74 +1,19 @@
 /**
  * Composition: a listing's personalisation fields plus the shopper's choices become the pieces of
- * one item, placed on the blank (centred horizontally, starting `topOffsetMm` down, kept inside the
- * usable print area) and listed in press order, bottom → top: outline backings, motif layers, names.
+ * one item. Where each piece goes is placeDesign()'s (place.ts, the one placement, also drawn by the
+ * live preview); here each placed piece becomes production geometry — its path on the blank, the
+ * outline backing grown around a name, the mirrored cut path, area and weeding — listed in press
+ * order, bottom → top: outline backings, motif layers, names.
  */
 import type { FontRegistry } from './fonts.ts';
-import { usableArea, type Blank } from './blanks.ts';
-import { fitText, type TextWarning } from './fit.ts';
-import { LayoutError } from './text-layout.ts';
-import type { MotifGeometry } from './motif.ts';
 import { outlineOfPath, type OutlineResult } from './outline.ts';
 import { formatPath, mirrorPath, parsePathData, pathBBox, roundPath, transformPath, unionBBox, flattenPath, type BBox, type Path } from './path.ts';
-import type { TextLayout } from './text-layout.ts';
 import { regionsArea, unionRegions } from './geometry.ts';
 import { LimitError, MAX_COORDINATE_MM, MAX_TEXT_CHARS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_CHARS } from './limits.ts';
 import { analysePathWeeding, analyseQuickWeeding, combineWeeding, quickFromFull, type WeedingReport } from './weeding.ts';
+import { placeDesign, type ComposeInput, type ComposeWarning, type MaterialKind, type Matrix, type PieceRole } from './place.ts';
 
-export type MaterialKind = 'smooth' | 'glitter' | 'flock' | 'metallic' | 'patterned';
-export type PieceRole = 'text' | 'outline' | 'motif';
-
-export interface TextFieldDef {
-  kind: 'text';
-  id: string;
-  fontId: string;
-  /** Default cap height; the shopper may choose smaller or up to maxLetterHeightMm. */
-  letterHeightMm: number;
-  maxLetterHeightMm?: number;
-  minLetterHeightMm?: number;
-  maxChars?: number;
-  trackingMm?: number;
-  materialKind: MaterialKind;
-  colour: string;
-  /** Outline backing grown around the name. */
-  outline?: { offsetMm: number; materialKind: MaterialKind; colour: string };
-}
-
-export interface MotifOption {
-  id: string;
-  geometry: MotifGeometry;
-  /** Material and colour per motif layer id; layers not listed use the field default and their own colour. */
-  layers?: Record<string, { materialKind?: MaterialKind; colour?: string }>;
-}
-
-export interface MotifFieldDef {
-  kind: 'motif';
-  id: string;
-  /** Height of the motif's ink on the item, mm (scaled down if it does not fit). */
-  heightMm: number;
-  materialKind: MaterialKind;
-  options: MotifOption[];
-}
-
-export interface ColourFieldDef {
-  kind: 'colour';
-  id: string;
-  /** What the colour paints: a text field, its outline (layerId 'outline'), or a motif layer. */
-  target: { fieldId: string; layerId?: string };
-  options: string[];
-}
-
-export type FieldDef = TextFieldDef | MotifFieldDef | ColourFieldDef;
-
-export type Choice = { text: string; letterHeightMm?: number } | { motifId: string } | { colour: string };
-
-export interface ComposeInput {
-  blank: Blank;
-  fields: FieldDef[];
-  choices: Record<string, Choice | undefined>;
-  /** Vertical gap between stacked fields, mm (default 8). */
-  gapMm?: number;
-}
+export { ComposeError, placeDesign, type Choice, type ColourFieldDef, type ComposeInput, type ComposeWarning, type FieldDef, type MaterialKind, type MotifFieldDef, type MotifOption, type PieceRole, type Placement, type PlacedPiece, type TextFieldDef } from './place.ts';
 
 /** `W` is WeedingReport unless compose() was asked for `{ weeding: 'none' }` (then null). */
 export interface Piece<W extends WeedingReport | null = WeedingReport> {
@@ -87,8 +32,6 @@ export interface Piece<W extends WeedingReport | null = WeedingReport> {
   weeding: W;
 }
 
-export interface ComposeWarning extends TextWarning { fieldId: string }
-
 export interface ComposedItem<W extends WeedingReport | null = WeedingReport> {
   blankId: string;
   /** Press order, bottom → top. */
@@ -98,21 +41,6 @@ export interface ComposedItem<W extends WeedingReport | null = WeedingReport> {
   weeding: W;
   /** Letter height actually used per text field, mm. */
   letterHeights: Record<string, number>;
-}
-
-export class ComposeError extends Error {
-  constructor(public readonly fieldId: string, message: string) {
-    super(message);
-    this.name = 'ComposeError';
-  }
-}
-
-interface Block {
-  fieldId: string;
-  w: number;
-  h: number;
-  /** Pieces for a block whose ink's top-left lands at (x, y). */
-  place(x: number, y: number): Piece<WeedingReport | null>[];
 }
 
 /**
@@ -151,7 +79,10 @@ interface PieceGeometry { parsed: Path; bboxMm: BBox; mirroredPath: string; area
 const geometryCache = new Lru<string, PieceGeometry>(96);
 const outlineCache = new Lru<string, OutlineResult>(48);
 const placedCache = new Lru<string, string>(96);
-const layoutPaths = new WeakMap<TextLayout, Path>();
+const layoutCache = new Lru<string, Path>(32);
+
+/** A text layout's path data, parsed once per distinct layout. */
+const parsedLayout = (d: string): Path => layoutCache.get(d) ?? layoutCache.set(d, parsePathData(d));
 
 function geometryOf(d: string, parsed?: Path): PieceGeometry {
   let g = geometryCache.get(d);
@@ -183,8 +114,6 @@ function piece(layerId: string, fieldId: string, role: PieceRole, materialKind: 
     weeding: copyReport(weedingOf(g, mode)),
   };
 }
-
-type Matrix = [number, number, number, number, number, number];
 
 /** Path data moved by a matrix, written on the 1 µm grid (as formatPath writes it), and the path it parses to. */
 function moveParsed(p: Path, m: Matrix): { d: string; parsed: Path } {
@@ -238,110 +167,31 @@ export function compose(registry: FontRegistry, input: ComposeInput, options: Co
   const mode: WeedingMode = options.weeding ?? 'full';
   if (mode !== 'full' && mode !== 'fast' && mode !== 'none') throw new RangeError(`Unknown weeding mode "${String(mode)}".`);
   checkComposeInput(input);
-  const { blank, fields, choices } = input;
-  const gap = input.gapMm ?? 8;
-  const area = usableArea(blank);
-  const colours = new Map<string, string>(); // "field" or "field:layer" → colour
-  for (const f of fields) {
-    if (f.kind !== 'colour') continue;
-    const c = choices[f.id];
-    if (!c) continue;
-    if (!('colour' in c) || !f.options.includes(c.colour)) throw new ComposeError(f.id, 'Choose one of the colours offered.');
-    colours.set(f.target.layerId ? `${f.target.fieldId}:${f.target.layerId}` : f.target.fieldId, c.colour);
+  const placement = placeDesign(registry, input);
+  const outlines: Piece<WeedingReport | null>[] = [];
+  const pieces: Piece<WeedingReport | null>[] = [];
+  for (const p of placement.pieces) {
+    if (p.role === 'motif') {
+      pieces.push(piece(p.layerId, p.fieldId, 'motif', p.materialKind, p.colour, placeMotifLayer(p.d, p.matrix), mode, p.areaMm2));
+      continue;
+    }
+    const { d, parsed } = moveParsed(parsedLayout(p.d), p.matrix);
+    if (p.outline) {
+      const o = outlineCached(d, parsed, p.outline.offsetMm);
+      outlines.push(piece(`${p.fieldId}-outline`, p.fieldId, 'outline', p.outline.materialKind, p.outline.colour, o.path, mode, o.areaMm2));
+    }
+    pieces.push(piece(p.layerId, p.fieldId, 'text', p.materialKind, p.colour, d, mode, undefined, parsed));
   }
-  const warnings: ComposeWarning[] = [];
-  const letterHeights: Record<string, number> = {};
-  const layoutFields = fields.filter((f): f is TextFieldDef | MotifFieldDef => f.kind !== 'colour');
-  const stackGaps = Math.max(0, layoutFields.length - 1) * gap;
-
-  const buildBlocks = (k: number): Block[] => {
-    warnings.length = 0;
-    return layoutFields.map((f): Block => {
-      if (f.kind === 'text') {
-        const c = choices[f.id];
-        if (!c || !('text' in c) || c.text.trim() === '') throw new ComposeError(f.id, 'Enter the text for this item.');
-        const chosen = Math.min(c.letterHeightMm ?? f.letterHeightMm, f.maxLetterHeightMm ?? Infinity, f.letterHeightMm * 4);
-        const grow = f.outline ? 2 * f.outline.offsetMm : 0;
-        let fitted: ReturnType<typeof fitText>;
-        try {
-          fitted = fitText(
-            registry,
-            { text: c.text, fontId: f.fontId, letterHeightMm: Math.max(0.5, Math.floor(chosen * k * 1000) / 1000), trackingMm: f.trackingMm },
-            { maxWidthMm: area.widthMm - grow, maxHeightMm: Math.max(1, area.heightMm - stackGaps - grow), minLetterHeightMm: f.minLetterHeightMm, maxChars: f.maxChars },
-          );
-        } catch (e) {
-          if (e instanceof LayoutError) throw new ComposeError(f.id, e.message);
-          throw e;
-        }
-        for (const w of fitted.warnings) warnings.push({ ...w, fieldId: f.id });
-        letterHeights[f.id] = fitted.letterHeightMm;
-        const L = fitted.layout;
-        const pad = f.outline ? f.outline.offsetMm : 0;
-        return {
-          fieldId: f.id,
-          w: L.widthMm + grow,
-          h: L.heightMm + grow,
-          place(x, y) {
-            let lp = layoutPaths.get(L);
-            if (!lp) { lp = parsePathData(L.path); if (Object.isFrozen(L)) layoutPaths.set(L, lp); }
-            const { d, parsed } = moveParsed(lp, [1, 0, 0, 1, x + pad - L.bboxMm.minX, y + pad - L.bboxMm.minY]);
-            const out: Piece<WeedingReport | null>[] = [];
-            if (f.outline) {
-              const o = outlineCached(d, parsed, f.outline.offsetMm);
-              out.push(piece(`${f.id}-outline`, f.id, 'outline', f.outline.materialKind, colours.get(`${f.id}:outline`) ?? f.outline.colour, o.path, mode, o.areaMm2));
-            }
-            out.push(piece(f.id, f.id, 'text', f.materialKind, colours.get(f.id) ?? f.colour, d, mode, undefined, parsed));
-            return out;
-          },
-        };
-      }
-      const c = choices[f.id];
-      const opt = c && 'motifId' in c ? f.options.find((o) => o.id === c.motifId) : f.options.length === 1 ? f.options[0] : undefined;
-      if (!opt) throw new ComposeError(f.id, 'Choose one of the motifs offered.');
-      let ink: BBox | null = null;
-      for (const l of opt.geometry.layers) ink = unionBBox(ink, l.bboxMm);
-      const bb = ink!;
-      const iw = bb.maxX - bb.minX, ih = bb.maxY - bb.minY;
-      const m = Math.min(f.heightMm / ih, area.widthMm / iw, (area.heightMm - stackGaps) / ih) * k;
-      return {
-        fieldId: f.id,
-        w: iw * m,
-        h: ih * m,
-        place(x, y) {
-          return opt.geometry.layers.map((l) => {
-            const spec = opt.layers?.[l.id];
-            const d = placeMotifLayer(l.path, [m, 0, 0, m, x - bb.minX * m, y - bb.minY * m]);
-            return piece(`${f.id}:${l.id}`, f.id, 'motif', spec?.materialKind ?? f.materialKind, colours.get(`${f.id}:${l.id}`) ?? spec?.colour ?? l.colour ?? '#000000', d, mode, l.areaMm2 * m * m);
-          });
-        },
-      };
-    });
-  };
-
-  let blocks = buildBlocks(1);
-  const total = () => blocks.reduce((s, b) => s + b.h, 0) + stackGaps;
-  for (let i = 0; i < 5 && total() > area.heightMm + 1e-9; i++) {
-    const inkH = blocks.reduce((s, b) => s + b.h, 0);
-    const k = Math.max(0.01, (area.heightMm - stackGaps) / inkH) * (i === 0 ? 1 : 0.99 ** i);
-    blocks = buildBlocks(k);
-  }
-
-  const placed: Piece<WeedingReport | null>[] = [];
-  let y = blank.topOffsetMm;
-  for (const b of blocks) {
-    placed.push(...b.place((blank.widthMm - b.w) / 2, y));
-    y += b.h + gap;
-  }
-  const rank: Record<PieceRole, number> = { outline: 0, motif: 1, text: 2 };
-  const pieces = placed.map((p, i) => ({ p, i })).sort((a, b) => rank[a.p.role] - rank[b.p.role] || a.i - b.i).map((x) => x.p);
+  // press order, bottom → top: outline backings under everything, then placement's order
+  pieces.unshift(...outlines);
   let bbox: BBox | null = null;
   for (const p of pieces) bbox = unionBBox(bbox, p.bboxMm);
   return {
-    blankId: blank.id,
+    blankId: input.blank.id,
     pieces,
     bboxMm: bbox ?? { minX: 0, minY: 0, maxX: 0, maxY: 0 },
-    warnings: [...warnings],
+    warnings: placement.warnings,
     weeding: mode === 'none' ? null : combineWeeding(pieces.map((p) => p.weeding as WeedingReport)),
-    letterHeights,
+    letterHeights: placement.letterHeights,
   };
 }

@@ -67,7 +67,47 @@ export function textWarnings(raw: string): TextWarning[] {
   return out;
 }
 
+/** Characters named for people: “☃” (U+2603), each with its code point, so invisible ones are named too. */
+export const nameCharacters = (chars: readonly string[]): string =>
+  chars.map((c) => `“${c}” (U+${c.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')})`).join(', ');
+
 const countChars = (text: string) => [...text].filter((ch) => !/\s/u.test(ch)).length;
+
+/**
+ * Everything the seller and shopper should know about text laid out at `letterHeightMm`: the
+ * text's own warnings (textWarnings), letters below the minimum height, too many characters (or,
+ * when the fit had to shrink it, too long to fit at a readable size), and characters the font
+ * cannot draw. The one wording of these warnings: the fit, the layout API and the preview use it.
+ */
+export function layoutWarnings(layout: TextLayout, at: { letterHeightMm: number; minLetterHeightMm: number; maxChars?: number; shrunk?: boolean }): TextWarning[] {
+  const warnings = textWarnings(layout.text);
+  const h = at.letterHeightMm;
+  const min = at.minLetterHeightMm;
+  if (h < min) {
+    warnings.push({
+      code: 'below_min_letter_height',
+      message: `At ${h.toFixed(1)} mm the letters are below the ${min} mm this font needs to weed and read well. Choose a shorter text, a narrower font or a larger blank.`,
+      letterHeightMm: h,
+      minLetterHeightMm: min,
+    });
+  }
+  const n = countChars(layout.text);
+  const tooMany = at.maxChars !== undefined && n > at.maxChars;
+  if (tooMany || (at.shrunk && h < min)) {
+    warnings.push({
+      code: 'too_long',
+      message: tooMany ? `The text has ${n} characters; this item takes at most ${at.maxChars}.` : 'The text is too long to fit at a readable size. Try a shorter text or a narrower font.',
+    });
+  }
+  if (layout.missing.length > 0) {
+    warnings.push({
+      code: 'missing_characters',
+      message: `This font cannot draw ${nameCharacters(layout.missing)}. Choose another font or change the text.`,
+      characters: [...layout.missing],
+    });
+  }
+  return warnings;
+}
 
 /**
  * Lays out `text` at the chosen size, then — if it is wider or taller than allowed — lays it out
@@ -90,30 +130,11 @@ export function fitText(registry: FontRegistry, input: FitTextInput, limits: Fit
       h = Math.floor(h * 0.999 * 1000) / 1000;
     }
   }
-  const warnings = textWarnings(text);
-  const min = limits.minLetterHeightMm ?? font.minLetterHeightMm;
-  const shrunk = h < chosen;
-  if (h < min) {
-    warnings.push({
-      code: 'below_min_letter_height',
-      message: `At ${h.toFixed(1)} mm the letters are below the ${min} mm this font needs to weed and read well. Choose a shorter text, a narrower font or a larger blank.`,
-      letterHeightMm: h,
-      minLetterHeightMm: min,
-    });
-  }
-  const n = countChars(text);
-  if ((limits.maxChars !== undefined && n > limits.maxChars) || (shrunk && h < min)) {
-    warnings.push({
-      code: 'too_long',
-      message: limits.maxChars !== undefined && n > limits.maxChars ? `The text has ${n} characters; this item takes at most ${limits.maxChars}.` : 'The text is too long to fit at a readable size.',
-    });
-  }
-  if (layout.missing.length > 0) {
-    warnings.push({
-      code: 'missing_characters',
-      message: `This font cannot draw: ${layout.missing.join(' ')}. Choose another font or change the text.`,
-      characters: [...layout.missing],
-    });
-  }
+  const warnings = layoutWarnings(layout, {
+    letterHeightMm: h,
+    minLetterHeightMm: limits.minLetterHeightMm ?? font.minLetterHeightMm,
+    maxChars: limits.maxChars,
+    shrunk: h < chosen,
+  });
   return { layout, scale: h / chosen, letterHeightMm: h, warnings };
 }

@@ -94,9 +94,24 @@ function sameCodePoints(a: number[], b: number[]): boolean {
   return true;
 }
 
-export function createFontRegistry(sources: readonly FontSource[]): FontRegistry {
-  const fonts = new Map<string, LoadedFont>();
-  for (const s of sources) fonts.set(s.id, loadFont(s));
+/** What describes a font apart from its bytes (a catalogue entry or the API's font info carries it). */
+export type FontMeta = Pick<FontSource, 'id' | 'family' | 'kind' | 'licence' | 'minLetterHeightMm'>;
+
+/** A font's source from its description and its bytes (other fields of `meta` are left out). */
+export const fontSource = (meta: FontMeta, bytes: Uint8Array): FontSource => ({
+  id: meta.id,
+  family: meta.family,
+  kind: meta.kind,
+  licence: meta.licence,
+  minLetterHeightMm: meta.minLetterHeightMm,
+  bytes,
+});
+
+/**
+ * The registry over fonts already parsed — the one builder the server, the browser and the compose
+ * worker use. It reads `fonts` live, so a font added to the map later is found.
+ */
+export function fontRegistry(fonts: ReadonlyMap<string, LoadedFont>): FontRegistry {
   return {
     get: (id) => fonts.get(id),
     require(id) {
@@ -106,4 +121,9 @@ export function createFontRegistry(sources: readonly FontSource[]): FontRegistry
     },
     list: () => [...fonts.values()],
   };
+}
+
+/** Parses every source and returns their registry. */
+export function createFontRegistry(sources: readonly FontSource[]): FontRegistry {
+  return fontRegistry(new Map(sources.map((s) => [s.id, loadFont(s)])));
 }

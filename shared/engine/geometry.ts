@@ -96,6 +96,18 @@ export function regionArea(r: Region): number {
 
 export const regionsArea = (rs: Region[]): number => rs.reduce((s, r) => s + regionArea(r), 0);
 
+/** Squared distance from (x, y) to the segment a–b (to the nearer end beyond either end). */
+function segmentDist2(ax: number, ay: number, bx: number, by: number, x: number, y: number): number {
+  let dx = bx - ax, dy = by - ay;
+  let px = ax, py = ay;
+  if (dx !== 0 || dy !== 0) {
+    const t = ((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy);
+    if (t > 1) { px = bx; py = by; } else if (t > 0) { px += dx * t; py += dy * t; }
+  }
+  dx = x - px; dy = y - py;
+  return dx * dx + dy * dy;
+}
+
 /** Signed distance from (x, y) to the boundary of polygons (even-odd inside test): > 0 inside. */
 function signedDistance(x: number, y: number, polys: Polygon[]): number {
   let inside = false;
@@ -105,15 +117,7 @@ function signedDistance(x: number, y: number, polys: Polygon[]): number {
     for (let i = 0, j = n - 2; i < n; j = i, i += 2) {
       const ax = p[i], ay = p[i + 1], bx = p[j], by = p[j + 1];
       if (ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax) inside = !inside;
-      // distance to segment a–b
-      let dx = bx - ax, dy = by - ay;
-      let px = ax, py = ay;
-      if (dx !== 0 || dy !== 0) {
-        const t = ((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy);
-        if (t > 1) { px = bx; py = by; } else if (t > 0) { px += dx * t; py += dy * t; }
-      }
-      dx = x - px; dy = y - py;
-      const d = dx * dx + dy * dy;
+      const d = segmentDist2(ax, ay, bx, by, x, y);
       if (d < best) best = d;
     }
   }
@@ -133,17 +137,9 @@ function edgeTable(polys: Polygon[]): Float64Array {
   return e;
 }
 
-/** Squared distance from (x, y) to edge k — signedDistance's arithmetic exactly. */
+/** Squared distance from (x, y) to edge k — signedDistance's arithmetic exactly (the same function). */
 function edgeDist2(e: Float64Array, k: number, x: number, y: number): number {
-  const ax = e[k], ay = e[k + 1], bx = e[k + 2], by = e[k + 3];
-  let dx = bx - ax, dy = by - ay;
-  let px = ax, py = ay;
-  if (dx !== 0 || dy !== 0) {
-    const t = ((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy);
-    if (t > 1) { px = bx; py = by; } else if (t > 0) { px += dx * t; py += dy * t; }
-  }
-  dx = x - px; dy = y - py;
-  return dx * dx + dy * dy;
+  return segmentDist2(e[k], e[k + 1], e[k + 2], e[k + 3], x, y);
 }
 
 /** The crossing test of signedDistance's even-odd rule for edge k and the ray from (x, y) to the right. */

@@ -9,15 +9,17 @@
  */
 import type { ComposeInput, FieldDef, MaterialKind } from './compose.ts';
 import { defaultBlank, type Blank } from './blanks.ts';
-import type { MotifGeometry } from './motif.ts';
+import type { StoredMotifGeometry } from './motif.ts';
 import { MATERIAL_KINDS } from './press-defaults.ts';
 // type-only: shared/schemas imports the engine at run time, not the other way round
-import type { Choices, Personalisation } from '../schemas/listing.ts';
+import type { Choices, ListingContent } from '../schemas/listing.ts';
 
+/** A blank's kind and the print area on it (a listing's blank; a line snapshot's with its top offset). */
 export type DesignBlank = { kind: string; label: string; widthMm: number; heightMm: number; topOffsetMm: number };
-export type DesignContent = { blank: DesignBlank; personalisation: Personalisation };
+/** The parts of a listing's content the design is made from. */
+export type DesignContent = Pick<ListingContent, 'blank' | 'personalisation'>;
 export type DesignMaterial = { id: string; kind: string; colourName: string; colourHex: string };
-export type DesignMotif = { id: string; geometry: MotifGeometry };
+export type DesignMotif = { id: string; geometry: StoredMotifGeometry };
 
 export type DesignLookups = {
   /** `key` names the choice (e.g. `textColours.name`) so a throwing lookup can point at the field. */

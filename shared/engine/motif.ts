@@ -62,6 +62,9 @@ export interface MotifGeometry {
   dropped: { what: string; reason: string; count: number }[];
 }
 
+/** A motif's geometry as stored with a shop's motifs and composed: without the report of what was dropped. */
+export type StoredMotifGeometry = Omit<MotifGeometry, 'dropped'>;
+
 const SHAPES = new Set(['rect', 'circle', 'ellipse', 'line', 'polyline', 'polygon', 'path']);
 const SILENT = new Set(['title', 'desc', 'metadata']);
 const REASONS: Record<string, string> = {

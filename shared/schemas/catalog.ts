@@ -1,6 +1,7 @@
 /** The public catalogue: search query, list items and the listing page. */
 import { z } from 'zod';
-import { blankKindSchema, occasionSchema, type ListingContentParsed } from './listing.ts';
+import type { StoredMotifGeometry } from '../engine/motif.ts';
+import { blankKindSchema, occasionSchema, type ListingContent } from './listing.ts';
 import { SHOP_STATES, type ShopState } from './shop.ts';
 import { pageQuery, pageSchema, type Page } from './pagination.ts';
 
@@ -46,7 +47,7 @@ export type CatalogPage = z.infer<typeof catalogPageSchema>;
 export const listingSlugParams = z.object({ slug: z.string().min(1).max(120) });
 
 /** A motif as the engine stores it (normalised geometry, mm); see shared/engine for the exact type. */
-export type PublicMotif = { id: string; name: string; geometry: unknown; svgUrl: string };
+export type PublicMotif = { id: string; name: string; geometry: StoredMotifGeometry; svgUrl: string };
 export type PublicMaterial = { id: string; kind: string; colourName: string; colourHex: string };
 export type PublicPhoto = { id: string; url: string; thumbnailUrl: string; width: number; height: number };
 
@@ -57,7 +58,7 @@ export type ListingPage = {
   currency: string;
   priceMinor: number;
   /** the approved content on sale (workroom costing fields removed) */
-  content: Omit<ListingContentParsed, 'blankCostMinor' | 'minutesPerLayer'>;
+  content: Omit<ListingContent, 'blankCostMinor' | 'minutesPerLayer'>;
   /** the description rendered to safe HTML (raw HTML in the seller's text comes out as text) */
   descriptionHtml: string;
   shop: { slug: string; name: string; processingDays: number; shippingMinor: number; currency: string; returnPolicy: string; logoUrl: string | null };

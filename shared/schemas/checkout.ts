@@ -1,5 +1,6 @@
 /** Checkout: the session the client is sent to, and the status the return page polls. */
 import { z } from 'zod';
+import type { LineSnapshot } from './cart.ts';
 
 export const checkoutStatusParams = z.object({
   sessionId: z
@@ -73,3 +74,17 @@ function countryName(code: string): string {
 export function shipToLines(a: ShipTo): string[] {
   return [a.name, a.line1, a.line2, a.city, [a.state, a.postalCode].filter(Boolean).join(' '), countryName(a.country)].filter((l): l is string => !!l);
 }
+
+/** The cart frozen at checkout; orders are made from exactly this, never from the live cart. */
+export type PricedCheckout = {
+  currency: string;
+  totalMinor: number;
+  shops: Array<{
+    shopId: string;
+    shopName: string;
+    shippingMinor: number;
+    subtotalMinor: number;
+    totalMinor: number;
+    lines: Array<{ cartLineId: string; listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; snapshot: LineSnapshot }>;
+  }>;
+};

@@ -154,8 +154,11 @@ export const listingInputSchema = z.object({
 });
 /** what the form holds (defaults optional) */
 export type ListingInput = z.input<typeof listingInputSchema>;
-/** what the server stores as the listing's content (draft and live copies) */
-export type ListingContentParsed = z.output<typeof listingInputSchema>;
+/**
+ * A listing's content: what the editor's schema outputs, what the server stores (the draft and the
+ * approved live copy, both JSON columns typed with it), and what the engine's mapping reads.
+ */
+export type ListingContent = z.output<typeof listingInputSchema>;
 
 export const LISTING_STATES = ['draft', 'in_review', 'live', 'rejected', 'paused'] as const;
 export const listingStateSchema = z.enum(LISTING_STATES);
@@ -182,7 +185,7 @@ export type ChoicesInput = z.input<typeof choicesSchema>;
 export type Choices = z.output<typeof choicesSchema>;
 
 /** The parts of a listing's content that pricing and checking need. */
-export type PricedContent = Pick<ListingContentParsed, 'basePriceMinor' | 'extraLayerPriceMinor'> & { personalisation: Personalisation };
+export type PricedContent = Pick<ListingContent, 'basePriceMinor' | 'extraLayerPriceMinor' | 'personalisation'>;
 
 /**
  * The layers (one vinyl material each, cut and pressed as one) that a set of choices uses, bottom
@@ -264,8 +267,8 @@ export type SellerListing = {
   rejectionReason: string | null;
   /** goes up by one on every save of the working copy; moderation decides on one revision */
   revision: number;
-  draft: ListingContentParsed;
-  live: ListingContentParsed | null;
+  draft: ListingContent;
+  live: ListingContent | null;
   currency: string;
   publishedAt: number | null;
   createdAt: number;
@@ -273,7 +276,7 @@ export type SellerListing = {
 };
 
 /** The catalogue's denormalised columns for a live copy (filters and sort read these, not the JSON). */
-export function liveColumns(content: Pick<ListingContentParsed, 'title' | 'basePriceMinor' | 'occasions'> & { blank: { kind: string } }) {
+export function liveColumns(content: Pick<ListingContent, 'title' | 'basePriceMinor' | 'occasions'> & { blank: { kind: string } }) {
   return {
     liveTitle: content.title,
     livePriceMinor: content.basePriceMinor,

@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { LINE_STATES, type LineState } from './order.ts';
-import { choicesSchema } from './listing.ts';
+import { choicesSchema, type Choices } from './listing.ts';
 import type { LineSnapshot } from './cart.ts';
 import type { ShipTo } from './checkout.ts';
 import type { PressCard } from '../engine/press-card.ts';
@@ -74,6 +74,16 @@ export type LowStockInput = z.input<typeof lowStockSchema>;
 export const personalisationEditSchema = z.object({ choices: choicesSchema });
 export type PersonalisationEditInput = z.input<typeof personalisationEditSchema>;
 
+/** GET /api/order-lines/:id/personalisation: what the shopper may change after a change request. */
+export type EditableTextField = { id: string; label: string; maxLength: number; required: boolean; fonts: Array<{ id: string; label: string }>; colours: Array<{ id: string; label: string; hex: string }> };
+export type PersonalisationEdit = {
+  line: { id: string; orderId: string; state: string; listingTitle: string; version: number };
+  editable: boolean;
+  changeRequest: string | null;
+  choices: Choices;
+  textFields: EditableTextField[];
+};
+
 // ---------------------------------------------------------------- answers
 export type MaterialRef = { id: string; kind: string; colour: string; colourHex: string };
 
@@ -136,6 +146,8 @@ export type WorkOrder = {
 };
 
 export type SheetPiece = { lineId: string; orderNumber: string; layerId: string; xMm: number; yMm: number; widthMm: number; heightMm: number; rotated: boolean };
+/** A nested piece as a cut sheet stores it: where it lies, which piece of the nest it is, its cut path. */
+export type StoredSheetPiece = SheetPiece & { pieceId: string; path: string };
 export type StockCheck = { stockMm: number; needMm: number; afterMm: number; low: boolean; short: boolean };
 export type WorkSheet = {
   id: string;

@@ -1,8 +1,9 @@
-// The preview's fast placement (src/features/personaliser/lib/place.ts) must put every piece where
-// the engine's compose() puts it: same path data after the same transform, to the character.
+// The live preview (src/features/personaliser/lib/place.ts, a thin caller of the engine's one
+// placement) and compose() must put every piece in the same place: the preview's path data drawn
+// through its matrix is compose()'s path, to the character; bad input fails the same way in both.
 import fs from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { compose, type ComposeInput, type FieldDef } from '../../shared/engine/compose.ts';
+import { compose, ComposeError, type ComposeInput, type FieldDef } from '../../shared/engine/compose.ts';
 import { defaultBlank } from '../../shared/engine/blanks.ts';
 import { parseMotifSvg } from '../../shared/engine/motif.ts';
 import { formatPath, parsePathData, transformPath } from '../../shared/engine/path.ts';
@@ -32,7 +33,7 @@ const cases: Array<[string, ComposeInput]> = [
   }],
 ];
 
-describe('placeDesign = compose() placement', () => {
+describe('the preview places every piece where compose() does', () => {
   for (const [label, input] of cases) {
     it(`when placing ${label}, then each piece's transformed path is compose()'s path`, () => {
       const item = compose(reg, input);
@@ -49,6 +50,22 @@ describe('placeDesign = compose() placement', () => {
       expect(placed.warnings).toEqual(item.warnings);
       // with an outline, the item's box is the outline's (grown by the offset; rounding of curves aside)
       for (const k of ['minX', 'minY', 'maxX', 'maxY'] as const) expect(Math.abs(placed.bboxMm[k] - item.bboxMm[k])).toBeLessThan(0.6);
+    });
+  }
+
+  const badInputs: Array<[string, ComposeInput, string]> = [
+    ['an empty name', { blank: defaultBlank('tote')!, fields: [name('name', 'baloo-bold', 50)], choices: { name: { text: '  ' } } }, 'name'],
+    ['a motif not offered', { blank: defaultBlank('tote')!, fields: [motif(100)], choices: { motif: { motifId: 'owl' } } }, 'motif'],
+    ['a colour not offered', { blank: defaultBlank('tote')!, fields: [name('name', 'baloo-bold', 50), { kind: 'colour', id: 'c', target: { fieldId: 'name' }, options: ['#1f2a44'] }], choices: { name: { text: 'Mira' }, c: { colour: '#ff0000' } } }, 'c'],
+  ];
+  for (const [label, input, fieldId] of badInputs) {
+    it(`when given ${label}, then the preview and compose() refuse it with the same field and message`, () => {
+      const err = (fn: () => unknown) => { try { fn(); } catch (e) { return e; } return null; };
+      const a = err(() => placeDesign(reg, input));
+      const b = err(() => compose(reg, input));
+      expect(a).toBeInstanceOf(ComposeError);
+      expect(b).toBeInstanceOf(ComposeError);
+      expect([(a as ComposeError).fieldId, (a as ComposeError).message]).toEqual([fieldId, (b as ComposeError).message]);
     });
   }
 });

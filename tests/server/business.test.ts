@@ -10,7 +10,6 @@ import { createOrdersForCheckout, type PricedShop } from '../../server/features/
 import { runDigest } from '../../server/jobs/digest.ts';
 import { parsePathData, pathArea } from '../../shared/engine/path.ts';
 import { sheetCostShares } from '../../shared/business/costs.ts';
-import type { LineSnapshot } from '../../shared/schemas/cart.ts';
 import type { CostsView, DueView, LedgerView, PriceCheckResult, BusinessSettings, ChartsView } from '../../shared/schemas/business.ts';
 import type { SellerListing } from '../../shared/schemas/listing.ts';
 
@@ -36,13 +35,13 @@ afterAll(async () => t?.close());
 function makeOrder(paidAt: number): { orderId: string; lineId: string } {
   const shop = t.db.select().from(shops).where(eq(shops.id, fernShop.id)).get()!;
   const src = t.db.select({ line: orderLines }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId)).where(eq(orders.shopId, shop.id)).all()[0]!.line;
-  const snapshot = src.snapshot as LineSnapshot;
+  const snapshot = src.snapshot;
   const priced: PricedShop = {
     shopId: shop.id, shopName: shop.name, shippingMinor: 450, subtotalMinor: src.unitPriceMinor, totalMinor: src.unitPriceMinor + 450,
     lines: [{ listingId: src.listingId, title: src.listingTitle, quantity: 1, unitPriceMinor: src.unitPriceMinor, totalMinor: src.unitPriceMinor, snapshot }],
   };
   const checkoutId = crypto.randomUUID();
-  t.db.insert(checkouts).values({ id: checkoutId, userId: danaId, cartId: crypto.randomUUID(), cartVersion: 1, state: 'paid', currency: 'USD', totalMinor: priced.totalMinor, priced: {}, createdAt: paidAt, paidAt }).run();
+  t.db.insert(checkouts).values({ id: checkoutId, userId: danaId, cartId: crypto.randomUUID(), cartVersion: 1, state: 'paid', currency: 'USD', totalMinor: priced.totalMinor, priced: { currency: 'USD', totalMinor: priced.totalMinor, shops: [] }, createdAt: paidAt, paidAt }).run();
   const [o] = createOrdersForCheckout(t.db, { checkoutId, buyerId: danaId, currency: 'USD', shops: [priced], paidAt, feeBps: 800, paymentIntentId: null });
   const line = t.db.select().from(orderLines).where(eq(orderLines.orderId, o!.id)).get()!;
   return { orderId: o!.id, lineId: line.id };
@@ -121,10 +120,10 @@ describe('cost of goods (Must show)', () => {
     for (const id of sheetIds) expect((await fern.post(`/api/workroom/cut-sheets/${id}/cut`)).status).toBe(200);
     const sheets = sheetIds.map((id) => t.db.select().from(cutSheets).where(eq(cutSheets.id, id)).get()!);
     // at least one sheet holds pieces of all three orders
-    const shared = sheets.find((s) => new Set((s.pieces as Array<{ lineId: string }>).map((p) => p.lineId)).size === 3);
+    const shared = sheets.find((s) => new Set(s.pieces.map((p) => p.lineId)).size === 3);
     expect(shared).toBeDefined();
     expect(shared!.costMinor).toBeGreaterThan(0);
-    const shares = sheetCostShares(shared!.costMinor!, (shared!.pieces as Array<{ lineId: string; path: string }>).map((p) => ({ lineId: p.lineId, areaMm2: pathArea(parsePathData(p.path)) })));
+    const shares = sheetCostShares(shared!.costMinor!, shared!.pieces.map((p) => ({ lineId: p.lineId, areaMm2: pathArea(parsePathData(p.path)) })));
     expect([...shares.values()].reduce((a, b) => a + b, 0)).toBe(shared!.costMinor);
 
     const costs = (await fern.get('/api/business/costs')).body as CostsView;

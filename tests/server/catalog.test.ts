@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { listings, type ListingContent } from '../../server/db/schema.ts';
+import { listings } from '../../server/db/schema.ts';
 import { OCCASIONS, liveColumns, listingInputSchema } from '../../shared/schemas/listing.ts';
 import { CATALOG_PAGE_SIZE } from '../../shared/schemas/catalog.ts';
 import { createListing, listingBody, liveListing } from './listings.fixtures.ts';
@@ -136,7 +136,7 @@ describe('filters, sort, pages', () => {
     const body = listingInputSchema.parse({ ...(await listingBody(fern)), title: 'Pagination tote', occasions: ['birthday'] });
     const at = Date.now();
     for (let i = 0; i < 30; i++) {
-      const content = { ...body, title: `Pagination tote ${i}` } as unknown as ListingContent;
+      const content = { ...body, title: `Pagination tote ${i}` };
       t.db.insert(listings).values({ id: crypto.randomUUID(), shopId, slug: `pagination-${i}`, state: 'live', draft: content, live: content, ...liveColumns(body), liveTitle: `Pagination tote ${i}`, publishedAt: at + i, createdAt: at, updatedAt: at }).run();
     }
     const p1 = (await get({ q: 'pagination' })).body;

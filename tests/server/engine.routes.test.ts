@@ -9,7 +9,8 @@ import { createFontRegistry } from '../../shared/engine/fonts.ts';
 import { layoutText } from '../../shared/engine/text-layout.ts';
 import { FONT_CATALOG } from '../../shared/engine/font-catalog.ts';
 import { fontListSchema, layoutTextResponseSchema } from '../../shared/schemas/engine.ts';
-import { fontBytes } from '../shared/engine/font-fixture.ts';
+import { fontBytes, testRegistry } from '../shared/engine/font-fixture.ts';
+import { fitText } from '../../shared/engine/fit.ts';
 import { hbAdvanceMm, hbFont } from '../shared/engine/harfbuzz-reference.ts';
 
 function app(opts?: Parameters<typeof engineRouter>[0]) {
@@ -88,6 +89,18 @@ describe('engine routes', () => {
     const codes = res.body.warnings.map((w: { code: string }) => w.code);
     expect(codes).toEqual(expect.arrayContaining(['extra_spaces', 'mixed_case', 'missing_characters']));
     expect(res.body.missing).toEqual(['美']);
+  });
+
+  it('when the text needs attention, then the API words each warning exactly as the engine does for the personaliser', async () => {
+    // small script letters, a character the font lacks, odd capitals and a doubled space
+    const input = { text: 'mIRA  ☃', fontId: 'dancing-script-bold', letterHeightMm: 8 };
+    const res = await request(a).post('/api/layout/text').send(input).expect(200);
+    // with room to spare the fit keeps the chosen height, so its warnings are those of the same layout
+    const fitted = fitText(testRegistry(), input, { maxWidthMm: 10_000, maxHeightMm: 10_000 });
+    expect(fitted.letterHeightMm).toBe(8);
+    expect(res.body.warnings.map((w: { code: string }) => w.code)).toEqual(['extra_spaces', 'mixed_case', 'below_min_letter_height', 'missing_characters']);
+    expect(res.body.warnings).toEqual(fitted.warnings);
+    expect(res.body.warnings.at(-1).message).toContain('U+2603');
   });
 
   it('when a client sends too many layout requests, then it gets 429 in the error shape', async () => {

@@ -20,13 +20,13 @@ beforeAll(async () => {
   const listingId = crypto.randomUUID();
   t.db.insert(listings).values({ id: listingId, shopId: seller.shopId, slug: `l-${listingId.slice(0, 8)}`, draft: {} as never, createdAt: at, updatedAt: at }).run();
   const checkoutId = crypto.randomUUID();
-  t.db.insert(checkouts).values({ id: checkoutId, userId: buyer.id, cartId: 'c', currency: 'USD', totalMinor: 2400, priced: {}, createdAt: at }).run();
+  t.db.insert(checkouts).values({ id: checkoutId, userId: buyer.id, cartId: 'c', currency: 'USD', totalMinor: 2400, priced: {} as never, createdAt: at }).run();
   const orderId = crypto.randomUUID();
   t.db.insert(orders).values({ id: orderId, number: 'NS-9001', checkoutId, shopId: seller.shopId, buyerId: buyer.id, currency: 'USD', subtotalMinor: 2400, shippingMinor: 0, platformFeeMinor: 192, totalMinor: 2400, paidAt: at, createdAt: at }).run();
   lineId = crypto.randomUUID();
   otherLineId = crypto.randomUUID();
   for (const id of [lineId, otherLineId]) {
-    t.db.insert(orderLines).values({ id, orderId, listingId, listingTitle: 'Name tote', quantity: 1, unitPriceMinor: 2400, totalMinor: 2400, snapshot: {}, createdAt: at, updatedAt: at }).run();
+    t.db.insert(orderLines).values({ id, orderId, listingId, listingTitle: 'Name tote', quantity: 1, unitPriceMinor: 2400, totalMinor: 2400, snapshot: {} as never, createdAt: at, updatedAt: at }).run();
   }
 });
 afterAll(() => t.close());

@@ -66,7 +66,7 @@ function makeOrders(buyerId: string, shopId: string, n: number, at: number, stat
     const checkoutId = crypto.randomUUID();
     const orderId = crypto.randomUUID();
     const paidAt = at + i * 60_000;
-    t.db.insert(checkouts).values({ id: checkoutId, userId: buyerId, cartId: crypto.randomUUID(), cartVersion: 1, state: 'paid', currency: 'USD', totalMinor: 2000, priced: {}, createdAt: paidAt, paidAt }).run();
+    t.db.insert(checkouts).values({ id: checkoutId, userId: buyerId, cartId: crypto.randomUUID(), cartVersion: 1, state: 'paid', currency: 'USD', totalMinor: 2000, priced: { currency: 'USD', totalMinor: 2000, shops: [] }, createdAt: paidAt, paidAt }).run();
     t.db.insert(orders).values({
       id: orderId, number: `NS-T${crypto.randomBytes(5).toString('hex')}`, checkoutId, shopId, buyerId, currency: 'USD', subtotalMinor: 1600, shippingMinor: 400,
       platformFeeMinor: 160, totalMinor: 2000, shipByDate: new Date(paidAt + 5 * 86_400_000).toISOString().slice(0, 10), paidAt, createdAt: paidAt,

@@ -5,6 +5,7 @@ import fc from 'fast-check';
 import Papa from 'papaparse';
 import { estimateVinyl, longestSampleName, orderCosts, paymentFee, priceCheck, sheetCostShares, splitExact } from '../../shared/business/costs.ts';
 import { balanceByMonth, ledgerCsv, minorToDecimal, signForShop, type LedgerEntry } from '../../shared/business/ledger.ts';
+import { splitForShop } from '../../shared/money.ts';
 import { ordersByListing, salesByWeek, vinylByMaterialMonth, weekStart } from '../../shared/business/reports.ts';
 
 describe('splitting a sheet cost by piece area', () => {
@@ -100,6 +101,15 @@ describe('estimates and the price check', () => {
     // 600 + 50 (49.5 rounds up) + 400 labour + 64 fee + (23.2 → 23) + 30
     expect(p.costMinor).toBe(600 + 50 + 400 + 64 + 53);
     expect(p.marginMinor).toBe(800 - p.costMinor);
+  });
+
+  test('when a price ends on half a cent of fee, then the margin check takes the fee checkout takes (half rounds up, once)', () => {
+    // 2506 × 8 % = 200.48 → 200; 6 × 25 % = 1.5 → 2; 1056 × 8 % = 84.48 → 84 (integer rounding, not a float product)
+    for (const [priceMinor, platformFeeBps, fee] of [[2506, 800, 200], [6, 2500, 2], [1056, 800, 84], [2524, 800, 202]] as const) {
+      const p = priceCheck({ priceMinor, layers: 1, blankCostMinor: 0, minutesPerLayer: 0, hourlyRateMinor: 0, vinylEstimateExact: 0, fees: { platformFeeBps, paymentFeeBps: 0, paymentFeeFixedMinor: 0 } });
+      expect(p.platformFeeMinor).toBe(fee);
+      expect(p.platformFeeMinor).toBe(splitForShop(priceMinor, 0, platformFeeBps).feeMinor);
+    }
   });
 
   test('when the longest name is made, then it has exactly the allowed length', () => {

@@ -20,7 +20,7 @@ import type {
 import { priceCheckSchema } from '../../../shared/schemas/business.ts';
 // The cart's mapping from a listing's personalisation to the engine is the one a real order goes
 // through; the price check reuses it rather than keep a second copy that could drift.
-import { buildSnapshot, type MaterialInfo, type MotifInfo } from '../cart/design.ts';
+import { buildSnapshot, snapshotLookups } from '../cart/design.ts';
 import { businessRepo as repo, type LineRow, type OrderRow, type SheetRow, type ShopRow } from './business.repo.ts';
 
 export type BusinessDeps = Pick<AppDeps, 'db' | 'env' | 'now'>;
@@ -124,14 +124,12 @@ function costingOf(content: unknown): ListingCosting {
   return { blankCostMinor: typeof c.blankCostMinor === 'number' ? c.blankCostMinor : 0, minutesPerLayer: typeof c.minutesPerLayer === 'number' ? c.minutesPerLayer : 0 };
 }
 
-type StoredPiece = { lineId: string; path: string };
-
 /** Every cut sheet's cost shared by piece area: line id → vinyl cost (minor) and whether sheets of it are still planned. */
 function cutVinylByLine(sheets: SheetRow[]): { cut: Map<string, number>; planned: Set<string> } {
   const cut = new Map<string, number>();
   const planned = new Set<string>();
   for (const s of sheets) {
-    const pieces = (s.pieces as StoredPiece[]).map((p) => ({ lineId: p.lineId, areaMm2: safeArea(p.path) }));
+    const pieces = s.pieces.map((p) => ({ lineId: p.lineId, areaMm2: safeArea(p.path) }));
     if (s.state !== 'cut' || s.costMinor === null) {
       for (const p of pieces) planned.add(p.lineId);
       continue;
@@ -180,7 +178,7 @@ export function costs(deps: BusinessDeps, shop: ShopRow, orderId?: string): Cost
   const fees = feesOf(deps.env);
   const orders: OrderCostView[] = [...byOrder.values()].map(({ order, lines }) => {
     const inputs: LineCostInput[] = lines.map((l) => {
-      const s = l.snapshot as LineSnapshot;
+      const s = l.snapshot;
       const c = listings.get(l.listingId) ?? { blankCostMinor: 0, minutesPerLayer: 0 };
       const isCut = cut.has(l.id) && (!planned.has(l.id) || !['awaiting_proof', 'changes_requested', 'approved'].includes(l.state));
       return {
@@ -214,10 +212,7 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
   const { draft } = input;
   const p = draft.personalisation;
   const matRows = repo.materialsOfShop(deps.db, shop.id);
-  const materials = new Map<string, MaterialInfo>(matRows.map((m) => [m.id, { id: m.id, kind: m.kind, colourName: m.colourName, colourHex: m.colourHex }]));
-  const motifs = new Map<string, MotifInfo>(
-    repo.motifsOfShop(deps.db, shop.id, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifInfo['geometry'] }]),
-  );
+  const { materials, motifs } = snapshotLookups(p, matRows, repo.motifsOfShop(deps.db, shop.id, p.motifChoices.map((m) => m.motifId)));
   const content = { title: 'Price check', blank: draft.blank, basePriceMinor: draft.basePriceMinor, extraLayerPriceMinor: draft.extraLayerPriceMinor, personalisation: p };
   const fees = feesOf(deps.env);
   const prices = priceMap(matRows);

@@ -7,17 +7,17 @@ import type { Db } from '../../db/client.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
 import type { AddCartLineInput, Cart, CartLine, CartShop, LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
-import type { MotifGeometry } from '../../../shared/engine/motif.ts';
 import { cartRepo, type CartRow } from './cart.repo.ts';
 import { clearCartCookie, readCartCookie, setCartCookie } from './cart-cookie.ts';
-import { buildSnapshotOffThread, readLiveContent, unitPrice, type LiveContent, type MaterialInfo, type MotifInfo } from './design.ts';
+import { buildSnapshotOffThread, readLiveContent, snapshotLookups, unitPrice } from './design.ts';
+import { materialIdsOf, type ListingContent } from '../../../shared/schemas/listing.ts';
 
 export type CartDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
 
 type ListingRow = NonNullable<ReturnType<typeof cartRepo.listingWithShop>>;
 
 /** A listing can be bought while its approved copy is on sale and its shop is live. */
-export function onSale(row: ListingRow): LiveContent | null {
+export function onSale(row: ListingRow): ListingContent | null {
   const { listing, shop } = row;
   if (shop.state !== 'live' || !listing.live) return null;
   const ok = listing.state === 'live' || (listing.state === 'in_review' && listing.pendingReview);
@@ -71,7 +71,7 @@ export function cartView(db: Db, cart: CartRow | null): Cart {
   const byShop = new Map<string, CartShop>();
   let currency: string | null = null;
   for (const l of lines) {
-    const snap = l.snapshot as LineSnapshot;
+    const snap = l.snapshot;
     const row = rows.get(l.listingId);
     const content = row ? onSale(row) : null;
     const price = content ? unitPrice(content, snap.choices) : snap.unitPriceMinor;
@@ -132,18 +132,7 @@ export async function addLine(deps: CartDeps & Pick<AppDeps, 'pool'>, cart: Cart
   if (!row || !content) throw notFound('This listing is not on sale right now.');
 
   const p = content.personalisation;
-  const materialIds = new Set<string>();
-  for (const f of p.textFields) f.colourChoices.forEach((c) => materialIds.add(c));
-  for (const m of p.motifChoices)
-    for (const l of m.layers) {
-      if (l.materialId) materialIds.add(l.materialId);
-      l.colourChoices?.forEach((c) => materialIds.add(c));
-    }
-  p.outline?.colourChoices.forEach((c) => materialIds.add(c));
-  const materials = new Map<string, MaterialInfo>(cartRepo.materials(db, row.shop.id, [...materialIds]).map((m) => [m.id, m]));
-  const motifs = new Map<string, MotifInfo>(
-    cartRepo.motifs(db, row.shop.id, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
-  );
+  const { materials, motifs } = snapshotLookups(p, cartRepo.materials(db, row.shop.id, materialIdsOf(p)), cartRepo.motifs(db, row.shop.id, p.motifChoices.map((m) => m.motifId)));
 
   // composed in the worker pool: the request thread never runs the geometry
   const snapshot = await buildSnapshotOffThread({

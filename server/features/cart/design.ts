@@ -3,46 +3,46 @@
 // listing's personalisation schema to the engine's field definitions is shared with the personaliser
 // (shared/engine/listing-design.ts); here the server adds validation, pricing and the snapshot.
 import { compose, ComposeError, type ComposedItem, type ComposeInput } from '../../../shared/engine/compose.ts';
-import { listingDesign, type DesignBlank, type DesignMaterial, type DesignMotif } from '../../../shared/engine/listing-design.ts';
+import { listingDesign, type DesignMaterial, type DesignMotif } from '../../../shared/engine/listing-design.ts';
 import type { FontRegistry } from '../../../shared/engine/fonts.ts';
-import { checkChoices, layersForChoices, priceForChoices, personalisationSchema, type Choices, type Personalisation } from '../../../shared/schemas/listing.ts';
+import { checkChoices, layersForChoices, materialIdsOf, priceForChoices, personalisationSchema, type Choices, type ListingContent, type Personalisation } from '../../../shared/schemas/listing.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 
-export type LiveContent = {
-  title: string;
-  blank: DesignBlank;
-  basePriceMinor: number;
-  extraLayerPriceMinor: number;
-  personalisation: Personalisation;
-};
-
 export type MaterialInfo = DesignMaterial;
 export type MotifInfo = DesignMotif & { name: string };
 
-/** The live copy of a listing as stored (validated by the listing editor); re-read through the shared schema. */
-export function readLiveContent(live: unknown): LiveContent | null {
-  if (!live || typeof live !== 'object') return null;
-  const l = live as Record<string, unknown>;
-  const p = personalisationSchema.safeParse(l.personalisation);
-  if (!p.success || typeof l.title !== 'string' || typeof l.basePriceMinor !== 'number') return null;
+/**
+ * The copy of a listing a shopper buys from, as stored (written through the editor's schema), or
+ * null when there is none or it is malformed; its personalisation is read through the shared schema
+ * again so older rows get today's defaults.
+ */
+export function readLiveContent(live: ListingContent | null | undefined): ListingContent | null {
+  if (!live || typeof live.title !== 'string' || typeof live.basePriceMinor !== 'number') return null;
+  const p = personalisationSchema.safeParse(live.personalisation);
+  return p.success ? { ...live, personalisation: p.data } : null;
+}
+
+/**
+ * The materials and motifs buildSnapshot looks up, keyed by id, from a shop's rows: only materials
+ * the listing's personalisation refers to (materialIdsOf), so any other id is "no longer available".
+ */
+export function snapshotLookups(p: Personalisation, materialRows: readonly MaterialInfo[], motifRows: readonly MotifInfo[]): { materials: Map<string, MaterialInfo>; motifs: Map<string, MotifInfo> } {
+  const ids = new Set(materialIdsOf(p));
   return {
-    title: l.title,
-    blank: l.blank as LiveContent['blank'],
-    basePriceMinor: l.basePriceMinor,
-    extraLayerPriceMinor: typeof l.extraLayerPriceMinor === 'number' ? l.extraLayerPriceMinor : 0,
-    personalisation: p.data,
+    materials: new Map(materialRows.filter((m) => ids.has(m.id)).map((m) => [m.id, m])),
+    motifs: new Map(motifRows.map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry }])),
   };
 }
 
 /** Price of one item from the live listing and the choices (never from the client). */
-export const unitPrice = (content: LiveContent, choices: Choices) => priceForChoices(content, choices);
+export const unitPrice = (content: ListingContent, choices: Choices) => priceForChoices(content, choices);
 
 type SnapshotArgs = {
   registry: FontRegistry;
   listing: { id: string; slug: string; shopId: string; currency: string };
-  content: LiveContent;
+  content: Pick<ListingContent, 'title' | 'blank' | 'basePriceMinor' | 'extraLayerPriceMinor' | 'personalisation'>;
   choices: Choices;
   materials: Map<string, MaterialInfo>;
   motifs: Map<string, MotifInfo>;
@@ -109,7 +109,7 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
   const missing = composed.warnings.filter((w) => w.code === 'missing_characters');
   if (missing.length > 0) {
     const fieldsOut: Record<string, string> = {};
-    for (const w of missing) fieldsOut[`choices.texts.${w.fieldId}.text`] = `This font cannot draw ${(w.characters ?? []).map((ch) => `“${ch}”`).join(', ')}. Remove ${(w.characters ?? []).length > 1 ? 'them' : 'it'} or pick another font.`;
+    for (const w of missing) fieldsOut[`choices.texts.${w.fieldId}.text`] = w.message;
     throw new AppError(400, 'unsupported_characters', Object.values(fieldsOut)[0]!, fieldsOut);
   }
 

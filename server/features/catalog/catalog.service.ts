@@ -5,7 +5,7 @@ import { uploadUrl } from '../../integrations/storage.ts';
 import {
   CARE_CARD, SMALL_PARTS_NOTES, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage,
 } from '../../../shared/schemas/catalog.ts';
-import { materialIdsOf, type ListingContentParsed, type Occasion } from '../../../shared/schemas/listing.ts';
+import { materialIdsOf, type Occasion } from '../../../shared/schemas/listing.ts';
 import type { PublicShop } from '../../../shared/schemas/shop.ts';
 import { toPage } from '../../../shared/schemas/pagination.ts';
 import * as repo from './catalog.repo.ts';
@@ -52,7 +52,7 @@ export function listingPage(db: Db, slug: string, version: 'live' | 'draft', vie
   } else found = repo.liveListingBySlug(db, slug);
   if (!found) throw notFound('No such listing.');
   const { listing, shop } = found;
-  const raw = (version === 'draft' ? listing.draft : listing.live) as unknown as ListingContentParsed | null;
+  const raw = version === 'draft' ? listing.draft : listing.live;
   if (!raw) throw notFound('No such listing.');
   const { blankCostMinor: _c, minutesPerLayer: _m, ...content } = raw;
   const photos = new Map(repo.photosOf(db, shop.id, content.photoIds).map((u) => [u.id, u]));

@@ -10,8 +10,7 @@ import type { Db } from '../../db/client.ts';
 import { AppError, badRequest, conflict, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
-import { SHIPPING_COUNTRIES, type CheckoutStarted, type CheckoutStatus, type CheckoutState } from '../../../shared/schemas/checkout.ts';
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { SHIPPING_COUNTRIES, type CheckoutStarted, type CheckoutStatus, type CheckoutState, type PricedCheckout } from '../../../shared/schemas/checkout.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
 import { cartView, resolveCart } from '../cart/cart.service.ts';
 import { cartRepo, type CartRow } from '../cart/cart.repo.ts';
@@ -20,24 +19,12 @@ import { CANCELLED_WORDS, declineInOurWords } from './decline-words.ts';
 
 export type CheckoutDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
 
-/** The cart frozen at checkout; orders are made from exactly this, never from the live cart. */
-export type PricedCheckout = {
-  currency: string;
-  totalMinor: number;
-  shops: Array<{
-    shopId: string;
-    shopName: string;
-    shippingMinor: number;
-    subtotalMinor: number;
-    totalMinor: number;
-    lines: Array<{ cartLineId: string; listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; snapshot: LineSnapshot }>;
-  }>;
-};
+export type { PricedCheckout } from '../../../shared/schemas/checkout.ts';
 
 export const transferGroupOf = (checkoutId: string) => `checkout_${checkoutId}`;
 
 function sessionParams(deps: CheckoutDeps, c: CheckoutRow, email: string): Stripe.Checkout.SessionCreateParams {
-  const priced = c.priced as PricedCheckout;
+  const priced = c.priced;
   const cur = priced.currency.toLowerCase();
   const items: Stripe.Checkout.SessionCreateParams.LineItem[] = [];
   for (const s of priced.shops) {

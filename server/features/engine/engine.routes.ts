@@ -13,7 +13,7 @@ import { getFontFile, getFontRegistry, listFontFiles } from '../../integrations/
 import { layoutText, LayoutError, type TextLayout } from '../../../shared/engine/text-layout.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 import { createLayoutCache } from '../../workers/layout.ts';
-import { textWarnings, type TextWarning } from '../../../shared/engine/fit.ts';
+import { layoutWarnings } from '../../../shared/engine/fit.ts';
 
 export interface EngineRouterOptions {
   /** Layout requests per minute per client (default 240). */
@@ -52,18 +52,7 @@ export function layoutTextResponse(input: LayoutTextRequest, layout?: TextLayout
   const reg = getFontRegistry();
   const font = reg.require(input.fontId);
   const l = layout ?? layoutText(reg, input);
-  const warnings: TextWarning[] = textWarnings(l.text);
-  if (input.letterHeightMm < font.minLetterHeightMm) {
-    warnings.push({
-      code: 'below_min_letter_height',
-      message: `Letters under ${font.minLetterHeightMm} mm are hard to weed and read in this font.`,
-      letterHeightMm: input.letterHeightMm,
-      minLetterHeightMm: font.minLetterHeightMm,
-    });
-  }
-  if (l.missing.length) {
-    warnings.push({ code: 'missing_characters', message: `This font cannot draw: ${l.missing.join(' ')}.`, characters: [...l.missing] });
-  }
+  const warnings = layoutWarnings(l, { letterHeightMm: input.letterHeightMm, minLetterHeightMm: font.minLetterHeightMm });
   return {
     text: l.text,
     fontId: l.fontId,

@@ -1,9 +1,8 @@
 import crypto from 'node:crypto';
 import slugify from 'slugify';
 import type { Db } from '../../db/client.ts';
-import type { ListingContent } from '../../db/schema.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
-import { materialIdsOf, type ListingContentParsed, type ListingState, type SellerListing, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
+import { materialIdsOf, type ListingContent, type ListingState, type SellerListing, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
 import { pageOffset, toPage, type Page } from '../../../shared/schemas/pagination.ts';
 import { countOwn, deleteOwn, findOwn, insertListing, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn, type ListingRow } from './listings.repo.ts';
 
@@ -12,7 +11,7 @@ type Deps = { db: Db; now: () => number };
 export function toSellerListing(l: ListingRow): SellerListing {
   return {
     id: l.id, slug: l.slug, state: l.state as ListingState, pendingReview: l.pendingReview, rejectionReason: l.rejectionReason, revision: l.revision,
-    draft: l.draft as unknown as ListingContentParsed, live: (l.live as unknown as ListingContentParsed | null) ?? null,
+    draft: l.draft, live: l.live,
     currency: l.currency, publishedAt: l.publishedAt, createdAt: l.createdAt, updatedAt: l.updatedAt,
   };
 }
@@ -23,7 +22,7 @@ const gone = () => notFound('No such listing in your shop.');
  * Everything a listing refers to must belong to the seller's own shop: materials (not archived),
  * motifs (and the layer ids must exist in the motif), photos. Another shop's id reads as unknown.
  */
-function checkReferences(db: Db, shopId: string, c: ListingContentParsed) {
+function checkReferences(db: Db, shopId: string, c: ListingContent) {
   const fields: Record<string, string> = {};
   const p = c.personalisation;
   const mats = new Map(ownMaterials(db, shopId, materialIdsOf(p)).map((m) => [m.id, m]));
@@ -42,7 +41,7 @@ function checkReferences(db: Db, shopId: string, c: ListingContentParsed) {
       fields[`personalisation.motifChoices.${i}.motifId`] = 'Pick a motif from your shop.';
       return;
     }
-    const layerIds = new Set((motif.geometry as { layers: { id: string }[] }).layers.map((l) => l.id));
+    const layerIds = new Set(motif.geometry.layers.map((l) => l.id));
     mc.layers.forEach((l, j) => {
       if (!layerIds.has(l.layerId)) fields[`personalisation.motifChoices.${i}.layers.${j}.layerId`] = 'This motif has no such layer.';
       checkMat(l.materialId, `personalisation.motifChoices.${i}.layers.${j}.materialId`);
@@ -74,12 +73,12 @@ export function get(db: Db, shopId: string, id: string): SellerListing {
   return toSellerListing(l);
 }
 
-export function create(deps: Deps, shop: { id: string; currency: string }, content: ListingContentParsed): SellerListing {
+export function create(deps: Deps, shop: { id: string; currency: string }, content: ListingContent): SellerListing {
   checkReferences(deps.db, shop.id, content);
   const at = deps.now();
   return toSellerListing(insertListing(deps.db, {
     id: crypto.randomUUID(), shopId: shop.id, slug: uniqueSlug(deps.db, content.title), state: 'draft',
-    draft: content as unknown as ListingContent, currency: shop.currency, createdAt: at, updatedAt: at,
+    draft: content, currency: shop.currency, createdAt: at, updatedAt: at,
   }));
 }
 
@@ -89,14 +88,14 @@ export function create(deps: Deps, shop: { id: string; currency: string }, conte
  * queue with the new revision, so a moderator who opened an older one cannot approve it (409); a
  * rejected listing becomes a draft again.
  */
-export function update(deps: Deps, shopId: string, id: string, content: ListingContentParsed): SellerListing {
+export function update(deps: Deps, shopId: string, id: string, content: ListingContent): SellerListing {
   const l = findOwn(deps.db, shopId, id);
   if (!l) throw gone();
   checkReferences(deps.db, shopId, content);
   const onSale = l.live !== null && (l.state === 'live' || l.state === 'paused');
   const state = l.state === 'rejected' ? 'draft' : l.state;
   return toSellerListing(updateOwn(deps.db, shopId, id, {
-    draft: content as unknown as ListingContent, state, pendingReview: onSale ? true : l.pendingReview,
+    draft: content, state, pendingReview: onSale ? true : l.pendingReview,
     rejectionReason: onSale ? l.rejectionReason : null, revision: l.revision + 1, updatedAt: deps.now(),
   })!);
 }

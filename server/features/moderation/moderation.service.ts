@@ -4,7 +4,7 @@ import type { Mailer } from '../../integrations/mailer.ts';
 import { escapeHtml, mailLayout } from '../../integrations/mailer.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
-import { liveColumns, type ListingContentParsed } from '../../../shared/schemas/listing.ts';
+import { liveColumns, type ListingContent } from '../../../shared/schemas/listing.ts';
 import {
   STALE_LISTING_MESSAGE, STALE_SHOP_CHANGE_MESSAGE, type ListingPage, type ModerationShopsFilter, type ModerationShopsPage,
 } from '../../../shared/schemas/catalog.ts';
@@ -69,10 +69,10 @@ function queueListing({ listing, shop }: { listing: repo.ListingRow; shop: repo.
     revision: listing.revision,
     /** "new" waits for its first approval; "edit" is a change to a listing already on sale */
     kind: listing.live ? ('edit' as const) : ('new' as const),
-    title: (listing.draft as unknown as ListingContentParsed).title,
+    title: listing.draft.title,
     shop: { id: shop.id, name: shop.name, slug: shop.slug, state: shop.state },
-    draft: listing.draft as unknown as ListingContentParsed,
-    live: (listing.live as unknown as ListingContentParsed | null) ?? null,
+    draft: listing.draft,
+    live: listing.live,
     /** the listing page as a shopper would see it: GET this URL (admin only for drafts) */
     previewUrl: `/api/listings/${listing.slug}?version=draft`,
     submittedAt: listing.updatedAt,
@@ -125,7 +125,7 @@ export async function approveListing(deps: Deps, actor: SessionUser, id: string,
   const l = waiting(deps.db, id);
   notOwnShop(deps.db, actor, l.shopId);
   if (l.revision !== revision) throw stale(STALE_LISTING_MESSAGE);
-  const content = l.draft as unknown as ListingContentParsed;
+  const content = l.draft;
   const at = deps.now();
   const row = deps.db.transaction((tx) => {
     const db = tx as unknown as Db;
@@ -149,7 +149,7 @@ export async function rejectListing(deps: Deps, actor: SessionUser, id: string, 
   const l = waiting(deps.db, id);
   notOwnShop(deps.db, actor, l.shopId);
   if (l.revision !== revision) throw stale(STALE_LISTING_MESSAGE);
-  const content = l.draft as unknown as ListingContentParsed;
+  const content = l.draft;
   const at = deps.now();
   // a rejected edit leaves the approved copy on sale; a new listing goes back to the seller
   const row = deps.db.transaction((tx) => {
@@ -256,7 +256,7 @@ export function auditLog(db: Db, q: PageQuery) {
   const listingIds = rows.filter((r) => r.entry.subjectType === 'listing').map((r) => r.entry.subjectId);
   const labels = new Map<string, string>([
     ...repo.shopNames(db, shopIds).map((s) => [s.id, s.name] as [string, string]),
-    ...repo.listingTitles(db, listingIds).map((l) => [l.id, (l.draft as unknown as ListingContentParsed).title] as [string, string]),
+    ...repo.listingTitles(db, listingIds).map((l) => [l.id, l.draft.title] as [string, string]),
   ]);
   const items = rows.map(({ entry, actorName, actorEmail }) => ({
     id: entry.id, at: entry.createdAt, actor: { id: entry.actorId, name: actorName, email: actorEmail }, action: entry.action,

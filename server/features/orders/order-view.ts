@@ -1,6 +1,5 @@
 // Orders as the API shows them (shopper pages, the seller's refund answer).
 import type { Db } from '../../db/client.ts';
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { parseShipTo } from '../../../shared/schemas/checkout.ts';
 import type { LineState, OrderDetail, OrderEvent, OrderSummary } from '../../../shared/schemas/order.ts';
 import { pageOffset, toPage, type Page, type PageQuery } from '../../../shared/schemas/pagination.ts';
@@ -55,7 +54,7 @@ export function orderDetail(db: Db, o: OrderRow): OrderDetail {
       refundedMinor: l.refundedMinor,
       state: l.state as LineState,
       version: l.version,
-      snapshot: l.snapshot as LineSnapshot,
+      snapshot: l.snapshot,
       history: events
         .filter((e) => e.lineId === l.id)
         .map((e) => ({ id: e.id, fromState: e.fromState as LineState | null, toState: e.toState as LineState, message: e.message, at: e.createdAt, actor: actor(e.actorId) })),

@@ -80,14 +80,14 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       const t = tx as unknown as Db;
       if (!paymentsRepo.recordEvent(t, event.id, event.type, at)) return false;
       const c = paymentsRepo.checkout(t, checkoutId)!;
-      const priced = c.priced as PricedCheckout;
+      const priced = c.priced;
       const pi = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
       if (!paymentsRepo.markPaid(t, c.id, at, pi)) return true; // paid through an earlier event
       const made = createOrdersForCheckout(t, {
         checkoutId: c.id,
         buyerId: c.userId,
         currency: c.currency,
-        shops: priced.shops as PricedShop[],
+        shops: c.priced.shops,
         paidAt: at,
         feeBps: deps.env.PLATFORM_FEE_BPS,
         paymentIntentId: pi,
@@ -99,7 +99,7 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       }
       const shipTo = shipToOf(session);
       if (shipTo) paymentsRepo.setShipTo(t, c.id, shipTo);
-      paymentsRepo.removeCartLines(t, c.cartId, priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
+      paymentsRepo.removeCartLines(t, c.cartId, c.priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
       created = true;
       return true;
     });
@@ -203,7 +203,7 @@ async function sendOrderMails(deps: PaymentsDeps, checkoutId: string): Promise<v
     shippingMinor: o.shippingMinor,
     totalMinor: o.totalMinor,
     feeMinor: o.platformFeeMinor,
-    lines: lines.filter((l) => l.orderId === o.id).map((l) => ({ title: l.listingTitle, quantity: l.quantity, totalMinor: l.totalMinor, snapshot: l.snapshot as LineSnapshot })),
+    lines: lines.filter((l) => l.orderId === o.id).map((l) => ({ title: l.listingTitle, quantity: l.quantity, totalMinor: l.totalMinor, snapshot: l.snapshot })),
   }));
   const sends: Promise<void>[] = [];
   if (buyer) sends.push(deps.mailer.send(confirmationMail(buyer, mailOrders, deps.env.baseUrl)));

@@ -38,8 +38,6 @@ export function removePhoto(deps: { db: Db; storage: Storage }, shopId: string, 
 // ---------------------------------------------------------------- motifs
 const ACTIVE = /^(<script>|<foreignObject>|<iframe>|on\w+ attribute)$/i;
 
-/** what we store: the engine's geometry without the report of what was dropped */
-type StoredMotif = Omit<MotifGeometry, 'dropped'>;
 
 export type MotifView = {
   id: string;
@@ -51,7 +49,7 @@ export type MotifView = {
   createdAt: number;
 };
 export function toMotif(m: MotifRow): MotifView {
-  const g = m.geometry as StoredMotif;
+  const g = m.geometry;
   return {
     id: m.id, name: m.name, widthMm: g.widthMm, heightMm: g.heightMm,
     layers: g.layers.map((l) => ({ id: l.id, colour: l.colour, areaMm2: l.areaMm2, bboxMm: l.bboxMm })),
@@ -102,7 +100,7 @@ export const listOwnMotifs = (db: Db, shopId: string) => listMotifs(db, shopId).
 export function getOwnMotif(db: Db, shopId: string, id: string) {
   const m = findMotif(db, shopId, id);
   if (!m) throw notFound('No such motif in your shop.');
-  return { ...toMotif(m), geometry: m.geometry as StoredMotif };
+  return { ...toMotif(m), geometry: m.geometry };
 }
 
 export function removeMotif(db: Db, shopId: string, id: string) {
@@ -121,5 +119,5 @@ export function motifSvg(db: Db, id: string, viewer: { role?: string; shopId?: s
   if (!m) throw notFound('No such motif.');
   const allowed = viewer.role === 'admin' || (viewer.shopId && viewer.shopId === m.shopId) || motifOnSale(db, m);
   if (!allowed) throw notFound('No such motif.');
-  return renderMotifSvg({ ...(m.geometry as StoredMotif), dropped: [] });
+  return renderMotifSvg({ ...m.geometry, dropped: [] });
 }

@@ -8,23 +8,13 @@ import type { WorkroomDeps } from './workroom.service.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
-import type { Choices } from '../../../shared/schemas/listing.ts';
-import { personalisationEditSchema } from '../../../shared/schemas/workroom.ts';
-import type { MotifGeometry } from '../../../shared/engine/motif.ts';
+import { personalisationEditSchema, type PersonalisationEdit } from '../../../shared/schemas/workroom.ts';
 import { catalogEntry } from '../../../shared/engine/font-catalog.ts';
 // the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
-import { buildSnapshot, readLiveContent, type MaterialInfo, type MotifInfo } from '../cart/design.ts';
+import { buildSnapshot, readLiveContent, snapshotLookups } from '../cart/design.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 
-export type EditableTextField = { id: string; label: string; maxLength: number; required: boolean; fonts: Array<{ id: string; label: string }>; colours: Array<{ id: string; label: string; hex: string }> };
-export type PersonalisationEdit = {
-  line: { id: string; orderId: string; state: string; listingTitle: string; version: number };
-  editable: boolean;
-  changeRequest: string | null;
-  choices: Choices;
-  textFields: EditableTextField[];
-};
 
 function buyersLine(db: Db, buyerId: string, lineId: string) {
   const line = repo.lineById(db, lineId);
@@ -51,7 +41,7 @@ export function personalisationForEdit(db: Db, buyerId: string, lineId: string):
     line: { id: line.id, orderId: line.orderId, state: line.state, listingTitle: line.listingTitle, version: line.version },
     editable: line.state === 'changes_requested',
     changeRequest: line.state === 'changes_requested' ? (request?.message ?? null) : null,
-    choices: (line.snapshot as LineSnapshot).choices,
+    choices: line.snapshot.choices,
     textFields: content.personalisation.textFields.map((f) => ({
       id: f.id,
       label: f.label,
@@ -77,21 +67,10 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
     throw new AppError(409, 'wrong_state', 'This item can be edited only while the shop has asked for a change.');
   }
   const { listing, content } = contentOf(db, line.listingId);
-  const old = line.snapshot as LineSnapshot;
+  const old = line.snapshot;
 
   const p = content.personalisation;
-  const materialIds = new Set<string>();
-  for (const f of p.textFields) f.colourChoices.forEach((c) => materialIds.add(c));
-  for (const m of p.motifChoices)
-    for (const l of m.layers) {
-      if (l.materialId) materialIds.add(l.materialId);
-      l.colourChoices?.forEach((c) => materialIds.add(c));
-    }
-  p.outline?.colourChoices.forEach((c) => materialIds.add(c));
-  const materials = new Map<string, MaterialInfo>(repo.materialsOfShop(db, listing.shopId).filter((m) => materialIds.has(m.id)).map((m) => [m.id, m]));
-  const motifs = new Map<string, MotifInfo>(
-    repo.motifsOfShop(db, listing.shopId, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, { id: m.id, name: m.name, geometry: m.geometry as MotifGeometry }]),
-  );
+  const { materials, motifs } = snapshotLookups(p, repo.materialsOfShop(db, listing.shopId), repo.motifsOfShop(db, listing.shopId, p.motifChoices.map((m) => m.motifId)));
   const fresh = buildSnapshot({
     registry: getFontRegistry(),
     listing: { id: listing.id, slug: listing.slug, shopId: listing.shopId, currency: listing.currency },

@@ -13,12 +13,13 @@ import { personalisationSchema, type Personalisation } from '../../../shared/sch
 import {
   WORK_STATES,
   type CharInfo, type MarkCutResult, type MaterialRef, type Proof, type ProofText, type ProofVersion, type ProofWarning, type PressCardView,
-  type SheetPiece, type StockView, type StockWarning, type TimelineEvent, type WorkLine, type WorkLinesPage, type WorkOrder, type WorkroomSummary, type WorkSheet,
+  type SheetPiece, type StoredSheetPiece, type StockView, type StockWarning, type TimelineEvent, type WorkLine, type WorkLinesPage, type WorkOrder, type WorkroomSummary, type WorkSheet,
   type LinesQuery, stockQuerySchema,
 } from '../../../shared/schemas/workroom.ts';
 import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagination.ts';
 import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
 import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
+import { blankFor } from '../../../shared/engine/listing-design.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
 import { CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM, type CutSheet, type NestPiece } from '../../../shared/engine/cut-sheets.ts';
 import { cutOutline } from '../../../shared/engine/cut-path.ts';
@@ -38,7 +39,7 @@ export { TRIM_ALLOWANCE_MM };
 
 type Row = { line: LineRow; order: OrderRow };
 
-const snap = (l: LineRow) => l.snapshot as LineSnapshot;
+const snap = (l: LineRow) => l.snapshot;
 
 /** The material ids a line uses, bottom → top (the snapshot's pieces are in press order). */
 export function lineMaterialIds(s: LineSnapshot): string[] {
@@ -188,7 +189,7 @@ function normalForm(text: string): ProofText['normalized'] {
 
 function listingContent(db: Db, listingId: string): { personalisation: Personalisation | null; topOffsetMm: number | null } {
   const l = repo.listing(db, listingId);
-  const c = (l?.live ?? l?.draft) as { personalisation?: unknown; blank?: { topOffsetMm?: number } } | undefined;
+  const c = l?.live ?? l?.draft;
   const p = personalisationSchema.safeParse(c?.personalisation);
   return { personalisation: p.success ? p.data : null, topOffsetMm: typeof c?.blank?.topOffsetMm === 'number' ? c.blank.topOffsetMm : null };
 }
@@ -213,12 +214,8 @@ export function proofBlank(s: LineSnapshot, topOffsetMm: number | null): Proof['
 export function proofWarnings(s: LineSnapshot, p: Personalisation | null, topOffsetMm: number | null): { texts: ProofText[]; warnings: ProofWarning[] } {
   const registry = getFontRegistry();
   const base = defaultBlank(s.blank.kind) ?? defaultBlank('tote')!;
-  const blank = {
-    ...base,
-    printArea: { widthMm: s.blank.widthMm, heightMm: s.blank.heightMm },
-    topOffsetMm: topOffsetMm ?? base.topOffsetMm,
-    maxDesignBottomMm: Math.max(base.maxDesignBottomMm, (topOffsetMm ?? base.topOffsetMm) + s.blank.heightMm),
-  };
+  // the blank as the cart composed on it (the listing's print area and top offset)
+  const blank = blankFor({ blank: { ...s.blank, topOffsetMm: topOffsetMm ?? base.topOffsetMm } });
   const area = usableArea(blank);
   const entries = Object.entries(s.choices.texts).filter(([, t]) => t.text.trim() !== '');
   const blocks = entries.length + (s.choices.motifId ? 1 : 0);
@@ -276,7 +273,7 @@ export function proof(db: Db, shopId: string, lineId: string): Proof {
     texts,
     warnings,
     versions: versions.map((v): ProofVersion => {
-      const vs = v.snapshot as LineSnapshot;
+      const vs = v.snapshot;
       return { version: v.version, createdAt: v.createdAt, authorName: v.authorId ? (authors.get(v.authorId) ?? null) : null, summary: vs.summary, texts: Object.values(vs.choices.texts).map((t) => t.text) };
     }),
     changeRequest: row.line.state === 'changes_requested' ? (lastRequest?.message ?? null) : null,
@@ -317,8 +314,6 @@ export async function requestChange(deps: WorkroomDeps, shopId: string, actorId:
 
 // ---------------------------------------------------------------- cut sheets
 
-type StoredPiece = SheetPiece & { pieceId: string; path: string };
-
 const r3 = (v: number) => Math.round(v * 1000) / 1000;
 
 function stockCheck(m: MaterialRow | undefined, needMm: number): WorkSheet['stock'] {
@@ -328,7 +323,7 @@ function stockCheck(m: MaterialRow | undefined, needMm: number): WorkSheet['stoc
 }
 
 function sheetView(s: SheetRow, m: MaterialRow | undefined): WorkSheet {
-  const pieces = (s.pieces as StoredPiece[]).map(({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }) => ({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }));
+  const pieces = s.pieces.map(({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }) => ({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }));
   return {
     id: s.id,
     batchId: s.batchId,
@@ -348,7 +343,7 @@ function sheetView(s: SheetRow, m: MaterialRow | undefined): WorkSheet {
 
 /** The nested sheet as the core's CutSheet, for the SVG and the PDF. */
 export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string; path: string }> } {
-  const stored = s.pieces as StoredPiece[];
+  const stored = s.pieces;
   return {
     rollWidthMm: s.rollWidthMm,
     gapMm: DEFAULT_GAP_MM,
@@ -424,7 +419,7 @@ export async function buildCutSheets(deps: WorkroomDeps & Pick<AppDeps, 'pool'>,
         rollWidthMm: n.rollWidthMm,
         lengthMm: r3(n.lengthMm),
         utilisation: n.utilisation,
-        pieces: n.placements.map((pl): StoredPiece => ({
+        pieces: n.placements.map((pl): StoredSheetPiece => ({
           pieceId: pl.pieceId, lineId: pl.lineId, orderNumber: pl.orderNumber ?? '', layerId: pl.layerId,
           xMm: pl.xMm, yMm: pl.yMm, widthMm: pl.widthMm, heightMm: pl.heightMm, rotated: pl.rotated, path: paths.get(pl.pieceId)!,
         })),
@@ -452,7 +447,7 @@ export function recentBatches(db: Db, shopId: string): Array<{ batchId: string; 
     if (!b) by.set(s.batchId, (b = { batchId: s.batchId, createdAt: s.createdAt, sheets: 0, planned: 0, lines: new Set() }));
     b.sheets++;
     if (s.state !== 'cut') b.planned++;
-    for (const p of s.pieces as StoredPiece[]) b.lines.add(p.lineId);
+    for (const p of s.pieces) b.lines.add(p.lineId);
   }
   return [...by.values()].slice(0, 20).map(({ lines, ...b }) => ({ ...b, lineCount: lines.size }));
 }
@@ -495,11 +490,11 @@ export function markCut(deps: WorkroomDeps, shopId: string, actorId: string, she
       if (after < 0) warnings.push({ materialId: m.id, level: 'short', message: `${label}: this sheet needed ${consumed} mm but only ${m.stockMm} mm was in stock — short by ${r3(-after)} mm. Stock is now 0; check the roll and update it.` });
       else if (after < m.lowStockMm) warnings.push({ materialId: m.id, level: 'low', message: `${label}: ${after} mm left, under your low-stock mark of ${m.lowStockMm} mm. Time to reorder.` });
     }
-    const lineIds = [...new Set(todo.flatMap((s) => (s.pieces as StoredPiece[]).map((p) => p.lineId)))];
+    const lineIds = [...new Set(todo.flatMap((s) => s.pieces.map((p) => p.lineId)))];
     for (const { line } of repo.linesByIds(t, shopId, lineIds)) {
       if (line.state !== 'approved') continue;
-      const batches = new Set(todo.filter((s) => (s.pieces as StoredPiece[]).some((p) => p.lineId === line.id)).map((s) => s.batchId));
-      const allCut = [...batches].every((b) => repo.sheetsOfBatch(t, shopId, b).filter((s) => (s.pieces as StoredPiece[]).some((p) => p.lineId === line.id)).every((s) => s.state === 'cut'));
+      const batches = new Set(todo.filter((s) => s.pieces.some((p) => p.lineId === line.id)).map((s) => s.batchId));
+      const allCut = [...batches].every((b) => repo.sheetsOfBatch(t, shopId, b).filter((s) => s.pieces.some((p) => p.lineId === line.id)).every((s) => s.state === 'cut'));
       if (allCut) {
         move(t, line, 'cut', actorId, at, 'All its pieces are cut.');
         linesCut.push(line.id);
@@ -605,7 +600,7 @@ export function stock(db: Db, shopId: string, q: PageQuery): StockView {
     sheets: toPage(
       sheets.map((s) => ({
         id: s.id, batchId: s.batchId, materialId: s.materialId, state: s.state === 'cut' ? ('cut' as const) : ('planned' as const), lengthMm: s.lengthMm, consumedMm: s.consumedMm,
-        costMinor: s.costMinor, cutAt: s.cutAt, createdAt: s.createdAt, lineCount: new Set((s.pieces as StoredPiece[]).map((p) => p.lineId)).size,
+        costMinor: s.costMinor, cutAt: s.cutAt, createdAt: s.createdAt, lineCount: new Set(s.pieces.map((p) => p.lineId)).size,
       })),
       repo.sheetsCount(db, shopId),
       q,

@@ -37,7 +37,7 @@ export function createWorksheetJobs(pool: WorkPool, now: () => number = Date.now
     if (!sheets.length) throw notFound('We could not find that batch of cut sheets.');
     const shop = repo.shop(db, shopId)!;
     const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
-    const lineIds = [...new Set(sheets.flatMap((s) => (s.pieces as Array<{ lineId: string }>).map((p) => p.lineId)))];
+    const lineIds = [...new Set(sheets.flatMap((s) => s.pieces.map((p) => p.lineId)))];
     const rows = repo.linesByIds(db, shopId, lineIds).sort((a, b) => a.order.number.localeCompare(b.order.number));
     const buyers = new Map(repo.users(db, [...new Set(rows.map((r) => r.order.buyerId))]).map((u) => [u.id, u.name]));
     const orders = new Map<string, { orderNumber: string; buyerName: string; shipTo?: string[]; lines: Array<{ title: string; text?: string; quantity: number }> }>();

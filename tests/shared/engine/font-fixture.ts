@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { FONT_CATALOG } from '../../../shared/engine/font-catalog.ts';
-import { createFontRegistry, type FontRegistry } from '../../../shared/engine/fonts.ts';
+import { createFontRegistry, fontSource, type FontRegistry } from '../../../shared/engine/fonts.ts';
 
 const require = createRequire(import.meta.url);
 
@@ -14,6 +14,6 @@ export function fontBytes(id: string): Uint8Array {
 
 let reg: FontRegistry | null = null;
 export function testRegistry(): FontRegistry {
-  reg ??= createFontRegistry(FONT_CATALOG.map((f) => ({ ...f, bytes: fontBytes(f.id) })));
+  reg ??= createFontRegistry(FONT_CATALOG.map((f) => fontSource(f, fontBytes(f.id))));
   return reg;
 }

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
-import type { ListingContentParsed } from '../../../../shared/schemas/listing.ts';
+import type { ListingContent } from '../../../../shared/schemas/listing.ts';
 import { Button, ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
@@ -14,12 +14,12 @@ import { ReasonForm } from '../../../features/moderation/components/reason-form.
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
 import { DeskNav } from './desk-nav.tsx';
 
-const PARTS: [keyof ListingContentParsed, string][] = [
+const PARTS: [keyof ListingContent, string][] = [
   ['title', 'title'], ['description', 'description'], ['blank', 'blank'], ['basePriceMinor', 'base price'], ['extraLayerPriceMinor', 'extra-layer price'],
   ['occasions', 'occasions'], ['photoIds', 'photos'], ['hasSmallDecorations', 'small decorations'], ['personalisation', 'personalisation'],
 ];
 /** Which parts of a live listing an edit changes (so the moderator knows where to look). */
-function changedParts(draft: ListingContentParsed, live: ListingContentParsed): string[] {
+function changedParts(draft: ListingContent, live: ListingContent): string[] {
   return PARTS.filter(([k]) => JSON.stringify(draft[k]) !== JSON.stringify(live[k])).map(([, label]) => label);
 }
 

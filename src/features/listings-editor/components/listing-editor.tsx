@@ -9,7 +9,7 @@ import {
   OCCASION_LABELS,
   OCCASIONS,
   type BlankKind,
-  type ListingContentParsed,
+  type ListingContent,
   type ListingInput,
   type SellerListing,
 } from '../../../../shared/schemas/listing.ts';
@@ -102,7 +102,7 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
   const [restored] = useState(() => readDraft(id));
   const [formError, setFormError] = useState<string | null>(null);
 
-  const { register, control, handleSubmit, setValue, setError, reset, formState, getValues } = useForm<ListingInput, unknown, ListingContentParsed>({
+  const { register, control, handleSubmit, setValue, setError, reset, formState, getValues } = useForm<ListingInput, unknown, ListingContent>({
     resolver: zodResolver(listingInputSchema),
     defaultValues: restored ?? serverValues,
   });
@@ -128,7 +128,7 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
   const blank = useWatch({ control, name: 'blank' });
   const describe = useWatch({ control, name: 'descriptionFormat' });
 
-  async function save(content: ListingContentParsed, thenSubmit: boolean) {
+  async function save(content: ListingContent, thenSubmit: boolean) {
     setFormError(null);
     try {
       // the parsed content is valid input too; the server parses it again with the same schema

@@ -1,5 +1,5 @@
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
-import type { ListingContentParsed, ListingState } from '../../../../shared/schemas/listing.ts';
+import type { ListingContent, ListingState } from '../../../../shared/schemas/listing.ts';
 import type { ShopState } from '../../../../shared/schemas/shop.ts';
 import type { Page } from '../../../../shared/schemas/pagination.ts';
 
@@ -15,8 +15,8 @@ export type QueueListing = {
   kind: 'new' | 'edit';
   title: string;
   shop: { id: string; name: string; slug: string; state: ShopState };
-  draft: ListingContentParsed;
-  live: ListingContentParsed | null;
+  draft: ListingContent;
+  live: ListingContent | null;
   previewUrl: string;
   submittedAt: number;
 };

@@ -1,6 +1,6 @@
 import { memo, useEffect, useId, useState } from 'react';
 import type { FontRegistry } from '../../../../shared/engine/fonts.ts';
-import type { MotifGeometry } from '../../../../shared/engine/motif.ts';
+import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
 import { layoutText } from '../../../../shared/engine/text-layout.ts';
 import type { PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
@@ -28,8 +28,6 @@ export function missingIn(registry: FontRegistry | null, fontId: string, text: s
   return out;
 }
 
-export const codePoint = (ch: string) => `U+${ch.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`;
-export const nameChars = (chars: string[]) => chars.map((c) => `“${c}” (${codePoint(c)})`).join(', ');
 
 /** The typed name set in one font, from the engine's outlines (not a CSS font): the real geometry. */
 const FontSample = memo(function FontSample({ registry, fontId, text }: { registry: FontRegistry; fontId: string; text: string }) {
@@ -124,7 +122,7 @@ export function SwatchPicker(props: {
   );
 }
 
-function MotifThumb({ geometry, colours }: { geometry: MotifGeometry; colours: Record<string, string | undefined> }) {
+function MotifThumb({ geometry, colours }: { geometry: StoredMotifGeometry; colours: Record<string, string | undefined> }) {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const l of geometry.layers) {
     minX = Math.min(minX, l.bboxMm.minX); minY = Math.min(minY, l.bboxMm.minY);
@@ -140,7 +138,7 @@ function MotifThumb({ geometry, colours }: { geometry: MotifGeometry; colours: R
 export function MotifPicker(props: {
   legend: string;
   name: string;
-  options: { motifId: string; label: string; geometry: MotifGeometry | null; colours: Record<string, string | undefined> }[];
+  options: { motifId: string; label: string; geometry: StoredMotifGeometry | null; colours: Record<string, string | undefined> }[];
   allowNone: boolean;
   value: string | null;
   onChange: (motifId: string | null) => void;

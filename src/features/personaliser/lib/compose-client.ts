@@ -2,17 +2,11 @@
  * Talks to the compose worker: newest request wins (answers to superseded ones are dropped).
  * Falls back to compose() on the main thread, after the paint, where workers are unavailable.
  */
-import { compose, type ComposeInput } from '../../../../shared/engine/compose.ts';
+import type { ComposeInput } from '../../../../shared/engine/compose.ts';
 import type { FontRegistry, FontSource } from '../../../../shared/engine/fonts.ts';
-import type { BBox } from '../../../../shared/engine/path.ts';
-import type { WeedingReport } from '../../../../shared/engine/weeding.ts';
+import { composeReply, type ComposeReply, type ComposeRequest } from './compose-reply.ts';
 
-export type ComposeRequest = { type: 'fonts'; sources: FontSource[] } | { type: 'compose'; id: number; input: ComposeInput };
-export type ComposeReply =
-  | { id: number; ok: true; weeding: WeedingReport; outlines: { fieldId: string; path: string; colour: string }[]; bboxMm: BBox }
-  | { id: number; ok: false; message: string };
-
-export type ComposeResult = Extract<ComposeReply, { ok: true }>;
+export type { ComposeReply, ComposeRequest, ComposeResult } from './compose-reply.ts';
 
 export class ComposeClient {
   private worker: Worker | null = null;
@@ -58,15 +52,7 @@ export class ComposeClient {
     } else {
       setTimeout(() => {
         if (id !== this.seq) return;
-        try {
-          const item = compose(this.registry, input);
-          this.handler?.({
-            id, ok: true, weeding: item.weeding, bboxMm: item.bboxMm,
-            outlines: item.pieces.filter((p) => p.role === 'outline').map((p) => ({ fieldId: p.fieldId, path: p.path, colour: p.colour })),
-          });
-        } catch (err) {
-          this.handler?.({ id, ok: false, message: err instanceof Error ? err.message : 'The design could not be composed.' });
-        }
+        this.handler?.(composeReply(this.registry, id, input));
       }, 50);
     }
     return id;

@@ -4,7 +4,7 @@
  * draws what the cart stores; tests/client/design-parity.test.ts holds the two to the same pieces.
  */
 import type { ComposeInput } from '../../../../shared/engine/compose.ts';
-import { listingDesign, type DesignMotif } from '../../../../shared/engine/listing-design.ts';
+import { listingDesign } from '../../../../shared/engine/listing-design.ts';
 import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { Choices } from '../../../../shared/schemas/listing.ts';
 
@@ -24,7 +24,6 @@ export function materialFor(listing: DesignListing, id: string | null | undefine
 export function designInput(listing: DesignListing, choices: Choices): ComposeInput | null {
   return listingDesign(listing.content, choices, {
     material: (id) => materialFor(listing, id),
-    // the catalogue sends the geometry the engine stored (PublicMotif types it as unknown)
-    motif: (id) => listing.motifs.find((m) => m.id === id) as DesignMotif | undefined,
+    motif: (id) => listing.motifs.find((m) => m.id === id),
   }).input;
 }

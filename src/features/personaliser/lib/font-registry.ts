@@ -4,7 +4,7 @@
  * (tests/client/layout-parity.test.ts). Each file is fetched and parsed once per page load.
  * fontkit reads through a DataView, so a plain Uint8Array does; no Buffer polyfill is needed.
  */
-import { loadFont, type FontRegistry, type FontSource, type LoadedFont } from '../../../../shared/engine/fonts.ts';
+import { fontRegistry, fontSource, loadFont, type FontRegistry, type FontSource, type LoadedFont } from '../../../../shared/engine/fonts.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
 import { getBytes } from '../../../lib/api-client.ts';
 
@@ -17,7 +17,7 @@ export function loadClientFont(info: FontInfo, fetchBytes: FetchBytes = getBytes
   let p = byUrl.get(info.fileUrl);
   if (!p) {
     p = fetchBytes(info.fileUrl).then((bytes) => {
-      const source: FontSource = { id: info.id, family: info.family, kind: info.kind, licence: info.licence, minLetterHeightMm: info.minLetterHeightMm, bytes };
+      const source = fontSource(info, bytes);
       return { font: loadFont(source), source };
     });
     // a failed download may be retried on the next call
@@ -31,15 +31,6 @@ export function loadClientFont(info: FontInfo, fetchBytes: FetchBytes = getBytes
 export async function loadClientRegistry(infos: FontInfo[], ids: string[], fetchBytes?: FetchBytes): Promise<{ registry: FontRegistry; sources: FontSource[] }> {
   const wanted = infos.filter((f) => ids.includes(f.id));
   const loaded = await Promise.all(wanted.map((f) => loadClientFont(f, fetchBytes)));
-  const fonts = new Map(loaded.map((l) => [l.font.id, l.font]));
-  const registry: FontRegistry = {
-    get: (id) => fonts.get(id),
-    require(id) {
-      const f = fonts.get(id);
-      if (!f) throw new Error(`Unknown font "${id}".`);
-      return f;
-    },
-    list: () => [...fonts.values()],
-  };
+  const registry = fontRegistry(new Map(loaded.map((l) => [l.font.id, l.font])));
   return { registry, sources: loaded.map((l) => l.source) };
 }
