@@ -8,7 +8,7 @@ import { useOrder } from '../../../features/workroom/api/get-order.ts';
 import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
-import { StateBadge } from '../../../features/workroom/components/state-badge.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { Timeline } from '../../../features/workroom/components/timeline.tsx';
 import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
 
@@ -44,7 +44,7 @@ export function WorkroomOrderPage() {
                     <MaterialChips materials={l.materials} />
                   </div>
                   <div className="flex flex-col items-start gap-2 sm:items-end">
-                    <StateBadge state={l.state} />
+                    <LineStateBadge state={l.state} words="workroom" />
                     <Link className="font-bold text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(l.id)}>{l.state === 'awaiting_proof' ? 'Check proof' : 'Open proof'}</Link>
                   </div>
                 </li>

@@ -11,7 +11,7 @@ import { formatDateTime } from '../../../features/workroom/components/format.ts'
 import { LetterByLetter } from '../../../features/workroom/components/letter-by-letter.tsx';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { RequestChangeForm } from '../../../features/workroom/components/request-change-form.tsx';
-import { StateBadge } from '../../../features/workroom/components/state-badge.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
 
 export function ProofPage() {
@@ -46,7 +46,7 @@ export function ProofPage() {
           </section>
         </div>
         <aside className="flex flex-col gap-5">
-          <div className="flex items-center gap-3"><span className="font-bold">State</span> <StateBadge state={l.state} /></div>
+          <div className="flex items-center gap-3"><span className="font-bold">State</span> <LineStateBadge state={l.state} words="workroom" /></div>
           <section aria-labelledby="warn" className="flex flex-col gap-2">
             <h2 id="warn" className="text-lg font-extrabold">Check before approving</h2>
             {p.warnings.length ? (

@@ -9,7 +9,7 @@ import { WORK_STATES } from '../../../../shared/schemas/workroom.ts';
 import { paths } from '../../../config/paths.ts';
 import { formatDate, stateWords } from './format.ts';
 import { MaterialChips } from './material-chips.tsx';
-import { StateBadge } from './state-badge.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipByCell, useShipByLookup } from '../../business/components/ship-by-cell.tsx';
 
 const col = createColumnHelper<WorkLine>();
@@ -92,7 +92,7 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
         ),
       }),
       col.accessor('materials', { header: 'Materials', enableSorting: false, cell: (c) => <MaterialChips materials={c.getValue()} />, filterFn: hasMaterial }),
-      col.accessor('state', { header: 'State', cell: (c) => <StateBadge state={c.getValue()} />, filterFn: 'equals', sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never) }),
+      col.accessor('state', { header: 'State', cell: (c) => <LineStateBadge state={c.getValue()} words="workroom" />, filterFn: 'equals', sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never) }),
       col.display({
         id: 'open',
         header: () => <span className="sr-only">Open</span>,
