@@ -10,17 +10,26 @@ import { MaterialChips } from '../../../features/workroom/components/material-ch
 import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { Timeline } from '../../../features/workroom/components/timeline.tsx';
-import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+import { SellerNav } from '../seller/seller-nav.tsx';
 
 export function WorkroomOrderPage() {
   const { orderId = '' } = useParams();
   const order = useOrder(orderId);
-  if (order.isPending) return <Spinner label="Loading the order…" />;
+  if (order.isPending)
+    return (
+      <div>
+        <SellerNav />
+        <Spinner label="Loading the order…" />
+      </div>
+    );
   if (order.isError)
     return (
-      <div role="alert" className="flex flex-col items-start gap-4 py-8">
-        <p className="text-lg font-bold">{order.error.message}</p>
-        <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
+      <div>
+        <SellerNav />
+        <div role="alert" className="flex flex-col items-start gap-4 py-8">
+          <p className="text-lg font-bold">{order.error.message}</p>
+          <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
+        </div>
       </div>
     );
   const o = order.data;
@@ -29,7 +38,7 @@ export function WorkroomOrderPage() {
   const label = (lineId: string) => o.lines.find((l) => l.id === lineId)?.text || o.lines.find((l) => l.id === lineId)?.listingTitle || '';
   return (
     <div>
-      <WorkroomNav />
+      <SellerNav />
       <PageHeading eyebrow={`Order ${o.number}`} title={`For ${o.buyerName}`} lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`} />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex flex-col gap-6">

@@ -12,26 +12,35 @@ import { LetterByLetter } from '../../../features/workroom/components/letter-by-
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { RequestChangeForm } from '../../../features/workroom/components/request-change-form.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
-import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+import { SellerNav } from '../seller/seller-nav.tsx';
 
 export function ProofPage() {
   const { lineId = '' } = useParams();
   const proof = useProof(lineId);
   const approve = useApproveProofs();
   const toast = useToast();
-  if (proof.isPending) return <Spinner label="Loading the proof…" />;
+  if (proof.isPending)
+    return (
+      <div>
+        <SellerNav />
+        <Spinner label="Loading the proof…" />
+      </div>
+    );
   if (proof.isError)
     return (
-      <div role="alert" className="flex flex-col items-start gap-4 py-8">
-        <p className="text-lg font-bold">{proof.error.message}</p>
-        <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
+      <div>
+        <SellerNav />
+        <div role="alert" className="flex flex-col items-start gap-4 py-8">
+          <p className="text-lg font-bold">{proof.error.message}</p>
+          <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
+        </div>
       </div>
     );
   const p = proof.data;
   const l = p.line;
   return (
     <div>
-      <WorkroomNav />
+      <SellerNav />
       <PageHeading
         eyebrow={`Proof · order ${l.orderNumber}`}
         title={l.text || l.listingTitle}
