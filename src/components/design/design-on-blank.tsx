@@ -34,6 +34,16 @@ export function pictureOfKind(kind: string): BlankPicture | null {
   return b ? pictureOfBlank(b) : null;
 }
 
+/**
+ * The blank of a cart or order line: the snapshot keeps the kind and the print area's size only,
+ * so the blank takes the engine's default size (as the server's proof does) and no print area is
+ * drawn (where the seller put it is not in the snapshot).
+ */
+export function pictureOfLineBlank(blank: { kind: string }): BlankPicture {
+  const b = defaultBlank(blank.kind) ?? defaultBlank('tote')!;
+  return { kind: blank.kind, widthMm: b.widthMm, heightMm: b.heightMm, printArea: null };
+}
+
 const INK = '#1f2a44';
 const INK_SOFT = '#4a5470';
 const CLOTH = '#efe6d4';

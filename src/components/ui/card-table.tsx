@@ -133,7 +133,7 @@ export function CardTable<T>({ table, label, minWidthClass, rowClassName, rowAtt
                 const content = flexRender(c.column.columnDef.cell, c.getContext());
                 const cls = `px-4 py-3 ${alignClass(c.column.columnDef.meta?.num)}`;
                 return rowHeaders && i === 0 ? (
-                  <th key={c.id} scope="row" className={`${cls} font-bold`}>
+                  <th key={c.id} scope="row" className={`${cls} font-bold whitespace-nowrap`}>
                     {content}
                   </th>
                 ) : (

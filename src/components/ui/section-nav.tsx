@@ -33,7 +33,7 @@ export function SectionNav({ label, links }: { label: string; links: SectionLink
 
   return (
     <nav aria-label={label} className="-mx-4 mb-6 border-b-2 border-line sm:mx-0">
-      <ul ref={row} className="flex items-stretch gap-1 overflow-x-auto overscroll-x-contain px-4 sm:px-0 [scrollbar-width:thin]">
+      <ul ref={row} className="relative flex items-stretch gap-1 overflow-x-auto overscroll-x-contain px-4 sm:px-0 [scrollbar-width:thin]">
         {links.map((l, i) => {
           const current = i === currentIndex;
           const newGroup = i > 0 && l.group !== links[i - 1]!.group;

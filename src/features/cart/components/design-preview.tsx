@@ -1,14 +1,14 @@
 import type { LineSnapshot } from '../../../../shared/schemas/cart.ts';
-import { DesignOnBlank, DesignPieces } from '../../../components/design/design-on-blank.tsx';
+import { DesignOnBlank, DesignPieces, pictureOfLineBlank } from '../../../components/design/design-on-blank.tsx';
 
 /**
  * A small, to-proportion picture of the frozen design on its blank, through the shared blank
- * drawing (the snapshot keeps the blank's kind and size; its pieces are already placed on it).
+ * drawing (the snapshot's pieces are already placed on the blank, in its millimetres).
  */
 export function DesignPreview({ snapshot, size = 112 }: { snapshot: LineSnapshot; size?: number }) {
   const words = snapshot.summary.filter((s) => !/colour/i.test(s.label)).map((s) => s.value).join(', ');
   return (
-    <DesignOnBlank blank={snapshot.blank} size={size} label={`Preview of the design${words ? `: ${words}` : ''}`} className="rounded-lg border border-line bg-paper-deep">
+    <DesignOnBlank blank={pictureOfLineBlank(snapshot.blank)} size={size} label={`Preview of the design${words ? `: ${words}` : ''}`} className="rounded-lg border border-line bg-paper-deep">
       <DesignPieces pieces={snapshot.geometry.pieces} />
     </DesignOnBlank>
   );

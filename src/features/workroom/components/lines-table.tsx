@@ -75,12 +75,12 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
       col.accessor('orderNumber', {
         header: 'Order',
         cell: (c) => (
-          <Link className="font-bold underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(c.row.original.orderId)}>
+          <Link className="font-bold whitespace-nowrap underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(c.row.original.orderId)}>
             {c.getValue()}
           </Link>
         ),
       }),
-      col.accessor('paidAt', { header: 'Paid', cell: (c) => formatDate(c.getValue()), filterFn: dateRange }),
+      col.accessor('paidAt', { header: 'Paid', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span>, filterFn: dateRange }),
       col.accessor((r) => shipBy.sortKey(r.id), { id: 'shipBy', header: 'Ship by', cell: (c) => <ShipByCell info={shipBy.get(c.row.original.id)} /> }),
       col.accessor('listingTitle', { header: 'Listing', filterFn: (row, _id, v: string) => row.original.listingId === v }),
       col.accessor('text', {
@@ -98,7 +98,7 @@ export function LinesTable({ lines, state, onStateChange, actions }: Props) {
         id: 'actions',
         header: () => <span className="sr-only">Open</span>,
         cell: ({ row }) => (
-          <Link className="font-bold whitespace-nowrap text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(row.original.id)}>
+          <Link className="-my-2.5 inline-flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap text-thread-deep underline decoration-2 underline-offset-4 hover:bg-thread-wash" to={paths.workroomProof.getHref(row.original.id)}>
             {row.original.state === 'awaiting_proof' ? 'Check proof' : 'Open'}
           </Link>
         ),
