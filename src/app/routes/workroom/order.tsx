@@ -1,6 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
-import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -11,27 +10,12 @@ import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { Timeline } from '../../../features/workroom/components/timeline.tsx';
 import { SellerNav } from '../seller/seller-nav.tsx';
+import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
 export function WorkroomOrderPage() {
   const { orderId = '' } = useParams();
   const order = useOrder(orderId);
-  if (order.isPending)
-    return (
-      <div>
-        <SellerNav />
-        <Spinner label="Loading the order…" />
-      </div>
-    );
-  if (order.isError)
-    return (
-      <div>
-        <SellerNav />
-        <div role="alert" className="flex flex-col items-start gap-4 py-8">
-          <p className="text-lg font-bold">{order.error.message}</p>
-          <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
-        </div>
-      </div>
-    );
+  if (order.isPending || order.isError) return <SellerPageStatus error={order.error} loading="Loading the order…" />;
   const o = order.data;
   const active = o.lines.filter((l) => !['shipped', 'cancelled', 'refunded'].includes(l.state));
   const ready = active.length > 0 && active.every((l) => l.state === 'pressed');

@@ -1,5 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
-import { Button, ButtonLink, Spinner } from '../../../components/ui/button.tsx';
+import { Button } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -13,29 +13,14 @@ import { MaterialChips } from '../../../features/workroom/components/material-ch
 import { RequestChangeForm } from '../../../features/workroom/components/request-change-form.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { SellerNav } from '../seller/seller-nav.tsx';
+import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
 export function ProofPage() {
   const { lineId = '' } = useParams();
   const proof = useProof(lineId);
   const approve = useApproveProofs();
   const toast = useToast();
-  if (proof.isPending)
-    return (
-      <div>
-        <SellerNav />
-        <Spinner label="Loading the proof…" />
-      </div>
-    );
-  if (proof.isError)
-    return (
-      <div>
-        <SellerNav />
-        <div role="alert" className="flex flex-col items-start gap-4 py-8">
-          <p className="text-lg font-bold">{proof.error.message}</p>
-          <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
-        </div>
-      </div>
-    );
+  if (proof.isPending || proof.isError) return <SellerPageStatus error={proof.error} loading="Loading the proof…" />;
   const p = proof.data;
   const l = p.line;
   return (
