@@ -98,7 +98,9 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
   expect(await searchIds(page.request, goodTitle)).toContain(good.id);
 
   // every decision is in the audit log, with who and why
-  await page.getByRole('link', { name: 'Audit log' }).click();
+  const deskNav = page.getByRole('navigation', { name: 'Moderation desk pages' });
+  await deskNav.getByRole('link', { name: 'Audit log', exact: true }).click();
+  await expect(deskNav.getByRole('link', { name: 'Audit log', exact: true })).toHaveAttribute('aria-current', 'page');
   const log = page.getByRole('table', { name: 'Audit log of moderator actions' });
   await expect(log.getByRole('row').filter({ hasText: 'Rejected listing' }).filter({ hasText: badTitle })).toContainText(reason);
   await expect(log.getByRole('row').filter({ hasText: 'Suspended shop' }).filter({ hasText: seller.shop.name })).toContainText('admin@namesake.test');

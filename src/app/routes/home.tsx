@@ -1,5 +1,6 @@
 import { Link } from 'react-router-dom';
 import { ButtonLink } from '../../components/ui/button.tsx';
+import { DesignOnBlank, pictureOfKind } from '../../components/design/design-on-blank.tsx';
 import { occasions, paths } from '../../config/paths.ts';
 import { useMe } from '../../features/auth/api/get-me.ts';
 import { OccasionShelves } from './home/occasion-shelves.tsx';
@@ -91,23 +92,12 @@ export function HomePage() {
 function ToteSketch() {
   return (
     <figure className="mx-auto w-full max-w-sm">
-      <svg viewBox="0 0 320 340" role="img" aria-labelledby="tote-sketch-title" className="h-auto w-full">
-        <title id="tote-sketch-title">A drawn tote bag with the name Mira in its dashed print area</title>
-        <path d="M112 92 C112 30 208 30 208 92" fill="none" stroke="#1f2a44" strokeWidth="10" strokeLinecap="round" />
-        <path d="M128 92 C128 50 192 50 192 92" fill="none" stroke="#e4dccd" strokeWidth="4" strokeLinecap="round" />
-        <rect x="52" y="90" width="216" height="230" rx="10" fill="#f3ecdf" stroke="#1f2a44" strokeWidth="4" />
-        <rect x="84" y="128" width="152" height="150" rx="6" fill="none" stroke="#2f7d6d" strokeWidth="2.5" strokeDasharray="8 6" />
-        <circle cx="160" cy="180" r="26" fill="#e0a526" />
-        <text x="160" y="252" textAnchor="middle" fontFamily="Nunito Variable, sans-serif" fontWeight="900" fontSize="44" fill="#2f7d6d">
+      <DesignOnBlank blank={pictureOfKind('tote')!} rulers label="A drawn tote bag with the name Mira in its dashed print area">
+        <circle cx="190" cy="120" r="38" fill="#e0a526" />
+        <text x="190" y="235" textAnchor="middle" fontFamily="Nunito Variable, sans-serif" fontWeight="900" fontSize="78" fill="#2f7d6d">
           Mira
         </text>
-        <g stroke="#4a5470" strokeWidth="1.5">
-          <line x1="84" y1="300" x2="236" y2="300" />
-          {Array.from({ length: 9 }, (_, i) => (
-            <line key={i} x1={84 + i * 19} y1="300" x2={84 + i * 19} y2={i % 2 === 0 ? 308 : 305} />
-          ))}
-        </g>
-      </svg>
+      </DesignOnBlank>
       <figcaption className="mt-2 text-center text-sm text-ink-soft">Every design is shown to scale on its blank before it is cut.</figcaption>
     </figure>
   );

@@ -87,13 +87,15 @@ export function CheckboxField({ label, hint, className = '', ref, ...rest }: Che
   );
 }
 
-export type BadgeTone = 'neutral' | 'thread' | 'marigold' | 'danger' | 'ink';
+export type BadgeTone = 'neutral' | 'thread' | 'marigold' | 'danger' | 'ink' | 'done' | 'muted';
 const badgeTones: Record<BadgeTone, string> = {
   neutral: 'border-line bg-paper-deep text-ink',
   thread: 'border-thread bg-thread-wash text-thread-deep',
   marigold: 'border-marigold bg-marigold-wash text-ink',
   danger: 'border-danger bg-danger-wash text-danger',
   ink: 'border-ink bg-ink text-paper',
+  done: 'border-thread-deep bg-thread text-white',
+  muted: 'border-line bg-white text-ink-soft',
 };
 
 export function Badge({ tone = 'neutral', children }: { tone?: BadgeTone; children: ReactNode }) {

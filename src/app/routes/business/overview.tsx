@@ -1,5 +1,6 @@
+import { ButtonLink } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
-import { BusinessNav } from '../../../features/business/components/business-nav.tsx';
+import { paths } from '../../../config/paths.ts';
 import { BusinessCharts } from '../../../features/business/components/business-charts.tsx';
 import { CostsTable } from '../../../features/business/components/costs-table.tsx';
 import { DueList } from '../../../features/business/components/due-list.tsx';
@@ -10,7 +11,10 @@ export function BusinessOverviewPage() {
     <div>
       <SellerNav />
       <PageHeading eyebrow="Workroom" title="Your business" lead="What is due when, what each item really cost you, and what you earn after fees." />
-      <BusinessNav />
+      {/* ship-by dates and margins come from these settings, so they are one step from the overview */}
+      <ButtonLink to={paths.business.settings.getHref()} variant="secondary" className="mb-8">
+        Calendar and rate
+      </ButtonLink>
       <div className="flex flex-col gap-10">
         <DueList />
         <BusinessCharts />

@@ -1,5 +1,4 @@
 import { PageHeading } from '../../../components/ui/card.tsx';
-import { BusinessNav } from '../../../features/business/components/business-nav.tsx';
 import { LedgerTable } from '../../../features/business/components/ledger-table.tsx';
 import { SellerNav } from '../seller/seller-nav.tsx';
 
@@ -8,7 +7,6 @@ export function PayoutsPage() {
     <div>
       <SellerNav />
       <PageHeading eyebrow="Workroom" title="Payouts" lead="Every charge, fee, transfer and refund of your shop. Earned is what you keep; paid out is what reached your account." />
-      <BusinessNav />
       <LedgerTable />
     </div>
   );

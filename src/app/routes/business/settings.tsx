@@ -1,7 +1,6 @@
 import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { useBusinessSettings } from '../../../features/business/api/get-business-settings.ts';
-import { BusinessNav } from '../../../features/business/components/business-nav.tsx';
 import { BusinessSettingsForm } from '../../../features/business/components/business-settings-form.tsx';
 import { SellerNav } from '../seller/seller-nav.tsx';
 
@@ -10,8 +9,7 @@ export function BusinessSettingsPage() {
   return (
     <div>
       <SellerNav />
-      <PageHeading eyebrow="Workroom" title="Calendar and rate" lead="The days you work decide every ship-by date; your hourly rate puts labour into your margins." />
-      <BusinessNav />
+      <PageHeading eyebrow="Business" title="Calendar and rate" lead="The days you work decide every ship-by date; your hourly rate puts labour into your margins." />
       <div className="max-w-3xl">
         {settings.isPending ? <Spinner label="Loading your settings…" /> : null}
         {settings.isError ? <p role="alert" className="font-semibold text-danger">{settings.error.message}</p> : null}

@@ -1,28 +1,22 @@
-import { NavLink } from 'react-router-dom';
+import { SectionNav, isUnder, type SectionLink } from '../../../components/ui/section-nav.tsx';
 import { paths } from '../../../config/paths.ts';
 
-const links = [
-  { to: paths.moderation.desk.getHref(), label: 'Queue', end: true },
-  { to: paths.moderation.audit.getHref(), label: 'Audit log', end: false },
-  { to: paths.moderation.mail.getHref(), label: 'Mail', end: false },
+/** The id of the desk's shop sections, so the navigation can lead straight to them. */
+export const SHOPS_SECTION_ID = 'shops';
+
+const links: SectionLink[] = [
+  {
+    to: paths.moderation.desk.getHref(),
+    label: 'Queue',
+    // a listing under review belongs to the queue
+    current: ({ pathname, hash }) => (pathname === paths.moderation.desk.path && hash !== `#${SHOPS_SECTION_ID}`) || isUnder(pathname, '/moderation/listings'),
+  },
+  { to: `${paths.moderation.desk.getHref()}#${SHOPS_SECTION_ID}`, label: 'Shops', current: ({ pathname, hash }) => pathname === paths.moderation.desk.path && hash === `#${SHOPS_SECTION_ID}` },
+  { to: paths.moderation.audit.getHref(), label: 'Audit log', current: ({ pathname }) => isUnder(pathname, paths.moderation.audit.path) },
+  { to: paths.moderation.mail.getHref(), label: 'Mail', current: ({ pathname }) => isUnder(pathname, paths.moderation.mail.path) },
 ];
 
+/** The one navigation of the moderation desk's pages. */
 export function DeskNav() {
-  return (
-    <nav aria-label="Moderation desk pages" className="-mx-4 mb-6 overflow-x-auto px-4 sm:mx-0 sm:px-0">
-      <ul className="flex gap-1 border-b border-line pb-2">
-        {links.map((l) => (
-          <li key={l.to}>
-            <NavLink
-              to={l.to}
-              end={l.end}
-              className={({ isActive }) => 'flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap ' + (isActive ? 'bg-thread-wash text-thread-deep' : 'text-ink hover:bg-paper-deep')}
-            >
-              {l.label}
-            </NavLink>
-          </li>
-        ))}
-      </ul>
-    </nav>
-  );
+  return <SectionNav label="Moderation desk pages" links={links} />;
 }

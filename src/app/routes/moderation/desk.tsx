@@ -1,4 +1,5 @@
-import { Link } from 'react-router-dom';
+import { useEffect } from 'react';
+import { Link, useLocation } from 'react-router-dom';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
@@ -8,7 +9,7 @@ import { useListingQueue, useShopChangeQueue, useShopQueue } from '../../../feat
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
 import { ShopChangeCard } from '../../../features/moderation/components/shop-change.tsx';
 import { ShopFinder } from '../../../features/moderation/components/shop-finder.tsx';
-import { DeskNav } from './desk-nav.tsx';
+import { DeskNav, SHOPS_SECTION_ID } from './desk-nav.tsx';
 
 const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 const shopStateLabel = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' } as const;
@@ -25,6 +26,12 @@ export function ModerationDeskPage() {
   const error = listingQueue.error ?? shopQueue.error ?? changeQueue.error;
   const queue =
     listingQueue.data && shopQueue.data && changeQueue.data ? { listings: listingQueue.data, shops: shopQueue.data, changes: changeQueue.data } : undefined;
+  const { hash } = useLocation();
+  const loaded = Boolean(queue);
+  // the navigation's "Shops" leads to the shop sections of this page
+  useEffect(() => {
+    if (loaded && hash === `#${SHOPS_SECTION_ID}`) document.getElementById(SHOPS_SECTION_ID)?.scrollIntoView({ block: 'start' });
+  }, [loaded, hash]);
 
   return (
     <div>
@@ -69,7 +76,7 @@ export function ModerationDeskPage() {
             <Pager page={listingsPage} total={queue.listings.total} limit={queue.listings.limit} label="Listing queue pages" noun="listings" onPageChange={setListingsPage} />
           </section>
 
-          <section aria-labelledby="q-shops" className="flex flex-col gap-4">
+          <section id={SHOPS_SECTION_ID} aria-labelledby="q-shops" className="flex scroll-mt-4 flex-col gap-4">
             <h2 id="q-shops" className="text-2xl font-extrabold">
               New shops <span className="text-ink-soft">({queue.shops.total})</span>
             </h2>

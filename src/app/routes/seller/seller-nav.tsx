@@ -1,34 +1,31 @@
-import { NavLink } from 'react-router-dom';
+import { SectionNav, isUnder, type SectionLink } from '../../../components/ui/section-nav.tsx';
 import { paths } from '../../../config/paths.ts';
 
-const links = [
-  { to: paths.workroom.getHref(), label: 'Workroom', end: true },
-  { to: paths.seller.listings.getHref(), label: 'Listings', end: false },
-  { to: paths.seller.materials.getHref(), label: 'Materials', end: false },
-  { to: paths.seller.shop.getHref(), label: 'Shop settings', end: false },
-  { to: paths.business.overview.getHref(), label: 'Business', end: true },
-  { to: paths.business.payouts.getHref(), label: 'Payouts', end: false },
+const links: SectionLink[] = [
+  {
+    to: paths.workroom.getHref(),
+    label: 'Orders',
+    group: 'make',
+    // an order's page and a line's proof belong to the orders
+    current: ({ pathname }) => pathname === paths.workroom.path || isUnder(pathname, '/workroom/orders') || isUnder(pathname, '/workroom/lines'),
+  },
+  { to: paths.workroomCutSheets.getHref(), label: 'Cut sheets', group: 'make', current: ({ pathname }) => isUnder(pathname, paths.workroomCutSheets.path) },
+  { to: paths.workroomPress.getHref(), label: 'Press', group: 'make', current: ({ pathname }) => isUnder(pathname, paths.workroomPress.path) },
+  { to: paths.workroomStock.getHref(), label: 'Stock', group: 'make', current: ({ pathname }) => isUnder(pathname, paths.workroomStock.path) },
+  { to: paths.seller.listings.getHref(), label: 'Listings', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.listings.path) },
+  { to: paths.seller.materials.getHref(), label: 'Materials', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.materials.path) },
+  { to: paths.seller.shop.getHref(), label: 'Shop', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.shop.path) },
+  {
+    to: paths.business.overview.getHref(),
+    label: 'Business',
+    group: 'money',
+    // the calendar and rate page is part of the business view
+    current: ({ pathname }) => pathname === paths.business.overview.path || isUnder(pathname, paths.business.settings.path),
+  },
+  { to: paths.business.payouts.getHref(), label: 'Payouts', group: 'money', current: ({ pathname }) => isUnder(pathname, paths.business.payouts.path) },
 ];
 
-/** The seller pages' own sub-navigation (scrolls sideways on a phone rather than wrapping). */
+/** The one navigation of the seller's pages, on every one of them: production, shop, money. */
 export function SellerNav() {
-  return (
-    <nav aria-label="Seller pages" className="-mx-4 mb-6 overflow-x-auto px-4 sm:mx-0 sm:px-0">
-      <ul className="flex gap-1 border-b border-line pb-2">
-        {links.map((l) => (
-          <li key={l.to}>
-            <NavLink
-              to={l.to}
-              end={l.end}
-              className={({ isActive }) =>
-                'flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap ' + (isActive ? 'bg-thread-wash text-thread-deep' : 'text-ink hover:bg-paper-deep')
-              }
-            >
-              {l.label}
-            </NavLink>
-          </li>
-        ))}
-      </ul>
-    </nav>
-  );
+  return <SectionNav label="Seller pages" links={links} />;
 }

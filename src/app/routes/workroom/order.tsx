@@ -1,6 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
-import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -8,28 +7,22 @@ import { useOrder } from '../../../features/workroom/api/get-order.ts';
 import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
-import { StateBadge } from '../../../features/workroom/components/state-badge.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { Timeline } from '../../../features/workroom/components/timeline.tsx';
-import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+import { SellerNav } from '../seller/seller-nav.tsx';
+import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
 export function WorkroomOrderPage() {
   const { orderId = '' } = useParams();
   const order = useOrder(orderId);
-  if (order.isPending) return <Spinner label="Loading the order…" />;
-  if (order.isError)
-    return (
-      <div role="alert" className="flex flex-col items-start gap-4 py-8">
-        <p className="text-lg font-bold">{order.error.message}</p>
-        <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
-      </div>
-    );
+  if (order.isPending || order.isError) return <SellerPageStatus error={order.error} loading="Loading the order…" />;
   const o = order.data;
   const active = o.lines.filter((l) => !['shipped', 'cancelled', 'refunded'].includes(l.state));
   const ready = active.length > 0 && active.every((l) => l.state === 'pressed');
   const label = (lineId: string) => o.lines.find((l) => l.id === lineId)?.text || o.lines.find((l) => l.id === lineId)?.listingTitle || '';
   return (
     <div>
-      <WorkroomNav />
+      <SellerNav />
       <PageHeading eyebrow={`Order ${o.number}`} title={`For ${o.buyerName}`} lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`} />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex flex-col gap-6">
@@ -44,7 +37,7 @@ export function WorkroomOrderPage() {
                     <MaterialChips materials={l.materials} />
                   </div>
                   <div className="flex flex-col items-start gap-2 sm:items-end">
-                    <StateBadge state={l.state} />
+                    <LineStateBadge state={l.state} words="workroom" />
                     <Link className="font-bold text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(l.id)}>{l.state === 'awaiting_proof' ? 'Check proof' : 'Open proof'}</Link>
                   </div>
                 </li>

@@ -1,5 +1,5 @@
 import { Link, useParams } from 'react-router-dom';
-import { Button, ButtonLink, Spinner } from '../../../components/ui/button.tsx';
+import { Button } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -11,27 +11,21 @@ import { formatDateTime } from '../../../features/workroom/components/format.ts'
 import { LetterByLetter } from '../../../features/workroom/components/letter-by-letter.tsx';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { RequestChangeForm } from '../../../features/workroom/components/request-change-form.tsx';
-import { StateBadge } from '../../../features/workroom/components/state-badge.tsx';
-import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
+import { SellerNav } from '../seller/seller-nav.tsx';
+import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
 export function ProofPage() {
   const { lineId = '' } = useParams();
   const proof = useProof(lineId);
   const approve = useApproveProofs();
   const toast = useToast();
-  if (proof.isPending) return <Spinner label="Loading the proof…" />;
-  if (proof.isError)
-    return (
-      <div role="alert" className="flex flex-col items-start gap-4 py-8">
-        <p className="text-lg font-bold">{proof.error.message}</p>
-        <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
-      </div>
-    );
+  if (proof.isPending || proof.isError) return <SellerPageStatus error={proof.error} loading="Loading the proof…" />;
   const p = proof.data;
   const l = p.line;
   return (
     <div>
-      <WorkroomNav />
+      <SellerNav />
       <PageHeading
         eyebrow={`Proof · order ${l.orderNumber}`}
         title={l.text || l.listingTitle}
@@ -46,7 +40,7 @@ export function ProofPage() {
           </section>
         </div>
         <aside className="flex flex-col gap-5">
-          <div className="flex items-center gap-3"><span className="font-bold">State</span> <StateBadge state={l.state} /></div>
+          <div className="flex items-center gap-3"><span className="font-bold">State</span> <LineStateBadge state={l.state} words="workroom" /></div>
           <section aria-labelledby="warn" className="flex flex-col gap-2">
             <h2 id="warn" className="text-lg font-extrabold">Check before approving</h2>
             {p.warnings.length ? (

@@ -1,13 +1,11 @@
 import { PageHeading } from '../../../components/ui/card.tsx';
-import { WorkroomNav } from '../../../features/workroom/components/workroom-nav.tsx';
+import { SellerNav } from '../seller/seller-nav.tsx';
 import { lazy, Suspense } from 'react';
 import { Spinner } from '../../../components/ui/button.tsx';
 
 // the order table (and TanStack Table with it) loads on demand, keeping the first page small
 const WorkroomOrders = lazy(async () => ({ default: (await import('../../../features/workroom/components/workroom-orders.tsx')).WorkroomOrders }));
 import { useMe } from '../../../features/auth/api/get-me.ts';
-import { ButtonLink } from '../../../components/ui/button.tsx';
-import { paths } from '../../../config/paths.ts';
 
 const stateText: Record<string, { label: string; body: string; tone: string }> = {
   in_review: {
@@ -26,6 +24,7 @@ export function WorkroomPage() {
 
   return (
     <div>
+      <SellerNav />
       <PageHeading eyebrow="Workroom" title={shop ? shop.name : 'Your workroom'} lead={`Welcome in, ${me.data?.user.name ?? ''}. Check proofs, build cut sheets, press and ship.`} />
       {shop ? (
         <div className={`mb-8 flex flex-col gap-1 rounded-lg border-2 p-5 sm:flex-row sm:items-center sm:gap-4 ${stateText[shop.state]?.tone ?? ''}`}>
@@ -33,24 +32,6 @@ export function WorkroomPage() {
           <p>{stateText[shop.state]?.body}</p>
         </div>
       ) : null}
-      <nav aria-label="Your shop" className="mb-8 flex flex-wrap gap-3">
-        <ButtonLink to={paths.seller.listings.getHref()} variant="secondary">
-          Listings
-        </ButtonLink>
-        <ButtonLink to={paths.seller.materials.getHref()} variant="secondary">
-          Materials
-        </ButtonLink>
-        <ButtonLink to={paths.seller.shop.getHref()} variant="secondary">
-          Shop settings
-        </ButtonLink>
-        <ButtonLink to={paths.business.overview.getHref()} variant="secondary">
-          Business
-        </ButtonLink>
-        <ButtonLink to={paths.business.payouts.getHref()} variant="secondary">
-          Payouts
-        </ButtonLink>
-      </nav>
-      <WorkroomNav />
       <Suspense fallback={<Spinner label="Loading orders…" />}>
         <WorkroomOrders />
       </Suspense>

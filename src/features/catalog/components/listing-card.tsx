@@ -3,6 +3,7 @@ import type { CatalogItem } from '../../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import { paths } from '../../../config/paths.ts';
+import { DesignOnBlank, pictureOfKind } from '../../../components/design/design-on-blank.tsx';
 
 /** One listing in a grid: photo (or a drawn stand-in), title linking to the listing, shop, base price. */
 export function ListingCard({ item, headingLevel = 3 }: { item: CatalogItem; headingLevel?: 2 | 3 }) {
@@ -47,14 +48,13 @@ export function ListingCard({ item, headingLevel = 3 }: { item: CatalogItem; hea
   );
 }
 
-function NoPhoto() {
+/** No photo yet: a blank drawn with its print area (the catalogue item does not carry its kind: a tote). */
+function NoPhoto({ kind = 'tote' }: { kind?: string }) {
+  const picture = pictureOfKind(kind) ?? pictureOfKind('tote')!;
   return (
-    <svg viewBox="0 0 160 120" aria-hidden="true" className="size-full">
-      <rect width="160" height="120" fill="#f3ecdf" />
-      <path d="M66 40 C66 22 94 22 94 40" fill="none" stroke="#4a5470" strokeWidth="4" strokeLinecap="round" />
-      <rect x="50" y="40" width="60" height="64" rx="4" fill="#fbf7f0" stroke="#4a5470" strokeWidth="2.5" />
-      <rect x="58" y="50" width="44" height="40" rx="2" fill="none" stroke="#2f7d6d" strokeWidth="1.5" strokeDasharray="4 3" />
-    </svg>
+    <div className="size-full p-4">
+      <DesignOnBlank blank={picture} fit="box" />
+    </div>
   );
 }
 

@@ -1,4 +1,5 @@
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { CardTable } from '../../../components/ui/card-table.tsx';
 import type { AuditEntry } from '../api/types.ts';
 
 const col = createColumnHelper<AuditEntry>();
@@ -40,33 +41,5 @@ const columns = [
 /** Every moderator action, newest first: who, what, when, why. */
 export function AuditTable({ items }: { items: AuditEntry[] }) {
   const table = useReactTable({ data: items, columns, getCoreRowModel: getCoreRowModel() });
-  return (
-    <div className="relative overflow-x-auto rounded-lg border border-line bg-white">
-      <table className="w-full min-w-[40rem] border-collapse text-left">
-        <caption className="sr-only">Audit log of moderator actions</caption>
-        <thead className="bg-paper-deep">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => (
-                <th key={h.id} scope="col" className="px-4 py-3 text-sm font-extrabold">
-                  {flexRender(h.column.columnDef.header, h.getContext())}
-                </th>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-t border-line">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className="px-4 py-3 align-top">
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <CardTable table={table} label="Audit log of moderator actions" minWidthClass="min-w-[40rem]" />;
 }

@@ -2,7 +2,9 @@ import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import { formatSize, formatSmallLength, formatLength } from '../../../../shared/units.ts';
+import { blankFor } from '../../../../shared/engine/listing-design.ts';
 import { Badge } from '../../../components/ui/form-controls.tsx';
+import { DesignOnBlank, pictureOfBlank } from '../../../components/design/design-on-blank.tsx';
 
 /**
  * The listing as a shopper would see it, from the server's listing-page answer for the version
@@ -55,9 +57,12 @@ export function ListingPreview({ page }: { page: ListingPage }) {
             {formatMoney(page.priceMinor, page.currency)}
             {c.extraLayerPriceMinor > 0 ? <span className="ml-2 text-base font-semibold text-ink-soft">+ {formatMoney(c.extraLayerPriceMinor, page.currency)} per extra layer</span> : null}
           </p>
-          <p className="text-ink-soft">
-            {c.blank.label} · print area {formatSize(c.blank.widthMm, c.blank.heightMm)}, {formatLength(c.blank.topOffsetMm)} from the top
-          </p>
+          <div className="flex items-center gap-3">
+            <DesignOnBlank blank={pictureOfBlank(blankFor(c))} size={72} label={`The ${c.blank.label} with its print area`} className="rounded-md border border-line bg-paper-deep" />
+            <p className="text-ink-soft">
+              {c.blank.label} · print area {formatSize(c.blank.widthMm, c.blank.heightMm)}, {formatLength(c.blank.topOffsetMm)} from the top
+            </p>
+          </div>
           <p className="text-ink-soft">
             Ships in {page.shop.processingDays} working day{page.shop.processingDays === 1 ? '' : 's'} · shipping {formatMoney(page.shop.shippingMinor, page.shop.currency)}
           </p>

@@ -3,7 +3,7 @@ import type { LineSnapshot } from '../../../../shared/schemas/cart.ts';
 import { LINE_STATE_LABELS, type OrderDetail } from '../../../../shared/schemas/order.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
-import { StateBadge } from './state-badge.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 
 const when = (ms: number) => new Date(ms).toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
 const who = { you: 'You', shop: 'The shop', namesake: 'Namesake' } as const;
@@ -23,7 +23,7 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
                   <h2 className="text-lg font-bold">
                     {l.quantity} × {l.listingTitle}
                   </h2>
-                  <StateBadge state={l.state} />
+                  <LineStateBadge state={l.state} />
                 </div>
                 {summary(l.snapshot)}
                 <p className="text-sm">

@@ -2,7 +2,7 @@ import { Link } from 'react-router-dom';
 import type { OrderSummary } from '../../../../shared/schemas/order.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import { paths } from '../../../config/paths.ts';
-import { StateBadge } from './state-badge.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 
 const date = (ms: number) => new Date(ms).toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' });
 
@@ -20,7 +20,7 @@ export function OrderList({ orders }: { orders: OrderSummary[] }) {
             </span>
             <span className="flex flex-wrap items-center gap-2">
               {[...new Set(o.states)].map((s) => (
-                <StateBadge key={s} state={s} />
+                <LineStateBadge key={s} state={s} />
               ))}
               <span className="font-bold">{formatMoney(o.totalMinor, o.currency)}</span>
             </span>

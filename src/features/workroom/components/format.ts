@@ -1,10 +1,9 @@
 import { formatLength, formatTemperature } from '../../../../shared/units.ts';
-import type { LineState } from '../../../../shared/schemas/order.ts';
 
 export { formatLength, formatTemperature };
 
-/** The order-line state codes, as people read them ("awaiting proof"). */
-export const stateWords = (s: LineState | string) => s.replace(/_/g, ' ');
+/** The state words, as sellers read them ("awaiting proof"); one home with the state badge. */
+export { lineStateWords as stateWords } from '../../../components/ui/line-state-badge.tsx';
 
 export const formatDate = (ms: number) => new Date(ms).toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' });
 export const formatDateTime = (ms: number) => new Date(ms).toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });

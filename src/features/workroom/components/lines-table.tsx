@@ -1,15 +1,16 @@
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import {
-  createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable,
+  createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable,
   type RowSelectionState, type SortingState,
 } from '@tanstack/react-table';
 import type { WorkLine, WorkLinesPage } from '../../../../shared/schemas/workroom.ts';
 import { WORK_STATES } from '../../../../shared/schemas/workroom.ts';
 import { paths } from '../../../config/paths.ts';
+import { CardTable } from '../../../components/ui/card-table.tsx';
 import { formatDate, stateWords } from './format.ts';
 import { MaterialChips } from './material-chips.tsx';
-import { StateBadge } from './state-badge.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipByCell, useShipByLookup } from '../../business/components/ship-by-cell.tsx';
 
 const col = createColumnHelper<WorkLine>();
@@ -65,12 +66,12 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
       col.accessor('orderNumber', {
         header: 'Order',
         cell: (c) => (
-          <Link className="font-bold underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(c.row.original.orderId)}>
+          <Link className="font-bold whitespace-nowrap underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(c.row.original.orderId)}>
             {c.getValue()}
           </Link>
         ),
       }),
-      col.accessor('paidAt', { header: 'Paid', cell: (c) => formatDate(c.getValue()) }),
+      col.accessor('paidAt', { header: 'Paid', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span> }),
       col.accessor((r) => shipBy.sortKey(r.id), { id: 'shipBy', header: 'Ship by', cell: (c) => <ShipByCell info={shipBy.get(c.row.original.id)} /> }),
       col.accessor('listingTitle', { header: 'Listing' }),
       col.accessor('text', {
@@ -83,12 +84,12 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
         ),
       }),
       col.accessor('materials', { header: 'Materials', enableSorting: false, cell: (c) => <MaterialChips materials={c.getValue()} /> }),
-      col.accessor('state', { header: 'State', cell: (c) => <StateBadge state={c.getValue()} />, sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never) }),
+      col.accessor('state', { header: 'State', cell: (c) => <LineStateBadge state={c.getValue()} words="workroom" />, sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never) }),
       col.display({
-        id: 'open',
+        id: 'actions',
         header: () => <span className="sr-only">Open</span>,
         cell: ({ row }) => (
-          <Link className="font-bold whitespace-nowrap text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(row.original.id)}>
+          <Link className="-my-2.5 inline-flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap text-thread-deep underline decoration-2 underline-offset-4 hover:bg-thread-wash" to={paths.workroomProof.getHref(row.original.id)}>
             {row.original.state === 'awaiting_proof' ? 'Check proof' : 'Open'}
           </Link>
         ),
@@ -161,47 +162,13 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
         {actions?.(selected, () => setRowSelection({}))}
       </div>
 
-      <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
-        <table className="w-full min-w-[760px] border-collapse text-left">
-          <thead className="bg-paper-deep">
-            {table.getHeaderGroups().map((hg) => (
-              <tr key={hg.id}>
-                {hg.headers.map((h) => {
-                  const sort = h.column.getIsSorted();
-                  return (
-                    <th key={h.id} scope="col" className="px-3 py-2 text-sm font-extrabold" aria-sort={sort === 'asc' ? 'ascending' : sort === 'desc' ? 'descending' : undefined}>
-                      {h.column.getCanSort() ? (
-                        <button type="button" className="inline-flex min-h-6 items-center gap-1 underline-offset-4 hover:underline" onClick={h.column.getToggleSortingHandler()}>
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden="true">{sort === 'asc' ? '▲' : sort === 'desc' ? '▼' : '↕'}</span>
-                        </button>
-                      ) : (
-                        flexRender(h.column.columnDef.header, h.getContext())
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {visible.map((r) => (
-              <tr key={r.id} className="border-t border-line align-top hover:bg-paper" data-testid="work-line" data-line-id={r.original.id}>
-                {r.getVisibleCells().map((c) => (
-                  <td key={c.id} className="px-3 py-2.5">
-                    {flexRender(c.column.columnDef.cell, c.getContext())}
-                  </td>
-                ))}
-              </tr>
-            ))}
-            {visible.length === 0 ? (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-8 text-center text-ink-soft">No lines match these filters.</td>
-              </tr>
-            ) : null}
-          </tbody>
-        </table>
-      </div>
+      <CardTable
+        table={table}
+        label="Order lines"
+        minWidthClass="min-w-[760px]"
+        rowAttributes={(l) => ({ 'data-testid': 'work-line', 'data-line-id': l.id })}
+        empty={<span className="block text-center">No lines match these filters.</span>}
+      />
     </section>
   );
 }
