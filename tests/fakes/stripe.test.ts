@@ -11,7 +11,7 @@ import path from 'node:path';
 import { spawn } from 'node:child_process';
 import Stripe from 'stripe';
 import { startStripeFake, type StripeFake, type StripeFakeOptions } from '../../fakes/stripe/server.ts';
-import { parseForm } from '../../fakes/stripe/form.ts';
+import { parseForm } from '../../fakes/stripe/http.ts';
 
 const SECRET = 'whsec_test_secret_for_fake';
 const KEY = 'sk_test_namesake_fake';
