@@ -99,7 +99,7 @@ export interface PayPageInput {
   values?: { card_number?: string; card_expiry?: string } & Partial<Record<ShippingField, string>>;
 }
 
-type CardField = 'card_number' | 'card_expiry' | 'card_cvc';
+export type CardField = 'card_number' | 'card_expiry' | 'card_cvc';
 export type ShippingField = 'ship_name' | 'ship_line1' | 'ship_line2' | 'ship_city' | 'ship_postal_code' | 'ship_state' | 'ship_country';
 
 function amountBlock(amount: number, currency: string, items: PageItem[]): string {
