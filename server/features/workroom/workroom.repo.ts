@@ -4,6 +4,7 @@ import { and, desc, eq, gte, inArray, lte, ne, sql, type SQL } from 'drizzle-orm
 import type { Db } from '../../db/client.ts';
 import { cutSheets, lineEvents, lineVersions, listings, materials, motifs, orderLines, orders, shops, user } from '../../db/schema.ts';
 import type { LinesFilter } from '../../../shared/schemas/workroom.ts';
+import { FINISHED_LINE_STATES, UNCUT_LINE_STATES } from '../../../shared/schemas/order.ts';
 
 export type LineRow = typeof orderLines.$inferSelect;
 export type OrderRow = typeof orders.$inferSelect;
@@ -27,12 +28,10 @@ function linesWhere(shopId: string, f: LinesFilter): SQL | undefined {
  * Most urgent first: lines still to ship before finished ones, then by ship-by date (late ones
  * have the earliest dates), lines not yet cut before cut ones on the same date, then newest paid.
  */
-const FINISHED = sql`('shipped', 'cancelled', 'refunded')`;
-const NOT_CUT = sql`('awaiting_proof', 'changes_requested', 'approved')`;
 const urgency = [
-  sql`case when ${orderLines.state} in ${FINISHED} then 1 else 0 end`,
+  sql`case when ${inArray(orderLines.state, FINISHED_LINE_STATES)} then 1 else 0 end`,
   sql`coalesce(${orders.shipByDate}, '9999-12-31')`,
-  sql`case when ${orderLines.state} in ${NOT_CUT} then 0 else 1 end`,
+  sql`case when ${inArray(orderLines.state, UNCUT_LINE_STATES)} then 0 else 1 end`,
   desc(orders.paidAt),
   orders.number,
   orderLines.createdAt,
