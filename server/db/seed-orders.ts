@@ -24,8 +24,8 @@ import { cartRepo } from '../features/cart/cart.repo.ts';
 import { openCheckout } from '../features/checkout/checkout.service.ts';
 import { handleEvent } from '../features/payments/payments.service.ts';
 import { paymentsRepo } from '../features/payments/payments.repo.ts';
-import { ordersRepo } from '../features/orders/orders.repo.ts';
-import { approve } from '../features/workroom/workroom.service.ts';
+import { ordersRepo } from '../features/orders/index.ts';
+import { approve } from '../features/workroom/index.ts';
 
 const DEMO_SHIP_TO: ShipTo = { name: 'Dana Whitlock', line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' };
 
@@ -120,7 +120,7 @@ async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: 
         motifColours: Object.fromEntries(Object.entries(item.motifColours ?? {}).map(([layer, name]) => [layer, mat(name)])),
         outlineMaterialId: null,
       };
-      addLine(at(paidAt - 300_000), cart, { listingId: listing.id, quantity: item.quantity ?? 1, choices });
+      await addLine(at(paidAt - 300_000), cart, { listingId: listing.id, quantity: item.quantity ?? 1, choices });
       wanted.push({ listingId: listing.id, name: item.name, approved: item.approved });
     }
     const started = await openCheckout(at(paidAt - 120_000), cartRepo.find(db, cart.id)!, { id: buyerId, email: buyer.email });

@@ -1,5 +1,6 @@
 // Every database call of the workroom. Each read that takes an id from the client is scoped by
-// the seller's shop, so another shop's ids simply find nothing (→ 404, nothing revealed).
+// the seller's shop, so another shop's ids simply find nothing (→ 404, nothing revealed). A line's
+// state and its timeline are written only by orders' transition(), never from here.
 import { and, desc, eq, gte, inArray, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { cutSheets, lineEvents, lineVersions, listings, materials, motifs, orderLines, orders, shops, user } from '../../db/schema.ts';
@@ -83,9 +84,7 @@ export const workroomRepo = {
   order: (db: Db, shopId: string, orderId: string) => db.select().from(orders).where(and(eq(orders.id, orderId), eq(orders.shopId, shopId))).get(),
   orderById: (db: Db, orderId: string) => db.select().from(orders).where(eq(orders.id, orderId)).get(),
   lineById: (db: Db, lineId: string) => db.select().from(orderLines).where(eq(orderLines.id, lineId)).get(),
-  setLine: (db: Db, lineId: string, set: Partial<typeof orderLines.$inferInsert>) => db.update(orderLines).set(set).where(eq(orderLines.id, lineId)).run(),
   setOrder: (db: Db, orderId: string, set: Partial<typeof orders.$inferInsert>) => db.update(orders).set(set).where(eq(orders.id, orderId)).run(),
-  insertEvent: (db: Db, row: typeof lineEvents.$inferInsert) => db.insert(lineEvents).values(row).run(),
   insertVersion: (db: Db, row: typeof lineVersions.$inferInsert) => db.insert(lineVersions).values(row).run(),
   events: (db: Db, lineIds: string[]) => (lineIds.length ? db.select().from(lineEvents).where(inArray(lineEvents.lineId, lineIds)).orderBy(lineEvents.createdAt, lineEvents.id).all() : []),
   versions: (db: Db, lineId: string) => db.select().from(lineVersions).where(eq(lineVersions.lineId, lineId)).orderBy(lineVersions.version).all(),
