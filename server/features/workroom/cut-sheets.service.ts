@@ -2,7 +2,6 @@
 // and marking sheets cut — which takes the vinyl from stock and moves a line to `cut` once all its
 // pieces are cut (through orders' transition()).
 import crypto from 'node:crypto';
-import type { AppDeps } from '../../app.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
 import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
@@ -15,7 +14,7 @@ import type { RawPiece } from '../../workers/tasks.ts';
 import { assertEachCanMove, transition } from '../orders/index.ts';
 import { TRIM_ALLOWANCE_MM } from './worksheet-pdf.ts';
 import { workroomRepo as repo, type MaterialRow, type SheetRow } from './workroom.repo.ts';
-import { lineSnapshot, type WorkroomDeps } from './lines.service.ts';
+import { lineSnapshot, type WorkroomDeps, type WorkroomPoolDeps } from './lines.service.ts';
 
 /** Rounds a length to the micrometre, as stored. */
 export const r3 = (v: number) => Math.round(v * 1000) / 1000;
@@ -65,7 +64,7 @@ export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string
  * roll width), 6 mm gap and margins, rotation allowed (shared/engine/cut-sheets.ts). A line with
  * quantity n gives its pieces n times. All sheets of one call share a batch id.
  */
-export async function buildCutSheets(deps: WorkroomDeps & Pick<AppDeps, 'pool'>, shopId: string, lineIds: string[]): Promise<{ batchId: string; sheets: WorkSheet[] }> {
+export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, lineIds: string[]): Promise<{ batchId: string; sheets: WorkSheet[] }> {
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');

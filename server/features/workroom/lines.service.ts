@@ -15,6 +15,8 @@ import { pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
 import { workroomRepo as repo, type LineRow, type MaterialRow, type OrderRow } from './workroom.repo.ts';
 
 export type WorkroomDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'>;
+/** What the work that runs in the worker pool (nesting cut sheets) needs besides. */
+export type WorkroomPoolDeps = WorkroomDeps & Pick<AppDeps, 'pool'>;
 
 /** A line of the shop with its order. */
 export type LineWithOrder = { line: LineRow; order: OrderRow };
