@@ -24,8 +24,8 @@ import { cartRepo } from '../features/cart/cart.repo.ts';
 import { openCheckout } from '../features/checkout/checkout.service.ts';
 import { handleEvent } from '../features/payments/payments.service.ts';
 import { paymentsRepo } from '../features/payments/payments.repo.ts';
-import { ordersRepo } from '../features/orders/orders.repo.ts';
-import { approve } from '../features/workroom/workroom.service.ts';
+import { ordersRepo } from '../features/orders/index.ts';
+import { approve } from '../features/workroom/index.ts';
 
 const DEMO_SHIP_TO: ShipTo = { name: 'Dana Whitlock', line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' };
 

@@ -3,22 +3,19 @@
  * left) and `late`. Pure; "today" is passed in as a calendar date in the shop's time zone.
  */
 import { parseDay, workingDaysBetween, type WorkCalendar } from './working-days.ts';
+import { isFinishedLine, UNCUT_LINE_STATES } from '../schemas/order.ts';
 
 export const SHIP_MARKS = ['late', 'due_today', 'at_risk'] as const;
 export type ShipMark = (typeof SHIP_MARKS)[number];
 export const SHIP_MARK_LABELS: Record<ShipMark, string> = { late: 'late', due_today: 'due today', at_risk: 'at risk' };
 
-/** States in which the line is still waiting to be cut. */
-const NOT_CUT = ['awaiting_proof', 'changes_requested', 'approved'];
-/** States in which nothing is left to ship. */
-const FINISHED = ['shipped', 'cancelled', 'refunded'];
 
 export function shipMark(args: { state: string; shipBy: string | null; today: string; calendar: WorkCalendar }): ShipMark | null {
   const { state, shipBy, today, calendar } = args;
-  if (!shipBy || FINISHED.includes(state)) return null;
+  if (!shipBy || isFinishedLine(state)) return null;
   if (parseDay(today) > parseDay(shipBy)) return 'late';
   if (today === shipBy) return 'due_today';
-  if (NOT_CUT.includes(state) && workingDaysBetween(today, shipBy, calendar) <= 1) return 'at_risk';
+  if ((UNCUT_LINE_STATES as readonly string[]).includes(state) && workingDaysBetween(today, shipBy, calendar) <= 1) return 'at_risk';
   return null;
 }
 

@@ -27,7 +27,14 @@ export const LINE_TRANSITIONS: Record<LineState, Partial<Record<LineState, reado
 };
 
 /** The state a new line starts in, when its order is paid. */
-export const FIRST_LINE_STATE: LineState = 'awaiting_proof';
+export const FIRST_LINE_STATE = 'awaiting_proof' satisfies LineState;
+
+/** States where the work on a line is over: shipped, or never to be (the table leads nowhere near `shipped` from them). */
+export const FINISHED_LINE_STATES = ['shipped', 'cancelled', 'refunded'] as const satisfies readonly LineState[];
+/** States where the line's vinyl is still to be cut (the table can still lead to `cut`). */
+export const UNCUT_LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved'] as const satisfies readonly LineState[];
+/** Is the work on a line in `state` over? */
+export const isFinishedLine = (state: string): boolean => (FINISHED_LINE_STATES as readonly string[]).includes(state);
 
 /** May `actor` move a line from `from` to `to`? */
 export const canMoveLine = (from: LineState, to: LineState, actor: LineActor): boolean => LINE_TRANSITIONS[from][to]?.includes(actor) ?? false;

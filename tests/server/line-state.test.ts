@@ -1,11 +1,16 @@
-// The order-line state machine: every pair of states × every actor, allowed and refused.
+// The order-line state machine: every pair of states × every actor, allowed and refused; and
+// that nothing but the machine writes a line's state.
 import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { checkouts, lineEvents, listings, orderLines, orders } from '../../server/db/schema.ts';
+import type { Db } from '../../server/db/client.ts';
 import { transition, transitionAll } from '../../server/features/orders/line-state.ts';
-import { LINE_STATES, LINE_TRANSITIONS, canMoveLine, type LineActor, type LineState } from '../../shared/schemas/order.ts';
+import { ordersRepo } from '../../server/features/orders/orders.repo.ts';
+import { FINISHED_LINE_STATES, LINE_STATES, LINE_TRANSITIONS, UNCUT_LINE_STATES, canMoveLine, type LineActor, type LineState } from '../../shared/schemas/order.ts';
 
 const ACTORS: LineActor[] = ['shop', 'shopper', 'admin', 'system'];
 let t: TestApp;
@@ -109,5 +114,61 @@ describe('when several lines move together and one move is refused', () => {
     ).toThrow(expect.objectContaining({ status: 409 }));
     expect(stateOf(lineId)).toBe('awaiting_proof');
     expect(stateOf(otherLineId)).toBe('shipped');
+  });
+});
+
+describe('when the finished and not-yet-cut lists are read beside the table', () => {
+  /** every state the table can lead to from `from`, by anyone, in any number of moves */
+  const reachable = (from: LineState): Set<LineState> => {
+    const seen = new Set<LineState>();
+    const todo = [from];
+    for (let s = todo.pop(); s; s = todo.pop()) {
+      for (const to of Object.keys(LINE_TRANSITIONS[s]) as LineState[]) if (!seen.has(to)) todo.push((seen.add(to), to));
+    }
+    return seen;
+  };
+
+  it('then a state is finished exactly when it is shipped or the table can no longer lead to shipped', () => {
+    const finished = LINE_STATES.filter((s) => s === 'shipped' || !reachable(s).has('shipped'));
+    expect([...FINISHED_LINE_STATES].sort()).toEqual(finished.sort());
+  });
+
+  it('then a state is not yet cut exactly when the table can still lead to cut', () => {
+    const uncut = LINE_STATES.filter((s) => reachable(s).has('cut'));
+    expect([...UNCUT_LINE_STATES].sort()).toEqual(uncut.sort());
+  });
+});
+
+describe('when the server source is searched for writes to a line', () => {
+  const root = path.resolve(import.meta.dirname, '../../server');
+  const files = (dir: string): string[] =>
+    fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => (e.isDirectory() ? files(path.join(dir, e.name)) : e.name.endsWith('.ts') ? [path.join(dir, e.name)] : []));
+  const sources = files(root).map((f) => ({ file: path.relative(root, f).split(path.sep).join('/'), text: fs.readFileSync(f, 'utf8') }));
+  const REPO = 'features/orders/orders.repo.ts';
+  const MACHINE = 'features/orders/line-state.ts';
+  const hits = (re: RegExp) => sources.flatMap(({ file, text }) => (text.match(new RegExp(re, 'g')) ?? []).map(() => file));
+
+  it('then only the orders repo inserts or updates order_lines or line_events, and only transition() calls its moveLine and insertEvent', () => {
+    expect(sources.length).toBeGreaterThan(20);
+    // Drizzle writes and raw SQL, whatever the spacing
+    expect(hits(/\.update\(\s*orderLines\s*\)/)).toEqual([REPO]);
+    expect(hits(/\.insert\(\s*orderLines\s*\)/)).toEqual([REPO]);
+    expect(hits(/\.insert\(\s*lineEvents\s*\)/)).toEqual([REPO]);
+    expect(hits(/\b(update|insert\s+into)\s+["`]?(order_lines|line_events)\b/i)).toEqual([]);
+    // the repo's one update of a line is the guarded move, and only the state machine calls it
+    const repo = sources.find((s) => s.file === REPO)!.text;
+    expect(repo).toMatch(/moveLine: \(db: Db, lineId: string, from: LineState,[^\n]*\n\s*db\.update\(orderLines\)/);
+    expect(hits(/\.moveLine\(/)).toEqual([MACHINE]);
+    expect(hits(/\.insertEvent\(/)).toEqual([MACHINE, MACHINE]);
+  });
+
+  it('then the orders repo offers no general line update, and the compiler refuses a new line in any state but the first', () => {
+    expect(Object.keys(ordersRepo).filter((k) => /line/i.test(k) && !/^(lines|insertLine|moveLine)$/.test(k))).toEqual([]);
+    // checked by tsc (tests are type-checked): drop the rule and this directive fails the build
+    const neverRun = (db: Db) => {
+      // @ts-expect-error a new line starts in FIRST_LINE_STATE ('awaiting_proof') only
+      ordersRepo.insertLine(db, { id: 'x', orderId: 'o', listingId: 'l', listingTitle: 't', quantity: 1, unitPriceMinor: 1, totalMinor: 1, snapshot: {} as never, state: 'shipped', createdAt: 0, updatedAt: 0 });
+    };
+    expect(typeof neverRun).toBe('function');
   });
 });

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import Stripe from 'stripe';
 import { eq } from 'drizzle-orm';
-import { checkouts, ledger, orders } from '../../server/db/schema.ts';
+import { checkouts, ledger, orderLines, orders, refundIntents } from '../../server/db/schema.ts';
 import { checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, waitFor, type World } from './checkout.fixtures.ts';
 
 let w: World;
@@ -85,5 +85,21 @@ describe('refunds', () => {
     expect((await otherSeller.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(404);
     expect((await agent.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(403);
     expect(w.db.select().from(ledger).where(eq(ledger.orderId, orderId)).all().some((r) => r.kind === 'refund')).toBe(false);
+  });
+
+  it('when a line the state table may not refund is refunded, then 409 before the provider is asked, and nothing is claimed', async () => {
+    const { shop, orderId, detail } = await paidOrderWithTwoLines();
+    const mira = detail.lines.find((l: { quantity: number }) => l.quantity === 1);
+    // nothing in the app cancels a line yet; the table makes `cancelled` final
+    w.db.update(orderLines).set({ state: 'cancelled' }).where(eq(orderLines.id, mira.id)).run();
+    const seller = await w.signIn(shop.seller.email);
+    const res = await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: mira.id });
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toBe('This item is cancelled; nothing more can happen to it.');
+    const o = w.db.select().from(orders).where(eq(orders.id, orderId)).get()!;
+    const c = w.db.select().from(checkouts).where(eq(checkouts.id, o.checkoutId)).get()!;
+    expect((await stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toEqual([]);
+    expect(w.db.select().from(refundIntents).where(eq(refundIntents.orderId, orderId)).all()).toEqual([]);
+    expect(w.db.select().from(orderLines).where(eq(orderLines.id, mira.id)).get()!.state).toBe('cancelled');
   });
 });

@@ -113,8 +113,16 @@ describe('proofs and states', () => {
 
   test('when lines are moved out of order, then 409 and the state stays', async () => {
     const approved = await byText('Leon', 'approved');
-    expect((await fern.post(`/api/workroom/lines/${approved.id}/approve`)).status).toBe(409);
-    expect((await fern.post(`/api/workroom/lines/${approved.id}/pressed`)).status).toBe(409);
+    // each refusal names the order and the state the line is in
+    const again = await fern.post(`/api/workroom/lines/${approved.id}/approve`);
+    expect(again.status).toBe(409);
+    expect(again.body.error.message).toBe(`Only proofs waiting for a check can be approved: ${approved.orderNumber} (approved).`);
+    const pressed = await fern.post(`/api/workroom/lines/${approved.id}/pressed`);
+    expect(pressed.status).toBe(409);
+    expect(pressed.body.error.message).toBe(`Only cut items can be marked pressed: ${approved.orderNumber} (approved).`);
+    const change = await fern.post(`/api/workroom/lines/${approved.id}/request-change`).send({ message: 'Is the spelling right?' });
+    expect(change.status).toBe(409);
+    expect(change.body.error.message).toBe(`Only proofs waiting for a check can be sent back for a change: ${approved.orderNumber} (approved).`);
     const waiting = (await lines('awaiting_proof'))[0]!;
     const cut = await fern.post('/api/workroom/cut-sheets').send({ lineIds: [waiting.id] });
     expect(cut.status).toBe(409);

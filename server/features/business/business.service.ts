@@ -12,6 +12,7 @@ import { dayInZone, parseDay, shipByDate, workingDaysBetween, type WorkCalendar 
 import { compareByShipBy, shipMark } from '../../../shared/business/marks.ts';
 import { estimateVinyl, longestSampleName, orderCosts, priceCheck as priceCheckPure, sheetCostShares, sumCosts, type FeeConfig, type LineCostInput, type MaterialPrice } from '../../../shared/business/costs.ts';
 import { balanceByMonth, ledgerCsv, monthOf, signForShop, type LedgerEntry, type LedgerKind } from '../../../shared/business/ledger.ts';
+import { isFinishedLine } from '../../../shared/schemas/order.ts';
 import { ordersByListing, salesByWeek, vinylByMaterialMonth } from '../../../shared/business/reports.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
 import type {
@@ -80,8 +81,6 @@ export function updateSettings(deps: BusinessDeps, shop: ShopRow, input: Busines
 
 // ---------------------------------------------------------------- ship-by and marks
 
-const FINISHED = ['shipped', 'cancelled', 'refunded'];
-
 /** The order's stored ship-by date, or (for an order made before dates were stored) one computed from its payment and saved. */
 function shipByOf(deps: BusinessDeps, shop: ShopRow, order: OrderRow): string {
   if (order.shipByDate) return order.shipByDate;
@@ -97,7 +96,7 @@ export function due(deps: BusinessDeps, shop: ShopRow, today = todayOf(deps)): D
   const cal = calendarOf(shop);
   const lines: DueLine[] = [];
   for (const { line, order } of repo.linesOfShop(deps.db, shop.id)) {
-    if (FINISHED.includes(line.state)) continue;
+    if (isFinishedLine(line.state)) continue;
     const shipBy = shipByOf(deps, shop, order);
     lines.push({
       lineId: line.id,

@@ -5,7 +5,7 @@
 import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
 import { AppError } from '../../http/app-error.ts';
-import { canMoveLine, LINE_STATE_LABELS, LINE_TRANSITIONS, type LineActor, type LineState } from '../../../shared/schemas/order.ts';
+import { canMoveLine, type FIRST_LINE_STATE, LINE_STATE_LABELS, LINE_TRANSITIONS, type LineActor, type LineState } from '../../../shared/schemas/order.ts';
 import { ordersRepo, type OrderLineRow } from './orders.repo.ts';
 
 export type LineMove = {
@@ -37,6 +37,18 @@ export function assertMove(from: LineState, to: LineState, actor: LineActor): vo
 }
 
 /**
+ * Refuses, in one 409 that names each of them, the lines `actor` may not move to `to`:
+ * "<lead>: NS-1001 (cut), NS-1002 (shipped)." Each refused line is also a field `lineIds.<id>`
+ * holding its state. Returns when every line may make the move.
+ */
+export function assertEachCanMove(lines: Array<{ id: string; state: string; name: string }>, to: LineState, actor: LineActor, lead: string): void {
+  const wrong = lines.filter((l) => !canMoveLine(l.state as LineState, to, actor));
+  if (!wrong.length) return;
+  throw new AppError(409, 'wrong_state', `${lead}: ${wrong.map((l) => `${l.name} (${l.state.replace(/_/g, ' ')})`).join(', ')}.`,
+    Object.fromEntries(wrong.map((l) => [`lineIds.${l.id}`, l.state])));
+}
+
+/**
  * Moves one line: checks the table, writes the new state (only if the line is still where the
  * caller read it — a concurrent move makes this one fail with 409) and the timeline event.
  */
@@ -59,7 +71,10 @@ export function transitionAll(db: Db, moves: LineMove[]): void {
   });
 }
 
-/** Records the first state of a new line (the line row is inserted by the caller in the same transaction). */
-export function recordFirstState(db: Db, line: { id: string; state: string }, actorId: string | null, at: number, message: string | null = null): void {
+/**
+ * Records the first state of a new line on its timeline (the line row, inserted by the caller in
+ * the same transaction, can only start in FIRST_LINE_STATE: ordersRepo.insertLine's type says so).
+ */
+export function recordFirstState(db: Db, line: { id: string; state: typeof FIRST_LINE_STATE }, actorId: string | null, at: number, message: string | null = null): void {
   ordersRepo.insertEvent(db, { id: crypto.randomUUID(), lineId: line.id, actorId, fromState: null, toState: line.state, message, createdAt: at });
 }

@@ -6,8 +6,10 @@ import { shipByDate as businessShipBy } from '../../../shared/business/working-d
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { notFound } from '../../http/app-error.ts';
 import type { PageQuery } from '../../../shared/schemas/pagination.ts';
+import { FIRST_LINE_STATE } from '../../../shared/schemas/order.ts';
 import { ordersRepo, type OrderRow } from './orders.repo.ts';
 import { listOrders, orderDetail } from './order-view.ts';
+import { recordFirstState } from './line-state.ts';
 
 export type PricedShop = {
   shopId: string;
@@ -62,14 +64,14 @@ export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buye
         quantity: l.quantity,
         unitPriceMinor: l.unitPriceMinor,
         totalMinor: l.totalMinor,
-        state: 'awaiting_proof',
+        state: FIRST_LINE_STATE,
         snapshot: l.snapshot,
         version: 1,
         createdAt: args.paidAt,
         updatedAt: args.paidAt,
       });
       ordersRepo.insertVersion(db, { id: crypto.randomUUID(), lineId, version: 1, snapshot: l.snapshot, authorId: args.buyerId, createdAt: args.paidAt });
-      ordersRepo.insertEvent(db, { id: crypto.randomUUID(), lineId, actorId: null, fromState: null, toState: 'awaiting_proof', message: 'Paid. The shop will check the personalisation before cutting.', createdAt: args.paidAt });
+      recordFirstState(db, { id: lineId, state: FIRST_LINE_STATE }, null, args.paidAt, 'Paid. The shop will check the personalisation before cutting.');
     }
     ordersRepo.insertLedger(db, { id: crypto.randomUUID(), shopId: s.shopId, orderId, kind: 'charge', amountMinor: split.shopTotalMinor, currency: args.currency, providerRef: args.paymentIntentId, memo: 'shopper paid (lines + shipping)', createdAt: args.paidAt });
     made.push(ordersRepo.find(db, orderId)!);

@@ -12,18 +12,17 @@
 // finishes it. The local write after the provider's yes is made once, by the request or by the
 // charge.refunded webhook, whichever comes first (matched by the intent id in the refund's metadata).
 import crypto from 'node:crypto';
+import type Stripe from 'stripe';
 import type { AppDeps } from '../../app.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 import { shopShareOfRefunds } from '../../../shared/money.ts';
-import type { RefundInput, RefundResult } from '../../../shared/schemas/order.ts';
-// refunds work on orders and pay out through payments' payouts (one-way)
-import { ordersRepo, type OrderLineRow, type OrderRow } from '../orders/orders.repo.ts';
-import { orderDetail } from '../orders/order-view.ts';
-import { refundMail } from '../orders/order-mails.ts';
-import { settleOrder } from '../payments/payouts.service.ts';
+import { canMoveLine, type LineState, type RefundInput, type RefundResult } from '../../../shared/schemas/order.ts';
+// refunds work on orders and pay out through payments' payouts (one-way), through their public modules
+import { assertMove, orderDetail, ordersRepo, refundMail, transitionAll, type OrderLineRow, type OrderRow } from '../orders/index.ts';
+import { settleOrder } from '../payments/index.ts';
 import { refundsRepo, type RefundIntentRow } from './refunds.repo.ts';
 
 export type RefundDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'> & {
@@ -46,6 +45,8 @@ function claim(deps: RefundDeps, actor: SessionUser, order: OrderRow, lineId: st
       if (same?.state === 'pending') return same; // the same refund, under way or left unconfirmed: send it again
       const line = lineId ? ordersRepo.lines(t, [order.id]).find((l) => l.id === lineId) : undefined;
       if (same || line?.state === 'refunded') throw conflict(line ? 'This item has been refunded already.' : 'Everything on this order has been refunded already.');
+      // refused before any money moves when the table does not let this actor refund the line
+      if (line) assertMove(line.state as LineState, 'refunded', actor.role === 'admin' ? 'admin' : 'shop');
       // refunds recorded before intents existed count too
       const recorded = ordersRepo.refundsOf(t, order.id).reduce((a, r) => a + r.amountMinor, 0);
       const viaIntents = live.filter((i) => i.state === 'succeeded').reduce((a, i) => a + i.amountMinor, 0);
@@ -91,7 +92,7 @@ export async function refundOrder(deps: RefundDeps, actor: SessionUser, orderId:
   if (input.lineId && !ordersRepo.lines(db, [order.id]).some((l) => l.id === input.lineId)) throw notFound('That item is not part of this order.');
 
   const intent = claim(deps, actor, order, input.lineId ?? null, input.reason ?? null);
-  let refund;
+  let refund: Stripe.Refund;
   try {
     refund = await paymentsClient(deps.env).refunds.create(
       {
@@ -148,11 +149,11 @@ export async function recordProviderRefund(deps: Pick<RefundDeps, 'db' | 'now' |
       const lines = ordersRepo.lines(t, [order.id]);
       // the remainder covers every line not refunded and not claimed by a line refund of its own
       const claimedLines = new Set(refundsRepo.intentsOf(t, order.id).filter((i) => i.state === 'pending' && i.lineId).map((i) => i.lineId));
-      const targets: OrderLineRow[] = intent.lineId ? lines.filter((l) => l.id === intent.lineId && l.state !== 'refunded') : lines.filter((l) => l.state !== 'refunded' && !claimedLines.has(l.id));
-      for (const l of targets) {
-        ordersRepo.setLine(t, l.id, { state: 'refunded', refundedMinor: l.totalMinor, updatedAt: at });
-        ordersRepo.insertEvent(t, { id: crypto.randomUUID(), lineId: l.id, actorId: intent.actorId, fromState: l.state, toState: 'refunded', message: intent.reason ?? 'Refunded.', createdAt: at });
-      }
+      // the app records the move the provider's refund makes (on behalf of the shop or admin who
+      // asked); a line the table can't move to refunded (refunded or cancelled already) is left as it is
+      const refundable = (l: OrderLineRow) => canMoveLine(l.state as LineState, 'refunded', 'system');
+      const targets: OrderLineRow[] = intent.lineId ? lines.filter((l) => l.id === intent.lineId && refundable(l)) : lines.filter((l) => refundable(l) && !claimedLines.has(l.id));
+      transitionAll(t, targets.map((l) => ({ line: l, to: 'refunded' as const, actor: 'system' as const, actorId: intent.actorId, at, message: intent.reason ?? 'Refunded.', set: { refundedMinor: l.totalMinor } })));
       refundsRepo.insertAudit(t, { id: crypto.randomUUID(), actorId: intent.actorId, action: 'order.refund', subjectType: 'order', subjectId: order.id, reason: intent.reason, createdAt: at });
       return { intent, order, what: intent.lineId ? (lines.find((l) => l.id === intent.lineId)?.listingTitle ?? null) : null };
     },

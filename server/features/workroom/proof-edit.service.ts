@@ -1,20 +1,22 @@
 // The shopper's side of a change request: read what may be edited, and save the new
 // personalisation. The new choices go through the same checks and the same engine composition as
 // the cart (cart/design.ts buildSnapshot — reused, not copied, so the rules can't drift); the line
-// gets a new line_versions row and goes back to `awaiting_proof`. Every version is kept.
+// gets a new line_versions row and goes back to `awaiting_proof` (through orders' transition()).
+// Every version is kept.
 import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
-import type { WorkroomDeps } from './workroom.service.ts';
+import type { WorkroomDeps } from './lines.service.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { personalisationEditSchema, type PersonalisationEdit } from '../../../shared/schemas/workroom.ts';
 import { catalogEntry } from '../../../shared/engine/font-catalog.ts';
 // the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
-import { buildSnapshot, readLiveContent, snapshotLookups } from '../cart/design.ts';
+import { buildSnapshot, readLiveContent, snapshotLookups } from '../cart/index.ts';
 import { formatMoney } from '../../../shared/money.ts';
+import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
+import { transition } from '../orders/index.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
-
 
 function buyersLine(db: Db, buyerId: string, lineId: string) {
   const line = repo.lineById(db, lineId);
@@ -39,7 +41,7 @@ export function personalisationForEdit(db: Db, buyerId: string, lineId: string):
   const request = [...events].reverse().find((e) => e.toState === 'changes_requested');
   return {
     line: { id: line.id, orderId: line.orderId, state: line.state, listingTitle: line.listingTitle, version: line.version },
-    editable: line.state === 'changes_requested',
+    editable: canMoveLine(line.state as LineState, 'awaiting_proof', 'shopper'),
     changeRequest: line.state === 'changes_requested' ? (request?.message ?? null) : null,
     choices: line.snapshot.choices,
     textFields: content.personalisation.textFields.map((f) => ({
@@ -63,7 +65,7 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
   const { db } = deps;
   const { choices } = personalisationEditSchema.parse(raw);
   const { line } = buyersLine(db, buyerId, lineId);
-  if (line.state !== 'changes_requested') {
+  if (!canMoveLine(line.state as LineState, 'awaiting_proof', 'shopper')) {
     throw new AppError(409, 'wrong_state', 'This item can be edited only while the shop has asked for a change.');
   }
   const { listing, content } = contentOf(db, line.listingId);
@@ -89,8 +91,7 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
   db.transaction((tx) => {
     const t = tx as unknown as Db;
     repo.insertVersion(t, { id: crypto.randomUUID(), lineId: line.id, version, snapshot, authorId: buyerId, createdAt: at });
-    repo.setLine(t, line.id, { snapshot, version, state: 'awaiting_proof', updatedAt: at });
-    repo.insertEvent(t, { id: crypto.randomUUID(), lineId: line.id, actorId: buyerId, fromState: line.state, toState: 'awaiting_proof', message: `Personalisation edited (version ${version}).`, createdAt: at });
+    transition(t, { line, to: 'awaiting_proof', actor: 'shopper', actorId: buyerId, at, message: `Personalisation edited (version ${version}).`, set: { snapshot, version } });
   });
   return personalisationForEdit(db, buyerId, lineId);
 }

@@ -1,9 +1,11 @@
 // Every database call of the workroom. Each read that takes an id from the client is scoped by
-// the seller's shop, so another shop's ids simply find nothing (→ 404, nothing revealed).
+// the seller's shop, so another shop's ids simply find nothing (→ 404, nothing revealed). A line's
+// state and its timeline are written only by orders' transition(), never from here.
 import { and, desc, eq, gte, inArray, lte, ne, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { cutSheets, lineEvents, lineVersions, listings, materials, motifs, orderLines, orders, shops, user } from '../../db/schema.ts';
 import type { LinesFilter } from '../../../shared/schemas/workroom.ts';
+import { FINISHED_LINE_STATES, UNCUT_LINE_STATES } from '../../../shared/schemas/order.ts';
 
 export type LineRow = typeof orderLines.$inferSelect;
 export type OrderRow = typeof orders.$inferSelect;
@@ -27,12 +29,10 @@ function linesWhere(shopId: string, f: LinesFilter): SQL | undefined {
  * Most urgent first: lines still to ship before finished ones, then by ship-by date (late ones
  * have the earliest dates), lines not yet cut before cut ones on the same date, then newest paid.
  */
-const FINISHED = sql`('shipped', 'cancelled', 'refunded')`;
-const NOT_CUT = sql`('awaiting_proof', 'changes_requested', 'approved')`;
 const urgency = [
-  sql`case when ${orderLines.state} in ${FINISHED} then 1 else 0 end`,
+  sql`case when ${inArray(orderLines.state, FINISHED_LINE_STATES)} then 1 else 0 end`,
   sql`coalesce(${orders.shipByDate}, '9999-12-31')`,
-  sql`case when ${orderLines.state} in ${NOT_CUT} then 0 else 1 end`,
+  sql`case when ${inArray(orderLines.state, UNCUT_LINE_STATES)} then 0 else 1 end`,
   desc(orders.paidAt),
   orders.number,
   orderLines.createdAt,
@@ -84,9 +84,7 @@ export const workroomRepo = {
   order: (db: Db, shopId: string, orderId: string) => db.select().from(orders).where(and(eq(orders.id, orderId), eq(orders.shopId, shopId))).get(),
   orderById: (db: Db, orderId: string) => db.select().from(orders).where(eq(orders.id, orderId)).get(),
   lineById: (db: Db, lineId: string) => db.select().from(orderLines).where(eq(orderLines.id, lineId)).get(),
-  setLine: (db: Db, lineId: string, set: Partial<typeof orderLines.$inferInsert>) => db.update(orderLines).set(set).where(eq(orderLines.id, lineId)).run(),
   setOrder: (db: Db, orderId: string, set: Partial<typeof orders.$inferInsert>) => db.update(orders).set(set).where(eq(orders.id, orderId)).run(),
-  insertEvent: (db: Db, row: typeof lineEvents.$inferInsert) => db.insert(lineEvents).values(row).run(),
   insertVersion: (db: Db, row: typeof lineVersions.$inferInsert) => db.insert(lineVersions).values(row).run(),
   events: (db: Db, lineIds: string[]) => (lineIds.length ? db.select().from(lineEvents).where(inArray(lineEvents.lineId, lineIds)).orderBy(lineEvents.createdAt, lineEvents.id).all() : []),
   versions: (db: Db, lineId: string) => db.select().from(lineVersions).where(eq(lineVersions.lineId, lineId)).orderBy(lineVersions.version).all(),

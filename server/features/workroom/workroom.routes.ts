@@ -6,7 +6,12 @@ import {
   idParams, lineIdsSchema, linesQuerySchema, lowStockSchema, requestChangeSchema, shipSchema, stockQuerySchema, worksheetRequestSchema, type LinesQuery,
 } from '../../../shared/schemas/workroom.ts';
 import type { PageQuery } from '../../../shared/schemas/pagination.ts';
-import * as svc from './workroom.service.ts';
+import { listLines, orderView, summary } from './lines.service.ts';
+import { approve, proof, requestChange } from './proofs.service.ts';
+import { batch, buildCutSheets, markCut, recentBatches, sheetSvg } from './cut-sheets.service.ts';
+import { markPressed, pressCards } from './press.service.ts';
+import { ship } from './shipping.service.ts';
+import { setLowStock, stock } from './stock.service.ts';
 import { createWorksheetJobs } from './worksheet-jobs.ts';
 import { personalisationForEdit, savePersonalisation } from './proof-edit.service.ts';
 import { perAccountLimit } from '../../http/account-rate-limit.ts';
@@ -23,62 +28,62 @@ export function workroomRouter(deps: AppDeps): Router {
   r.use(requireRole('seller'));
 
   r.get('/summary', (req, res) => {
-    res.json(svc.summary(deps.db, shopId(req)));
+    res.json(summary(deps.db, shopId(req)));
   });
   r.get('/lines', validate({ query: linesQuerySchema }), (req, res) => {
-    res.json(svc.listLines(deps.db, shopId(req), res.locals.query as LinesQuery));
+    res.json(listLines(deps.db, shopId(req), res.locals.query as LinesQuery));
   });
   r.get('/orders/:id', validate({ params: idParams }), (req, res) => {
-    res.json({ order: svc.orderView(deps.db, shopId(req), id(req)) });
+    res.json({ order: orderView(deps.db, shopId(req), id(req)) });
   });
   r.post('/orders/:id/ship', validate({ params: idParams, body: shipSchema }), async (req, res) => {
-    res.json({ order: await svc.ship(deps, shopId(req), currentUser(req).id, id(req), req.body) });
+    res.json({ order: await ship(deps, shopId(req), currentUser(req).id, id(req), req.body) });
   });
 
   // proofs
   r.get('/lines/:id/proof', validate({ params: idParams }), (req, res) => {
-    res.json({ proof: svc.proof(deps.db, shopId(req), id(req)) });
+    res.json({ proof: proof(deps.db, shopId(req), id(req)) });
   });
   r.post('/lines/:id/approve', validate({ params: idParams }), (req, res) => {
-    res.json({ lines: svc.approve(deps, shopId(req), currentUser(req).id, [id(req)]) });
+    res.json({ lines: approve(deps, shopId(req), currentUser(req).id, [id(req)]) });
   });
   r.post('/proofs/approve', validate({ body: lineIdsSchema }), (req, res) => {
-    res.json({ lines: svc.approve(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
+    res.json({ lines: approve(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
   });
   r.post('/lines/:id/request-change', validate({ params: idParams, body: requestChangeSchema }), async (req, res) => {
-    res.json({ line: await svc.requestChange(deps, shopId(req), currentUser(req).id, id(req), req.body.message) });
+    res.json({ line: await requestChange(deps, shopId(req), currentUser(req).id, id(req), req.body.message) });
   });
 
   // press cards
   r.get('/lines/:id/press-card', validate({ params: idParams }), (req, res) => {
-    res.json(svc.pressCards(deps.db, shopId(req), { lineId: id(req) })[0]);
+    res.json(pressCards(deps.db, shopId(req), { lineId: id(req) })[0]);
   });
   r.get('/press-cards', (req, res) => {
-    res.json({ cards: svc.pressCards(deps.db, shopId(req), { state: 'cut' }) });
+    res.json({ cards: pressCards(deps.db, shopId(req), { state: 'cut' }) });
   });
   r.post('/lines/:id/pressed', validate({ params: idParams }), (req, res) => {
-    res.json({ lines: svc.markPressed(deps, shopId(req), currentUser(req).id, [id(req)]) });
+    res.json({ lines: markPressed(deps, shopId(req), currentUser(req).id, [id(req)]) });
   });
   r.post('/pressed', validate({ body: lineIdsSchema }), (req, res) => {
-    res.json({ lines: svc.markPressed(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
+    res.json({ lines: markPressed(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
   });
 
   // cut sheets
   r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: lineIdsSchema }), async (req, res) => {
-    res.status(201).json(await svc.buildCutSheets(deps, shopId(req), req.body.lineIds));
+    res.status(201).json(await buildCutSheets(deps, shopId(req), req.body.lineIds));
   });
   r.get('/batches', (req, res) => {
-    res.json({ batches: svc.recentBatches(deps.db, shopId(req)) });
+    res.json({ batches: recentBatches(deps.db, shopId(req)) });
   });
   r.get('/batches/:id', validate({ params: idParams }), (req, res) => {
-    res.json({ batchId: id(req), sheets: svc.batch(deps.db, shopId(req), id(req)) });
+    res.json({ batchId: id(req), sheets: batch(deps.db, shopId(req), id(req)) });
   });
   r.post('/batches/:id/cut', validate({ params: idParams }), (req, res) => {
-    const sheets = svc.batch(deps.db, shopId(req), id(req));
-    res.json(svc.markCut(deps, shopId(req), currentUser(req).id, sheets.map((s) => s.id)));
+    const sheets = batch(deps.db, shopId(req), id(req));
+    res.json(markCut(deps, shopId(req), currentUser(req).id, sheets.map((s) => s.id)));
   });
   r.get('/cut-sheets/:id/svg', validate({ params: idParams }), (req, res) => {
-    const { svg, name } = svc.sheetSvg(deps.db, shopId(req), id(req));
+    const { svg, name } = sheetSvg(deps.db, shopId(req), id(req));
     res.setHeader('Content-Type', 'image/svg+xml; charset=utf-8');
     res.setHeader('Cache-Control', 'private, no-store');
     // our own SVG has no script, but never let a browser run anything from it anyway
@@ -87,7 +92,7 @@ export function workroomRouter(deps: AppDeps): Router {
     res.send(svg);
   });
   r.post('/cut-sheets/:id/cut', validate({ params: idParams }), (req, res) => {
-    res.json(svc.markCut(deps, shopId(req), currentUser(req).id, [id(req)]));
+    res.json(markCut(deps, shopId(req), currentUser(req).id, [id(req)]));
   });
 
   // work sheet PDF: start, poll, download
@@ -107,10 +112,10 @@ export function workroomRouter(deps: AppDeps): Router {
 
   // stock
   r.get('/stock', validate({ query: stockQuerySchema }), (req, res) => {
-    res.json(svc.stock(deps.db, shopId(req), res.locals.query as PageQuery));
+    res.json(stock(deps.db, shopId(req), res.locals.query as PageQuery));
   });
   r.patch('/stock/:id', validate({ params: idParams, body: lowStockSchema }), (req, res) => {
-    res.json(svc.setLowStock(deps.db, shopId(req), id(req), req.body.lowStockMm));
+    res.json(setLowStock(deps.db, shopId(req), id(req), req.body.lowStockMm));
   });
   return r;
 }

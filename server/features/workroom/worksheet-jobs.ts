@@ -10,7 +10,9 @@ import type { WorksheetJob } from '../../../shared/schemas/workroom.ts';
 import { parseShipTo, shipToLines } from '../../../shared/schemas/checkout.ts';
 import { worksheetPageCount, worksheetInputSchema, type Paper } from './worksheet-pdf.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
-import { asCutSheet, lineSnapshot, lineText, pressCardFor } from './workroom.service.ts';
+import { lineSnapshot, lineText } from './lines.service.ts';
+import { asCutSheet } from './cut-sheets.service.ts';
+import { pressCardFor } from './press.service.ts';
 
 type Job = { id: string; shopId: string; batchId: string; paper: Paper; state: WorksheetJob['state']; progress: number; pages: number | null; pdf: Buffer | null; error: string | null; at: number };
 

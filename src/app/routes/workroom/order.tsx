@@ -1,5 +1,6 @@
 import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
+import { canMoveLine, isFinishedLine } from '../../../../shared/schemas/order.ts';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -17,8 +18,8 @@ export function WorkroomOrderPage() {
   const order = useOrder(orderId);
   if (order.isPending || order.isError) return <SellerPageStatus error={order.error} loading="Loading the order…" />;
   const o = order.data;
-  const active = o.lines.filter((l) => !['shipped', 'cancelled', 'refunded'].includes(l.state));
-  const ready = active.length > 0 && active.every((l) => l.state === 'pressed');
+  const active = o.lines.filter((l) => !isFinishedLine(l.state));
+  const ready = active.length > 0 && active.every((l) => canMoveLine(l.state, 'shipped', 'shop'));
   const label = (lineId: string) => o.lines.find((l) => l.id === lineId)?.text || o.lines.find((l) => l.id === lineId)?.listingTitle || '';
   return (
     <div>

@@ -1,0 +1,206 @@
+// Cut sheets: approved lines' pieces nested per material on the roll, their SVG for the cutter,
+// and marking sheets cut — which takes the vinyl from stock and moves a line to `cut` once all its
+// pieces are cut (through orders' transition()).
+import crypto from 'node:crypto';
+import type { Db } from '../../db/client.ts';
+import { AppError, conflict, notFound } from '../../http/app-error.ts';
+import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
+import type { MarkCutResult, StockWarning, StoredSheetPiece, WorkSheet } from '../../../shared/schemas/workroom.ts';
+import { CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM, type CutSheet } from '../../../shared/engine/cut-sheets.ts';
+import { cutOutline } from '../../../shared/engine/cut-path.ts';
+import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
+import { MAX_NEST_PIECES } from '../../../shared/engine/limits.ts';
+import type { RawPiece } from '../../workers/tasks.ts';
+import { assertEachCanMove, transition } from '../orders/index.ts';
+import { TRIM_ALLOWANCE_MM } from './worksheet-pdf.ts';
+import { workroomRepo as repo, type MaterialRow, type SheetRow } from './workroom.repo.ts';
+import { lineSnapshot, type WorkroomDeps, type WorkroomPoolDeps } from './lines.service.ts';
+
+/** Rounds a length to the micrometre, as stored. */
+export const r3 = (v: number) => Math.round(v * 1000) / 1000;
+
+function stockCheck(m: MaterialRow | undefined, needMm: number): WorkSheet['stock'] {
+  const stockMm = m?.stockMm ?? 0;
+  const afterMm = stockMm - needMm;
+  return { stockMm, needMm, afterMm, low: afterMm < (m?.lowStockMm ?? 0), short: afterMm < 0 };
+}
+
+function sheetView(s: SheetRow, m: MaterialRow | undefined): WorkSheet {
+  const pieces = s.pieces.map(({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }) => ({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }));
+  return {
+    id: s.id,
+    batchId: s.batchId,
+    state: s.state === 'cut' ? 'cut' : 'planned',
+    material: { id: s.materialId, kind: m?.kind ?? 'unknown', colour: m?.colourName ?? 'unknown', colourHex: m?.colourHex ?? '#000000' },
+    rollWidthMm: s.rollWidthMm,
+    lengthMm: s.lengthMm,
+    utilisation: s.utilisation,
+    pieces,
+    svgUrl: `/api/workroom/cut-sheets/${encodeURIComponent(s.id)}/svg`,
+    consumedMm: s.consumedMm,
+    cutAt: s.cutAt,
+    createdAt: s.createdAt,
+    stock: stockCheck(m, s.lengthMm + TRIM_ALLOWANCE_MM),
+  };
+}
+
+/** The nested sheet as the core's CutSheet, for the SVG and the PDF. */
+export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string; path: string }> } {
+  const stored = s.pieces;
+  return {
+    rollWidthMm: s.rollWidthMm,
+    gapMm: DEFAULT_GAP_MM,
+    marginMm: DEFAULT_MARGIN_MM,
+    lengthMm: s.lengthMm,
+    utilisation: s.utilisation,
+    piecesAreaMm2: s.utilisation * s.rollWidthMm * s.lengthMm,
+    placements: stored.map((p) => ({ pieceId: p.pieceId, lineId: p.lineId, orderNumber: p.orderNumber, layerId: p.layerId, xMm: p.xMm, yMm: p.yMm, widthMm: p.widthMm, heightMm: p.heightMm, rotated: p.rotated })),
+    pieces: stored.map((p) => ({ id: p.pieceId, path: p.path })),
+  };
+}
+
+/**
+ * Nests the chosen approved lines' pieces: grouped by material (one sheet per material on its own
+ * roll width), 6 mm gap and margins, rotation allowed (shared/engine/cut-sheets.ts). A line with
+ * quantity n gives its pieces n times. All sheets of one call share a batch id.
+ */
+export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, lineIds: string[]): Promise<{ batchId: string; sheets: WorkSheet[] }> {
+  const { db } = deps;
+  const rows = repo.linesByIds(db, shopId, lineIds);
+  if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
+  // a line goes on a sheet when cutting is its next move
+  assertEachCanMove(rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })), 'cut', 'shop', 'Only approved lines go on cut sheets');
+  const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
+  const groups = new Map<string, { material: MaterialRow; pieces: RawPiece[] }>();
+  let pieceCount = 0;
+  for (const { line, order } of rows) {
+    const s = lineSnapshot(line);
+    pieceCount += line.quantity * s.geometry.pieces.length;
+    if (pieceCount > MAX_NEST_PIECES) throw new AppError(400, 'limit_exceeded', `These lines make more than ${MAX_NEST_PIECES.toLocaleString('en')} pieces, the most one cut-sheet build nests. Choose fewer lines.`);
+    for (let unit = 0; unit < line.quantity; unit++) {
+      s.geometry.pieces.forEach((pc, i) => {
+        const m = pc.materialId ? mats.get(pc.materialId) : undefined;
+        if (!m) throw conflict(`Order ${order.number}: a piece's material is no longer in your materials. Add it back, or refund the line.`);
+        let g = groups.get(m.id);
+        if (!g) groups.set(m.id, (g = { material: m, pieces: [] }));
+        g.pieces.push({
+          id: `${line.id}:${unit + 1}:${i + 1}`,
+          lineId: line.id,
+          orderNumber: line.quantity > 1 ? `${order.number}·${unit + 1}` : order.number,
+          layerId: `piece-${i + 1}`,
+          path: pc.d,
+        });
+      });
+    }
+  }
+  // measuring and nesting run in the worker pool (server/workers/tasks.ts measureAndNest), one
+  // material at a time; an empty piece cuts nothing and is left out there
+  const nestedByMaterial = new Map<string, CutSheet[]>();
+  for (const g of groups.values()) {
+    try {
+      nestedByMaterial.set(g.material.id, await deps.pool.run({ kind: 'nest', rollWidthMm: g.material.rollWidthMm, pieces: g.pieces }));
+    } catch (e) {
+      if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
+      throw e;
+    }
+  }
+  const batchId = crypto.randomUUID();
+  const at = deps.now();
+  const made: SheetRow[] = [];
+  for (const g of groups.values()) {
+    const nested = nestedByMaterial.get(g.material.id)!;
+    const paths = new Map(g.pieces.map((p) => [p.id, p.path]));
+    for (const n of nested) {
+      const row = {
+        id: crypto.randomUUID(),
+        shopId,
+        materialId: g.material.id,
+        batchId,
+        rollWidthMm: n.rollWidthMm,
+        lengthMm: r3(n.lengthMm),
+        utilisation: n.utilisation,
+        pieces: n.placements.map((pl): StoredSheetPiece => ({
+          pieceId: pl.pieceId, lineId: pl.lineId, orderNumber: pl.orderNumber ?? '', layerId: pl.layerId,
+          xMm: pl.xMm, yMm: pl.yMm, widthMm: pl.widthMm, heightMm: pl.heightMm, rotated: pl.rotated, path: paths.get(pl.pieceId)!,
+        })),
+        state: 'planned',
+        createdAt: at,
+      };
+      repo.insertSheet(db, row);
+      made.push(repo.sheet(db, shopId, row.id)!);
+    }
+  }
+  return { batchId, sheets: made.map((s) => sheetView(s, mats.get(s.materialId))) };
+}
+
+export function batch(db: Db, shopId: string, batchId: string): WorkSheet[] {
+  const rows = repo.sheetsOfBatch(db, shopId, batchId);
+  if (!rows.length) throw notFound('We could not find that batch of cut sheets.');
+  const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
+  return rows.map((s) => sheetView(s, mats.get(s.materialId)));
+}
+
+export function recentBatches(db: Db, shopId: string): Array<{ batchId: string; createdAt: number; sheets: number; planned: number; lineCount: number }> {
+  const by = new Map<string, { batchId: string; createdAt: number; sheets: number; planned: number; lines: Set<string> }>();
+  for (const s of repo.sheetsOfShop(db, shopId)) {
+    let b = by.get(s.batchId);
+    if (!b) by.set(s.batchId, (b = { batchId: s.batchId, createdAt: s.createdAt, sheets: 0, planned: 0, lines: new Set() }));
+    b.sheets++;
+    if (s.state !== 'cut') b.planned++;
+    for (const p of s.pieces) b.lines.add(p.lineId);
+  }
+  return [...by.values()].slice(0, 20).map(({ lines, ...b }) => ({ ...b, lineCount: lines.size }));
+}
+
+export function sheetSvg(db: Db, shopId: string, sheetId: string): { svg: string; name: string } {
+  const s = repo.sheet(db, shopId, sheetId);
+  if (!s) throw notFound('We could not find that cut sheet.');
+  const m = repo.material(db, shopId, s.materialId);
+  const cs = asCutSheet(s);
+  const name = `cut-sheet-${(m ? `${m.colourName}-${m.kind}` : 'material').toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${s.id.slice(0, 8)}.svg`;
+  // the blade follows each piece's outer outline, not the overlapping contours the font drew
+  return { svg: cutSheetSvg(cs, cs.pieces.map((p) => ({ ...p, path: cutOutline(p.path) }))), name };
+}
+
+/**
+ * Marks sheets cut: each takes its length plus the 25 mm trim allowance (from memory)
+ * from its material's stock; a line moves to `cut` once every sheet of the batch holding its
+ * pieces is cut. Stock never goes below zero: a shortfall is reported instead.
+ */
+export function markCut(deps: WorkroomDeps, shopId: string, actorId: string, sheetIds: string[]): MarkCutResult {
+  const { db } = deps;
+  const sheets = sheetIds.map((id) => repo.sheet(db, shopId, id));
+  if (sheets.some((s) => !s)) throw notFound('We could not find that cut sheet.');
+  const todo = (sheets as SheetRow[]).filter((s) => s.state !== 'cut');
+  if (!todo.length) throw new AppError(409, 'already_cut', 'These sheets are marked cut already.');
+  const at = deps.now();
+  const warnings: StockWarning[] = [];
+  const linesCut: string[] = [];
+  db.transaction((tx) => {
+    const t = tx as unknown as Db;
+    for (const s of todo) {
+      const m = repo.material(t, shopId, s.materialId);
+      const consumed = r3(s.lengthMm + TRIM_ALLOWANCE_MM);
+      const cost = m ? Math.round((consumed / 1000) * m.pricePerMetreMinor) : null;
+      repo.setSheet(t, s.id, { state: 'cut', consumedMm: consumed, costMinor: cost, cutAt: at });
+      if (!m) continue;
+      const after = r3(m.stockMm - consumed);
+      repo.setMaterial(t, m.id, { stockMm: Math.max(0, after) });
+      const label = `${m.colourName} ${m.kind}`;
+      if (after < 0) warnings.push({ materialId: m.id, level: 'short', message: `${label}: this sheet needed ${consumed} mm but only ${m.stockMm} mm was in stock — short by ${r3(-after)} mm. Stock is now 0; check the roll and update it.` });
+      else if (after < m.lowStockMm) warnings.push({ materialId: m.id, level: 'low', message: `${label}: ${after} mm left, under your low-stock mark of ${m.lowStockMm} mm. Time to reorder.` });
+    }
+    const lineIds = [...new Set(todo.flatMap((s) => s.pieces.map((p) => p.lineId)))];
+    for (const { line } of repo.linesByIds(t, shopId, lineIds)) {
+      if (!canMoveLine(line.state as LineState, 'cut', 'shop')) continue;
+      const batches = new Set(todo.filter((s) => s.pieces.some((p) => p.lineId === line.id)).map((s) => s.batchId));
+      const allCut = [...batches].every((b) => repo.sheetsOfBatch(t, shopId, b).filter((s) => s.pieces.some((p) => p.lineId === line.id)).every((s) => s.state === 'cut'));
+      if (allCut) {
+        transition(t, { line, to: 'cut', actor: 'shop', actorId, at, message: 'All its pieces are cut.' });
+        linesCut.push(line.id);
+      }
+    }
+  });
+  const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
+  return { sheets: todo.map((s) => sheetView(repo.sheet(db, shopId, s.id)!, mats.get(s.materialId))), linesCut, warnings };
+}

@@ -1,0 +1,54 @@
+// Press cards (the heat, time and peel for each layer of a line, on the shop's press) and marking
+// lines pressed (through orders' transition()).
+import type { Db } from '../../db/client.ts';
+import { notFound } from '../../http/app-error.ts';
+import type { LineState } from '../../../shared/schemas/order.ts';
+import type { PressCardView, WorkLine } from '../../../shared/schemas/workroom.ts';
+import { pressCard, type PressType } from '../../../shared/engine/press-card.ts';
+import { MATERIAL_KINDS, type MaterialKind } from '../../../shared/engine/press-defaults.ts';
+import { assertEachCanMove, transitionAll } from '../orders/index.ts';
+import { workroomRepo as repo, type MaterialRow } from './workroom.repo.ts';
+import { lineMaterialIds, lineSnapshot, lineViews, ownLine, type LineWithOrder, type WorkroomDeps } from './lines.service.ts';
+import { listingContent, proofBlank } from './proofs.service.ts';
+
+const asKind = (k: string): MaterialKind => ((MATERIAL_KINDS as readonly string[]).includes(k) ? (k as MaterialKind) : 'smooth');
+
+export function pressCardFor(db: Db, shopId: string, row: LineWithOrder, mats?: Map<string, MaterialRow>): PressCardView {
+  const shop = repo.shop(db, shopId);
+  const materials = mats ?? new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
+  const s = lineSnapshot(row.line);
+  const layers = lineMaterialIds(s).map((id) => {
+    const m = materials.get(id);
+    const pp = m?.pressProfile;
+    return {
+      layerId: id,
+      materialKind: asKind(m?.kind ?? 'smooth'),
+      colourName: (m?.colourName ?? 'Unknown colour').slice(0, 40),
+      ...(pp ? { profile: { handheld: pp.handheld, clamshell: pp.clamshell, tackS: pp.tackS, peel: pp.peel, topOnly: pp.topOnly } } : {}),
+    };
+  });
+  const { topOffsetMm } = listingContent(db, row.line.listingId);
+  const b = proofBlank(s, topOffsetMm);
+  const card = pressCard({
+    pressType: (shop?.pressType === 'handheld' ? 'handheld' : 'clamshell') as PressType,
+    layers: layers.length ? layers : [{ layerId: 'design', materialKind: 'smooth', colourName: 'Design' }],
+    blank: { kind: s.blank.kind, name: b.name, topOffsetMm: b.printArea.yMm },
+  });
+  return { line: lineViews(db, shopId, [row])[0]!, card };
+}
+
+export function pressCards(db: Db, shopId: string, opts: { lineId?: string; state?: LineState }): PressCardView[] {
+  const rows = opts.lineId ? [ownLine(db, shopId, opts.lineId)] : repo.linesOfShop(db, shopId, opts.state ?? 'cut');
+  const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
+  return rows.map((r) => pressCardFor(db, shopId, r, mats));
+}
+
+export function markPressed(deps: WorkroomDeps, shopId: string, actorId: string, lineIds: string[]): WorkLine[] {
+  const { db } = deps;
+  const rows = repo.linesByIds(db, shopId, lineIds);
+  if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
+  assertEachCanMove(rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })), 'pressed', 'shop', 'Only cut items can be marked pressed');
+  const at = deps.now();
+  transitionAll(db, rows.map((r) => ({ line: r.line, to: 'pressed' as const, actor: 'shop' as const, actorId, at, message: 'Pressed.' })));
+  return lineViews(db, shopId, repo.linesByIds(db, shopId, lineIds));
+}
