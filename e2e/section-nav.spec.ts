@@ -73,7 +73,7 @@ test('at 375 px the seller navigation scrolls in its row, shows the current page
   await expect(line).toBeVisible();
   expect(await line.evaluate((el) => el.tagName)).toBe('LI');
   await line.getByRole('checkbox').check();
-  await expect(page.getByText(/lines? shown, 1 selected/)).toBeVisible();
+  await expect(page.getByText(/shown on this page, 1 selected/)).toBeVisible();
 });
 
 test('the moderation desk has its own section navigation', async ({ page }) => {
