@@ -1,0 +1,3 @@
+// Public module of the workroom feature: its routes, and proof approval for the demo seed.
+export { proofEditRouter, workroomRouter } from './workroom.routes.ts';
+export { approve } from './workroom.service.ts';
