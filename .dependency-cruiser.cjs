@@ -50,6 +50,22 @@ module.exports = {
       to: { path: '^server/features/[^/]+/', pathNot: ['^server/features/$1/', '^server/features/[^/]+/index\\.ts$'] },
     },
     {
+      name: 'database-calls-in-repos',
+      severity: 'error',
+      comment:
+        'Every database call on the server is in a *.repo.ts: services, routes, jobs and the seed call a repo, so only repos import drizzle-orm or the tables (server/db/schema.ts). The schema, the client and the auth setup (better-auth reads the tables) are the exceptions.',
+      from: { path: '^server/', pathNot: ['\\.repo\\.ts$', '^server/db/(schema|auth-schema|client)\\.ts$', '^server/auth\\.ts$'] },
+      to: { path: ['^node_modules/drizzle-orm/', '^server/db/(schema|auth-schema)\\.ts$'] },
+    },
+    {
+      name: 'services-never-see-http',
+      severity: 'error',
+      comment:
+        'A service takes plain values (the user, ids, parsed input), never Express requests or responses: cookies, headers and sessions are read in the route or in server/http/.',
+      from: { path: '\\.service\\.ts$' },
+      to: { path: '^node_modules/express/' },
+    },
+    {
       name: 'shared-stands-alone',
       severity: 'error',
       comment: 'shared/ is used by the browser and the server alike, so it never imports src/ or server/.',
@@ -76,7 +92,8 @@ module.exports = {
   options: {
     parser: 'swc',
     tsPreCompilationDeps: true,
-    includeOnly: '^(src|server|shared|tests|e2e|fakes|bench|scripts)/',
+    // our code, plus the two packages the database and HTTP rules above watch for
+    includeOnly: '^(src|server|shared|tests|e2e|fakes|bench|scripts)/|^node_modules/(drizzle-orm|express)/',
     doNotFollow: { path: 'node_modules' },
     moduleSystems: ['es6', 'cjs'],
     enhancedResolveOptions: {

@@ -23,7 +23,7 @@ async function server(): Promise<void> {
   const { createMailer } = await import('../server/integrations/mailer.ts');
   const { shops, listings } = await import('../server/db/schema.ts');
   const { listingInputSchema, liveColumns, OCCASIONS, BLANK_KINDS } = await import('../shared/schemas/listing.ts');
-  const { catalogPage } = await import('../server/features/catalog/catalog.repo.ts');
+  const { search } = await import('../server/features/catalog/index.ts');
 
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-bench-'));
   const env = loadEnv({ NODE_ENV: 'test', DATA_DIR: dataDir, LOG_REQUESTS: 'false', STRIPE_FAKE: 'false', MAIL_FAKE: 'false' });
@@ -67,7 +67,7 @@ async function server(): Promise<void> {
   const times: number[] = [];
   for (let i = 0; i < 400; i++) {
     const t0 = process.hrtime.bigint();
-    catalogPage(db, { q: QUERIES[i % QUERIES.length], sort: 'newest', page: 1, limit: 24, maxPrice: 100_000 + i });
+    search(db, { q: QUERIES[i % QUERIES.length], sort: 'newest', page: 1, limit: 24, maxPrice: 100_000 + i });
     times.push(Number(process.hrtime.bigint() - t0) / 1e6);
   }
   times.sort((a, b) => a - b);

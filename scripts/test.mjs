@@ -1,6 +1,7 @@
-// `npm test`: Chromium (Debian's, installed when missing and we are root), typecheck, Vitest,
-// a production build, then Playwright against the built app. Ends with one line
-// "tests: N passed, N failed" summing Vitest and Playwright.
+// `npm test`: Chromium (Debian's, installed when missing and we are root), typecheck, the import
+// rules (dependency-cruiser) and Biome, Vitest, a production build, then Playwright against the built
+// app. Ends with one line "tests: N passed, N failed" summing Vitest and Playwright, where each failed
+// check (typecheck, import rules, Biome, build) counts as one failure more.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -30,12 +31,27 @@ function ensureChromium() {
   return r.status === 0 && fs.existsSync('/usr/bin/chromium');
 }
 
+// Biome (formatting and lint) runs with the other checks; switch it off here only while the tree is
+// being reformatted.
+const BIOME = true;
+
 const counts = { passed: 0, failed: 0, skipped: 0 };
 let ok = true;
 const node = process.execPath;
+const failedChecks = [];
+
+/** A check that passes or fails as a whole: a failure is counted once and named at the end. */
+function check(label, args) {
+  if (run(label, node, args)) return;
+  ok = false;
+  counts.failed += 1;
+  failedChecks.push(label);
+}
 
 if (only !== 'e2e') {
-  ok = run('typecheck (tsc --noEmit)', node, ['node_modules/typescript/bin/tsc', '--noEmit', '-p', '.']) && ok;
+  check('typecheck (tsc --noEmit)', ['node_modules/typescript/bin/tsc', '--noEmit', '-p', '.']);
+  check('import rules (dependency-cruiser)', ['node_modules/dependency-cruiser/bin/dependency-cruise.mjs', '--config', '.dependency-cruiser.cjs', '--output-type', 'err', 'src', 'server', 'shared', 'tests', 'e2e', 'fakes', 'bench', 'scripts']);
+  if (BIOME) check('formatting and lint (Biome)', ['node_modules/@biomejs/biome/bin/biome', 'check', '.']);
   const vitestJson = path.join(out, 'vitest.json');
   ok = run('unit and API tests (Vitest)', node, ['node_modules/vitest/vitest.mjs', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`]) && ok;
   if (fs.existsSync(vitestJson)) {
@@ -53,7 +69,7 @@ if (only !== 'unit') {
     ok = false;
     counts.failed += 1;
   } else {
-    ok = run('production build (vite build)', node, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']) && ok;
+    check('production build (vite build)', ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']);
     const e2eJson = path.join(out, 'e2e.json');
     ok = run('browser tests (Playwright, Chromium)', node, ['node_modules/@playwright/test/cli.js', 'test', '--config', 'e2e/playwright.config.ts'], { PLAYWRIGHT_JSON_OUTPUT_NAME: e2eJson }) && ok;
     if (fs.existsSync(e2eJson)) {
@@ -68,6 +84,7 @@ if (only !== 'unit') {
 }
 
 fs.rmSync(out, { recursive: true, force: true });
-if (!ok && counts.failed === 0) counts.failed = 1; // a failed typecheck or build counts as a failure
+if (!ok && counts.failed === 0) counts.failed = 1;
+if (failedChecks.length) console.log(`\nfailed checks: ${failedChecks.join(', ')}`);
 console.log(`\ntests: ${counts.passed} passed, ${counts.failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ''}`);
 process.exit(ok && counts.failed === 0 ? 0 : 1);

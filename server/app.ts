@@ -4,36 +4,20 @@ import morgan from 'morgan';
 import path from 'node:path';
 import fs from 'node:fs';
 import { toNodeHandler } from 'better-auth/node';
-import { sql } from 'drizzle-orm';
-import type { Db } from './db/client.ts';
-import type { Env } from './env.ts';
-import type { Mailer } from './integrations/mailer.ts';
-import { createAuth, type Auth } from './auth.ts';
+import type { AppDeps } from './deps.ts';
+import { createAuth } from './auth.ts';
 import { errorHandler } from './http/error-handler.ts';
 import { authInput } from './http/auth-input.ts';
 import { loadSession } from './http/auth-guards.ts';
 import { appOrigins, sameOrigin } from './http/same-origin.ts';
 import { notFound } from './http/app-error.ts';
-import { accountRouter } from './features/account/account.routes.ts';
-import { adminMailRouter } from './features/admin/admin-mail.routes.ts';
 import { featureRouters } from './features/index.ts';
 import { withOurErrorShape } from './http/auth-errors.ts';
-import { DEMO_PASSWORD, hasDemoData } from './db/seed.ts';
+import { DEMO_PASSWORD, hasDemoData } from './db/demo-accounts.ts';
+import { pingDatabase } from './db/health.repo.ts';
 import { DEFAULT_RATE_LIMITS, type RateLimits } from './http/account-rate-limit.ts';
 import { createWorkPool, type WorkPool } from './workers/pool.ts';
 
-export type AppDeps = {
-  db: Db;
-  env: Env;
-  mailer: Mailer;
-  /** the clock, injectable for tests */
-  now: () => number;
-  auth: Auth;
-  /** worker threads for CPU-heavy work (server/workers/pool.ts); closed by the runtime on stop */
-  pool: WorkPool;
-  /** per-account limits on the routes that start heavy work */
-  rateLimits: RateLimits;
-};
 
 export type CreateAppInput = Omit<AppDeps, 'auth' | 'now' | 'pool' | 'rateLimits'> & {
   now?: () => number;
@@ -99,7 +83,7 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
   app.use('/api', loadSession(deps));
 
   app.get('/api/health', (_req, res) => {
-    deps.db.get(sql`select 1`);
+    pingDatabase(deps.db);
     res.json({ ok: true });
   });
   app.get('/api/config', (_req, res) => {
@@ -119,8 +103,6 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
         : { demoMode: false },
     );
   });
-  app.use('/api', accountRouter(deps));
-  app.use('/api/admin/mail', adminMailRouter(deps));
   for (const r of routers.json) app.use(r.path, r.router);
 
   app.use('/api', (_req, _res) => {

@@ -6,11 +6,16 @@ import { newPasswordSchema } from '../shared/schemas/auth.ts';
 import type { Db } from './db/client.ts';
 import * as authSchema from './db/auth-schema.ts';
 import type { Env } from './env.ts';
-import { CLIENT_IP_HEADER } from './http/auth-input.ts';
 import { appOrigins } from './http/same-origin.ts';
 import { mailLayout, escapeHtml, type Mailer } from './integrations/mailer.ts';
 
 export type AuthDeps = { db: Db; env: Env; mailer: Mailer };
+
+/**
+ * The header better-auth's own IP limits read the client address from. server/http/auth-input.ts
+ * always overwrites it with the socket's address, so a client cannot set it.
+ */
+export const CLIENT_IP_HEADER = 'x-namesake-client-ip';
 
 /**
  * Session lifetime. Sliding: a session lasts 14 days from its last use (better-auth moves

@@ -2,7 +2,7 @@
 // A bad or incomplete environment stops it with exit code 1 and one line per problem.
 import path from 'node:path';
 import { startNamesake } from './runtime.ts';
-import { DEMO_PASSWORD } from './db/seed.ts';
+import { DEMO_PASSWORD } from './db/demo-accounts.ts';
 
 const clientDir = path.resolve(process.env.CLIENT_DIR ?? 'dist');
 try {

@@ -5,9 +5,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import sharp from 'sharp';
-import type { AppDeps } from '../app.ts';
-import { listings, materials, motifs, uploads } from './schema.ts';
-import type { SeedContext } from './seed.ts';
+import type { AppDeps } from '../deps.ts';
+import type { SeedContext } from './seed-context.ts';
+import { seedRepo } from './seed.repo.ts';
 import { createStorage } from '../integrations/storage.ts';
 import { parseMotifSvg, renderMotifSvg } from '../../shared/engine/motif.ts';
 import { defaultPressProfile, type MaterialKind } from '../../shared/engine/press-defaults.ts';
@@ -260,7 +260,7 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
     for (const [key, kind, colourName, colourHex, rollWidthMm, stockMm] of MATERIALS[shopSlug]) {
       const id = crypto.randomUUID();
       matIds[key] = id;
-      db.insert(materials).values({ id, shopId, kind, colourName, colourHex, rollWidthMm, stockMm, lowStockMm: 1000, pricePerMetreMinor: kind === 'smooth' ? 450 : 800, pressProfile: defaultPressProfile(kind), createdAt: base }).run();
+      seedRepo.insertMaterial(db, { id, shopId, kind, colourName, colourHex, rollWidthMm, stockMm, lowStockMm: 1000, pricePerMetreMinor: kind === 'smooth' ? 450 : 800, pressProfile: defaultPressProfile(kind), createdAt: base });
     }
     const motifIds: Record<string, string> = {};
     const photoIds: Record<string, string> = {};
@@ -269,12 +269,12 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
       const { dropped: _d, ...geometry } = parseMotifSvg(fs.readFileSync(path.join(MOTIF_DIR, file), 'utf8'));
       const id = crypto.randomUUID();
       motifIds[key] = id;
-      db.insert(motifs).values({ id, shopId, name, geometry, createdAt: base }).run();
+      seedRepo.insertMotif(db, { id, shopId, name, geometry, createdAt: base });
       const img = await storage.saveImage(await photoFor(renderMotifSvg({ ...geometry, dropped: [] })));
       const uploadId = crypto.randomUUID();
       photoIds[key] = uploadId;
       thumbs[key] = img.thumbName;
-      db.insert(uploads).values({ id: uploadId, ownerId: owner, shopId, kind: 'photo', path: img.fileName, thumbPath: img.thumbName, mime: img.mime, width: img.width, height: img.height, bytes: img.bytes, createdAt: base }).run();
+      seedRepo.insertUpload(db, { id: uploadId, ownerId: owner, shopId, kind: 'photo', path: img.fileName, thumbPath: img.thumbName, mime: img.mime, width: img.width, height: img.height, bytes: img.bytes, createdAt: base });
     }
     const ref = (map: Record<string, string>, what: string) => (k: string) => {
       if (!map[k]) throw new Error(`demo ${what} ${k} missing in ${shopSlug}`);
@@ -287,12 +287,12 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
       const slug = `${content.title.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '')}`;
       const live = spec.state === 'live';
       const thumbPath = live ? thumbs[spec.photoOf] : null;
-      db.insert(listings).values({
+      seedRepo.insertListing(db, {
         id: crypto.randomUUID(), shopId, slug, state: spec.state, draft: content,
         live: live ? content : null,
         ...(live ? { ...liveColumns(content), liveThumbPath: thumbPath, publishedAt: at } : {}),
         createdAt: at, updatedAt: at,
-      }).run();
+      });
     }
   }
 }

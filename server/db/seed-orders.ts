@@ -7,24 +7,18 @@
 // are real payments there, and refunds, transfers and payouts of them work. Each purchase is dated
 // some days back (the clock handed to the services), and proofs are approved by the workroom's own
 // approve. No e-mails go out for them.
-import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../app.ts';
-import type { SeedContext } from './seed.ts';
+import type { AppDeps } from '../deps.ts';
+import type { SeedContext } from './seed-context.ts';
+import { seedRepo } from './seed.repo.ts';
 import { demoPaymentProvider } from './seed-payments.ts';
 import { paymentsClient } from '../integrations/payments.ts';
 import type { ShipTo } from '../../shared/schemas/checkout.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
-import { and, eq } from 'drizzle-orm';
-import { listings, materials } from './schema.ts';
-import { addLine } from '../features/cart/cart.service.ts';
-import { readLiveContent } from '../features/cart/design.ts';
-import { cartRepo } from '../features/cart/cart.repo.ts';
-import { openCheckout } from '../features/checkout/checkout.service.ts';
-import { handleEvent } from '../features/payments/payments.service.ts';
-import { paymentsRepo } from '../features/payments/payments.repo.ts';
-import { ordersRepo } from '../features/orders/index.ts';
+import { addLine, readLiveContent, resolveCart } from '../features/cart/index.ts';
+import { openCheckout } from '../features/checkout/index.ts';
+import { handleEvent, skipOrderMails } from '../features/payments/index.ts';
 import { approve } from '../features/workroom/index.ts';
 
 const DEMO_SHIP_TO: ShipTo = { name: 'Dana Whitlock', line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' };
@@ -91,21 +85,22 @@ export async function seedOrders(deps: AppDeps, ctx: SeedContext): Promise<void>
 
 async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: string): Promise<void> {
   const db = deps.db;
-  const mats = new Map(db.select().from(materials).where(eq(materials.shopId, shopId)).all().map((m) => [m.colourName, m.id]));
-  const shopListings = db.select().from(listings).where(and(eq(listings.shopId, shopId), eq(listings.state, 'live'))).all();
+  const mats = new Map(seedRepo.materialsOf(db, shopId).map((m) => [m.colourName, m.id]));
+  const shopListings = seedRepo.liveListingsOf(db, shopId);
   const mat = (name: string) => {
     const id = mats.get(name);
     if (!id) throw new Error(`demo orders: no material ${name} in Fern & Fable Goods`);
     return id;
   };
-  const buyer = ordersRepo.userEmail(db, buyerId)!;
+  const buyer = seedRepo.userEmail(db, buyerId)!;
   const stripe = paymentsClient(deps.env);
   const now = deps.now();
   const at = (ms: number): AppDeps => ({ ...deps, now: () => ms });
 
   for (const [k, purchase] of PURCHASES.entries()) {
     const paidAt = now - purchase.daysAgo * DAY - k * 3_600_000;
-    const cart = cartRepo.findForUser(db, buyerId) ?? cartRepo.create(db, { id: crypto.randomUUID(), userId: buyerId, at: paidAt - 600_000 });
+    const dana = { userId: buyerId, cookieCartId: null };
+    const cart = resolveCart(at(paidAt - 600_000), dana, { create: true }).cart!;
     const wanted: Array<{ listingId: string; name: string; approved: boolean }> = [];
     for (const item of purchase.items) {
       const listing = shopListings.find((l) => l.liveTitle === item.listing);
@@ -123,15 +118,15 @@ async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: 
       await addLine(at(paidAt - 300_000), cart, { listingId: listing.id, quantity: item.quantity ?? 1, choices });
       wanted.push({ listingId: listing.id, name: item.name, approved: item.approved });
     }
-    const started = await openCheckout(at(paidAt - 120_000), cartRepo.find(db, cart.id)!, { id: buyerId, email: buyer.email });
-    paymentsRepo.claimMail(db, started.checkoutId, paidAt); // demo purchases send no e-mail
+    const started = await openCheckout(at(paidAt - 120_000), resolveCart(deps, dana, { create: false }).cart, { id: buyerId, email: buyer.email });
+    skipOrderMails(deps, started.checkoutId, paidAt); // demo purchases send no e-mail
     const paid = await fetch(started.url, { method: 'POST', body: new URLSearchParams(PAY_FORM), redirect: 'manual' });
     if (paid.status !== 303) throw new Error(`demo orders: the payment page answered ${paid.status}: ${(await paid.text()).slice(0, 300)}`);
     await handleEvent(at(paidAt), await completedEvent(stripe, started.sessionId));
 
-    const order = ordersRepo.ofCheckout(db, started.checkoutId)[0];
+    const order = seedRepo.ordersOfCheckout(db, started.checkoutId)[0];
     if (!order?.transferId) throw new Error(`demo orders: checkout ${started.checkoutId} made no paid-out order`);
-    const lines = ordersRepo.lines(db, [order.id]);
+    const lines = seedRepo.linesOf(db, order.id);
     const toApprove = lines
       .filter((l) => wanted.some((w) => w.approved && w.listingId === l.listingId && Object.values((l.snapshot as LineSnapshot).choices.texts).some((t) => t.text === w.name)))
       .map((l) => l.id);

@@ -1,21 +1,12 @@
 // The invented demo scenario (DEVELOPERS.md, "Demo scenario"). Runs when the database has no users
 // and DEMO_DATA is on (the default outside production; never implied in production).
 import crypto from 'node:crypto';
-import { eq, sql } from 'drizzle-orm';
-import type { AppDeps } from '../app.ts';
-import { shops, user } from './schema.ts';
+import type { AppDeps } from '../deps.ts';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts.ts';
+import type { SeedContext } from './seed-context.ts';
+import { seedRepo } from './seed.repo.ts';
 import { seedCatalog } from './seed-catalog.ts';
 import { seedOrders } from './seed-orders.ts';
-
-export const DEMO_PASSWORD = 'namesake-demo';
-
-const ACCOUNTS = [
-  { email: 'dana@namesake.test', name: 'Dana Whitlock', role: 'shopper' },
-  { email: 'fern@namesake.test', name: 'Fern Okafor', role: 'seller' },
-  { email: 'comet@namesake.test', name: 'Cass Merriweather', role: 'seller' },
-  { email: 'harbour@namesake.test', name: 'Hal Brennan', role: 'seller' },
-  { email: 'admin@namesake.test', name: 'Ada Moderator', role: 'admin' },
-] as const;
 
 const SHOPS = [
   { owner: 'fern@namesake.test', name: 'Fern & Fable Goods', slug: 'fern-and-fable-goods', state: 'live', processingDays: 3, shippingMinor: 450, pressType: 'clamshell',
@@ -27,40 +18,30 @@ const SHOPS = [
 ] as const;
 
 export function isEmpty(deps: Pick<AppDeps, 'db'>): boolean {
-  return (deps.db.get<{ n: number }>(sql`select count(*) as n from user`)?.n ?? 0) === 0;
+  return seedRepo.userCount(deps.db) === 0;
 }
-
-/** Whether the demo accounts are in the database (the sign-in page lists them only then). */
-export function hasDemoData(deps: Pick<AppDeps, 'db'>): boolean {
-  const emails = ACCOUNTS.map((a) => a.email);
-  const n = deps.db.get<{ n: number }>(sql`select count(*) as n from user where email in (${sql.join(emails.map((e) => sql`${e}`), sql`, `)})`)?.n ?? 0;
-  return n === emails.length;
-}
-
-/** What the later parts of the demo (catalogue, orders) need from the accounts and shops made here. */
-export type SeedContext = { userIds: Record<string, string>; shopIds: Record<string, string> };
 
 export async function seedDemo(deps: AppDeps): Promise<void> {
   // accounts with a published password: only when asked for (DEMO_DATA=true, or outside production)
   if (!deps.env.demoData) throw new Error('Demo data is off: set DEMO_DATA=true to seed the demo scenario (never on a real shop: its passwords are public).');
   const userIds: Record<string, string> = {};
-  for (const a of ACCOUNTS) {
+  for (const a of DEMO_ACCOUNTS) {
     const res = await deps.auth.api.signUpEmail({ body: { email: a.email, password: DEMO_PASSWORD, name: a.name } });
     userIds[a.email] = res.user.id;
-    deps.db.update(user).set({ role: a.role, emailVerified: true }).where(eq(user.id, res.user.id)).run();
+    seedRepo.setRole(deps.db, res.user.id, a.role);
   }
   const shopIds: Record<string, string> = {};
   const at = deps.now();
   for (const s of SHOPS) {
     const id = crypto.randomUUID();
     shopIds[s.slug] = id;
-    deps.db.insert(shops).values({
+    seedRepo.insertShop(deps.db, {
       id, ownerId: userIds[s.owner], name: s.name, slug: s.slug, state: s.state, description: s.description,
       processingDays: s.processingDays, shippingMinor: s.shippingMinor, pressType: s.pressType,
       hourlyRateMinor: 1800, // demo: $18.00 an hour for labour in the cost of goods
       returnPolicy: 'Personalised items can be returned only if they arrive damaged or with a mistake on our side. Tell us within 14 days.',
       createdAt: at, updatedAt: at,
-    }).run();
+    });
   }
   const ctx: SeedContext = { userIds, shopIds };
   // in order: the orders are made from the catalogue's live listings and materials

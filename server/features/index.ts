@@ -1,24 +1,27 @@
 import type { Router } from 'express';
-import type { AppDeps } from '../app.ts';
-import { shopsRouter } from './shops/shops.routes.ts';
-import { materialsRouter } from './materials/materials.routes.ts';
-import { listingsRouter } from './listings/listings.routes.ts';
-import { uploadsApiRouter } from './uploads/uploads.routes.ts';
-import { moderationRouter } from './moderation/moderation.routes.ts';
-import { catalogRouter, catalogSearchRouter } from './catalog/catalog.routes.ts';
-import { cartRouter } from './cart/cart.routes.ts';
-import { checkoutRouter } from './checkout/checkout.routes.ts';
-import { ordersRouter } from './orders/orders.routes.ts';
-import { refundsRouter } from './refunds/refunds.routes.ts';
-import { paymentsWebhookRouter } from './payments/payments.routes.ts';
-import { engineRouter } from './engine/engine.routes.ts';
-import { proofEditRouter, workroomRouter } from './workroom/workroom.routes.ts';
-import { businessRouter } from './business/business.routes.ts';
+import type { AppDeps } from '../deps.ts';
+import { accountRouter } from './account/index.ts';
+import { adminMailRouter } from './admin/index.ts';
+import { shopsRouter } from './shops/index.ts';
+import { materialsRouter } from './materials/index.ts';
+import { listingsRouter } from './listings/index.ts';
+import { uploadsApiRouter } from './uploads/index.ts';
+import { moderationRouter } from './moderation/index.ts';
+import { catalogRouter, catalogSearchRouter } from './catalog/index.ts';
+import { cartRouter } from './cart/index.ts';
+import { checkoutRouter } from './checkout/index.ts';
+import { ordersRouter } from './orders/index.ts';
+import { refundsRouter } from './refunds/index.ts';
+import { paymentsWebhookRouter } from './payments/index.ts';
+import { engineRouter } from './engine/index.ts';
+import { proofEditRouter, workroomRouter } from './workroom/index.ts';
+import { businessRouter } from './business/index.ts';
 
 type Mounted = { path: string; router: Router };
 
 /**
- * Every feature's router, in one list so app.ts stays short. `raw` routers mount before the JSON
+ * Every feature's router, in one list so app.ts stays short; each comes from its feature's public
+ * module (server/features/<feature>/index.ts). `raw` routers mount before the JSON
  * body parser (for signed webhooks that must see the raw bytes); `json` ones after it.
  */
 export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[] } {
@@ -30,6 +33,8 @@ export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[]
       { path: '/api/listings', router: catalogSearchRouter(deps) },
     ],
     json: [
+      { path: '/api', router: accountRouter(deps) },
+      { path: '/api/admin/mail', router: adminMailRouter(deps) },
       { path: '/api/shop', router: shopsRouter(deps) },
       { path: '/api/materials', router: materialsRouter(deps) },
       { path: '/api/seller/listings', router: listingsRouter(deps) },

@@ -1,14 +1,13 @@
 import type { RequestHandler, Request } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
-import { eq } from 'drizzle-orm';
 import { SESSION_ABSOLUTE_MS, type Auth } from '../auth.ts';
 import type { Db } from '../db/client.ts';
-import { session, shops } from '../db/schema.ts';
+import { authRepo, type ShopRow } from './auth.repo.ts';
 import type { Role } from '../../shared/schemas/auth.ts';
 import { forbidden, unauthorized } from './app-error.ts';
 
 export type SessionUser = { id: string; email: string; name: string; role: Role };
-export type ShopRow = typeof shops.$inferSelect;
+export type { ShopRow };
 
 declare module 'express-serve-static-core' {
   interface Request {
@@ -31,7 +30,7 @@ export function loadSession(deps: { auth: Auth; db: Db; now: () => number }): Re
     if (!req.headers.cookie?.includes('session_token')) return next();
     const result = await deps.auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
     if (result && deps.now() - new Date(result.session.createdAt).getTime() > SESSION_ABSOLUTE_MS) {
-      deps.db.delete(session).where(eq(session.id, result.session.id)).run();
+      authRepo.deleteSession(deps.db, result.session.id);
       return next();
     }
     if (result && !result.user.banned) {
@@ -63,8 +62,12 @@ export function currentUser(req: Request): SessionUser {
 
 /** The shop the signed-in seller owns; 403 when they have none. Everything a seller touches is scoped by it. */
 export function ownShop(db: Db, req: Request): ShopRow {
-  const user = currentUser(req);
-  const shop = db.select().from(shops).where(eq(shops.ownerId, user.id)).get();
+  const shop = authRepo.shopOfOwner(db, currentUser(req).id);
   if (!shop) throw forbidden('Open a shop first.');
   return shop;
+}
+
+/** The shop of whoever asks, or null for a guest or a user without a shop. */
+export function shopOfRequester(db: Db, req: Request): ShopRow | null {
+  return req.user ? (authRepo.shopOfOwner(db, req.user.id) ?? null) : null;
 }

@@ -5,15 +5,7 @@ import {
 } from '../../shared/schemas/auth.ts';
 import { validate } from './validate.ts';
 import { requireRole, requireUser } from './auth-guards.ts';
-
-/**
- * Runs in front of better-auth: refuses any auth address that is not in its one plain form,
- * parses the JSON body, validates it with the shared schemas so bad input gets our one error
- * shape with field messages, and limits failed sign-ins per account (OWASP ASVS 6.3.1) — five
- * failures a minute for one e-mail, then 429 until the minute is over, so an attacker is slowed
- * without locking the real user out for long.
- */
-export const CLIENT_IP_HEADER = 'x-namesake-client-ip';
+import { CLIENT_IP_HEADER } from '../auth.ts';
 
 /**
  * The plain form of an auth path: percent-escapes decoded (once), backslashes read as slashes,
@@ -52,7 +44,15 @@ export const plainAuthPath: RequestHandler = (req, res, next) => {
   });
 };
 
-/** `session` loads the signed-in user (auth-guards' loadSession): the account routes below need it. */
+/**
+ * Runs in front of better-auth: refuses any auth address that is not in its one plain form,
+ * parses the JSON body, validates it with the shared schemas so bad input gets our one error
+ * shape with field messages, and limits failed sign-ins per account (OWASP ASVS 6.3.1) — five
+ * failures a minute for one e-mail, then 429 until the minute is over, so an attacker is slowed
+ * without locking the real user out for long.
+ *
+ * `session` loads the signed-in user (auth-guards' loadSession): the account routes below need it.
+ */
 export function authInput(opts: { signInFailuresPerMinute: number; session: RequestHandler }): Router {
   const r = Router();
   r.use(plainAuthPath);

@@ -14,7 +14,7 @@ import { compose, ComposeError, type ComposedItem, type ComposeInput } from '../
 import { CutSheetError, nestCutSheets, type CutSheet, type NestPiece } from '../../shared/engine/cut-sheets.ts';
 import { parsePathData, pathArea, pathBBox } from '../../shared/engine/path.ts';
 import { LimitError } from '../../shared/engine/limits.ts';
-import { buildWorksheetPdf, type WorksheetInput } from '../features/workroom/worksheet-pdf.ts';
+import { buildWorksheetPdf, type WorksheetInput } from './worksheet-pdf.ts';
 
 /** A piece to nest as the workroom has it: its path data, not yet measured. */
 export type RawPiece = Omit<NestPiece, 'widthMm' | 'heightMm' | 'areaMm2'>;

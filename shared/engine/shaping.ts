@@ -27,7 +27,7 @@
  * On top of that, `shapeText` has an exact fast path (below) for the common case — a name that
  * needs only cmap, hmtx advances and GPOS pair kerning — and hands every other string to fontkit.
  */
-import type { FkFont } from './fonts.ts';
+import type { Font as FkFont } from 'fontkit';
 
 /* eslint-disable @typescript-eslint/no-explicit-any -- fontkit's internals are untyped */
 type Any = any;

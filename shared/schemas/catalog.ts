@@ -1,4 +1,4 @@
-/** The public catalogue: search query, list items and the listing page. */
+/** The public catalogue: search query, list items, the listing page and the public shop page. */
 import { z } from 'zod';
 import type { StoredMotifGeometry } from '../engine/motif.ts';
 import { blankKindSchema, occasionSchema, type ListingContent } from './listing.ts';
@@ -43,6 +43,12 @@ export type CatalogItem = z.infer<typeof catalogItemSchema>;
 
 export const catalogPageSchema = pageSchema(catalogItemSchema);
 export type CatalogPage = z.infer<typeof catalogPageSchema>;
+
+/** GET /api/shops/:slug */
+export type PublicShop = {
+  shop: { name: string; slug: string; description: string; processingDays: number; shippingMinor: number; currency: string; returnPolicy: string; logoUrl: string | null };
+  listings: CatalogItem[];
+};
 
 export const listingSlugParams = z.object({ slug: z.string().min(1).max(120) });
 

@@ -1,6 +1,5 @@
-/** Shop settings (seller) and the public shop page. */
+/** Shop settings and states (the seller's own shop). The public shop page is in catalog.ts. */
 import { z } from 'zod';
-import type { CatalogItem } from './catalog.ts';
 
 export const SHOP_STATES = ['in_review', 'live', 'suspended', 'rejected'] as const;
 export type ShopState = (typeof SHOP_STATES)[number];
@@ -50,10 +49,4 @@ export type OwnShop = {
   pendingChange: { name?: string; description?: string; submittedAt: number } | null;
   /** why the last name/description change was not approved */
   changeRejectionReason: string | null;
-};
-
-/** GET /api/shops/:slug */
-export type PublicShop = {
-  shop: { name: string; slug: string; description: string; processingDays: number; shippingMinor: number; currency: string; returnPolicy: string; logoUrl: string | null };
-  listings: CatalogItem[];
 };

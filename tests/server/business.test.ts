@@ -7,7 +7,7 @@ import Papa from 'papaparse';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { checkouts, cutSheets, jobRuns, orderLines, orders, shops, user } from '../../server/db/schema.ts';
 import { createOrdersForCheckout, type PricedShop } from '../../server/features/orders/orders.service.ts';
-import { runDigest } from '../../server/jobs/digest.ts';
+import { runDigest } from '../../server/features/business/digest.ts';
 import { parsePathData, pathArea } from '../../shared/engine/path.ts';
 import { sheetCostShares } from '../../shared/business/costs.ts';
 import type { CostsView, DueView, LedgerView, PriceCheckResult, BusinessSettings, ChartsView } from '../../shared/schemas/business.ts';

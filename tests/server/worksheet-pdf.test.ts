@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { inflateSync } from 'node:zlib';
-import { buildWorksheetPdf, mapPageCount, worksheetPageCount, type WorksheetInput } from '../../server/features/workroom/worksheet-pdf.ts';
+import { buildWorksheetPdf, mapPageCount, worksheetPageCount, type WorksheetInput } from '../../server/workers/worksheet-pdf.ts';
 import { nestCutSheets, type NestPiece } from '../../shared/engine/cut-sheets.ts';
 import { pressCard } from '../../shared/engine/press-card.ts';
 

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { openShopSchema } from '../../../shared/schemas/auth.ts';
 import { validate } from '../../http/validate.ts';
 import { currentUser, requireUser } from '../../http/auth-guards.ts';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import { getMe, openShop } from './account.service.ts';
 
 export function accountRouter(deps: AppDeps): Router {

@@ -5,7 +5,7 @@ import { pageOffset, pageQuery, toPage, type PageQuery } from '../../../shared/s
 import { requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
 import { notFound } from '../../http/app-error.ts';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 
 /** messages per page of the admin mail list (newest first) */
 export const MAIL_PAGE_SIZE = 50;

@@ -1,7 +1,7 @@
 // The seller's business view: the working calendar and ship-by marks, cost of goods and margin per
 // line, the listing editor's price check, the ledger and the charts. Rules live in shared/business
 // (pure); this file gathers the rows and hands them over.
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
@@ -21,7 +21,7 @@ import type {
 import { priceCheckSchema } from '../../../shared/schemas/business.ts';
 // The cart's mapping from a listing's personalisation to the engine is the one a real order goes
 // through; the price check reuses it rather than keep a second copy that could drift.
-import { buildSnapshot, snapshotLookups } from '../cart/design.ts';
+import { buildSnapshot, snapshotLookups } from '../cart/index.ts';
 import { businessRepo as repo, type LineRow, type OrderRow, type SheetRow, type ShopRow } from './business.repo.ts';
 
 export type BusinessDeps = Pick<AppDeps, 'db' | 'env' | 'now'>;

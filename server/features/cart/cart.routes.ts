@@ -1,10 +1,11 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import { validate } from '../../http/validate.ts';
 import { addCartLineSchema, cartLineParams, updateCartLineSchema } from '../../../shared/schemas/cart.ts';
 import { cartRepo } from './cart.repo.ts';
 import { perAccountLimit } from '../../http/account-rate-limit.ts';
-import { addLine, cartView, removeLine, resolveCart, setQuantity } from './cart.service.ts';
+import { addLine, cartView, removeLine, setQuantity } from './cart.service.ts';
+import { cartOfRequest } from './cart-cookie.ts';
 
 /** /api/cart — guests and signed-in shoppers alike. */
 export function cartRouter(deps: AppDeps): Router {
@@ -14,20 +15,20 @@ export function cartRouter(deps: AppDeps): Router {
     next();
   });
   r.get('/', (req, res) => {
-    res.json(cartView(deps.db, resolveCart(deps, req, res, { create: false })));
+    res.json(cartView(deps.db, cartOfRequest(deps, req, res, { create: false })));
   });
   r.post('/lines', perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'items added to the cart'), validate({ body: addCartLineSchema }), async (req, res) => {
-    const cart = resolveCart(deps, req, res, { create: true })!;
+    const cart = cartOfRequest(deps, req, res, { create: true })!;
     await addLine(deps, cart, req.body);
     res.status(201).json(cartView(deps.db, cartRepo.find(deps.db, cart.id) ?? null));
   });
   r.patch('/lines/:lineId', validate({ params: cartLineParams, body: updateCartLineSchema }), (req, res) => {
-    const cart = resolveCart(deps, req, res, { create: false });
+    const cart = cartOfRequest(deps, req, res, { create: false });
     setQuantity(deps, cart, String(req.params.lineId), req.body.quantity);
     res.json(cartView(deps.db, cartRepo.find(deps.db, cart!.id) ?? null));
   });
   r.delete('/lines/:lineId', validate({ params: cartLineParams }), (req, res) => {
-    const cart = resolveCart(deps, req, res, { create: false });
+    const cart = cartOfRequest(deps, req, res, { create: false });
     removeLine(deps, cart, String(req.params.lineId));
     res.json(cartView(deps.db, cartRepo.find(deps.db, cart!.id) ?? null));
   });

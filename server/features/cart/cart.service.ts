@@ -1,14 +1,12 @@
 // Cart rules: one cart per signed-in user, a guest cart by cookie, merged on the first signed-in
 // call; lines priced by the server from the live listing (the posted body has no price at all).
 import crypto from 'node:crypto';
-import type { Request, Response } from 'express';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import type { Db } from '../../db/client.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
-import type { AddCartLineInput, Cart, CartLine, CartShop, LineSnapshot } from '../../../shared/schemas/cart.ts';
+import type { AddCartLineInput, Cart, CartLine, CartShop } from '../../../shared/schemas/cart.ts';
 import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
 import { cartRepo, type CartRow } from './cart.repo.ts';
-import { clearCartCookie, readCartCookie, setCartCookie } from './cart-cookie.ts';
 import { buildSnapshotOffThread, readLiveContent, snapshotLookups, unitPrice } from './design.ts';
 import { materialIdsOf, type ListingContent } from '../../../shared/schemas/listing.ts';
 
@@ -24,18 +22,24 @@ export function onSale(row: ListingRow): ListingContent | null {
   return ok ? readLiveContent(listing.live) : null;
 }
 
+/** Who asks for a cart: the signed-in user (null for a guest) and the cart id the guest cookie names. */
+export type CartAsker = { userId: string | null; cookieCartId: string | null };
+
+/** What becomes of the guest cart cookie: set to a new cart's id, cleared, or left alone (null). */
+export type CartCookieChange = { set: string } | 'clear' | null;
+
 /**
- * The cart this request works on. Signed in: the user's cart, after folding in a guest cart from
- * the cookie (then the cookie is cleared). Guest: the cookie's cart. `create` makes one if none.
+ * The cart a request works on. Signed in: the user's cart, after folding in the guest cart the
+ * cookie names (then the cookie is cleared). Guest: the cookie's cart. `create` makes one if none.
+ * The route applies `cookie` (cart-cookie.ts): this rule never sees the request.
  */
-export function resolveCart(deps: CartDeps, req: Request, res: Response, opts: { create: boolean }): CartRow | null {
+export function resolveCart(deps: CartDeps, asker: CartAsker, opts: { create: boolean }): { cart: CartRow | null; cookie: CartCookieChange } {
   const { db } = deps;
   const at = deps.now();
-  const secure = deps.env.production;
-  const cookieId = readCartCookie(req);
+  const cookieId = asker.cookieCartId;
   const cookieCart = cookieId ? cartRepo.find(db, cookieId) : undefined;
-  if (req.user) {
-    const userId = req.user.id;
+  if (asker.userId) {
+    const userId = asker.userId;
     let mine = cartRepo.findForUser(db, userId);
     if (cookieCart && cookieCart.userId === null) {
       db.transaction((tx) => {
@@ -49,16 +53,20 @@ export function resolveCart(deps: CartDeps, req: Request, res: Response, opts: {
       });
       mine = cartRepo.findForUser(db, userId);
     }
-    if (cookieId) clearCartCookie(res, secure);
     if (!mine && opts.create) mine = cartRepo.create(db, { id: crypto.randomUUID(), userId, at });
-    return mine ?? null;
+    return { cart: mine ?? null, cookie: cookieId ? 'clear' : null };
   }
   // a cookie naming a signed-in user's cart (left after sign-out) is not a guest's to use
-  if (cookieCart && cookieCart.userId === null) return cookieCart;
-  if (!opts.create) return null;
+  if (cookieCart && cookieCart.userId === null) return { cart: cookieCart, cookie: null };
+  if (!opts.create) return { cart: null, cookie: null };
   const cart = cartRepo.create(db, { id: crypto.randomUUID(), userId: null, at });
-  setCartCookie(res, cart.id, secure);
-  return cart;
+  return { cart, cookie: { set: cart.id } };
+}
+
+/** The cart again under a new version (its checkout page timed out, so a fresh one is opened). */
+export function newCartVersion(deps: Pick<CartDeps, 'db' | 'now'>, cartId: string): CartRow {
+  cartRepo.touch(deps.db, cartId, deps.now());
+  return cartRepo.find(deps.db, cartId)!;
 }
 
 export const emptyCart = (): Cart => ({ id: null, version: 0, currency: null, shops: [], itemCount: 0, subtotalMinor: 0, shippingMinor: 0, totalMinor: 0 });

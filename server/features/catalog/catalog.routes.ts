@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import { validate } from '../../http/validate.ts';
 import { catalogQuerySchema, listingSlugParams, type CatalogQuery } from '../../../shared/schemas/catalog.ts';
 import { shopSlugParams } from '../../../shared/schemas/shop.ts';

@@ -3,10 +3,9 @@ import type { SessionUser } from '../../http/auth-guards.ts';
 import { notFound } from '../../http/app-error.ts';
 import { uploadUrl } from '../../integrations/storage.ts';
 import {
-  CARE_CARD, SMALL_PARTS_NOTES, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage,
+  CARE_CARD, SMALL_PARTS_NOTES, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage, type PublicShop,
 } from '../../../shared/schemas/catalog.ts';
 import { materialIdsOf, type Occasion } from '../../../shared/schemas/listing.ts';
-import type { PublicShop } from '../../../shared/schemas/shop.ts';
 import { toPage } from '../../../shared/schemas/pagination.ts';
 import * as repo from './catalog.repo.ts';
 import { renderDescription } from './markdown.ts';

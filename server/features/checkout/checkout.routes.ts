@@ -1,11 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import { currentUser } from '../../http/auth-guards.ts';
 import { unauthorized } from '../../http/app-error.ts';
 import { validate } from '../../http/validate.ts';
 import { checkoutStatusParams } from '../../../shared/schemas/checkout.ts';
-import { checkoutStatus, latestCheckout, startCheckout } from './checkout.service.ts';
+import { cartOfRequest } from '../cart/index.ts';
+import { checkoutStatus, latestCheckout, openCheckout } from './checkout.service.ts';
 
 const statusQuery = z.object({ wait: z.coerce.number().int().min(0).max(10_000).default(0) });
 
@@ -19,7 +20,8 @@ export function checkoutRouter(deps: AppDeps): Router {
     next();
   });
   r.post('/', async (req, res) => {
-    res.status(201).json(await startCheckout(deps, req, res, currentUser(req)));
+    const user = currentUser(req);
+    res.status(201).json(await openCheckout(deps, cartOfRequest(deps, req, res, { create: false }), user));
   });
   r.get('/latest', async (req, res) => {
     res.json({ checkout: await latestCheckout(deps, currentUser(req)) });

@@ -3,23 +3,19 @@
 // Idempotency-Key with the same parameters, so the provider hands back the same session and there
 // is one charge at most (Stripe API docs, "Idempotent requests").
 import crypto from 'node:crypto';
-import type { Request, Response } from 'express';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, badRequest, conflict, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
 import { SHIPPING_COUNTRIES, type CheckoutStarted, type CheckoutStatus, type CheckoutState, type PricedCheckout } from '../../../shared/schemas/checkout.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
-import { cartView, resolveCart } from '../cart/cart.service.ts';
-import { cartRepo, type CartRow } from '../cart/cart.repo.ts';
+import { cartView, newCartVersion, type CartRow } from '../cart/index.ts';
 import { checkoutRepo, type CheckoutRow } from './checkout.repo.ts';
 import { CANCELLED_WORDS, declineInOurWords } from './decline-words.ts';
 
 export type CheckoutDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
-
-export type { PricedCheckout } from '../../../shared/schemas/checkout.ts';
 
 export const transferGroupOf = (checkoutId: string) => `checkout_${checkoutId}`;
 
@@ -67,12 +63,7 @@ function freeze(view: ReturnType<typeof cartView>): PricedCheckout {
   };
 }
 
-/** POST /api/checkout */
-export async function startCheckout(deps: CheckoutDeps, req: Request, res: Response, user: SessionUser): Promise<CheckoutStarted> {
-  return openCheckout(deps, resolveCart(deps, req, res, { create: false }), user);
-}
-
-/** Opens (or finds) the Checkout Session for this version of the user's cart. */
+/** POST /api/checkout: opens (or finds) the Checkout Session for this version of the user's cart. */
 export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, user: Pick<SessionUser, 'id' | 'email'>, attempt = 0): Promise<CheckoutStarted> {
   const { db } = deps;
   const view = cartView(db, cart);
@@ -119,8 +110,7 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
   if (session.status === 'expired' && attempt === 0) {
     // the page for this cart version timed out: mark it and start afresh with a new version
     checkoutRepo.setState(db, c.id, 'expired');
-    cartRepo.touch(db, cart.id, deps.now());
-    return openCheckout(deps, cartRepo.find(db, cart.id)!, user, 1);
+    return openCheckout(deps, newCartVersion(deps, cart.id), user, 1);
   }
   const url = session.status === 'complete' ? `${deps.env.baseUrl}/checkout/return?session_id=${session.id}` : session.url;
   if (!url) throw new AppError(502, 'payment_provider', 'The payment page is not available. Nothing was charged; please try again.');

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import { ownShop, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
 import { createMaterialSchema, materialIdParams, materialsQuerySchema, PRESS_DEFAULTS, updateMaterialSchema, type MaterialsQuery } from '../../../shared/schemas/material.ts';

@@ -10,7 +10,7 @@ import {
 } from '../../../shared/schemas/catalog.ts';
 import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagination.ts';
 import type { ShopState } from '../../../shared/schemas/shop.ts';
-import { listingPage } from '../catalog/catalog.service.ts';
+import { listingPage } from '../catalog/index.ts';
 import * as repo from './moderation.repo.ts';
 
 type Deps = { db: Db; now: () => number; mailer: Mailer; env: { baseUrl: string } };

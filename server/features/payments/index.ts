@@ -1,3 +1,4 @@
-// The payments feature's public face: what other features may use of it. Anything not exported
-// here stays inside server/features/payments.
-export { settleOrder } from './payouts.service.ts';
+// Public module of the payments feature: the provider's webhook, and its handler for the demo seed,
+// which pays its purchases the way a shopper does.
+export { paymentsWebhookRouter } from './payments.routes.ts';
+export { handleEvent, skipOrderMails } from './payments.service.ts';

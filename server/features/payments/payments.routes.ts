@@ -1,5 +1,5 @@
 import express, { Router } from 'express';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import { verifyWebhook } from '../../integrations/payments.ts';
 import { handleEvent } from './payments.service.ts';
 

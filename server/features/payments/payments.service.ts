@@ -17,20 +17,15 @@
 // is brought to what is due.
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import type { Db } from '../../db/client.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
-// payments drives orders and refunds and reads checkouts (one-way: none of them imports payments)
-import { createOrdersForCheckout, type PricedShop } from '../orders/orders.service.ts';
-import { ordersRepo } from '../orders/orders.repo.ts';
-import { confirmationMail, newOrderMail, type MailOrder } from '../orders/order-mails.ts';
-import type { PricedCheckout } from '../checkout/checkout.service.ts';
-import type { CheckoutRow } from '../checkout/checkout.repo.ts';
-import { recordProviderRefund } from '../refunds/refunds.service.ts';
-import { paymentsRepo } from './payments.repo.ts';
-import { settleOrder } from './payouts.service.ts';
+// payments drives orders, refunds and payouts (one-way: none of them imports payments)
+import { confirmationMail, createOrdersForCheckout, newOrderMail, ordersRepo, type MailOrder } from '../orders/index.ts';
+import { recordProviderRefund } from '../refunds/index.ts';
+import { settleOrder } from '../payouts/index.ts';
+import { paymentsRepo, type CheckoutRow } from './payments.repo.ts';
 
 export type PaymentsDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'>;
 
@@ -213,4 +208,9 @@ async function sendOrderMails(deps: PaymentsDeps, checkoutId: string): Promise<v
   }
   const results = await Promise.allSettled(sends);
   for (const r of results) if (r.status === 'rejected') console.error('payments: an order e-mail failed', r.reason);
+}
+
+/** Marks a checkout's order e-mails as sent without sending them (the demo seed's purchases mail no one). */
+export function skipOrderMails(deps: Pick<PaymentsDeps, 'db'>, checkoutId: string, at: number): void {
+  paymentsRepo.claimMail(deps.db, checkoutId, at);
 }

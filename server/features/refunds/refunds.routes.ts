@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import { currentUser, requireUser } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
 import { orderIdParams, refundSchema } from '../../../shared/schemas/order.ts';

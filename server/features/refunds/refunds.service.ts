@@ -13,7 +13,7 @@
 // charge.refunded webhook, whichever comes first (matched by the intent id in the refund's metadata).
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
@@ -22,7 +22,7 @@ import { shopShareOfRefunds } from '../../../shared/money.ts';
 import { canMoveLine, type LineState, type RefundInput, type RefundResult } from '../../../shared/schemas/order.ts';
 // refunds work on orders and pay out through payments' payouts (one-way), through their public modules
 import { assertMove, orderDetail, ordersRepo, refundMail, transitionAll, type OrderLineRow, type OrderRow } from '../orders/index.ts';
-import { settleOrder } from '../payments/index.ts';
+import { settleOrder } from '../payouts/index.ts';
 import { refundsRepo, type RefundIntentRow } from './refunds.repo.ts';
 
 export type RefundDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'> & {

@@ -1,6 +1,8 @@
 import { and, eq, ne } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
-import { shops, uploads } from '../../db/schema.ts';
+import { shops, uploads, type ShopChange } from '../../db/schema.ts';
+
+export type { ShopChange };
 
 export const findShopBySlug = (db: Db, slug: string) => db.select().from(shops).where(eq(shops.slug, slug)).get();
 export const slugTakenByOther = (db: Db, slug: string, shopId: string) =>

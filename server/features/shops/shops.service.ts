@@ -1,11 +1,10 @@
 import crypto from 'node:crypto';
 import type { Db } from '../../db/client.ts';
-import type { ShopChange } from '../../db/schema.ts';
 import type { ShopRow, SessionUser } from '../../http/auth-guards.ts';
 import { badRequest, conflict } from '../../http/app-error.ts';
 import { uploadUrl, type Storage } from '../../integrations/storage.ts';
 import type { OwnShop, ShopSettingsInput, ShopState } from '../../../shared/schemas/shop.ts';
-import { findOwnUpload, insertUpload, slugTakenByOther, updateShop } from './shops.repo.ts';
+import { findOwnUpload, insertUpload, slugTakenByOther, updateShop, type ShopChange } from './shops.repo.ts';
 
 export function toOwnShop(s: ShopRow): OwnShop {
   return {

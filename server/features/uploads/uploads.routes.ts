@@ -1,12 +1,10 @@
 import { Router } from 'express';
-import { eq } from 'drizzle-orm';
 import { z } from 'zod';
-import type { AppDeps } from '../../app.ts';
-import { currentUser, ownShop, requireRole } from '../../http/auth-guards.ts';
+import type { AppDeps } from '../../deps.ts';
+import { currentUser, ownShop, requireRole, shopOfRequester } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
 import { badRequest } from '../../http/app-error.ts';
 import { createStorage, IMAGE_LIMITS, singleFile, uploadsRouter } from '../../integrations/storage.ts';
-import { shops } from '../../db/schema.ts';
 import { MOTIF_LIMITS } from '../../../shared/engine/motif.ts';
 import { perAccountLimit } from '../../http/account-rate-limit.ts';
 import * as svc from './uploads.service.ts';
@@ -40,7 +38,7 @@ export function uploadsApiRouter(deps: AppDeps): { uploads: Router; motifs: Rout
   const motifs = Router();
   // public (with its own visibility rule): shoppers see motifs offered by listings on sale
   motifs.get('/:id/svg', validate({ params: idParams }), (req, res) => {
-    const shopId = req.user ? (deps.db.select({ id: shops.id }).from(shops).where(eq(shops.ownerId, req.user.id)).get()?.id ?? null) : null;
+    const shopId = shopOfRequester(deps.db, req)?.id ?? null;
     const svg = svc.motifSvg(deps.db, req.params.id as string, { role: req.user?.role, shopId });
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Content-Security-Policy', "default-src 'none'; style-src 'unsafe-inline'; sandbox");

@@ -12,7 +12,7 @@ import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
 import { MAX_NEST_PIECES } from '../../../shared/engine/limits.ts';
 import type { RawPiece } from '../../workers/tasks.ts';
 import { assertEachCanMove, transition } from '../orders/index.ts';
-import { TRIM_ALLOWANCE_MM } from './worksheet-pdf.ts';
+import { TRIM_ALLOWANCE_MM } from '../../workers/worksheet-pdf.ts';
 import { workroomRepo as repo, type MaterialRow, type SheetRow } from './workroom.repo.ts';
 import { lineSnapshot, type WorkroomDeps, type WorkroomPoolDeps } from './lines.service.ts';
 

@@ -1,3 +1,3 @@
-// The workroom feature's public face: what code outside server/features/workroom may use of it.
-// Anything not exported here stays inside the feature.
+// Public module of the workroom feature: its routes, and proof approval for the demo seed.
+export { proofEditRouter, workroomRouter } from './workroom.routes.ts';
 export { approve } from './proofs.service.ts';

@@ -1,7 +1,7 @@
 // The workroom's lines: the views of a line and its order that every part of the workroom shows,
 // the home page's counts and list, and one order with its timeline. Every call takes the seller's
 // shop id; a line or order of another shop is "not found".
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';

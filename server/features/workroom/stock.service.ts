@@ -3,7 +3,7 @@ import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import { stockQuerySchema, type StockView } from '../../../shared/schemas/workroom.ts';
 import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagination.ts';
-import { TRIM_ALLOWANCE_MM } from './worksheet-pdf.ts';
+import { TRIM_ALLOWANCE_MM } from '../../workers/worksheet-pdf.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { r3 } from './cut-sheets.service.ts';
 

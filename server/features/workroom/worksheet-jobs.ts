@@ -8,7 +8,7 @@ import type { WorkPool } from '../../workers/pool.ts';
 import { MAX_WORKSHEET_PAGES } from '../../../shared/engine/limits.ts';
 import type { WorksheetJob } from '../../../shared/schemas/workroom.ts';
 import { parseShipTo, shipToLines } from '../../../shared/schemas/checkout.ts';
-import { worksheetPageCount, worksheetInputSchema, type Paper } from './worksheet-pdf.ts';
+import { worksheetPageCount, worksheetInputSchema, type Paper } from '../../workers/worksheet-pdf.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { lineSnapshot, lineText } from './lines.service.ts';
 import { asCutSheet } from './cut-sheets.service.ts';

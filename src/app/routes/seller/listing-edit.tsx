@@ -5,6 +5,7 @@ import { paths } from '../../../config/paths.ts';
 import { useFonts } from '../../../features/listings-editor/api/get-fonts.ts';
 import { useSellerListing } from '../../../features/listings-editor/api/get-seller-listing.ts';
 import { ListingEditor } from '../../../features/listings-editor/components/listing-editor.tsx';
+import { PricingHelper } from '../../../features/business/components/pricing-helper.tsx';
 import { useAllMaterials } from '../../../features/materials/api/get-materials.ts';
 import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts';
 import { useMotifs } from '../../../features/uploads/api/get-motifs.ts';
@@ -52,6 +53,7 @@ export function ListingEditPage() {
             PhotoPicker={PhotoPicker}
             MotifPreview={MotifPreview}
             motifUpload={<MotifUpload />}
+            PricingHelper={PricingHelper}
             onSaved={(saved, created) => {
               if (created) navigate(paths.seller.editListing.getHref(saved.id), { replace: true });
             }}

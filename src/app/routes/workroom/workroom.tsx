@@ -6,6 +6,7 @@ import { Spinner } from '../../../components/ui/button.tsx';
 // the order table (and TanStack Table with it) loads on demand, keeping the first page small
 const WorkroomOrders = lazy(async () => ({ default: (await import('../../../features/workroom/components/workroom-orders.tsx')).WorkroomOrders }));
 import { useMe } from '../../../features/auth/api/get-me.ts';
+import { useShipByLookup } from '../../../features/business/api/ship-by-lookup.ts';
 
 const stateText: Record<string, { label: string; body: string; tone: string }> = {
   in_review: {
@@ -21,6 +22,8 @@ const stateText: Record<string, { label: string; body: string; tone: string }> =
 export function WorkroomPage() {
   const me = useMe();
   const shop = me.data?.shop;
+  // the queue's ship-by dates and marks come from the business feature; the route joins the two
+  const shipBy = useShipByLookup();
 
   return (
     <div>
@@ -33,7 +36,7 @@ export function WorkroomPage() {
         </div>
       ) : null}
       <Suspense fallback={<Spinner label="Loading orders…" />}>
-        <WorkroomOrders />
+        <WorkroomOrders shipBy={shipBy} />
       </Suspense>
     </div>
   );

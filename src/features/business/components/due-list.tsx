@@ -2,7 +2,7 @@ import { Link } from 'react-router-dom';
 import { paths } from '../../../config/paths.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { useDue } from '../api/get-due.ts';
-import { ShipMarkBadge } from './ship-mark-badge.tsx';
+import { ShipMarkBadge } from '../../../components/ui/ship-mark-badge.tsx';
 
 /** Open lines by ship-by date, most urgent first, with their marks. */
 export function DueList() {

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { PublicShop } from '../../../../shared/schemas/shop.ts';
+import type { PublicShop } from '../../../../shared/schemas/catalog.ts';
 import { api } from '../../../lib/api-client.ts';
 import { catalogKeys } from './keys.ts';
 

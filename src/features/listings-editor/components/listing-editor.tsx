@@ -24,9 +24,10 @@ import { useListingAction } from '../api/listing-actions.ts';
 import { useCreateListing, useUpdateListing } from '../api/save-listing.ts';
 import { LISTING_STATE_LABELS, ListingStateBadges } from './listing-state.tsx';
 import { PersonalisationEditor, type EditorMotif, type MotifPreviewProps } from './personalisation-editor.tsx';
-import { PricingHelper } from '../../business/components/pricing-helper.tsx';
 
 export type PhotoPickerProps = { value: string[]; onChange: (ids: string[]) => void; error?: string };
+/** the editor's current (watched) values and the shop's currency; the helper sends only the parts that cost */
+export type PricingHelperProps = { values: unknown; currency: string };
 
 type Props = {
   listing?: SellerListing;
@@ -37,6 +38,8 @@ type Props = {
   PhotoPicker: ComponentType<PhotoPickerProps>;
   MotifPreview: ComponentType<MotifPreviewProps>;
   motifUpload: ReactNode;
+  /** the cost and margin check under "Costing" (the business feature's, handed in by the route) */
+  PricingHelper: ComponentType<PricingHelperProps>;
   /** after a save; `created` when the listing was new (the page moves to its edit URL) */
   onSaved: (listing: SellerListing, created: boolean) => void;
 };
@@ -92,7 +95,7 @@ function countErrors(e: unknown): number {
   return n;
 }
 
-export function ListingEditor({ listing, currency, fonts, materials, motifs, PhotoPicker, MotifPreview, motifUpload, onSaved }: Props) {
+export function ListingEditor({ listing, currency, fonts, materials, motifs, PhotoPicker, MotifPreview, motifUpload, PricingHelper, onSaved }: Props) {
   const toast = useToast();
   const create = useCreateListing();
   const update = useUpdateListing();

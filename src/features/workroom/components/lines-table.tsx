@@ -11,7 +11,7 @@ import { CardTable } from '../../../components/ui/card-table.tsx';
 import { formatDate, stateWords } from './format.ts';
 import { MaterialChips } from './material-chips.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
-import { ShipByCell, useShipByLookup } from '../../business/components/ship-by-cell.tsx';
+import { ShipByCell, type ShipByLookup } from '../../../components/ui/ship-by-cell.tsx';
 
 const col = createColumnHelper<WorkLine>();
 
@@ -31,16 +31,17 @@ type Props = {
   options: WorkLinesPage['options'];
   /** bulk actions on the selected lines (of this page) */
   actions?: (selected: WorkLine[], clear: () => void) => React.ReactNode;
+  /** each line's ship-by date and mark (from the business feature, handed in by the route) */
+  shipBy: ShipByLookup;
 };
 
 /**
  * One page of the shop's lines: filter by state, date paid, material and listing (the server
  * filters and pages); sort the page by any column; select lines of the page for bulk actions.
  */
-export function LinesTable({ lines, total, filters, onFiltersChange, options, actions }: Props) {
+export function LinesTable({ lines, total, filters, onFiltersChange, options, actions, shipBy }: Props) {
   // most urgent first: late, due today, at risk, then by ship-by date (shared/business/marks.ts)
   const [sorting, setSorting] = useState<SortingState>([{ id: 'shipBy', desc: false }]);
-  const shipBy = useShipByLookup();
   const { state, from, to, material, listing } = filters;
   const [rowSelection, setRowSelection] = useState<RowSelectionState>({});
   // a selection belongs to the rows on screen: another page or filter starts with none selected

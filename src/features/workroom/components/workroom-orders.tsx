@@ -9,6 +9,7 @@ import { useApproveProofs } from '../api/approve-proofs.ts';
 import { useBuildCutSheets } from '../api/build-cut-sheets.ts';
 import { useLines } from '../api/get-lines.ts';
 import { useSummary } from '../api/get-summary.ts';
+import type { ShipByLookup } from '../../../components/ui/ship-by-cell.tsx';
 import { LinesTable, type LinesFilterValues } from './lines-table.tsx';
 import { StateCounts } from './state-counts.tsx';
 
@@ -21,9 +22,10 @@ const dayEdge = (day: string, edge: 'start' | 'end') => {
 
 /**
  * The workroom home: counts per state, the filterable table a page at a time, and the bulk
- * actions on the lines selected on the page. Filters and page live in the URL.
+ * actions on the lines selected on the page. Filters and page live in the URL. `shipBy` gives each
+ * line's ship-by date and mark (the route takes it from the business feature).
  */
-export function WorkroomOrders() {
+export function WorkroomOrders({ shipBy }: { shipBy: ShipByLookup }) {
   const [params, setParams] = useSearchParams();
   const [page, setPage] = usePageParam();
   const filters = Object.fromEntries(FILTER_KEYS.map((k) => [k, params.get(k) ?? ''])) as LinesFilterValues;
@@ -65,6 +67,7 @@ export function WorkroomOrders() {
         <div className={`flex min-w-0 max-w-full flex-col gap-4 ${lines.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}`}>
           {lines.isError ? <p role="alert" className="font-bold text-danger">{lines.error.message}</p> : null}
           <LinesTable
+            shipBy={shipBy}
             lines={lines.data.items}
             total={lines.data.total}
             filters={filters}

@@ -9,12 +9,12 @@
  */
 import PDFDocument from 'pdfkit';
 import { z } from 'zod';
-import { formatLength, MM_PER_IN } from '../../../shared/units.ts';
-import type { CutSheet } from '../../../shared/engine/cut-sheets.ts';
-import type { PressCard } from '../../../shared/engine/press-card.ts';
-import { placedCutPath } from '../../../shared/engine/cut-sheet-svg.ts';
-import { formatPath } from '../../../shared/engine/path.ts';
-import { LimitError, MAX_WORKSHEET_PAGES } from '../../../shared/engine/limits.ts';
+import { formatLength, MM_PER_IN } from '../../shared/units.ts';
+import type { CutSheet } from '../../shared/engine/cut-sheets.ts';
+import type { PressCard } from '../../shared/engine/press-card.ts';
+import { placedCutPath } from '../../shared/engine/cut-sheet-svg.ts';
+import { formatPath } from '../../shared/engine/path.ts';
+import { LimitError, MAX_WORKSHEET_PAGES } from '../../shared/engine/limits.ts';
 import { codePoints, missingCharacters, PDF_FONT, registerPdfFonts } from './pdf-fonts.ts';
 
 const PT_PER_MM = 72 / MM_PER_IN;

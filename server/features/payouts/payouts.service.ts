@@ -12,29 +12,28 @@
 // next settle) starts afresh from what is due then, under a new key.
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../app.ts';
+import type { AppDeps } from '../../deps.ts';
 import type { Db } from '../../db/client.ts';
-import type { PayoutStep } from '../../db/schema.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 import { payoutDue } from '../../../shared/money.ts';
-// payouts read orders (one-way: orders never imports payments)
-import { ordersRepo, type OrderRow } from '../orders/orders.repo.ts';
-import { transferGroupOf } from '../checkout/checkout.service.ts';
-import { paymentsRepo } from './payments.repo.ts';
+// payouts read orders and the checkout's transfer group (one-way: neither imports payouts)
+import { ordersRepo, type OrderRow } from '../orders/index.ts';
+import { transferGroupOf } from '../checkout/index.ts';
+import { payoutsRepo, type PayoutStep } from './payouts.repo.ts';
 
 export type PayoutDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
 
 /** The shop's connected account, created on first need (Idempotency-Key per shop). */
 async function shopAccount(deps: PayoutDeps, stripe: Stripe, shopId: string): Promise<string> {
-  const shop = paymentsRepo.shop(deps.db, shopId)!;
+  const shop = payoutsRepo.shop(deps.db, shopId)!;
   if (shop.paymentAccountId) return shop.paymentAccountId;
-  const owner = paymentsRepo.shopOwner(deps.db, shopId);
+  const owner = payoutsRepo.shopOwner(deps.db, shopId);
   const acct = await stripe.accounts.create(
     { type: 'express', country: 'US', email: owner?.email, business_profile: { name: shop.name }, capabilities: { transfers: { requested: true } }, metadata: { shopId } },
     { idempotencyKey: `account-${shopId}` },
   );
-  paymentsRepo.setShopAccount(deps.db, shopId, acct.id);
-  return paymentsRepo.shop(deps.db, shopId)!.paymentAccountId ?? acct.id;
+  payoutsRepo.setShopAccount(deps.db, shopId, acct.id);
+  return payoutsRepo.shop(deps.db, shopId)!.paymentAccountId ?? acct.id;
 }
 
 /** The next payout call for the order, claimed; a claim left by an earlier caller comes back unchanged. */
@@ -44,16 +43,16 @@ function claimStep(db: Db, orderId: string, destination: string | null): PayoutS
       const t = tx as unknown as Db;
       const o = ordersRepo.find(t, orderId)!;
       if (o.payoutStep) return o.payoutStep;
-      const due = payoutDue(o, paymentsRepo.refundedOf(t, o.id));
+      const due = payoutDue(o, payoutsRepo.refundedOf(t, o.id));
       let step: PayoutStep | null = null;
       if (!o.transferId) {
         // the first key stays `transfer-<order>` so a transfer sent before a crash is found again
         if (due > 0 && destination) step = { kind: 'transfer', key: o.payoutSeq === 0 ? `transfer-${o.id}` : `transfer-${o.id}-${o.payoutSeq}`, amountMinor: due, destination };
       } else {
-        const held = paymentsRepo.paidOutOf(t, o.id);
+        const held = payoutsRepo.paidOutOf(t, o.id);
         if (held > due) step = { kind: 'reversal', key: `reversal-${o.id}-${o.payoutSeq}`, amountMinor: held - due };
       }
-      if (step) paymentsRepo.claimPayoutStep(t, o.id, step, o.payoutSeq + 1);
+      if (step) payoutsRepo.claimPayoutStep(t, o.id, step, o.payoutSeq + 1);
       return step;
     },
     { behavior: 'immediate' },
@@ -65,7 +64,7 @@ function recordStep(deps: PayoutDeps, o: OrderRow, step: PayoutStep, providerId:
   const at = deps.now();
   deps.db.transaction((tx) => {
     const t = tx as unknown as Db;
-    if (!paymentsRepo.clearPayoutStep(t, o.id, step.key)) return;
+    if (!payoutsRepo.clearPayoutStep(t, o.id, step.key)) return;
     if (step.kind === 'transfer') {
       ordersRepo.setTransfer(t, o.id, providerId);
       ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: o.shopId, orderId: o.id, kind: 'transfer', amountMinor: step.amountMinor, currency: o.currency, providerRef: providerId, memo: 'payout to the shop', createdAt: at });
@@ -97,7 +96,7 @@ export async function settleOrder(deps: PayoutDeps, orderId: string): Promise<vo
     if (!o) return;
     const c = ordersRepo.checkout(db, o.checkoutId);
     if (!c || c.state !== 'paid') return;
-    const needsAccount = !o.transferId && !o.payoutStep && payoutDue(o, paymentsRepo.refundedOf(db, o.id)) > 0;
+    const needsAccount = !o.transferId && !o.payoutStep && payoutDue(o, payoutsRepo.refundedOf(db, o.id)) > 0;
     const destination = needsAccount ? await shopAccount(deps, stripe, o.shopId) : null;
     const step = claimStep(db, o.id, destination);
     if (!step) return;
@@ -123,7 +122,7 @@ export async function settleOrder(deps: PayoutDeps, orderId: string): Promise<vo
       }
     } catch (e) {
       const definite = isDefiniteFailure(e);
-      if (definite) paymentsRepo.clearPayoutStep(db, o.id, step.key);
+      if (definite) payoutsRepo.clearPayoutStep(db, o.id, step.key);
       throw new PayoutError(`${step.kind} of ${step.amountMinor} for order ${o.number} ${definite ? 'refused' : 'not confirmed'} by the payment provider: ${providerMessage(e)}`, definite);
     }
     recordStep(deps, o, step, providerId);

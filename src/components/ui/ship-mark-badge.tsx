@@ -1,5 +1,5 @@
-import { SHIP_MARK_LABELS, type ShipMark } from '../../../../shared/business/marks.ts';
-import { Badge } from '../../../components/ui/form-controls.tsx';
+import { SHIP_MARK_LABELS, type ShipMark } from '../../../shared/business/marks.ts';
+import { Badge } from './form-controls.tsx';
 
 const TONES = { late: 'danger', due_today: 'marigold', at_risk: 'marigold' } as const;
 

@@ -1,13 +1,13 @@
-// The sellers' morning digest: one e-mail per shop per calendar day listing the lines that are late,
+// The sellers' morning digest (run by server/jobs/scheduler.ts): one e-mail per shop per calendar day listing the lines that are late,
 // due today or at risk. "Once per day" is kept by the job_runs table: the key
 // digest:<yyyy-MM-dd>:<shopId> is inserted BEFORE the mail is handed to the mailer, so a second run
 // (the cron and the start-up catch-up, two processes, a restart) finds it and sends nothing.
-import type { AppDeps } from '../app.ts';
-import { escapeHtml as esc, mailLayout, type Mail } from '../integrations/mailer.ts';
-import { SHIP_MARK_LABELS } from '../../shared/business/marks.ts';
-import type { DueLine } from '../../shared/schemas/business.ts';
-import { businessRepo } from '../features/business/business.repo.ts';
-import { due, todayOf } from '../features/business/business.service.ts';
+import type { AppDeps } from '../../deps.ts';
+import { escapeHtml as esc, mailLayout, type Mail } from '../../integrations/mailer.ts';
+import { SHIP_MARK_LABELS } from '../../../shared/business/marks.ts';
+import type { DueLine } from '../../../shared/schemas/business.ts';
+import { businessRepo } from './business.repo.ts';
+import { due, todayOf } from './business.service.ts';
 
 export type DigestDeps = Pick<AppDeps, 'db' | 'env' | 'mailer' | 'now'>;
 export type DigestResult = { day: string; sent: string[]; skipped: string[]; empty: string[]; failed: string[] };

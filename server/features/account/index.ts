@@ -1,0 +1,2 @@
+// Public module of the account feature: its routes (/api/me, opening a shop).
+export { accountRouter } from './account.routes.ts';

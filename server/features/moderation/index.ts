@@ -1,0 +1,2 @@
+// Public module of the moderation feature: its routes.
+export { moderationRouter } from './moderation.routes.ts';
