@@ -8,9 +8,8 @@
  * so a piece never comes closer than `gap` to another piece and never crosses the margins.
  * Pure: plain data in, plain data out; mm, y down (x across the roll, y along it).
  */
-// The package's main entry is UMD; its ESM build ships no .d.mts, so its types come from the main
-// entry's declarations (so we import the .mjs; checked with maxrects-packer 2.7.4).
-// @ts-ignore TS7016: no declaration file next to the .mjs
+// The package's main entry is UMD; its ESM build ships no .d.mts (declared in maxrects-packer.d.ts
+// beside this file), so its types come from the main entry's declarations (checked with 2.7.4).
 import * as maxrectsEsm from 'maxrects-packer/dist/maxrects-packer.mjs';
 import type { MaxRectsPacker as MaxRectsPackerClass, IOption } from 'maxrects-packer';
 
