@@ -77,7 +77,8 @@ export const textFieldSchema = z
     required: z.boolean().default(true),
     colourChoices: colourChoices.min(1, 'Offer at least one colour.'),
   })
-  .transform((f) => ({ ...f, defaultFontId: f.defaultFontId ?? f.fontIds[0] }))
+  // fontIds has at least one entry here: zod runs a transform only on input that passed min(1) above
+  .transform((f) => ({ ...f, defaultFontId: f.defaultFontId ?? f.fontIds[0]! }))
   .refine((f) => f.fontIds.includes(f.defaultFontId), { message: 'The default font must be one of the allowed fonts.', path: ['defaultFontId'] });
 export type TextField = z.output<typeof textFieldSchema>;
 
