@@ -45,10 +45,11 @@ async function server(): Promise<void> {
   }
   db.transaction((tx) => {
     for (let i = 0; i < LISTINGS; i++) {
-      const noun = nouns[i % nouns.length];
+      const noun = nouns[i % nouns.length], shopId = shopIds[i % shopIds.length];
+      if (noun === undefined || shopId === undefined) throw new Error('unreachable: indexes are taken modulo the list lengths');
       const thing = things[(i >> 3) % things.length];
       const content = listingInputSchema.parse({
-        title: `${noun[0].toUpperCase()}${noun.slice(1)} ${thing} for ${names[i % names.length]} #${i}`,
+        title: `${noun.charAt(0).toUpperCase()}${noun.slice(1)} ${thing} for ${names[i % names.length]} #${i}`,
         description: `A ${thing} with a ${noun} and a name. Pressed by hand. Shown with the name ${names[(i >> 2) % names.length]}.`,
         blank: { kind: BLANK_KINDS[i % BLANK_KINDS.length] },
         basePriceMinor: 1200 + (i % 40) * 50,
@@ -56,7 +57,7 @@ async function server(): Promise<void> {
         personalisation: { textFields: [{ id: 'name', label: 'Name', fontIds: ['baloo-bold'], colourChoices: ['m1'] }] },
       });
       tx.insert(listings).values({
-        id: crypto.randomUUID(), shopId: shopIds[i % shopIds.length], slug: `bench-${i}`, state: 'live', draft: content as never, live: content as never,
+        id: crypto.randomUUID(), shopId, slug: `bench-${i}`, state: 'live', draft: content as never, live: content as never,
         ...liveColumns(content), publishedAt: at - i * 1000, createdAt: at, updatedAt: at,
       }).run();
     }

@@ -19,6 +19,7 @@ import { formatPath, parsePathData, pathArea, pathBBox, transformPath } from '..
 import { layoutText } from '../shared/engine/text-layout.ts';
 import { FONT_CATALOG } from '../shared/engine/font-catalog.ts';
 import { getFontRegistry } from '../server/integrations/fonts.ts';
+import { at } from '../tests/support/at.ts';
 
 const ROLL_MM = 305;
 const GAP = 6;
@@ -41,8 +42,8 @@ export function makePieces(lines: number, seed: number): BenchPiece[] {
   const fonts = FONT_CATALOG.map((f) => f.id);
   const out: BenchPiece[] = [];
   for (let l = 0; l < lines; l++) {
-    const text = NAMES[Math.floor(rnd() * NAMES.length)];
-    const lay = layoutText(reg, { text, fontId: fonts[Math.floor(rnd() * fonts.length)], letterHeightMm: 40 });
+    const text = at(NAMES, Math.floor(rnd() * NAMES.length));
+    const lay = layoutText(reg, { text, fontId: at(fonts, Math.floor(rnd() * fonts.length)), letterHeightMm: 40 });
     const p = parsePathData(lay.path);
     const bb = pathBBox(p);
     // sized like names on totes: 60–220 mm wide, 20–70 mm tall
@@ -50,7 +51,7 @@ export function makePieces(lines: number, seed: number): BenchPiece[] {
     const sx = w / (bb.maxX - bb.minX), sy = h / (bb.maxY - bb.minY);
     const named = transformPath(p, [sx, 0, 0, sy, -bb.minX * sx, -bb.minY * sy]);
     const m = Math.floor(rnd() * MATERIALS.length);
-    out.push({ id: `L${l}-name`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: 'name', widthMm: w, heightMm: h, areaMm2: pathArea(named), path: formatPath(named), ...MATERIALS[m] });
+    out.push({ id: `L${l}-name`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: 'name', widthMm: w, heightMm: h, areaMm2: pathArea(named), path: formatPath(named), ...at(MATERIALS, m) });
     const motifLayers = 1 + Math.floor(rnd() * 2);
     for (let k = 0; k < motifLayers; k++) {
       const mw = U(30, 110), mh = mw * U(0.6, 1.3);
@@ -58,7 +59,7 @@ export function makePieces(lines: number, seed: number): BenchPiece[] {
       const cx = mw / 2, cy = mh / 2, kx = 0.55 * cx, ky = 0.55 * cy;
       const d = `M${cx} 0C${cx + kx} 0 ${mw} ${cy - ky} ${mw} ${cy}C${mw} ${cy + ky} ${cx + kx} ${mh} ${cx} ${mh}C${cx - kx} ${mh} 0 ${cy + ky} 0 ${cy}C0 ${cy - ky} ${cx - kx} 0 ${cx} 0Z`;
       const mp = parsePathData(d);
-      out.push({ id: `L${l}-m${k}`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: `motif-${k}`, widthMm: mw, heightMm: mh, areaMm2: pathArea(mp), path: d, ...MATERIALS[(m + 1 + k) % MATERIALS.length] });
+      out.push({ id: `L${l}-m${k}`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: `motif-${k}`, widthMm: mw, heightMm: mh, areaMm2: pathArea(mp), path: d, ...at(MATERIALS, (m + 1 + k) % MATERIALS.length) });
     }
   }
   return out;
@@ -85,7 +86,7 @@ export async function run(): Promise<void> {
     times.push(performance.now() - t0);
   }
   times.sort((a, b) => a - b);
-  const median = times[Math.floor(times.length / 2)];
+  const median = at(times, Math.floor(times.length / 2));
 
   let used = 0, lbGap = 0, lbRect = 0, lbVinyl = 0;
   console.log(`cut sheets: 500 lines, ${pieces.length} pieces, ${last.length} materials, roll ${ROLL_MM} mm, gap ${GAP} mm, margin ${MARGIN} mm`);
@@ -96,9 +97,9 @@ export async function run(): Promise<void> {
     const rectBound = r.pieces.reduce((s, p) => s + p.widthMm * p.heightMm, 0) / ROLL_MM;
     const vinylBound = r.pieces.reduce((s, p) => s + p.areaMm2, 0) / ROLL_MM;
     used += L; lbGap += gapBound; lbRect += rectBound; lbVinyl += vinylBound;
-    console.log(`  ${r.key.padEnd(16)} ${String(r.pieces.length).padStart(4)} pieces  ${(L / 1000).toFixed(2)} m  ${(L / gapBound).toFixed(3)} × gap-aware bound  utilisation ${(r.sheets[0].utilisation * 100).toFixed(1)} %  svg ${(r.svgBytes / 1024).toFixed(0)} KiB`);
+    console.log(`  ${r.key.padEnd(16)} ${String(r.pieces.length).padStart(4)} pieces  ${(L / 1000).toFixed(2)} m  ${(L / gapBound).toFixed(3)} × gap-aware bound  utilisation ${(at(r.sheets, 0).utilisation * 100).toFixed(1)} %  svg ${(r.svgBytes / 1024).toFixed(0)} KiB`);
   }
-  console.log(`median time (nest + SVG, all materials): ${median.toFixed(1)} ms over ${times.length} runs (min ${times[0].toFixed(1)}, max ${times.at(-1)!.toFixed(1)})  target ≤ 1000 ms`);
+  console.log(`median time (nest + SVG, all materials): ${median.toFixed(1)} ms over ${times.length} runs (min ${at(times, 0).toFixed(1)}, max ${at(times, -1).toFixed(1)})  target ≤ 1000 ms`);
   console.log(`utilisation vs lower bound: ${(used / lbGap).toFixed(3)}  (material used ÷ gap-aware area bound; target ≤ 1.11)`);
   console.log(`  for comparison: ${(used / lbRect).toFixed(3)} × plain rectangle area / roll width (no gaps), ${(used / lbVinyl).toFixed(3)} × vinyl outline area / roll width`);
 }

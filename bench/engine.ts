@@ -13,6 +13,7 @@ import { compose, type FieldDef, type WeedingMode } from '../shared/engine/compo
 import { defaultBlank } from '../shared/engine/blanks.ts';
 import { parseMotifSvg } from '../shared/engine/motif.ts';
 import { hbFont } from '../tests/shared/engine/harfbuzz-reference.ts';
+import { at } from '../tests/support/at.ts';
 
 const LETTERS = 'abcdefghijklmnopqrstuvwxyzäöüéèàçñøåłśźżčšž';
 
@@ -23,7 +24,7 @@ function makeNames(n: number, seed: number): string[] {
   const out: string[] = [];
   for (let i = 0; i < n; i++) {
     const len = 3 + Math.floor(rnd() * 12);
-    let name = LETTERS[Math.floor(rnd() * 26)].toUpperCase();
+    let name = LETTERS.charAt(Math.floor(rnd() * 26)).toUpperCase();
     for (let j = 1; j < len; j++) name += LETTERS[Math.floor(rnd() * LETTERS.length)];
     out.push(name);
   }
@@ -32,7 +33,7 @@ function makeNames(n: number, seed: number): string[] {
 
 function stats(times: number[]) {
   const t = [...times].sort((a, b) => a - b);
-  const q = (p: number) => t[Math.min(t.length - 1, Math.floor(p * t.length))];
+  const q = (p: number) => t[Math.min(t.length - 1, Math.floor(p * t.length))] ?? NaN; // NaN: no samples
   return { median: q(0.5), p95: q(0.95) };
 }
 
@@ -80,7 +81,7 @@ export async function run(): Promise<void> {
   console.log(`ratio: ${ratio.toFixed(2)} (median of per-font medians, ours / harfbuzz; target ≤ 3)`);
 
   // Cached: the same request again is served from the layout cache.
-  const font = reg.list()[0];
+  const font = at(reg.list(), 0);
   const names = makeNames(1000, 3);
   for (const n of names) layoutText(reg, { text: n, fontId: font.id, letterHeightMm: height });
   const cached: number[] = [];
@@ -115,7 +116,7 @@ function benchCompose(): void {
     const first: number[] = [];
     const warm: number[] = [];
     names.forEach((n, i) => {
-      const input = { blank: tote, fields: fieldSets.get(fonts[i % fonts.length])!, choices: { motif: { motifId: 'rocket' }, name: { text: n } } };
+      const input = { blank: tote, fields: fieldSets.get(at(fonts, i % fonts.length))!, choices: { motif: { motifId: 'rocket' }, name: { text: n } } };
       let t0 = performance.now();
       compose(reg, input, { weeding: mode });
       first.push(performance.now() - t0);

@@ -59,7 +59,8 @@ export async function ensureLiveDemoListing(base: string): Promise<ListingSummar
   for (const item of page.items) {
     const l = await anon<{ content: { title: string; personalisation: { textFields: { fontIds: string[] }[]; motifChoices: unknown[] } } }>('GET', `/api/listings/${item.slug}`);
     const p = l.content.personalisation;
-    if (p.textFields.length) found.push({ slug: item.slug, title: l.content.title, textFields: p.textFields.length, fonts: p.textFields[0].fontIds.length, motifs: p.motifChoices.length });
+    const first = p.textFields[0];
+    if (first) found.push({ slug: item.slug, title: l.content.title, textFields: p.textFields.length, fonts: first.fontIds.length, motifs: p.motifChoices.length });
   }
   found.sort((a, b) => b.fonts + b.motifs - (a.fonts + a.motifs));
   if (found[0]) return found[0];
@@ -126,7 +127,7 @@ async function startServer(): Promise<{ base: string; child: ChildProcess; dataD
 
 const pct = (xs: number[], q: number) => {
   const s = [...xs].sort((a, b) => a - b);
-  return s[Math.min(s.length - 1, Math.max(0, Math.ceil(q * s.length) - 1))];
+  return s[Math.min(s.length - 1, Math.max(0, Math.ceil(q * s.length) - 1))] ?? NaN; // NaN: no samples
 };
 
 export async function run(): Promise<void> {

@@ -265,7 +265,7 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
     const motifIds: Record<string, string> = {};
     const photoIds: Record<string, string> = {};
     const thumbs: Record<string, string> = {};
-    for (const [key, file, name] of MOTIFS[shopSlug]) {
+    for (const [key, file, name] of MOTIFS[shopSlug] ?? []) {
       const { dropped: _d, ...geometry } = parseMotifSvg(fs.readFileSync(path.join(MOTIF_DIR, file), 'utf8'));
       const id = crypto.randomUUID();
       motifIds[key] = id;

@@ -33,10 +33,12 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
   const shopIds: Record<string, string> = {};
   const at = deps.now();
   for (const s of SHOPS) {
+    const ownerId = userIds[s.owner];
+    if (!ownerId) throw new Error(`Demo shop ${s.slug}: its owner ${s.owner} is not one of the demo accounts.`);
     const id = crypto.randomUUID();
     shopIds[s.slug] = id;
     seedRepo.insertShop(deps.db, {
-      id, ownerId: userIds[s.owner], name: s.name, slug: s.slug, state: s.state, description: s.description,
+      id, ownerId, name: s.name, slug: s.slug, state: s.state, description: s.description,
       processingDays: s.processingDays, shippingMinor: s.shippingMinor, pressType: s.pressType,
       hourlyRateMinor: 1800, // demo: $18.00 an hour for labour in the cost of goods
       returnPolicy: 'Personalised items can be returned only if they arrive damaged or with a mistake on our side. Tell us within 14 days.',

@@ -156,7 +156,10 @@ function summaryPages(doc: Doc, inp: z.infer<typeof worksheetInputSchema>, newPa
   const row = (cells: string[], bold = false) => {
     const y = doc.y;
     doc.font(bold ? PDF_FONT.bold : PDF_FONT.regular).fontSize(9).fillColor(INK);
-    cells.forEach((c, i) => doc.text(c, MARGIN + cols[i], y, { width: (cols[i + 1] ?? doc.page.width - 2 * MARGIN) - cols[i] - 6, height: 14, ellipsis: true, lineBreak: false }));
+    cells.forEach((c, i) => {
+      const x = cols[i] ?? 0; // one cell per column: `cells` never outnumbers `cols`
+      doc.text(c, MARGIN + x, y, { width: (cols[i + 1] ?? doc.page.width - 2 * MARGIN) - x - 6, height: 14, ellipsis: true, lineBreak: false });
+    });
     doc.y = y + 16;
   };
   const header = () => row(['Material', 'Roll width', 'Length (+ trim)', 'Used', 'Pieces'], true);
@@ -334,8 +337,8 @@ export async function buildWorksheetPdf(input: WorksheetInput & { compress?: boo
   newPage();
   summaryPages(doc, inp, newPage);
   await yieldTurn();
-  for (let i = 0; i < inp.sheets.length; i++) {
-    mapPages(doc, inp.paper, inp.sheets[i], i, newPage);
+  for (const [i, sheet] of inp.sheets.entries()) {
+    mapPages(doc, inp.paper, sheet, i, newPage);
     await yieldTurn();
   }
   for (const card of inp.cards) {

@@ -167,7 +167,7 @@ const XML_ESC: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;'
 /** Escapes text for an XML attribute or text node, and drops characters XML 1.0 forbids. */
 export function escapeXml(s: string): string {
   // eslint-disable-next-line no-control-regex
-  return s.replace(/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g, '').replace(/[&<>"']/g, (c) => XML_ESC[c]);
+  return s.replace(/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g, '').replace(/[&<>"']/g, (c) => XML_ESC[c] ?? c);
 }
 
 const num = (v: number) => String(Math.round(v * 1000) / 1000);

@@ -57,8 +57,8 @@ export function textWarnings(raw: string): TextWarning[] {
     if (letters.length < 2) continue;
     const isUpper = (ch: string) => ch !== ch.toLowerCase() && ch === ch.toUpperCase();
     const isLower = (ch: string) => ch !== ch.toUpperCase() && ch === ch.toLowerCase();
-    const rest = letters.slice(1);
-    const ok = letters.every(isUpper) || letters.every((ch) => !isUpper(ch)) || (isUpper(letters[0]) && rest.every((ch) => !isUpper(ch)));
+    const [first = '', ...rest] = letters;
+    const ok = letters.every(isUpper) || letters.every((ch) => !isUpper(ch)) || (isUpper(first) && rest.every((ch) => !isUpper(ch)));
     if (!ok && letters.some(isLower)) {
       out.push({ code: 'mixed_case', message: `"${word}" mixes capitals and small letters unusually; check it is meant that way.` });
       break;

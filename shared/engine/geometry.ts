@@ -14,7 +14,7 @@ export interface Region { outer: Polygon; holes: Polygon[] }
 function toInt(polys: Polygon[]): ClipperLib.Paths {
   return polys.map((p) => {
     const out: ClipperLib.Path = [];
-    for (let i = 0; i < p.length; i += 2) out.push({ X: Math.round(p[i] * SCALE), Y: Math.round(p[i + 1] * SCALE) });
+    for (let i = 0; i < p.length; i += 2) out.push({ X: Math.round(p[i]! * SCALE), Y: Math.round(p[i + 1]! * SCALE) });
     return out;
   });
 }
@@ -53,7 +53,8 @@ export function unionRegions(polys: Polygon[], rule: FillRule = 'nonzero'): Regi
 export function simplifyRegions(regions: Region[], distanceMm: number): Region[] {
   const clean = (p: Polygon) => {
     const out = ClipperLib.Clipper.CleanPolygons(toInt([p]), distanceMm * SCALE);
-    return out.length && out[0].length >= 3 ? fromInt(out[0]) : null;
+    const first = out[0];
+    return first && first.length >= 3 ? fromInt(first) : null;
   };
   const res: Region[] = [];
   for (const r of regions) {
@@ -85,7 +86,8 @@ export function polygonAreaAbs(p: Polygon): number {
   let a = 0;
   for (let i = 0; i < p.length; i += 2) {
     const j = (i + 2) % p.length;
-    a += p[i] * p[j + 1] - p[j] * p[i + 1];
+    const xi = p[i]!, yi = p[i + 1]!, xj = p[j]!, yj = p[j + 1]!; // i, j < p.length, pairs of (x, y)
+    a += xi * yj - xj * yi;
   }
   return Math.abs(a / 2);
 }
@@ -115,7 +117,7 @@ function signedDistance(x: number, y: number, polys: Polygon[]): number {
   for (const p of polys) {
     const n = p.length;
     for (let i = 0, j = n - 2; i < n; j = i, i += 2) {
-      const ax = p[i], ay = p[i + 1], bx = p[j], by = p[j + 1];
+      const ax = p[i]!, ay = p[i + 1]!, bx = p[j]!, by = p[j + 1]!; // i, j < n, pairs of (x, y)
       if (ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax) inside = !inside;
       const d = segmentDist2(ax, ay, bx, by, x, y);
       if (d < best) best = d;
@@ -132,19 +134,19 @@ function edgeTable(polys: Polygon[]): Float64Array {
   let k = 0;
   for (const p of polys) {
     const m = p.length;
-    for (let i = 0, j = m - 2; i < m; j = i, i += 2) { e[k++] = p[i]; e[k++] = p[i + 1]; e[k++] = p[j]; e[k++] = p[j + 1]; }
+    for (let i = 0, j = m - 2; i < m; j = i, i += 2) { e[k++] = p[i]!; e[k++] = p[i + 1]!; e[k++] = p[j]!; e[k++] = p[j + 1]!; }
   }
   return e;
 }
 
 /** Squared distance from (x, y) to edge k — signedDistance's arithmetic exactly (the same function). */
 function edgeDist2(e: Float64Array, k: number, x: number, y: number): number {
-  return segmentDist2(e[k], e[k + 1], e[k + 2], e[k + 3], x, y);
+  return segmentDist2(e[k]!, e[k + 1]!, e[k + 2]!, e[k + 3]!, x, y); // k is an edge's first slot of four
 }
 
 /** The crossing test of signedDistance's even-odd rule for edge k and the ray from (x, y) to the right. */
 function edgeCrosses(e: Float64Array, k: number, x: number, y: number): boolean {
-  const ax = e[k], ay = e[k + 1], bx = e[k + 2], by = e[k + 3];
+  const ax = e[k]!, ay = e[k + 1]!, bx = e[k + 2]!, by = e[k + 3]!; // k is an edge's first slot of four
   return ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax;
 }
 
@@ -177,21 +179,24 @@ function buildEdgeIndex(e: Float64Array, minX: number, minY: number, maxX: numbe
   const range = new Int32Array(n * 4);
   for (let q = 0; q < n; q++) {
     const k = q * 4;
-    const i0 = cx(Math.min(e[k], e[k + 2])), i1 = cx(Math.max(e[k], e[k + 2]));
-    const j0 = cy(Math.min(e[k + 1], e[k + 3])), j1 = cy(Math.max(e[k + 1], e[k + 3]));
+    const ax = e[k]!, ay = e[k + 1]!, bx = e[k + 2]!, by = e[k + 3]!; // q < n = e.length / 4
+    const i0 = cx(Math.min(ax, bx)), i1 = cx(Math.max(ax, bx));
+    const j0 = cy(Math.min(ay, by)), j1 = cy(Math.max(ay, by));
     range[k] = i0; range[k + 1] = i1; range[k + 2] = j0; range[k + 3] = j1;
-    for (let j = j0; j <= j1; j++) { rowCount[j + 1]++; for (let i = i0; i <= i1; i++) cellCount[j * gx + i + 1]++; }
+    // cx/cy clamp to [0, gx) and [0, gy): the counters have gx·gy + 1 and gy + 1 slots
+    for (let j = j0; j <= j1; j++) { rowCount[j + 1]!++; for (let i = i0; i <= i1; i++) cellCount[j * gx + i + 1]!++; }
   }
-  for (let c = 0; c < gx * gy; c++) cellCount[c + 1] += cellCount[c];
-  for (let r = 0; r < gy; r++) rowCount[r + 1] += rowCount[r];
+  for (let c = 0; c < gx * gy; c++) cellCount[c + 1]! += cellCount[c]!;
+  for (let r = 0; r < gy; r++) rowCount[r + 1]! += rowCount[r]!;
   const cellStart = cellCount.slice(), rowStart = rowCount.slice();
-  const cellEdges = new Int32Array(cellCount[gx * gy]), rowEdges = new Int32Array(rowCount[gy]);
+  const cellEdges = new Int32Array(cellCount[gx * gy]!), rowEdges = new Int32Array(rowCount[gy]!);
   const cfill = cellStart.slice(0, gx * gy), rfill = rowStart.slice(0, gy);
   for (let q = 0; q < n; q++) {
     const k = q * 4;
-    for (let j = range[k + 2]; j <= range[k + 3]; j++) {
-      rowEdges[rfill[j]++] = k;
-      for (let i = range[k]; i <= range[k + 1]; i++) cellEdges[cfill[j * gx + i]++] = k;
+    const i0 = range[k]!, i1 = range[k + 1]!, j0 = range[k + 2]!, j1 = range[k + 3]!; // written in the loop above
+    for (let j = j0; j <= j1; j++) {
+      rowEdges[rfill[j]!++] = k;
+      for (let i = i0; i <= i1; i++) cellEdges[cfill[j * gx + i]!++] = k;
     }
   }
   return { e, n, x0: minX, y0: minY, cw, ch, gx, gy, cellStart, cellEdges, rowStart, rowEdges, stamp: new Int32Array(n), query: 0 };
@@ -203,7 +208,8 @@ function signedDistanceIndexed(x: number, y: number, ix: EdgeIndex): number {
   qi = qi < 0 ? 0 : qi >= gx ? gx - 1 : qi;
   qj = qj < 0 ? 0 : qj >= gy ? gy - 1 : qj;
   let inside = false;
-  for (let r = ix.rowStart[qj], end = ix.rowStart[qj + 1]; r < end; r++) if (edgeCrosses(e, ix.rowEdges[r], x, y)) inside = !inside;
+  // qj is clamped to [0, gy) and rowStart has gy + 1 slots; r stays inside the row's slice of rowEdges
+  for (let r = ix.rowStart[qj]!, end = ix.rowStart[qj + 1]!; r < end; r++) if (edgeCrosses(e, ix.rowEdges[r]!, x, y)) inside = !inside;
   const q = ++ix.query;
   const step = Math.min(ix.cw, ix.ch);
   const rings = Math.max(qi, gx - 1 - qi, qj, gy - 1 - qj);
@@ -220,8 +226,9 @@ function signedDistanceIndexed(x: number, y: number, ix: EdgeIndex): number {
       for (let i = i0; i <= i1; i++) {
         if (!onEdgeRow && i !== qi - k && i !== qi + k) continue; // only the ring's own cells
         const c = j * gx + i;
-        for (let t = cellStart[c], end = cellStart[c + 1]; t < end; t++) {
-          const ek = cellEdges[t];
+        // c < gx·gy and cellStart has gx·gy + 1 slots; t stays inside the cell's slice of cellEdges
+        for (let t = cellStart[c]!, end = cellStart[c + 1]!; t < end; t++) {
+          const ek = cellEdges[t]!;
           const id = ek >> 2;
           if (stamp[id] === q) continue;
           stamp[id] = q;
@@ -260,23 +267,25 @@ class CellQueue {
   private readonly heap: Cell[] = [];
   get length(): number { return this.arr.length; }
   private before(a: Cell, b: Cell): boolean { return a.max > b.max || (a.max === b.max && a.pos < b.pos); }
+  // up/down are called with an index of a cell in the heap, and only visit parents/children below heap.length
   private up(i: number): void {
-    const h = this.heap, c = h[i];
+    const h = this.heap, c = h[i]!;
     while (i > 0) {
-      const pi = (i - 1) >> 1, p = h[pi];
+      const pi = (i - 1) >> 1, p = h[pi]!;
       if (!this.before(c, p)) break;
       h[i] = p; p.hi = i; i = pi;
     }
     h[i] = c; c.hi = i;
   }
   private down(i: number): void {
-    const h = this.heap, n = h.length, c = h[i];
+    const h = this.heap, n = h.length, c = h[i]!;
     for (;;) {
       let k = 2 * i + 1;
       if (k >= n) break;
-      if (k + 1 < n && this.before(h[k + 1], h[k])) k++;
-      if (!this.before(h[k], c)) break;
-      h[i] = h[k]; h[i].hi = i; i = k;
+      if (k + 1 < n && this.before(h[k + 1]!, h[k]!)) k++;
+      const child = h[k]!;
+      if (!this.before(child, c)) break;
+      h[i] = child; child.hi = i; i = k;
     }
     h[i] = c; c.hi = i;
   }
@@ -290,6 +299,7 @@ class CellQueue {
   /** Removes and returns the most promising cell. */
   pop(): Cell {
     const h = this.heap, top = h[0];
+    if (!top) throw new Error('CellQueue.pop() on an empty queue');
     const tail = h.pop()!;
     if (tail !== top) { h[0] = tail; tail.hi = 0; this.down(0); }
     const arr = this.arr, last = arr.pop()!;
@@ -311,8 +321,9 @@ class CellQueue {
 export function inscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const p of polys) for (let i = 0; i < p.length; i += 2) {
-    if (p[i] < minX) minX = p[i]; if (p[i] > maxX) maxX = p[i];
-    if (p[i + 1] < minY) minY = p[i + 1]; if (p[i + 1] > maxY) maxY = p[i + 1];
+    const x = p[i]!, y = p[i + 1]!; // i < p.length, pairs of (x, y)
+    if (x < minX) minX = x; if (x > maxX) maxX = x;
+    if (y < minY) minY = y; if (y > maxY) maxY = y;
   }
   if (minX === Infinity) return 0;
   const size = Math.min(maxX - minX, maxY - minY);

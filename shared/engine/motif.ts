@@ -152,16 +152,16 @@ function shapeToD(tag: string, a: Record<string, string>): string | null {
       return `M${f(cx - rx)} ${f(cy)}A${f(rx)} ${f(ry)} 0 1 0 ${f(cx + rx)} ${f(cy)}A${f(rx)} ${f(ry)} 0 1 0 ${f(cx - rx)} ${f(cy)}Z`;
     }
     case 'line': {
-      const v = [num(a.x1), num(a.y1), num(a.x2), num(a.y2)];
-      if (v.some((n) => !Number.isFinite(n))) return null;
-      return `M${f(v[0])} ${f(v[1])}L${f(v[2])} ${f(v[3])}`;
+      const x1 = num(a.x1), y1 = num(a.y1), x2 = num(a.x2), y2 = num(a.y2);
+      if ([x1, y1, x2, y2].some((n) => !Number.isFinite(n))) return null;
+      return `M${f(x1)} ${f(y1)}L${f(x2)} ${f(y2)}`;
     }
     case 'polyline':
     case 'polygon': {
       const pts = (a.points ?? '').trim().split(/[\s,]+/).filter(Boolean).map(Number);
       if (pts.length < 4 || pts.some((n) => !Number.isFinite(n))) return null;
-      let d = `M${f(pts[0])} ${f(pts[1])}`;
-      for (let i = 2; i + 1 < pts.length; i += 2) d += `L${f(pts[i])} ${f(pts[i + 1])}`;
+      let d = `M${f(pts[0]!)} ${f(pts[1]!)}`; // at least four numbers, checked above
+      for (let i = 2; i + 1 < pts.length; i += 2) d += `L${f(pts[i]!)} ${f(pts[i + 1]!)}`;
       return tag === 'polygon' ? `${d}Z` : d;
     }
     case 'path': {
@@ -255,13 +255,14 @@ function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
 
   // ---- viewport: width/height (absolute CSS units, bare = px) and viewBox ----
   const vb = (rootAttrs.viewBox ?? '').trim().split(/[\s,]+/).filter(Boolean).map(Number);
-  const hasVb = vb.length === 4 && vb.every(Number.isFinite) && vb[2] > 0 && vb[3] > 0;
+  const [vbX = NaN, vbY = NaN, vbW = NaN, vbH = NaN] = vb;
+  const hasVb = vb.length === 4 && vb.every(Number.isFinite) && vbW > 0 && vbH > 0;
   let wMm = cssLengthToMm(rootAttrs.width);
   let hMm = cssLengthToMm(rootAttrs.height);
   if (hasVb) {
-    if (wMm === null && hMm === null) { wMm = vb[2] * MM_PER_CSS_PX; hMm = vb[3] * MM_PER_CSS_PX; }
-    else if (wMm === null) wMm = (hMm! * vb[2]) / vb[3];
-    else if (hMm === null) hMm = (wMm * vb[3]) / vb[2];
+    if (wMm === null && hMm === null) { wMm = vbW * MM_PER_CSS_PX; hMm = vbH * MM_PER_CSS_PX; }
+    else if (wMm === null) wMm = (hMm! * vbW) / vbH;
+    else if (hMm === null) hMm = (wMm * vbH) / vbW;
   }
   if (wMm === null || hMm === null || !(wMm > 0 && hMm > 0)) {
     throw new MotifError('bad_size', 'The motif needs a viewBox or an absolute width and height (mm, cm, in, pt or px).');
@@ -272,16 +273,16 @@ function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
   // user units → mm (preserveAspectRatio: xMidYMid meet by default, or none)
   let sx: number, sy: number, tx = 0, ty = 0;
   if (hasVb) {
-    sx = wMm / vb[2];
-    sy = hMm / vb[3];
+    sx = wMm / vbW;
+    sy = hMm / vbH;
     if ((rootAttrs.preserveAspectRatio ?? '').trim() !== 'none') {
       const s = Math.min(sx, sy);
-      tx = (wMm - vb[2] * s) / 2;
-      ty = (hMm - vb[3] * s) / 2;
+      tx = (wMm - vbW * s) / 2;
+      ty = (hMm - vbH * s) / 2;
       sx = sy = s;
     }
-    tx -= vb[0] * sx;
-    ty -= vb[1] * sy;
+    tx -= vbX * sx;
+    ty -= vbY * sy;
   } else {
     sx = sy = MM_PER_CSS_PX;
   }
@@ -304,9 +305,9 @@ function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
       if (elements > lim.maxElements) throw new MotifError('too_many_elements', `The motif has more than ${lim.maxElements} elements.`);
       if (ctx.depth > lim.maxDepth) throw new MotifError('too_deep', `The motif nests groups more than ${lim.maxDepth} deep.`);
       const a = attrsOf(node);
-      for (const k of Object.keys(a)) {
+      for (const [k, v] of Object.entries(a)) {
         if (/^on/i.test(k)) drop(`${k} attribute`, 'event handlers are never kept');
-        else if (/(^|:)href$/i.test(k)) drop(`${k} attribute`, /^\s*(#)/.test(a[k]) ? 'references are not followed' : 'external references are never followed');
+        else if (/(^|:)href$/i.test(k)) drop(`${k} attribute`, /^\s*(#)/.test(v) ? 'references are not followed' : 'external references are never followed');
       }
       if (SILENT.has(tag)) continue;
       if (tag !== 'g' && !SHAPES.has(tag)) {

@@ -200,14 +200,17 @@ export function unionBBox(a: BBox | null, b: BBox): BBox {
 
 // ---- exact signed area by Green's theorem: A = ½∮(x dy − y dx) ----
 // The integrand is a polynomial of degree ≤ 5 on a cubic, so 3-point Gauss–Legendre is exact.
-const GL_T = [0.5 - Math.sqrt(15) / 10, 0.5, 0.5 + Math.sqrt(15) / 10];
-const GL_W = [5 / 18, 8 / 18, 5 / 18];
+const GAUSS_LEGENDRE_3 = [
+  { t: 0.5 - Math.sqrt(15) / 10, w: 5 / 18 },
+  { t: 0.5, w: 8 / 18 },
+  { t: 0.5 + Math.sqrt(15) / 10, w: 5 / 18 },
+] as const;
 
 function segArea(px: number, py: number, s: Segment): number {
   if (s.t === 'L') return (px * s.y - s.x * py) / 2;
   let sum = 0;
-  for (let i = 0; i < 3; i++) {
-    const t = GL_T[i], u = 1 - t;
+  for (const { t, w } of GAUSS_LEGENDRE_3) {
+    const u = 1 - t;
     let x: number, y: number, dx: number, dy: number;
     if (s.t === 'Q') {
       x = u * u * px + 2 * u * t * s.x1 + t * t * s.x;
@@ -220,7 +223,7 @@ function segArea(px: number, py: number, s: Segment): number {
       dx = 3 * u * u * (s.x1 - px) + 6 * u * t * (s.x2 - s.x1) + 3 * t * t * (s.x - s.x2);
       dy = 3 * u * u * (s.y1 - py) + 6 * u * t * (s.y2 - s.y1) + 3 * t * t * (s.y - s.y2);
     }
-    sum += GL_W[i] * (x * dy - y * dx);
+    sum += w * (x * dy - y * dx);
   }
   return sum / 2;
 }
@@ -323,8 +326,9 @@ export function polygonsToPath(polys: Polygon[]): Path {
     .filter((p) => p.length >= 6)
     .map((p) => {
       const segs: Segment[] = [];
-      for (let i = 2; i < p.length; i += 2) segs.push({ t: 'L', x: p[i], y: p[i + 1] });
-      return { x0: p[0], y0: p[1], segs, closed: true };
+      // at least three (x, y) pairs, by the filter above
+      for (let i = 2; i < p.length; i += 2) segs.push({ t: 'L', x: p[i]!, y: p[i + 1]! });
+      return { x0: p[0]!, y0: p[1]!, segs, closed: true };
     });
 }
 
@@ -334,7 +338,8 @@ export function polygonArea(p: Polygon): number {
   const n = p.length;
   for (let i = 0; i < n; i += 2) {
     const j = (i + 2) % n;
-    a += p[i] * p[j + 1] - p[j] * p[i + 1];
+    const xi = p[i]!, yi = p[i + 1]!, xj = p[j]!, yj = p[j + 1]!; // i, j < n, pairs of (x, y)
+    a += xi * yj - xj * yi;
   }
   return a / 2;
 }

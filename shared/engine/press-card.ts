@@ -148,7 +148,8 @@ export function placementNote(blank: { kind: string; name?: string; topOffsetMm:
 export function pressCard(input: PressCardInput, table: Readonly<Record<MaterialKind, PressProfile>> = PRESS_DEFAULTS): PressCard {
   const inp = pressCardInputSchema.parse(input);
   const layers = inp.layers.map((l) => resolveLayer(inp.pressType, l, table));
-  const top = layers[layers.length - 1];
+  const top = layers.at(-1);
+  if (!top) throw new Error('pressCard: the input schema requires at least one layer');
   const warnings: PressWarning[] = [];
 
   // The lowest temperature every layer accepts: the highest of the lowest each one accepts.

@@ -48,11 +48,11 @@ function coverageMap(cov: Coverage): Int32Array {
   m = new Int32Array(max + 1).fill(-1);
   if (cov.version === 1) {
     const gs = cov.glyphs!;
-    for (let i = gs.length - 1; i >= 0; i--) m[gs[i]] = i; // indexOf: the first occurrence wins
+    for (let i = gs.length - 1; i >= 0; i--) m[gs[i]!] = i; // indexOf: the first occurrence wins
   } else if (cov.version === 2) {
     const rs = cov.rangeRecords!;
     for (let k = rs.length - 1; k >= 0; k--) {
-      const r = rs[k]; // the first range containing the glyph wins
+      const r = rs[k]!; // the first range containing the glyph wins
       for (let g = r.start; g <= r.end; g++) m[g] = r.startCoverageIndex + g - r.start;
     }
   }
@@ -74,11 +74,11 @@ function classMap(cd: ClassDef): Uint16Array | Int32Array {
   m = maxClass <= 0xffff ? new Uint16Array(Math.max(0, max + 1)) : new Int32Array(Math.max(0, max + 1));
   if (cd.version === 1) {
     const a = cd.classValueArray!;
-    for (let i = 0; i < a.length; i++) if (cd.startGlyph! + i >= 0) m[cd.startGlyph! + i] = a[i];
+    for (let i = 0; i < a.length; i++) if (cd.startGlyph! + i >= 0) m[cd.startGlyph! + i] = a[i]!;
   } else if (cd.version === 2) {
     const rs = cd.classRangeRecord!;
     for (let k = rs.length - 1; k >= 0; k--) {
-      const r = rs[k];
+      const r = rs[k]!;
       for (let g = Math.max(0, r.start); g <= r.end; g++) m[g] = r.class;
     }
   }
@@ -90,7 +90,7 @@ function fastCoverageIndex(this: Any, coverage: Coverage, glyph?: number | null)
   if (glyph == null) glyph = this.glyphIterator.cur.id as number;
   if (coverage.version !== 1 && coverage.version !== 2) return -1;
   const m = coverageMap(coverage);
-  return glyph >= 0 && glyph < m.length ? m[glyph] : -1;
+  return glyph >= 0 && glyph < m.length ? m[glyph]! : -1;
 }
 
 function fastGetClassID(glyph: number, classDef: ClassDef): number {
@@ -98,13 +98,13 @@ function fastGetClassID(glyph: number, classDef: ClassDef): number {
   // fontkit's version-1 lookup can return a non-number for a non-integer id; ids are integers here.
   if (!Number.isInteger(glyph)) return slowGetClassID(glyph, classDef);
   const m = classMap(classDef);
-  return glyph >= 0 && glyph < m.length ? m[glyph] : 0;
+  return glyph >= 0 && glyph < m.length ? m[glyph]! : 0;
 }
 
 function slowGetClassID(glyph: number, classDef: ClassDef): number {
   if (classDef.version === 1) {
     const i = glyph - classDef.startGlyph!;
-    if (i >= 0 && i < classDef.classValueArray!.length) return classDef.classValueArray![i];
+    if (i >= 0 && i < classDef.classValueArray!.length) return classDef.classValueArray![i]!;
   } else if (classDef.version === 2) {
     for (const r of classDef.classRangeRecord!) if (r.start <= glyph && glyph <= r.end) return r.class;
   }
@@ -149,7 +149,7 @@ function lookupMask(kind: 'GSUB' | 'GPOS', lookup: Any): Uint8Array | null {
   }
   if (ok) {
     mask = new Uint8Array(maps.reduce((n, m) => Math.max(n, m.length), 0));
-    for (const m of maps) for (let g = 0; g < m.length; g++) if (m[g] >= 0) mask[g] = 1;
+    for (const m of maps) for (let g = 0; g < m.length; g++) if (m[g]! >= 0) mask[g] = 1;
   }
   lookupMasks.set(lookup, mask);
   return mask;
@@ -341,7 +341,7 @@ function unionMask(masks: Uint8Array[]): Uint8Array {
 /** True when some glyph of the run is in the coverage. */
 function anyIn(ids: number[], cov: Coverage): boolean {
   const m = coverageMap(cov);
-  for (const g of ids) if (g < m.length && m[g] >= 0) return true;
+  for (const g of ids) if (g < m.length && m[g]! >= 0) return true;
   return false;
 }
 const allGlyphsIn = (ids: number[], glyphs: number[]) => glyphs.every((g) => ids.includes(g));
@@ -358,8 +358,8 @@ function subtableMayMatch(kind: 'GSUB' | 'GPOS', type: number, t: Any, ids: numb
   if (kind === 'GSUB' && type === 4) {
     const m = coverageMap(t.coverage);
     for (let i = 0; i < ids.length; i++) {
-      const g = ids[i];
-      const idx = g < m.length ? m[g] : -1;
+      const g = ids[i]!;
+      const idx = g < m.length ? m[g]! : -1;
       if (idx < 0) continue;
       for (const lig of t.ligatureSets.get(idx)) {
         const comps: number[] = lig.components;
@@ -379,7 +379,7 @@ function subtableMayMatch(kind: 'GSUB' | 'GPOS', type: number, t: Any, ids: numb
   if ((type === ctx || type === chain) && (t.version === 1 || t.version === 2)) {
     const m = coverageMap(t.coverage);
     for (const g of ids) {
-      const idx = g < m.length ? m[g] : -1;
+      const idx = g < m.length ? m[g]! : -1;
       if (idx < 0) continue;
       if (t.version === 1) {
         const set = type === ctx ? t.ruleSets[idx] : t.chainRuleSets[idx];
@@ -497,16 +497,16 @@ function fastShape(f: Any, st: FontState, text: string): ShapedRun | null {
   if (!info) return null;
   const cls = st.glyphClass!;
   for (let i = 0; i < n; i++) {
-    const g = ids[i];
-    const k = g < cls.length ? cls[g] : 0;
+    const g = ids[i]!;
+    const k = g < cls.length ? cls[g]! : 0;
     if (k === 2 || k === 3) return null; // a ligature or mark glyph: lookup flags may skip it
   }
   if (mayNeedFontkit(info, ids)) return null;
   const adv = run.xAdvance;
   for (let i = 0; i < n; i++) {
-    const g = ids[i];
+    const g = ids[i]!;
     let a = st.advances.get(g);
-    if (a === undefined) { a = f.getGlyph(g, [cps[i]]).advanceWidth as number; st.advances.set(g, a); }
+    if (a === undefined) { a = f.getGlyph(g, [cps[i]!]).advanceWidth as number; st.advances.set(g, a); }
     adv[i] = a;
   }
   const xo = run.xOffset, yo = run.yOffset;
@@ -521,10 +521,10 @@ function fastShape(f: Any, st: FontState, text: string): ShapedRun | null {
   // after it; with no mark or ligature glyph in the run, no lookup flag skips a glyph.
   for (const { subTables } of info.pairs) {
     for (let i = 0; i + 1 < n; i++) {
-      const cur = ids[i], next = ids[i + 1];
+      const cur = ids[i]!, next = ids[i + 1]!; // i + 1 < n
       for (const t of subTables) {
         const cov = coverageMap(t.coverage);
-        const index = cur < cov.length ? cov[cur] : -1;
+        const index = cur < cov.length ? cov[cur]! : -1;
         if (index === -1) continue;
         let v1: Any, v2: Any;
         if (t.version === 1) {

@@ -53,6 +53,13 @@ export interface TextLayout {
 // Glyph outline cache per font, in font units. Ops: 0 M x y, 1 L x y, 2 Q x1 y1 x y, 3 C x1 y1 x2 y2 x y, 4 Z.
 interface GlyphData { ops: number[]; minX: number; minY: number; maxX: number; maxY: number; empty: boolean }
 
+/** fontkit's path commands, each with exactly its own number of coordinates. */
+type GlyphCommand =
+  | { command: 'moveTo' | 'lineTo'; args: [number, number] }
+  | { command: 'quadraticCurveTo'; args: [number, number, number, number] }
+  | { command: 'bezierCurveTo'; args: [number, number, number, number, number, number] }
+  | { command: 'closePath'; args: [] };
+
 interface FontCaches { glyphs: Map<number, GlyphData>; outlines: Map<number, Map<number, GlyphOutline>>; layouts: Map<string, TextLayout> }
 const caches = new WeakMap<LoadedFont, FontCaches>();
 const LAYOUT_CACHE_SIZE = 2000;
@@ -91,7 +98,7 @@ function cubicEx(p0: number, p1: number, p2: number, p3: number, acc: (v: number
 function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
   let g = c.glyphs.get(id);
   if (g) return g;
-  const glyph = f.font.getGlyph(id) as unknown as { id: number; path: { commands: { command: string; args: number[] }[] } };
+  const glyph = f.font.getGlyph(id) as unknown as { id: number; path: { commands: GlyphCommand[] } };
   const ops: number[] = [];
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   const ax = (v: number) => { if (v < minX) minX = v; if (v > maxX) maxX = v; };
@@ -100,8 +107,8 @@ function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
   // .notdef (glyph 0) is drawn as nothing: a missing character is reported, not cut as a box.
   const commands = glyph.id === 0 ? [] : glyph.path.commands;
   for (const cmd of commands) {
-    const a = cmd.args;
-    switch (cmd.command) {
+    const { command, args: a } = cmd;
+    switch (command) {
       case 'moveTo': ops.push(0, a[0], a[1]); ax(a[0]); ay(a[1]); px = a[0]; py = a[1]; break;
       case 'lineTo': ops.push(1, a[0], a[1]); ax(a[0]); ay(a[1]); px = a[0]; py = a[1]; break;
       case 'quadraticCurveTo':
@@ -137,26 +144,27 @@ function glyphOutline(c: FontCaches, gd: GlyphData, id: number, s: number, cap: 
   let go = byScale.get(id);
   if (go) return go;
   const ops = gd.ops;
-  const X = (v: number) => Math.round(v * s * 1000);
-  const Y = (v: number) => Math.round((cap - v) * s * 1000);
+  // X(i)/Y(i) read the coordinate at ops[i]: every op code is followed by its full set of coordinates.
+  const X = (i: number) => Math.round(ops[i]! * s * 1000);
+  const Y = (i: number) => Math.round((cap - ops[i]!) * s * 1000);
   const r = (v: number) => String(v / 1000);
   let x0 = 0, y0 = 0, cx = 0, cy = 0, sx = 0, sy = 0, rest = '', first = true;
   for (let k = 0; k < ops.length; ) {
     const op = ops[k];
     if (op === 0 || op === 1) {
-      const x = X(ops[k + 1]), y = Y(ops[k + 2]);
+      const x = X(k + 1), y = Y(k + 2);
       if (first) { x0 = x; y0 = y; first = false; }
       else rest += `${op === 0 ? 'm' : 'l'}${r(x - cx)} ${r(y - cy)}`;
       cx = x; cy = y;
       if (op === 0) { sx = x; sy = y; }
       k += 3;
     } else if (op === 2) {
-      const x1 = X(ops[k + 1]), y1 = Y(ops[k + 2]), x = X(ops[k + 3]), y = Y(ops[k + 4]);
+      const x1 = X(k + 1), y1 = Y(k + 2), x = X(k + 3), y = Y(k + 4);
       rest += `q${r(x1 - cx)} ${r(y1 - cy)} ${r(x - cx)} ${r(y - cy)}`;
       cx = x; cy = y;
       k += 5;
     } else if (op === 3) {
-      const x1 = X(ops[k + 1]), y1 = Y(ops[k + 2]), x2 = X(ops[k + 3]), y2 = Y(ops[k + 4]), x = X(ops[k + 5]), y = Y(ops[k + 6]);
+      const x1 = X(k + 1), y1 = Y(k + 2), x2 = X(k + 3), y2 = Y(k + 4), x = X(k + 5), y = Y(k + 6);
       rest += `c${r(x1 - cx)} ${r(y1 - cy)} ${r(x2 - cx)} ${r(y2 - cy)} ${r(x - cx)} ${r(y - cy)}`;
       cx = x; cy = y;
       k += 7;
@@ -223,10 +231,11 @@ export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { ca
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   const n = run.glyphIds.length;
   for (let i = 0; i < n; i++) {
-    const id = run.glyphIds[i];
+    // the run's arrays are parallel, all n long
+    const id = run.glyphIds[i]!;
     const gd = glyphData(f, c, id);
-    const ox = pen + run.xOffset[i];
-    const oy = run.yOffset[i];
+    const ox = pen + run.xOffset[i]!;
+    const oy = run.yOffset[i]!;
     if (!gd.empty) {
       const go = glyphOutline(c, gd, id, s, cap);
       // Glyph origin on the 1 µm grid; the outline after the first point is relative, so its string
@@ -240,9 +249,9 @@ export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { ca
       if (gy0 < minY) minY = gy0;
       if (gy1 > maxY) maxY = gy1;
     }
-    const adv = run.xAdvance[i] + (i < n - 1 ? trackUnits : 0);
-    const cps = run.codePoints[i];
-    glyphs.push({ char: cps.length === 1 ? String.fromCodePoint(cps[0]) : String.fromCodePoint(...cps), glyphId: id, xMm: pen * s, advanceMm: adv * s });
+    const adv = run.xAdvance[i]! + (i < n - 1 ? trackUnits : 0);
+    const cps = run.codePoints[i]!;
+    glyphs.push({ char: cps.length === 1 ? String.fromCodePoint(cps[0]!) : String.fromCodePoint(...cps), glyphId: id, xMm: pen * s, advanceMm: adv * s });
     pen += adv;
   }
 

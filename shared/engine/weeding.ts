@@ -47,7 +47,7 @@ export function analyseRegions(regions: Region[], opts: { thinStrokes?: boolean 
   const counterWidths = holes.map((h) => inscribedWidth([h]));
   const narrowPieces = pieceWidths.filter((w) => w < NARROW_MM).length;
   const narrowCounters = counterWidths.filter((w) => w < NARROW_MM).length;
-  const thin = withThin ? regions.reduce((s, r, i) => s + (pieceWidths[i] < NARROW_MM ? 0 : thinArea([r.outer, ...r.holes], NARROW_MM)), 0) : 0;
+  const thin = withThin ? regions.reduce((s, r, i) => s + (pieceWidths[i]! < NARROW_MM ? 0 : thinArea([r.outer, ...r.holes], NARROW_MM)), 0) : 0;
   const report = label({
     pieces: regions.length,
     counters: holes.length,

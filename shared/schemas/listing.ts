@@ -66,6 +66,16 @@ export type Blank = z.output<typeof blankSchema>;
 // ---------------------------------------------------------------- personalisation schema
 const colourChoices = z.array(id('material')).max(24, 'At most 24 colours.');
 
+/**
+ * The colour a shopper starts with: the first one offered. Every list of colours a shopper picks
+ * from (a text field's, an outline's, a shopper layer's) has at least one, checked by this schema.
+ */
+export function defaultColour(choices: readonly string[]): string {
+  const first = choices[0];
+  if (first === undefined) throw new Error('A colour choice list is empty: the listing schema requires at least one colour.');
+  return first;
+}
+
 export const textFieldSchema = z
   .object({
     id: fieldKey,
@@ -77,7 +87,8 @@ export const textFieldSchema = z
     required: z.boolean().default(true),
     colourChoices: colourChoices.min(1, 'Offer at least one colour.'),
   })
-  .transform((f) => ({ ...f, defaultFontId: f.defaultFontId ?? f.fontIds[0] }))
+  // fontIds has at least one entry here: zod runs a transform only on input that passed min(1) above
+  .transform((f) => ({ ...f, defaultFontId: f.defaultFontId ?? f.fontIds[0]! }))
   .refine((f) => f.fontIds.includes(f.defaultFontId), { message: 'The default font must be one of the allowed fonts.', path: ['defaultFontId'] });
 export type TextField = z.output<typeof textFieldSchema>;
 

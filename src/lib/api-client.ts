@@ -47,6 +47,7 @@ const authCodeFields: Record<string, string> = {
   PASSWORD_TOO_LONG: 'password',
 };
 
+const TOO_MANY_TRIES = 'Too many tries in a short time. Wait a minute, then try again.';
 const statusMessages: Record<number, string> = {
   400: 'Some of what you entered needs another look.',
   401: 'Please sign in to continue.',
@@ -54,7 +55,7 @@ const statusMessages: Record<number, string> = {
   404: "We couldn't find that.",
   409: 'That conflicts with something that already exists.',
   413: 'That is too large to send.',
-  429: 'Too many tries in a short time. Wait a minute, then try again.',
+  429: TOO_MANY_TRIES,
 };
 
 /**
@@ -65,14 +66,14 @@ export function toApiError(status: number, body: unknown): ApiError {
   const ours = apiErrorSchema.safeParse(body);
   if (ours.success) {
     const { code, message, fields } = ours.data.error;
-    return new ApiError(status, code, status === 429 ? statusMessages[429] : message, fields);
+    return new ApiError(status, code, status === 429 ? TOO_MANY_TRIES : message, fields);
   }
   if (body && typeof body === 'object') {
     const b = body as { code?: unknown; message?: unknown };
     const code = typeof b.code === 'string' ? b.code : undefined;
     const message = typeof b.message === 'string' && b.message ? b.message : undefined;
     if (code || message) {
-      const friendly = (code && authCodeMessages[code]) ?? (status === 429 ? statusMessages[429] : message) ?? statusMessages[status];
+      const friendly = (code && authCodeMessages[code]) ?? (status === 429 ? TOO_MANY_TRIES : message) ?? statusMessages[status];
       const field = code ? authCodeFields[code] : undefined;
       return new ApiError(status, code ?? `http_${status}`, friendly ?? 'Something went wrong.', field ? { [field]: friendly ?? '' } : undefined);
     }

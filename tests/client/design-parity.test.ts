@@ -12,6 +12,7 @@ import type { ListingPage } from '../../shared/schemas/catalog.ts';
 import type { Cart } from '../../shared/schemas/cart.ts';
 import { designInput } from '../../src/features/personaliser/lib/design.ts';
 import { defaultChoices, reconcile } from '../../src/features/personaliser/lib/saved-choices.ts';
+import { at } from '../support/at.ts';
 
 let t: TestApp;
 let listings: ListingPage[] = [];
@@ -27,16 +28,16 @@ afterAll(async () => t?.close());
 function choicesFor(l: ListingPage, text: string, pick: 'first' | 'last'): Choices {
   const p = l.content.personalisation;
   const c = defaultChoices(p);
-  const at = <T,>(xs: readonly T[]) => (pick === 'first' ? xs[0] : xs[xs.length - 1]);
+  const picked = <T,>(xs: readonly T[]) => at(xs, pick === 'first' ? 0 : -1);
   for (const f of p.textFields) {
-    c.texts[f.id] = { text: [...text].slice(0, f.maxLength).join(''), fontId: at(f.fontIds), letterHeightMm: f.defaultLetterHeightMm };
-    c.textColours[f.id] = at(f.colourChoices);
+    c.texts[f.id] = { text: [...text].slice(0, f.maxLength).join(''), fontId: picked(f.fontIds), letterHeightMm: f.defaultLetterHeightMm };
+    c.textColours[f.id] = picked(f.colourChoices);
   }
-  const m = at(p.motifChoices);
+  const m = p.motifChoices.length ? picked(p.motifChoices) : undefined;
   c.motifId = m?.motifId ?? null;
   c.motifColours = {};
-  for (const l2 of m?.layers ?? []) if (l2.mode === 'shopper' && l2.colourChoices?.length) c.motifColours[l2.layerId] = at(l2.colourChoices);
-  if (p.outline) c.outlineMaterialId = at(p.outline.colourChoices);
+  for (const l2 of m?.layers ?? []) if (l2.mode === 'shopper' && l2.colourChoices?.length) c.motifColours[l2.layerId] = picked(l2.colourChoices);
+  if (p.outline) c.outlineMaterialId = picked(p.outline.colourChoices);
   return c;
 }
 
@@ -68,21 +69,21 @@ describe('personaliser design = cart snapshot', () => {
   });
 
   it('when nothing is typed and there is no motif, then there is nothing to compose', () => {
-    const l = listings[0];
+    const l = at(listings, 0);
     const c = defaultChoices(l.content.personalisation);
     c.motifId = null;
     expect(designInput(l, c)).toBeNull();
   });
 
   it('when saved choices name a font and colour the listing no longer offers, then they fall back to its defaults and the text is kept', () => {
-    const l = listings[0];
+    const l = at(listings, 0);
     const p = l.content.personalisation;
-    const f = p.textFields[0];
+    const f = at(p.textFields, 0);
     const saved = defaultChoices(p);
     saved.texts[f.id] = { text: 'Priya', fontId: 'no-such-font', letterHeightMm: 9999 };
     saved.textColours[f.id] = 'gone-material';
     const r = reconcile(p, saved);
     expect(r.texts[f.id]).toEqual({ text: 'Priya', fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm });
-    expect(r.textColours[f.id]).toBe(f.colourChoices[0]);
+    expect(r.textColours[f.id]).toBe(at(f.colourChoices, 0));
   });
 });

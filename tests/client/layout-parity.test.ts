@@ -6,6 +6,7 @@ import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { at } from '../support/at.ts';
 
 // @ts-expect-error -- fontkit's browser build ships no types of its own (the package's types cover it)
 vi.mock('fontkit', async () => await import('../../node_modules/fontkit/dist/browser-module.mjs'));
@@ -63,7 +64,7 @@ describe('client layout = server layout', () => {
       expect(client.missing).toEqual(server.missing);
     }
     // the CJK name is not in these display fonts: both sides name the same characters
-    expect(layoutText(registry, cases[6]).missing).toEqual(['美', '咲']);
+    expect(layoutText(registry, at(cases, 6)).missing).toEqual(['美', '咲']);
     // each font file is fetched once, however many registries ask for it
     await loadClientRegistry(fonts, fonts.map((f) => f.id), fetchBytes);
     expect(fetched).toBe(fonts.length);

@@ -9,6 +9,7 @@ import { parseMotifSvg } from '../../shared/engine/motif.ts';
 import { formatPath, parsePathData, transformPath } from '../../shared/engine/path.ts';
 import { getFontRegistry } from '../../server/integrations/fonts.ts';
 import { placeDesign } from '../../src/features/personaliser/lib/place.ts';
+import { at } from '../support/at.ts';
 
 const reg = getFontRegistry();
 const fox = parseMotifSvg(fs.readFileSync('server/db/demo-motifs/fox-with-acorn.svg', 'utf8'));
@@ -41,10 +42,11 @@ describe('the preview places every piece where compose() does', () => {
       const composed = item.pieces.filter((p) => p.role !== 'outline');
       expect(placed.pieces.map((p) => p.layerId)).toEqual(composed.map((p) => p.layerId));
       placed.pieces.forEach((p, i) => {
-        expect(formatPath(transformPath(parsePathData(p.d), p.matrix)), p.layerId).toBe(composed[i].path);
-        expect(p.colour).toBe(composed[i].colour);
-        expect(p.bboxMm.minX).toBeCloseTo(composed[i].bboxMm.minX, 2);
-        expect(p.bboxMm.maxY).toBeCloseTo(composed[i].bboxMm.maxY, 2);
+        const c = at(composed, i);
+        expect(formatPath(transformPath(parsePathData(p.d), p.matrix)), p.layerId).toBe(c.path);
+        expect(p.colour).toBe(c.colour);
+        expect(p.bboxMm.minX).toBeCloseTo(c.bboxMm.minX, 2);
+        expect(p.bboxMm.maxY).toBeCloseTo(c.bboxMm.maxY, 2);
       });
       expect(placed.letterHeights).toEqual(item.letterHeights);
       expect(placed.warnings).toEqual(item.warnings);

@@ -3,6 +3,7 @@ import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { makeTestApp, eventually, type TestApp } from '../factories/app.ts';
+import { at } from '../support/at.ts';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -151,10 +152,10 @@ describe('password reset by e-mail', () => {
     const u = await t.makeUser('shopper');
     const ask = await request(t.app).post('/api/auth/request-password-reset').send({ email: u.email, redirectTo: '/reset-password' });
     expect(ask.status).toBe(200);
-    const [mail] = await eventually(async () => {
+    const mail = at(await eventually(async () => {
       const m = await t.mailTo(u.email);
       return m.length ? m : null;
-    });
+    }), 0);
     expect(mail.subject).toMatch(/Reset your Namesake password/);
     const link = /https?:\/\/\S+reset-password\/[^\s"<]+/.exec(mail.text)?.[0];
     expect(link).toBeTruthy();
@@ -162,7 +163,7 @@ describe('password reset by e-mail', () => {
     const url = new URL(link!);
     const follow = await request(t.app).get(url.pathname + url.search);
     expect(follow.status).toBe(302);
-    const token = new URL(follow.headers.location, 'http://localhost').searchParams.get('token');
+    const token = new URL(follow.headers.location ?? '', 'http://localhost').searchParams.get('token');
     expect(token).toBeTruthy();
     const reset = await request(t.app).post('/api/auth/reset-password').send({ token, newPassword: 'a-brand-new-secret' });
     expect(reset.status).toBe(200);

@@ -132,7 +132,9 @@ describe('filters, sort, pages', () => {
   });
 
   it('when there are more listings than a page, then pages split them without overlap and total counts all', async () => {
-    const shopId = t.db.select().from(listings).all()[0].shopId;
+    const first = t.db.select().from(listings).get();
+    if (!first) throw new Error('The seeded catalogue has no listing.');
+    const shopId = first.shopId;
     const body = listingInputSchema.parse({ ...(await listingBody(fern)), title: 'Pagination tote', occasions: ['birthday'] });
     const at = Date.now();
     for (let i = 0; i < 30; i++) {

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { createListing, decide, listingBody, liveListing, makeMaterial } from './listings.fixtures.ts';
+import { at } from '../support/at.ts';
 
 let t: TestApp;
 let a: Agent; // seller A
@@ -69,7 +70,7 @@ describe('listing editor input', () => {
 
   it('when a text field\'s default font is not one of its fonts, then 400 on defaultFontId', async () => {
     const body = await listingBody(a);
-    body.personalisation.textFields![0].defaultFontId = 'bangers';
+    at(body.personalisation.textFields!, 0).defaultFontId = 'bangers';
     const res = await a.post('/api/seller/listings').send(body);
     expect(res.status).toBe(400);
     expect(res.body.error.fields['personalisation.textFields.0.defaultFontId']).toBeTruthy();
@@ -77,7 +78,7 @@ describe('listing editor input', () => {
 
   it('when a motif layer id is not in the motif, then 400 on that layer', async () => {
     const body = await listingBody(a);
-    body.personalisation.motifChoices![0].layers[1].layerId = 'moon';
+    at(at(body.personalisation.motifChoices!, 0).layers, 1).layerId = 'moon';
     const res = await a.post('/api/seller/listings').send(body);
     expect(res.status).toBe(400);
     expect(res.body.error.fields['personalisation.motifChoices.0.layers.1.layerId']).toMatch(/no such layer/);
@@ -87,7 +88,7 @@ describe('listing editor input', () => {
     const m = await makeMaterial(a, { colourName: 'Old stock' });
     await a.patch(`/api/materials/${m.id}`).send({ archived: true });
     const body = await listingBody(a);
-    body.personalisation.textFields![0].colourChoices = [m.id];
+    at(body.personalisation.textFields!, 0).colourChoices = [m.id];
     const res = await a.post('/api/seller/listings').send(body);
     expect(res.status).toBe(400);
     expect(res.body.error.fields['personalisation.textFields.0.colourChoices.0']).toMatch(/archived/);

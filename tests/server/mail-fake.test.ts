@@ -5,6 +5,7 @@ import path from 'node:path';
 import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
 import { listMail, readMail } from '../../fakes/mail/store.ts';
 import { createMailer } from '../../server/integrations/mailer.ts';
+import { at } from '../support/at.ts';
 
 let fake: MailFake;
 let dir: string;
@@ -22,7 +23,7 @@ describe('mail fake', () => {
     const mailer = createMailer({ SMTP_HOST: '127.0.0.1', SMTP_PORT: fake.port, SMTP_SECURE: false, MAIL_FROM: 'Namesake <hello@namesake.test>' });
     await mailer.send({ to: 'mira@namesake.test', subject: 'Hello Mira', text: 'plain body', html: '<p>html body</p>' });
     mailer.close();
-    const [m] = await listMail(dir, { to: 'mira@' });
+    const m = at(await listMail(dir, { to: 'mira@' }), 0);
     expect(m.subject).toBe('Hello Mira');
     expect(m.text.trim()).toBe('plain body');
     expect(m.html).toContain('<p>html body</p>');

@@ -19,7 +19,8 @@ let dana: Agent;
 let admin: Agent;
 beforeAll(async () => {
   t = await makeTestApp({ seed: true });
-  [fern, dana, admin] = await Promise.all(['fern', 'dana', 'admin'].map((n) => t.signIn(`${n}@namesake.test`, DEMO_PASSWORD)));
+  const signIn = (n: string) => t.signIn(`${n}@namesake.test`, DEMO_PASSWORD);
+  [fern, dana, admin] = await Promise.all([signIn('fern'), signIn('dana'), signIn('admin')]);
 }, 60_000);
 afterAll(async () => t?.close());
 

@@ -3,6 +3,7 @@ import { inflateSync } from 'node:zlib';
 import { buildWorksheetPdf, mapPageCount, worksheetPageCount, type WorksheetInput } from '../../server/workers/worksheet-pdf.ts';
 import { nestCutSheets, type NestPiece } from '../../shared/engine/cut-sheets.ts';
 import { pressCard } from '../../shared/engine/press-card.ts';
+import { at } from '../support/at.ts';
 
 // ---- a small PDF reader: objects, page boxes, and text decoded through each font's ToUnicode map ----
 
@@ -12,7 +13,7 @@ function parsePdf(buf: Buffer): Parsed {
   const src = buf.toString('latin1');
   const objs = new Map<number, { dict: string; stream?: string }>();
   for (const m of src.matchAll(/(\d+) 0 obj\s*([\s\S]*?)endobj/g)) {
-    const body = m[2];
+    const body = at(m, 2);
     const si = body.indexOf('stream');
     if (si < 0) { objs.set(Number(m[1]), { dict: body }); continue; }
     const dict = body.slice(0, si);
@@ -26,13 +27,13 @@ function parsePdf(buf: Buffer): Parsed {
   const contents: Array<{ stream: string; fonts: Record<string, number> }> = [];
   for (const o of objs.values()) {
     if (!/\/Type \/Page\b/.test(o.dict)) continue;
-    pages.push(/\/MediaBox \[([^\]]+)\]/.exec(o.dict)![1].trim().split(/\s+/).map(Number));
+    pages.push(at(/\/MediaBox \[([^\]]+)\]/.exec(o.dict)!, 1).trim().split(/\s+/).map(Number));
     const c = /\/Contents (\d+) 0 R/.exec(o.dict);
     const resRef = /\/Resources (\d+) 0 R/.exec(o.dict);
     const res = resRef ? objs.get(Number(resRef[1]))!.dict : o.dict;
     const fonts: Record<string, number> = {};
     const fontDict = /\/Font\s*<<([\s\S]*?)>>/.exec(res);
-    if (fontDict) for (const f of fontDict[1].matchAll(/\/(\w+) (\d+) 0 R/g)) fonts[f[1]] = Number(f[2]);
+    if (fontDict) for (const f of at(fontDict, 1).matchAll(/\/(\w+) (\d+) 0 R/g)) fonts[at(f, 1)] = Number(f[2]);
     if (c) contents.push({ stream: objs.get(Number(c[1]))!.stream ?? '', fonts });
   }
   const cmaps = new Map<number, Map<number, string>>();
@@ -42,17 +43,17 @@ function parsePdf(buf: Buffer): Parsed {
     const map = new Map<number, string>();
     const dict = objs.get(fontObj)!.dict;
     const base = /\/BaseFont \/(\S+)/.exec(dict);
-    if (base) fontNames.push(base[1]);
+    if (base) fontNames.push(at(base, 1));
     const tu = /\/ToUnicode (\d+) 0 R/.exec(dict);
     const utf16 = (hex: string) => { const h = hex.replace(/\s+/g, ''); let s = ''; for (let i = 0; i < h.length; i += 4) s += String.fromCharCode(parseInt(h.slice(i, i + 4), 16)); return s; };
     if (tu) {
       const cm = objs.get(Number(tu[1]))!.stream!;
       for (const r of cm.matchAll(/<([0-9a-f]+)>\s*<([0-9a-f]+)>\s*\[([^\]]*)\]/gi)) {
-        const start = parseInt(r[1], 16);
-        [...r[3].matchAll(/<([0-9a-f\s]+)>/gi)].forEach((d, i) => map.set(start + i, utf16(d[1])));
+        const start = parseInt(at(r, 1), 16);
+        [...at(r, 3).matchAll(/<([0-9a-f\s]+)>/gi)].forEach((d, i) => map.set(start + i, utf16(at(d, 1))));
       }
       for (const block of cm.matchAll(/beginbfchar([\s\S]*?)endbfchar/g)) {
-        for (const r of block[1].matchAll(/<([0-9a-f]+)>\s*<([0-9a-f\s]+)>/gi)) map.set(parseInt(r[1], 16), utf16(r[2]));
+        for (const r of at(block, 1).matchAll(/<([0-9a-f]+)>\s*<([0-9a-f\s]+)>/gi)) map.set(parseInt(at(r, 1), 16), utf16(at(r, 2)));
       }
     }
     cmaps.set(fontObj, map);
@@ -62,8 +63,8 @@ function parsePdf(buf: Buffer): Parsed {
   for (const { stream, fonts } of contents) {
     let map = new Map<number, string>();
     for (const op of stream.matchAll(/\/(\w+) [\d.]+ Tf|\[((?:<[0-9a-f]*>|[^\]])*)\] TJ|<([0-9a-f]*)> Tj/gi)) {
-      if (op[1]) { map = fonts[op[1]] ? cmapFor(fonts[op[1]]) : new Map(); continue; }
-      const hexes = op[2] !== undefined ? [...op[2].matchAll(/<([0-9a-f]*)>/gi)].map((h) => h[1]) : [op[3]];
+      if (op[1]) { const fontObj = fonts[op[1]]; map = fontObj ? cmapFor(fontObj) : new Map(); continue; }
+      const hexes = op[2] !== undefined ? [...op[2].matchAll(/<([0-9a-f]*)>/gi)].map((h) => at(h, 1)) : [op[3] ?? ''];
       for (const h of hexes) for (let i = 0; i < h.length; i += 4) text += map.get(parseInt(h.slice(i, i + 4), 16)) ?? '\uFFFD';
       text += '\n';
     }
@@ -137,7 +138,7 @@ describe('buildWorksheetPdf', () => {
 
   it('when a sheet is longer than one page shows, then its map continues over as many pages, labelled part k of n', async () => {
     const many: NestPiece[] = Array.from({ length: 40 }, (_, i) => ({ id: `m${i}`, lineId: `l${i}`, orderNumber: `NS-2${String(i).padStart(3, '0')}`, layerId: 'name', widthMm: 200, heightMm: 60, areaMm2: 6000, path: rect(200, 60) }));
-    const long = nestCutSheets({ rollWidthMm: 305, pieces: many })[0];
+    const long = at(nestCutSheets({ rollWidthMm: 305, pieces: many }), 0);
     const n = mapPageCount('Letter', long);
     expect(n).toBeGreaterThan(3);
     const inp = { ...batch('Letter'), sheets: [{ ...long, material: { kind: 'smooth', colour: 'Red' }, pieces: many }] };
@@ -182,7 +183,7 @@ describe('buildWorksheetPdf', () => {
     const seen: number[] = [];
     await buildWorksheetPdf({ ...batch('A4'), onProgress: (f) => seen.push(f) });
     expect(seen.length).toBeGreaterThan(3);
-    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThanOrEqual(seen[i - 1]);
+    for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThanOrEqual(at(seen, i - 1));
     expect(seen.at(-1)).toBe(1);
   });
 

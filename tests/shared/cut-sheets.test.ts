@@ -7,6 +7,7 @@ import { cssLengthToMm, inToMm } from '../../shared/units.ts';
 import { layoutText } from '../../shared/engine/text-layout.ts';
 import { FONT_CATALOG } from '../../shared/engine/font-catalog.ts';
 import { testRegistry } from './engine/font-fixture.ts';
+import { at } from '../support/at.ts';
 
 const rectPath = (x: number, y: number, w: number, h: number) => `M${x} ${y}H${x + w}V${y + h}H${x}Z`;
 const piece = (id: string, w: number, h: number, extra: Partial<NestPiece> = {}): NestPiece => ({
@@ -32,7 +33,7 @@ function checkSheet(sheet: CutSheet, pieces: NestPiece[], rollWidthMm: number, g
   const pls = sheet.placements;
   for (let i = 0; i < pls.length; i++) {
     for (let j = i + 1; j < pls.length; j++) {
-      const a = pls[i], b = pls[j];
+      const a = at(pls, i), b = at(pls, j);
       const dx = Math.max(b.xMm - (a.xMm + a.widthMm), a.xMm - (b.xMm + b.widthMm));
       const dy = Math.max(b.yMm - (a.yMm + a.heightMm), a.yMm - (b.yMm + b.heightMm));
       expect(Math.max(dx, dy)).toBeGreaterThanOrEqual(gapMm - EPS);
@@ -58,9 +59,9 @@ describe('nestCutSheets', () => {
           const pieces = dims.map(([w, h], i) => piece(`p${i}`, Math.min(w, usable), h));
           const sheets = nestCutSheets({ rollWidthMm, gapMm, marginMm, pieces });
           expect(sheets).toHaveLength(1);
-          const ids = sheets[0].placements.map((p) => p.pieceId).sort();
+          const ids = at(sheets, 0).placements.map((p) => p.pieceId).sort();
           expect(ids).toEqual(pieces.map((p) => p.id).sort());
-          checkSheet(sheets[0], pieces, rollWidthMm, gapMm, marginMm);
+          checkSheet(at(sheets, 0), pieces, rollWidthMm, gapMm, marginMm);
         },
       ),
       { numRuns: 150 },
@@ -86,21 +87,22 @@ describe('nestCutSheets', () => {
   it('when two pieces exactly fill the usable width less one gap, then they share a row; 0.5 mm wider and they cannot', () => {
     // usable = 305 − 2·6 = 293 mm; two pieces of (293 − 6)/2 = 143.5 mm fit side by side with the gap.
     // This proves the bin is sized usable + gap for rects padded by the gap.
-    const fit = nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 143.5, 50), piece('b', 143.5, 50)] })[0];
+    const fit = at(nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 143.5, 50), piece('b', 143.5, 50)] }), 0);
     expect(fit.lengthMm).toBeCloseTo(6 + 50 + 6, 9);
     expect(new Set(fit.placements.map((p) => p.yMm)).size).toBe(1);
-    const [a, b] = [...fit.placements].sort((p, q) => p.xMm - q.xMm);
+    const byX = [...fit.placements].sort((p, q) => p.xMm - q.xMm);
+    const a = at(byX, 0), b = at(byX, 1);
     expect(b.xMm - (a.xMm + a.widthMm)).toBeCloseTo(6, 9);
     expect(a.xMm).toBe(6);
     expect(b.xMm + b.widthMm).toBeCloseTo(305 - 6, 9);
 
-    const tooWide = nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 144, 50), piece('b', 144, 50)] })[0];
+    const tooWide = at(nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 144, 50), piece('b', 144, 50)] }), 0);
     checkSheet(tooWide, [piece('a', 144, 50), piece('b', 144, 50)], 305, 6, 6);
     expect(tooWide.lengthMm).toBeGreaterThanOrEqual(6 + 50 + 6 + 50 + 6 - 1e-9);
   });
 
   it('when a piece is wider than the roll but fits turned, then it is placed rotated with its size swapped', () => {
-    const sheet = nestCutSheets({ rollWidthMm: 150, pieces: [piece('long', 280, 40)] })[0];
+    const sheet = at(nestCutSheets({ rollWidthMm: 150, pieces: [piece('long', 280, 40)] }), 0);
     expect(sheet.placements[0]).toMatchObject({ pieceId: 'long', rotated: true, widthMm: 40, heightMm: 280, xMm: 6, yMm: 6 });
     expect(sheet.lengthMm).toBe(6 + 280 + 6);
   });
@@ -114,7 +116,7 @@ describe('nestCutSheets', () => {
     expect((err as CutSheetError).code).toBe('piece_too_wide');
     expect((err as CutSheetError).message).toMatch(/huge.*293 mm/);
     // exactly the usable width is fine
-    expect(nestCutSheets({ rollWidthMm: 305, pieces: [piece('edge', 293, 300)] })[0].placements[0].xMm).toBe(6);
+    expect(at(at(nestCutSheets({ rollWidthMm: 305, pieces: [piece('edge', 293, 300)] }), 0).placements, 0).xMm).toBe(6);
   });
 
   it('when input is malformed, then invalid_input names the field', () => {
@@ -129,7 +131,7 @@ describe('nestCutSheets', () => {
   });
 
   it('when defaults apply, then the gap and margin are 6 mm (¼ in) each (from memory, no published source)', () => {
-    const s = nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 100, 20)] })[0];
+    const s = at(nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 100, 20)] }), 0);
     expect([s.gapMm, s.marginMm]).toEqual([6, 6]);
     expect(s.placements[0]).toMatchObject({ xMm: 6, yMm: 6 });
   });
@@ -157,15 +159,15 @@ describe('groupByMaterial', () => {
 
 function svgSize(svg: string) {
   const m = /<svg[^>]*\swidth="([^"]+)"[^>]*\sheight="([^"]+)"[^>]*\sviewBox="([^"]+)"/.exec(svg)!;
-  const vb = m[3].split(/\s+/).map(Number);
-  return { width: m[1], height: m[2], vb };
+  const vb = at(m, 3).split(/\s+/).map(Number);
+  return { width: at(m, 1), height: at(m, 2), vb };
 }
 /** Physical mm per user unit, by W3C CSS Values "Absolute lengths" (1in = 96px = 25.4mm). */
 function mmPerUserUnit(svg: string) {
   const { width, height, vb } = svgSize(svg);
-  return { x: cssLengthToMm(width)! / vb[2], y: cssLengthToMm(height)! / vb[3] };
+  return { x: cssLengthToMm(width)! / at(vb, 2), y: cssLengthToMm(height)! / at(vb, 3) };
 }
-const svgPaths = (svg: string) => [...svg.matchAll(/<path data-piece="([^"]*)" data-line="([^"]*)" d="([^"]*)"\/>/g)].map((m) => ({ id: m[1], d: m[3] }));
+const svgPaths = (svg: string) => [...svg.matchAll(/<path data-piece="([^"]*)" data-line="([^"]*)" d="([^"]*)"\/>/g)].map((m) => ({ id: at(m, 1), d: at(m, 3) }));
 
 describe('cutSheetSvg', () => {
   // An "L" with a hole at its top-left: asymmetric, so a missing mirror shows.
@@ -173,7 +175,7 @@ describe('cutSheetSvg', () => {
   const lPiece = { ...piece('L', 50, 60), path: lPath };
 
   it('when a sheet is written, then width/height are in mm and one user unit is one mm — no 90 px/in slip (W3C CSS Values, absolute lengths)', () => {
-    const sheet = nestCutSheets({ rollWidthMm: inToMm(12), pieces: [piece('sq', inToMm(10), 50)] })[0];
+    const sheet = at(nestCutSheets({ rollWidthMm: inToMm(12), pieces: [piece('sq', inToMm(10), 50)] }), 0);
     const svg = cutSheetSvg(sheet, [piece('sq', inToMm(10), 50)]);
     const { width, height, vb } = svgSize(svg);
     expect(width).toBe('304.8mm'); // 12 in = 304.8 mm (NIST SP 811)
@@ -183,7 +185,7 @@ describe('cutSheetSvg', () => {
     expect(unit.x).toBeCloseTo(1, 12);
     expect(unit.y).toBeCloseTo(1, 12);
     // a 10 in piece measures 254 mm on the cutter
-    const bb = pathBBox(parsePathData(svgPaths(svg)[0].d));
+    const bb = pathBBox(parsePathData(at(svgPaths(svg), 0).d));
     expect((bb.maxX - bb.minX) * unit.x).toBeCloseTo(254, 6);
 
     // The same drawing declared in px at SVG 1.1's old 90 px/in is read at CSS's 96 px/in as
@@ -194,10 +196,10 @@ describe('cutSheetSvg', () => {
   });
 
   it('when a piece is placed upright, then its cut outline is the preview mirrored: every subpath bbox reflected, windings reversed', () => {
-    const sheet = nestCutSheets({ rollWidthMm: 305, pieces: [lPiece] })[0];
-    const pl = sheet.placements[0];
+    const sheet = at(nestCutSheets({ rollWidthMm: 305, pieces: [lPiece] }), 0);
+    const pl = at(sheet.placements, 0);
     expect(pl.rotated).toBe(false);
-    const cut = parsePathData(svgPaths(cutSheetSvg(sheet, [lPiece]))[0].d);
+    const cut = parsePathData(at(svgPaths(cutSheetSvg(sheet, [lPiece])), 0).d);
     const prev = parsePathData(lPath);
     const pb = pathBBox(prev);
     const cb = pathBBox(cut);
@@ -206,27 +208,27 @@ describe('cutSheetSvg', () => {
     // each subpath's bbox is the preview's reflected about the piece's vertical centre line
     prev.forEach((sp, i) => {
       const a = pathBBox([sp]);
-      const b = pathBBox([cut[i]]);
+      const b = pathBBox([at(cut, i)]);
       expect(b.minX - pl.xMm).toBeCloseTo(pb.maxX - a.maxX, 9);
       expect(b.maxX - pl.xMm).toBeCloseTo(pb.maxX - a.minX, 9);
       expect(b.minY - pl.yMm).toBeCloseTo(a.minY - pb.minY, 9);
     });
     // a reflection reverses every winding and keeps areas
-    subpathAreas(prev).forEach((a, i) => expect(subpathAreas(cut)[i]).toBeCloseTo(-a, 9));
+    subpathAreas(prev).forEach((a, i) => expect(at(subpathAreas(cut), i)).toBeCloseTo(-a, 9));
     // the hole sat at the top-left of the preview: on the cut it sits at the top-right
-    const hole = pathBBox([cut[1]]);
+    const hole = pathBBox([at(cut, 1)]);
     expect(hole.maxX).toBeCloseTo(pl.xMm + pl.widthMm - 4, 9);
   });
 
   it('when a piece is placed rotated, then it is still mirrored (reversed windings) and fills its placed rect', () => {
-    const sheet = nestCutSheets({ rollWidthMm: 100, pieces: [piece('R', 120, 30, { path: 'M0 0H120V30H100V10H0Z' })] })[0];
-    const pl = sheet.placements[0];
+    const sheet = at(nestCutSheets({ rollWidthMm: 100, pieces: [piece('R', 120, 30, { path: 'M0 0H120V30H100V10H0Z' })] }), 0);
+    const pl = at(sheet.placements, 0);
     expect(pl.rotated).toBe(true);
     const prev = parsePathData('M0 0H120V30H100V10H0Z');
     const cut = placedCutPath(pl, prev);
     const cb = pathBBox(cut);
     expect([cb.minX, cb.minY, cb.maxX, cb.maxY].map((v) => Math.round(v * 1e6) / 1e6)).toEqual([pl.xMm, pl.yMm, pl.xMm + 30, pl.yMm + 120]);
-    expect(Math.sign(subpathAreas(cut)[0])).toBe(-Math.sign(subpathAreas(prev)[0]));
+    expect(Math.sign(at(subpathAreas(cut), 0))).toBe(-Math.sign(at(subpathAreas(prev), 0)));
     expect(pathArea(cut)).toBeCloseTo(pathArea(prev), 9);
   });
 
@@ -234,11 +236,11 @@ describe('cutSheetSvg', () => {
     const reg = testRegistry();
     const names = ['Zoë', 'Bartholomew', 'Kai'];
     const pieces = names.map((text, i) => {
-      const lay = layoutText(reg, { text, fontId: FONT_CATALOG[0].id, letterHeightMm: 40 });
+      const lay = layoutText(reg, { text, fontId: at(FONT_CATALOG, 0).id, letterHeightMm: 40 });
       const bb = pathBBox(parsePathData(lay.path));
       return { id: `n${i}`, lineId: `l${i}`, layerId: 'name', widthMm: bb.maxX - bb.minX, heightMm: bb.maxY - bb.minY, areaMm2: pathArea(parsePathData(lay.path)), path: lay.path };
     });
-    const sheet = nestCutSheets({ rollWidthMm: 305, pieces })[0];
+    const sheet = at(nestCutSheets({ rollWidthMm: 305, pieces }), 0);
     const svg = cutSheetSvg(sheet, pieces);
     for (const { id, d } of svgPaths(svg)) {
       const pl = sheet.placements.find((p) => p.pieceId === id)!;
@@ -252,19 +254,19 @@ describe('cutSheetSvg', () => {
       if (!pl.rotated) {
         // first glyph's outline: reflected about the piece's centre (1 µm rounding in the file)
         const pb = pathBBox(parsePathData(src.path));
-        const g0 = pathBBox([parsePathData(src.path)[0]]);
-        const c0 = pathBBox([cut[0]]);
+        const g0 = pathBBox([at(parsePathData(src.path), 0)]);
+        const c0 = pathBBox([at(cut, 0)]);
         expect(c0.maxX - pl.xMm).toBeCloseTo(pb.maxX - g0.minX, 2);
       }
       expect(pathArea(cut)).toBeCloseTo(src.areaMm2, 0);
     }
     // polygons really exist (not an empty path)
-    expect(flattenPath(parsePathData(svgPaths(svg)[0].d)).length).toBeGreaterThan(0);
+    expect(flattenPath(parsePathData(at(svgPaths(svg), 0).d)).length).toBeGreaterThan(0);
   });
 
   it('when written, then the file has cut paths only: stroked, unfilled, no text, ids escaped', () => {
     const evil = { ...piece('"><script>alert(1)</script>', 40, 20), lineId: "l'&<" };
-    const sheet = nestCutSheets({ rollWidthMm: 305, pieces: [evil] })[0];
+    const sheet = at(nestCutSheets({ rollWidthMm: 305, pieces: [evil] }), 0);
     const svg = cutSheetSvg(sheet, [evil]);
     expect(svg).not.toMatch(/<script|<text|<foreignObject|<image|href=/i);
     expect(svg).toContain('data-piece="&quot;&gt;&lt;script&gt;alert(1)&lt;/script&gt;"');
@@ -273,8 +275,8 @@ describe('cutSheetSvg', () => {
     expect(svgPaths(svg)).toHaveLength(1);
     // path data is re-serialised geometry, never the input string
     const sneaky = { ...piece('q', 10, 10), path: 'M0 0H10V10H0Z" onload="x' };
-    expect(() => cutSheetSvg(nestCutSheets({ rollWidthMm: 305, pieces: [piece('q', 10, 10)] })[0], [sneaky])).not.toThrow();
-    expect(cutSheetSvg(nestCutSheets({ rollWidthMm: 305, pieces: [piece('q', 10, 10)] })[0], [sneaky])).not.toContain('onload');
+    expect(() => cutSheetSvg(at(nestCutSheets({ rollWidthMm: 305, pieces: [piece('q', 10, 10)] }), 0), [sneaky])).not.toThrow();
+    expect(cutSheetSvg(at(nestCutSheets({ rollWidthMm: 305, pieces: [piece('q', 10, 10)] }), 0), [sneaky])).not.toContain('onload');
   });
 
   it('when path data is read quickly, then it gives the same geometry as the general reader (svgpath) (property)', () => {
@@ -298,15 +300,15 @@ describe('cutSheetSvg', () => {
       const a = readPathData(d), b = parsePathData(d);
       expect(a.length).toBe(b.length);
       a.forEach((sp, i) => {
-        expect(sp.closed).toBe(b[i].closed);
-        expect(formatPath([sp])).toBe(formatPath([b[i]]));
+        expect(sp.closed).toBe(at(b, i).closed);
+        expect(formatPath([sp])).toBe(formatPath([at(b, i)]));
       });
     }), { numRuns: 300 });
   });
 
   it('when an outline is bigger than the size it was nested with, then the SVG refuses it', () => {
-    const sheet = nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 40, 20)] })[0];
+    const sheet = at(nestCutSheets({ rollWidthMm: 305, pieces: [piece('a', 40, 20)] }), 0);
     expect(() => cutSheetSvg(sheet, [{ id: 'a', path: rectPath(0, 0, 60, 20) }])).toThrow(CutSheetError);
-    expect(formatPath(placedCutPath(sheet.placements[0], rectPath(0, 0, 40, 20)))).toContain('M');
+    expect(formatPath(placedCutPath(at(sheet.placements, 0), rectPath(0, 0, 40, 20)))).toContain('M');
   });
 });

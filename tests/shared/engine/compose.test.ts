@@ -27,8 +27,8 @@ describe('compose', () => {
     expect(item.pieces.map((p) => [p.layerId, p.role])).toEqual([
       ['name-outline', 'outline'], ['motif:flame', 'motif'], ['motif:body', 'motif'], ['name', 'text'],
     ]);
-    expect(item.pieces[3].colour).toBe('#e0a526');
-    expect(item.pieces[1].materialKind).toBe('glitter');
+    expect(item.pieces[3]?.colour).toBe('#e0a526');
+    expect(item.pieces[1]?.materialKind).toBe('glitter');
   });
   it('when composing on a tote, then the design is centred, starts at the top offset and stays in the upper half', () => {
     const mid = (item.bboxMm.minX + item.bboxMm.maxX) / 2;

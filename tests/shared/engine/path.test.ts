@@ -46,7 +46,7 @@ describe('path geometry', () => {
         const twice = mirrorPath(mirrorPath(p, axis), axis);
         const a = formatPath(p).match(/-?[\d.]+/g)!.map(Number);
         const b = formatPath(twice).match(/-?[\d.]+/g)!.map(Number);
-        return a.length === b.length && a.every((v, i) => Math.abs(v - b[i]) <= 0.0011);
+        return a.length === b.length && a.every((v, i) => Math.abs(v - b[i]!) <= 0.0011);
       }),
       { numRuns: 300 },
     );

@@ -13,6 +13,7 @@ import { parseMotifSvg } from '../../../shared/engine/motif.ts';
 import { layoutText } from '../../../shared/engine/text-layout.ts';
 import { analyseWeeding } from '../../../shared/engine/weeding.ts';
 import { testRegistry } from './font-fixture.ts';
+import { at } from '../../support/at.ts';
 
 const reg = testRegistry();
 
@@ -21,7 +22,8 @@ const reg = testRegistry();
 function referenceInscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
   let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
   for (const p of polys) for (let i = 0; i < p.length; i += 2) {
-    minX = Math.min(minX, p[i]); maxX = Math.max(maxX, p[i]); minY = Math.min(minY, p[i + 1]); maxY = Math.max(maxY, p[i + 1]);
+    const x = p[i]!, y = p[i + 1]!; // i < p.length, pairs of (x, y)
+    minX = Math.min(minX, x); maxX = Math.max(maxX, x); minY = Math.min(minY, y); maxY = Math.max(maxY, y);
   }
   if (minX === Infinity) return 0;
   const size = Math.min(maxX - minX, maxY - minY);
@@ -31,7 +33,7 @@ function referenceInscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
     for (const p of polys) {
       const n = p.length;
       for (let i = 0, j = n - 2; i < n; j = i, i += 2) {
-        const ax = p[i], ay = p[i + 1], bx = p[j], by = p[j + 1];
+        const ax = p[i]!, ay = p[i + 1]!, bx = p[j]!, by = p[j + 1]!; // i, j < n, pairs of (x, y)
         if (ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax) inside = !inside;
         let dx = bx - ax, dy = by - ay, px = ax, py = ay;
         if (dx !== 0 || dy !== 0) {
@@ -54,9 +56,9 @@ function referenceInscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
   let guard = 0;
   while (queue.length && guard++ < 20000) {
     let bi = 0;
-    for (let i = 1; i < queue.length; i++) if (queue[i].max > queue[bi].max) bi = i;
-    const c = queue[bi];
-    queue[bi] = queue[queue.length - 1];
+    for (let i = 1; i < queue.length; i++) if (queue[i]!.max > queue[bi]!.max) bi = i; // i, bi < queue.length
+    const c = queue[bi]!;
+    queue[bi] = queue[queue.length - 1]!;
     queue.pop();
     if (c.d > best.d) best = c;
     if (c.max - best.d <= precisionMm / 2) continue;
@@ -72,7 +74,7 @@ describe('inscribed width (the widest stroke, for weeding)', () => {
   it('when measuring letters and outlines of real names, then the fast search returns exactly the straightforward result', () => {
     for (const [text, fontId, h] of [['Bartholomew', 'dancing-script-bold', 30], ['Łukasz', 'baloo-bold', 40], ['AVATAR', 'bangers', 12], ['Zoë', 'bitter-bold', 60]] as const) {
       const l = layoutText(reg, { text, fontId, letterHeightMm: h });
-      const outline = compose(reg, { blank: defaultBlank('tote')!, fields: [{ kind: 'text', id: 'n', fontId, letterHeightMm: h, materialKind: 'smooth', colour: '#000000', outline: { offsetMm: 3, materialKind: 'smooth', colour: '#ffffff' } }], choices: { n: { text } } }).pieces[0].path;
+      const outline = at(compose(reg, { blank: defaultBlank('tote')!, fields: [{ kind: 'text', id: 'n', fontId, letterHeightMm: h, materialKind: 'smooth', colour: '#000000', outline: { offsetMm: 3, materialKind: 'smooth', colour: '#ffffff' } }], choices: { n: { text } } }).pieces, 0).path;
       for (const d of [l.path, outline]) {
         for (const r of regionsOf(d)) {
           expect(inscribedWidth([r.outer, ...r.holes])).toBe(referenceInscribedWidth([r.outer, ...r.holes]));
@@ -127,11 +129,11 @@ describe('compose weeding modes and caches', () => {
 
   it('when composing the same design twice, then the second result equals the first and owns its objects', () => {
     const a = compose(reg, input('Wilhelmina'));
-    a.pieces[0].bboxMm.minX = -999;
-    a.pieces[0].weeding.reasons.push('changed by the caller');
+    at(a.pieces, 0).bboxMm.minX = -999;
+    at(a.pieces, 0).weeding.reasons.push('changed by the caller');
     const b = compose(reg, input('Wilhelmina'));
-    expect(b.pieces[0].bboxMm.minX).not.toBe(-999);
-    expect(b.pieces[0].weeding.reasons).not.toContain('changed by the caller');
+    expect(at(b.pieces, 0).bboxMm.minX).not.toBe(-999);
+    expect(at(b.pieces, 0).weeding.reasons).not.toContain('changed by the caller');
     for (const p of b.pieces) expect(p.weeding).toEqual(analyseWeeding(p.path)); // as analysing each piece afresh
   });
   it("when composing with 'fast' or 'none', then the geometry is exactly the full compose's and only the weeding differs", () => {
@@ -146,7 +148,7 @@ describe('compose weeding modes and caches', () => {
     expect(full.weeding.analysis).toBeUndefined();
     expect(fast.weeding.analysis).toBe('fast');
     fast.pieces.forEach((p, i) => {
-      const f = full.pieces[i].weeding;
+      const f = at(full.pieces, i).weeding;
       expect(p.weeding.thinStrokeAreaMm2).toBe(0);
       // every measured number is the full report's
       expect({ ...p.weeding, label: f.label, reasons: f.reasons, thinStrokeAreaMm2: f.thinStrokeAreaMm2, analysis: undefined }).toEqual({ ...f, analysis: undefined });

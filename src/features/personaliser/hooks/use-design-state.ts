@@ -7,7 +7,7 @@
 import { useEffect, useMemo, useState } from 'react';
 import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
-import { layersForChoices, priceForChoices, type Choices, type TextField } from '../../../../shared/schemas/listing.ts';
+import { defaultColour, layersForChoices, priceForChoices, type Choices, type TextField } from '../../../../shared/schemas/listing.ts';
 import { blankFor, designInput } from '../lib/design.ts';
 import { loadChoices, saveChoices } from '../lib/saved-choices.ts';
 
@@ -44,7 +44,11 @@ export function useDesignState(listing: ListingPage) {
   const withMotif = (motifId: string | null): ChoicesUpdate => (s) => {
     const layers = p.motifChoices.find((m) => m.motifId === motifId)?.layers ?? [];
     const motifColours: Choices['motifColours'] = {};
-    for (const l of layers) if (l.mode === 'shopper' && l.colourChoices?.length) motifColours[l.layerId] = s.motifColours[l.layerId] && l.colourChoices.includes(s.motifColours[l.layerId]) ? s.motifColours[l.layerId] : l.colourChoices[0];
+    for (const l of layers) {
+      if (l.mode !== 'shopper' || !l.colourChoices?.length) continue;
+      const saved = s.motifColours[l.layerId];
+      motifColours[l.layerId] = saved && l.colourChoices.includes(saved) ? saved : defaultColour(l.colourChoices);
+    }
     return { ...s, motifId, motifColours };
   };
 

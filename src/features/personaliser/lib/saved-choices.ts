@@ -3,19 +3,19 @@
  * add-to-cart) loses nothing. Read back through the shared choices schema and the listing's own
  * options: a font or colour the listing no longer offers falls back to its default.
  */
-import { choicesSchema, type Choices, type Personalisation } from '../../../../shared/schemas/listing.ts';
+import { choicesSchema, defaultColour, type Choices, type Personalisation } from '../../../../shared/schemas/listing.ts';
 
 const key = (listingId: string) => `namesake.personalise.${listingId}`;
 
 export function defaultChoices(p: Personalisation): Choices {
   return {
     texts: Object.fromEntries(p.textFields.map((f) => [f.id, { text: '', fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm }])),
-    textColours: Object.fromEntries(p.textFields.map((f) => [f.id, f.colourChoices[0]])),
+    textColours: Object.fromEntries(p.textFields.map((f) => [f.id, defaultColour(f.colourChoices)])),
     motifId: p.motifChoices[0]?.motifId ?? null,
     motifColours: Object.fromEntries(
-      p.motifChoices.flatMap((m) => (m.motifId === p.motifChoices[0]?.motifId ? m.layers : []).filter((l) => l.mode === 'shopper' && l.colourChoices?.length).map((l) => [l.layerId, l.colourChoices![0]])),
+      p.motifChoices.flatMap((m) => (m.motifId === p.motifChoices[0]?.motifId ? m.layers : []).filter((l) => l.mode === 'shopper' && l.colourChoices?.length).map((l) => [l.layerId, defaultColour(l.colourChoices!)])),
     ),
-    outlineMaterialId: p.outline ? p.outline.colourChoices[0] : null,
+    outlineMaterialId: p.outline ? defaultColour(p.outline.colourChoices) : null,
   };
 }
 
@@ -32,7 +32,10 @@ export function reconcile(p: Personalisation, saved: Choices): Choices {
     };
   }
   const textColours: Choices['textColours'] = {};
-  for (const f of p.textFields) textColours[f.id] = f.colourChoices.includes(saved.textColours[f.id]) ? saved.textColours[f.id] : d.textColours[f.id];
+  for (const f of p.textFields) {
+    const s = saved.textColours[f.id];
+    textColours[f.id] = s !== undefined && f.colourChoices.includes(s) ? s : defaultColour(f.colourChoices);
+  }
   const motif = p.motifChoices.find((m) => m.motifId === saved.motifId);
   const motifId = motif ? motif.motifId : saved.motifId === null && !p.motifRequired ? null : d.motifId;
   const layers = p.motifChoices.find((m) => m.motifId === motifId)?.layers ?? [];
@@ -40,9 +43,9 @@ export function reconcile(p: Personalisation, saved: Choices): Choices {
   for (const l of layers) {
     if (l.mode !== 'shopper' || !l.colourChoices?.length) continue;
     const s = saved.motifColours[l.layerId];
-    motifColours[l.layerId] = s && l.colourChoices.includes(s) ? s : l.colourChoices[0];
+    motifColours[l.layerId] = s && l.colourChoices.includes(s) ? s : defaultColour(l.colourChoices);
   }
-  const outlineMaterialId = p.outline ? (saved.outlineMaterialId && p.outline.colourChoices.includes(saved.outlineMaterialId) ? saved.outlineMaterialId : p.outline.colourChoices[0]) : null;
+  const outlineMaterialId = p.outline ? (saved.outlineMaterialId && p.outline.colourChoices.includes(saved.outlineMaterialId) ? saved.outlineMaterialId : defaultColour(p.outline.colourChoices)) : null;
   return { texts, textColours, motifId, motifColours, outlineMaterialId };
 }
 
