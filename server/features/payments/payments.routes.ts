@@ -15,7 +15,7 @@ export function paymentsWebhookRouter(deps: AppDeps): Router {
       res.status(400).json({ error: { code: 'bad_signature', message: 'Missing signature or body.' } });
       return;
     }
-    let event;
+    let event: ReturnType<typeof verifyWebhook>;
     try {
       event = verifyWebhook(deps.env, req.body, sig, deps.now());
     } catch {

@@ -1,4 +1,4 @@
-import { useEffect, useId, useState } from 'react';
+import { useId, useState } from 'react';
 import { Link, NavLink, useLocation, useNavigate } from 'react-router-dom';
 import type { Me } from '../../../shared/schemas/auth.ts';
 import { useToast } from '../../components/ui/toast.tsx';
@@ -57,8 +57,14 @@ export function SiteHeader() {
   const [open, setOpen] = useState(false);
   const menuId = useId();
 
-  // A tap on a link in the phone menu should close it.
-  useEffect(() => setOpen(false), [location.pathname, location.search]);
+  // A tap on a link in the phone menu should close it: the menu closes whenever the page changes
+  // (state adjusted during render, so the menu never paints open on the new page).
+  const here = `${location.pathname}${location.search}`;
+  const [shownAt, setShownAt] = useState(here);
+  if (shownAt !== here) {
+    setShownAt(here);
+    setOpen(false);
+  }
 
   const items = navItemsFor(me.data);
   const signedIn = Boolean(me.data);

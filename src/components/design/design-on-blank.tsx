@@ -141,6 +141,7 @@ export function DesignPieces({ pieces }: { pieces: ReadonlyArray<{ d: string; co
   return (
     <g>
       {pieces.map((p, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: a frozen snapshot, never reordered or edited; a piece's place in it is its identity (two pieces may share path data)
         <path key={i} d={p.d} fill={safeHex(p.colourHex)} fillRule="nonzero" stroke={INK} strokeOpacity="0.25" strokeWidth="0.3" />
       ))}
     </g>
@@ -168,11 +169,12 @@ export function DesignOnBlank({ blank, label, children, rulers = false, size, fi
   const top = headroomMm(blank.kind, H) + 6;
   const bottom = rulers ? RULER_GAP + 2 * RULER_H + 4 : 8;
   const pa = blank.printArea;
-  const a11y = label ? { role: 'img', 'aria-label': label } : { 'aria-hidden': true };
   return (
     <svg
       viewBox={`-8 ${-top} ${W + 24} ${top + H + bottom}`}
-      {...a11y}
+      role={label ? 'img' : undefined}
+      aria-label={label}
+      aria-hidden={label ? undefined : true}
       width={size}
       height={size}
       preserveAspectRatio="xMidYMid meet"

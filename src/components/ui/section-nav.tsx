@@ -24,6 +24,7 @@ export function SectionNav({ label, links }: { label: string; links: SectionLink
   const currentIndex = links.findIndex((l) => l.current({ pathname, hash }));
 
   useLayoutEffect(() => {
+    if (currentIndex < 0) return;
     const ul = row.current;
     const el = ul?.querySelector<HTMLElement>('[aria-current="page"]');
     if (!ul || !el) return;

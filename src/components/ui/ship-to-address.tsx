@@ -6,6 +6,7 @@ export function ShipToAddress({ shipTo, label }: { shipTo: ShipTo | null; label:
   return (
     <address aria-label={label} data-testid="ship-to" className="text-sm not-italic leading-relaxed">
       {shipToLines(shipTo).map((l, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: the lines of one read-only address in a fixed order; two lines may read the same, so the place is the identity
         <span key={i} className="block">{l}</span>
       ))}
     </address>

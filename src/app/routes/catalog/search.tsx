@@ -63,50 +63,52 @@ export function SearchPage() {
     <div>
       <PageHeading eyebrow="Browse" title={title} lead="Totes, tees, pouches and drawstring bags, personalised by small shops." />
 
-      <form role="search" aria-label="Search listings" onSubmit={submit} className="mb-8 flex flex-col gap-5 rounded-lg border border-line bg-white p-5 shadow-sm">
-        <div className="flex flex-col gap-3 sm:flex-row sm:items-end">
-          <TextField label="Search" type="search" name="q" value={q} onChange={(e) => setQ(e.target.value)} placeholder="tote, rocket, birthday…" className="flex-1" maxLength={100} />
-          <Button type="submit">Search</Button>
-        </div>
-        <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-          <div className="flex flex-col gap-1.5">
-            <label htmlFor={`${selectId}-occasion`} className="font-bold">Occasion</label>
-            <select id={`${selectId}-occasion`} className={selectClass} value={state.occasion} onChange={(e) => update({ occasion: e.target.value as SearchState['occasion'] })}>
-              <option value="">Any occasion</option>
-              {OCCASIONS.map((o) => <option key={o} value={o}>{OCCASION_LABELS[o]}</option>)}
-            </select>
+      <search aria-label="Search listings">
+        <form onSubmit={submit} className="mb-8 flex flex-col gap-5 rounded-lg border border-line bg-white p-5 shadow-sm">
+          <div className="flex flex-col gap-3 sm:flex-row sm:items-end">
+            <TextField label="Search" type="search" name="q" value={q} onChange={(e) => setQ(e.target.value)} placeholder="tote, rocket, birthday…" className="flex-1" maxLength={100} />
+            <Button type="submit">Search</Button>
           </div>
-          <div className="flex flex-col gap-1.5">
-            <label htmlFor={`${selectId}-blank`} className="font-bold">Item</label>
-            <select id={`${selectId}-blank`} className={selectClass} value={state.blank} onChange={(e) => update({ blank: e.target.value as SearchState['blank'] })}>
-              <option value="">Any item</option>
-              {BLANK_KINDS.map((b) => <option key={b} value={b}>{BLANK_DEFAULTS[b].label}</option>)}
-            </select>
+          <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
+            <div className="flex flex-col gap-1.5">
+              <label htmlFor={`${selectId}-occasion`} className="font-bold">Occasion</label>
+              <select id={`${selectId}-occasion`} className={selectClass} value={state.occasion} onChange={(e) => update({ occasion: e.target.value as SearchState['occasion'] })}>
+                <option value="">Any occasion</option>
+                {OCCASIONS.map((o) => <option key={o} value={o}>{OCCASION_LABELS[o]}</option>)}
+              </select>
+            </div>
+            <div className="flex flex-col gap-1.5">
+              <label htmlFor={`${selectId}-blank`} className="font-bold">Item</label>
+              <select id={`${selectId}-blank`} className={selectClass} value={state.blank} onChange={(e) => update({ blank: e.target.value as SearchState['blank'] })}>
+                <option value="">Any item</option>
+                {BLANK_KINDS.map((b) => <option key={b} value={b}>{BLANK_DEFAULTS[b].label}</option>)}
+              </select>
+            </div>
+            <div className="flex flex-col gap-1.5">
+              <label htmlFor={`${selectId}-shop`} className="font-bold">Shop</label>
+              <select id={`${selectId}-shop`} className={selectClass} value={state.shop} onChange={(e) => update({ shop: e.target.value })}>
+                <option value="">Any shop</option>
+                {shops.map(([slug, name]) => <option key={slug} value={slug}>{name}</option>)}
+              </select>
+            </div>
+            <div className="flex flex-col gap-1.5">
+              <label htmlFor={`${selectId}-sort`} className="font-bold">Sort</label>
+              <select id={`${selectId}-sort`} className={selectClass} value={state.sort} onChange={(e) => update({ sort: e.target.value as SearchState['sort'] })}>
+                {Object.entries(SORT_LABELS).map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+              </select>
+            </div>
           </div>
-          <div className="flex flex-col gap-1.5">
-            <label htmlFor={`${selectId}-shop`} className="font-bold">Shop</label>
-            <select id={`${selectId}-shop`} className={selectClass} value={state.shop} onChange={(e) => update({ shop: e.target.value })}>
-              <option value="">Any shop</option>
-              {shops.map(([slug, name]) => <option key={slug} value={slug}>{name}</option>)}
-            </select>
-          </div>
-          <div className="flex flex-col gap-1.5">
-            <label htmlFor={`${selectId}-sort`} className="font-bold">Sort</label>
-            <select id={`${selectId}-sort`} className={selectClass} value={state.sort} onChange={(e) => update({ sort: e.target.value as SearchState['sort'] })}>
-              {Object.entries(SORT_LABELS).map(([v, l]) => <option key={v} value={v}>{l}</option>)}
-            </select>
-          </div>
-        </div>
-        <fieldset className="flex flex-col gap-2">
-          <legend className="mb-1.5 font-bold">Price (USD)</legend>
-          <div className="flex flex-wrap items-end gap-3">
-            <TextField label="From" inputMode="decimal" value={minPrice} onChange={(e) => setMinPrice(e.target.value)} placeholder="0" className="w-28" aria-invalid={invalid === 'minPrice' || !!serverFields?.minPrice || undefined} />
-            <TextField label="To" inputMode="decimal" value={maxPrice} onChange={(e) => setMaxPrice(e.target.value)} placeholder="any" className="w-28" aria-invalid={invalid === 'maxPrice' || !!serverFields?.maxPrice || undefined} />
-            <Button type="submit" variant="secondary">Apply price</Button>
-          </div>
-          {priceError ? <p role="alert" className="text-sm font-semibold text-danger">{priceError}</p> : null}
-        </fieldset>
-      </form>
+          <fieldset className="flex flex-col gap-2">
+            <legend className="mb-1.5 font-bold">Price (USD)</legend>
+            <div className="flex flex-wrap items-end gap-3">
+              <TextField label="From" inputMode="decimal" value={minPrice} onChange={(e) => setMinPrice(e.target.value)} placeholder="0" className="w-28" aria-invalid={invalid === 'minPrice' || !!serverFields?.minPrice || undefined} />
+              <TextField label="To" inputMode="decimal" value={maxPrice} onChange={(e) => setMaxPrice(e.target.value)} placeholder="any" className="w-28" aria-invalid={invalid === 'maxPrice' || !!serverFields?.maxPrice || undefined} />
+              <Button type="submit" variant="secondary">Apply price</Button>
+            </div>
+            {priceError ? <p role="alert" className="text-sm font-semibold text-danger">{priceError}</p> : null}
+          </fieldset>
+        </form>
+      </search>
 
       <div aria-live="polite" className="mb-4 text-ink-soft">
         {list.data ? `${list.data.total} ${list.data.total === 1 ? 'listing' : 'listings'}${pages > 1 ? ` · page ${state.page} of ${pages}` : ''}` : null}

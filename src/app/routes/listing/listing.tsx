@@ -32,7 +32,7 @@ export function ListingPage() {
       <div className="grid gap-8 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="flex flex-col gap-3">
           {current ? (
-            <img src={current.url} alt={`${c.title}, photo ${photo + 1} of ${l.photos.length}`} width={current.width} height={current.height} className="aspect-[4/3] w-full rounded-lg border border-line bg-white object-cover" />
+            <img src={current.url} alt={`${c.title}, ${photo + 1} of ${l.photos.length}`} width={current.width} height={current.height} className="aspect-[4/3] w-full rounded-lg border border-line bg-white object-cover" />
           ) : (
             <div className="flex aspect-[4/3] items-center justify-center rounded-lg border-2 border-dashed border-line bg-paper-deep text-ink-soft">No photos yet — the preview below is drawn to scale.</div>
           )}

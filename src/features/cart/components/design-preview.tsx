@@ -18,6 +18,7 @@ export function PersonalisationSummary({ snapshot }: { snapshot: LineSnapshot })
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5 text-sm">
       {snapshot.summary.map((s, i) => (
+        // biome-ignore lint/suspicious/noArrayIndexKey: a frozen snapshot's summary, never reordered; labels are the seller's words and may repeat, so the place is the identity
         <div key={i} className="contents">
           <dt className="text-ink-soft">{s.label}</dt>
           <dd className="font-semibold break-all text-ink">{s.value}</dd>

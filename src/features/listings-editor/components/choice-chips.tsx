@@ -7,18 +7,17 @@ const chip = (on: boolean) =>
   'flex min-h-11 items-center gap-2 rounded-lg border-2 px-3 py-1.5 text-left text-sm font-bold transition-colors ' +
   (on ? 'border-thread bg-thread-wash text-thread-deep' : 'border-line bg-white text-ink hover:border-ink');
 
-/** A group of toggle chips (aria-pressed) for picking several of a list. */
+/** A group of toggle chips (aria-pressed) for picking several of a list, named by its legend. */
 function ChipGroup({ label, hint, error, children }: { label: string; hint?: string; error?: string; children: React.ReactNode }) {
   const id = useId();
   return (
-    <div role="group" aria-labelledby={`${id}-l`} aria-describedby={error ? `${id}-e` : undefined} className="flex flex-col gap-1.5">
-      <span id={`${id}-l`} className="font-bold">
-        {label}
-      </span>
+    <fieldset aria-describedby={error ? `${id}-e` : undefined} className="flex min-w-0 flex-col gap-1.5">
+      {/* a rendered legend sits outside the flex flow, so its margin stands in for the gap */}
+      <legend className="mb-1.5 font-bold">{label}</legend>
       {hint ? <span className="text-sm text-ink-soft">{hint}</span> : null}
       <div className="flex flex-wrap gap-2">{children}</div>
       <FieldError id={`${id}-e`} message={error} />
-    </div>
+    </fieldset>
   );
 }
 

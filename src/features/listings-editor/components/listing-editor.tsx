@@ -72,7 +72,7 @@ function readDraft(id: string | undefined): ListingInput | null {
     return null;
   }
 }
-function writeDraft(id: string | undefined, values: ListingInput) {
+function writeDraft(id: string | undefined, values: unknown) {
   try {
     window.localStorage.setItem(draftKey(id), JSON.stringify(values, (_k, v) => (typeof v === 'number' && Number.isNaN(v) ? '__NaN__' : v)));
   } catch {
@@ -117,15 +117,16 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
   const values = useWatch({ control });
   const baseline = useRef<string>(JSON.stringify(serverValues));
   const finished = useRef(false);
+  // 300 ms after the last change: any change sooner re-runs this and cancels the timer, so `values`
+  // is the newest state when it fires
   useEffect(() => {
     const t = window.setTimeout(() => {
       if (finished.current) return;
-      const now = getValues();
-      if (JSON.stringify(now) === baseline.current) clearDraft(id);
-      else writeDraft(id, now);
+      if (JSON.stringify(values) === baseline.current) clearDraft(id);
+      else writeDraft(id, values);
     }, 300);
     return () => window.clearTimeout(t);
-  }, [values, id, getValues]);
+  }, [values, id]);
 
   const blankKind = useWatch({ control, name: 'blank.kind' }) as BlankKind;
   const blank = useWatch({ control, name: 'blank' });

@@ -54,7 +54,7 @@ function TextFieldsEditor({ control, register, errors, fonts, materials }: Props
         const fe = e?.[i];
         const allowed = tf[i]?.fontIds ?? [];
         return (
-          <div key={f.id} className="flex flex-col gap-4 rounded-lg bg-paper p-4" aria-label={`Text field ${i + 1}`} role="group">
+          <fieldset key={f.id} className="flex min-w-0 flex-col gap-4 rounded-lg bg-paper p-4" aria-label={`Text field ${i + 1}`}>
             <div className="flex items-center justify-between gap-3">
               <h3 className="font-extrabold">Text field {i + 1}</h3>
               <Button variant="quiet" onClick={() => remove(i)}>
@@ -110,7 +110,7 @@ function TextFieldsEditor({ control, register, errors, fonts, materials }: Props
               )}
             />
             <CheckboxField label="The shopper must fill this in" {...register(`personalisation.textFields.${i}.required`)} />
-          </div>
+          </fieldset>
         );
       })}
       <FieldError message={msg(e)} />
@@ -160,7 +160,7 @@ function MotifsEditor({ control, register, errors, materials, motifs, MotifPrevi
           if (l?.layerId && h) colours[l.layerId] = h;
         }
         return (
-          <div key={f.id} role="group" aria-label={`Motif ${i + 1}`} className="flex flex-col gap-4 rounded-lg bg-paper p-4">
+          <fieldset key={f.id} aria-label={`Motif ${i + 1}`} className="flex min-w-0 flex-col gap-4 rounded-lg bg-paper p-4">
             <div className="flex items-center justify-between gap-3">
               <h3 className="font-extrabold">{motif?.name ?? 'Motif'}</h3>
               <Button variant="quiet" onClick={() => remove(i)}>
@@ -212,7 +212,7 @@ function MotifsEditor({ control, register, errors, materials, motifs, MotifPrevi
               })}
             </ol>
             <FieldError message={msg(me?.layers)} />
-          </div>
+          </fieldset>
         );
       })}
       <FieldError message={msg(e)} />

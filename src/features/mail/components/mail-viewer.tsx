@@ -37,7 +37,7 @@ export function MailViewer({ id }: { id: string | null }) {
         </dl>
       </header>
       {hasHtml ? (
-        <div role="group" aria-label="Show as" className="flex gap-2">
+        <fieldset aria-label="Show as" className="flex gap-2">
           {(['html', 'text'] as const).map((v) => (
             <button
               key={v}
@@ -49,7 +49,7 @@ export function MailViewer({ id }: { id: string | null }) {
               {v === 'html' ? 'Formatted' : 'Plain text'}
             </button>
           ))}
-        </div>
+        </fieldset>
       ) : null}
       {shown === 'html' && m.html ? (
         <iframe title={`Message: ${m.subject}`} sandbox="" srcDoc={m.html} referrerPolicy="no-referrer" className="h-[32rem] w-full rounded-lg border border-line bg-white" />

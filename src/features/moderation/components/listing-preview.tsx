@@ -35,12 +35,12 @@ export function ListingPreview({ page }: { page: ListingPage }) {
         <div className="flex flex-col gap-2">
           {page.photos.length > 0 ? (
             <>
-              <img src={page.photos[0]!.url} alt={`${c.title}, photo 1`} className="aspect-square w-full rounded-lg bg-paper-deep object-cover" />
+              <img src={page.photos[0]!.url} alt={`${c.title}, 1 of ${page.photos.length}`} className="aspect-square w-full rounded-lg bg-paper-deep object-cover" />
               {page.photos.length > 1 ? (
                 <ul className="grid grid-cols-4 gap-2">
                   {page.photos.slice(1).map((p, i) => (
                     <li key={p.id}>
-                      <img src={p.thumbnailUrl} alt={`${c.title}, photo ${i + 2}`} className="aspect-square w-full rounded-md object-cover" />
+                      <img src={p.thumbnailUrl} alt={`${c.title}, ${i + 2} of ${page.photos.length}`} className="aspect-square w-full rounded-md object-cover" />
                     </li>
                   ))}
                 </ul>

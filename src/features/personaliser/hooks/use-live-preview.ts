@@ -63,6 +63,7 @@ export function useLivePreview(input: ComposeInput | null, fonts: FontInfo[] | u
   const fullNow: ComposeResult | null = full && full.id === requestId && full.ok && engine?.client.current === requestId ? full : null;
 
   // keystroke → painted: measured from the first input not yet on screen to the frame after it
+  // biome-ignore lint/correctness/useExhaustiveDependencies: `placement` is the trigger, not an input: this runs once each new placement is committed, which is the frame being timed
   useLayoutEffect(() => {
     if (inputStart.current === null) return;
     const start = inputStart.current;

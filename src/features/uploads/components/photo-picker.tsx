@@ -5,6 +5,7 @@ import { usePhotos } from '../api/get-photos.ts';
 import { useUploadPhoto } from '../api/upload-photo.ts';
 
 type Pending = { key: number; name: string; progress: number | null };
+type Refusal = { key: number; name: string; message: string };
 
 /**
  * The listing's photos (ids, in order; the first is the thumbnail). New files upload one by one
@@ -14,7 +15,7 @@ export function PhotoPicker({ value, onChange, max = 8, error }: { value: string
   const photos = usePhotos();
   const uploadPhoto = useUploadPhoto();
   const [pending, setPending] = useState<Pending[]>([]);
-  const [refused, setRefused] = useState<{ name: string; message: string }[]>([]);
+  const [refused, setRefused] = useState<Refusal[]>([]);
   const [showLibrary, setShowLibrary] = useState(false);
   const input = useRef<HTMLInputElement>(null);
   const nextKey = useRef(1);
@@ -29,7 +30,7 @@ export function PhotoPicker({ value, onChange, max = 8, error }: { value: string
     if (!files) return;
     setRefused([]);
     const list = [...files].slice(0, Math.max(0, room));
-    if (files.length > list.length) setRefused([{ name: `${files.length - list.length} file(s)`, message: `A listing has at most ${max} photos.` }]);
+    if (files.length > list.length) setRefused([{ key: nextKey.current++, name: `${files.length - list.length} file(s)`, message: `A listing has at most ${max} photos.` }]);
     for (const file of list) {
       const key = nextKey.current++;
       setPending((p) => [...p, { key, name: file.name, progress: 0 }]);
@@ -37,7 +38,7 @@ export function PhotoPicker({ value, onChange, max = 8, error }: { value: string
         const up = await uploadPhoto.mutateAsync({ file, onProgress: (f) => setPending((p) => p.map((x) => (x.key === key ? { ...x, progress: f } : x))) });
         onChange([...current.current, up.id]);
       } catch (err) {
-        setRefused((r) => [...r, { name: file.name, message: isApiError(err) ? err.message : 'The upload failed.' }]);
+        setRefused((r) => [...r, { key, name: file.name, message: isApiError(err) ? err.message : 'The upload failed.' }]);
       } finally {
         setPending((p) => p.filter((x) => x.key !== key));
       }
@@ -63,8 +64,9 @@ export function PhotoPicker({ value, onChange, max = 8, error }: { value: string
             const p = byId.get(id);
             return (
               <li key={id} className="flex flex-col gap-1.5 rounded-lg border border-line bg-paper p-2">
+                {/* the caption below names the photo, so the thumbnail itself carries no second name */}
                 <div className="aspect-square overflow-hidden rounded-md bg-paper-deep">
-                  {p ? <img src={p.thumbnailUrl} alt={`Photo ${i + 1}`} className="size-full object-cover" /> : <span className="p-2 text-sm text-ink-faint">Photo {i + 1}</span>}
+                  {p ? <img src={p.thumbnailUrl} alt="" className="size-full object-cover" /> : <span className="p-2 text-sm text-ink-faint">Photo {i + 1}</span>}
                 </div>
                 <span className="text-sm font-bold">{i === 0 ? 'Photo 1 · thumbnail' : `Photo ${i + 1}`}</span>
                 <span className="flex flex-wrap gap-1">
@@ -106,8 +108,8 @@ export function PhotoPicker({ value, onChange, max = 8, error }: { value: string
             className="min-h-11 max-w-full text-base file:mr-3 file:min-h-11 file:rounded-lg file:border-2 file:border-thread file:bg-paper file:px-4 file:font-bold file:text-thread-deep"
           />
         </label>
-        {refused.map((r, i) => (
-          <p key={i} role="alert" className="text-sm font-semibold text-danger">
+        {refused.map((r) => (
+          <p key={r.key} role="alert" className="text-sm font-semibold text-danger">
             {r.name}: {r.message}
           </p>
         ))}

@@ -19,6 +19,7 @@ export function LetterByLetter({ text }: { text: ProofText }) {
           const invisible = c.name !== null && /space|joiner|tab/.test(c.name);
           return (
             <li
+              // biome-ignore lint/suspicious/noArrayIndexKey: the place in the typed text is each character's identity; a letter may repeat
               key={i}
               className={`flex min-w-12 flex-col items-center rounded-lg border-2 px-2 py-1 ${c.ascii ? 'border-line bg-white' : 'border-marigold bg-marigold-wash'}`}
               title={c.name ?? undefined}

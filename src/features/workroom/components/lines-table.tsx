@@ -13,7 +13,9 @@ import { MaterialChips } from './material-chips.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipByCell, type ShipByLookup } from '../../../components/ui/ship-by-cell.tsx';
 
-const col = createColumnHelper<WorkLine>();
+/** a line with its ship-by sort key beside it, so the table sorts on data it holds */
+type Row = WorkLine & { shipByKey: string };
+const col = createColumnHelper<Row>();
 
 const selectClass = 'min-h-11 w-full rounded-lg border-2 border-field bg-white px-3 py-2 text-base hover:border-ink';
 
@@ -73,7 +75,7 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
         ),
       }),
       col.accessor('paidAt', { header: 'Paid', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span> }),
-      col.accessor((r) => shipBy.sortKey(r.id), { id: 'shipBy', header: 'Ship by', cell: (c) => <ShipByCell info={shipBy.get(c.row.original.id)} /> }),
+      col.accessor('shipByKey', { id: 'shipBy', header: 'Ship by', cell: (c) => <ShipByCell info={shipBy.get(c.row.original.id)} /> }),
       col.accessor('listingTitle', { header: 'Listing' }),
       col.accessor('text', {
         header: 'Personalisation',
@@ -99,8 +101,9 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
     [shipBy],
   );
 
-  // a fresh array when the ship-by marks arrive, so the table re-reads the ship-by sort key
-  const data = useMemo(() => [...lines], [lines, shipBy]);
+  // the table caches each row's sort values, so the ship-by key goes into the rows themselves:
+  // fresh rows when the ship-by marks arrive
+  const data = useMemo<Row[]>(() => lines.map((l) => ({ ...l, shipByKey: shipBy.sortKey(l.id) })), [lines, shipBy]);
   const table = useReactTable({
     data,
     columns,

@@ -21,6 +21,7 @@ export function PressCardView({ card }: { card: PressCard }) {
       ) : null}
       <ol className="flex flex-col gap-1.5">
         {card.steps.map((s, i) => (
+          // biome-ignore lint/suspicious/noArrayIndexKey: the steps are one fixed procedure and the place is the step number shown; a step may repeat
           <li key={i} className="grid grid-cols-[7rem_1fr] gap-2 text-sm">
             <span className="font-bold">{i + 1}. {kindWords[s.kind] ?? s.kind}</span>
             <span>
