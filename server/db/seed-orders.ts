@@ -120,7 +120,7 @@ async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: 
         motifColours: Object.fromEntries(Object.entries(item.motifColours ?? {}).map(([layer, name]) => [layer, mat(name)])),
         outlineMaterialId: null,
       };
-      addLine(at(paidAt - 300_000), cart, { listingId: listing.id, quantity: item.quantity ?? 1, choices });
+      await addLine(at(paidAt - 300_000), cart, { listingId: listing.id, quantity: item.quantity ?? 1, choices });
       wanted.push({ listingId: listing.id, name: item.name, approved: item.approved });
     }
     const started = await openCheckout(at(paidAt - 120_000), cartRepo.find(db, cart.id)!, { id: buyerId, email: buyer.email });
