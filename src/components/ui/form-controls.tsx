@@ -1,5 +1,6 @@
 import { formatMoney, minorDigits, parseMajor } from '../../../shared/money.ts';
-import { useId, useState, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+import { useId, useState, type FormEventHandler, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+import { Button } from './button.tsx';
 
 /** Field pieces that match TextField: label, hint and error linked with aria-describedby. */
 
@@ -136,6 +137,18 @@ export function ProgressBar({ value, label }: { value: number | null; label: str
         <div className={`h-full rounded-full bg-thread transition-[width] ${pct === null ? 'w-1/3 animate-pulse' : ''}`} style={pct === null ? undefined : { width: `${pct}%` }} />
       </div>
     </div>
+  );
+}
+
+/** A one-column form: its fields, then the submit button, which shows `pendingLabel` while `pending`. */
+export function SubmitForm({ onSubmit, pending, pendingLabel, submitLabel, children }: { onSubmit: FormEventHandler<HTMLFormElement>; pending: boolean; pendingLabel: string; submitLabel: string; children: ReactNode }) {
+  return (
+    <form noValidate onSubmit={onSubmit} className="flex flex-col gap-5">
+      {children}
+      <Button type="submit" pending={pending} pendingLabel={pendingLabel} className="w-full sm:w-auto sm:self-start">
+        {submitLabel}
+      </Button>
+    </form>
   );
 }
 
