@@ -7,7 +7,8 @@ import { applyServerErrors } from './form-errors.ts';
 /**
  * A form checked in the browser by the zod schema the API uses, whose submit runs `submit`. When the
  * server refuses, each of its messages about one of `fields` goes next to that input; any other
- * refusal shows in a toast. Returns react-hook-form's form and `onSubmit` for the <form>.
+ * refusal shows in a toast. Returns react-hook-form's form, `onSubmit` for the <form>, and
+ * `formProps` (that and whether the submit is running) for SubmitForm.
  */
 export function useServerForm<T extends FieldValues>({
   schema,
@@ -30,5 +31,5 @@ export function useServerForm<T extends FieldValues>({
       if (message) toast.error(message);
     }
   });
-  return { ...form, onSubmit };
+  return { ...form, onSubmit, formProps: { onSubmit, pending: form.formState.isSubmitting } };
 }

@@ -1,8 +1,8 @@
 import { useCallback, useState } from 'react';
 import type { SellerListing } from '../../../../shared/schemas/listing.ts';
 import { ButtonLink } from '../../../components/ui/button.tsx';
-import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
-import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { PageHeading } from '../../../components/ui/card.tsx';
+import { PagedResults, usePageParam } from '../../../components/ui/pager.tsx';
 import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -41,21 +41,24 @@ export function SellerListingsPage() {
         New listing
       </ButtonLink>
       <QueryBoundary query={listings} loading="Loading listings…">
-        {(data) =>
-          data.total === 0 ? (
-            <StitchedBox>
-              <p className="font-bold">No listings yet.</p>
-              <p className="text-ink-soft">Start with a blank, a name field and the colours you stock.</p>
-            </StitchedBox>
-          ) : (
-            <div className="flex flex-col gap-4">
-              <div className={listings.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>
-                <ListingsTable listings={data.items} editHref={paths.seller.editListing.getHref} onAction={onAction} busyId={busyId} />
-              </div>
-              <Pager page={page} total={data.total} limit={data.limit} label="Listing pages" noun="listings" onPageChange={setPage} />
-            </div>
-          )
-        }
+        {(data) => (
+          <PagedResults
+            data={data}
+            stale={listings.isPlaceholderData}
+            page={page}
+            onPageChange={setPage}
+            label="Listing pages"
+            noun="listings"
+            empty={
+              <>
+                <p className="font-bold">No listings yet.</p>
+                <p className="text-ink-soft">Start with a blank, a name field and the colours you stock.</p>
+              </>
+            }
+          >
+            <ListingsTable listings={data.items} editHref={paths.seller.editListing.getHref} onAction={onAction} busyId={busyId} />
+          </PagedResults>
+        )}
       </QueryBoundary>
     </div>
   );

@@ -1,8 +1,8 @@
 import { useCallback, useState } from 'react';
 import type { Material } from '../../../../shared/schemas/material.ts';
 import { Button } from '../../../components/ui/button.tsx';
-import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
-import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { PageHeading } from '../../../components/ui/card.tsx';
+import { PagedResults, usePageParam } from '../../../components/ui/pager.tsx';
 import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useMaterials } from '../../../features/materials/api/get-materials.ts';
@@ -47,21 +47,24 @@ export function MaterialsPage() {
         </Button>
       )}
       <QueryBoundary query={materials} loading="Loading materials…">
-        {(data) =>
-          data.total === 0 ? (
-            <StitchedBox>
-              <p className="font-bold">No materials yet.</p>
-              <p className="text-ink-soft">Add the vinyl you cut from; listings offer these as colour choices.</p>
-            </StitchedBox>
-          ) : (
-            <div className="flex flex-col gap-4">
-              <div className={materials.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>
-                <MaterialsTable materials={data.items} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
-              </div>
-              <Pager page={page} total={data.total} limit={data.limit} label="Material pages" noun="materials" onPageChange={setPage} />
-            </div>
-          )
-        }
+        {(data) => (
+          <PagedResults
+            data={data}
+            stale={materials.isPlaceholderData}
+            page={page}
+            onPageChange={setPage}
+            label="Material pages"
+            noun="materials"
+            empty={
+              <>
+                <p className="font-bold">No materials yet.</p>
+                <p className="text-ink-soft">Add the vinyl you cut from; listings offer these as colour choices.</p>
+              </>
+            }
+          >
+            <MaterialsTable materials={data.items} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
+          </PagedResults>
+        )}
       </QueryBoundary>
     </div>
   );

@@ -1,12 +1,12 @@
 import { requestResetSchema } from '../../../../shared/schemas/auth.ts';
 import { SubmitForm } from '../../../components/ui/form-controls.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
 import { useServerForm } from '../../../lib/use-server-form.ts';
 import { useRequestPasswordReset } from '../api/request-password-reset.ts';
+import { EmailField } from './account-fields.tsx';
 
 export function ForgotPasswordForm() {
   const request = useRequestPasswordReset();
-  const { register, onSubmit, formState, getValues } = useServerForm({
+  const { register, formProps, formState, getValues } = useServerForm({
     schema: requestResetSchema,
     defaultValues: { email: '' },
     fields: ['email'],
@@ -29,8 +29,8 @@ export function ForgotPasswordForm() {
   }
 
   return (
-    <SubmitForm onSubmit={onSubmit} pending={formState.isSubmitting || request.isPending} pendingLabel="Sending…" submitLabel="Send reset link">
-      <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={formState.errors.email?.message} {...register('email')} />
+    <SubmitForm {...formProps} pendingLabel="Sending…" submitLabel="Send reset link">
+      <EmailField error={formState.errors.email?.message} {...register('email')} />
     </SubmitForm>
   );
 }

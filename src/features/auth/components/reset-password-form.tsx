@@ -2,11 +2,11 @@ import { resetPasswordSchema } from '../../../../shared/schemas/auth.ts';
 import { SubmitForm } from '../../../components/ui/form-controls.tsx';
 import { useServerForm } from '../../../lib/use-server-form.ts';
 import { useResetPassword } from '../api/reset-password.ts';
-import { NewPasswordField } from './new-password-field.tsx';
+import { NewPasswordField } from './account-fields.tsx';
 
 export function ResetPasswordForm({ token, onDone }: { token: string; onDone: () => void }) {
   const reset = useResetPassword();
-  const { register, onSubmit, formState } = useServerForm({
+  const { register, formProps, formState } = useServerForm({
     schema: resetPasswordSchema,
     defaultValues: { token, newPassword: '' },
     fields: ['newPassword'],
@@ -24,7 +24,7 @@ export function ResetPasswordForm({ token, onDone }: { token: string; onDone: ()
   });
 
   return (
-    <SubmitForm onSubmit={onSubmit} pending={formState.isSubmitting || reset.isPending} pendingLabel="Saving…" submitLabel="Save new password">
+    <SubmitForm {...formProps} pendingLabel="Saving…" submitLabel="Save new password">
       <input type="hidden" {...register('token')} />
       {formState.errors.token?.message ? (
         <p role="alert" className="font-semibold text-danger">

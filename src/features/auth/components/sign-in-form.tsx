@@ -3,6 +3,7 @@ import { SubmitForm } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useServerForm } from '../../../lib/use-server-form.ts';
 import { useSignIn } from '../api/sign-in.ts';
+import { EmailField } from './account-fields.tsx';
 
 export type DemoAccount = { email: string; role: string; label: string };
 
@@ -14,7 +15,7 @@ type Props = {
 
 export function SignInForm({ onSignedIn, demoPassword, demoAccounts }: Props) {
   const signIn = useSignIn();
-  const { register, onSubmit, setValue, formState } = useServerForm({
+  const { register, formProps, setValue, formState } = useServerForm({
     schema: signInSchema,
     defaultValues: { email: '', password: '' },
     fields: ['email', 'password'],
@@ -26,8 +27,8 @@ export function SignInForm({ onSignedIn, demoPassword, demoAccounts }: Props) {
 
   return (
     <div className="flex flex-col gap-8">
-      <SubmitForm onSubmit={onSubmit} pending={formState.isSubmitting || signIn.isPending} pendingLabel="Signing in…" submitLabel="Sign in">
-        <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={formState.errors.email?.message} {...register('email')} />
+      <SubmitForm {...formProps} pendingLabel="Signing in…" submitLabel="Sign in">
+        <EmailField error={formState.errors.email?.message} {...register('email')} />
         <TextField label="Password" type="password" autoComplete="current-password" error={formState.errors.password?.message} {...register('password')} />
       </SubmitForm>
 

@@ -3,11 +3,11 @@ import { SubmitForm } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useServerForm } from '../../../lib/use-server-form.ts';
 import { useSignUp } from '../api/sign-up.ts';
-import { NewPasswordField } from './new-password-field.tsx';
+import { EmailField, NewPasswordField } from './account-fields.tsx';
 
 export function SignUpForm({ onSignedUp }: { onSignedUp: (name: string) => void }) {
   const signUp = useSignUp();
-  const { register, onSubmit, formState } = useServerForm({
+  const { register, formProps, formState } = useServerForm({
     schema: signUpSchema,
     defaultValues: { name: '', email: '', password: '' },
     fields: ['name', 'email', 'password'],
@@ -18,9 +18,9 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: (name: string) => void 
   });
 
   return (
-    <SubmitForm onSubmit={onSubmit} pending={formState.isSubmitting || signUp.isPending} pendingLabel="Creating your account…" submitLabel="Create account">
+    <SubmitForm {...formProps} pendingLabel="Creating your account…" submitLabel="Create account">
       <TextField label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register('name')} />
-      <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={formState.errors.email?.message} {...register('email')} />
+      <EmailField error={formState.errors.email?.message} {...register('email')} />
       <NewPasswordField label="Password" error={formState.errors.password?.message} {...register('password')} />
     </SubmitForm>
   );

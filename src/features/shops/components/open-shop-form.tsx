@@ -6,7 +6,7 @@ import { useCreateShop, type CreatedShop } from '../api/create-shop.ts';
 
 export function OpenShopForm({ onOpened }: { onOpened: (shop: CreatedShop) => void | Promise<void> }) {
   const createShop = useCreateShop();
-  const { register, onSubmit, formState } = useServerForm({
+  const { register, formProps, formState } = useServerForm({
     schema: openShopSchema,
     defaultValues: { name: '' },
     fields: ['name'],
@@ -17,7 +17,7 @@ export function OpenShopForm({ onOpened }: { onOpened: (shop: CreatedShop) => vo
   });
 
   return (
-    <SubmitForm onSubmit={onSubmit} pending={formState.isSubmitting || createShop.isPending} pendingLabel="Opening your shop…" submitLabel="Open my shop">
+    <SubmitForm {...formProps} pendingLabel="Opening your shop…" submitLabel="Open my shop">
       <TextField
         label="Shop name"
         hint="Shown on your listings and your shop page. Your shop's web address is made from it."
