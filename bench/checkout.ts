@@ -22,31 +22,13 @@ import { startMailFake } from '../fakes/mail/server.ts';
 import { listMailIds } from '../fakes/mail/store.ts';
 import { startStripeFake } from '../fakes/stripe/server.ts';
 import { defaultPressProfile } from '../shared/engine/press-defaults.ts';
+import { cookieClient } from '../scripts/lib/cookie-client.ts';
 
 const SHOPPERS = Number(process.env.BENCH_CHECKOUTS ?? 50);
 const PASSWORD = 'bench-password-not-secret';
 const SECRET = 'whsec_bench_checkout';
 const KEY = 'sk_test_bench_checkout';
 const NAMES = ['Mira', 'Theo', 'Anouk', 'Kai', 'Priya', 'Leon', 'Zoë', 'Bartholomew'];
-
-/** fetch with a cookie jar per shopper (the session cookie from sign-in) */
-function client(base: string, origin: string) {
-  const jar = new Map<string, string>();
-  return async (p: string, init: { method?: string; body?: unknown } = {}) => {
-    const res = await fetch(base + p, {
-      method: init.method ?? (init.body === undefined ? 'GET' : 'POST'),
-      headers: { origin, cookie: [...jar].map(([k, v]) => `${k}=${v}`).join('; '), ...(init.body === undefined ? {} : { 'content-type': 'application/json' }) },
-      body: init.body === undefined ? undefined : JSON.stringify(init.body),
-    });
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const i = pair!.indexOf('=');
-      jar.set(pair!.slice(0, i), pair!.slice(i + 1));
-    }
-    const text = await res.text();
-    return { status: res.status, body: text ? (JSON.parse(text) as Record<string, any>) : {} }; // eslint-disable-line @typescript-eslint/no-explicit-any
-  };
-}
 
 export async function run(): Promise<void> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-bench-checkout-'));
@@ -111,7 +93,7 @@ export async function run(): Promise<void> {
       Array.from({ length: SHOPPERS }, async (_, i) => {
         const email = `bench-shopper-${i}@namesake.test`;
         await auth.api.signUpEmail({ body: { email, password: PASSWORD, name: `Shopper ${i}` } });
-        const c = client(base, env.baseUrl);
+        const c = cookieClient(base, env.baseUrl);
         const r = await c('/api/auth/sign-in/email', { body: { email, password: PASSWORD } });
         if (r.status !== 200) throw new Error(`sign-in ${i}: ${r.status} ${JSON.stringify(r.body)}`);
         return c;

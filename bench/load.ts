@@ -14,14 +14,13 @@
  * addresses, so each layout request carries its own X-Forwarded-For from a pool of 10 000 (the app
  * trusts that header from loopback only); a 429 still counts as an error if one shows up.
  */
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 // @ts-expect-error autocannon ships no type declarations; the few calls used are typed below
 import autocannonUntyped from 'autocannon';
+import { buildClientIfMissing, freePort, startTsProcess, stopProcess, waitUntilUp } from '../scripts/lib/server-process.ts';
 
 type AcRequest = { method?: string; path?: string; headers?: Record<string, string>; body?: string };
 type AcRequestStep = AcRequest & {
@@ -38,31 +37,6 @@ const SECONDS = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
 const SHOPPERS = 20;
 const PASSWORD = 'bench-load-password-1';
 const NAMES = ['Mira', 'Theo', 'Anouk', 'Kai', 'Priya', 'Leon', 'Zoë', 'Bartholomew'];
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
-
-async function waitUp(url: string, child: ChildProcess, log: string[]): Promise<void> {
-  const until = Date.now() + 120_000;
-  for (;;) {
-    if (child.exitCode !== null) throw new Error(`the server exited during start-up:\n${log.join('')}`);
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      /* not up yet */
-    }
-    if (Date.now() > until) throw new Error(`the server did not start:\n${log.join('')}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 
 /** fetch with a cookie jar; returns the jar's Cookie header after the call */
 async function signedInCookie(base: string, i: number): Promise<string> {
@@ -84,40 +58,28 @@ function pct(sorted: number[], p: number): number {
 type Stats = { kind: string; ms: number[]; byStatus: Map<number, number> };
 
 export async function run(): Promise<void> {
-  if (!fs.existsSync(path.join(root, 'dist/index.html'))) {
-    console.log('building the client (vite build) …');
-    const b = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
-    if (b.status !== 0) throw new Error('vite build failed');
-  }
+  buildClientIfMissing();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-bench-load-'));
   const port = await freePort();
   const base = `http://localhost:${port}`;
-  const log: string[] = [];
-  // one process (`node --import tsx`), so stopping it stops the server
-  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: root,
-    env: {
-      ...process.env,
-      NODE_ENV: 'production',
-      AUTH_SECRET: crypto.randomBytes(24).toString('hex'),
-      // production settings with the local fakes and their keys, and the demo scenario to drive
-      LOCAL_FAKES: 'true',
-      DEMO_DATA: 'true',
-      DATA_DIR: dataDir,
-      PORT: String(port),
-      BASE_URL: base,
-      CLIENT_DIR: path.join(root, 'dist'),
-      SMTP_PORT: '0',
-      STRIPE_FAKE_PORT: '0',
-      LOG_REQUESTS: 'false',
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
+  const server = startTsProcess('server/index.ts', {
+    ...process.env,
+    NODE_ENV: 'production',
+    AUTH_SECRET: crypto.randomBytes(24).toString('hex'),
+    // production settings with the local fakes and their keys, and the demo scenario to drive
+    LOCAL_FAKES: 'true',
+    DEMO_DATA: 'true',
+    DATA_DIR: dataDir,
+    PORT: String(port),
+    BASE_URL: base,
+    CLIENT_DIR: path.join(root, 'dist'),
+    SMTP_PORT: '0',
+    STRIPE_FAKE_PORT: '0',
+    LOG_REQUESTS: 'false',
   });
-  server.stdout!.on('data', (d: Buffer) => log.push(d.toString()));
-  server.stderr!.on('data', (d: Buffer) => log.push(d.toString()));
 
   try {
-    await waitUp(`${base}/api/health`, server, log);
+    await waitUntilUp(`${base}/api/health`, { server });
     const fox = (await (await fetch(`${base}/api/listings/autumn-fox-tote-with-a-name`)).json()) as {
       id: string;
       content: { personalisation: { textFields: Array<{ id: string; defaultFontId: string; defaultLetterHeightMm: number }>; motifChoices: Array<{ motifId: string }> } };
@@ -224,8 +186,7 @@ export async function run(): Promise<void> {
     console.log(`\nthroughput: ${(allMs.length / seconds).toFixed(0)} req/s; errors: ${failed} of ${allMs.length} (${((100 * failed) / Math.max(1, allMs.length)).toFixed(2)} %)`);
     if (failed > 0) process.exitCode = 1;
   } finally {
-    server.kill('SIGTERM');
-    await new Promise<void>((r) => (server.exitCode !== null ? r() : server.once('exit', () => r())));
+    await stopProcess(server.child);
     fs.rmSync(dataDir, { recursive: true, force: true });
   }
 }

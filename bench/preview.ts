@@ -7,9 +7,9 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import { freePort } from '../scripts/lib/server-process.ts';
 
 export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
@@ -17,17 +17,6 @@ const NAMES = [
   'Mira', 'Theo', 'Anouk', 'Kai', 'Priya', 'Leon', 'Zoë', 'Bartholomew', 'Ada', 'Felix', 'Ines', 'Oskar', 'Maya', 'Jonah', 'Elif',
   'Ravi', 'Lotte', 'Samir', 'Nora', 'Hugo', 'Ayla', 'Emil', 'Freya', 'Tomás', 'Hana', 'Milo', 'Sofia', 'Arlo', 'Juno', 'Wren',
 ];
-
-async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.listen(0, '127.0.0.1', () => {
-      const port = (srv.address() as net.AddressInfo).port;
-      srv.close(() => resolve(port));
-    });
-    srv.on('error', reject);
-  });
-}
 
 /** Minimal cookie-keeping client for the API (Node's fetch keeps no cookies). */
 function apiAgent(base: string) {

@@ -1,6 +1,6 @@
 // Shared Playwright helpers: sign in through the real form, and read captured mail from the
 // mail fake's store (the e2e server's DATA_DIR/mail, see playwright.config.ts).
-import { test as base, expect, type Page } from '@playwright/test';
+import { test as base, expect, type Locator, type Page } from '@playwright/test';
 import path from 'node:path';
 import { listMail, type StoredMail } from '../fakes/mail/store.ts';
 
@@ -31,6 +31,47 @@ export async function waitForMail(to: string, subject: RegExp, since = 0, timeou
     if (Date.now() - start > timeoutMs) throw new Error(`no mail to ${to} matching ${subject} within ${timeoutMs} ms`);
     await new Promise((r) => setTimeout(r, 200));
   }
+}
+
+/**
+ * The parent's two-shop cart of journey 1, from browsing by occasion: the fox tote (Fern & Fable
+ * Goods) personalised with "Mira" — the name adds a layer, so the price goes up; another colour for
+ * it keeps the price — and the rocket tee (Little Comet Print Co.) with "Theo". `press` clicks or
+ * taps a control (the phone spec checks its size first); `check` runs at the search results and at
+ * the personalised listing (the phone spec checks the layout there).
+ */
+export async function addParentCart(
+  page: Page,
+  { press = (target: Locator) => target.click(), check = async () => {} }: { press?: (target: Locator) => Promise<void>; check?: (where: 'search' | 'listing with personaliser') => Promise<void> } = {},
+) {
+  await page.goto('/search?occasion=autumn-harvest');
+  await check('search');
+  await press(page.getByRole('link', { name: /Autumn fox tote with a name/ }).first());
+  await expect(page.getByRole('heading', { level: 1, name: 'Autumn fox tote with a name' })).toBeVisible();
+
+  const form = page.getByRole('form', { name: 'Personalise this item' });
+  const price = page.getByTestId('price');
+  await expect(price).toContainText('$');
+  const motifOnly = await price.textContent();
+  // the name adds a layer of its own colour: the price goes up by the listing's extra-layer price
+  await form.getByLabel('Name', { exact: true }).fill('Mira');
+  await expect(price).not.toHaveText(motifOnly!);
+  const withName = await price.textContent();
+  // another colour for the name (green, not used by the fox): still one more layer, same price
+  await press(form.getByRole('group', { name: 'Name colour' }).locator('label').nth(2));
+  await expect(page.getByTestId('design-preview')).toBeVisible();
+  await expect(price).toHaveText(withName!);
+  await check('listing with personaliser');
+  await press(form.getByRole('button', { name: /Add to cart/ }));
+  await expect(page.getByText(/Added to your cart with “Mira”/)).toBeVisible();
+
+  // a kids' tee from the second shop
+  await page.goto('/search?q=rocket');
+  await press(page.getByRole('link', { name: /Rocket name tee for kids/ }).first());
+  const form2 = page.getByRole('form', { name: 'Personalise this item' });
+  await form2.getByLabel('Name', { exact: true }).fill('Theo');
+  await press(form2.getByRole('button', { name: /Add to cart/ }));
+  await expect(page.getByText(/Added to your cart with “Theo”/)).toBeVisible();
 }
 
 export const test = base;

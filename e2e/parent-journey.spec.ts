@@ -2,40 +2,15 @@
 // browse by occasion, open a tote listing, type a child's name, pick colours, watch the price,
 // add to cart with an item from a second shop, pay with the test card 4242 on the payment page,
 // land on the confirmation, read the e-mail from the mail fake's store, then follow the order.
-import { demo, expect, signIn, test, waitForMail } from './fixtures.ts';
+import { addParentCart, demo, expect, signIn, test, waitForMail } from './fixtures.ts';
 import { fillShipTo } from './api-helpers.ts';
 
 test('a parent orders a named tote and a tee from two shops and pays once', async ({ page }) => {
   const since = Date.now();
   await signIn(page, demo.shopper);
 
-  // browse by occasion and open the fox tote (Fern & Fable Goods)
-  await page.goto('/search?occasion=autumn-harvest');
-  await page.getByRole('link', { name: /Autumn fox tote with a name/ }).first().click();
-  await expect(page.getByRole('heading', { level: 1, name: 'Autumn fox tote with a name' })).toBeVisible();
-
-  const form = page.getByRole('form', { name: 'Personalise this item' });
-  const price = page.getByTestId('price');
-  await expect(price).toContainText('$');
-  const motifOnly = await price.textContent();
-  // the name adds a layer of its own colour: the price goes up by the listing's extra-layer price
-  await form.getByLabel('Name', { exact: true }).fill('Mira');
-  await expect(price).not.toHaveText(motifOnly!);
-  const withName = await price.textContent();
-  // another colour for the name (green, not used by the fox): still one more layer, same price
-  await form.getByRole('group', { name: 'Name colour' }).locator('label').nth(2).click();
-  await expect(page.getByTestId('design-preview')).toBeVisible();
-  await expect(price).toHaveText(withName!);
-  await form.getByRole('button', { name: /Add to cart/ }).click();
-  await expect(page.getByText(/Added to your cart with “Mira”/)).toBeVisible();
-
-  // a kids' tee from the second shop (Little Comet Print Co.)
-  await page.goto('/search?q=rocket');
-  await page.getByRole('link', { name: /Rocket name tee for kids/ }).first().click();
-  const form2 = page.getByRole('form', { name: 'Personalise this item' });
-  await form2.getByLabel('Name', { exact: true }).fill('Theo');
-  await form2.getByRole('button', { name: /Add to cart/ }).click();
-  await expect(page.getByText(/Added to your cart with “Theo”/)).toBeVisible();
+  // the fox tote with “Mira” and a kids' tee with “Theo”, from two shops
+  await addParentCart(page);
 
   // the cart: grouped by shop, each with its shipping, one payment
   await page.goto('/cart');

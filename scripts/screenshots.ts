@@ -2,30 +2,18 @@
 // Builds the client if dist/ is missing, starts the app on a free port with a throw-away seeded
 // DATA_DIR, signs in as each demo role in Chromium and saves small PNGs (palette-quantised with
 // sharp, ≤ 200 KB each) to public/screenshots/. Chromium: /usr/bin/chromium (Debian's package).
-import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { fillShipTo } from '../e2e/api-helpers.ts';
+import { buildClientIfMissing, freePort, startTsProcess, stopProcess, waitUntilUp } from './lib/server-process.ts';
 
 const root = path.resolve(import.meta.dirname, '..');
 const outDir = path.join(root, 'public/screenshots');
 const PASSWORD = 'namesake-demo';
 const MAX_BYTES = 200 * 1024;
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 async function save(page: Page, name: string, opts: { fullPage?: boolean } = {}): Promise<void> {
   await page.waitForLoadState('networkidle').catch(() => undefined);
@@ -51,34 +39,18 @@ async function signedIn(browser: Browser, base: string, email: string, viewport 
 }
 
 async function main(): Promise<void> {
-  if (!fs.existsSync(path.join(root, 'dist/index.html'))) {
-    console.log('building the client (vite build) …');
-    const b = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
-    if (b.status !== 0) throw new Error('vite build failed');
-  }
+  buildClientIfMissing();
   fs.mkdirSync(outDir, { recursive: true });
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-screenshots-'));
   const port = await freePort();
   const base = `http://localhost:${port}`;
-  const log: string[] = [];
-  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    cwd: root,
-    env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), BASE_URL: base, CLIENT_DIR: path.join(root, 'dist'), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', LOG_REQUESTS: 'false', DEMO_MODE: 'true' },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  server.stdout!.on('data', (d: Buffer) => log.push(d.toString()));
-  server.stderr!.on('data', (d: Buffer) => log.push(d.toString()));
+  const server = startTsProcess('server/index.ts', { ...process.env, DATA_DIR: dataDir, PORT: String(port), BASE_URL: base, CLIENT_DIR: path.join(root, 'dist'), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', LOG_REQUESTS: 'false', DEMO_MODE: 'true' });
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
   });
   try {
-    for (let i = 0; ; i++) {
-      if (server.exitCode !== null) throw new Error(`the server exited:\n${log.join('')}`);
-      if (await fetch(`${base}/api/health`).then((r) => r.ok).catch(() => false)) break;
-      if (i > 600) throw new Error(`the server did not start:\n${log.join('')}`);
-      await new Promise((r) => setTimeout(r, 200));
-    }
+    await waitUntilUp(`${base}/api/health`, { server });
     console.log(`screenshots of ${base} → ${path.relative(root, outDir)}/`);
 
     // guest: home and a listing with the personaliser filled in
@@ -165,8 +137,7 @@ async function main(): Promise<void> {
     await save(admin, 'moderation-desk');
   } finally {
     await browser.close();
-    server.kill('SIGTERM');
-    await new Promise<void>((r) => (server.exitCode !== null ? r() : server.once('exit', () => r())));
+    await stopProcess(server.child);
     fs.rmSync(dataDir, { recursive: true, force: true });
   }
 }

@@ -11,7 +11,7 @@ import { seedRepo } from './seed.repo.ts';
 import { createStorage } from '../integrations/storage.ts';
 import { parseMotifSvg, renderMotifSvg } from '../../shared/engine/motif.ts';
 import { defaultPressProfile, type MaterialKind } from '../../shared/engine/press-defaults.ts';
-import { listingInputSchema, liveColumns, type ListingInput } from '../../shared/schemas/listing.ts';
+import { listingInputSchema, liveColumns, type BlankKind, type ListingInput } from '../../shared/schemas/listing.ts';
 
 const MOTIF_DIR = path.join(path.dirname(fileURLToPath(import.meta.url)), 'demo-motifs');
 
@@ -62,185 +62,139 @@ const MOTIFS: Record<string, [key: string, file: string, name: string][]> = {
 };
 
 type Ref = (key: string) => string;
-type Spec = { state: 'live' | 'in_review'; content: (m: Ref, motif: Ref) => ListingInput; photoOf: string };
 
-const nameField = (m: Ref, colours: string[], opts: Partial<{ id: string; label: string; fonts: string[]; height: number; max: number; required: boolean }> = {}) => ({
-  id: opts.id ?? 'name',
-  label: opts.label ?? 'Name',
-  maxLength: opts.max ?? 12,
-  fontIds: opts.fonts ?? ['baloo-bold', 'dancing-script-bold', 'bitter-bold'],
-  defaultLetterHeightMm: opts.height ?? 50,
-  required: opts.required ?? true,
-  colourChoices: colours.map(m),
-});
+/** A motif layer: a material key (the layer is always that colour) or a list of them (the shopper picks). */
+type LayerSpec = [layerId: string, colours: string | string[]];
+type NameOpts = Partial<{ fonts: string[]; height: number; max: number }>;
+
+/**
+ * One demo listing. `name`: the colours of its one name field (material keys), and where it differs
+ * from the usual field; `motif`: the shop's motif (by key; its label is the motif's name); `photoOf`:
+ * the motif whose picture is the listing photo (the listing's own motif unless named); `price`: base
+ * and per extra layer; `costs`: blank cost and minutes per layer.
+ */
+type Spec = {
+  state: 'live' | 'in_review';
+  title: string;
+  description: string;
+  markdown?: true;
+  blank: BlankKind;
+  price: [base: number, extraLayer?: number];
+  occasions: ListingInput['occasions'];
+  smallDecorations?: true;
+  name: [colours: string[], opts?: NameOpts];
+  motif?: { key: string; required: boolean; layers: LayerSpec[] };
+  outline?: { offsetMm: number; colours: string[] };
+  costs?: [blankCost: number, minutesPerLayer: number];
+  photoOf?: string;
+};
 
 const LISTINGS: Record<string, Spec[]> = {
   'fern-and-fable-goods': [
     {
-      state: 'live', photoOf: 'fox',
-      content: (m, motif) => ({
-        title: 'Autumn fox tote with a name',
-        description: 'A sturdy cotton tote with a **fox holding an acorn** and the name of your choice above it.\n\nShown with the name *Mira*. Pressed in smooth vinyl that flexes with the bag.',
-        descriptionFormat: 'markdown',
-        blank: { kind: 'tote' },
-        basePriceMinor: 2400, extraLayerPriceMinor: 300, occasions: ['autumn-harvest', 'back-to-school'],
-        personalisation: {
-          textFields: [nameField(m, ['navy', 'orange', 'green', 'gold'])],
-          motifChoices: [{ motifId: motif('fox'), label: 'Fox with acorn', layers: [
-            { layerId: 'body', mode: 'shopper', colourChoices: [m('orange'), m('brown')] },
-            { layerId: 'face', mode: 'fixed', materialId: m('white') },
-            { layerId: 'acorn', mode: 'fixed', materialId: m('brown') },
-          ] }],
-          motifRequired: true, outline: null,
-        },
-        blankCostMinor: 450, minutesPerLayer: 6,
-      }),
+      state: 'live', title: 'Autumn fox tote with a name', markdown: true,
+      description: 'A sturdy cotton tote with a **fox holding an acorn** and the name of your choice above it.\n\nShown with the name *Mira*. Pressed in smooth vinyl that flexes with the bag.',
+      blank: 'tote', price: [2400, 300], occasions: ['autumn-harvest', 'back-to-school'], costs: [450, 6],
+      name: [['navy', 'orange', 'green', 'gold']],
+      motif: { key: 'fox', required: true, layers: [['body', ['orange', 'brown']], ['face', 'white'], ['acorn', 'brown']] },
     },
     {
-      state: 'live', photoOf: 'snowman',
-      content: (m, motif) => ({
-        title: 'Winter lights drawstring bag with snowman',
-        description: 'A drawstring bag for mittens and winter treats.\nThe snowman wears a red hat and scarf; the name sits underneath.\nShown with the name Theo.',
-        blank: { kind: 'drawstring_bag' },
-        basePriceMinor: 1900, extraLayerPriceMinor: 250, occasions: ['winter-lights'],
-        personalisation: {
-          textFields: [nameField(m, ['navy', 'red', 'silver', 'gold'], { fonts: ['baloo-bold', 'bebas-neue'], height: 40 })],
-          motifChoices: [{ motifId: motif('snowman'), label: 'Snowman', layers: [
-            { layerId: 'snow', mode: 'fixed', materialId: m('white') },
-            { layerId: 'hat-and-scarf', mode: 'shopper', colourChoices: [m('red'), m('green'), m('navy')] },
-          ] }],
-          motifRequired: false, outline: null,
-        },
-        blankCostMinor: 300, minutesPerLayer: 5,
-      }),
+      state: 'live', title: 'Winter lights drawstring bag with snowman',
+      description: 'A drawstring bag for mittens and winter treats.\nThe snowman wears a red hat and scarf; the name sits underneath.\nShown with the name Theo.',
+      blank: 'drawstring_bag', price: [1900, 250], occasions: ['winter-lights'], costs: [300, 5],
+      name: [['navy', 'red', 'silver', 'gold'], { fonts: ['baloo-bold', 'bebas-neue'], height: 40 }],
+      motif: { key: 'snowman', required: false, layers: [['snow', 'white'], ['hat-and-scarf', ['red', 'green', 'navy']]] },
     },
     {
-      state: 'live', photoOf: 'balloon',
-      content: (m, motif) => ({
-        title: 'Spring picnic tote with hot-air balloon',
-        description: 'Float off to the park: a hot-air balloon with striped envelope, and a name or a short word.\nShown with the name Anouk.',
-        blank: { kind: 'tote' },
-        basePriceMinor: 2600, extraLayerPriceMinor: 300, occasions: ['spring-picnic', 'birthday'],
-        personalisation: {
-          textFields: [nameField(m, ['navy', 'green', 'orange'], { fonts: ['dancing-script-bold', 'patrick-hand', 'baloo-bold'], height: 45 })],
-          motifChoices: [{ motifId: motif('balloon'), label: 'Hot-air balloon', layers: [
-            { layerId: 'envelope', mode: 'shopper', colourChoices: [m('green'), m('navy'), m('red')] },
-            { layerId: 'stripes', mode: 'fixed', materialId: m('gold') },
-            { layerId: 'basket', mode: 'fixed', materialId: m('brown') },
-          ] }],
-          motifRequired: true, outline: null,
-        },
-        blankCostMinor: 450, minutesPerLayer: 6,
-      }),
+      state: 'live', title: 'Spring picnic tote with hot-air balloon',
+      description: 'Float off to the park: a hot-air balloon with striped envelope, and a name or a short word.\nShown with the name Anouk.',
+      blank: 'tote', price: [2600, 300], occasions: ['spring-picnic', 'birthday'], costs: [450, 6],
+      name: [['navy', 'green', 'orange'], { fonts: ['dancing-script-bold', 'patrick-hand', 'baloo-bold'], height: 45 }],
+      motif: { key: 'balloon', required: true, layers: [['envelope', ['green', 'navy', 'red']], ['stripes', 'gold'], ['basket', 'brown']] },
     },
     {
-      state: 'live', photoOf: 'pumpkin',
-      content: (m, motif) => ({
-        title: 'Harvest pumpkin drawstring bag with ribbon bow',
-        description: 'A little bag for the autumn harvest walk, finished with a sewn ribbon bow.\nShown with the name Kai.',
-        blank: { kind: 'drawstring_bag' },
-        basePriceMinor: 2100, extraLayerPriceMinor: 250, occasions: ['autumn-harvest'], hasSmallDecorations: true,
-        personalisation: {
-          textFields: [nameField(m, ['orange', 'brown', 'navy', 'pine'], { fonts: ['baloo-bold', 'bangers'], height: 40 })],
-          motifChoices: [{ motifId: motif('pumpkin'), label: 'Pumpkin', layers: [
-            { layerId: 'pumpkin', mode: 'fixed', materialId: m('orange') },
-            { layerId: 'stem', mode: 'shopper', colourChoices: [m('pine'), m('green')] },
-          ] }],
-          motifRequired: true, outline: null,
-        },
-        blankCostMinor: 320, minutesPerLayer: 5,
-      }),
+      state: 'live', title: 'Harvest pumpkin drawstring bag with ribbon bow',
+      description: 'A little bag for the autumn harvest walk, finished with a sewn ribbon bow.\nShown with the name Kai.',
+      blank: 'drawstring_bag', price: [2100, 250], occasions: ['autumn-harvest'], smallDecorations: true, costs: [320, 5],
+      name: [['orange', 'brown', 'navy', 'pine'], { fonts: ['baloo-bold', 'bangers'], height: 40 }],
+      motif: { key: 'pumpkin', required: true, layers: [['pumpkin', 'orange'], ['stem', ['pine', 'green']]] },
     },
   ],
   'little-comet-print-co': [
     {
-      state: 'live', photoOf: 'rocket',
-      content: (m, motif) => ({
-        title: "Rocket name tee for kids",
-        description: 'Blast off on a birthday or the first day of school: a rocket with a bright flame and a name in big letters.\nShown with the name Leon.',
-        blank: { kind: 'kids_tee' },
-        basePriceMinor: 2200, extraLayerPriceMinor: 250, occasions: ['birthday', 'back-to-school'],
-        personalisation: {
-          textFields: [nameField(m, ['navy', 'sea', 'gold', 'stars'], { fonts: ['baloo-bold', 'bangers', 'bebas-neue'], height: 45, max: 14 })],
-          motifChoices: [{ motifId: motif('rocket'), label: 'Rocket with flame', layers: [
-            { layerId: 'flame', mode: 'shopper', colourChoices: [m('yellow'), m('gold')] },
-            { layerId: 'hull', mode: 'shopper', colourChoices: [m('navy'), m('sea'), m('teal')] },
-            { layerId: 'window', mode: 'fixed', materialId: m('white') },
-          ] }],
-          motifRequired: true, outline: null,
-        },
-        blankCostMinor: 550, minutesPerLayer: 6,
-      }),
+      state: 'live', title: 'Rocket name tee for kids',
+      description: 'Blast off on a birthday or the first day of school: a rocket with a bright flame and a name in big letters.\nShown with the name Leon.',
+      blank: 'kids_tee', price: [2200, 250], occasions: ['birthday', 'back-to-school'], costs: [550, 6],
+      name: [['navy', 'sea', 'gold', 'stars'], { fonts: ['baloo-bold', 'bangers', 'bebas-neue'], height: 45, max: 14 }],
+      motif: { key: 'rocket', required: true, layers: [['flame', ['yellow', 'gold']], ['hull', ['navy', 'sea', 'teal']], ['window', 'white']] },
     },
     {
-      state: 'live', photoOf: 'whale',
-      content: (m, motif) => ({
-        title: 'Whale zip pouch with a name',
-        description: 'A zip pouch for pencils or picnic snacks, with a spouting whale and a name.\nShown with the name Priya.',
-        blank: { kind: 'pouch' },
-        basePriceMinor: 1500, extraLayerPriceMinor: 200, occasions: ['spring-picnic', 'back-to-school'],
-        personalisation: {
-          textFields: [nameField(m, ['navy', 'sea', 'copper'], { fonts: ['patrick-hand', 'baloo-bold'], height: 25, max: 10 })],
-          motifChoices: [{ motifId: motif('whale'), label: 'Whale', layers: [
-            { layerId: 'whale', mode: 'shopper', colourChoices: [m('sea'), m('navy'), m('teal')] },
-            { layerId: 'belly', mode: 'fixed', materialId: m('white') },
-            { layerId: 'spout', mode: 'fixed', materialId: m('sky') },
-          ] }],
-          motifRequired: false, outline: null,
-        },
-        blankCostMinor: 280, minutesPerLayer: 4,
-      }),
+      state: 'live', title: 'Whale zip pouch with a name',
+      description: 'A zip pouch for pencils or picnic snacks, with a spouting whale and a name.\nShown with the name Priya.',
+      blank: 'pouch', price: [1500, 200], occasions: ['spring-picnic', 'back-to-school'], costs: [280, 4],
+      name: [['navy', 'sea', 'copper'], { fonts: ['patrick-hand', 'baloo-bold'], height: 25, max: 10 }],
+      motif: { key: 'whale', required: false, layers: [['whale', ['sea', 'navy', 'teal']], ['belly', 'white'], ['spout', 'sky']] },
     },
     {
-      state: 'live', photoOf: 'balloon',
-      content: (m, motif) => ({
-        title: 'Winter lights balloon tee with outline',
-        description: 'A hot-air balloon over a name, with a glitter outline that catches the winter lights.\nShown with the name Zoë: the fonts draw accented letters.',
-        blank: { kind: 'kids_tee' },
-        basePriceMinor: 2500, extraLayerPriceMinor: 250, occasions: ['winter-lights', 'birthday'],
-        personalisation: {
-          textFields: [nameField(m, ['navy', 'teal'], { fonts: ['dancing-script-bold', 'baloo-bold'], height: 40 })],
-          motifChoices: [{ motifId: motif('balloon'), label: 'Hot-air balloon', layers: [
-            { layerId: 'envelope', mode: 'shopper', colourChoices: [m('teal'), m('sea')] },
-            { layerId: 'stripes', mode: 'fixed', materialId: m('yellow') },
-            { layerId: 'basket', mode: 'fixed', materialId: m('navy') },
-          ] }],
-          motifRequired: true, outline: { offsetMm: 3, colourChoices: [m('gold'), m('white')] },
-        },
-        blankCostMinor: 550, minutesPerLayer: 6,
-      }),
+      state: 'live', title: 'Winter lights balloon tee with outline',
+      description: 'A hot-air balloon over a name, with a glitter outline that catches the winter lights.\nShown with the name Zoë: the fonts draw accented letters.',
+      blank: 'kids_tee', price: [2500, 250], occasions: ['winter-lights', 'birthday'], costs: [550, 6],
+      name: [['navy', 'teal'], { fonts: ['dancing-script-bold', 'baloo-bold'], height: 40 }],
+      motif: { key: 'balloon', required: true, layers: [['envelope', ['teal', 'sea']], ['stripes', 'yellow'], ['basket', 'navy']] },
+      outline: { offsetMm: 3, colours: ['gold', 'white'] },
     },
   ],
   'harbour-thread': [
     {
-      state: 'in_review', photoOf: 'whale',
-      content: (m, motif) => ({
-        title: 'Seaside whale tote',
-        description: 'A tote for beach days with a whale and a name. Shown with the name Bartholomew.',
-        blank: { kind: 'tote' },
-        basePriceMinor: 2300, extraLayerPriceMinor: 250, occasions: ['spring-picnic'],
-        personalisation: {
-          textFields: [nameField(m, ['navy', 'sea'], { max: 14, height: 35 })],
-          motifChoices: [{ motifId: motif('whale'), label: 'Whale', layers: [
-            { layerId: 'whale', mode: 'shopper', colourChoices: [m('navy'), m('sea')] },
-            { layerId: 'belly', mode: 'fixed', materialId: m('white') },
-          ] }],
-          motifRequired: true, outline: null,
-        },
-      }),
+      state: 'in_review', title: 'Seaside whale tote',
+      description: 'A tote for beach days with a whale and a name. Shown with the name Bartholomew.',
+      blank: 'tote', price: [2300, 250], occasions: ['spring-picnic'],
+      name: [['navy', 'sea'], { max: 14, height: 35 }],
+      motif: { key: 'whale', required: true, layers: [['whale', ['navy', 'sea']], ['belly', 'white']] },
     },
     {
-      state: 'in_review', photoOf: 'whale',
-      content: (m) => ({
-        title: 'Harbour name pouch',
-        description: 'A plain zip pouch with a name in sail white.',
-        blank: { kind: 'pouch' },
-        basePriceMinor: 1400, occasions: ['back-to-school'],
-        personalisation: { textFields: [nameField(m, ['white', 'sea'], { height: 25, max: 10 })], motifChoices: [], motifRequired: false, outline: null },
-      }),
+      state: 'in_review', title: 'Harbour name pouch', photoOf: 'whale',
+      description: 'A plain zip pouch with a name in sail white.',
+      blank: 'pouch', price: [1400], occasions: ['back-to-school'],
+      name: [['white', 'sea'], { height: 25, max: 10 }],
     },
   ],
 };
+
+/** The one name field of a demo listing: the usual fonts, 50 mm and 12 characters unless `opts` says otherwise. */
+const nameField = (m: Ref, colours: string[], opts: NameOpts = {}) => ({
+  id: 'name',
+  label: 'Name',
+  maxLength: opts.max ?? 12,
+  fontIds: opts.fonts ?? ['baloo-bold', 'dancing-script-bold', 'bitter-bold'],
+  defaultLetterHeightMm: opts.height ?? 50,
+  required: true,
+  colourChoices: colours.map(m),
+});
+
+/** The listing a seller would have typed in for `spec`, with the shop's material and motif ids. */
+function listingInput(spec: Spec, m: Ref, motif: Ref, motifName: Ref): ListingInput {
+  const [basePriceMinor, extraLayerPriceMinor] = spec.price;
+  const layer = ([layerId, colours]: LayerSpec) =>
+    typeof colours === 'string' ? { layerId, mode: 'fixed' as const, materialId: m(colours) } : { layerId, mode: 'shopper' as const, colourChoices: colours.map(m) };
+  return {
+    title: spec.title,
+    description: spec.description,
+    ...(spec.markdown ? { descriptionFormat: 'markdown' as const } : {}),
+    blank: { kind: spec.blank },
+    basePriceMinor,
+    ...(extraLayerPriceMinor === undefined ? {} : { extraLayerPriceMinor }),
+    occasions: spec.occasions,
+    ...(spec.smallDecorations ? { hasSmallDecorations: true } : {}),
+    personalisation: {
+      textFields: [nameField(m, ...spec.name)],
+      motifChoices: spec.motif ? [{ motifId: motif(spec.motif.key), label: motifName(spec.motif.key), layers: spec.motif.layers.map(layer) }] : [],
+      motifRequired: spec.motif?.required ?? false,
+      outline: spec.outline ? { offsetMm: spec.outline.offsetMm, colourChoices: spec.outline.colours.map(m) } : null,
+    },
+    ...(spec.costs ? { blankCostMinor: spec.costs[0], minutesPerLayer: spec.costs[1] } : {}),
+  };
+}
 
 /** A listing photo: the motif's clean SVG drawn on the paper-cream background, made with sharp. */
 async function photoFor(svg: string): Promise<Buffer> {
@@ -280,13 +234,15 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
       if (!map[k]) throw new Error(`demo ${what} ${k} missing in ${shopSlug}`);
       return map[k];
     };
+    const motifNames = Object.fromEntries((MOTIFS[shopSlug] ?? []).map(([key, , name]) => [key, name]));
     for (const spec of LISTINGS[shopSlug] ?? []) {
-      const input = spec.content(ref(matIds, 'material'), ref(motifIds, 'motif'));
-      const content = listingInputSchema.parse({ ...input, photoIds: [photoIds[spec.photoOf]] });
+      const photoOf = spec.photoOf ?? spec.motif?.key ?? '(none)';
+      const input = listingInput(spec, ref(matIds, 'material'), ref(motifIds, 'motif'), ref(motifNames, 'motif'));
+      const content = listingInputSchema.parse({ ...input, photoIds: [ref(photoIds, 'photo')(photoOf)] });
       const at = base - (n++) * 3_600_000; // an hour apart, so "newest" has an order
       const slug = `${content.title.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '')}`;
       const live = spec.state === 'live';
-      const thumbPath = live ? thumbs[spec.photoOf] : null;
+      const thumbPath = live ? thumbs[photoOf] : null;
       seedRepo.insertListing(db, {
         id: crypto.randomUUID(), shopId, slug, state: spec.state, draft: content,
         live: live ? content : null,

@@ -39,12 +39,15 @@ const fields = {
   pressProfile: pressProfileSchema,
 };
 
+/** What a new material gets when the seller leaves these out (the form starts from them too). */
+export const MATERIAL_DEFAULTS = { lowStockMm: 1000, pricePerMetreMinor: 0 } as const;
+
 /** POST /api/materials: the press profile is optional and defaults to the kind's row in shared/engine/press-defaults.ts. */
 export const createMaterialSchema = z
   .object({
     ...fields,
-    lowStockMm: fields.lowStockMm.default(1000),
-    pricePerMetreMinor: fields.pricePerMetreMinor.default(0),
+    lowStockMm: fields.lowStockMm.default(MATERIAL_DEFAULTS.lowStockMm),
+    pricePerMetreMinor: fields.pricePerMetreMinor.default(MATERIAL_DEFAULTS.pricePerMetreMinor),
     pressProfile: fields.pressProfile.optional(),
   })
   .transform((m) => ({ ...m, pressProfile: m.pressProfile ?? defaultPressProfile(m.kind) }));

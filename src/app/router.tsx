@@ -8,6 +8,8 @@ import { AppLayout } from './layout/app-layout.tsx';
 import { NotFoundPage } from './routes/errors/not-found.tsx';
 import { RouteErrorPage } from './routes/errors/route-error.tsx';
 import { HomePage } from './routes/home.tsx';
+import { DeskLayout } from './routes/moderation/desk-nav.tsx';
+import { SellerLayout } from './routes/seller/seller-nav.tsx';
 
 export const router = createBrowserRouter([
   {
@@ -36,32 +38,43 @@ export const router = createBrowserRouter([
       {
         element: <RequireAuth roles={['seller']} />,
         children: [
-          { path: paths.workroom.path, lazy: async () => ({ Component: (await import('./routes/workroom/workroom.tsx')).WorkroomPage }) },
-          // the production pages (proofs, cut sheets, press cards, stock) load on demand
-          { path: paths.workroomOrder.path, lazy: async () => ({ Component: (await import('./routes/workroom/order.tsx')).WorkroomOrderPage }) },
-          { path: paths.workroomProof.path, lazy: async () => ({ Component: (await import('./routes/workroom/proof.tsx')).ProofPage }) },
-          { path: paths.workroomCutSheets.path, lazy: async () => ({ Component: (await import('./routes/workroom/cut-sheets.tsx')).CutSheetsPage }) },
-          { path: paths.workroomPress.path, lazy: async () => ({ Component: (await import('./routes/workroom/press.tsx')).PressPage }) },
-          { path: paths.workroomStock.path, lazy: async () => ({ Component: (await import('./routes/workroom/stock.tsx')).StockPage }) },
-          // seller pages load on demand (shop settings, materials, listings and the editor)
-          { path: paths.seller.shop.path, lazy: async () => ({ Component: (await import('./routes/seller/shop-settings.tsx')).ShopSettingsPage }) },
-          { path: paths.seller.materials.path, lazy: async () => ({ Component: (await import('./routes/seller/materials.tsx')).MaterialsPage }) },
-          { path: paths.seller.listings.path, lazy: async () => ({ Component: (await import('./routes/seller/listings.tsx')).SellerListingsPage }) },
-          { path: paths.seller.newListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
-          { path: paths.seller.editListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
-          // the business view (charts pull in recharts) loads on demand
-          { path: paths.business.overview.path, lazy: async () => ({ Component: (await import('./routes/business/overview.tsx')).BusinessOverviewPage }) },
-          { path: paths.business.payouts.path, lazy: async () => ({ Component: (await import('./routes/business/payouts.tsx')).PayoutsPage }) },
-          { path: paths.business.settings.path, lazy: async () => ({ Component: (await import('./routes/business/settings.tsx')).BusinessSettingsPage }) },
+          {
+            // the seller's navigation stays above every seller page, also while one loads
+            element: <SellerLayout />,
+            children: [
+              { path: paths.workroom.path, lazy: async () => ({ Component: (await import('./routes/workroom/workroom.tsx')).WorkroomPage }) },
+              // the production pages (proofs, cut sheets, press cards, stock) load on demand
+              { path: paths.workroomOrder.path, lazy: async () => ({ Component: (await import('./routes/workroom/order.tsx')).WorkroomOrderPage }) },
+              { path: paths.workroomProof.path, lazy: async () => ({ Component: (await import('./routes/workroom/proof.tsx')).ProofPage }) },
+              { path: paths.workroomCutSheets.path, lazy: async () => ({ Component: (await import('./routes/workroom/cut-sheets.tsx')).CutSheetsPage }) },
+              { path: paths.workroomPress.path, lazy: async () => ({ Component: (await import('./routes/workroom/press.tsx')).PressPage }) },
+              { path: paths.workroomStock.path, lazy: async () => ({ Component: (await import('./routes/workroom/stock.tsx')).StockPage }) },
+              // seller pages load on demand (shop settings, materials, listings and the editor)
+              { path: paths.seller.shop.path, lazy: async () => ({ Component: (await import('./routes/seller/shop-settings.tsx')).ShopSettingsPage }) },
+              { path: paths.seller.materials.path, lazy: async () => ({ Component: (await import('./routes/seller/materials.tsx')).MaterialsPage }) },
+              { path: paths.seller.listings.path, lazy: async () => ({ Component: (await import('./routes/seller/listings.tsx')).SellerListingsPage }) },
+              { path: paths.seller.newListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
+              { path: paths.seller.editListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
+              // the business view (charts pull in recharts) loads on demand
+              { path: paths.business.overview.path, lazy: async () => ({ Component: (await import('./routes/business/overview.tsx')).BusinessOverviewPage }) },
+              { path: paths.business.payouts.path, lazy: async () => ({ Component: (await import('./routes/business/payouts.tsx')).PayoutsPage }) },
+              { path: paths.business.settings.path, lazy: async () => ({ Component: (await import('./routes/business/settings.tsx')).BusinessSettingsPage }) },
+            ],
+          },
         ],
       },
       {
         element: <RequireAuth roles={['admin']} />,
         children: [
-          { path: paths.moderation.desk.path, lazy: async () => ({ Component: (await import('./routes/moderation/desk.tsx')).ModerationDeskPage }) },
-          { path: paths.moderation.reviewListing.path, lazy: async () => ({ Component: (await import('./routes/moderation/review-listing.tsx')).ReviewListingPage }) },
-          { path: paths.moderation.audit.path, lazy: async () => ({ Component: (await import('./routes/moderation/audit.tsx')).AuditLogPage }) },
-          { path: paths.moderation.mail.path, lazy: async () => ({ Component: (await import('./routes/moderation/mail.tsx')).MailPage }) },
+          {
+            element: <DeskLayout />,
+            children: [
+              { path: paths.moderation.desk.path, lazy: async () => ({ Component: (await import('./routes/moderation/desk.tsx')).ModerationDeskPage }) },
+              { path: paths.moderation.reviewListing.path, lazy: async () => ({ Component: (await import('./routes/moderation/review-listing.tsx')).ReviewListingPage }) },
+              { path: paths.moderation.audit.path, lazy: async () => ({ Component: (await import('./routes/moderation/audit.tsx')).AuditLogPage }) },
+              { path: paths.moderation.mail.path, lazy: async () => ({ Component: (await import('./routes/moderation/mail.tsx')).MailPage }) },
+            ],
+          },
         ],
       },
       { path: '*', element: <NotFoundPage /> },

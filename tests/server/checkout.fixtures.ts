@@ -7,6 +7,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import crypto from 'node:crypto';
+import Stripe from 'stripe';
 import { eq } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { startStripeFake, type StripeFake } from '../../fakes/stripe/server.ts';
@@ -15,13 +16,15 @@ import { defaultPressProfile } from '../../shared/engine/press-defaults.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
 
 export const WEBHOOK_SECRET = 'whsec_checkout_tests';
+const SECRET_KEY = 'sk_test_checkout_tests';
 
-export type World = TestApp & { fake: StripeFake; appUrl: string; fakeDir: string; stopApp(): Promise<void>; startApp(): Promise<void>; teardown(): Promise<void> };
+/** `stripe`: the official SDK on the world's fake, with the app's key (what the provider's dashboard would show). */
+export type World = TestApp & { fake: StripeFake; stripe: Stripe; appUrl: string; fakeDir: string; stopApp(): Promise<void>; startApp(): Promise<void>; teardown(): Promise<void> };
 
 export async function makeWorld(opts: { fakeOpts?: { retryBaseMs?: number } } = {}): Promise<World> {
   const fakeDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-stripe-'));
   const fake = await startStripeFake({ port: 0, dataDir: fakeDir, webhookSecret: WEBHOOK_SECRET, retryBaseMs: opts.fakeOpts?.retryBaseMs ?? 50, retryMaxMs: 400 });
-  const t = await makeTestApp({ env: { STRIPE_API_BASE: fake.url, STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET, STRIPE_SECRET_KEY: 'sk_test_checkout_tests' } });
+  const t = await makeTestApp({ env: { STRIPE_API_BASE: fake.url, STRIPE_WEBHOOK_SECRET: WEBHOOK_SECRET, STRIPE_SECRET_KEY: SECRET_KEY } });
   let server: http.Server | null = null;
   let port = 0;
   const startApp = async () => {
@@ -43,6 +46,7 @@ export async function makeWorld(opts: { fakeOpts?: { retryBaseMs?: number } } = 
   fake.setWebhookUrl(`${appUrl}/api/payments/webhook`);
   return Object.assign(t, {
     fake,
+    stripe: new Stripe(SECRET_KEY, { host: '127.0.0.1', port: fake.port, protocol: 'http' }),
     appUrl,
     fakeDir,
     startApp,

@@ -2,17 +2,14 @@
 // the Stripe API docs ("separate charges and transfers", test cards, idempotent requests) as
 // summarised in DEVELOPERS.md, "Money and payments"; amounts are integer minor units (ISO 4217: USD 2).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import Stripe from 'stripe';
 import request from 'supertest';
 import { eq } from 'drizzle-orm';
 import { cartLines, checkouts, ledger, orderLines, orders } from '../../server/db/schema.ts';
 import { CARDS, makeShopWithListing, makeWorld, nameChoices, payOnPage, waitFor, type World } from './checkout.fixtures.ts';
 
 let w: World;
-let stripe: Stripe;
 beforeAll(async () => {
   w = await makeWorld();
-  stripe = new Stripe('sk_test_checkout_tests', { host: '127.0.0.1', port: w.fake.port, protocol: 'http' });
 }, 30_000);
 afterAll(async () => w?.teardown());
 
@@ -55,8 +52,8 @@ describe('checkout across two shops', () => {
 
     // transfers happen after the commit; wait until both orders carry one
     await waitFor(() => w.db.select().from(orders).where(eq(orders.checkoutId, checkout.id)).all().every((o) => o.transferId));
-    const charge = (await stripe.paymentIntents.retrieve(checkout.paymentIntentId!)).amount_received;
-    const transfers = (await stripe.transfers.list({ transfer_group: `checkout_${checkout.id}` })).data;
+    const charge = (await w.stripe.paymentIntents.retrieve(checkout.paymentIntentId!)).amount_received;
+    const transfers = (await w.stripe.transfers.list({ transfer_group: `checkout_${checkout.id}` })).data;
     expect(transfers).toHaveLength(2);
     const fees = w.db.select().from(orders).where(eq(orders.checkoutId, checkout.id)).all().map((o) => o.platformFeeMinor);
     expect(transfers.reduce((a, t) => a + t.amount, 0) + fees.reduce((a, b) => a + b, 0)).toBe(charge);
@@ -112,7 +109,7 @@ describe('checkout safety', () => {
     expect([p1.status, p2.status]).toEqual([303, 303]);
     await waitFor(async () => (await agent.get(`/api/checkout/${a.body.sessionId}/status?wait=2000`)).body.state === 'paid');
     const c = w.db.select().from(checkouts).where(eq(checkouts.id, a.body.checkoutId)).get()!;
-    const charges = await stripe.charges.list({ payment_intent: c.paymentIntentId! });
+    const charges = await w.stripe.charges.list({ payment_intent: c.paymentIntentId! });
     expect(charges.data.filter((x) => x.status === 'succeeded')).toHaveLength(1);
     expect(w.db.select().from(orders).where(eq(orders.checkoutId, c.id)).all()).toHaveLength(1);
     // a third click after paying does not open a new payment
@@ -131,7 +128,7 @@ describe('checkout safety', () => {
     expect(res.body.shops[0].lines[0].unitPriceMinor).toBe(2600);
     expect(res.body.totalMinor).toBe(3100);
     const started = await agent.post('/api/checkout').send({ totalMinor: 1, amount: 1 });
-    const session = await stripe.checkout.sessions.retrieve(started.body.sessionId);
+    const session = await w.stripe.checkout.sessions.retrieve(started.body.sessionId);
     expect(session.amount_total).toBe(3100);
   });
 
@@ -198,7 +195,7 @@ describe('checkout after the cart changed', () => {
     await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Theo') }).expect(201);
     const second = (await agent.post('/api/checkout').send({})).body;
     expect(second.sessionId).not.toBe(first.sessionId);
-    expect((await stripe.checkout.sessions.retrieve(first.sessionId)).status).toBe('expired');
+    expect((await w.stripe.checkout.sessions.retrieve(first.sessionId)).status).toBe('expired');
     expect((await payOnPage(first.url, CARDS.ok)).status).toBe(410);
     expect((await payOnPage(second.url, CARDS.ok)).status).toBe(303);
     const s = await waitFor(async () => {

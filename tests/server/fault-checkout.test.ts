@@ -4,85 +4,35 @@
 // failed deliveries with a growing back-off; Stripe webhook docs). At the end every paid
 // Checkout Session must have exactly one order per shop in its cart — none lost, none doubled —
 // and every order exactly one transfer to its shop.
-import { spawn, type ChildProcess } from 'node:child_process';
+import type { ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import Database from 'better-sqlite3';
 import Stripe from 'stripe';
 import { afterAll, describe, expect, it } from 'vitest';
+import { cookieClient } from '../../scripts/lib/cookie-client.ts';
+import { freePort, startTsProcess, stopProcess, waitUntilUp, type ServerProcess } from '../../scripts/lib/server-process.ts';
 
-const root = path.resolve(import.meta.dirname, '../..');
 const SECRET = 'whsec_fault_test';
 const KEY = 'sk_test_fault_test';
 const PASSWORD = 'fault-test-password-1';
 const SHOPPERS = 8;
+/** up: any answer below 500 (the fake's API answers 401 without a key) */
+const answers = (res: Response) => res.status < 500;
 
 const children: ChildProcess[] = [];
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-fault-'));
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
-
-function start(script: string, env: Record<string, string>, log: string[]): ChildProcess {
-  // `node --import tsx` runs the script in this one process (the tsx CLI would put it in a child
-  // that a SIGKILL of the parent leaves running)
-  const child = spawn(process.execPath, ['--import', 'tsx', script], { cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
-  child.stdout!.on('data', (d: Buffer) => log.push(d.toString()));
-  child.stderr!.on('data', (d: Buffer) => log.push(d.toString()));
-  children.push(child);
-  return child;
-}
-
-async function waitFor(url: string, ms = 60_000): Promise<void> {
-  const until = Date.now() + ms;
-  for (;;) {
-    try {
-      const r = await fetch(url);
-      if (r.status < 500) return;
-    } catch {
-      /* not up yet */
-    }
-    if (Date.now() > until) throw new Error(`${url} did not come up within ${ms} ms`);
-    await new Promise((r) => setTimeout(r, 150));
-  }
-}
-
-function exited(child: ChildProcess): Promise<void> {
-  return new Promise((r) => (child.exitCode !== null || child.signalCode !== null ? r() : child.once('exit', () => r())));
-}
-
-/** A shopper: fetch with its own cookie jar and the app's Origin (as a browser sends). */
-function shopper(base: string) {
-  const jar = new Map<string, string>();
-  return async (p: string, body?: unknown) => {
-    const res = await fetch(base + p, {
-      method: body === undefined ? 'GET' : 'POST',
-      headers: { origin: base, cookie: [...jar].map(([k, v]) => `${k}=${v}`).join('; '), ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    });
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const i = pair!.indexOf('=');
-      jar.set(pair!.slice(0, i), pair!.slice(i + 1));
-    }
-    const text = await res.text();
-    return { status: res.status, body: text ? (JSON.parse(text) as Record<string, any>) : {} }; // eslint-disable-line @typescript-eslint/no-explicit-any
-  };
+/** Starts `script` as a process of its own; afterAll stops it. */
+function start(script: string, env: Record<string, string>, log: string[]): ServerProcess {
+  const started = startTsProcess(script, { ...process.env, ...env }, log);
+  children.push(started.child);
+  return started;
 }
 
 afterAll(async () => {
-  for (const c of children) if (c.exitCode === null && c.signalCode === null) c.kill('SIGTERM');
-  await Promise.all(children.map(exited));
+  await Promise.all(children.map((c) => stopProcess(c)));
   fs.rmSync(dataDir, { recursive: true, force: true });
 });
 
@@ -93,7 +43,7 @@ describe('checkout survives a killed server', () => {
     const fakeUrl = `http://127.0.0.1:${fakePort}`;
     const fakeLog: string[] = [];
     const appLog: string[] = [];
-    start('fakes/stripe/main.ts', {
+    const fake = start('fakes/stripe/main.ts', {
       STRIPE_FAKE_PORT: String(fakePort),
       DATA_DIR: path.join(dataDir, 'fake'),
       STRIPE_WEBHOOK_URL: `http://127.0.0.1:${appPort}/api/payments/webhook`,
@@ -114,11 +64,11 @@ describe('checkout survives a killed server', () => {
       CLIENT_DIR: path.join(dataDir, 'no-client'), // API only
     };
     let app = start('server/index.ts', appEnv, appLog);
-    await waitFor(`${fakeUrl}/v1/charges`);
-    await waitFor(`${base}/api/health`);
+    await waitUntilUp(`${fakeUrl}/v1/charges`, { server: fake, ms: 60_000, ready: answers });
+    await waitUntilUp(`${base}/api/health`, { server: app, ms: 60_000, ready: answers });
 
     // the demo's two live shops, one listing each
-    const catalog = shopper(base);
+    const catalog = cookieClient(base);
     const listings = await Promise.all(
       ['autumn-fox-tote-with-a-name', 'rocket-name-tee-for-kids'].map(async (slug) => (await catalog(`/api/listings/${slug}`)).body),
     );
@@ -127,20 +77,22 @@ describe('checkout survives a killed server', () => {
     // shoppers with a two-shop cart and an open Checkout Session each
     const sessions = await Promise.all(
       Array.from({ length: SHOPPERS }, async (_, i) => {
-        const c = shopper(base);
-        const signUp = await c('/api/auth/sign-up/email', { email: `fault-${i}@namesake.test`, password: PASSWORD, name: `Fault Shopper ${i}` });
+        const c = cookieClient(base);
+        const signUp = await c('/api/auth/sign-up/email', { body: { email: `fault-${i}@namesake.test`, password: PASSWORD, name: `Fault Shopper ${i}` } });
         expect(signUp.status, JSON.stringify(signUp.body)).toBe(200);
         for (const l of listings) {
           const f = l.content.personalisation.textFields[0];
           const m = l.content.personalisation.motifChoices[0];
           const add = await c('/api/cart/lines', {
-            listingId: l.id,
-            quantity: 1,
-            choices: { texts: { [f.id]: { text: ['Mira', 'Theo', 'Kai', 'Leon'][i % 4], fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm } }, motifId: m ? m.motifId : null },
+            body: {
+              listingId: l.id,
+              quantity: 1,
+              choices: { texts: { [f.id]: { text: ['Mira', 'Theo', 'Kai', 'Leon'][i % 4], fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm } }, motifId: m ? m.motifId : null },
+            },
           });
           expect(add.status, JSON.stringify(add.body)).toBe(201);
         }
-        const co = await c('/api/checkout', {});
+        const co = await c('/api/checkout', { body: {} });
         expect(co.status, JSON.stringify(co.body)).toBe(201);
         return co.body as { url: string; sessionId: string; checkoutId: string };
       }),
@@ -154,14 +106,13 @@ describe('checkout survives a killed server', () => {
     // the first half pay; the server is killed while their webhooks are being delivered
     const firstHalf = sessions.slice(0, SHOPPERS / 2);
     await Promise.all(firstHalf.map(pay));
-    app.kill('SIGKILL');
-    await exited(app);
+    await stopProcess(app.child, 'SIGKILL');
     // the second half pay while the server is down: the fake cannot deliver and will retry
     await Promise.all(sessions.slice(SHOPPERS / 2).map(pay));
 
     // restart on the same data folder
     app = start('server/index.ts', appEnv, appLog);
-    await waitFor(`${base}/api/health`);
+    await waitUntilUp(`${base}/api/health`, { server: app, ms: 60_000, ready: answers });
 
     // wait for the fake's retries to land and the transfers to follow
     const dbFile = path.join(appEnv.DATA_DIR, 'namesake.db');

@@ -8,17 +8,14 @@
 // (net of the fee returned on refunded parts), and the provider's own figures (the charge's
 // amount_refunded, each transfer's amount − amount_reversed) must equal what the ledger says.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import Stripe from 'stripe';
 import { eq } from 'drizzle-orm';
 import { checkouts, ledger, orders, refundIntents, refunds, shops, user } from '../../server/db/schema.ts';
 import { refundOrder } from '../../server/features/refunds/refunds.service.ts';
 import { CARDS, WEBHOOK_SECRET, checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, payOnPage, waitFor, type World } from './checkout.fixtures.ts';
 
 let w: World;
-let stripe: Stripe;
 beforeAll(async () => {
   w = await makeWorld();
-  stripe = new Stripe('sk_test_checkout_tests', { host: '127.0.0.1', port: w.fake.port, protocol: 'http' });
 }, 30_000);
 afterAll(async () => w?.teardown());
 
@@ -61,13 +58,13 @@ async function expectLedgerMatchesProvider(orderId: string) {
   const sum = (k: string) => ledgerSum(orderId, k);
   expect(sum('charge') + sum('refund')).toBe(sum('transfer') + sum('refund_reversal') + sum('platform_fee'));
   const c = checkoutOf(orderId);
-  const pi = await stripe.paymentIntents.retrieve(c.paymentIntentId!);
-  const charge = await stripe.charges.retrieve(pi.latest_charge as string);
+  const pi = await w.stripe.paymentIntents.retrieve(c.paymentIntentId!);
+  const charge = await w.stripe.charges.retrieve(pi.latest_charge as string);
   expect(charge.amount_refunded).toBe(-sum('refund'));
   expect(charge.amount_refunded).toBeLessThanOrEqual(charge.amount);
-  const providerRefunds = (await stripe.refunds.list({ payment_intent: c.paymentIntentId!, limit: 100 })).data;
+  const providerRefunds = (await w.stripe.refunds.list({ payment_intent: c.paymentIntentId!, limit: 100 })).data;
   expect(providerRefunds.reduce((a, r) => a + r.amount, 0)).toBe(-sum('refund'));
-  const transfers = (await stripe.transfers.list({ transfer_group: `checkout_${c.id}`, limit: 100 })).data.filter((t) => t.metadata.orderId === orderId);
+  const transfers = (await w.stripe.transfers.list({ transfer_group: `checkout_${c.id}`, limit: 100 })).data.filter((t) => t.metadata.orderId === orderId);
   expect(transfers.reduce((a, t) => a + t.amount - t.amount_reversed, 0)).toBe(sum('transfer') + sum('refund_reversal'));
   return { refunded: -sum('refund'), transfers };
 }
@@ -84,7 +81,7 @@ describe('refunds at the same moment', () => {
     expect(refunded).toBe(6500);
     expect(recordedRefunds(orderId).reduce((x, r) => x + r.amountMinor, 0)).toBe(6500);
     // every refund taken back from the shop in full: the transfer of 5980 is reversed to nothing
-    const t = await stripe.transfers.retrieve(order(orderId).transferId!);
+    const t = await w.stripe.transfers.retrieve(order(orderId).transferId!);
     expect(t.amount - t.amount_reversed).toBe(0);
   });
 
@@ -95,7 +92,7 @@ describe('refunds at the same moment', () => {
     expect(ok.length).toBeGreaterThanOrEqual(1);
     expect(replies.every((r) => r.status === 201 || r.status === 409)).toBe(true);
     expect(new Set(ok.map((r) => r.body.refundId)).size).toBe(1);
-    const providerRefunds = (await stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data;
+    const providerRefunds = (await w.stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data;
     expect(providerRefunds.map((r) => r.amount)).toEqual([4000]);
     expect(recordedRefunds(orderId)).toHaveLength(1);
     await expectLedgerMatchesProvider(orderId);
@@ -113,7 +110,7 @@ describe('refunds at the same moment', () => {
     const replies = await Promise.all([seller.post(`/api/orders/${orderId}/refunds`).send({}), boss.post(`/api/orders/${orderId}/refunds`).send({}), seller.post(`/api/orders/${orderId}/refunds`).send({})]);
     expect(replies.every((r) => r.status === 201 || r.status === 409)).toBe(true);
     expect(new Set(replies.filter((r) => r.status === 201).map((r) => r.body.refundId)).size).toBe(1);
-    expect((await stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data.map((r) => r.amount)).toEqual([6500]);
+    expect((await w.stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data.map((r) => r.amount)).toEqual([6500]);
     await expectLedgerMatchesProvider(orderId);
   });
 
@@ -200,17 +197,17 @@ describe('refund recorded from the charge.refunded webhook', () => {
     expect(intent.state).toBe('succeeded');
     expect(recordedRefunds(orderId)[0]!.providerRefundId).toBe(intent.providerRefundId);
     await expectLedgerMatchesProvider(orderId);
-    expect((await stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data).toHaveLength(1);
+    expect((await w.stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data).toHaveLength(1);
     // asking again is refused; still one refund at the provider
     const seller = await w.signIn(shop.seller.email);
     expect((await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo })).status).toBe(409);
-    expect((await stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data).toHaveLength(1);
+    expect((await w.stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data).toHaveLength(1);
   });
 });
 
 describe('the webhook believes the provider, not the posted body', () => {
   const post = (payload: string) =>
-    fetch(`${w.appUrl}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }) }, body: payload });
+    fetch(`${w.appUrl}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }) }, body: payload });
   const completed = (id: string, object: Record<string, unknown>) =>
     JSON.stringify({ id, object: 'event', type: 'checkout.session.completed', created: Math.floor(Date.now() / 1000), data: { object: { object: 'checkout.session', ...object } } });
 

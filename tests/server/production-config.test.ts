@@ -3,7 +3,6 @@
 // environment of its own, so nothing from the test runner's environment leaks in.
 import fs from 'node:fs';
 import os from 'node:os';
-import net from 'node:net';
 import path from 'node:path';
 import { spawn, type ChildProcess } from 'node:child_process';
 import Database from 'better-sqlite3';
@@ -12,6 +11,7 @@ import request from 'supertest';
 import { loadEnv } from '../../server/env.ts';
 import { makeTestApp } from '../factories/app.ts';
 import { seedDemo } from '../../server/db/seed.ts';
+import { freePort } from '../../scripts/lib/server-process.ts';
 
 const TSX = ['node_modules/tsx/dist/cli.mjs'];
 const SECRET = 'a-test-secret-of-forty-characters-xxxxxxx';
@@ -28,17 +28,6 @@ afterAll(() => {
   for (const c of children) if (c.exitCode === null && c.signalCode === null) c.kill('SIGKILL');
   for (const d of dirs) fs.rmSync(d, { recursive: true, force: true });
 });
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 /** Only what a shell would pass on: no NODE_ENV=test or other settings of the test runner. */
 const clean = (env: Record<string, string>) => ({ PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? os.tmpdir(), ...env });

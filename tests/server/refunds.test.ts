@@ -1,16 +1,13 @@
 // Refunds through the Stripe fake: the charge is refunded, the shop's transfer reversed for its
 // part ("separate charges and transfers": the platform bears refunds; Stripe Connect docs).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import Stripe from 'stripe';
 import { eq } from 'drizzle-orm';
 import { checkouts, ledger, orderLines, orders, refundIntents } from '../../server/db/schema.ts';
 import { checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, waitFor, type World } from './checkout.fixtures.ts';
 
 let w: World;
-let stripe: Stripe;
 beforeAll(async () => {
   w = await makeWorld();
-  stripe = new Stripe('sk_test_checkout_tests', { host: '127.0.0.1', port: w.fake.port, protocol: 'http' });
 }, 30_000);
 afterAll(async () => w?.teardown());
 
@@ -38,10 +35,10 @@ describe('refunds', () => {
 
     const o = w.db.select().from(orders).where(eq(orders.id, orderId)).get()!;
     const c = w.db.select().from(checkouts).where(eq(checkouts.id, o.checkoutId)).get()!;
-    const refunds = await stripe.refunds.list({ payment_intent: c.paymentIntentId! });
+    const refunds = await w.stripe.refunds.list({ payment_intent: c.paymentIntentId! });
     expect(refunds.data.map((r) => r.amount)).toEqual([4000]);
     // shop total 6500, fee round(6500 × 0.08) = 520, transfer 5980; the line's share: round(4000 × 5980 / 6500) = 3680
-    const transfer = await stripe.transfers.retrieve(o.transferId!);
+    const transfer = await w.stripe.transfers.retrieve(o.transferId!);
     expect(transfer.amount).toBe(5980);
     expect(transfer.amount_reversed).toBe(3680);
     const rows = w.db.select().from(ledger).where(eq(ledger.orderId, orderId)).all();
@@ -59,7 +56,7 @@ describe('refunds', () => {
 
     // the same line twice → 409, nothing more refunded
     expect((await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo.id })).status).toBe(409);
-    expect((await stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toHaveLength(1);
+    expect((await w.stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toHaveLength(1);
   });
 
   it('when an admin refunds the whole order after a line refund, then the rest (shipping included) goes back and the transfer is fully reversed', async () => {
@@ -73,7 +70,7 @@ describe('refunds', () => {
     expect(all.body.amountMinor).toBe(6500 - 2000);
     expect(all.body.order.lines.every((l: { state: string }) => l.state === 'refunded')).toBe(true);
     expect(all.body.order.refundedMinor).toBe(6500);
-    const transfer = await stripe.transfers.retrieve(shopOwner.transferId!);
+    const transfer = await w.stripe.transfers.retrieve(shopOwner.transferId!);
     expect(transfer.amount_reversed).toBe(transfer.amount);
     expect((await admin.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(409);
   });
@@ -98,7 +95,7 @@ describe('refunds', () => {
     expect(res.body.error.message).toBe('This item is cancelled; nothing more can happen to it.');
     const o = w.db.select().from(orders).where(eq(orders.id, orderId)).get()!;
     const c = w.db.select().from(checkouts).where(eq(checkouts.id, o.checkoutId)).get()!;
-    expect((await stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toEqual([]);
+    expect((await w.stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toEqual([]);
     expect(w.db.select().from(refundIntents).where(eq(refundIntents.orderId, orderId)).all()).toEqual([]);
     expect(w.db.select().from(orderLines).where(eq(orderLines.id, mira.id)).get()!.state).toBe('cancelled');
   });

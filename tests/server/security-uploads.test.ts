@@ -3,12 +3,12 @@
 // refused with a clear message, nothing written to disk or to the database (OWASP ASVS 5.2.1
 // size, 5.2.2 magic bytes, 5.2.6 pixel flood, 1.3.4 SVG script, 1.5.1 external entities).
 import fs from 'node:fs';
-import zlib from 'node:zlib';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import type { Agent } from 'supertest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { dbFingerprint } from '../factories/sweep.ts';
+import { pngHeader } from '../factories/images.ts';
 
 let t: TestApp;
 let seller: Agent;
@@ -20,23 +20,6 @@ afterAll(async () => t?.close());
 
 const filesOnDisk = () => (fs.existsSync(t.env.uploadsDir) ? fs.readdirSync(t.env.uploadsDir, { recursive: true }).map(String).sort() : []);
 
-/** A PNG whose IHDR claims the size, without the pixels (PNG spec, ISO/IEC 15948). */
-function pngHeader(width: number, height: number): Buffer {
-  const chunk = (type: string, data: Buffer) => {
-    const len = Buffer.alloc(4);
-    len.writeUInt32BE(data.length);
-    const td = Buffer.concat([Buffer.from(type, 'ascii'), data]);
-    const crc = Buffer.alloc(4);
-    crc.writeUInt32BE(zlib.crc32(td));
-    return Buffer.concat([len, td, crc]);
-  };
-  const ihdr = Buffer.alloc(13);
-  ihdr.writeUInt32BE(width, 0);
-  ihdr.writeUInt32BE(height, 4);
-  ihdr[8] = 8;
-  ihdr[9] = 2;
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', zlib.deflateSync(Buffer.alloc(0))), chunk('IEND', Buffer.alloc(0))]);
-}
 const png = () => sharp({ create: { width: 64, height: 48, channels: 3, background: '#2f7d6d' } }).png().toBuffer();
 const gif = Buffer.from('R0lGODlhAQABAIAAAAAAAP///yH5BAEAAAAALAAAAAABAAEAAAIBRAA7', 'base64');
 

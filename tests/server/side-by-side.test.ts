@@ -10,6 +10,7 @@ import { startNamesake, type Running } from '../../server/runtime.ts';
 import { createMailer } from '../../server/integrations/mailer.ts';
 import { listMail } from '../../fakes/mail/store.ts';
 import { eventually } from '../factories/app.ts';
+import { freePort } from '../../scripts/lib/server-process.ts';
 
 const running: Running[] = [];
 const dirs: string[] = [];
@@ -17,17 +18,6 @@ afterAll(async () => {
   for (const r of running) await r.stop();
   for (const d of dirs) fs.rmSync(d, { recursive: true, force: true });
 });
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 test('when a second runtime starts with the same fake ports, then it runs beside the first on free ones, each with its own mail and payments', async () => {
   // the "usual" ports both runtimes ask for (free ones here, so the test never touches 2525/12111)

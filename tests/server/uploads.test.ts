@@ -1,11 +1,11 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import zlib from 'node:zlib';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
 import { sql } from 'drizzle-orm';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
+import { pngHeader } from '../factories/images.ts';
 import { TWO_LAYER_SVG, liveListing } from './listings.fixtures.ts';
 
 let t: TestApp;
@@ -23,24 +23,6 @@ afterAll(async () => t.close());
 const filesOnDisk = () => (fs.existsSync(t.env.uploadsDir) ? fs.readdirSync(t.env.uploadsDir).sort() : []);
 const uploadRows = () => t.db.get<{ n: number }>(sql`select count(*) as n from uploads`)!.n;
 const motifRows = () => t.db.get<{ n: number }>(sql`select count(*) as n from motifs`)!.n;
-
-/** A PNG whose IHDR claims the given size, with no pixel data (PNG spec, ISO/IEC 15948: signature, IHDR, IEND). */
-function pngHeader(width: number, height: number): Buffer {
-  const chunk = (type: string, data: Buffer) => {
-    const len = Buffer.alloc(4);
-    len.writeUInt32BE(data.length);
-    const td = Buffer.concat([Buffer.from(type, 'ascii'), data]);
-    const crc = Buffer.alloc(4);
-    crc.writeUInt32BE(zlib.crc32(td));
-    return Buffer.concat([len, td, crc]);
-  };
-  const ihdr = Buffer.alloc(13);
-  ihdr.writeUInt32BE(width, 0);
-  ihdr.writeUInt32BE(height, 4);
-  ihdr[8] = 8; // bit depth
-  ihdr[9] = 2; // truecolour
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', zlib.deflateSync(Buffer.alloc(0))), chunk('IEND', Buffer.alloc(0))]);
-}
 
 const png = (w = 640, h = 480) => sharp({ create: { width: w, height: h, channels: 3, background: '#2f7d6d' } }).png().toBuffer();
 

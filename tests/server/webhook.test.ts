@@ -3,16 +3,13 @@
 // each event processed once (Stripe API docs, "Handle duplicate events"), and nothing lost when
 // our server is down at delivery time (the fake retries with back-off, as Stripe does).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import Stripe from 'stripe';
 import { eq } from 'drizzle-orm';
 import { checkouts, ledger, orders, webhookEvents } from '../../server/db/schema.ts';
 import { CARDS, WEBHOOK_SECRET, makeShopWithListing, makeWorld, nameChoices, payOnPage, waitFor, type World } from './checkout.fixtures.ts';
 
 let w: World;
-let stripe: Stripe;
 beforeAll(async () => {
   w = await makeWorld();
-  stripe = new Stripe('sk_test_checkout_tests', { host: '127.0.0.1', port: w.fake.port, protocol: 'http' });
 }, 30_000);
 afterAll(async () => w?.teardown());
 
@@ -51,13 +48,13 @@ describe('payment webhook', () => {
     const before = counts();
 
     const replies = await Promise.all(
-      Array.from({ length: 10 }, () => post(payload, stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }))),
+      Array.from({ length: 10 }, () => post(payload, w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }))),
     );
     expect(replies.map((r) => r.status)).toEqual(Array(10).fill(200));
     expect(counts()).toEqual(before);
     expect(w.db.select().from(orders).where(eq(orders.checkoutId, started.checkoutId)).all()).toHaveLength(2);
     const c = w.db.select().from(checkouts).where(eq(checkouts.id, started.checkoutId)).get()!;
-    expect((await stripe.transfers.list({ transfer_group: `checkout_${c.id}` })).data).toHaveLength(2);
+    expect((await w.stripe.transfers.list({ transfer_group: `checkout_${c.id}` })).data).toHaveLength(2);
     await new Promise((r) => setTimeout(r, 300));
     expect((await w.mailTo(buyer.email)).filter((m) => /order/i.test(m.subject))).toHaveLength(1);
   });
@@ -75,11 +72,11 @@ describe('payment webhook', () => {
     const payload = JSON.stringify(fakeEvent);
     const before = counts();
 
-    const wrongSecret = await post(payload, stripe.webhooks.generateTestHeaderString({ payload, secret: 'whsec_not_ours' }));
+    const wrongSecret = await post(payload, w.stripe.webhooks.generateTestHeaderString({ payload, secret: 'whsec_not_ours' }));
     expect(wrongSecret.status).toBe(400);
-    const tampered = await post(payload.replace('"paid"', '"paid" '), stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }));
+    const tampered = await post(payload.replace('"paid"', '"paid" '), w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }));
     expect(tampered.status).toBe(400);
-    const stale = await post(payload, stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET, timestamp: Math.floor(Date.now() / 1000) - 301 }));
+    const stale = await post(payload, w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET, timestamp: Math.floor(Date.now() / 1000) - 301 }));
     expect(stale.status).toBe(400);
     const missing = await fetch(`${w.appUrl}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: payload });
     expect(missing.status).toBe(400);

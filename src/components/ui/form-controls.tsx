@@ -1,5 +1,6 @@
 import { formatMoney, minorDigits, parseMajor } from '../../../shared/money.ts';
-import { useId, useState, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+import { useId, useState, type FormEventHandler, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
+import { Button } from './button.tsx';
 
 /** Field pieces that match TextField: label, hint and error linked with aria-describedby. */
 
@@ -24,45 +25,63 @@ function useDescribed(hint?: ReactNode, error?: string) {
   return { id, hintId, errorId, describedBy };
 }
 
-type TextAreaProps = Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, 'id'> & { label: string; hint?: ReactNode; error?: string; ref?: Ref<HTMLTextAreaElement> };
+function FieldHint({ id, hint }: { id: string; hint?: ReactNode }) {
+  return hint ? (
+    <p id={id} className="text-sm text-ink-soft">
+      {hint}
+    </p>
+  ) : null;
+}
 
-export function TextAreaField({ label, hint, error, className = '', ref, rows = 4, ...rest }: TextAreaProps) {
+/** What a field's control needs to be read out with its label, hint and error. */
+export type FieldControlProps = { id: string; 'aria-invalid': true | undefined; 'aria-describedby': string | undefined; className: string };
+
+/** The field around a control: its label, the hint under it, the error, and classes for the wrapper. */
+export type FieldProps = { label: ReactNode; hint?: ReactNode; error?: string; className?: string };
+
+/** A field component's props split into the field's own and the rest (for its control). */
+export function splitFieldProps<P extends FieldProps>({ label, hint, error, className, ...rest }: P): [FieldProps, Omit<P, keyof FieldProps>] {
+  return [{ label, hint, error, className }, rest];
+}
+
+/**
+ * The one field layout: label, hint, the control, error. `control` renders the input, select or
+ * textarea with the props it is given (id, aria-invalid, aria-describedby, the field's classes).
+ */
+export function Field({ label, hint, error, className = '', control }: FieldProps & { control: (props: FieldControlProps) => ReactNode }) {
   const d = useDescribed(hint, error);
   return (
     <div className={`flex flex-col gap-1.5 ${className}`}>
       <label htmlFor={d.id} className="font-bold text-ink">
         {label}
       </label>
-      {hint ? (
-        <p id={d.hintId} className="text-sm text-ink-soft">
-          {hint}
-        </p>
-      ) : null}
-      <textarea id={d.id} ref={ref} rows={rows} aria-invalid={error ? true : undefined} aria-describedby={d.describedBy} className={controlClasses(error)} {...rest} />
+      <FieldHint id={d.hintId} hint={hint} />
+      {control({ id: d.id, 'aria-invalid': error ? true : undefined, 'aria-describedby': d.describedBy, className: controlClasses(error) })}
       <FieldError id={d.errorId} message={error} />
     </div>
   );
 }
 
-type SelectProps = Omit<SelectHTMLAttributes<HTMLSelectElement>, 'id'> & { label: string; hint?: ReactNode; error?: string; ref?: Ref<HTMLSelectElement>; children: ReactNode };
+type TextAreaProps = Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, 'id'> & FieldProps & { label: string; ref?: Ref<HTMLTextAreaElement> };
 
-export function SelectField({ label, hint, error, className = '', ref, children, ...rest }: SelectProps) {
-  const d = useDescribed(hint, error);
+export function TextAreaField({ ref, rows = 4, ...props }: TextAreaProps) {
+  const [field, rest] = splitFieldProps(props);
+  return <Field {...field} control={(c) => <textarea {...c} ref={ref} rows={rows} {...rest} />} />;
+}
+
+type SelectProps = Omit<SelectHTMLAttributes<HTMLSelectElement>, 'id'> & FieldProps & { label: string; ref?: Ref<HTMLSelectElement>; children: ReactNode };
+
+export function SelectField({ ref, children, ...props }: SelectProps) {
+  const [field, rest] = splitFieldProps(props);
   return (
-    <div className={`flex flex-col gap-1.5 ${className}`}>
-      <label htmlFor={d.id} className="font-bold text-ink">
-        {label}
-      </label>
-      {hint ? (
-        <p id={d.hintId} className="text-sm text-ink-soft">
-          {hint}
-        </p>
-      ) : null}
-      <select id={d.id} ref={ref} aria-invalid={error ? true : undefined} aria-describedby={d.describedBy} className={controlClasses(error)} {...rest}>
-        {children}
-      </select>
-      <FieldError id={d.errorId} message={error} />
-    </div>
+    <Field
+      {...field}
+      control={(c) => (
+        <select {...c} ref={ref} {...rest}>
+          {children}
+        </select>
+      )}
+    />
   );
 }
 
@@ -77,11 +96,7 @@ export function CheckboxField({ label, hint, className = '', ref, ...rest }: Che
         <label htmlFor={d.id} className="font-bold text-ink">
           {label}
         </label>
-        {hint ? (
-          <p id={d.hintId} className="text-sm text-ink-soft">
-            {hint}
-          </p>
-        ) : null}
+        <FieldHint id={d.hintId} hint={hint} />
       </div>
     </div>
   );
@@ -125,6 +140,18 @@ export function ProgressBar({ value, label }: { value: number | null; label: str
   );
 }
 
+/** A one-column form: its fields, then the submit button, which shows `pendingLabel` while `pending`. */
+export function SubmitForm({ onSubmit, pending, pendingLabel, submitLabel, children }: { onSubmit: FormEventHandler<HTMLFormElement>; pending: boolean; pendingLabel: string; submitLabel: string; children: ReactNode }) {
+  return (
+    <form noValidate onSubmit={onSubmit} className="flex flex-col gap-5">
+      {children}
+      <Button type="submit" pending={pending} pendingLabel={pendingLabel} className="w-full sm:w-auto sm:self-start">
+        {submitLabel}
+      </Button>
+    </form>
+  );
+}
+
 /** A titled group of fields. */
 export function FormSection({ title, lead, children, className = '' }: { title: string; lead?: ReactNode; children: ReactNode; className?: string }) {
   return (
@@ -153,47 +180,38 @@ type MoneyFieldProps = {
  * Money typed in major units ("12.50"), held as integer minor units. Text that is not an amount
  * gives NaN, which the form's zod schema reports next to the field.
  */
-export function MoneyField({ label, hint, error, currency, value, onChange, onBlur, name, className = '' }: MoneyFieldProps) {
-  const d = useDescribed(hint, error);
+export function MoneyField({ currency, value, onChange, onBlur, name, ...field }: MoneyFieldProps) {
   const digits = minorDigits(currency);
   const [text, setText] = useState(() => (value === undefined || Number.isNaN(value) ? '' : (value / 10 ** digits).toFixed(digits)));
   const symbol = formatMoney(0, currency).replace(/[\d.,]/g, '');
   return (
-    <div className={`flex flex-col gap-1.5 ${className}`}>
-      <label htmlFor={d.id} className="font-bold text-ink">
-        {label}
-      </label>
-      {hint ? (
-        <p id={d.hintId} className="text-sm text-ink-soft">
-          {hint}
-        </p>
-      ) : null}
-      <div className="relative">
-        <span aria-hidden="true" className="pointer-events-none absolute inset-y-0 left-3.5 flex items-center font-bold text-ink-soft">
-          {symbol}
-        </span>
-        <input
-          id={d.id}
-          name={name}
-          inputMode="decimal"
-          autoComplete="off"
-          value={text}
-          aria-invalid={error ? true : undefined}
-          aria-describedby={d.describedBy}
-          className={`${controlClasses(error)} pl-8`}
-          onChange={(e) => {
-            setText(e.target.value);
-            const minor = parseMajor(e.target.value, currency);
-            onChange(minor === null ? Number.NaN : minor);
-          }}
-          onBlur={() => {
-            const minor = parseMajor(text, currency);
-            if (minor !== null) setText((minor / 10 ** digits).toFixed(digits));
-            onBlur?.();
-          }}
-        />
-      </div>
-      <FieldError id={d.errorId} message={error} />
-    </div>
+    <Field
+      {...field}
+      control={(c) => (
+        <div className="relative">
+          <span aria-hidden="true" className="pointer-events-none absolute inset-y-0 left-3.5 flex items-center font-bold text-ink-soft">
+            {symbol}
+          </span>
+          <input
+            {...c}
+            className={`${c.className} pl-8`}
+            name={name}
+            inputMode="decimal"
+            autoComplete="off"
+            value={text}
+            onChange={(e) => {
+              setText(e.target.value);
+              const minor = parseMajor(e.target.value, currency);
+              onChange(minor === null ? Number.NaN : minor);
+            }}
+            onBlur={() => {
+              const minor = parseMajor(text, currency);
+              if (minor !== null) setText((minor / 10 ** digits).toFixed(digits));
+              onBlur?.();
+            }}
+          />
+        </div>
+      )}
+    />
   );
 }

@@ -1,7 +1,8 @@
-import { useCallback } from 'react';
+import { useCallback, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PAGE_MAX, pageCount } from '../../../shared/schemas/pagination.ts';
 import { Button } from './button.tsx';
+import { StitchedBox } from './card.tsx';
 
 /**
  * The page number of a list, kept in the URL (`?page=2`, or another name when a screen has two
@@ -74,5 +75,29 @@ export function Pager({ page, total, limit, label, noun, onPageChange, className
         </Button>
       </div>
     </nav>
+  );
+}
+
+/**
+ * A page of a paged list that has come: `empty` (in a stitched box) when the list has nothing at
+ * all; otherwise `children`, the page's rows, dimmed while the next page loads (`stale`), with the
+ * pager under them.
+ */
+export function PagedResults({
+  page,
+  onPageChange,
+  label,
+  noun,
+  data,
+  stale,
+  empty,
+  children,
+}: Omit<PagerProps, 'total' | 'limit' | 'className'> & { data: { total: number; limit: number }; stale: boolean; empty: ReactNode; children: ReactNode }) {
+  if (data.total === 0) return <StitchedBox>{empty}</StitchedBox>;
+  return (
+    <div className="flex flex-col gap-4">
+      <div className={stale ? 'opacity-60 transition-opacity' : ''}>{children}</div>
+      <Pager page={page} total={data.total} limit={data.limit} label={label} noun={noun} onPageChange={onPageChange} />
+    </div>
   );
 }

@@ -1,4 +1,6 @@
 import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import { paths } from '../../../config/paths.ts';
 
 /** The narrow paper panel every sign-in style page sits in. */
 export function AuthPanel({ title, lead, children, footer }: { title: string; lead?: ReactNode; children: ReactNode; footer?: ReactNode }) {
@@ -15,3 +17,12 @@ export function AuthPanel({ title, lead, children, footer }: { title: string; le
 }
 
 export const textLinkClasses = 'font-bold text-thread-deep underline decoration-2 underline-offset-4 hover:text-ink';
+
+/** The footer link of the password pages. */
+export function BackToSignIn() {
+  return (
+    <Link className={textLinkClasses} to={paths.auth.signIn.getHref()}>
+      Back to sign in
+    </Link>
+  );
+}

@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
+import { useSearchParams } from 'react-router-dom';
 import { ButtonLink } from '../../../components/ui/button.tsx';
 import { paths } from '../../../config/paths.ts';
 import { ResetPasswordForm } from '../../../features/auth/components/reset-password-form.tsx';
-import { AuthPanel, textLinkClasses } from './auth-panel.tsx';
+import { AuthPanel, BackToSignIn } from './auth-panel.tsx';
 
 export function ResetPasswordPage() {
   const [params] = useSearchParams();
@@ -32,11 +32,7 @@ export function ResetPasswordPage() {
     <AuthPanel
       title="Choose a new password"
       lead="Pick something you don't use anywhere else."
-      footer={
-        <Link className={textLinkClasses} to={paths.auth.signIn.getHref()}>
-          Back to sign in
-        </Link>
-      }
+      footer={<BackToSignIn />}
     >
       <ResetPasswordForm token={token} onDone={() => setDone(true)} />
     </AuthPanel>

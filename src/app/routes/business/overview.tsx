@@ -4,12 +4,10 @@ import { paths } from '../../../config/paths.ts';
 import { BusinessCharts } from '../../../features/business/components/business-charts.tsx';
 import { CostsTable } from '../../../features/business/components/costs-table.tsx';
 import { DueList } from '../../../features/business/components/due-list.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 
 export function BusinessOverviewPage() {
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow="Workroom" title="Your business" lead="What is due when, what each item really cost you, and what you earn after fees." />
       {/* ship-by dates and margins come from these settings, so they are one step from the overview */}
       <ButtonLink to={paths.business.settings.getHref()} variant="secondary" className="mb-8">

@@ -1,11 +1,9 @@
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { LedgerTable } from '../../../features/business/components/ledger-table.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 
 export function PayoutsPage() {
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow="Workroom" title="Payouts" lead="Every charge, fee, transfer and refund of your shop. Earned is what you keep; paid out is what reached your account." />
       <LedgerTable />
     </div>

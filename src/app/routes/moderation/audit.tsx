@@ -3,7 +3,6 @@ import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useAuditLog } from '../../../features/moderation/api/get-audit-log.ts';
 import { AuditTable } from '../../../features/moderation/components/audit-table.tsx';
-import { DeskNav } from './desk-nav.tsx';
 
 export function AuditLogPage() {
   const [page, setPage] = usePageParam();
@@ -11,7 +10,6 @@ export function AuditLogPage() {
 
   return (
     <div>
-      <DeskNav />
       <PageHeading eyebrow="Moderation desk" title="Audit log" lead="Every decision on a shop or listing: who made it, when, and the reason given." />
       {audit.isPending ? <Spinner label="Loading…" /> : null}
       {audit.isError ? <p role="alert" className="text-danger">{audit.error.message}</p> : null}

@@ -1,3 +1,4 @@
+import { Outlet } from 'react-router-dom';
 import { SectionNav, isUnder, type SectionLink } from '../../../components/ui/section-nav.tsx';
 import { paths } from '../../../config/paths.ts';
 
@@ -19,4 +20,14 @@ const links: SectionLink[] = [
 /** The one navigation of the moderation desk's pages. */
 export function DeskNav() {
   return <SectionNav label="Moderation desk pages" links={links} />;
+}
+
+/** The layout of every page of the desk: the navigation above the page. */
+export function DeskLayout() {
+  return (
+    <>
+      <DeskNav />
+      <Outlet />
+    </>
+  );
 }

@@ -9,7 +9,7 @@ import { useListingQueue, useShopChangeQueue, useShopQueue } from '../../../feat
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
 import { ShopChangeCard } from '../../../features/moderation/components/shop-change.tsx';
 import { ShopFinder } from '../../../features/moderation/components/shop-finder.tsx';
-import { DeskNav, SHOPS_SECTION_ID } from './desk-nav.tsx';
+import { SHOPS_SECTION_ID } from './desk-nav.tsx';
 
 const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 const shopStateLabel = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' } as const;
@@ -35,7 +35,6 @@ export function ModerationDeskPage() {
 
   return (
     <div>
-      <DeskNav />
       <PageHeading eyebrow="Moderation desk" title="Waiting for review" lead="Approve what is ready, or send it back with a reason the seller will receive by e-mail." />
       {pending ? <Spinner label="Loading the queue…" /> : null}
       {error ? <p role="alert" className="font-semibold text-danger">{error.message}</p> : null}

@@ -5,7 +5,6 @@ import { PageHeading } from '../../../components/ui/card.tsx';
 import { mailKeys } from '../../../features/mail/api/keys.ts';
 import { MailList } from '../../../features/mail/components/mail-list.tsx';
 import { MailViewer } from '../../../features/mail/components/mail-viewer.tsx';
-import { DeskNav } from './desk-nav.tsx';
 
 export function MailPage() {
   const [params] = useSearchParams();
@@ -14,7 +13,6 @@ export function MailPage() {
 
   return (
     <div>
-      <DeskNav />
       <PageHeading eyebrow="Moderation desk" title="Mail" lead="Messages Namesake has sent, captured by the local mail server instead of going out." />
       <div className="mb-4">
         <Button variant="secondary" onClick={() => queryClient.invalidateQueries({ queryKey: mailKeys.lists() })}>

@@ -12,7 +12,6 @@ import { useListingReview } from '../../../features/moderation/api/get-listing-r
 import { ListingPreview } from '../../../features/moderation/components/listing-preview.tsx';
 import { ReasonForm } from '../../../features/moderation/components/reason-form.tsx';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
-import { DeskNav } from './desk-nav.tsx';
 
 const PARTS: [keyof ListingContent, string][] = [
   ['title', 'title'], ['description', 'description'], ['blank', 'blank'], ['basePriceMinor', 'base price'], ['extraLayerPriceMinor', 'extra-layer price'],
@@ -50,7 +49,6 @@ export function ReviewListingPage() {
 
   return (
     <div>
-      <DeskNav />
       <PageHeading eyebrow="Moderation desk" title={item ? item.title : 'Review a listing'} />
       {review.isPending && id ? <Spinner label="Loading…" /> : null}
       {review.isError ? (

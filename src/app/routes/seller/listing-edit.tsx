@@ -11,7 +11,6 @@ import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts'
 import { useMotifs } from '../../../features/uploads/api/get-motifs.ts';
 import { MotifPreview, MotifUpload } from '../../../features/uploads/components/motif-upload.tsx';
 import { PhotoPicker } from '../../../features/uploads/components/photo-picker.tsx';
-import { SellerNav } from './seller-nav.tsx';
 
 /** New listing (/workroom/listings/new) and edit (/workroom/listings/:id/edit). */
 export function ListingEditPage() {
@@ -29,7 +28,6 @@ export function ListingEditPage() {
 
   return (
     <div>
-      <SellerNav />
       <PageHeading
         eyebrow="Listings"
         title={id ? (listing.data ? `Edit “${listing.data.draft.title}”` : 'Edit listing') : 'New listing'}

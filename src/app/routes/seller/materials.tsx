@@ -1,15 +1,15 @@
 import { useCallback, useState } from 'react';
 import type { Material } from '../../../../shared/schemas/material.ts';
-import { Button, Spinner } from '../../../components/ui/button.tsx';
-import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
-import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { Button } from '../../../components/ui/button.tsx';
+import { PageHeading } from '../../../components/ui/card.tsx';
+import { PagedResults, usePageParam } from '../../../components/ui/pager.tsx';
+import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useMaterials } from '../../../features/materials/api/get-materials.ts';
 import { useUpdateMaterial } from '../../../features/materials/api/update-material.ts';
 import { MaterialForm } from '../../../features/materials/components/material-form.tsx';
 import { MaterialsTable } from '../../../features/materials/components/materials-table.tsx';
 import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts';
-import { SellerNav } from './seller-nav.tsx';
 
 export function MaterialsPage() {
   const [page, setPage] = usePageParam();
@@ -35,7 +35,6 @@ export function MaterialsPage() {
 
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow="Workroom" title="Materials" lead="Your vinyl rolls and sheets: colour, width, what is left, and how each one is pressed." />
       {editing ? (
         <div className="mb-8 max-w-3xl">
@@ -47,22 +46,26 @@ export function MaterialsPage() {
           Add a material
         </Button>
       )}
-      {materials.isPending ? <Spinner label="Loading materials…" /> : null}
-      {materials.isError ? <p role="alert" className="font-semibold text-danger">{materials.error.message}</p> : null}
-      {materials.data && materials.data.total === 0 ? (
-        <StitchedBox>
-          <p className="font-bold">No materials yet.</p>
-          <p className="text-ink-soft">Add the vinyl you cut from; listings offer these as colour choices.</p>
-        </StitchedBox>
-      ) : null}
-      {materials.data && materials.data.total > 0 ? (
-        <div className="flex flex-col gap-4">
-          <div className={materials.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>
-            <MaterialsTable materials={materials.data.items} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
-          </div>
-          <Pager page={page} total={materials.data.total} limit={materials.data.limit} label="Material pages" noun="materials" onPageChange={setPage} />
-        </div>
-      ) : null}
+      <QueryBoundary query={materials} loading="Loading materials…">
+        {(data) => (
+          <PagedResults
+            data={data}
+            stale={materials.isPlaceholderData}
+            page={page}
+            onPageChange={setPage}
+            label="Material pages"
+            noun="materials"
+            empty={
+              <>
+                <p className="font-bold">No materials yet.</p>
+                <p className="text-ink-soft">Add the vinyl you cut from; listings offer these as colour choices.</p>
+              </>
+            }
+          >
+            <MaterialsTable materials={data.items} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
+          </PagedResults>
+        )}
+      </QueryBoundary>
     </div>
   );
 }

@@ -1,3 +1,4 @@
+import { Outlet } from 'react-router-dom';
 import { SectionNav, isUnder, type SectionLink } from '../../../components/ui/section-nav.tsx';
 import { paths } from '../../../config/paths.ts';
 
@@ -28,4 +29,14 @@ const links: SectionLink[] = [
 /** The one navigation of the seller's pages, on every one of them: production, shop, money. */
 export function SellerNav() {
   return <SectionNav label="Seller pages" links={links} />;
+}
+
+/** The layout of every seller page: the navigation above the page. */
+export function SellerLayout() {
+  return (
+    <>
+      <SellerNav />
+      <Outlet />
+    </>
+  );
 }

@@ -15,7 +15,6 @@ import { CutSheetCard, stockWarningsText } from '../../../features/workroom/comp
 import { formatDateTime, formatLength } from '../../../features/workroom/components/format.ts';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { WorksheetDownload } from '../../../features/workroom/components/worksheet-download.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 
 function Batch({ batchId }: { batchId: string }) {
   const batch = useBatch(batchId);
@@ -150,7 +149,6 @@ export function CutSheetsPage() {
   const batchId = params.get('batch');
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow="Workroom" title="Cut sheets" lead="Approved pieces, grouped by material and colour, nested on each roll with a 6 mm gap and 6 mm edges." />
       {batchId ? (
         <>

@@ -10,7 +10,6 @@ import { MaterialChips } from '../../../features/workroom/components/material-ch
 import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { Timeline } from '../../../features/workroom/components/timeline.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
 export function WorkroomOrderPage() {
@@ -23,7 +22,6 @@ export function WorkroomOrderPage() {
   const label = (lineId: string) => o.lines.find((l) => l.id === lineId)?.text || o.lines.find((l) => l.id === lineId)?.listingTitle || '';
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow={`Order ${o.number}`} title={`For ${o.buyerName}`} lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`} />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex flex-col gap-6">

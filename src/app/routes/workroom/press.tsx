@@ -7,7 +7,6 @@ import { isApiError } from '../../../lib/api-client.ts';
 import { usePressCards } from '../../../features/workroom/api/get-press-cards.ts';
 import { useMarkPressed } from '../../../features/workroom/api/mark-pressed.ts';
 import { PressCardView } from '../../../features/workroom/components/press-card-view.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 
 export function PressPage() {
   const cards = usePressCards();
@@ -15,7 +14,6 @@ export function PressPage() {
   const toast = useToast();
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow="Workroom" title="Press cards" lead="One card for each cut item: pre-press, layers bottom to top with their tack times, the final press and where to place the design." />
       {cards.isPending ? (
         <Spinner label="Loading press cards…" />

@@ -12,7 +12,6 @@ import { LetterByLetter } from '../../../features/workroom/components/letter-by-
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { RequestChangeForm } from '../../../features/workroom/components/request-change-form.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
 export function ProofPage() {
@@ -25,7 +24,6 @@ export function ProofPage() {
   const l = p.line;
   return (
     <div>
-      <SellerNav />
       <PageHeading
         eyebrow={`Proof · order ${l.orderNumber}`}
         title={l.text || l.listingTitle}

@@ -3,14 +3,12 @@ import { PageHeading } from '../../../components/ui/card.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useStock } from '../../../features/workroom/api/get-stock.ts';
 import { StockTable } from '../../../features/workroom/components/stock-table.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 
 export function StockPage() {
   const [page, setPage] = usePageParam();
   const stock = useStock({ page });
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow="Workroom" title="Stock" lead="Vinyl left on each roll. Cutting a sheet takes its length plus the trim; you are warned when a roll runs low." />
       {stock.isPending ? <Spinner label="Loading stock…" /> : stock.isError ? <p role="alert" className="font-bold text-danger">{stock.error.message}</p> : (
         <StockTable

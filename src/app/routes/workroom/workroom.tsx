@@ -1,5 +1,4 @@
 import { PageHeading } from '../../../components/ui/card.tsx';
-import { SellerNav } from '../seller/seller-nav.tsx';
 import { lazy, Suspense } from 'react';
 import { Spinner } from '../../../components/ui/button.tsx';
 
@@ -27,7 +26,6 @@ export function WorkroomPage() {
 
   return (
     <div>
-      <SellerNav />
       <PageHeading eyebrow="Workroom" title={shop ? shop.name : 'Your workroom'} lead={`Welcome in, ${me.data?.user.name ?? ''}. Check proofs, build cut sheets, press and ship.`} />
       {shop ? (
         <div className={`mb-8 flex flex-col gap-1 rounded-lg border-2 p-5 sm:flex-row sm:items-center sm:gap-4 ${stateText[shop.state]?.tone ?? ''}`}>

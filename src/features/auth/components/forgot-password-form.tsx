@@ -1,27 +1,18 @@
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm } from 'react-hook-form';
-import { requestResetSchema, type RequestResetInput } from '../../../../shared/schemas/auth.ts';
-import { Button } from '../../../components/ui/button.tsx';
-import { TextField } from '../../../components/ui/text-field.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { applyServerErrors } from '../../../lib/form-errors.ts';
+import { requestResetSchema } from '../../../../shared/schemas/auth.ts';
+import { SubmitForm } from '../../../components/ui/form-controls.tsx';
+import { useServerForm } from '../../../lib/use-server-form.ts';
 import { useRequestPasswordReset } from '../api/request-password-reset.ts';
+import { EmailField } from './account-fields.tsx';
 
 export function ForgotPasswordForm() {
-  const toast = useToast();
   const request = useRequestPasswordReset();
-  const { register, handleSubmit, setError, formState, getValues } = useForm<RequestResetInput>({
-    resolver: zodResolver(requestResetSchema),
+  const { register, formProps, formState, getValues } = useServerForm({
+    schema: requestResetSchema,
     defaultValues: { email: '' },
-  });
-
-  const onSubmit = handleSubmit(async (values) => {
-    try {
+    fields: ['email'],
+    submit: async (values) => {
       await request.mutateAsync(values);
-    } catch (error) {
-      const message = applyServerErrors(error, setError, ['email']);
-      if (message) toast.error(message);
-    }
+    },
   });
 
   if (request.isSuccess) {
@@ -38,11 +29,8 @@ export function ForgotPasswordForm() {
   }
 
   return (
-    <form noValidate onSubmit={onSubmit} className="flex flex-col gap-5">
-      <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={formState.errors.email?.message} {...register('email')} />
-      <Button type="submit" pending={formState.isSubmitting || request.isPending} pendingLabel="Sending…" className="w-full sm:w-auto sm:self-start">
-        Send reset link
-      </Button>
-    </form>
+    <SubmitForm {...formProps} pendingLabel="Sending…" submitLabel="Send reset link">
+      <EmailField error={formState.errors.email?.message} {...register('email')} />
+    </SubmitForm>
   );
 }

@@ -1,11 +1,9 @@
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm } from 'react-hook-form';
-import { signInSchema, type SignInInput } from '../../../../shared/schemas/auth.ts';
-import { Button } from '../../../components/ui/button.tsx';
+import { signInSchema } from '../../../../shared/schemas/auth.ts';
+import { SubmitForm } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { applyServerErrors } from '../../../lib/form-errors.ts';
+import { useServerForm } from '../../../lib/use-server-form.ts';
 import { useSignIn } from '../api/sign-in.ts';
+import { EmailField } from './account-fields.tsx';
 
 export type DemoAccount = { email: string; role: string; label: string };
 
@@ -16,32 +14,23 @@ type Props = {
 };
 
 export function SignInForm({ onSignedIn, demoPassword, demoAccounts }: Props) {
-  const toast = useToast();
   const signIn = useSignIn();
-  const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
-  const { register, handleSubmit, setError, setValue, formState } = form;
-
-  const onSubmit = handleSubmit(async (values) => {
-    try {
+  const { register, formProps, setValue, formState } = useServerForm({
+    schema: signInSchema,
+    defaultValues: { email: '', password: '' },
+    fields: ['email', 'password'],
+    submit: async (values) => {
       await signIn.mutateAsync(values);
       onSignedIn();
-    } catch (error) {
-      const message = applyServerErrors(error, setError, ['email', 'password']);
-      if (message) toast.error(message);
-    }
+    },
   });
-
-  const pending = formState.isSubmitting || signIn.isPending;
 
   return (
     <div className="flex flex-col gap-8">
-      <form noValidate onSubmit={onSubmit} className="flex flex-col gap-5">
-        <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={formState.errors.email?.message} {...register('email')} />
+      <SubmitForm {...formProps} pendingLabel="Signing in…" submitLabel="Sign in">
+        <EmailField error={formState.errors.email?.message} {...register('email')} />
         <TextField label="Password" type="password" autoComplete="current-password" error={formState.errors.password?.message} {...register('password')} />
-        <Button type="submit" pending={pending} pendingLabel="Signing in…" className="w-full sm:w-auto sm:self-start">
-          Sign in
-        </Button>
-      </form>
+      </SubmitForm>
 
       {demoPassword && demoAccounts && demoAccounts.length > 0 ? (
         <section aria-labelledby="demo-accounts-title" className="rounded-lg border-2 border-dashed border-marigold bg-marigold-wash/60 p-5">

@@ -1,45 +1,27 @@
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm } from 'react-hook-form';
-import { signUpSchema, type SignUpInput } from '../../../../shared/schemas/auth.ts';
-import { Button } from '../../../components/ui/button.tsx';
+import { signUpSchema } from '../../../../shared/schemas/auth.ts';
+import { SubmitForm } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
-import { useToast } from '../../../components/ui/toast.tsx';
-import { applyServerErrors } from '../../../lib/form-errors.ts';
+import { useServerForm } from '../../../lib/use-server-form.ts';
 import { useSignUp } from '../api/sign-up.ts';
+import { EmailField, NewPasswordField } from './account-fields.tsx';
 
 export function SignUpForm({ onSignedUp }: { onSignedUp: (name: string) => void }) {
-  const toast = useToast();
   const signUp = useSignUp();
-  const { register, handleSubmit, setError, formState } = useForm<SignUpInput>({
-    resolver: zodResolver(signUpSchema),
+  const { register, formProps, formState } = useServerForm({
+    schema: signUpSchema,
     defaultValues: { name: '', email: '', password: '' },
-  });
-
-  const onSubmit = handleSubmit(async (values) => {
-    try {
+    fields: ['name', 'email', 'password'],
+    submit: async (values) => {
       await signUp.mutateAsync(values);
       onSignedUp(values.name);
-    } catch (error) {
-      const message = applyServerErrors(error, setError, ['name', 'email', 'password']);
-      if (message) toast.error(message);
-    }
+    },
   });
 
   return (
-    <form noValidate onSubmit={onSubmit} className="flex flex-col gap-5">
+    <SubmitForm {...formProps} pendingLabel="Creating your account…" submitLabel="Create account">
       <TextField label="Your name" autoComplete="name" error={formState.errors.name?.message} {...register('name')} />
-      <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={formState.errors.email?.message} {...register('email')} />
-      <TextField
-        label="Password"
-        type="password"
-        autoComplete="new-password"
-        hint="At least 8 characters. A short sentence is easy to remember and hard to guess."
-        error={formState.errors.password?.message}
-        {...register('password')}
-      />
-      <Button type="submit" pending={formState.isSubmitting || signUp.isPending} pendingLabel="Creating your account…" className="w-full sm:w-auto sm:self-start">
-        Create account
-      </Button>
-    </form>
+      <EmailField error={formState.errors.email?.message} {...register('email')} />
+      <NewPasswordField label="Password" error={formState.errors.password?.message} {...register('password')} />
+    </SubmitForm>
   );
 }

@@ -11,10 +11,37 @@ const MARIGOLD = '#e0a526';
 const PALETTE = [THREAD, MARIGOLD, INK, '#8a5a9e', '#b5523b', '#4f7fb8'];
 
 const cmIn = (mm: number) => `${(mm / 10).toFixed(1)} cm (${(mm / 25.4).toFixed(1)} in)`;
+const TICK = { fill: INK, fontSize: 12 };
 
-/** A chart panel with a switch between the chart and the same numbers as a table. */
-function ChartPanel({ id, title, lead, chart, table, empty }: { id: string; title: string; lead: string; chart: ReactNode; table: ReactNode; empty?: string }) {
+/**
+ * A chart over time periods (weeks, months) along the bottom: the grid, both axes, the tooltip
+ * (`format` writes a value) and the legend; `children` are the series (bars, lines).
+ */
+function PeriodChart({ data, period, unit, format, children }: { data: object[]; period: string; unit?: string; format: (value: number) => string; children: ReactNode }) {
+  return (
+    <ResponsiveContainer width="100%" height="100%">
+      <ComposedChart data={data} margin={{ top: 8, right: 8, left: 0, bottom: 0 }}>
+        <CartesianGrid stroke="#e4dccd" vertical={false} />
+        <XAxis dataKey={period} tick={TICK} />
+        <YAxis tick={TICK} width={48} unit={unit} />
+        <Tooltip formatter={(v) => format(Number(v))} />
+        <Legend />
+        {children}
+      </ComposedChart>
+    </ResponsiveContainer>
+  );
+}
+
+type TableSpec = { caption: string; head: string[]; rows: Array<Array<string | number>> };
+
+/**
+ * A chart panel with a switch between the chart and the same numbers as a table; with no rows in
+ * the table, the `empty` words instead of either.
+ */
+function ChartPanel({ id, title, lead, chart, table: spec, empty: emptyWords }: { id: string; title: string; lead: string; chart: ReactNode; table: TableSpec; empty: string }) {
   const [asTable, setAsTable] = useState(false);
+  const empty = spec.rows.length === 0 ? emptyWords : undefined;
+  const table = <Table {...spec} />;
   return (
     <section aria-labelledby={`${id}-title`} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4 sm:p-6">
       <div className="flex flex-wrap items-start justify-between gap-2">
@@ -37,7 +64,7 @@ function ChartPanel({ id, title, lead, chart, table, empty }: { id: string; titl
   );
 }
 
-function Table({ caption, head, rows }: { caption: string; head: string[]; rows: Array<Array<string | number>> }) {
+function Table({ caption, head, rows }: TableSpec) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full min-w-[22rem] text-left">
@@ -79,60 +106,46 @@ function ChartsBody({ data }: { data: ChartsView }) {
     <div className="grid grid-cols-1 gap-6 xl:grid-cols-2">
       <ChartPanel
         id="sales-week"
-        empty={data.weeks.length ? undefined : 'No sales yet.'}
+        empty="No sales yet."
         title="Sales and margin by week"
         lead="Weeks start on Monday. Sales include shipping; margin is after every cost and fee."
         chart={
-          <ResponsiveContainer width="100%" height="100%">
-            <ComposedChart data={weeks} margin={{ top: 8, right: 8, left: 0, bottom: 0 }}>
-              <CartesianGrid stroke="#e4dccd" vertical={false} />
-              <XAxis dataKey="week" tick={{ fill: INK, fontSize: 12 }} />
-              <YAxis tick={{ fill: INK, fontSize: 12 }} width={48} />
-              <Tooltip formatter={(v) => formatMoney(Math.round(Number(v) * 10 ** minorDigits(currency)), currency)} />
-              <Legend />
-              <Bar dataKey="sales" name="Sales" fill={THREAD} radius={[4, 4, 0, 0]} isAnimationActive={false} />
-              <Line dataKey="margin" name="Margin" stroke={MARIGOLD} strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
-            </ComposedChart>
-          </ResponsiveContainer>
+          <PeriodChart data={weeks} period="week" format={(v) => formatMoney(Math.round(v * 10 ** minorDigits(currency)), currency)}>
+            <Bar dataKey="sales" name="Sales" fill={THREAD} radius={[4, 4, 0, 0]} isAnimationActive={false} />
+            <Line dataKey="margin" name="Margin" stroke={MARIGOLD} strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
+          </PeriodChart>
         }
-        table={<Table caption="Sales and margin by week" head={['Week of', 'Items', 'Sales', 'Margin']} rows={data.weeks.map((w) => [w.week, w.items, money(w.salesMinor), money(w.marginMinor)])} />}
+        table={{ caption: 'Sales and margin by week', head: ['Week of', 'Items', 'Sales', 'Margin'], rows: data.weeks.map((w) => [w.week, w.items, money(w.salesMinor), money(w.marginMinor)]) }}
       />
       <ChartPanel
         id="vinyl-month"
-        empty={data.vinyl.length ? undefined : 'No cut sheets marked cut yet. Vinyl shows here once you cut.'}
+        empty="No cut sheets marked cut yet. Vinyl shows here once you cut."
         title="Vinyl used per material, by month"
         lead="Length of roll taken by cut sheets, trim included, in cm."
         chart={
-          <ResponsiveContainer width="100%" height="100%">
-            <BarChart data={months} margin={{ top: 8, right: 8, left: 0, bottom: 0 }}>
-              <CartesianGrid stroke="#e4dccd" vertical={false} />
-              <XAxis dataKey="month" tick={{ fill: INK, fontSize: 12 }} />
-              <YAxis tick={{ fill: INK, fontSize: 12 }} width={48} unit=" cm" />
-              <Tooltip formatter={(v) => cmIn(Number(v) * 10)} />
-              <Legend />
-              {materials.map(([id, label], i) => <Bar key={id} dataKey={id} name={label} stackId="v" fill={PALETTE[i % PALETTE.length]} isAnimationActive={false} />)}
-            </BarChart>
-          </ResponsiveContainer>
+          <PeriodChart data={months} period="month" unit=" cm" format={(v) => cmIn(v * 10)}>
+            {materials.map(([id, label], i) => <Bar key={id} dataKey={id} name={label} stackId="v" fill={PALETTE[i % PALETTE.length]} isAnimationActive={false} />)}
+          </PeriodChart>
         }
-        table={<Table caption="Vinyl used per material per month" head={['Month', 'Material', 'Used']} rows={data.vinyl.map((v) => [v.month, v.material, cmIn(v.usedMm)])} />}
+        table={{ caption: 'Vinyl used per material per month', head: ['Month', 'Material', 'Used'], rows: data.vinyl.map((v) => [v.month, v.material, cmIn(v.usedMm)]) }}
       />
       <ChartPanel
         id="by-listing"
-        empty={data.listings.length ? undefined : 'No orders yet.'}
+        empty="No orders yet."
         title="Orders by listing"
         lead="How many orders included each listing."
         chart={
           <ResponsiveContainer width="100%" height="100%">
             <BarChart data={data.listings} layout="vertical" margin={{ top: 8, right: 16, left: 8, bottom: 0 }}>
               <CartesianGrid stroke="#e4dccd" horizontal={false} />
-              <XAxis type="number" allowDecimals={false} tick={{ fill: INK, fontSize: 12 }} />
-              <YAxis type="category" dataKey="title" width={140} tick={{ fill: INK, fontSize: 12 }} />
+              <XAxis type="number" allowDecimals={false} tick={TICK} />
+              <YAxis type="category" dataKey="title" width={140} tick={TICK} />
               <Tooltip />
               <Bar dataKey="orders" name="Orders" fill={THREAD} radius={[0, 4, 4, 0]} isAnimationActive={false} />
             </BarChart>
           </ResponsiveContainer>
         }
-        table={<Table caption="Orders by listing" head={['Listing', 'Orders', 'Items', 'Sales']} rows={data.listings.map((l) => [l.title, l.orders, l.items, money(l.salesMinor)])} />}
+        table={{ caption: 'Orders by listing', head: ['Listing', 'Orders', 'Items', 'Sales'], rows: data.listings.map((l) => [l.title, l.orders, l.items, money(l.salesMinor)]) }}
       />
     </div>
   );

@@ -3,8 +3,9 @@ import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, 
 import { formatMoney } from '../../../../shared/money.ts';
 import { LEDGER_KIND_LABELS, type LedgerEntry, type MonthBalance } from '../../../../shared/business/ledger.ts';
 import type { LedgerQuery } from '../../../../shared/schemas/business.ts';
-import { buttonClasses, Spinner } from '../../../components/ui/button.tsx';
+import { buttonClasses } from '../../../components/ui/button.tsx';
 import { CardTable } from '../../../components/ui/card-table.tsx';
+import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useLedger } from '../api/get-ledger.ts';
 
@@ -63,20 +64,20 @@ export function LedgerTable() {
           Download CSV
         </a>
       </div>
-      {ledger.isPending ? <Spinner label="Loading the ledger…" /> : null}
-      {ledger.isError ? <p role="alert" className="font-semibold text-danger">{ledger.error.message}</p> : null}
-      {ledger.data ? (
-        <>
-          <section aria-labelledby="months-title" className="flex flex-col gap-2">
-            <h2 id="months-title" className="text-xl font-extrabold">Balance by month</h2>
-            <CardTable table={months} label="Balance by month" minWidthClass="min-w-[40rem]" rowHeaders phoneCards={false} empty="No money has moved yet." />
-          </section>
-          <section aria-labelledby="entries-title" className="flex flex-col gap-2">
-            <h2 id="entries-title" className="text-xl font-extrabold">Movements <span className="text-base font-semibold text-ink-soft">({ledger.data.entries.length})</span></h2>
-            <CardTable table={table} label="Movements" minWidthClass="min-w-[40rem]" empty="Nothing in these dates." />
-          </section>
-        </>
-      ) : null}
+      <QueryBoundary query={ledger} loading="Loading the ledger…">
+        {(data) => (
+          <>
+            <section aria-labelledby="months-title" className="flex flex-col gap-2">
+              <h2 id="months-title" className="text-xl font-extrabold">Balance by month</h2>
+              <CardTable table={months} label="Balance by month" minWidthClass="min-w-[40rem]" rowHeaders phoneCards={false} empty="No money has moved yet." />
+            </section>
+            <section aria-labelledby="entries-title" className="flex flex-col gap-2">
+              <h2 id="entries-title" className="text-xl font-extrabold">Movements <span className="text-base font-semibold text-ink-soft">({data.entries.length})</span></h2>
+              <CardTable table={table} label="Movements" minWidthClass="min-w-[40rem]" empty="Nothing in these dates." />
+            </section>
+          </>
+        )}
+      </QueryBoundary>
     </div>
   );
 }

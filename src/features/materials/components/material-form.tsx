@@ -4,11 +4,11 @@ import {
   COMMON_ROLL_WIDTHS_MM,
   createMaterialSchema,
   defaultPressProfile,
+  MATERIAL_DEFAULTS,
   MATERIAL_KINDS,
   updateMaterialSchema,
   type Material,
   type MaterialKind,
-  type PressProfile,
 } from '../../../../shared/schemas/material.ts';
 import { PRESS_DEFAULT_SOURCES } from '../../../../shared/engine/press-defaults.ts';
 import { cToF, formatLength, roundTo } from '../../../../shared/units.ts';
@@ -22,23 +22,15 @@ import { useUpdateMaterial } from '../api/update-material.ts';
 
 export const KIND_LABELS: Record<MaterialKind, string> = { smooth: 'Smooth', glitter: 'Glitter', flock: 'Flock', metallic: 'Metallic', patterned: 'Patterned' };
 
-type Values = {
-  kind: MaterialKind;
-  colourName: string;
-  colourHex: string;
-  rollWidthMm: number;
-  stockMm: number;
-  lowStockMm: number;
-  pricePerMetreMinor: number;
-  pressProfile: PressProfile;
-};
+/** The material's own fields, all of which the form holds. */
+type Values = Omit<Material, 'id' | 'lowStock' | 'archived' | 'createdAt'>;
 const FIELDS = [
   'kind', 'colourName', 'colourHex', 'rollWidthMm', 'stockMm', 'lowStockMm', 'pricePerMetreMinor',
   'pressProfile.handheld.tempC', 'pressProfile.handheld.timeS', 'pressProfile.clamshell.tempC', 'pressProfile.clamshell.timeS', 'pressProfile.tackS', 'pressProfile.peel',
 ] as const;
 
 const blank = (): Values => ({
-  kind: 'smooth', colourName: '', colourHex: '#2f7d6d', rollWidthMm: 305, stockMm: 5000, lowStockMm: 1000, pricePerMetreMinor: 0, pressProfile: defaultPressProfile('smooth'),
+  kind: 'smooth', colourName: '', colourHex: '#2f7d6d', rollWidthMm: COMMON_ROLL_WIDTHS_MM[0], stockMm: 5000, ...MATERIAL_DEFAULTS, pressProfile: defaultPressProfile('smooth'),
 });
 
 const fahrenheit = (c: number) => (Number.isFinite(c) ? `${roundTo(cToF(c), 0)} °F` : '— °F');

@@ -1,10 +1,10 @@
 import { useEffect, useState } from 'react';
 import { SHOP_STATES, type ShopState } from '../../../../shared/schemas/shop.ts';
 import { pageCount } from '../../../../shared/schemas/pagination.ts';
-import { Spinner } from '../../../components/ui/button.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge, SelectField } from '../../../components/ui/form-controls.tsx';
+import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useShops } from '../api/get-shops.ts';
 import { ShopActions } from './shop-actions.tsx';
@@ -64,39 +64,39 @@ export function ShopFinder() {
         </SelectField>
       </form>
 
-      {shops.isPending ? <Spinner label="Loading shops…" /> : null}
-      {shops.isError ? <p role="alert" className="font-semibold text-danger">{shops.error.message}</p> : null}
-      {shops.data ? (
-        <>
-          <p aria-live="polite" className="text-ink-soft">
-            {shops.data.total === 0 ? 'No shops match.' : `${shops.data.total} ${shops.data.total === 1 ? 'shop' : 'shops'}${pages > 1 ? ` · page ${page} of ${pages}` : ''}`}
-          </p>
-          {shops.data.items.length === 0 ? (
-            <StitchedBox>
-              <p>No shops match. Try part of the name, or another state.</p>
-            </StitchedBox>
-          ) : (
-            <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
-              {shops.data.items.map((s) => (
-                <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
-                  <div className="flex flex-col gap-1">
-                    <div className="flex flex-wrap items-center gap-2">
-                      <p className="text-lg font-extrabold break-words">{s.name}</p>
-                      <Badge tone={s.state === 'live' ? 'thread' : s.state === 'in_review' ? 'marigold' : 'danger'}>{SHOP_STATE_LABELS[s.state]}</Badge>
+      <QueryBoundary query={shops} loading="Loading shops…">
+        {(data) => (
+          <>
+            <p aria-live="polite" className="text-ink-soft">
+              {data.total === 0 ? 'No shops match.' : `${data.total} ${data.total === 1 ? 'shop' : 'shops'}${pages > 1 ? ` · page ${page} of ${pages}` : ''}`}
+            </p>
+            {data.items.length === 0 ? (
+              <StitchedBox>
+                <p>No shops match. Try part of the name, or another state.</p>
+              </StitchedBox>
+            ) : (
+              <ul className="grid grid-cols-1 gap-4 md:grid-cols-2">
+                {data.items.map((s) => (
+                  <li key={s.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4" aria-label={`Shop ${s.name}`}>
+                    <div className="flex flex-col gap-1">
+                      <div className="flex flex-wrap items-center gap-2">
+                        <p className="text-lg font-extrabold break-words">{s.name}</p>
+                        <Badge tone={s.state === 'live' ? 'thread' : s.state === 'in_review' ? 'marigold' : 'danger'}>{SHOP_STATE_LABELS[s.state]}</Badge>
+                      </div>
+                      <p className="text-sm [overflow-wrap:anywhere] text-ink-soft">
+                        /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {when.format(s.createdAt)}
+                      </p>
                     </div>
-                    <p className="text-sm [overflow-wrap:anywhere] text-ink-soft">
-                      /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {when.format(s.createdAt)}
-                    </p>
-                  </div>
-                  {s.stateReason && (s.state === 'suspended' || s.state === 'rejected') ? <p className="text-sm whitespace-pre-wrap">Reason: {s.stateReason}</p> : null}
-                  <ShopActions shop={s} />
-                </li>
-              ))}
-            </ul>
-          )}
-          <Pager page={page} total={shops.data.total} limit={shops.data.limit} label="Shop list pages" noun="shops" onPageChange={setPage} />
-        </>
-      ) : null}
+                    {s.stateReason && (s.state === 'suspended' || s.state === 'rejected') ? <p className="text-sm whitespace-pre-wrap">Reason: {s.stateReason}</p> : null}
+                    <ShopActions shop={s} />
+                  </li>
+                ))}
+              </ul>
+            )}
+            <Pager page={page} total={data.total} limit={data.limit} label="Shop list pages" noun="shops" onPageChange={setPage} />
+          </>
+        )}
+      </QueryBoundary>
     </div>
   );
 }

@@ -18,7 +18,8 @@ import { useAddToCart, type AddToCart } from '../hooks/use-add-to-cart.ts';
 import { textChoice, useDesignState, withText, type ChoicesUpdate } from '../hooks/use-design-state.ts';
 import { useLivePreview } from '../hooks/use-live-preview.ts';
 import { BlankPreview } from './blank-preview.tsx';
-import { FieldError, FontPicker, MotifPicker, SwatchPicker } from './pickers.tsx';
+import { FieldError } from '../../../components/ui/form-controls.tsx';
+import { FontPicker, MotifPicker, SwatchPicker } from './pickers.tsx';
 
 export type PersonaliserProps = {
   listing: ListingPage;

@@ -1,4 +1,5 @@
-import { memo, useEffect, useId, useState } from 'react';
+import { memo, useEffect, useId, useState, type ReactNode } from 'react';
+import { FieldError } from '../../../components/ui/form-controls.tsx';
 import type { FontRegistry } from '../../../../shared/engine/fonts.ts';
 import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
 import { layoutText } from '../../../../shared/engine/text-layout.ts';
@@ -9,13 +10,15 @@ const optionBox =
   'flex cursor-pointer items-center gap-3 rounded-lg border-2 bg-white p-2.5 has-[:checked]:border-thread has-[:checked]:bg-thread-wash ' +
   'has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-ink border-line hover:border-ink';
 
-export function FieldError({ id, message }: { id?: string; message?: string }) {
-  if (!message) return null;
+/** A group of radio options under a legend, its error read out with it. `layout`: the options' wrapper classes. */
+function OptionGroup({ legend, error, layout, children }: { legend: string; error?: string; layout: string; children: ReactNode }) {
+  const errId = useId();
   return (
-    <p id={id} className="flex items-start gap-1.5 text-sm font-semibold text-danger">
-      <span aria-hidden="true">●</span>
-      <span>{message}</span>
-    </p>
+    <fieldset className="flex flex-col gap-2" aria-describedby={error ? errId : undefined}>
+      <legend className="mb-1 font-bold">{legend}</legend>
+      <div className={layout}>{children}</div>
+      <FieldError id={errId} message={error} />
+    </fieldset>
   );
 }
 
@@ -52,7 +55,6 @@ export function FontPicker(props: {
   onChange: (fontId: string) => void;
   error?: string;
 }) {
-  const errId = useId();
   // The samples follow the typing one frame behind: set after the preview's frame has painted,
   // so laying the name out in every font never delays the preview itself.
   const [typed, setTyped] = useState(props.text);
@@ -69,27 +71,23 @@ export function FontPicker(props: {
   }, [props.text, typed]);
   const sample = typed.trim() || 'Mira';
   return (
-    <fieldset className="flex flex-col gap-2" aria-describedby={props.error ? errId : undefined}>
-      <legend className="mb-1 font-bold">{props.legend}</legend>
-      <div className="grid gap-2 sm:grid-cols-2">
-        {props.fonts.map((f) => {
-          const missing = missingIn(props.registry, f.id, sample);
-          return (
-            <label key={f.id} className={optionBox}>
-              <input type="radio" name={props.name} value={f.id} checked={props.value === f.id} onChange={() => props.onChange(f.id)} className="sr-only" />
-              <span className="flex min-w-0 flex-1 flex-col gap-0.5">
-                {props.registry?.get(f.id) ? <FontSample registry={props.registry} fontId={f.id} text={sample} /> : <span className="h-9 animate-pulse rounded bg-paper-deep" />}
-                <span className="text-sm text-ink-soft">
-                  {f.family} · {f.style}
-                  {missing.length ? <span className="block font-semibold text-danger">Can't draw {missing.map((c) => `“${c}”`).join(' ')}</span> : null}
-                </span>
+    <OptionGroup legend={props.legend} error={props.error} layout="grid gap-2 sm:grid-cols-2">
+      {props.fonts.map((f) => {
+        const missing = missingIn(props.registry, f.id, sample);
+        return (
+          <label key={f.id} className={optionBox}>
+            <input type="radio" name={props.name} value={f.id} checked={props.value === f.id} onChange={() => props.onChange(f.id)} className="sr-only" />
+            <span className="flex min-w-0 flex-1 flex-col gap-0.5">
+              {props.registry?.get(f.id) ? <FontSample registry={props.registry} fontId={f.id} text={sample} /> : <span className="h-9 animate-pulse rounded bg-paper-deep" />}
+              <span className="text-sm text-ink-soft">
+                {f.family} · {f.style}
+                {missing.length ? <span className="block font-semibold text-danger">Can't draw {missing.map((c) => `“${c}”`).join(' ')}</span> : null}
               </span>
-            </label>
-          );
-        })}
-      </div>
-      <FieldError id={errId} message={props.error} />
-    </fieldset>
+            </span>
+          </label>
+        );
+      })}
+    </OptionGroup>
   );
 }
 
@@ -101,24 +99,19 @@ export function SwatchPicker(props: {
   onChange: (materialId: string) => void;
   error?: string;
 }) {
-  const errId = useId();
   return (
-    <fieldset className="flex flex-col gap-2" aria-describedby={props.error ? errId : undefined}>
-      <legend className="mb-1 font-bold">{props.legend}</legend>
-      <div className="flex flex-wrap gap-2">
-        {props.options.map((m) => (
-          <label key={m.id} className={`${optionBox} !py-1.5 pr-3.5`}>
-            <input type="radio" name={props.name} value={m.id} checked={props.value === m.id} onChange={() => props.onChange(m.id)} className="sr-only" />
-            <span aria-hidden="true" className="size-7 shrink-0 rounded-full border-2 border-ink/30" style={{ background: m.colourHex }} />
-            <span className="text-sm leading-tight">
-              <span className="block font-bold">{m.colourName}</span>
-              <span className="text-ink-soft">{m.kind}</span>
-            </span>
-          </label>
-        ))}
-      </div>
-      <FieldError id={errId} message={props.error} />
-    </fieldset>
+    <OptionGroup legend={props.legend} error={props.error} layout="flex flex-wrap gap-2">
+      {props.options.map((m) => (
+        <label key={m.id} className={`${optionBox} !py-1.5 pr-3.5`}>
+          <input type="radio" name={props.name} value={m.id} checked={props.value === m.id} onChange={() => props.onChange(m.id)} className="sr-only" />
+          <span aria-hidden="true" className="size-7 shrink-0 rounded-full border-2 border-ink/30" style={{ background: m.colourHex }} />
+          <span className="text-sm leading-tight">
+            <span className="block font-bold">{m.colourName}</span>
+            <span className="text-ink-soft">{m.kind}</span>
+          </span>
+        </label>
+      ))}
+    </OptionGroup>
   );
 }
 
@@ -144,26 +137,21 @@ export function MotifPicker(props: {
   onChange: (motifId: string | null) => void;
   error?: string;
 }) {
-  const errId = useId();
   return (
-    <fieldset className="flex flex-col gap-2" aria-describedby={props.error ? errId : undefined}>
-      <legend className="mb-1 font-bold">{props.legend}</legend>
-      <div className="flex flex-wrap gap-2">
-        {props.options.map((o) => (
-          <label key={o.motifId} className={`${optionBox} pr-3.5`}>
-            <input type="radio" name={props.name} value={o.motifId} checked={props.value === o.motifId} onChange={() => props.onChange(o.motifId)} className="sr-only" />
-            {o.geometry ? <MotifThumb geometry={o.geometry} colours={o.colours} /> : null}
-            <span className="font-bold">{o.label}</span>
-          </label>
-        ))}
-        {props.allowNone ? (
-          <label className={`${optionBox} pr-3.5`}>
-            <input type="radio" name={props.name} value="" checked={props.value === null} onChange={() => props.onChange(null)} className="sr-only" />
-            <span className="font-bold">No motif</span>
-          </label>
-        ) : null}
-      </div>
-      <FieldError id={errId} message={props.error} />
-    </fieldset>
+    <OptionGroup legend={props.legend} error={props.error} layout="flex flex-wrap gap-2">
+      {props.options.map((o) => (
+        <label key={o.motifId} className={`${optionBox} pr-3.5`}>
+          <input type="radio" name={props.name} value={o.motifId} checked={props.value === o.motifId} onChange={() => props.onChange(o.motifId)} className="sr-only" />
+          {o.geometry ? <MotifThumb geometry={o.geometry} colours={o.colours} /> : null}
+          <span className="font-bold">{o.label}</span>
+        </label>
+      ))}
+      {props.allowNone ? (
+        <label className={`${optionBox} pr-3.5`}>
+          <input type="radio" name={props.name} value="" checked={props.value === null} onChange={() => props.onChange(null)} className="sr-only" />
+          <span className="font-bold">No motif</span>
+        </label>
+      ) : null}
+    </OptionGroup>
   );
 }

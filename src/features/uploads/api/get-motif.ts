@@ -1,10 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { MotifDetail } from './types.ts';
+import type { MotifDetailView } from '../../../../shared/schemas/upload.ts';
 
-export async function getMotif(id: string, signal?: AbortSignal): Promise<MotifDetail> {
-  return (await api.get<{ motif: MotifDetail }>(`/api/motifs/${encodeURIComponent(id)}`, { signal })).motif;
+export async function getMotif(id: string, signal?: AbortSignal): Promise<MotifDetailView> {
+  return (await api.get<{ motif: MotifDetailView }>(`/api/motifs/${encodeURIComponent(id)}`, { signal })).motif;
 }
 
 export const getMotifQueryOptions = (id: string) =>

@@ -1,10 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { MotifSummary } from './types.ts';
+import type { MotifView } from '../../../../shared/schemas/upload.ts';
 
-export async function getMotifs(signal?: AbortSignal): Promise<MotifSummary[]> {
-  return (await api.get<{ motifs: MotifSummary[] }>('/api/motifs', { signal })).motifs;
+export async function getMotifs(signal?: AbortSignal): Promise<MotifView[]> {
+  return (await api.get<{ motifs: MotifView[] }>('/api/motifs', { signal })).motifs;
 }
 
 export const getMotifsQueryOptions = () => queryOptions({ queryKey: uploadKeys.motifs(), queryFn: ({ signal }) => getMotifs(signal) });

@@ -1,10 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { UploadedPhoto } from './types.ts';
+import type { UploadView } from '../../../../shared/schemas/upload.ts';
 
-export async function getPhotos(signal?: AbortSignal): Promise<UploadedPhoto[]> {
-  return (await api.get<{ uploads: UploadedPhoto[] }>('/api/uploads', { signal })).uploads;
+export async function getPhotos(signal?: AbortSignal): Promise<UploadView[]> {
+  return (await api.get<{ uploads: UploadView[] }>('/api/uploads', { signal })).uploads;
 }
 
 export const getPhotosQueryOptions = () => queryOptions({ queryKey: uploadKeys.photos(), queryFn: ({ signal }) => getPhotos(signal) });

@@ -1,13 +1,13 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { upload } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { DroppedReport, MotifSummary } from './types.ts';
+import type { DroppedReport, MotifView } from '../../../../shared/schemas/upload.ts';
 
 export async function uploadMotif({ name, file, onProgress }: { name: string; file: File; onProgress?: (f: number | null) => void }) {
   const form = new FormData();
   form.append('name', name);
   form.append('file', file);
-  return upload<{ motif: MotifSummary; dropped: DroppedReport }>('/api/motifs', form, onProgress);
+  return upload<{ motif: MotifView; dropped: DroppedReport }>('/api/motifs', form, onProgress);
 }
 
 export function useUploadMotif() {

@@ -6,7 +6,7 @@ import { TextField } from '../../../components/ui/text-field.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
 import { useMotif } from '../api/get-motif.ts';
 import { useUploadMotif } from '../api/upload-motif.ts';
-import type { DroppedReport, MotifSummary } from '../api/types.ts';
+import type { DroppedReport, MotifView } from '../../../../shared/schemas/upload.ts';
 
 /**
  * The motif as the engine normalised it, drawn from its stored geometry (never the uploaded file):
@@ -48,13 +48,13 @@ export function MotifPreview({ motifId, colours = {}, showLayers = true, size = 
 }
 
 /** Upload a layered SVG motif: it is sanitised and normalised by the engine on the server. */
-export function MotifUpload({ onUploaded }: { onUploaded?: (motif: MotifSummary) => void }) {
+export function MotifUpload({ onUploaded }: { onUploaded?: (motif: MotifView) => void }) {
   const uploadMotif = useUploadMotif();
   const [name, setName] = useState('');
   const [file, setFile] = useState<File | null>(null);
   const [progress, setProgress] = useState<number | null | undefined>(undefined);
   const [error, setError] = useState<{ name?: string; file?: string } | null>(null);
-  const [result, setResult] = useState<{ motif: MotifSummary; dropped: DroppedReport } | null>(null);
+  const [result, setResult] = useState<{ motif: MotifView; dropped: DroppedReport } | null>(null);
   const input = useRef<HTMLInputElement>(null);
 
   async function submit() {
