@@ -11,8 +11,7 @@
 // @swc/core's exports object on each call, so replacing it here is enough. Remove on upgrade.
 const swc = require('@swc/core');
 const parseFileSync = swc.parseFileSync;
-swc.parseFileSync = (file, options) =>
-  parseFileSync(file, /\.[jt]sx$/.test(file) ? { ...options, syntax: 'typescript', tsx: true } : options);
+swc.parseFileSync = (file, options) => parseFileSync(file, /\.[jt]sx$/.test(file) ? { ...options, syntax: 'typescript', tsx: true } : options);
 
 /** @type {import('dependency-cruiser').IConfiguration} */
 module.exports = {
@@ -20,32 +19,28 @@ module.exports = {
     {
       name: 'no-circular',
       severity: 'error',
-      comment:
-        'A cycle makes load order matter and hides which module owns a rule; break it by moving the shared part down.',
+      comment: 'A cycle makes load order matter and hides which module owns a rule; break it by moving the shared part down.',
       from: {},
       to: { circular: true },
     },
     {
       name: 'client-feature-isolation',
       severity: 'error',
-      comment:
-        'One client feature (src/features/<f>) may not import another: move what both need to src/components, src/lib or shared/, or compose the two features in a route under src/app.',
+      comment: 'One client feature (src/features/<f>) may not import another: move what both need to src/components, src/lib or shared/, or compose the two features in a route under src/app.',
       from: { path: '^src/features/([^/]+)/' },
       to: { path: '^src/features/', pathNot: '^src/features/$1/' },
     },
     {
       name: 'server-feature-public-module',
       severity: 'error',
-      comment:
-        "Another server feature (or app code outside server/features/<f>) reaches a feature only through server/features/<f>/index.ts, its public module. Tests may import a feature's inside.",
+      comment: "Another server feature (or app code outside server/features/<f>) reaches a feature only through server/features/<f>/index.ts, its public module. Tests may import a feature's inside.",
       from: { pathNot: ['^server/features/[^/]+/', '^tests/'] },
       to: { path: '^server/features/[^/]+/', pathNot: '^server/features/[^/]+/index\\.ts$' },
     },
     {
       name: 'server-feature-public-module-between-features',
       severity: 'error',
-      comment:
-        "Inside server/features, one feature imports another only through that feature's index.ts (its public module).",
+      comment: "Inside server/features, one feature imports another only through that feature's index.ts (its public module).",
       from: { path: '^server/features/([^/]+)/' },
       to: { path: '^server/features/[^/]+/', pathNot: ['^server/features/$1/', '^server/features/[^/]+/index\\.ts$'] },
     },
@@ -60,8 +55,7 @@ module.exports = {
     {
       name: 'services-never-see-http',
       severity: 'error',
-      comment:
-        'A service takes plain values (the user, ids, parsed input), never Express requests or responses: cookies, headers and sessions are read in the route or in server/http/.',
+      comment: 'A service takes plain values (the user, ids, parsed input), never Express requests or responses: cookies, headers and sessions are read in the route or in server/http/.',
       from: { path: '\\.service\\.ts$' },
       to: { path: '^node_modules/express/' },
     },
@@ -75,8 +69,7 @@ module.exports = {
     {
       name: 'client-and-server-meet-in-shared',
       severity: 'error',
-      comment:
-        'The client and the server share code only through shared/: src/ never imports server/, nor server/ src/.',
+      comment: 'The client and the server share code only through shared/: src/ never imports server/, nor server/ src/.',
       // from src/ to server/, or from server/ to src/ ($1 is the side the import starts from)
       from: { path: '^(src|server)/' },
       to: { path: '^(src|server)/', pathNot: '^$1/' },

@@ -1,9 +1,10 @@
 /// <reference types="vitest/config" />
-import { defineConfig } from 'vite';
-import react from '@vitejs/plugin-react';
-import tailwindcss from '@tailwindcss/vite';
+
 import { gzipSync } from 'node:zlib';
+import tailwindcss from '@tailwindcss/vite';
+import react from '@vitejs/plugin-react';
 import type { Plugin } from 'vite';
+import { defineConfig } from 'vite';
 
 /**
  * Prints the JavaScript a shopper downloads before the listing page can show: the entry, the

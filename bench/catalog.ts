@@ -5,7 +5,7 @@
  * their event loop. Prints req/s and p50/p99 for both, the search's uncached query time, and
  * a last line `ratio: X` (search req/s ÷ bare req/s). Targets (issue 4): ratio ≥ 0.5, p99 < 25 ms.
  */
-import { fork, type ChildProcess } from 'node:child_process';
+import { type ChildProcess, fork } from 'node:child_process';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -41,11 +41,14 @@ async function server(): Promise<void> {
     const u = await app.locals.deps.auth.api.signUpEmail({ body: { email: `bench-${s}@namesake.test`, password: 'bench-password-123', name: `Bench ${s}` } });
     const id = crypto.randomUUID();
     shopIds.push(id);
-    db.insert(shops).values({ id, ownerId: u.user.id, name: `Bench Shop ${s}`, slug: `bench-shop-${s}`, state: 'live', createdAt: at, updatedAt: at }).run();
+    db.insert(shops)
+      .values({ id, ownerId: u.user.id, name: `Bench Shop ${s}`, slug: `bench-shop-${s}`, state: 'live', createdAt: at, updatedAt: at })
+      .run();
   }
   db.transaction((tx) => {
     for (let i = 0; i < LISTINGS; i++) {
-      const noun = nouns[i % nouns.length], shopId = shopIds[i % shopIds.length];
+      const noun = nouns[i % nouns.length],
+        shopId = shopIds[i % shopIds.length];
       if (noun === undefined || shopId === undefined) throw new Error('unreachable: indexes are taken modulo the list lengths');
       const thing = things[(i >> 3) % things.length];
       const content = listingInputSchema.parse({
@@ -56,10 +59,20 @@ async function server(): Promise<void> {
         occasions: [OCCASIONS[i % OCCASIONS.length], OCCASIONS[(i >> 1) % OCCASIONS.length]],
         personalisation: { textFields: [{ id: 'name', label: 'Name', fontIds: ['baloo-bold'], colourChoices: ['m1'] }] },
       });
-      tx.insert(listings).values({
-        id: crypto.randomUUID(), shopId, slug: `bench-${i}`, state: 'live', draft: content as never, live: content as never,
-        ...liveColumns(content), publishedAt: at - i * 1000, createdAt: at, updatedAt: at,
-      }).run();
+      tx.insert(listings)
+        .values({
+          id: crypto.randomUUID(),
+          shopId,
+          slug: `bench-${i}`,
+          state: 'live',
+          draft: content as never,
+          live: content as never,
+          ...liveColumns(content),
+          publishedAt: at - i * 1000,
+          createdAt: at,
+          updatedAt: at,
+        })
+        .run();
     }
   });
   sqlite.pragma('optimize');
@@ -110,10 +123,12 @@ export async function run(): Promise<void> {
     child.once('message', (m) => resolve(m as Ready));
     child.once('exit', (code) => reject(new Error(`bench server exited (${code})`)));
   });
-  const load = (url: string, paths: string[]) =>
-    autocannon({ url, connections: 50, duration: 10, requests: paths.map((p) => ({ method: 'GET', path: p })) });
+  const load = (url: string, paths: string[]) => autocannon({ url, connections: 50, duration: 10, requests: paths.map((p) => ({ method: 'GET', path: p })) });
   try {
-    const search = await load(`http://127.0.0.1:${ready.appPort}`, QUERIES.map((q) => `/api/listings?q=${encodeURIComponent(q)}`));
+    const search = await load(
+      `http://127.0.0.1:${ready.appPort}`,
+      QUERIES.map((q) => `/api/listings?q=${encodeURIComponent(q)}`),
+    );
     const bare = await load(`http://127.0.0.1:${ready.barePort}`, ['/bare']);
     const line = (name: string, r: typeof search) =>
       `${name.padEnd(28)} ${Math.round(r.requests.average).toString().padStart(7)} req/s   p50 ${r.latency.p50} ms   p99 ${r.latency.p99} ms   errors ${r.errors + r.non2xx}`;

@@ -5,24 +5,25 @@
  * for the webhook to turn the payment into orders. On a throw-away data folder.
  * Prints `orders: N`, `duplicates: 0`, `lost: 0` and `checkouts/s: X`.
  */
+
+import crypto from 'node:crypto';
 import fs from 'node:fs';
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import http from 'node:http';
-import crypto from 'node:crypto';
-import type { AddressInfo } from 'node:net';
 import { eq } from 'drizzle-orm';
 import Stripe from 'stripe';
-import { loadEnv } from '../server/env.ts';
-import { openDb } from '../server/db/client.ts';
-import { createMailer } from '../server/integrations/mailer.ts';
-import { createApp } from '../server/app.ts';
-import { checkouts, listings, materials, orders, shops } from '../server/db/schema.ts';
 import { startMailFake } from '../fakes/mail/server.ts';
 import { listMailIds } from '../fakes/mail/store.ts';
 import { startStripeFake } from '../fakes/stripe/server.ts';
-import { defaultPressProfile } from '../shared/engine/press-defaults.ts';
 import { cookieClient } from '../scripts/lib/cookie-client.ts';
+import { createApp } from '../server/app.ts';
+import { openDb } from '../server/db/client.ts';
+import { checkouts, listings, materials, orders, shops } from '../server/db/schema.ts';
+import { loadEnv } from '../server/env.ts';
+import { createMailer } from '../server/integrations/mailer.ts';
+import { defaultPressProfile } from '../shared/engine/press-defaults.ts';
 
 const SHOPPERS = Number(process.env.BENCH_CHECKOUTS ?? 50);
 const PASSWORD = 'bench-password-not-secret';
@@ -61,9 +62,13 @@ export async function run(): Promise<void> {
     for (const [i, name] of ['Fern & Fable Goods', 'Little Comet Print Co.'].entries()) {
       const owner = await auth.api.signUpEmail({ body: { email: `bench-seller-${i}@namesake.test`, password: PASSWORD, name } });
       const shopId = crypto.randomUUID();
-      db.insert(shops).values({ id: shopId, ownerId: owner.user.id, name, slug: `bench-shop-${i}`, state: 'live', shippingMinor: 450 + i * 50, createdAt: at, updatedAt: at }).run();
+      db.insert(shops)
+        .values({ id: shopId, ownerId: owner.user.id, name, slug: `bench-shop-${i}`, state: 'live', shippingMinor: 450 + i * 50, createdAt: at, updatedAt: at })
+        .run();
       const mat = crypto.randomUUID();
-      db.insert(materials).values({ id: mat, shopId, kind: 'smooth', colourName: 'Navy', colourHex: '#1f2a44', rollWidthMm: 305, stockMm: 50_000, pressProfile: defaultPressProfile('smooth'), createdAt: at }).run();
+      db.insert(materials)
+        .values({ id: mat, shopId, kind: 'smooth', colourName: 'Navy', colourHex: '#1f2a44', rollWidthMm: 305, stockMm: 50_000, pressProfile: defaultPressProfile('smooth'), createdAt: at })
+        .run();
       const content = {
         title: i === 0 ? 'Named holiday tote' : "Kids' name tee",
         description: '',
@@ -84,7 +89,22 @@ export async function run(): Promise<void> {
         minutesPerLayer: 0,
       };
       const id = crypto.randomUUID();
-      db.insert(listings).values({ id, shopId, slug: `bench-listing-${i}`, state: 'live', draft: content as never, live: content as never, liveTitle: content.title, livePriceMinor: content.basePriceMinor, currency: 'USD', publishedAt: at, createdAt: at, updatedAt: at }).run();
+      db.insert(listings)
+        .values({
+          id,
+          shopId,
+          slug: `bench-listing-${i}`,
+          state: 'live',
+          draft: content as never,
+          live: content as never,
+          liveTitle: content.title,
+          livePriceMinor: content.basePriceMinor,
+          currency: 'USD',
+          publishedAt: at,
+          createdAt: at,
+          updatedAt: at,
+        })
+        .run();
       listingIds.push(id);
     }
 
@@ -104,12 +124,27 @@ export async function run(): Promise<void> {
     const results = await Promise.allSettled(
       shoppers.map(async (c, i) => {
         for (const listingId of listingIds) {
-          const r = await c('/api/cart/lines', { body: { listingId, quantity: 1 + (i % 2), choices: { texts: { name: { text: NAMES[i % NAMES.length], fontId: 'baloo-bold', letterHeightMm: 45 } } } } });
+          const r = await c('/api/cart/lines', {
+            body: { listingId, quantity: 1 + (i % 2), choices: { texts: { name: { text: NAMES[i % NAMES.length], fontId: 'baloo-bold', letterHeightMm: 45 } } } },
+          });
           if (r.status !== 201) throw new Error(`add line: ${r.status} ${JSON.stringify(r.body)}`);
         }
         const co = await c('/api/checkout', { body: {} });
         if (co.status !== 201) throw new Error(`checkout: ${co.status} ${JSON.stringify(co.body)}`);
-        const pay = await fetch(co.body.url, { method: 'POST', body: new URLSearchParams({ ship_name: 'Dana Field', ship_line1: '12 Acorn Lane', ship_city: 'Harbourtown', ship_postal_code: 'HT1 2AB', ship_country: 'GB', card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
+        const pay = await fetch(co.body.url, {
+          method: 'POST',
+          body: new URLSearchParams({
+            ship_name: 'Dana Field',
+            ship_line1: '12 Acorn Lane',
+            ship_city: 'Harbourtown',
+            ship_postal_code: 'HT1 2AB',
+            ship_country: 'GB',
+            card_number: '4242 4242 4242 4242',
+            card_expiry: '12/34',
+            card_cvc: '123',
+          }),
+          redirect: 'manual',
+        });
         if (pay.status !== 303) throw new Error(`pay: ${pay.status}`);
         for (;;) {
           const s = await c(`/api/checkout/${co.body.sessionId}/status?wait=10000`);
@@ -124,7 +159,15 @@ export async function run(): Promise<void> {
 
     // transfers follow the commit; give them a moment, then count
     const deadline = Date.now() + 20_000;
-    while (Date.now() < deadline && db.select().from(orders).all().some((o) => !o.transferId)) await new Promise((r) => setTimeout(r, 100));
+    while (
+      Date.now() < deadline &&
+      db
+        .select()
+        .from(orders)
+        .all()
+        .some((o) => !o.transferId)
+    )
+      await new Promise((r) => setTimeout(r, 100));
 
     // and let the e-mails (one to the shopper, one per shop) reach the mail fake before closing
     const mails = (SHOPPERS - failed.length) * (1 + listingIds.length);

@@ -13,12 +13,13 @@
  *    for pieces this size (a 140 × 45 mm name grows 18 % with its gap); printed for comparison.
  *  - vinyl area: Σ real outline area / W — letters fill about a third of their box; for comparison.
  */
-import { groupByMaterial, nestCutSheets, type NestPiece } from '../shared/engine/cut-sheets.ts';
+
+import { getFontRegistry } from '../server/integrations/fonts.ts';
 import { cutSheetSvg } from '../shared/engine/cut-sheet-svg.ts';
+import { groupByMaterial, type NestPiece, nestCutSheets } from '../shared/engine/cut-sheets.ts';
+import { FONT_CATALOG } from '../shared/engine/font-catalog.ts';
 import { formatPath, parsePathData, pathArea, pathBBox, transformPath } from '../shared/engine/path.ts';
 import { layoutText } from '../shared/engine/text-layout.ts';
-import { FONT_CATALOG } from '../shared/engine/font-catalog.ts';
-import { getFontRegistry } from '../server/integrations/fonts.ts';
 import { at } from '../tests/support/at.ts';
 
 const ROLL_MM = 305;
@@ -36,7 +37,7 @@ type BenchPiece = NestPiece & { materialKind: string; colour: string };
 
 export function makePieces(lines: number, seed: number): BenchPiece[] {
   let s = seed >>> 0;
-  const rnd = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  const rnd = () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
   const U = (a: number, b: number) => a + (b - a) * rnd();
   const reg = getFontRegistry();
   const fonts = FONT_CATALOG.map((f) => f.id);
@@ -47,19 +48,45 @@ export function makePieces(lines: number, seed: number): BenchPiece[] {
     const p = parsePathData(lay.path);
     const bb = pathBBox(p);
     // sized like names on totes: 60–220 mm wide, 20–70 mm tall
-    const w = U(60, 220), h = U(20, 70);
-    const sx = w / (bb.maxX - bb.minX), sy = h / (bb.maxY - bb.minY);
+    const w = U(60, 220),
+      h = U(20, 70);
+    const sx = w / (bb.maxX - bb.minX),
+      sy = h / (bb.maxY - bb.minY);
     const named = transformPath(p, [sx, 0, 0, sy, -bb.minX * sx, -bb.minY * sy]);
     const m = Math.floor(rnd() * MATERIALS.length);
-    out.push({ id: `L${l}-name`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: 'name', widthMm: w, heightMm: h, areaMm2: pathArea(named), path: formatPath(named), ...at(MATERIALS, m) });
+    out.push({
+      id: `L${l}-name`,
+      lineId: `L${l}`,
+      orderNumber: `NS-${1000 + Math.floor(l / 2)}`,
+      layerId: 'name',
+      widthMm: w,
+      heightMm: h,
+      areaMm2: pathArea(named),
+      path: formatPath(named),
+      ...at(MATERIALS, m),
+    });
     const motifLayers = 1 + Math.floor(rnd() * 2);
     for (let k = 0; k < motifLayers; k++) {
-      const mw = U(30, 110), mh = mw * U(0.6, 1.3);
+      const mw = U(30, 110),
+        mh = mw * U(0.6, 1.3);
       // a blob: four cubic arcs through the box's edge midpoints
-      const cx = mw / 2, cy = mh / 2, kx = 0.55 * cx, ky = 0.55 * cy;
+      const cx = mw / 2,
+        cy = mh / 2,
+        kx = 0.55 * cx,
+        ky = 0.55 * cy;
       const d = `M${cx} 0C${cx + kx} 0 ${mw} ${cy - ky} ${mw} ${cy}C${mw} ${cy + ky} ${cx + kx} ${mh} ${cx} ${mh}C${cx - kx} ${mh} 0 ${cy + ky} 0 ${cy}C0 ${cy - ky} ${cx - kx} 0 ${cx} 0Z`;
       const mp = parsePathData(d);
-      out.push({ id: `L${l}-m${k}`, lineId: `L${l}`, orderNumber: `NS-${1000 + Math.floor(l / 2)}`, layerId: `motif-${k}`, widthMm: mw, heightMm: mh, areaMm2: pathArea(mp), path: d, ...at(MATERIALS, (m + 1 + k) % MATERIALS.length) });
+      out.push({
+        id: `L${l}-m${k}`,
+        lineId: `L${l}`,
+        orderNumber: `NS-${1000 + Math.floor(l / 2)}`,
+        layerId: `motif-${k}`,
+        widthMm: mw,
+        heightMm: mh,
+        areaMm2: pathArea(mp),
+        path: d,
+        ...at(MATERIALS, (m + 1 + k) % MATERIALS.length),
+      });
     }
   }
   return out;
@@ -88,7 +115,10 @@ export async function run(): Promise<void> {
   times.sort((a, b) => a - b);
   const median = at(times, Math.floor(times.length / 2));
 
-  let used = 0, lbGap = 0, lbRect = 0, lbVinyl = 0;
+  let used = 0,
+    lbGap = 0,
+    lbRect = 0,
+    lbVinyl = 0;
   console.log(`cut sheets: 500 lines, ${pieces.length} pieces, ${last.length} materials, roll ${ROLL_MM} mm, gap ${GAP} mm, margin ${MARGIN} mm`);
   for (const r of last) {
     const L = r.sheets.reduce((s, sh) => s + sh.lengthMm, 0);
@@ -96,8 +126,13 @@ export async function run(): Promise<void> {
     const gapBound = padded / (ROLL_MM - 2 * MARGIN + GAP) + 2 * MARGIN - GAP;
     const rectBound = r.pieces.reduce((s, p) => s + p.widthMm * p.heightMm, 0) / ROLL_MM;
     const vinylBound = r.pieces.reduce((s, p) => s + p.areaMm2, 0) / ROLL_MM;
-    used += L; lbGap += gapBound; lbRect += rectBound; lbVinyl += vinylBound;
-    console.log(`  ${r.key.padEnd(16)} ${String(r.pieces.length).padStart(4)} pieces  ${(L / 1000).toFixed(2)} m  ${(L / gapBound).toFixed(3)} × gap-aware bound  utilisation ${(at(r.sheets, 0).utilisation * 100).toFixed(1)} %  svg ${(r.svgBytes / 1024).toFixed(0)} KiB`);
+    used += L;
+    lbGap += gapBound;
+    lbRect += rectBound;
+    lbVinyl += vinylBound;
+    console.log(
+      `  ${r.key.padEnd(16)} ${String(r.pieces.length).padStart(4)} pieces  ${(L / 1000).toFixed(2)} m  ${(L / gapBound).toFixed(3)} × gap-aware bound  utilisation ${(at(r.sheets, 0).utilisation * 100).toFixed(1)} %  svg ${(r.svgBytes / 1024).toFixed(0)} KiB`,
+    );
   }
   console.log(`median time (nest + SVG, all materials): ${median.toFixed(1)} ms over ${times.length} runs (min ${at(times, 0).toFixed(1)}, max ${at(times, -1).toFixed(1)})  target ≤ 1000 ms`);
   console.log(`utilisation vs lower bound: ${(used / lbGap).toFixed(3)}  (material used ÷ gap-aware area bound; target ≤ 1.11)`);

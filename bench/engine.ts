@@ -8,10 +8,10 @@
  * composed again right after, as on a colour change or a backspace), in each weeding mode.
  */
 import { getFontFile, getFontRegistry } from '../server/integrations/fonts.ts';
-import { layoutText } from '../shared/engine/text-layout.ts';
-import { compose, type FieldDef, type WeedingMode } from '../shared/engine/compose.ts';
 import { defaultBlank } from '../shared/engine/blanks.ts';
+import { compose, type FieldDef, type WeedingMode } from '../shared/engine/compose.ts';
 import { parseMotifSvg } from '../shared/engine/motif.ts';
+import { layoutText } from '../shared/engine/text-layout.ts';
 import { hbFont } from '../tests/shared/engine/harfbuzz-reference.ts';
 import { at } from '../tests/support/at.ts';
 
@@ -20,7 +20,7 @@ const LETTERS = 'abcdefghijklmnopqrstuvwxyzäöüéèàçñøåłśźżčšž';
 /** Deterministic names (a small LCG, so every run measures the same strings). */
 function makeNames(n: number, seed: number): string[] {
   let s = seed >>> 0;
-  const rnd = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  const rnd = () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
   const out: string[] = [];
   for (let i = 0; i < n; i++) {
     const len = 3 + Math.floor(rnd() * 12);
@@ -70,11 +70,19 @@ export async function run(): Promise<void> {
       ref.push(performance.now() - t0);
     };
     names.forEach((n, i) => {
-      if (i % 2 === 0) { timeOurs(n); timeHb(n); } else { timeHb(n); timeOurs(n); }
+      if (i % 2 === 0) {
+        timeOurs(n);
+        timeHb(n);
+      } else {
+        timeHb(n);
+        timeOurs(n);
+      }
     });
     const row = { id: font.id, ours: stats(ours), hb: stats(ref) };
     rows.push(row);
-    console.log(`${font.id.padEnd(20)} ours median ${ms(row.ours.median)} p95 ${ms(row.ours.p95)} | harfbuzz median ${ms(row.hb.median)} p95 ${ms(row.hb.p95)} | ×${(row.ours.median / row.hb.median).toFixed(2)}`);
+    console.log(
+      `${font.id.padEnd(20)} ours median ${ms(row.ours.median)} p95 ${ms(row.ours.p95)} | harfbuzz median ${ms(row.hb.median)} p95 ${ms(row.hb.p95)} | ×${(row.ours.median / row.hb.median).toFixed(2)}`,
+    );
   }
   const med = (xs: number[]) => stats(xs).median;
   const ratio = med(rows.map((r) => r.ours.median)) / med(rows.map((r) => r.hb.median));
@@ -128,7 +136,11 @@ function benchCompose(): void {
   };
   run(makeNames(30, 11), 'full'); // JIT warm-up on other names
   const line = (label: string, st: ReturnType<typeof stats>) => console.log(`compose ${label.padEnd(18)} p50 ${st.median.toFixed(1)} ms p95 ${st.p95.toFixed(1)} ms`);
-  for (const [mode, seed] of [['full', 21], ['fast', 22], ['none', 23]] as const) {
+  for (const [mode, seed] of [
+    ['full', 21],
+    ['fast', 22],
+    ['none', 23],
+  ] as const) {
     const r = run(makeNames(200, seed), mode); // every name new to the engine: nothing cached but the motif
     line(`${mode}, first time`, r.first);
     line(`${mode}, warm`, r.warm);

@@ -47,7 +47,10 @@ async function signedInCookie(base: string, i: number): Promise<string> {
     body: JSON.stringify({ email: `load-${i}@namesake.test`, password: PASSWORD, name: `Load Shopper ${i}` }),
   });
   if (!res.ok) throw new Error(`sign-up ${i}: ${res.status} ${await res.text()}`);
-  return res.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+  return res.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
 }
 
 function pct(sorted: number[], p: number): number {
@@ -116,7 +119,10 @@ export async function run(): Promise<void> {
     console.log(`load: ${SECONDS} s against ${base} (NODE_ENV=production, seeded demo, ${SHOPPERS} signed-in shoppers) …`);
     const started = performance.now();
     const results = await Promise.all([
-      load(['home (GET /)', 'home (GET /api/listings)'], 8, [{ method: 'GET', path: '/' }, { method: 'GET', path: '/api/listings' }]),
+      load(['home (GET /)', 'home (GET /api/listings)'], 8, [
+        { method: 'GET', path: '/' },
+        { method: 'GET', path: '/api/listings' },
+      ]),
       load(['search'], 8, [
         {
           method: 'GET',
@@ -148,7 +154,10 @@ export async function run(): Promise<void> {
           setupRequest: (req, ctx) => {
             ctx.cookie ??= cookies[cookieSeq++ % cookies.length];
             const name = NAMES[Math.floor(Math.random() * NAMES.length)];
-            const choices = { texts: { [field.id]: { text: name, fontId: field.defaultFontId, letterHeightMm: field.defaultLetterHeightMm } }, motifId: fox.content.personalisation.motifChoices[0]?.motifId ?? null };
+            const choices = {
+              texts: { [field.id]: { text: name, fontId: field.defaultFontId, letterHeightMm: field.defaultLetterHeightMm } },
+              motifId: fox.content.personalisation.motifChoices[0]?.motifId ?? null,
+            };
             return { ...req, headers: { ...json, cookie: String(ctx.cookie) }, body: JSON.stringify({ listingId: fox.id, quantity: 1, choices }) };
           },
           onResponse: (status, body, ctx) => {

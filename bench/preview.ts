@@ -5,7 +5,7 @@
  * reads the page's `preview` performance measures (marks `preview-input` → `preview-painted`, set
  * by the personaliser). Prints `preview p50: X ms` and `preview p95: Y ms`; target p95 < 50 ms.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import { type ChildProcess, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -14,8 +14,36 @@ import { freePort } from '../scripts/lib/server-process.ts';
 export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
 const NAMES = [
-  'Mira', 'Theo', 'Anouk', 'Kai', 'Priya', 'Leon', 'Zoë', 'Bartholomew', 'Ada', 'Felix', 'Ines', 'Oskar', 'Maya', 'Jonah', 'Elif',
-  'Ravi', 'Lotte', 'Samir', 'Nora', 'Hugo', 'Ayla', 'Emil', 'Freya', 'Tomás', 'Hana', 'Milo', 'Sofia', 'Arlo', 'Juno', 'Wren',
+  'Mira',
+  'Theo',
+  'Anouk',
+  'Kai',
+  'Priya',
+  'Leon',
+  'Zoë',
+  'Bartholomew',
+  'Ada',
+  'Felix',
+  'Ines',
+  'Oskar',
+  'Maya',
+  'Jonah',
+  'Elif',
+  'Ravi',
+  'Lotte',
+  'Samir',
+  'Nora',
+  'Hugo',
+  'Ayla',
+  'Emil',
+  'Freya',
+  'Tomás',
+  'Hana',
+  'Milo',
+  'Sofia',
+  'Arlo',
+  'Juno',
+  'Wren',
 ];
 
 /** Minimal cookie-keeping client for the API (Node's fetch keeps no cookies). */
@@ -76,11 +104,26 @@ export async function ensureLiveDemoListing(base: string): Promise<ListingSummar
     extraLayerPriceMinor: 150,
     occasions: ['autumn-harvest', 'back-to-school'],
     personalisation: {
-      textFields: [{ id: 'name', label: 'Name', maxLength: 12, fontIds: ['baloo-bold', 'dancing-script-bold', 'bebas-neue', 'bitter-bold'], defaultLetterHeightMm: 45, required: true, colourChoices: [green, navy, gold] }],
-      motifChoices: [{
-        motifId: motif.id, label: 'Fox with acorn',
-        layers: motif.layers.map((l) => (l.id === 'body' ? { layerId: l.id, mode: 'shopper', colourChoices: [orange, gold, navy] } : { layerId: l.id, mode: 'fixed', materialId: l.id === 'face' ? cream : navy })),
-      }],
+      textFields: [
+        {
+          id: 'name',
+          label: 'Name',
+          maxLength: 12,
+          fontIds: ['baloo-bold', 'dancing-script-bold', 'bebas-neue', 'bitter-bold'],
+          defaultLetterHeightMm: 45,
+          required: true,
+          colourChoices: [green, navy, gold],
+        },
+      ],
+      motifChoices: [
+        {
+          motifId: motif.id,
+          label: 'Fox with acorn',
+          layers: motif.layers.map((l) =>
+            l.id === 'body' ? { layerId: l.id, mode: 'shopper', colourChoices: [orange, gold, navy] } : { layerId: l.id, mode: 'fixed', materialId: l.id === 'face' ? cream : navy },
+          ),
+        },
+      ],
     },
   });
   await fern('POST', `/api/seller/listings/${created.listing.id}/submit`, {});
@@ -130,7 +173,10 @@ export async function run(): Promise<void> {
     await page.goto(`${base}/listings/${listing.slug}`);
     const input = page.getByRole('textbox', { name: /name/i }).first();
     await input.waitFor();
-    await page.getByTestId('design-size').filter({ hasText: /type a name|cm/ }).waitFor({ timeout: 30_000 });
+    await page
+      .getByTestId('design-size')
+      .filter({ hasText: /type a name|cm/ })
+      .waitFor({ timeout: 30_000 });
     await page.evaluate(() => performance.clearMeasures('preview'));
     for (const name of NAMES) {
       await input.fill('');

@@ -1,5 +1,6 @@
 // `npm run bench -- <name>` runs bench/<name>.ts's exported run().
 export {};
+
 const benchName = process.argv[2];
 if (!benchName || !/^[a-z0-9-]+$/.test(benchName)) {
   console.error('Usage: npm run bench -- <name>   (e.g. engine)');

@@ -5,8 +5,8 @@
 // done with the keyboard alone (e2e/keyboard-checkout.spec.ts).
 import AxeBuilder from '@axe-core/playwright';
 import type { Page } from '@playwright/test';
+import { addToCartApi, apiGet, FOX_TOTE, fillShipTo, payCartApi, ROCKET_TEE, signUpApi, uniqueEmail } from './api-helpers.ts';
 import { demo, expect, signIn, test } from './fixtures.ts';
-import { addToCartApi, apiGet, fillShipTo, FOX_TOTE, payCartApi, ROCKET_TEE, signUpApi, uniqueEmail } from './api-helpers.ts';
 
 test.describe.configure({ timeout: 180_000 });
 
@@ -39,14 +39,18 @@ test.afterAll(() => console.log(`a11y: axe ran on ${checked.length} pages: ${che
 test('guest pages have no serious or critical axe violations', async ({ page }) => {
   const f: Finding[] = [];
   f.push(...(await audit(page, 'home', '/')));
-  f.push(...(await audit(page, 'search', '/search?occasion=autumn-harvest', async () => {
-    await expect(page.getByRole('link', { name: /Autumn fox tote with a name/ }).first()).toBeVisible();
-  })));
+  f.push(
+    ...(await audit(page, 'search', '/search?occasion=autumn-harvest', async () => {
+      await expect(page.getByRole('link', { name: /Autumn fox tote with a name/ }).first()).toBeVisible();
+    })),
+  );
   f.push(...(await audit(page, 'search (no results)', '/search?q=zzzzqqq')));
-  f.push(...(await audit(page, 'listing with personaliser', `/listings/${FOX_TOTE}`, async () => {
-    await page.getByRole('form', { name: 'Personalise this item' }).getByLabel('Name', { exact: true }).fill('Anouk');
-    await expect(page.getByTestId('design-preview')).toBeVisible();
-  })));
+  f.push(
+    ...(await audit(page, 'listing with personaliser', `/listings/${FOX_TOTE}`, async () => {
+      await page.getByRole('form', { name: 'Personalise this item' }).getByLabel('Name', { exact: true }).fill('Anouk');
+      await expect(page.getByTestId('design-preview')).toBeVisible();
+    })),
+  );
   f.push(...(await audit(page, 'shop page', '/shops/fern-and-fable-goods')));
   f.push(...(await audit(page, 'empty cart', '/cart')));
   await addToCartApi(page, FOX_TOTE, 'Kai');
@@ -85,9 +89,11 @@ test('shopper pages, the payment page and the checkout return have no serious or
 
   await page.goto('/cart');
   await payCartApi(page).then(async ({ sessionId }) => {
-    f.push(...(await audit(page, 'checkout return', `/checkout/return?session_id=${sessionId}`, async () => {
-      await expect(page.getByRole('heading', { name: 'Thank you, your order is confirmed' })).toBeVisible({ timeout: 20_000 });
-    })));
+    f.push(
+      ...(await audit(page, 'checkout return', `/checkout/return?session_id=${sessionId}`, async () => {
+        await expect(page.getByRole('heading', { name: 'Thank you, your order is confirmed' })).toBeVisible({ timeout: 20_000 });
+      })),
+    );
   });
   report(f);
 });
@@ -150,5 +156,10 @@ test('a failed form names its errors in text and announces them (WCAG 3.3.1)', a
   await page.goto(`/listings/${FOX_TOTE}`);
   const form = page.getByRole('form', { name: 'Personalise this item' });
   await form.getByLabel('Name', { exact: true }).fill('Mira☃');
-  await expect(form.locator('[aria-live], [role=alert]').filter({ hasText: /☃|character|can.t/i }).first()).toBeVisible();
+  await expect(
+    form
+      .locator('[aria-live], [role=alert]')
+      .filter({ hasText: /☃|character|can.t/i })
+      .first(),
+  ).toBeVisible();
 });

@@ -1,7 +1,7 @@
 // Journey 4 (DEVELOPERS.md, "Journeys"), admin side, on a shop made for this test (so no other spec's data moves):
 // approve a new shop, approve one listing and reject another with a reason the seller receives by
 // e-mail, then suspend the shop (its listings leave search at once) and restore it.
-import { expect, test, type APIRequestContext, type Browser } from '@playwright/test';
+import { type APIRequestContext, type Browser, expect, test } from '@playwright/test';
 import { DEMO_PASSWORD, demo, signIn, waitForMail } from './fixtures.ts';
 
 /** The server's JSON answer (after checking the status); the assertions check its shape. */
@@ -34,8 +34,7 @@ async function freshSeller(browser: Browser, tag: string) {
   return { context, email, shop: shop as { id: string; name: string; slug: string }, listing };
 }
 
-const searchIds = async (req: APIRequestContext, q: string) =>
-  ((await ok(await req.get(`/api/listings?q=${encodeURIComponent(q)}`))).items as { id: string }[]).map((i) => i.id);
+const searchIds = async (req: APIRequestContext, q: string) => ((await ok(await req.get(`/api/listings?q=${encodeURIComponent(q)}`))).items as { id: string }[]).map((i) => i.id);
 
 test('when an admin approves, rejects with a reason, suspends and restores, then the seller is told and search follows at once', async ({ page, browser }) => {
   const tag = Date.now().toString(36);
@@ -109,7 +108,10 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
   await seller.context.close();
 });
 
-test('when the seller edits a listing the admin has open, then Approve shows why it was refused and the new version is approved instead; a shop rename waits on the desk as before → after', async ({ page, browser }) => {
+test('when the seller edits a listing the admin has open, then Approve shows why it was refused and the new version is approved instead; a shop rename waits on the desk as before → after', async ({
+  page,
+  browser,
+}) => {
   const tag = `${Date.now().toString(36)}r`;
   const seller = await freshSeller(browser, tag);
   const title = `Leon tote ${tag}`;

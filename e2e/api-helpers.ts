@@ -1,7 +1,7 @@
 // API shortcuts for the hardening specs (a11y, xss, phone journey): make fresh rows through the
 // same HTTP API the client uses, on the page's own cookie jar, so the browser then sees them.
 // Every call sends the app's Origin, as a browser would (the CSRF guard refuses other sites).
-import { expect, type APIResponse, type Page } from '@playwright/test';
+import { type APIResponse, expect, type Page } from '@playwright/test';
 import { DEMO_PASSWORD } from './fixtures.ts';
 
 export const FOX_TOTE = 'autumn-fox-tote-with-a-name';
@@ -12,18 +12,21 @@ function origin(_page: Page): string {
   return `http://localhost:${process.env.E2E_PORT ?? 4319}`;
 }
 
-async function json<T = any>(res: APIResponse, what: string): Promise<T> { // eslint-disable-line @typescript-eslint/no-explicit-any
+async function json<T = any>(res: APIResponse, what: string): Promise<T> {
+  // eslint-disable-line @typescript-eslint/no-explicit-any
   const text = await res.text();
   expect(res.ok(), `${what}: HTTP ${res.status()} ${text.slice(0, 300)}`).toBe(true);
   return (text ? JSON.parse(text) : {}) as T;
 }
 
-export async function apiPost<T = any>(page: Page, path: string, data: unknown, method: 'POST' | 'PUT' | 'PATCH' = 'POST'): Promise<T> { // eslint-disable-line @typescript-eslint/no-explicit-any
+export async function apiPost<T = any>(page: Page, path: string, data: unknown, method: 'POST' | 'PUT' | 'PATCH' = 'POST'): Promise<T> {
+  // eslint-disable-line @typescript-eslint/no-explicit-any
   const res = await page.request.fetch(path, { method, data: data as object, headers: { origin: origin(page) } });
   return json<T>(res, `${method} ${path}`);
 }
 
-export async function apiGet<T = any>(page: Page, path: string): Promise<T> { // eslint-disable-line @typescript-eslint/no-explicit-any
+export async function apiGet<T = any>(page: Page, path: string): Promise<T> {
+  // eslint-disable-line @typescript-eslint/no-explicit-any
   return json<T>(await page.request.get(path), `GET ${path}`);
 }
 

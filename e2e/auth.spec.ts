@@ -1,4 +1,4 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, type Page, test } from '@playwright/test';
 
 // Demo accounts seeded by the server in demo mode (the invented demo scenario; README.md lists them).
 const DEMO_PASSWORD = 'namesake-demo';

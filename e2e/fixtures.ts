@@ -1,7 +1,8 @@
 // Shared Playwright helpers: sign in through the real form, and read captured mail from the
 // mail fake's store (the e2e server's DATA_DIR/mail, see playwright.config.ts).
-import { test as base, expect, type Locator, type Page } from '@playwright/test';
+
 import path from 'node:path';
+import { test as base, expect, type Locator, type Page } from '@playwright/test';
 import { listMail, type StoredMail } from '../fakes/mail/store.ts';
 
 export const DEMO_PASSWORD = 'namesake-demo';
@@ -17,7 +18,12 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password', { exact: true }).fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
-  await expect(page.getByRole('button', { name: /sign out/i }).or(page.getByRole('button', { name: /menu/i })).first()).toBeVisible();
+  await expect(
+    page
+      .getByRole('button', { name: /sign out/i })
+      .or(page.getByRole('button', { name: /menu/i }))
+      .first(),
+  ).toBeVisible();
 }
 
 const mailDir = () => path.join(process.env.E2E_DATA_DIR!, 'mail');
@@ -42,7 +48,10 @@ export async function waitForMail(to: string, subject: RegExp, since = 0, timeou
  */
 export async function addParentCart(
   page: Page,
-  { press = (target: Locator) => target.click(), check = async () => {} }: { press?: (target: Locator) => Promise<void>; check?: (where: 'search' | 'listing with personaliser') => Promise<void> } = {},
+  {
+    press = (target: Locator) => target.click(),
+    check = async () => {},
+  }: { press?: (target: Locator) => Promise<void>; check?: (where: 'search' | 'listing with personaliser') => Promise<void> } = {},
 ) {
   await page.goto('/search?occasion=autumn-harvest');
   await check('search');

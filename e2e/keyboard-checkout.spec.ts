@@ -2,8 +2,8 @@
 // tote, add it to the cart, go to the payment page, type the test card and pay — with Tab, arrow
 // keys, typing and Enter/Space, never the mouse. Every control we stop on must show a focus ring.
 import type { Locator, Page } from '@playwright/test';
-import { expect, test } from './fixtures.ts';
 import { FOX_TOTE, signUpApi, uniqueEmail } from './api-helpers.ts';
+import { expect, test } from './fixtures.ts';
 
 /** Presses Tab (up to `max` times) until `target` has focus; fails if it never does. */
 async function tabTo(page: Page, target: Locator, max = 60): Promise<void> {
@@ -74,7 +74,12 @@ test('a shopper personalises, adds to cart and pays using only the keyboard', as
   const card = page.getByLabel('Card number');
   await expect(card).toBeVisible();
   // the parcel address first, field by field (invented, like all demo data)
-  for (const [label, value] of [['Full name', 'Anouk Field'], ['Address line 1', '12 Acorn Lane'], ['Town or city', 'Harbourtown'], ['Postal code', 'HT1 2AB']] as const) {
+  for (const [label, value] of [
+    ['Full name', 'Anouk Field'],
+    ['Address line 1', '12 Acorn Lane'],
+    ['Town or city', 'Harbourtown'],
+    ['Postal code', 'HT1 2AB'],
+  ] as const) {
     await tabTo(page, page.getByLabel(label));
     await page.keyboard.type(value);
   }

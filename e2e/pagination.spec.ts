@@ -1,7 +1,8 @@
 // A list longer than a page: a fresh seller with 52 materials (pages of 50) moves through the
 // shared pager; the page number sits in the URL, so a reload and the back button keep it.
-import { expect, test } from './fixtures.ts';
+
 import { apiPost, signUpApi, uniqueEmail } from './api-helpers.ts';
+import { expect, test } from './fixtures.ts';
 
 test('a seller pages through her materials; the page survives a reload and the back button', async ({ page }) => {
   test.setTimeout(90_000);

@@ -4,8 +4,8 @@
 // page must not scroll sideways (WCAG 2.2 1.4.10 Reflow: no two-dimensional scrolling at 320+ px)
 // and the controls we tap must be at least 24 × 24 px (2.5.8).
 import type { Locator, Page } from '@playwright/test';
-import { addParentCart, expect, test, waitForMail } from './fixtures.ts';
 import { fillShipTo, testClientAddress, uniqueEmail } from './api-helpers.ts';
+import { addParentCart, expect, test, waitForMail } from './fixtures.ts';
 
 // this parent's own client address: sign-up is rate-limited per address (see api-helpers.ts)
 test.use({ viewport: { width: 375, height: 740 }, isMobile: true, hasTouch: true, deviceScaleFactor: 2, extraHTTPHeaders: { 'x-forwarded-for': testClientAddress() } });
@@ -87,7 +87,12 @@ test('on a phone, a parent builds a two-shop cart, signs up at checkout, pays an
 
   // the order's progress, reached through the phone menu
   await tap(page.getByRole('button', { name: 'Menu' }));
-  await tap(page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: /orders/i }).first());
+  await tap(
+    page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link', { name: /orders/i })
+      .first(),
+  );
   await expect(page).toHaveURL(/\/orders$/);
   await expectNoSideScroll(page, 'orders');
   await tap(page.getByRole('link', { name: new RegExp(numbers[0]!) }));

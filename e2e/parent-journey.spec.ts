@@ -2,8 +2,9 @@
 // browse by occasion, open a tote listing, type a child's name, pick colours, watch the price,
 // add to cart with an item from a second shop, pay with the test card 4242 on the payment page,
 // land on the confirmation, read the e-mail from the mail fake's store, then follow the order.
-import { addParentCart, demo, expect, signIn, test, waitForMail } from './fixtures.ts';
+
 import { fillShipTo } from './api-helpers.ts';
+import { addParentCart, demo, expect, signIn, test, waitForMail } from './fixtures.ts';
 
 test('a parent orders a named tote and a tee from two shops and pays once', async ({ page }) => {
   const since = Date.now();

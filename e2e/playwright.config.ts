@@ -1,6 +1,6 @@
-import { defineConfig, devices } from '@playwright/test';
 import os from 'node:os';
 import path from 'node:path';
+import { defineConfig, devices } from '@playwright/test';
 
 // one port and data folder per run; scripts/test.mjs and CI use these defaults
 const port = Number(process.env.E2E_PORT ?? 4319);

@@ -48,11 +48,19 @@ test('every seller page shows the one seller navigation with the current page ma
   await page.goto('/workroom/listings/new');
   await expectCurrent(page, sellerNav(page), 'Listings');
   await page.goto('/workroom');
-  await page.getByTestId('work-line').first().getByRole('link', { name: /^NS-\d+$/ }).click();
+  await page
+    .getByTestId('work-line')
+    .first()
+    .getByRole('link', { name: /^NS-\d+$/ })
+    .click();
   await expect(page).toHaveURL(/\/workroom\/orders\//);
   await expectCurrent(page, sellerNav(page), 'Orders');
   await page.goBack();
-  await page.getByTestId('work-line').first().getByRole('link', { name: /Check proof|Open/ }).click();
+  await page
+    .getByTestId('work-line')
+    .first()
+    .getByRole('link', { name: /Check proof|Open/ })
+    .click();
   await expect(page).toHaveURL(/\/workroom\/lines\//);
   await expectCurrent(page, sellerNav(page), 'Orders');
 });

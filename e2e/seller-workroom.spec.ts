@@ -4,8 +4,8 @@
 // cut sheets, downloads the SVG and the work sheet PDF, marks the sheets cut and the item pressed,
 // enters the tracking number, and the shopper's shipped e-mail is read from the mail fake's store.
 import type { Browser, Page } from '@playwright/test';
-import { demo, expect, signIn, test, waitForMail } from './fixtures.ts';
 import { fillShipTo } from './api-helpers.ts';
+import { demo, expect, signIn, test, waitForMail } from './fixtures.ts';
 
 const PASSWORD = 'workroom-journey-9';
 
@@ -17,13 +17,21 @@ async function newShopper(browser: Browser): Promise<{ page: Page; email: string
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
   await page.getByRole('button', { name: 'Create account' }).click();
-  await expect(page.getByRole('button', { name: /sign out/i }).or(page.getByRole('button', { name: /menu/i })).first()).toBeVisible();
+  await expect(
+    page
+      .getByRole('button', { name: /sign out/i })
+      .or(page.getByRole('button', { name: /menu/i }))
+      .first(),
+  ).toBeVisible();
   return { page, email };
 }
 
 async function buyFoxTote(page: Page, name: string): Promise<string> {
   await page.goto('/search?occasion=autumn-harvest');
-  await page.getByRole('link', { name: /Autumn fox tote with a name/ }).first().click();
+  await page
+    .getByRole('link', { name: /Autumn fox tote with a name/ })
+    .first()
+    .click();
   const form = page.getByRole('form', { name: 'Personalise this item' });
   await form.getByLabel('Name', { exact: true }).fill(name);
   await form.getByRole('button', { name: /Add to cart/ }).click();
@@ -37,7 +45,10 @@ async function buyFoxTote(page: Page, name: string): Promise<string> {
   await page.getByLabel('Security code (CVC)').fill('123');
   await page.getByRole('button', { name: /^Pay / }).click();
   await expect(page.getByRole('heading', { name: 'Thank you, your order is confirmed' })).toBeVisible({ timeout: 20_000 });
-  return (await page.getByText(/^NS-\d+$/).first().textContent())!;
+  return (await page
+    .getByText(/^NS-\d+$/)
+    .first()
+    .textContent())!;
 }
 
 test('a seller checks a proof, asks for a change, cuts, presses and ships; the shopper hears about it', async ({ page, browser }) => {

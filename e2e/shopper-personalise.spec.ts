@@ -2,11 +2,15 @@
 // preview (size, a named warning for a character the font lacks, colours, price), add it to the
 // cart, and find the typed name still there after a reload. Then the same with the keyboard only.
 import type { Page } from '@playwright/test';
-import { expect, test } from './fixtures.ts';
 import { ensureLiveDemoListing } from '../bench/preview.ts';
+import { expect, test } from './fixtures.ts';
 
 type FontInfo = { id: string; family: string; characters: string };
-type Listing = { id: string; content: { title: string; personalisation: { textFields: { id: string; label: string; maxLength: number; defaultFontId: string; fontIds: string[]; colourChoices: string[] }[] } }; materials: { id: string; colourName: string }[] };
+type Listing = {
+  id: string;
+  content: { title: string; personalisation: { textFields: { id: string; label: string; maxLength: number; defaultFontId: string; fontIds: string[]; colourChoices: string[] }[] } };
+  materials: { id: string; colourName: string }[];
+};
 
 // candidates from Latin Extended-B, Greek, Cyrillic and CJK: the display fonts cover Latin-1 and
 // Extended-A (shared/engine/font-catalog.ts), so one of these is missing from any of them
@@ -106,7 +110,7 @@ test('the personaliser works with the keyboard alone', async ({ page }) => {
   await expect(page.getByTestId('design-size')).toContainText('cm');
 
   // Tab through the rest: every control is reached, radios move with the arrow keys
-  const fontGroup = page.getByRole('group', { name: new RegExp(`^Font for the`) });
+  const fontGroup = page.getByRole('group', { name: /^Font for the/ });
   const colourGroup = page.getByRole('group', { name: `${field.label} colour` });
   const seen: string[] = [];
   for (let i = 0; i < 40; i++) {

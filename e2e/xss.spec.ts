@@ -7,17 +7,12 @@
 // it into the DOM — and that the payload text itself was shown (escaped), so the page was really
 // tested and not just empty.
 import type { Browser, Page } from '@playwright/test';
-import { demo, expect, signIn, test } from './fixtures.ts';
 import { addToCartApi, apiGet, apiPost, payCartApi, signUpApi, uniqueEmail } from './api-helpers.ts';
+import { demo, expect, signIn, test } from './fixtures.ts';
 
 test.describe.configure({ timeout: 240_000 });
 
-const P = [
-  '<img src=x onerror=window.__xss=1>',
-  '<script>window.__xss=1</script>',
-  '"><svg onload=window.__xss=1>',
-  'javascript:window.__xss=1',
-] as const;
+const P = ['<img src=x onerror=window.__xss=1>', '<script>window.__xss=1</script>', '"><svg onload=window.__xss=1>', 'javascript:window.__xss=1'] as const;
 const ALL = P.join(' ');
 // link-ish: a markdown link and an autolink whose target is script
 const MD = `${ALL}\n\n[see more](javascript:window.__xss=1) <javascript:window.__xss=1> [x](JaVaScRiPt:window.__xss=1)\n\n<a href="javascript:window.__xss=1">raw</a>`;
@@ -67,7 +62,7 @@ test.afterAll(() => {
   for (const s of seen) console.log(`  ${s.viewer.padEnd(7)} ${s.page}: ${s.payloads} payload(s) shown`);
 });
 
-test('payloads typed by sellers, shoppers and admins never run in another user\'s browser', async ({ browser }) => {
+test("payloads typed by sellers, shoppers and admins never run in another user's browser", async ({ browser }) => {
   const seller = await rolePage(browser);
   const shopper = await rolePage(browser);
   const admin = await rolePage(browser);
@@ -147,7 +142,12 @@ test('payloads typed by sellers, shoppers and admins never run in another user\'
   const frame = admin.locator('iframe[title^="Message:"]');
   if (await frame.count()) {
     expect(await frame.getAttribute('sandbox')).toBe('');
-    await expect(admin.frameLocator('iframe[title^="Message:"]').getByText(/Check the spelling/).first()).toBeVisible();
+    await expect(
+      admin
+        .frameLocator('iframe[title^="Message:"]')
+        .getByText(/Check the spelling/)
+        .first(),
+    ).toBeVisible();
     expect(await admin.frameLocator('iframe[title^="Message:"]').locator('img[src="x"], svg, script').count()).toBe(0);
   }
 

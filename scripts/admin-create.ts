@@ -4,12 +4,12 @@
 // link the "Reset your password" e-mail carries, on BASE_URL, valid for an hour. Run it with the
 // same environment as the server (DATA_DIR, BASE_URL, …); it may run while the server runs.
 import { eq } from 'drizzle-orm';
-import { loadEnv } from '../server/env.ts';
-import { openDb } from '../server/db/client.ts';
 import { createAuth } from '../server/auth.ts';
+import { openDb } from '../server/db/client.ts';
 import { user } from '../server/db/schema.ts';
-import { emailSchema } from '../shared/schemas/auth.ts';
+import { loadEnv } from '../server/env.ts';
 import type { Mail, Mailer } from '../server/integrations/mailer.ts';
+import { emailSchema } from '../shared/schemas/auth.ts';
 
 /** The client's page that takes the token (the same redirect the app's "forgot password" form asks for). */
 const RESET_PAGE = '/reset-password';

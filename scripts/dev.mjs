@@ -11,4 +11,9 @@ const stop = (sig) => children.forEach((c) => c.kill(sig));
 process.on('SIGINT', () => stop('SIGINT'));
 process.on('SIGTERM', () => stop('SIGTERM'));
 let left = children.length;
-children.forEach((c) => c.on('exit', () => { if (--left === 0) process.exit(0); else stop('SIGTERM'); }));
+children.forEach((c) =>
+  c.on('exit', () => {
+    if (--left === 0) process.exit(0);
+    else stop('SIGTERM');
+  }),
+);

@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from '@playwright/test';
+import { type Browser, chromium, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { fillShipTo } from '../e2e/api-helpers.ts';
 import { buildClientIfMissing, freePort, startTsProcess, stopProcess, waitUntilUp } from './lib/server-process.ts';
@@ -24,7 +24,10 @@ async function save(page: Page, name: string, opts: { fullPage?: boolean } = {})
   if (png.length > MAX_BYTES) png = await sharp(raw).png({ palette: true, colours: 48, compressionLevel: 9, effort: 10 }).toBuffer();
   if (png.length > MAX_BYTES) {
     const meta = await sharp(raw).metadata();
-    png = await sharp(raw).resize({ width: Math.round((meta.width ?? 1280) * 0.75) }).png({ palette: true, colours: 64, compressionLevel: 9 }).toBuffer();
+    png = await sharp(raw)
+      .resize({ width: Math.round((meta.width ?? 1280) * 0.75) })
+      .png({ palette: true, colours: 64, compressionLevel: 9 })
+      .toBuffer();
   }
   fs.writeFileSync(path.join(outDir, `${name}.png`), png);
   console.log(`  ${name}.png  ${(png.length / 1024).toFixed(0)} KB`);
@@ -44,7 +47,17 @@ async function main(): Promise<void> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-screenshots-'));
   const port = await freePort();
   const base = `http://localhost:${port}`;
-  const server = startTsProcess('server/index.ts', { ...process.env, DATA_DIR: dataDir, PORT: String(port), BASE_URL: base, CLIENT_DIR: path.join(root, 'dist'), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', LOG_REQUESTS: 'false', DEMO_MODE: 'true' });
+  const server = startTsProcess('server/index.ts', {
+    ...process.env,
+    DATA_DIR: dataDir,
+    PORT: String(port),
+    BASE_URL: base,
+    CLIENT_DIR: path.join(root, 'dist'),
+    SMTP_PORT: '0',
+    STRIPE_FAKE_PORT: '0',
+    LOG_REQUESTS: 'false',
+    DEMO_MODE: 'true',
+  });
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
@@ -72,11 +85,20 @@ async function main(): Promise<void> {
     await save(dana, 'listing-personaliser');
     await dana.setViewportSize({ width: 1280, height: 860 });
     await form.getByRole('button', { name: /Add to cart/ }).click();
-    await dana.getByText(/Added to your cart/).first().waitFor();
+    await dana
+      .getByText(/Added to your cart/)
+      .first()
+      .waitFor();
     await dana.goto('/listings/rocket-name-tee-for-kids');
     await dana.getByRole('form', { name: 'Personalise this item' }).getByLabel('Name', { exact: true }).fill('Theo');
-    await dana.getByRole('form', { name: 'Personalise this item' }).getByRole('button', { name: /Add to cart/ }).click();
-    await dana.getByText(/Added to your cart/).first().waitFor();
+    await dana
+      .getByRole('form', { name: 'Personalise this item' })
+      .getByRole('button', { name: /Add to cart/ })
+      .click();
+    await dana
+      .getByText(/Added to your cart/)
+      .first()
+      .waitFor();
     await dana.goto('/cart');
     await dana.getByTestId('cart-total').waitFor();
     await save(dana, 'cart');
@@ -86,9 +108,15 @@ async function main(): Promise<void> {
     await dana.getByLabel('Card number').fill('4242 4242 4242 4242');
     await save(dana, 'payment-page');
     await dana.goto('/orders');
-    await dana.getByRole('link', { name: /NS-\d+/ }).first().waitFor();
+    await dana
+      .getByRole('link', { name: /NS-\d+/ })
+      .first()
+      .waitFor();
     await save(dana, 'orders');
-    await dana.getByRole('link', { name: /NS-\d+/ }).first().click();
+    await dana
+      .getByRole('link', { name: /NS-\d+/ })
+      .first()
+      .click();
     await dana.getByRole('heading', { level: 1 }).waitFor();
     await save(dana, 'order-detail');
 

@@ -2,12 +2,12 @@
 // demo orders are paid at the local payment fake, so it runs here (on a free port, its state in
 // DATA_DIR/stripe, where the server's own fake finds it at the next start).
 import path from 'node:path';
-import { loadEnv } from '../server/env.ts';
-import { openDb } from '../server/db/client.ts';
-import { createMailer } from '../server/integrations/mailer.ts';
-import { createApp } from '../server/app.ts';
-import { isEmpty, seedDemo } from '../server/db/seed.ts';
 import { startStripeFake } from '../fakes/stripe/server.ts';
+import { createApp } from '../server/app.ts';
+import { openDb } from '../server/db/client.ts';
+import { isEmpty, seedDemo } from '../server/db/seed.ts';
+import { loadEnv } from '../server/env.ts';
+import { createMailer } from '../server/integrations/mailer.ts';
 
 let env = loadEnv();
 if (!env.demoData) {

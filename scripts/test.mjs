@@ -24,7 +24,7 @@ function ensureChromium() {
     console.error('Chromium is missing. Install it with: sudo apt-get update && sudo apt-get install -y chromium');
     return false;
   }
-  console.log('Installing Debian\'s chromium (needed by the browser tests) …');
+  console.log("Installing Debian's chromium (needed by the browser tests) …");
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   spawnSync('apt-get', ['update'], { stdio: 'inherit', env });
   const r = spawnSync('apt-get', ['install', '-y', '--no-install-recommends', 'chromium', 'fonts-dejavu-core'], { stdio: 'inherit', env });
@@ -50,7 +50,21 @@ function check(label, args) {
 
 if (only !== 'e2e') {
   check('typecheck (tsc --noEmit)', ['node_modules/typescript/bin/tsc', '--noEmit', '-p', '.']);
-  check('import rules (dependency-cruiser)', ['node_modules/dependency-cruiser/bin/dependency-cruise.mjs', '--config', '.dependency-cruiser.cjs', '--output-type', 'err', 'src', 'server', 'shared', 'tests', 'e2e', 'fakes', 'bench', 'scripts']);
+  check('import rules (dependency-cruiser)', [
+    'node_modules/dependency-cruiser/bin/dependency-cruise.mjs',
+    '--config',
+    '.dependency-cruiser.cjs',
+    '--output-type',
+    'err',
+    'src',
+    'server',
+    'shared',
+    'tests',
+    'e2e',
+    'fakes',
+    'bench',
+    'scripts',
+  ]);
   if (BIOME) check('formatting and lint (Biome)', ['node_modules/@biomejs/biome/bin/biome', 'check', '.']);
   const vitestJson = path.join(out, 'vitest.json');
   ok = run('unit and API tests (Vitest)', node, ['node_modules/vitest/vitest.mjs', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`]) && ok;

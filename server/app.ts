@@ -1,23 +1,22 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { toNodeHandler } from 'better-auth/node';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import morgan from 'morgan';
-import path from 'node:path';
-import fs from 'node:fs';
-import { toNodeHandler } from 'better-auth/node';
-import type { AppDeps } from './deps.ts';
 import { createAuth } from './auth.ts';
-import { errorHandler } from './http/error-handler.ts';
-import { authInput } from './http/auth-input.ts';
-import { loadSession } from './http/auth-guards.ts';
-import { appOrigins, sameOrigin } from './http/same-origin.ts';
-import { notFound } from './http/app-error.ts';
-import { featureRouters } from './features/index.ts';
-import { withOurErrorShape } from './http/auth-errors.ts';
 import { DEMO_PASSWORD, hasDemoData } from './db/demo-accounts.ts';
 import { pingDatabase } from './db/health.repo.ts';
+import type { AppDeps } from './deps.ts';
+import { featureRouters } from './features/index.ts';
 import { DEFAULT_RATE_LIMITS, type RateLimits } from './http/account-rate-limit.ts';
+import { notFound } from './http/app-error.ts';
+import { withOurErrorShape } from './http/auth-errors.ts';
+import { loadSession } from './http/auth-guards.ts';
+import { authInput } from './http/auth-input.ts';
+import { errorHandler } from './http/error-handler.ts';
+import { appOrigins, sameOrigin } from './http/same-origin.ts';
 import { createWorkPool, type WorkPool } from './workers/pool.ts';
-
 
 export type CreateAppInput = Omit<AppDeps, 'auth' | 'now' | 'pool' | 'rateLimits'> & {
   now?: () => number;
@@ -111,9 +110,15 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
 
   if (input.clientDir && fs.existsSync(path.join(input.clientDir, 'index.html'))) {
     const dir = input.clientDir;
-    app.use(express.static(dir, { index: false, maxAge: '1h', setHeaders: (res, file) => {
-      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-    } }));
+    app.use(
+      express.static(dir, {
+        index: false,
+        maxAge: '1h',
+        setHeaders: (res, file) => {
+          if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        },
+      }),
+    );
     const indexHtml = fs.readFileSync(path.join(dir, 'index.html'), 'utf8');
     app.get('/{*any}', (_req, res) => {
       res.type('html').setHeader('Cache-Control', 'no-cache');

@@ -1,13 +1,13 @@
 import { betterAuth } from 'better-auth';
 import { drizzleAdapter } from 'better-auth/adapters/drizzle';
-import { admin } from 'better-auth/plugins';
 import { APIError, createAuthMiddleware } from 'better-auth/api';
+import { admin } from 'better-auth/plugins';
 import { newPasswordSchema } from '../shared/schemas/auth.ts';
-import type { Db } from './db/client.ts';
 import * as authSchema from './db/auth-schema.ts';
+import type { Db } from './db/client.ts';
 import type { Env } from './env.ts';
 import { appOrigins } from './http/same-origin.ts';
-import { mailLayout, escapeHtml, type Mailer } from './integrations/mailer.ts';
+import { escapeHtml, type Mailer, mailLayout } from './integrations/mailer.ts';
 
 export type AuthDeps = { db: Db; env: Env; mailer: Mailer };
 
@@ -71,7 +71,10 @@ export function createAuth({ db, env, mailer }: AuthDeps) {
           to: user.email,
           subject: 'Reset your Namesake password',
           text: `Hello ${user.name},\n\nSomeone (hopefully you) asked to reset the password of your Namesake account.\nOpen this link within an hour to choose a new one:\n\n${url}\n\nIf it wasn't you, ignore this e-mail: your password stays as it is.`,
-          html: mailLayout('Reset your password', `<p>Hello ${escapeHtml(user.name)},</p><p>Someone (hopefully you) asked to reset the password of your Namesake account. Open this link within an hour to choose a new one:</p><p><a href="${escapeHtml(url)}" style="background:#e0a526;color:#1f2a44;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Choose a new password</a></p><p style="font-size:13px">${escapeHtml(url)}</p><p>If it wasn't you, ignore this e-mail: your password stays as it is.</p>`),
+          html: mailLayout(
+            'Reset your password',
+            `<p>Hello ${escapeHtml(user.name)},</p><p>Someone (hopefully you) asked to reset the password of your Namesake account. Open this link within an hour to choose a new one:</p><p><a href="${escapeHtml(url)}" style="background:#e0a526;color:#1f2a44;padding:10px 16px;border-radius:8px;text-decoration:none;font-weight:700">Choose a new password</a></p><p style="font-size:13px">${escapeHtml(url)}</p><p>If it wasn't you, ignore this e-mail: your password stays as it is.</p>`,
+          ),
         });
       },
     },

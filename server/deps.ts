@@ -1,12 +1,13 @@
 // What every route, service and job is handed: the app's dependencies, made once by createApp
 // (server/app.ts). A module of its own, with types only, so that features, jobs and the seed can
 // name it without importing the app that mounts them.
+
+import type { Auth } from './auth.ts';
 import type { Db } from './db/client.ts';
 import type { Env } from './env.ts';
-import type { Mailer } from './integrations/mailer.ts';
-import type { Auth } from './auth.ts';
-import type { WorkPool } from './workers/pool.ts';
 import type { RateLimits } from './http/account-rate-limit.ts';
+import type { Mailer } from './integrations/mailer.ts';
+import type { WorkPool } from './workers/pool.ts';
 
 export type AppDeps = {
   db: Db;

@@ -1,9 +1,7 @@
-import { z } from 'zod';
 import path from 'node:path';
+import { z } from 'zod';
 
-const bool = z
-  .enum(['true', 'false', '1', '0', 'yes', 'no'])
-  .transform((v) => v === 'true' || v === '1' || v === 'yes');
+const bool = z.enum(['true', 'false', '1', '0', 'yes', 'no']).transform((v) => v === 'true' || v === '1' || v === 'yes');
 
 /** An empty value counts as unset (e.g. `AUTH_SECRET=` in an env file). */
 const optional = <T extends z.ZodType>(t: T) => z.preprocess((v) => (v === '' ? undefined : v), t.optional());
@@ -51,7 +49,17 @@ const schema = z.object({
   PAYMENT_FEE_BPS: z.coerce.number().int().min(0).max(5000).default(290),
   PAYMENT_FEE_FIXED_MINOR: z.coerce.number().int().min(0).max(10_000).default(30),
   /** IANA time zone for shops' calendar days (ship-by dates, the morning digest) */
-  BUSINESS_TIME_ZONE: z.string().default('UTC').refine((tz) => { try { new Intl.DateTimeFormat('en', { timeZone: tz }); return true; } catch { return false; } }, 'Use an IANA time zone name, e.g. Europe/London.'),
+  BUSINESS_TIME_ZONE: z
+    .string()
+    .default('UTC')
+    .refine((tz) => {
+      try {
+        new Intl.DateTimeFormat('en', { timeZone: tz });
+        return true;
+      } catch {
+        return false;
+      }
+    }, 'Use an IANA time zone name, e.g. Europe/London.'),
   /** when the sellers' morning digest goes out (cron, in BUSINESS_TIME_ZONE); DIGEST=false turns it off */
   DIGEST_CRON: z.string().default('0 7 * * *'),
   DIGEST: bool.default(true),
@@ -108,9 +116,7 @@ export function loadEnv(source: Record<string, string | undefined> = process.env
     uploadsDir: path.join(dataDir, 'uploads'),
     dbFile: path.join(dataDir, 'namesake.db'),
     startMailFake: production ? localFakes && e.MAIL_FAKE !== false : (e.MAIL_FAKE ?? (localFakes || isLocal(SMTP_HOST))),
-    startStripeFake: production
-      ? localFakes && e.STRIPE_FAKE !== false
-      : (e.STRIPE_FAKE ?? (localFakes || (STRIPE_API_BASE !== '' && isLocal(STRIPE_API_BASE)))),
+    startStripeFake: production ? localFakes && e.STRIPE_FAKE !== false : (e.STRIPE_FAKE ?? (localFakes || (STRIPE_API_BASE !== '' && isLocal(STRIPE_API_BASE)))),
   };
 }
 

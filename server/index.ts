@@ -1,8 +1,8 @@
 // Reads env, migrates, seeds the demo when asked (DEMO_DATA), starts the local fakes, listens; stops cleanly on SIGTERM/Ctrl-C.
 // A bad or incomplete environment stops it with exit code 1 and one line per problem.
 import path from 'node:path';
-import { startNamesake } from './runtime.ts';
 import { DEMO_PASSWORD } from './db/demo-accounts.ts';
+import { startNamesake } from './runtime.ts';
 
 const clientDir = path.resolve(process.env.CLIENT_DIR ?? 'dist');
 try {

@@ -1,15 +1,15 @@
 // Wires env → database → fakes → mailer → app. Used by server/index.ts and the e2e/bench launchers.
 import fs from 'node:fs';
-import path from 'node:path';
-import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
-import { loadEnv, type Env } from './env.ts';
-import { openDb } from './db/client.ts';
-import { createMailer } from './integrations/mailer.ts';
-import { createApp } from './app.ts';
-import { isEmpty, seedDemo } from './db/seed.ts';
-import { hasDemoData } from './db/demo-accounts.ts';
+import type { AddressInfo } from 'node:net';
+import path from 'node:path';
 import { startMailFake } from '../fakes/mail/server.ts';
+import { createApp } from './app.ts';
+import { openDb } from './db/client.ts';
+import { hasDemoData } from './db/demo-accounts.ts';
+import { isEmpty, seedDemo } from './db/seed.ts';
+import { type Env, loadEnv } from './env.ts';
+import { createMailer } from './integrations/mailer.ts';
 import { startJobs } from './jobs/scheduler.ts';
 import { writePidFile } from './runtime-lock.ts';
 

@@ -54,7 +54,7 @@ export function cssLengthToMm(value: string | undefined | null): number | null {
 /** Rounds half away from zero to `digits` decimals, without -0. */
 export function roundTo(value: number, digits: number): number {
   const f = 10 ** digits;
-  const r = Math.sign(value) * Math.round(Math.abs(value) * f) / f;
+  const r = (Math.sign(value) * Math.round(Math.abs(value) * f)) / f;
   return r === 0 ? 0 : r;
 }
 

@@ -1,9 +1,10 @@
 // A real SMTP listener on 127.0.0.1 that stores every message it receives as an .eml file.
 // The app sends through it in development and tests; e2e tests and the admin mail page read the store.
-import { SMTPServer } from 'smtp-server';
+
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import crypto from 'node:crypto';
+import { SMTPServer } from 'smtp-server';
 import { listenLocal } from '../listen.ts';
 
 export type MailFake = { port: number; dir: string; close(): Promise<void> };

@@ -1,19 +1,23 @@
 // Reads the messages the mail fake stored. Used by the admin mail page, tests and e2e.
 import fs from 'node:fs';
 import path from 'node:path';
-import { simpleParser, type AddressObject } from 'mailparser';
+import { type AddressObject, simpleParser } from 'mailparser';
 
 export type StoredMailSummary = { id: string; to: string; from: string; subject: string; date: string };
 export type StoredMail = StoredMailSummary & { html: string; text: string };
 
 const ID = /^[0-9]{14}-[0-9a-f]{8}$/;
 
-const addr = (a: AddressObject | AddressObject[] | undefined) =>
-  (Array.isArray(a) ? a : a ? [a] : []).map((x) => x.text).join(', ');
+const addr = (a: AddressObject | AddressObject[] | undefined) => (Array.isArray(a) ? a : a ? [a] : []).map((x) => x.text).join(', ');
 
 export function listMailIds(dir: string): string[] {
   if (!fs.existsSync(dir)) return [];
-  return fs.readdirSync(dir).filter((f) => f.endsWith('.eml')).map((f) => f.slice(0, -4)).filter((id) => ID.test(id)).sort();
+  return fs
+    .readdirSync(dir)
+    .filter((f) => f.endsWith('.eml'))
+    .map((f) => f.slice(0, -4))
+    .filter((id) => ID.test(id))
+    .sort();
 }
 
 export async function readMail(dir: string, id: string): Promise<StoredMail | null> {

@@ -2,13 +2,13 @@
 // confirmation step): shows what is paid for, takes a test card (and the address when the session
 // collects one) and answers as the Stripe "Testing" docs describe for each test card.
 import type http from 'node:http';
+import { z } from 'zod';
 import type { Fake } from './context.ts';
 import { authPage, messagePage, type PayPageInput, payPage } from './html.ts';
 import { parseForm, readBody, redirect, send, sendHtml } from './http.ts';
 import { cardBehaviour, checkCard, checkShipping } from './payment-form.ts';
 import { declinePayment, requireAction, succeedPayment } from './resources/payment-intents.ts';
 import type { CheckoutSession } from './types.ts';
-import { z } from 'zod';
 
 const MAX_FORM = 16 * 1024;
 

@@ -103,9 +103,7 @@ export type CardField = 'card_number' | 'card_expiry' | 'card_cvc';
 export type ShippingField = 'ship_name' | 'ship_line1' | 'ship_line2' | 'ship_city' | 'ship_postal_code' | 'ship_state' | 'ship_country';
 
 function amountBlock(amount: number, currency: string, items: PageItem[]): string {
-  const list = items
-    .map((i) => `<li><span>${esc(i.name)} × ${i.quantity}</span><span>${esc(formatMinor(i.amount, currency))}</span></li>`)
-    .join('');
+  const list = items.map((i) => `<li><span>${esc(i.name)} × ${i.quantity}</span><span>${esc(formatMinor(i.amount, currency))}</span></li>`).join('');
   return `<p>Amount to pay</p>
 <p class="amount" data-testid="amount">${esc(formatMinor(amount, currency))}</p>
 ${items.length ? `<ul class="items" aria-label="What you are paying for">${list}</ul>` : ''}`;
@@ -115,14 +113,7 @@ function cancelLink(url: string | null, text = 'Back to the shop'): string {
   return url ? `<a href="${esc(url)}">${esc(text)}</a>` : '';
 }
 
-function field(
-  name: CardField,
-  label: string,
-  hint: string,
-  autocomplete: string,
-  input: PayPageInput,
-  value = '',
-): string {
+function field(name: CardField, label: string, hint: string, autocomplete: string, input: PayPageInput, value = ''): string {
   const err = input.fieldErrors?.[name];
   const hintId = `${name}-hint`;
   const errId = `${name}-error`;
@@ -188,9 +179,7 @@ ${d.after}
 
 export function payPage(input: PayPageInput): string {
   const items = input.items;
-  const error = input.error
-    ? `<div class="error" role="alert"><p>${esc(input.error)}</p>${input.cancelUrl ? `<p>${cancelLink(input.cancelUrl, 'Go back to your cart')}</p>` : ''}</div>`
-    : '';
+  const error = input.error ? `<div class="error" role="alert"><p>${esc(input.error)}</p>${input.cancelUrl ? `<p>${cancelLink(input.cancelUrl, 'Go back to your cart')}</p>` : ''}</div>` : '';
   return page(
     'Namesake test payment',
     `${amountBlock(input.amount, input.currency, items)}

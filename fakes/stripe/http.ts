@@ -22,8 +22,7 @@ export class ApiError extends Error {
 export const invalid = (message: string, extra: ApiError['extra'] = {}) => new ApiError(400, 'invalid_request_error', message, extra);
 
 /** A 404 `resource_missing` for an id that names nothing. */
-export const missing = (what: string, id: string, param = 'id') =>
-  new ApiError(404, 'invalid_request_error', `No such ${what}: '${id}'`, { code: 'resource_missing', param });
+export const missing = (what: string, id: string, param = 'id') => new ApiError(404, 'invalid_request_error', `No such ${what}: '${id}'`, { code: 'resource_missing', param });
 
 // ---------- replies ----------
 

@@ -13,7 +13,10 @@ export const currency = z
 export const metadata = z
   .record(z.string().max(40, 'metadata keys are at most 40 characters'), z.string().max(500, 'metadata values are at most 500 characters'))
   .refine((m) => Object.keys(m).length <= 50, 'at most 50 metadata keys');
-export const email = z.string().max(512).regex(/^[^\s@]+@[^\s@]+\.[^\s@]+$/, 'expected an e-mail address');
+export const email = z
+  .string()
+  .max(512)
+  .regex(/^[^\s@]+@[^\s@]+\.[^\s@]+$/, 'expected an e-mail address');
 export const expandList = z.array(z.string()).optional();
 
 /** Paging parameters every list endpoint takes. */
@@ -44,7 +47,13 @@ export function validate<S extends z.ZodType>(schema: S, raw: unknown): z.output
   if (r.success) return r.data;
   const issue = r.error.issues[0]!;
   const segs = issue.path.map(String);
-  const param = segs.length ? segs[0] + segs.slice(1).map((s) => `[${s}]`).join('') : '';
+  const param = segs.length
+    ? segs[0] +
+      segs
+        .slice(1)
+        .map((s) => `[${s}]`)
+        .join('')
+    : '';
   const absent = segs.length > 0 && getAt(raw, issue.path) === undefined;
   throw invalid(absent ? `Missing required param: ${param}.` : `Invalid ${param || 'request'}: ${issue.message}`, {
     code: absent ? 'parameter_missing' : 'parameter_invalid',

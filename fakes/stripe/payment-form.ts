@@ -98,9 +98,7 @@ export interface ShippingCheck {
 /** Checks the address typed on the payment page against the session's `allowed_countries`. */
 export function checkShipping(raw: Record<string, unknown>, allowed: string[]): ShippingCheck {
   const r = shippingFormSchema.safeParse(raw);
-  const values: ShippingForm = r.success
-    ? r.data
-    : { ship_name: '', ship_line1: '', ship_line2: '', ship_city: '', ship_postal_code: '', ship_state: '', ship_country: '' };
+  const values: ShippingForm = r.success ? r.data : { ship_name: '', ship_line1: '', ship_line2: '', ship_city: '', ship_postal_code: '', ship_state: '', ship_country: '' };
   const t = (v: string) => v.trim().replace(/\s+/g, ' ');
   const errors: Partial<Record<ShippingField, string>> = {};
   if (!t(values.ship_name)) errors.ship_name = 'Enter the name of the person the parcel is for.';

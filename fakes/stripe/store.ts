@@ -102,7 +102,9 @@ function canonical(v: unknown): string {
 
 /** What an idempotency key is tied to: the method, the path and the parameters. */
 export function requestFingerprint(method: string, pathname: string, params: Record<string, unknown>): string {
-  return createHash('sha256').update(`${method} ${pathname} ${canonical(params)}`).digest('hex');
+  return createHash('sha256')
+    .update(`${method} ${pathname} ${canonical(params)}`)
+    .digest('hex');
 }
 
 function emptyState(): State {

@@ -1,7 +1,7 @@
 // Starting Namesake (or one of its fakes) as a process of its own, for the scripts, benchmarks and
 // tests that drive a real server over HTTP: a free port, the client build, the process with its
 // output kept for error messages, waiting until it answers, and stopping it again.
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { type ChildProcess, spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
@@ -46,10 +46,7 @@ export function startTsProcess(script: string, env: NodeJS.ProcessEnv, log: stri
  * Resolves once `url` answers as `ready` says (default: a 2xx). Fails when the time runs out or, given
  * a process, when that process exits first; the process's output goes into the message.
  */
-export async function waitUntilUp(
-  url: string,
-  opts: { server?: ServerProcess; ms?: number; ready?: (res: Response) => boolean } = {},
-): Promise<void> {
+export async function waitUntilUp(url: string, opts: { server?: ServerProcess; ms?: number; ready?: (res: Response) => boolean } = {}): Promise<void> {
   const { server, ms = 120_000, ready = (res) => res.ok } = opts;
   const output = () => (server ? `:\n${server.log.join('')}` : '');
   const until = Date.now() + ms;

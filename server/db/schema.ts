@@ -2,13 +2,13 @@
 // Lengths: millimetres (real). Temperatures: °C. Timestamps: integer ms since epoch.
 // JSON columns hold plain data validated by the shared zod schemas before they are written.
 import { sql } from 'drizzle-orm';
-import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import { user } from './auth-schema.ts';
-import type { ListingContent } from '../../shared/schemas/listing.ts';
+import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import type { StoredMotifGeometry } from '../../shared/engine/motif.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
 import type { PricedCheckout, ShipTo } from '../../shared/schemas/checkout.ts';
+import type { ListingContent } from '../../shared/schemas/listing.ts';
 import type { StoredSheetPiece } from '../../shared/schemas/workroom.ts';
+import { user } from './auth-schema.ts';
 
 export * from './auth-schema.ts';
 
@@ -19,36 +19,42 @@ const json = <T>(name: string) => text(name, { mode: 'json' }).$type<T>();
 // ---------------------------------------------------------------- shops
 /** Only the fields the seller changed; the live shop keeps its approved values until approval. */
 export type ShopChange = { name?: string; description?: string; submittedAt: number };
-export const shops = sqliteTable('shops', {
-  id: id(),
-  ownerId: text('owner_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
-  name: text('name').notNull(),
-  slug: text('slug').notNull(),
-  description: text('description').notNull().default(''),
-  logoPath: text('logo_path'),
-  /** in_review | live | suspended | rejected */
-  state: text('state').notNull().default('in_review'),
-  stateReason: text('state_reason'),
-  currency: text('currency').notNull().default('USD'),
-  processingDays: integer('processing_days').notNull().default(3),
-  shippingMinor: integer('shipping_minor').notNull().default(0),
-  returnPolicy: text('return_policy').notNull().default(''),
-  /** handheld | clamshell */
-  pressType: text('press_type').notNull().default('clamshell'),
-  /** ISO weekday numbers 1 (Mon) … 7 (Sun) the shop works on */
-  workingDays: json<number[]>('working_days').notNull().default([1, 2, 3, 4, 5]),
-  daysOff: json<string[]>('days_off').notNull().default([]),
-  hourlyRateMinor: integer('hourly_rate_minor').notNull().default(0),
-  paymentAccountId: text('payment_account_id'),
-  /** a change of name/description to a shop already approved, waiting for moderation (null: none) */
-  pendingChange: json<ShopChange>('pending_change'),
-  /** bumped whenever the pending change is altered; an admin's decision names the one it saw */
-  changeRevision: integer('change_revision').notNull().default(0),
-  /** why the last name/description change was not approved (cleared by the next change) */
-  changeRejectionReason: text('change_rejection_reason'),
-  createdAt: createdAt(),
-  updatedAt: integer('updated_at').notNull(),
-}, (t) => [uniqueIndex('shops_slug_uq').on(t.slug), uniqueIndex('shops_owner_uq').on(t.ownerId)]);
+export const shops = sqliteTable(
+  'shops',
+  {
+    id: id(),
+    ownerId: text('owner_id')
+      .notNull()
+      .references(() => user.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    slug: text('slug').notNull(),
+    description: text('description').notNull().default(''),
+    logoPath: text('logo_path'),
+    /** in_review | live | suspended | rejected */
+    state: text('state').notNull().default('in_review'),
+    stateReason: text('state_reason'),
+    currency: text('currency').notNull().default('USD'),
+    processingDays: integer('processing_days').notNull().default(3),
+    shippingMinor: integer('shipping_minor').notNull().default(0),
+    returnPolicy: text('return_policy').notNull().default(''),
+    /** handheld | clamshell */
+    pressType: text('press_type').notNull().default('clamshell'),
+    /** ISO weekday numbers 1 (Mon) … 7 (Sun) the shop works on */
+    workingDays: json<number[]>('working_days').notNull().default([1, 2, 3, 4, 5]),
+    daysOff: json<string[]>('days_off').notNull().default([]),
+    hourlyRateMinor: integer('hourly_rate_minor').notNull().default(0),
+    paymentAccountId: text('payment_account_id'),
+    /** a change of name/description to a shop already approved, waiting for moderation (null: none) */
+    pendingChange: json<ShopChange>('pending_change'),
+    /** bumped whenever the pending change is altered; an admin's decision names the one it saw */
+    changeRevision: integer('change_revision').notNull().default(0),
+    /** why the last name/description change was not approved (cleared by the next change) */
+    changeRejectionReason: text('change_rejection_reason'),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [uniqueIndex('shops_slug_uq').on(t.slug), uniqueIndex('shops_owner_uq').on(t.ownerId)],
+);
 
 // ---------------------------------------------------------------- materials (vinyl stock)
 export type PressProfile = {
@@ -58,36 +64,50 @@ export type PressProfile = {
   peel: 'hot' | 'warm' | 'cold' | 'hot or cold';
   topOnly: boolean;
 };
-export const materials = sqliteTable('materials', {
-  id: id(),
-  shopId: text('shop_id').notNull().references(() => shops.id, { onDelete: 'cascade' }),
-  /** smooth | glitter | flock | metallic | patterned */
-  kind: text('kind').notNull(),
-  colourName: text('colour_name').notNull(),
-  colourHex: text('colour_hex').notNull(),
-  rollWidthMm: real('roll_width_mm').notNull(),
-  stockMm: real('stock_mm').notNull(),
-  lowStockMm: real('low_stock_mm').notNull().default(1000),
-  pricePerMetreMinor: integer('price_per_metre_minor').notNull().default(0),
-  pressProfile: json<PressProfile>('press_profile').notNull(),
-  archived: integer('archived', { mode: 'boolean' }).notNull().default(false),
-  createdAt: createdAt(),
-}, (t) => [index('materials_shop_idx').on(t.shopId)]);
+export const materials = sqliteTable(
+  'materials',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    /** smooth | glitter | flock | metallic | patterned */
+    kind: text('kind').notNull(),
+    colourName: text('colour_name').notNull(),
+    colourHex: text('colour_hex').notNull(),
+    rollWidthMm: real('roll_width_mm').notNull(),
+    stockMm: real('stock_mm').notNull(),
+    lowStockMm: real('low_stock_mm').notNull().default(1000),
+    pricePerMetreMinor: integer('price_per_metre_minor').notNull().default(0),
+    pressProfile: json<PressProfile>('press_profile').notNull(),
+    archived: integer('archived', { mode: 'boolean' }).notNull().default(false),
+    createdAt: createdAt(),
+  },
+  (t) => [index('materials_shop_idx').on(t.shopId)],
+);
 
 // ---------------------------------------------------------------- motifs (sanitised, normalised geometry)
-export const motifs = sqliteTable('motifs', {
-  id: id(),
-  shopId: text('shop_id').notNull().references(() => shops.id, { onDelete: 'cascade' }),
-  name: text('name').notNull(),
-  /** the engine's normalised motif: layers with path data in mm, bbox, area */
-  geometry: json<StoredMotifGeometry>('geometry').notNull(),
-  createdAt: createdAt(),
-}, (t) => [index('motifs_shop_idx').on(t.shopId)]);
+export const motifs = sqliteTable(
+  'motifs',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    /** the engine's normalised motif: layers with path data in mm, bbox, area */
+    geometry: json<StoredMotifGeometry>('geometry').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('motifs_shop_idx').on(t.shopId)],
+);
 
 // ---------------------------------------------------------------- uploads (photos, logos)
 export const uploads = sqliteTable('uploads', {
   id: id(),
-  ownerId: text('owner_id').notNull().references(() => user.id, { onDelete: 'cascade' }),
+  ownerId: text('owner_id')
+    .notNull()
+    .references(() => user.id, { onDelete: 'cascade' }),
   shopId: text('shop_id').references(() => shops.id, { onDelete: 'cascade' }),
   /** photo | logo */
   kind: text('kind').notNull(),
@@ -101,63 +121,82 @@ export const uploads = sqliteTable('uploads', {
 });
 
 // ---------------------------------------------------------------- listings
-export const listings = sqliteTable('listings', {
-  id: id(),
-  shopId: text('shop_id').notNull().references(() => shops.id, { onDelete: 'cascade' }),
-  slug: text('slug').notNull(),
-  /** draft | in_review | live | rejected | paused */
-  state: text('state').notNull().default('draft'),
-  /** the seller's working copy (what the editor shows and review checks), as the editor's schema outputs it */
-  draft: json<ListingContent>('draft').notNull(),
-  /** the approved copy on sale; stays on sale while an edit waits for review */
-  live: json<ListingContent>('live'),
-  /** true when the working copy has changes not yet approved */
-  pendingReview: integer('pending_review', { mode: 'boolean' }).notNull().default(false),
-  /** bumped on every seller edit of the working copy; approve/reject name the revision reviewed */
-  revision: integer('revision').notNull().default(1),
-  rejectionReason: text('rejection_reason'),
-  // denormalised from `live` for the catalogue's filters and sort
-  liveTitle: text('live_title'),
-  livePriceMinor: integer('live_price_minor'),
-  liveBlankKind: text('live_blank_kind'),
-  /** the live occasions as `,slug,slug,` so a filter is one LIKE '%,slug,%' */
-  liveOccasions: text('live_occasions'),
-  /** the live copy's first photo's thumbnail file name (under /uploads), for catalogue cards */
-  liveThumbPath: text('live_thumb_path'),
-  currency: text('currency').notNull().default('USD'),
-  publishedAt: integer('published_at'),
-  createdAt: createdAt(),
-  updatedAt: integer('updated_at').notNull(),
-}, (t) => [uniqueIndex('listings_slug_uq').on(t.slug), index('listings_shop_idx').on(t.shopId), index('listings_state_idx').on(t.state),
-  index('listings_catalog_idx').on(t.state, t.publishedAt)]);
+export const listings = sqliteTable(
+  'listings',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    slug: text('slug').notNull(),
+    /** draft | in_review | live | rejected | paused */
+    state: text('state').notNull().default('draft'),
+    /** the seller's working copy (what the editor shows and review checks), as the editor's schema outputs it */
+    draft: json<ListingContent>('draft').notNull(),
+    /** the approved copy on sale; stays on sale while an edit waits for review */
+    live: json<ListingContent>('live'),
+    /** true when the working copy has changes not yet approved */
+    pendingReview: integer('pending_review', { mode: 'boolean' }).notNull().default(false),
+    /** bumped on every seller edit of the working copy; approve/reject name the revision reviewed */
+    revision: integer('revision').notNull().default(1),
+    rejectionReason: text('rejection_reason'),
+    // denormalised from `live` for the catalogue's filters and sort
+    liveTitle: text('live_title'),
+    livePriceMinor: integer('live_price_minor'),
+    liveBlankKind: text('live_blank_kind'),
+    /** the live occasions as `,slug,slug,` so a filter is one LIKE '%,slug,%' */
+    liveOccasions: text('live_occasions'),
+    /** the live copy's first photo's thumbnail file name (under /uploads), for catalogue cards */
+    liveThumbPath: text('live_thumb_path'),
+    currency: text('currency').notNull().default('USD'),
+    publishedAt: integer('published_at'),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [uniqueIndex('listings_slug_uq').on(t.slug), index('listings_shop_idx').on(t.shopId), index('listings_state_idx').on(t.state), index('listings_catalog_idx').on(t.state, t.publishedAt)],
+);
 
 // ---------------------------------------------------------------- moderation audit log
-export const auditLog = sqliteTable('audit_log', {
-  id: id(),
-  actorId: text('actor_id').notNull().references(() => user.id),
-  /** e.g. listing.approve, listing.reject, shop.approve, shop.suspend, shop.restore, order.refund */
-  action: text('action').notNull(),
-  subjectType: text('subject_type').notNull(),
-  subjectId: text('subject_id').notNull(),
-  reason: text('reason'),
-  createdAt: createdAt(),
-}, (t) => [index('audit_created_idx').on(t.createdAt)]);
+export const auditLog = sqliteTable(
+  'audit_log',
+  {
+    id: id(),
+    actorId: text('actor_id')
+      .notNull()
+      .references(() => user.id),
+    /** e.g. listing.approve, listing.reject, shop.approve, shop.suspend, shop.restore, order.refund */
+    action: text('action').notNull(),
+    subjectType: text('subject_type').notNull(),
+    subjectId: text('subject_id').notNull(),
+    reason: text('reason'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('audit_created_idx').on(t.createdAt)],
+);
 
 // ---------------------------------------------------------------- carts
-export const carts = sqliteTable('carts', {
-  id: id(),
-  /** null for a guest cart (identified by its id in an HttpOnly cookie) */
-  userId: text('user_id').references(() => user.id, { onDelete: 'cascade' }),
-  /** bumped on every change; a checkout is made for one (cart, version), so two tabs share it */
-  version: integer('version').notNull().default(1),
-  createdAt: createdAt(),
-  updatedAt: integer('updated_at').notNull(),
-}, (t) => [index('carts_user_idx').on(t.userId)]);
+export const carts = sqliteTable(
+  'carts',
+  {
+    id: id(),
+    /** null for a guest cart (identified by its id in an HttpOnly cookie) */
+    userId: text('user_id').references(() => user.id, { onDelete: 'cascade' }),
+    /** bumped on every change; a checkout is made for one (cart, version), so two tabs share it */
+    version: integer('version').notNull().default(1),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [index('carts_user_idx').on(t.userId)],
+);
 
 export const cartLines = sqliteTable('cart_lines', {
   id: id(),
-  cartId: text('cart_id').notNull().references(() => carts.id, { onDelete: 'cascade' }),
-  listingId: text('listing_id').notNull().references(() => listings.id),
+  cartId: text('cart_id')
+    .notNull()
+    .references(() => carts.id, { onDelete: 'cascade' }),
+  listingId: text('listing_id')
+    .notNull()
+    .references(() => listings.id),
   quantity: integer('quantity').notNull().default(1),
   /** immutable snapshot of the shopper's choices and the computed geometry summary */
   snapshot: json<LineSnapshot>('snapshot').notNull(),
@@ -165,117 +204,168 @@ export const cartLines = sqliteTable('cart_lines', {
 });
 
 // ---------------------------------------------------------------- checkouts, orders, lines
-export const checkouts = sqliteTable('checkouts', {
-  id: id(),
-  userId: text('user_id').notNull().references(() => user.id),
-  cartId: text('cart_id').notNull(),
-  cartVersion: integer('cart_version').notNull().default(0),
-  /** open | paid | expired | cancelled */
-  state: text('state').notNull().default('open'),
-  providerSessionId: text('provider_session_id'),
-  currency: text('currency').notNull(),
-  totalMinor: integer('total_minor').notNull(),
-  /** the priced cart frozen at session creation: shops, lines, shipping */
-  priced: json<PricedCheckout>('priced').notNull(),
-  paymentIntentId: text('payment_intent_id'),
-  chargeId: text('charge_id'),
-  /** set when the confirmation e-mails were handed to the mailer (sent once) */
-  mailedAt: integer('mailed_at'),
-  createdAt: createdAt(),
-  paidAt: integer('paid_at'),
-}, (t) => [uniqueIndex('checkouts_session_uq').on(t.providerSessionId), uniqueIndex('checkouts_cart_version_uq').on(t.cartId, t.cartVersion)]);
+export const checkouts = sqliteTable(
+  'checkouts',
+  {
+    id: id(),
+    userId: text('user_id')
+      .notNull()
+      .references(() => user.id),
+    cartId: text('cart_id').notNull(),
+    cartVersion: integer('cart_version').notNull().default(0),
+    /** open | paid | expired | cancelled */
+    state: text('state').notNull().default('open'),
+    providerSessionId: text('provider_session_id'),
+    currency: text('currency').notNull(),
+    totalMinor: integer('total_minor').notNull(),
+    /** the priced cart frozen at session creation: shops, lines, shipping */
+    priced: json<PricedCheckout>('priced').notNull(),
+    paymentIntentId: text('payment_intent_id'),
+    chargeId: text('charge_id'),
+    /** set when the confirmation e-mails were handed to the mailer (sent once) */
+    mailedAt: integer('mailed_at'),
+    createdAt: createdAt(),
+    paidAt: integer('paid_at'),
+  },
+  (t) => [uniqueIndex('checkouts_session_uq').on(t.providerSessionId), uniqueIndex('checkouts_cart_version_uq').on(t.cartId, t.cartVersion)],
+);
 
-export const orders = sqliteTable('orders', {
-  id: id(),
-  /** a short number shown to people, e.g. NS-1042 */
-  number: text('number').notNull(),
-  checkoutId: text('checkout_id').notNull().references(() => checkouts.id),
-  shopId: text('shop_id').notNull().references(() => shops.id),
-  buyerId: text('buyer_id').notNull().references(() => user.id),
-  currency: text('currency').notNull(),
-  subtotalMinor: integer('subtotal_minor').notNull(),
-  shippingMinor: integer('shipping_minor').notNull(),
-  platformFeeMinor: integer('platform_fee_minor').notNull(),
-  totalMinor: integer('total_minor').notNull(),
-  transferId: text('transfer_id'),
-  /**
-   * The payout call claimed and not yet recorded (a transfer to the shop or a reversal of it), with
-   * its Idempotency-Key and amount frozen, so a retry after a crash sends exactly the same request.
-   */
-  payoutStep: json<PayoutStep>('payout_step'),
-  /** how many payout calls were claimed: numbers the keys of later ones */
-  payoutSeq: integer('payout_seq').notNull().default(0),
-  shipTo: json<ShipTo>('ship_to'),
-  carrier: text('carrier'),
-  trackingNumber: text('tracking_number'),
-  shipByDate: text('ship_by_date'),
-  paidAt: integer('paid_at').notNull(),
-  shippedAt: integer('shipped_at'),
-  createdAt: createdAt(),
-}, (t) => [uniqueIndex('orders_number_uq').on(t.number), uniqueIndex('orders_checkout_shop_uq').on(t.checkoutId, t.shopId), index('orders_shop_idx').on(t.shopId), index('orders_buyer_idx').on(t.buyerId)]);
+export const orders = sqliteTable(
+  'orders',
+  {
+    id: id(),
+    /** a short number shown to people, e.g. NS-1042 */
+    number: text('number').notNull(),
+    checkoutId: text('checkout_id')
+      .notNull()
+      .references(() => checkouts.id),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id),
+    buyerId: text('buyer_id')
+      .notNull()
+      .references(() => user.id),
+    currency: text('currency').notNull(),
+    subtotalMinor: integer('subtotal_minor').notNull(),
+    shippingMinor: integer('shipping_minor').notNull(),
+    platformFeeMinor: integer('platform_fee_minor').notNull(),
+    totalMinor: integer('total_minor').notNull(),
+    transferId: text('transfer_id'),
+    /**
+     * The payout call claimed and not yet recorded (a transfer to the shop or a reversal of it), with
+     * its Idempotency-Key and amount frozen, so a retry after a crash sends exactly the same request.
+     */
+    payoutStep: json<PayoutStep>('payout_step'),
+    /** how many payout calls were claimed: numbers the keys of later ones */
+    payoutSeq: integer('payout_seq').notNull().default(0),
+    shipTo: json<ShipTo>('ship_to'),
+    carrier: text('carrier'),
+    trackingNumber: text('tracking_number'),
+    shipByDate: text('ship_by_date'),
+    paidAt: integer('paid_at').notNull(),
+    shippedAt: integer('shipped_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('orders_number_uq').on(t.number),
+    uniqueIndex('orders_checkout_shop_uq').on(t.checkoutId, t.shopId),
+    index('orders_shop_idx').on(t.shopId),
+    index('orders_buyer_idx').on(t.buyerId),
+  ],
+);
 
 export type PayoutStep = { kind: 'transfer' | 'reversal'; key: string; amountMinor: number; destination?: string };
 
-export const orderLines = sqliteTable('order_lines', {
-  id: id(),
-  orderId: text('order_id').notNull().references(() => orders.id, { onDelete: 'cascade' }),
-  listingId: text('listing_id').notNull().references(() => listings.id),
-  listingTitle: text('listing_title').notNull(),
-  quantity: integer('quantity').notNull(),
-  unitPriceMinor: integer('unit_price_minor').notNull(),
-  totalMinor: integer('total_minor').notNull(),
-  /** awaiting_proof | changes_requested | approved | cut | pressed | shipped | cancelled | refunded */
-  state: text('state').notNull().default('awaiting_proof'),
-  /** the current personalisation snapshot (latest version) */
-  snapshot: json<LineSnapshot>('snapshot').notNull(),
-  version: integer('version').notNull().default(1),
-  refundedMinor: integer('refunded_minor').notNull().default(0),
-  createdAt: createdAt(),
-  updatedAt: integer('updated_at').notNull(),
-}, (t) => [index('order_lines_order_idx').on(t.orderId), index('order_lines_state_idx').on(t.state)]);
+export const orderLines = sqliteTable(
+  'order_lines',
+  {
+    id: id(),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id, { onDelete: 'cascade' }),
+    listingId: text('listing_id')
+      .notNull()
+      .references(() => listings.id),
+    listingTitle: text('listing_title').notNull(),
+    quantity: integer('quantity').notNull(),
+    unitPriceMinor: integer('unit_price_minor').notNull(),
+    totalMinor: integer('total_minor').notNull(),
+    /** awaiting_proof | changes_requested | approved | cut | pressed | shipped | cancelled | refunded */
+    state: text('state').notNull().default('awaiting_proof'),
+    /** the current personalisation snapshot (latest version) */
+    snapshot: json<LineSnapshot>('snapshot').notNull(),
+    version: integer('version').notNull().default(1),
+    refundedMinor: integer('refunded_minor').notNull().default(0),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [index('order_lines_order_idx').on(t.orderId), index('order_lines_state_idx').on(t.state)],
+);
 
 /** every personalisation version a line has had (proof history) */
-export const lineVersions = sqliteTable('line_versions', {
-  id: id(),
-  lineId: text('line_id').notNull().references(() => orderLines.id, { onDelete: 'cascade' }),
-  version: integer('version').notNull(),
-  snapshot: json<LineSnapshot>('snapshot').notNull(),
-  authorId: text('author_id').references(() => user.id),
-  createdAt: createdAt(),
-}, (t) => [uniqueIndex('line_versions_uq').on(t.lineId, t.version)]);
+export const lineVersions = sqliteTable(
+  'line_versions',
+  {
+    id: id(),
+    lineId: text('line_id')
+      .notNull()
+      .references(() => orderLines.id, { onDelete: 'cascade' }),
+    version: integer('version').notNull(),
+    snapshot: json<LineSnapshot>('snapshot').notNull(),
+    authorId: text('author_id').references(() => user.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('line_versions_uq').on(t.lineId, t.version)],
+);
 
 /** the timeline: every state change and message on a line (who, when) */
-export const lineEvents = sqliteTable('line_events', {
-  id: id(),
-  lineId: text('line_id').notNull().references(() => orderLines.id, { onDelete: 'cascade' }),
-  actorId: text('actor_id').references(() => user.id),
-  fromState: text('from_state'),
-  toState: text('to_state').notNull(),
-  message: text('message'),
-  createdAt: createdAt(),
-}, (t) => [index('line_events_line_idx').on(t.lineId)]);
+export const lineEvents = sqliteTable(
+  'line_events',
+  {
+    id: id(),
+    lineId: text('line_id')
+      .notNull()
+      .references(() => orderLines.id, { onDelete: 'cascade' }),
+    actorId: text('actor_id').references(() => user.id),
+    fromState: text('from_state'),
+    toState: text('to_state').notNull(),
+    message: text('message'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('line_events_line_idx').on(t.lineId)],
+);
 
 // ---------------------------------------------------------------- money movements
-export const ledger = sqliteTable('ledger', {
-  id: id(),
-  shopId: text('shop_id').notNull().references(() => shops.id),
-  orderId: text('order_id').references(() => orders.id),
-  /** charge | platform_fee | transfer | refund | refund_reversal */
-  kind: text('kind').notNull(),
-  amountMinor: integer('amount_minor').notNull(),
-  currency: text('currency').notNull(),
-  providerRef: text('provider_ref'),
-  memo: text('memo'),
-  createdAt: createdAt(),
-}, (t) => [index('ledger_shop_idx').on(t.shopId, t.createdAt)]);
+export const ledger = sqliteTable(
+  'ledger',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id),
+    orderId: text('order_id').references(() => orders.id),
+    /** charge | platform_fee | transfer | refund | refund_reversal */
+    kind: text('kind').notNull(),
+    amountMinor: integer('amount_minor').notNull(),
+    currency: text('currency').notNull(),
+    providerRef: text('provider_ref'),
+    memo: text('memo'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('ledger_shop_idx').on(t.shopId, t.createdAt)],
+);
 
 export const refunds = sqliteTable('refunds', {
   id: id(),
-  orderId: text('order_id').notNull().references(() => orders.id),
+  orderId: text('order_id')
+    .notNull()
+    .references(() => orders.id),
   lineId: text('line_id').references(() => orderLines.id),
   amountMinor: integer('amount_minor').notNull(),
   providerRefundId: text('provider_refund_id'),
-  actorId: text('actor_id').notNull().references(() => user.id),
+  actorId: text('actor_id')
+    .notNull()
+    .references(() => user.id),
   reason: text('reason'),
   createdAt: createdAt(),
 });
@@ -285,22 +375,30 @@ export const refunds = sqliteTable('refunds', {
  * one transaction, so two requests at once can never give back more than was paid. `scope` is
  * `line:<id>` or `remainder`; at most one pending or succeeded intent per (order, scope).
  */
-export const refundIntents = sqliteTable('refund_intents', {
-  id: id(),
-  orderId: text('order_id').notNull().references(() => orders.id),
-  lineId: text('line_id').references(() => orderLines.id),
-  scope: text('scope').notNull(),
-  idempotencyKey: text('idempotency_key').notNull(),
-  amountMinor: integer('amount_minor').notNull(),
-  /** pending | succeeded | failed */
-  state: text('state').notNull().default('pending'),
-  providerRefundId: text('provider_refund_id'),
-  actorId: text('actor_id').notNull().references(() => user.id),
-  reason: text('reason'),
-  error: text('error'),
-  createdAt: createdAt(),
-  updatedAt: integer('updated_at').notNull(),
-}, (t) => [uniqueIndex('refund_intents_key_uq').on(t.idempotencyKey), uniqueIndex('refund_intents_live_uq').on(t.orderId, t.scope).where(sql`state <> 'failed'`)]);
+export const refundIntents = sqliteTable(
+  'refund_intents',
+  {
+    id: id(),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id),
+    lineId: text('line_id').references(() => orderLines.id),
+    scope: text('scope').notNull(),
+    idempotencyKey: text('idempotency_key').notNull(),
+    amountMinor: integer('amount_minor').notNull(),
+    /** pending | succeeded | failed */
+    state: text('state').notNull().default('pending'),
+    providerRefundId: text('provider_refund_id'),
+    actorId: text('actor_id')
+      .notNull()
+      .references(() => user.id),
+    reason: text('reason'),
+    error: text('error'),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [uniqueIndex('refund_intents_key_uq').on(t.idempotencyKey), uniqueIndex('refund_intents_live_uq').on(t.orderId, t.scope).where(sql`state <> 'failed'`)],
+);
 
 /** payment-provider webhook events already processed (each handled once) */
 export const webhookEvents = sqliteTable('webhook_events', {
@@ -310,23 +408,31 @@ export const webhookEvents = sqliteTable('webhook_events', {
 });
 
 // ---------------------------------------------------------------- workroom: cut sheets
-export const cutSheets = sqliteTable('cut_sheets', {
-  id: id(),
-  shopId: text('shop_id').notNull().references(() => shops.id, { onDelete: 'cascade' }),
-  materialId: text('material_id').notNull().references(() => materials.id),
-  batchId: text('batch_id').notNull(),
-  rollWidthMm: real('roll_width_mm').notNull(),
-  lengthMm: real('length_mm').notNull(),
-  utilisation: real('utilisation').notNull(),
-  /** nested pieces: [{ lineId, layerId, xMm, yMm, widthMm, heightMm, rotated, path }] */
-  pieces: json<StoredSheetPiece[]>('pieces').notNull(),
-  /** planned | cut */
-  state: text('state').notNull().default('planned'),
-  consumedMm: real('consumed_mm'),
-  costMinor: integer('cost_minor'),
-  cutAt: integer('cut_at'),
-  createdAt: createdAt(),
-}, (t) => [index('cut_sheets_shop_idx').on(t.shopId)]);
+export const cutSheets = sqliteTable(
+  'cut_sheets',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    materialId: text('material_id')
+      .notNull()
+      .references(() => materials.id),
+    batchId: text('batch_id').notNull(),
+    rollWidthMm: real('roll_width_mm').notNull(),
+    lengthMm: real('length_mm').notNull(),
+    utilisation: real('utilisation').notNull(),
+    /** nested pieces: [{ lineId, layerId, xMm, yMm, widthMm, heightMm, rotated, path }] */
+    pieces: json<StoredSheetPiece[]>('pieces').notNull(),
+    /** planned | cut */
+    state: text('state').notNull().default('planned'),
+    consumedMm: real('consumed_mm'),
+    costMinor: integer('cost_minor'),
+    cutAt: integer('cut_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('cut_sheets_shop_idx').on(t.shopId)],
+);
 
 // ---------------------------------------------------------------- scheduled jobs run once per key
 export const jobRuns = sqliteTable('job_runs', {

@@ -5,13 +5,13 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import sharp from 'sharp';
-import type { AppDeps } from '../deps.ts';
-import type { SeedContext } from './seed-context.ts';
-import { seedRepo } from './seed.repo.ts';
-import { createStorage } from '../integrations/storage.ts';
 import { parseMotifSvg, renderMotifSvg } from '../../shared/engine/motif.ts';
 import { defaultPressProfile, type MaterialKind } from '../../shared/engine/press-defaults.ts';
-import { listingInputSchema, liveColumns, type BlankKind, type ListingInput } from '../../shared/schemas/listing.ts';
+import { type BlankKind, type ListingInput, listingInputSchema, liveColumns } from '../../shared/schemas/listing.ts';
+import type { AppDeps } from '../deps.ts';
+import { createStorage } from '../integrations/storage.ts';
+import { seedRepo } from './seed.repo.ts';
+import type { SeedContext } from './seed-context.ts';
 
 const MOTIF_DIR = path.join(path.dirname(fileURLToPath(import.meta.url)), 'demo-motifs');
 
@@ -92,70 +92,168 @@ type Spec = {
 const LISTINGS: Record<string, Spec[]> = {
   'fern-and-fable-goods': [
     {
-      state: 'live', title: 'Autumn fox tote with a name', markdown: true,
+      state: 'live',
+      title: 'Autumn fox tote with a name',
+      markdown: true,
       description: 'A sturdy cotton tote with a **fox holding an acorn** and the name of your choice above it.\n\nShown with the name *Mira*. Pressed in smooth vinyl that flexes with the bag.',
-      blank: 'tote', price: [2400, 300], occasions: ['autumn-harvest', 'back-to-school'], costs: [450, 6],
+      blank: 'tote',
+      price: [2400, 300],
+      occasions: ['autumn-harvest', 'back-to-school'],
+      costs: [450, 6],
       name: [['navy', 'orange', 'green', 'gold']],
-      motif: { key: 'fox', required: true, layers: [['body', ['orange', 'brown']], ['face', 'white'], ['acorn', 'brown']] },
+      motif: {
+        key: 'fox',
+        required: true,
+        layers: [
+          ['body', ['orange', 'brown']],
+          ['face', 'white'],
+          ['acorn', 'brown'],
+        ],
+      },
     },
     {
-      state: 'live', title: 'Winter lights drawstring bag with snowman',
+      state: 'live',
+      title: 'Winter lights drawstring bag with snowman',
       description: 'A drawstring bag for mittens and winter treats.\nThe snowman wears a red hat and scarf; the name sits underneath.\nShown with the name Theo.',
-      blank: 'drawstring_bag', price: [1900, 250], occasions: ['winter-lights'], costs: [300, 5],
+      blank: 'drawstring_bag',
+      price: [1900, 250],
+      occasions: ['winter-lights'],
+      costs: [300, 5],
       name: [['navy', 'red', 'silver', 'gold'], { fonts: ['baloo-bold', 'bebas-neue'], height: 40 }],
-      motif: { key: 'snowman', required: false, layers: [['snow', 'white'], ['hat-and-scarf', ['red', 'green', 'navy']]] },
+      motif: {
+        key: 'snowman',
+        required: false,
+        layers: [
+          ['snow', 'white'],
+          ['hat-and-scarf', ['red', 'green', 'navy']],
+        ],
+      },
     },
     {
-      state: 'live', title: 'Spring picnic tote with hot-air balloon',
+      state: 'live',
+      title: 'Spring picnic tote with hot-air balloon',
       description: 'Float off to the park: a hot-air balloon with striped envelope, and a name or a short word.\nShown with the name Anouk.',
-      blank: 'tote', price: [2600, 300], occasions: ['spring-picnic', 'birthday'], costs: [450, 6],
+      blank: 'tote',
+      price: [2600, 300],
+      occasions: ['spring-picnic', 'birthday'],
+      costs: [450, 6],
       name: [['navy', 'green', 'orange'], { fonts: ['dancing-script-bold', 'patrick-hand', 'baloo-bold'], height: 45 }],
-      motif: { key: 'balloon', required: true, layers: [['envelope', ['green', 'navy', 'red']], ['stripes', 'gold'], ['basket', 'brown']] },
+      motif: {
+        key: 'balloon',
+        required: true,
+        layers: [
+          ['envelope', ['green', 'navy', 'red']],
+          ['stripes', 'gold'],
+          ['basket', 'brown'],
+        ],
+      },
     },
     {
-      state: 'live', title: 'Harvest pumpkin drawstring bag with ribbon bow',
+      state: 'live',
+      title: 'Harvest pumpkin drawstring bag with ribbon bow',
       description: 'A little bag for the autumn harvest walk, finished with a sewn ribbon bow.\nShown with the name Kai.',
-      blank: 'drawstring_bag', price: [2100, 250], occasions: ['autumn-harvest'], smallDecorations: true, costs: [320, 5],
+      blank: 'drawstring_bag',
+      price: [2100, 250],
+      occasions: ['autumn-harvest'],
+      smallDecorations: true,
+      costs: [320, 5],
       name: [['orange', 'brown', 'navy', 'pine'], { fonts: ['baloo-bold', 'bangers'], height: 40 }],
-      motif: { key: 'pumpkin', required: true, layers: [['pumpkin', 'orange'], ['stem', ['pine', 'green']]] },
+      motif: {
+        key: 'pumpkin',
+        required: true,
+        layers: [
+          ['pumpkin', 'orange'],
+          ['stem', ['pine', 'green']],
+        ],
+      },
     },
   ],
   'little-comet-print-co': [
     {
-      state: 'live', title: 'Rocket name tee for kids',
+      state: 'live',
+      title: 'Rocket name tee for kids',
       description: 'Blast off on a birthday or the first day of school: a rocket with a bright flame and a name in big letters.\nShown with the name Leon.',
-      blank: 'kids_tee', price: [2200, 250], occasions: ['birthday', 'back-to-school'], costs: [550, 6],
+      blank: 'kids_tee',
+      price: [2200, 250],
+      occasions: ['birthday', 'back-to-school'],
+      costs: [550, 6],
       name: [['navy', 'sea', 'gold', 'stars'], { fonts: ['baloo-bold', 'bangers', 'bebas-neue'], height: 45, max: 14 }],
-      motif: { key: 'rocket', required: true, layers: [['flame', ['yellow', 'gold']], ['hull', ['navy', 'sea', 'teal']], ['window', 'white']] },
+      motif: {
+        key: 'rocket',
+        required: true,
+        layers: [
+          ['flame', ['yellow', 'gold']],
+          ['hull', ['navy', 'sea', 'teal']],
+          ['window', 'white'],
+        ],
+      },
     },
     {
-      state: 'live', title: 'Whale zip pouch with a name',
+      state: 'live',
+      title: 'Whale zip pouch with a name',
       description: 'A zip pouch for pencils or picnic snacks, with a spouting whale and a name.\nShown with the name Priya.',
-      blank: 'pouch', price: [1500, 200], occasions: ['spring-picnic', 'back-to-school'], costs: [280, 4],
+      blank: 'pouch',
+      price: [1500, 200],
+      occasions: ['spring-picnic', 'back-to-school'],
+      costs: [280, 4],
       name: [['navy', 'sea', 'copper'], { fonts: ['patrick-hand', 'baloo-bold'], height: 25, max: 10 }],
-      motif: { key: 'whale', required: false, layers: [['whale', ['sea', 'navy', 'teal']], ['belly', 'white'], ['spout', 'sky']] },
+      motif: {
+        key: 'whale',
+        required: false,
+        layers: [
+          ['whale', ['sea', 'navy', 'teal']],
+          ['belly', 'white'],
+          ['spout', 'sky'],
+        ],
+      },
     },
     {
-      state: 'live', title: 'Winter lights balloon tee with outline',
+      state: 'live',
+      title: 'Winter lights balloon tee with outline',
       description: 'A hot-air balloon over a name, with a glitter outline that catches the winter lights.\nShown with the name Zoë: the fonts draw accented letters.',
-      blank: 'kids_tee', price: [2500, 250], occasions: ['winter-lights', 'birthday'], costs: [550, 6],
+      blank: 'kids_tee',
+      price: [2500, 250],
+      occasions: ['winter-lights', 'birthday'],
+      costs: [550, 6],
       name: [['navy', 'teal'], { fonts: ['dancing-script-bold', 'baloo-bold'], height: 40 }],
-      motif: { key: 'balloon', required: true, layers: [['envelope', ['teal', 'sea']], ['stripes', 'yellow'], ['basket', 'navy']] },
+      motif: {
+        key: 'balloon',
+        required: true,
+        layers: [
+          ['envelope', ['teal', 'sea']],
+          ['stripes', 'yellow'],
+          ['basket', 'navy'],
+        ],
+      },
       outline: { offsetMm: 3, colours: ['gold', 'white'] },
     },
   ],
   'harbour-thread': [
     {
-      state: 'in_review', title: 'Seaside whale tote',
+      state: 'in_review',
+      title: 'Seaside whale tote',
       description: 'A tote for beach days with a whale and a name. Shown with the name Bartholomew.',
-      blank: 'tote', price: [2300, 250], occasions: ['spring-picnic'],
+      blank: 'tote',
+      price: [2300, 250],
+      occasions: ['spring-picnic'],
       name: [['navy', 'sea'], { max: 14, height: 35 }],
-      motif: { key: 'whale', required: true, layers: [['whale', ['navy', 'sea']], ['belly', 'white']] },
+      motif: {
+        key: 'whale',
+        required: true,
+        layers: [
+          ['whale', ['navy', 'sea']],
+          ['belly', 'white'],
+        ],
+      },
     },
     {
-      state: 'in_review', title: 'Harbour name pouch', photoOf: 'whale',
+      state: 'in_review',
+      title: 'Harbour name pouch',
+      photoOf: 'whale',
       description: 'A plain zip pouch with a name in sail white.',
-      blank: 'pouch', price: [1400], occasions: ['back-to-school'],
+      blank: 'pouch',
+      price: [1400],
+      occasions: ['back-to-school'],
       name: [['white', 'sea'], { height: 25, max: 10 }],
     },
   ],
@@ -199,7 +297,10 @@ function listingInput(spec: Spec, m: Ref, motif: Ref, motifName: Ref): ListingIn
 /** A listing photo: the motif's clean SVG drawn on the paper-cream background, made with sharp. */
 async function photoFor(svg: string): Promise<Buffer> {
   const art = await sharp(Buffer.from(svg), { density: 300 }).resize(560, 560, { fit: 'inside' }).png().toBuffer();
-  return sharp({ create: { width: 800, height: 800, channels: 3, background: '#fbf7f0' } }).composite([{ input: art, gravity: 'centre' }]).png().toBuffer();
+  return sharp({ create: { width: 800, height: 800, channels: 3, background: '#fbf7f0' } })
+    .composite([{ input: art, gravity: 'centre' }])
+    .png()
+    .toBuffer();
 }
 
 export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void> {
@@ -214,7 +315,19 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
     for (const [key, kind, colourName, colourHex, rollWidthMm, stockMm] of MATERIALS[shopSlug]) {
       const id = crypto.randomUUID();
       matIds[key] = id;
-      seedRepo.insertMaterial(db, { id, shopId, kind, colourName, colourHex, rollWidthMm, stockMm, lowStockMm: 1000, pricePerMetreMinor: kind === 'smooth' ? 450 : 800, pressProfile: defaultPressProfile(kind), createdAt: base });
+      seedRepo.insertMaterial(db, {
+        id,
+        shopId,
+        kind,
+        colourName,
+        colourHex,
+        rollWidthMm,
+        stockMm,
+        lowStockMm: 1000,
+        pricePerMetreMinor: kind === 'smooth' ? 450 : 800,
+        pressProfile: defaultPressProfile(kind),
+        createdAt: base,
+      });
     }
     const motifIds: Record<string, string> = {};
     const photoIds: Record<string, string> = {};
@@ -228,7 +341,19 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
       const uploadId = crypto.randomUUID();
       photoIds[key] = uploadId;
       thumbs[key] = img.thumbName;
-      seedRepo.insertUpload(db, { id: uploadId, ownerId: owner, shopId, kind: 'photo', path: img.fileName, thumbPath: img.thumbName, mime: img.mime, width: img.width, height: img.height, bytes: img.bytes, createdAt: base });
+      seedRepo.insertUpload(db, {
+        id: uploadId,
+        ownerId: owner,
+        shopId,
+        kind: 'photo',
+        path: img.fileName,
+        thumbPath: img.thumbName,
+        mime: img.mime,
+        width: img.width,
+        height: img.height,
+        bytes: img.bytes,
+        createdAt: base,
+      });
     }
     const ref = (map: Record<string, string>, what: string) => (k: string) => {
       if (!map[k]) throw new Error(`demo ${what} ${k} missing in ${shopSlug}`);
@@ -239,15 +364,24 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
       const photoOf = spec.photoOf ?? spec.motif?.key ?? '(none)';
       const input = listingInput(spec, ref(matIds, 'material'), ref(motifIds, 'motif'), ref(motifNames, 'motif'));
       const content = listingInputSchema.parse({ ...input, photoIds: [ref(photoIds, 'photo')(photoOf)] });
-      const at = base - (n++) * 3_600_000; // an hour apart, so "newest" has an order
-      const slug = `${content.title.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '')}`;
+      const at = base - n++ * 3_600_000; // an hour apart, so "newest" has an order
+      const slug = `${content.title
+        .toLowerCase()
+        .normalize('NFKD')
+        .replace(/[^a-z0-9]+/g, '-')
+        .replace(/^-|-$/g, '')}`;
       const live = spec.state === 'live';
       const thumbPath = live ? thumbs[photoOf] : null;
       seedRepo.insertListing(db, {
-        id: crypto.randomUUID(), shopId, slug, state: spec.state, draft: content,
+        id: crypto.randomUUID(),
+        shopId,
+        slug,
+        state: spec.state,
+        draft: content,
         live: live ? content : null,
         ...(live ? { ...liveColumns(content), liveThumbPath: thumbPath, publishedAt: at } : {}),
-        createdAt: at, updatedAt: at,
+        createdAt: at,
+        updatedAt: at,
       });
     }
   }

@@ -8,18 +8,18 @@
 // some days back (the clock handed to the services), and proofs are approved by the workroom's own
 // approve. No e-mails go out for them.
 import type Stripe from 'stripe';
-import type { AppDeps } from '../deps.ts';
-import type { SeedContext } from './seed-context.ts';
-import { seedRepo } from './seed.repo.ts';
-import { demoPaymentProvider } from './seed-payments.ts';
-import { paymentsClient } from '../integrations/payments.ts';
+import type { LineSnapshot } from '../../shared/schemas/cart.ts';
 import type { ShipTo } from '../../shared/schemas/checkout.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
-import type { LineSnapshot } from '../../shared/schemas/cart.ts';
+import type { AppDeps } from '../deps.ts';
 import { addLine, readLiveContent, resolveCart } from '../features/cart/index.ts';
 import { openCheckout } from '../features/checkout/index.ts';
 import { handleEvent, skipOrderMails } from '../features/payments/index.ts';
 import { approve } from '../features/workroom/index.ts';
+import { paymentsClient } from '../integrations/payments.ts';
+import { seedRepo } from './seed.repo.ts';
+import type { SeedContext } from './seed-context.ts';
+import { demoPaymentProvider } from './seed-payments.ts';
 
 const DEMO_SHIP_TO: ShipTo = { name: 'Dana Whitlock', line1: '12 Acorn Lane', line2: null, city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' };
 
@@ -31,31 +31,50 @@ type Item = { listing: string; name: string; font?: string; textColour: string; 
 // Two names are left to be checked on purpose: "mIRA" (mixed case) and "Zoë" typed with a
 // combining diaeresis (U+0065 U+0308) rather than the precomposed U+00EB.
 const PURCHASES: Array<{ daysAgo: number; items: Item[] }> = [
-  { daysAgo: 4, items: [
-    { listing: 'Autumn fox tote with a name', name: 'Theo', textColour: 'Ink navy', motifColours: { body: 'Fox orange' }, approved: true },
-    { listing: 'Harvest pumpkin drawstring bag with ribbon bow', name: 'Kai', textColour: 'Acorn brown', motifColours: { stem: 'Pine flock' }, approved: true },
-  ] },
-  { daysAgo: 3, items: [
-    { listing: 'Spring picnic tote with hot-air balloon', name: 'Anouk', font: 'dancing-script-bold', textColour: 'Thread green', motifColours: { envelope: 'Berry red' }, approved: true },
-    { listing: 'Winter lights drawstring bag with snowman', name: 'Leon', textColour: 'Ink navy', motifColours: { 'hat-and-scarf': 'Berry red' }, approved: true },
-    { listing: 'Autumn fox tote with a name', name: 'Priya', textColour: 'Fox orange', motifColours: { body: 'Acorn brown' }, approved: true },
-  ] },
-  { daysAgo: 2, items: [
-    { listing: 'Winter lights drawstring bag with snowman', name: 'Bartholomew', font: 'bebas-neue', textColour: 'Silver foil', motifColours: { 'hat-and-scarf': 'Thread green' }, approved: true },
-    { listing: 'Autumn fox tote with a name', name: 'Mira', textColour: 'Marigold glitter', motifColours: { body: 'Fox orange' }, quantity: 2, approved: true },
-  ] },
-  { daysAgo: 1, items: [
-    { listing: 'Autumn fox tote with a name', name: 'mIRA', textColour: 'Ink navy', motifColours: { body: 'Fox orange' }, approved: false },
-    { listing: 'Spring picnic tote with hot-air balloon', name: 'Zoe\u0308', font: 'baloo-bold', textColour: 'Ink navy', motifColours: { envelope: 'Thread green' }, approved: false },
-    { listing: 'Harvest pumpkin drawstring bag with ribbon bow', name: 'Leon', textColour: 'Fox orange', motifColours: { stem: 'Thread green' }, approved: false },
-  ] },
+  {
+    daysAgo: 4,
+    items: [
+      { listing: 'Autumn fox tote with a name', name: 'Theo', textColour: 'Ink navy', motifColours: { body: 'Fox orange' }, approved: true },
+      { listing: 'Harvest pumpkin drawstring bag with ribbon bow', name: 'Kai', textColour: 'Acorn brown', motifColours: { stem: 'Pine flock' }, approved: true },
+    ],
+  },
+  {
+    daysAgo: 3,
+    items: [
+      { listing: 'Spring picnic tote with hot-air balloon', name: 'Anouk', font: 'dancing-script-bold', textColour: 'Thread green', motifColours: { envelope: 'Berry red' }, approved: true },
+      { listing: 'Winter lights drawstring bag with snowman', name: 'Leon', textColour: 'Ink navy', motifColours: { 'hat-and-scarf': 'Berry red' }, approved: true },
+      { listing: 'Autumn fox tote with a name', name: 'Priya', textColour: 'Fox orange', motifColours: { body: 'Acorn brown' }, approved: true },
+    ],
+  },
+  {
+    daysAgo: 2,
+    items: [
+      { listing: 'Winter lights drawstring bag with snowman', name: 'Bartholomew', font: 'bebas-neue', textColour: 'Silver foil', motifColours: { 'hat-and-scarf': 'Thread green' }, approved: true },
+      { listing: 'Autumn fox tote with a name', name: 'Mira', textColour: 'Marigold glitter', motifColours: { body: 'Fox orange' }, quantity: 2, approved: true },
+    ],
+  },
+  {
+    daysAgo: 1,
+    items: [
+      { listing: 'Autumn fox tote with a name', name: 'mIRA', textColour: 'Ink navy', motifColours: { body: 'Fox orange' }, approved: false },
+      { listing: 'Spring picnic tote with hot-air balloon', name: 'Zoe\u0308', font: 'baloo-bold', textColour: 'Ink navy', motifColours: { envelope: 'Thread green' }, approved: false },
+      { listing: 'Harvest pumpkin drawstring bag with ribbon bow', name: 'Leon', textColour: 'Fox orange', motifColours: { stem: 'Thread green' }, approved: false },
+    ],
+  },
 ];
 
 /** The payment page's form as a shopper fills it: the parcel address and the test card that pays. */
 const PAY_FORM = {
-  ship_name: DEMO_SHIP_TO.name, ship_line1: DEMO_SHIP_TO.line1, ship_line2: '', ship_city: DEMO_SHIP_TO.city,
-  ship_postal_code: DEMO_SHIP_TO.postalCode, ship_state: '', ship_country: DEMO_SHIP_TO.country,
-  card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123',
+  ship_name: DEMO_SHIP_TO.name,
+  ship_line1: DEMO_SHIP_TO.line1,
+  ship_line2: '',
+  ship_city: DEMO_SHIP_TO.city,
+  ship_postal_code: DEMO_SHIP_TO.postalCode,
+  ship_state: '',
+  ship_country: DEMO_SHIP_TO.country,
+  card_number: '4242 4242 4242 4242',
+  card_expiry: '12/34',
+  card_cvc: '123',
 };
 
 /** The provider's checkout.session.completed event of one session (the one its webhook delivers). */

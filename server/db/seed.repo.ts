@@ -8,7 +8,13 @@ import { listings, materials, motifs, orderLines, orders, shops, uploads, user }
 export const seedRepo = {
   userCount: (db: Db) => db.get<{ n: number }>(sql`select count(*) as n from user`)?.n ?? 0,
   usersWithEmails: (db: Db, emails: readonly string[]) =>
-    emails.length ? db.select({ id: user.id }).from(user).where(inArray(user.email, [...emails])).all().length : 0,
+    emails.length
+      ? db
+          .select({ id: user.id })
+          .from(user)
+          .where(inArray(user.email, [...emails]))
+          .all().length
+      : 0,
   setRole: (db: Db, userId: string, role: string) => db.update(user).set({ role, emailVerified: true }).where(eq(user.id, userId)).run(),
   insertShop: (db: Db, row: typeof shops.$inferInsert) => db.insert(shops).values(row).run(),
   insertMaterial: (db: Db, row: typeof materials.$inferInsert) => db.insert(materials).values(row).run(),
@@ -16,7 +22,12 @@ export const seedRepo = {
   insertUpload: (db: Db, row: typeof uploads.$inferInsert) => db.insert(uploads).values(row).run(),
   insertListing: (db: Db, row: typeof listings.$inferInsert) => db.insert(listings).values(row).run(),
   materialsOf: (db: Db, shopId: string) => db.select().from(materials).where(eq(materials.shopId, shopId)).all(),
-  liveListingsOf: (db: Db, shopId: string) => db.select().from(listings).where(and(eq(listings.shopId, shopId), eq(listings.state, 'live'))).all(),
+  liveListingsOf: (db: Db, shopId: string) =>
+    db
+      .select()
+      .from(listings)
+      .where(and(eq(listings.shopId, shopId), eq(listings.state, 'live')))
+      .all(),
   ordersOfCheckout: (db: Db, checkoutId: string) => db.select().from(orders).where(eq(orders.checkoutId, checkoutId)).orderBy(orders.number).all(),
   linesOf: (db: Db, orderId: string) => db.select().from(orderLines).where(eq(orderLines.orderId, orderId)).all(),
   userEmail: (db: Db, userId: string) => db.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, userId)).get(),

@@ -3,18 +3,42 @@
 import crypto from 'node:crypto';
 import type { AppDeps } from '../deps.ts';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts.ts';
-import type { SeedContext } from './seed-context.ts';
 import { seedRepo } from './seed.repo.ts';
 import { seedCatalog } from './seed-catalog.ts';
+import type { SeedContext } from './seed-context.ts';
 import { seedOrders } from './seed-orders.ts';
 
 const SHOPS = [
-  { owner: 'fern@namesake.test', name: 'Fern & Fable Goods', slug: 'fern-and-fable-goods', state: 'live', processingDays: 3, shippingMinor: 450, pressType: 'clamshell',
-    description: 'Totes and drawstring bags with names and woodland motifs, pressed by hand in a small studio.' },
-  { owner: 'comet@namesake.test', name: 'Little Comet Print Co.', slug: 'little-comet-print-co', state: 'live', processingDays: 4, shippingMinor: 395, pressType: 'handheld',
-    description: "Kids' tees and zip pouches with bright names, rockets and sea creatures." },
-  { owner: 'harbour@namesake.test', name: 'Harbour Thread', slug: 'harbour-thread', state: 'in_review', processingDays: 5, shippingMinor: 500, pressType: 'clamshell',
-    description: 'Seaside-themed bags and pouches. New shop, waiting for review.' },
+  {
+    owner: 'fern@namesake.test',
+    name: 'Fern & Fable Goods',
+    slug: 'fern-and-fable-goods',
+    state: 'live',
+    processingDays: 3,
+    shippingMinor: 450,
+    pressType: 'clamshell',
+    description: 'Totes and drawstring bags with names and woodland motifs, pressed by hand in a small studio.',
+  },
+  {
+    owner: 'comet@namesake.test',
+    name: 'Little Comet Print Co.',
+    slug: 'little-comet-print-co',
+    state: 'live',
+    processingDays: 4,
+    shippingMinor: 395,
+    pressType: 'handheld',
+    description: "Kids' tees and zip pouches with bright names, rockets and sea creatures.",
+  },
+  {
+    owner: 'harbour@namesake.test',
+    name: 'Harbour Thread',
+    slug: 'harbour-thread',
+    state: 'in_review',
+    processingDays: 5,
+    shippingMinor: 500,
+    pressType: 'clamshell',
+    description: 'Seaside-themed bags and pouches. New shop, waiting for review.',
+  },
 ] as const;
 
 export function isEmpty(deps: Pick<AppDeps, 'db'>): boolean {
@@ -38,11 +62,19 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
     const id = crypto.randomUUID();
     shopIds[s.slug] = id;
     seedRepo.insertShop(deps.db, {
-      id, ownerId, name: s.name, slug: s.slug, state: s.state, description: s.description,
-      processingDays: s.processingDays, shippingMinor: s.shippingMinor, pressType: s.pressType,
+      id,
+      ownerId,
+      name: s.name,
+      slug: s.slug,
+      state: s.state,
+      description: s.description,
+      processingDays: s.processingDays,
+      shippingMinor: s.shippingMinor,
+      pressType: s.pressType,
       hourlyRateMinor: 1800, // demo: $18.00 an hour for labour in the cost of goods
       returnPolicy: 'Personalised items can be returned only if they arrive damaged or with a mistake on our side. Tell us within 14 days.',
-      createdAt: at, updatedAt: at,
+      createdAt: at,
+      updatedAt: at,
     });
   }
   const ctx: SeedContext = { userIds, shopIds };

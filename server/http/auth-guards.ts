@@ -1,10 +1,10 @@
-import type { RequestHandler, Request } from 'express';
 import { fromNodeHeaders } from 'better-auth/node';
-import { SESSION_ABSOLUTE_MS, type Auth } from '../auth.ts';
-import type { Db } from '../db/client.ts';
-import { authRepo, type ShopRow } from './auth.repo.ts';
+import type { Request, RequestHandler } from 'express';
 import type { Role } from '../../shared/schemas/auth.ts';
+import { type Auth, SESSION_ABSOLUTE_MS } from '../auth.ts';
+import type { Db } from '../db/client.ts';
 import { forbidden, unauthorized } from './app-error.ts';
+import { authRepo, type ShopRow } from './auth.repo.ts';
 
 export type SessionUser = { id: string; email: string; name: string; role: Role };
 export type { ShopRow };

@@ -1,11 +1,18 @@
 import express, { type RequestHandler, Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import {
-  adminCreateUserSchema, adminSetUserPasswordSchema, changePasswordSchema, requestResetSchema, resetPasswordSchema, signInSchema, signUpSchema, updateUserSchema,
+  adminCreateUserSchema,
+  adminSetUserPasswordSchema,
+  changePasswordSchema,
+  requestResetSchema,
+  resetPasswordSchema,
+  signInSchema,
+  signUpSchema,
+  updateUserSchema,
 } from '../../shared/schemas/auth.ts';
-import { validate } from './validate.ts';
-import { requireRole, requireUser } from './auth-guards.ts';
 import { CLIENT_IP_HEADER } from '../auth.ts';
+import { requireRole, requireUser } from './auth-guards.ts';
+import { validate } from './validate.ts';
 
 /**
  * The plain form of an auth path: percent-escapes decoded (once), backslashes read as slashes,
@@ -71,7 +78,10 @@ export function authInput(opts: { signInFailuresPerMinute: number; session: Requ
     skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => `signin:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    keyGenerator: (req) =>
+      `signin:${String(req.body?.email ?? '')
+        .trim()
+        .toLowerCase()}`,
     handler: (_req, res) => {
       res.status(429).json({ error: { code: 'too_many_attempts', message: 'Too many sign-in attempts for this account. Wait a minute and try again.' } });
     },

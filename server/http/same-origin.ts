@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
-import { forbidden } from './app-error.ts';
 import type { Env } from '../env.ts';
+import { forbidden } from './app-error.ts';
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
 

@@ -2,11 +2,12 @@
  * Reads the bundled TTF files from node_modules and builds the engine's font registry.
  * The same bytes are served at GET /api/fonts/:id/file, so the browser builds an identical registry.
  */
+
+import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { createHash } from 'node:crypto';
 import { FONT_CATALOG, type FontCatalogEntry } from '../../shared/engine/font-catalog.ts';
-import { createFontRegistry, fontSource, type FontRegistry } from '../../shared/engine/fonts.ts';
+import { createFontRegistry, type FontRegistry, fontSource } from '../../shared/engine/fonts.ts';
 
 const require = createRequire(import.meta.url);
 

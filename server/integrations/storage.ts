@@ -9,9 +9,9 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { type RequestHandler, Router } from 'express';
+import { fileTypeFromBuffer } from 'file-type';
 import multer from 'multer';
 import sharp, { type Metadata, type OutputInfo } from 'sharp';
-import { fileTypeFromBuffer } from 'file-type';
 import { AppError, badRequest } from '../http/app-error.ts';
 
 export const IMAGE_LIMITS = Object.freeze({
@@ -47,8 +47,7 @@ export type ProcessedImage = { main: Uint8Array; thumb: Uint8Array; jpeg: boolea
 export async function processImage(buf: Uint8Array): Promise<ProcessedImage> {
   if (buf.byteLength > IMAGE_LIMITS.maxBytes) throw new AppError(413, 'file_too_large', 'That file is larger than 8 MB.');
   const type = await fileTypeFromBuffer(buf);
-  if (!type || !(ALLOWED_IMAGE_MIME as readonly string[]).includes(type.mime))
-    throw unsupported('That file is not a JPEG, PNG or WebP image (we check the file itself, not its name).');
+  if (!type || !(ALLOWED_IMAGE_MIME as readonly string[]).includes(type.mime)) throw unsupported('That file is not a JPEG, PNG or WebP image (we check the file itself, not its name).');
   let meta: Metadata;
   try {
     // metadata() reads the header only, so the pixel count is known before anything is decoded
@@ -60,8 +59,7 @@ export async function processImage(buf: Uint8Array): Promise<ProcessedImage> {
   const w = meta.width ?? 0;
   const h = meta.height ?? 0;
   if (!w || !h) throw unsupported('That image could not be read.');
-  if (w * h > IMAGE_LIMITS.maxPixels)
-    throw new AppError(413, 'image_too_large', `That image is ${w} × ${h} pixels; the limit is ${IMAGE_LIMITS.maxPixels / 1_000_000} megapixels.`);
+  if (w * h > IMAGE_LIMITS.maxPixels) throw new AppError(413, 'image_too_large', `That image is ${w} × ${h} pixels; the limit is ${IMAGE_LIMITS.maxPixels / 1_000_000} megapixels.`);
 
   const jpeg = type.mime === 'image/jpeg';
   let main: { data: Buffer; info: OutputInfo };
@@ -117,8 +115,7 @@ export function singleFile(maxBytes: number): RequestHandler {
     upload(req, res, (err: unknown) => {
       if (!err) return next();
       if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE')
-          return next(new AppError(413, 'file_too_large', `That file is larger than ${sizeLabel(maxBytes)}.`));
+        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'file_too_large', `That file is larger than ${sizeLabel(maxBytes)}.`));
         return next(badRequest(`The upload could not be read (${err.code.toLowerCase().replace(/_/g, ' ')}).`));
       }
       return next(badRequest('The upload could not be read.'));

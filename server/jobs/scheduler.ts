@@ -3,7 +3,7 @@
 // still sends today's digest). runDigest itself makes a second run for the same day a no-op.
 import { Cron } from 'croner';
 import { dayInZone } from '../../shared/business/working-days.ts';
-import { runDigest, type DigestDeps, type DigestResult } from '../features/business/index.ts';
+import { type DigestDeps, type DigestResult, runDigest } from '../features/business/index.ts';
 
 export type Jobs = { stop(): Promise<void>; catchUp: Promise<DigestResult | null>; nextRun(): Date | null };
 

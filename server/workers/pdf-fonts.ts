@@ -57,5 +57,4 @@ export function missingCharacters(text: string): string[] {
 }
 
 /** "U+7F8E U+54B2": code points the way the proof screen names them. */
-export const codePoints = (chars: readonly string[]): string =>
-  chars.map((c) => `U+${c.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`).join(' ');
+export const codePoints = (chars: readonly string[]): string => chars.map((c) => `U+${c.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`).join(' ');

@@ -10,11 +10,11 @@ import os from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { MessageChannel, type Transferable } from 'node:worker_threads';
 import { Piscina } from 'piscina';
-import { AppError } from '../http/app-error.ts';
-import { MotifError, type MotifErrorCode } from '../../shared/engine/motif.ts';
-import { LayoutError } from '../../shared/engine/text-layout.ts';
 import { ComposeError } from '../../shared/engine/compose.ts';
 import { CutSheetError } from '../../shared/engine/cut-sheets.ts';
+import { MotifError, type MotifErrorCode } from '../../shared/engine/motif.ts';
+import { LayoutError } from '../../shared/engine/text-layout.ts';
+import { AppError } from '../http/app-error.ts';
 import type { Task, TaskError, TaskKind, TaskMessage, TaskResult, TaskValue } from './tasks.ts';
 
 export type { Task, TaskKind, TaskValue } from './tasks.ts';
@@ -68,14 +68,21 @@ function defaultThreads(): number {
 /** An error sent back as data by a worker → the same class on this thread. */
 function rebuild(e: TaskError): Error {
   switch (e.name) {
-    case 'AppError': return new AppError(e.status ?? 500, e.code ?? 'error', e.message, e.fields);
-    case 'MotifError': return new MotifError(e.code as MotifErrorCode, e.message);
-    case 'LayoutError': return new LayoutError(e.message);
-    case 'ComposeError': return new ComposeError(e.fieldId ?? '', e.message);
-    case 'CutSheetError': return new CutSheetError(e.code as CutSheetError['code'], e.message, e.fields);
+    case 'AppError':
+      return new AppError(e.status ?? 500, e.code ?? 'error', e.message, e.fields);
+    case 'MotifError':
+      return new MotifError(e.code as MotifErrorCode, e.message);
+    case 'LayoutError':
+      return new LayoutError(e.message);
+    case 'ComposeError':
+      return new ComposeError(e.fieldId ?? '', e.message);
+    case 'CutSheetError':
+      return new CutSheetError(e.code as CutSheetError['code'], e.message, e.fields);
     // a bound of shared/engine/limits.ts: the input is refused, and the message names the bound
-    case 'LimitError': return new AppError(400, 'limit_exceeded', e.message, { limit: e.limit ?? '' });
-    default: return new Error(`A background task failed: ${e.message}`);
+    case 'LimitError':
+      return new AppError(400, 'limit_exceeded', e.message, { limit: e.limit ?? '' });
+    default:
+      return new Error(`A background task failed: ${e.message}`);
   }
 }
 

@@ -5,15 +5,15 @@
  * back as data in `error` and is rebuilt on the request thread by pool.ts.
  */
 import type { MessagePort } from 'node:worker_threads';
-import { getFontRegistry } from '../integrations/fonts.ts';
-import { processImage, type ProcessedImage } from '../integrations/storage.ts';
-import { AppError } from '../http/app-error.ts';
-import { parseMotifSvg, MotifError, type MotifGeometry } from '../../shared/engine/motif.ts';
-import { layoutText, LayoutError, type LayoutTextInput, type TextLayout } from '../../shared/engine/text-layout.ts';
-import { compose, ComposeError, type ComposedItem, type ComposeInput } from '../../shared/engine/compose.ts';
-import { CutSheetError, nestCutSheets, type CutSheet, type NestPiece } from '../../shared/engine/cut-sheets.ts';
-import { parsePathData, pathArea, pathBBox } from '../../shared/engine/path.ts';
+import { type ComposedItem, ComposeError, type ComposeInput, compose } from '../../shared/engine/compose.ts';
+import { type CutSheet, CutSheetError, type NestPiece, nestCutSheets } from '../../shared/engine/cut-sheets.ts';
 import { LimitError } from '../../shared/engine/limits.ts';
+import { MotifError, type MotifGeometry, parseMotifSvg } from '../../shared/engine/motif.ts';
+import { parsePathData, pathArea, pathBBox } from '../../shared/engine/path.ts';
+import { LayoutError, type LayoutTextInput, layoutText, type TextLayout } from '../../shared/engine/text-layout.ts';
+import { AppError } from '../http/app-error.ts';
+import { getFontRegistry } from '../integrations/fonts.ts';
+import { type ProcessedImage, processImage } from '../integrations/storage.ts';
 import { buildWorksheetPdf, type WorksheetInput } from './worksheet-pdf.ts';
 
 /** A piece to nest as the workroom has it: its path data, not yet measured. */

@@ -9,12 +9,12 @@
  */
 import PDFDocument from 'pdfkit';
 import { z } from 'zod';
-import { formatLength, MM_PER_IN } from '../../shared/units.ts';
-import type { CutSheet } from '../../shared/engine/cut-sheets.ts';
-import type { PressCard } from '../../shared/engine/press-card.ts';
 import { placedCutPath } from '../../shared/engine/cut-sheet-svg.ts';
-import { formatPath } from '../../shared/engine/path.ts';
+import type { CutSheet } from '../../shared/engine/cut-sheets.ts';
 import { LimitError, MAX_WORKSHEET_PAGES } from '../../shared/engine/limits.ts';
+import { formatPath } from '../../shared/engine/path.ts';
+import type { PressCard } from '../../shared/engine/press-card.ts';
+import { formatLength, MM_PER_IN } from '../../shared/units.ts';
 import { codePoints, missingCharacters, PDF_FONT, registerPdfFonts } from './pdf-fonts.ts';
 
 const PT_PER_MM = 72 / MM_PER_IN;
@@ -35,8 +35,15 @@ export const TRIM_ALLOWANCE_MM = 25;
 
 const str = (max: number) => z.string().max(max);
 const placementSchema = z.object({
-  pieceId: str(128), lineId: str(128), orderNumber: str(64).optional(), layerId: str(128).optional(),
-  xMm: z.number().finite(), yMm: z.number().finite(), widthMm: z.number().positive(), heightMm: z.number().positive(), rotated: z.boolean(),
+  pieceId: str(128),
+  lineId: str(128),
+  orderNumber: str(64).optional(),
+  layerId: str(128).optional(),
+  xMm: z.number().finite(),
+  yMm: z.number().finite(),
+  widthMm: z.number().positive(),
+  heightMm: z.number().positive(),
+  rotated: z.boolean(),
 });
 const sheetSchema = z.object({
   id: str(128).optional(),
@@ -86,8 +93,7 @@ function mapGeometry(paper: Paper, rollWidthMm: number) {
 
 /** Length of roll that one map page shows, mm. */
 export const mapSegmentLengthMm = (paper: Paper, rollWidthMm: number): number => mapGeometry(paper, rollWidthMm).segmentMm;
-export const mapPageCount = (paper: Paper, sheet: { rollWidthMm: number; lengthMm: number }): number =>
-  Math.max(1, Math.ceil(sheet.lengthMm / mapSegmentLengthMm(paper, sheet.rollWidthMm) - 1e-9));
+export const mapPageCount = (paper: Paper, sheet: { rollWidthMm: number; lengthMm: number }): number => Math.max(1, Math.ceil(sheet.lengthMm / mapSegmentLengthMm(paper, sheet.rollWidthMm) - 1e-9));
 const summaryPageCount = (sheets: number) => (sheets <= SUMMARY_ROWS_FIRST ? 1 : 1 + Math.ceil((sheets - SUMMARY_ROWS_FIRST) / SUMMARY_ROWS_NEXT));
 
 /** Pages: summary + map pages per sheet + one per press card + cautions + care cards (6 a page) + one slip per order. */
@@ -114,7 +120,10 @@ function block(doc: Doc, text: string, opts: { size?: number; bold?: boolean; co
   const width = opts.width ?? doc.page.width - MARGIN - x;
   const room = doc.page.maxY() - doc.y;
   if (room < 4) return;
-  doc.font(opts.bold ? PDF_FONT.bold : PDF_FONT.regular).fontSize(opts.size ?? 10).fillColor(opts.color ?? INK);
+  doc
+    .font(opts.bold ? PDF_FONT.bold : PDF_FONT.regular)
+    .fontSize(opts.size ?? 10)
+    .fillColor(opts.color ?? INK);
   doc.text(text, x, doc.y, { width, height: room, ellipsis: true, indent: opts.indent });
   if (opts.gap) doc.y += opts.gap;
 }
@@ -147,15 +156,25 @@ function heading(doc: Doc, title: string, sub?: string) {
 function summaryPages(doc: Doc, inp: z.infer<typeof worksheetInputSchema>, newPage: () => void) {
   heading(doc, `${inp.shopName} — work sheet`, inp.batchLabel);
   const orders = new Set([...inp.cards.map((c) => c.orderNumber), ...inp.packingSlips.map((s) => s.orderNumber)]);
-  block(doc, `${orders.size} order${orders.size === 1 ? '' : 's'}, ${inp.cards.length} item${inp.cards.length === 1 ? '' : 's'} to press, ${inp.sheets.length} cut sheet${inp.sheets.length === 1 ? '' : 's'}.`, { size: 11, gap: 4 });
+  block(
+    doc,
+    `${orders.size} order${orders.size === 1 ? '' : 's'}, ${inp.cards.length} item${inp.cards.length === 1 ? '' : 's'} to press, ${inp.sheets.length} cut sheet${inp.sheets.length === 1 ? '' : 's'}.`,
+    { size: 11, gap: 4 },
+  );
   block(doc, `Orders: ${[...orders].join(', ') || '—'}`, { size: 10, gap: 6 });
-  block(doc, 'In this work sheet: a map of each cut sheet, a press card per item with its placement note, the cautions, care cards for the parcels and a packing slip per order.', { size: 9, gap: 10 });
+  block(doc, 'In this work sheet: a map of each cut sheet, a press card per item with its placement note, the cautions, care cards for the parcels and a packing slip per order.', {
+    size: 9,
+    gap: 10,
+  });
   block(doc, 'Cut sheets', { size: 13, bold: true, gap: 4 });
   block(doc, `Stock to take per sheet: its length plus ${TRIM_ALLOWANCE_MM} mm trim. Cut files are mirrored.`, { size: 9, gap: 6 });
   const cols = [0, 150, 250, 360, 430];
   const row = (cells: string[], bold = false) => {
     const y = doc.y;
-    doc.font(bold ? PDF_FONT.bold : PDF_FONT.regular).fontSize(9).fillColor(INK);
+    doc
+      .font(bold ? PDF_FONT.bold : PDF_FONT.regular)
+      .fontSize(9)
+      .fillColor(INK);
     cells.forEach((c, i) => {
       const x = cols[i] ?? 0; // one cell per column: `cells` never outnumbers `cols`
       doc.text(c, MARGIN + x, y, { width: (cols[i + 1] ?? doc.page.width - 2 * MARGIN) - x - 6, height: 14, ellipsis: true, lineBreak: false });
@@ -170,13 +189,7 @@ function summaryPages(doc: Doc, inp: z.infer<typeof worksheetInputSchema>, newPa
       heading(doc, 'Cut sheets (continued)');
       header();
     }
-    row([
-      materialLabel(s.material),
-      formatLength(s.rollWidthMm),
-      `${formatLength(s.lengthMm)} (+ ${TRIM_ALLOWANCE_MM} mm)`,
-      pct(s.utilisation),
-      String(s.placements.length),
-    ]);
+    row([materialLabel(s.material), formatLength(s.rollWidthMm), `${formatLength(s.lengthMm)} (+ ${TRIM_ALLOWANCE_MM} mm)`, pct(s.utilisation), String(s.placements.length)]);
   });
 }
 
@@ -187,7 +200,13 @@ function mapPages(doc: Doc, paper: Paper, sheet: WorksheetSheet, index: number, 
   const drawn = sheet.placements.map((pl) => {
     const src = paths.get(pl.pieceId);
     let d: string | null = null;
-    if (src) { try { d = formatPath(placedCutPath(pl, src)); } catch { d = null; } }
+    if (src) {
+      try {
+        d = formatPath(placedCutPath(pl, src));
+      } catch {
+        d = null;
+      }
+    }
     return { pl, d };
   });
   for (let k = 0; k < pages; k++) {
@@ -195,7 +214,11 @@ function mapPages(doc: Doc, paper: Paper, sheet: WorksheetSheet, index: number, 
     const y0 = k * g.segmentMm;
     const y1 = Math.min(sheet.lengthMm, y0 + g.segmentMm);
     heading(doc, `Cut sheet ${index + 1}: ${materialLabel(sheet.material)}${pages > 1 ? ` — part ${k + 1} of ${pages}` : ''}`);
-    block(doc, `Roll ${formatLength(sheet.rollWidthMm)} wide; ${formatLength(sheet.lengthMm)} used (${pct(sheet.utilisation)}); this page shows ${formatLength(y0)} to ${formatLength(y1)}. To scale, 1 : ${(1 / (g.scale / PT_PER_MM)).toFixed(2)}; pieces as cut (mirrored), labelled by order number.`, { size: 8.5 });
+    block(
+      doc,
+      `Roll ${formatLength(sheet.rollWidthMm)} wide; ${formatLength(sheet.lengthMm)} used (${pct(sheet.utilisation)}); this page shows ${formatLength(y0)} to ${formatLength(y1)}. To scale, 1 : ${(1 / (g.scale / PT_PER_MM)).toFixed(2)}; pieces as cut (mirrored), labelled by order number.`,
+      { size: 8.5 },
+    );
     const hPt = (y1 - y0) * g.scale;
     const wPt = sheet.rollWidthMm * g.scale;
     doc.save();
@@ -205,11 +228,21 @@ function mapPages(doc: Doc, paper: Paper, sheet: WorksheetSheet, index: number, 
       if (pl.yMm + pl.heightMm < y0 || pl.yMm > y1) continue;
       const x = g.left + pl.xMm * g.scale;
       const y = g.top + (pl.yMm - y0) * g.scale;
-      doc.lineWidth(0.4).strokeColor('#9aa3b5').dash(2, { space: 2 }).rect(x, y, pl.widthMm * g.scale, pl.heightMm * g.scale).stroke().undash();
+      doc
+        .lineWidth(0.4)
+        .strokeColor('#9aa3b5')
+        .dash(2, { space: 2 })
+        .rect(x, y, pl.widthMm * g.scale, pl.heightMm * g.scale)
+        .stroke()
+        .undash();
       if (d) {
         doc.save();
         doc.translate(g.left, g.top - y0 * g.scale).scale(g.scale);
-        doc.path(d).lineWidth(0.5 / g.scale).strokeColor(INK).stroke();
+        doc
+          .path(d)
+          .lineWidth(0.5 / g.scale)
+          .strokeColor(INK)
+          .stroke();
         doc.restore();
       }
       const label = pl.orderNumber ?? pl.lineId;
@@ -249,17 +282,11 @@ export const CAUTIONS: readonly string[] = [
   'Heat presses and irons burn: keep hands clear of the platen, use a protective sheet (parchment or PTFE), let the press cool before putting it away, and keep it away from children.',
   'Hot glue burns: keep a bowl of cold water at hand and let glued parts cool before handling.',
   'Ventilate the room when pressing vinyl.',
-  'Bows, buttons, gems and other small decorations are a choking hazard on items for children under 3 (US CPSC, 16 CFR 1501: parts that fit the small-parts test cylinder). Whether an item is exempt is a question for the seller: follow your local rules and the maker\'s own instructions.',
-  'These notes are general cautions; local rules and each maker\'s instructions come first.',
+  "Bows, buttons, gems and other small decorations are a choking hazard on items for children under 3 (US CPSC, 16 CFR 1501: parts that fit the small-parts test cylinder). Whether an item is exempt is a question for the seller: follow your local rules and the maker's own instructions.",
+  "These notes are general cautions; local rules and each maker's instructions come first.",
 ];
 
-export const CARE_STEPS: readonly string[] = [
-  'Wait 24 hours before the first wash.',
-  'Wash inside out, cool.',
-  'No bleach.',
-  'Tumble dry low, or hang to dry.',
-  'Never iron directly on the design.',
-];
+export const CARE_STEPS: readonly string[] = ['Wait 24 hours before the first wash.', 'Wash inside out, cool.', 'No bleach.', 'Tumble dry low, or hang to dry.', 'Never iron directly on the design.'];
 
 function cautionsPage(doc: Doc) {
   heading(doc, 'Cautions', 'Read before pressing');
@@ -360,4 +387,3 @@ export async function buildWorksheetPdf(input: WorksheetInput & { compress?: boo
   onProgress?.(1);
   return buf;
 }
-

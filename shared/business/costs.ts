@@ -21,7 +21,10 @@ export function splitExact(amount: number, weights: readonly number[]): number[]
   if (weights.length === 0) return [];
   if (total === 0n) {
     // nothing to weigh by: split evenly (still exact)
-    return splitExact(amount, weights.map(() => 1));
+    return splitExact(
+      amount,
+      weights.map(() => 1),
+    );
   }
   const neg = amount < 0;
   const a = BigInt(Math.abs(amount));
@@ -42,7 +45,10 @@ export function sheetCostShares(costMinor: number, pieces: ReadonlyArray<{ lineI
   const area = new Map<string, number>();
   for (const p of pieces) area.set(p.lineId, (area.get(p.lineId) ?? 0) + Math.abs(p.areaMm2));
   const ids = [...area.keys()];
-  const parts = splitExact(costMinor, ids.map((id) => area.get(id)!));
+  const parts = splitExact(
+    costMinor,
+    ids.map((id) => area.get(id)!),
+  );
   return new Map(ids.map((id, i) => [id, parts[i]!]));
 }
 
@@ -84,8 +90,7 @@ export const paymentFee = (chargeMinor: number, cfg: Pick<FeeConfig, 'paymentFee
   chargeMinor <= 0 ? 0 : bpsOf(chargeMinor, cfg.paymentFeeBps) + cfg.paymentFeeFixedMinor;
 
 /** Labour of a line, exact (minutes per layer × layers × quantity at the hourly rate). */
-export const labourExact = (minutesPerLayer: number, layers: number, quantity: number, hourlyRateMinor: number): number =>
-  (minutesPerLayer * layers * quantity * hourlyRateMinor) / 60;
+export const labourExact = (minutesPerLayer: number, layers: number, quantity: number, hourlyRateMinor: number): number => (minutesPerLayer * layers * quantity * hourlyRateMinor) / 60;
 
 // ---------------------------------------------------------------- one order's lines
 

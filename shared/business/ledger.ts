@@ -99,10 +99,22 @@ export function minorToDecimal(amountMinor: number, digits: number): string {
  */
 export function ledgerCsv(entries: readonly LedgerEntry[], digits: number): string {
   const safe = (s: string | null) => (s && /^[=+\-@\t\r]/.test(s) ? `'${s}` : (s ?? ''));
-  return Papa.unparse({
-    fields: ['date', 'kind', 'order', 'amount', 'earned', 'paid_out', 'currency', 'memo'],
-    data: entries.map((e) => [e.day, e.kind, e.orderNumber ?? '', minorToDecimal(e.amountMinor, digits), minorToDecimal(e.earnedMinor, digits), minorToDecimal(e.paidOutMinor, digits), e.currency, safe(e.memo)]),
-  }, { newline: '\r\n' });
+  return Papa.unparse(
+    {
+      fields: ['date', 'kind', 'order', 'amount', 'earned', 'paid_out', 'currency', 'memo'],
+      data: entries.map((e) => [
+        e.day,
+        e.kind,
+        e.orderNumber ?? '',
+        minorToDecimal(e.amountMinor, digits),
+        minorToDecimal(e.earnedMinor, digits),
+        minorToDecimal(e.paidOutMinor, digits),
+        e.currency,
+        safe(e.memo),
+      ]),
+    },
+    { newline: '\r\n' },
+  );
 }
 
 export const monthOf = (ms: number, timeZone = 'UTC') => dayInZone(ms, timeZone).slice(0, 7);

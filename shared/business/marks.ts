@@ -2,13 +2,13 @@
  * The workroom's ship-by marks on a line: `due_today`, `at_risk` (not yet cut with one working day
  * left) and `late`. Pure; "today" is passed in as a calendar date in the shop's time zone.
  */
-import { parseDay, workingDaysBetween, type WorkCalendar } from './working-days.ts';
+
 import { isFinishedLine, UNCUT_LINE_STATES } from '../schemas/order.ts';
+import { parseDay, type WorkCalendar, workingDaysBetween } from './working-days.ts';
 
 export const SHIP_MARKS = ['late', 'due_today', 'at_risk'] as const;
 export type ShipMark = (typeof SHIP_MARKS)[number];
 export const SHIP_MARK_LABELS: Record<ShipMark, string> = { late: 'late', due_today: 'due today', at_risk: 'at risk' };
-
 
 export function shipMark(args: { state: string; shipBy: string | null; today: string; calendar: WorkCalendar }): ShipMark | null {
   const { state, shipBy, today, calendar } = args;

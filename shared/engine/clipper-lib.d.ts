@@ -1,7 +1,10 @@
 // Minimal types for clipper-lib 6.4.2 (Angus Johnson's Clipper, JS port), only what the engine uses.
 declare module 'clipper-lib' {
   namespace ClipperLib {
-    interface IntPoint { X: number; Y: number }
+    interface IntPoint {
+      X: number;
+      Y: number;
+    }
     type Path = IntPoint[];
     type Paths = Path[];
     class PolyNode {

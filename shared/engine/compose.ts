@@ -6,14 +6,29 @@
  * order, bottom → top: outline backings, motif layers, names.
  */
 import type { FontRegistry } from './fonts.ts';
-import { outlineOfPath, type OutlineResult } from './outline.ts';
-import { formatPath, mirrorPath, parsePathData, pathBBox, roundPath, transformPath, unionBBox, flattenPath, type BBox, type Path } from './path.ts';
 import { regionsArea, unionRegions } from './geometry.ts';
 import { LimitError, MAX_COORDINATE_MM, MAX_TEXT_CHARS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_CHARS } from './limits.ts';
+import { type OutlineResult, outlineOfPath } from './outline.ts';
+import { type BBox, flattenPath, formatPath, mirrorPath, type Path, parsePathData, pathBBox, roundPath, transformPath, unionBBox } from './path.ts';
+import { type ComposeInput, type ComposeWarning, type MaterialKind, type Matrix, type PieceRole, placeDesign } from './place.ts';
 import { analysePathWeeding, analyseQuickWeeding, combineWeeding, quickFromFull, type WeedingReport } from './weeding.ts';
-import { placeDesign, type ComposeInput, type ComposeWarning, type MaterialKind, type Matrix, type PieceRole } from './place.ts';
 
-export { ComposeError, placeDesign, type Choice, type ColourFieldDef, type ComposeInput, type ComposeWarning, type FieldDef, type MaterialKind, type MotifFieldDef, type MotifOption, type PieceRole, type Placement, type PlacedPiece, type TextFieldDef } from './place.ts';
+export {
+  type Choice,
+  type ColourFieldDef,
+  ComposeError,
+  type ComposeInput,
+  type ComposeWarning,
+  type FieldDef,
+  type MaterialKind,
+  type MotifFieldDef,
+  type MotifOption,
+  type PieceRole,
+  type PlacedPiece,
+  type Placement,
+  placeDesign,
+  type TextFieldDef,
+} from './place.ts';
 
 /** `W` is WeedingReport unless compose() was asked for `{ weeding: 'none' }` (then null). */
 export interface Piece<W extends WeedingReport | null = WeedingReport> {
@@ -52,7 +67,9 @@ export interface ComposedItem<W extends WeedingReport | null = WeedingReport> {
  * - 'none': geometry only; every `weeding` is null.
  */
 export type WeedingMode = 'full' | 'fast' | 'none';
-export interface ComposeOptions { weeding?: WeedingMode }
+export interface ComposeOptions {
+  weeding?: WeedingMode;
+}
 
 /** A small LRU map: recently used entries stay, the oldest go first. */
 class Lru<K, V> {
@@ -60,7 +77,10 @@ class Lru<K, V> {
   constructor(private readonly size: number) {}
   get(k: K): V | undefined {
     const v = this.m.get(k);
-    if (v !== undefined) { this.m.delete(k); this.m.set(k, v); }
+    if (v !== undefined) {
+      this.m.delete(k);
+      this.m.set(k, v);
+    }
     return v;
   }
   set(k: K, v: V): V {
@@ -75,7 +95,14 @@ class Lru<K, V> {
  * path: a motif placed where it was on the last keystroke, an outline or name seen before, is
  * served from here. Each value is exactly what computing it afresh gives (same function, same input).
  */
-interface PieceGeometry { parsed: Path; bboxMm: BBox; mirroredPath: string; area?: number; full?: WeedingReport; fast?: WeedingReport }
+interface PieceGeometry {
+  parsed: Path;
+  bboxMm: BBox;
+  mirroredPath: string;
+  area?: number;
+  full?: WeedingReport;
+  fast?: WeedingReport;
+}
 const geometryCache = new Lru<string, PieceGeometry>(96);
 const outlineCache = new Lru<string, OutlineResult>(48);
 const placedCache = new Lru<string, string>(96);
@@ -102,11 +129,25 @@ function weedingOf(g: PieceGeometry, mode: WeedingMode): WeedingReport | null {
 
 const copyReport = (w: WeedingReport | null): WeedingReport | null => (w ? { ...w, reasons: [...w.reasons] } : null);
 
-function piece(layerId: string, fieldId: string, role: PieceRole, materialKind: MaterialKind, colour: string, d: string, mode: WeedingMode, areaMm2?: number, parsed?: Path): Piece<WeedingReport | null> {
+function piece(
+  layerId: string,
+  fieldId: string,
+  role: PieceRole,
+  materialKind: MaterialKind,
+  colour: string,
+  d: string,
+  mode: WeedingMode,
+  areaMm2?: number,
+  parsed?: Path,
+): Piece<WeedingReport | null> {
   const g = geometryOf(d, parsed);
   const area = areaMm2 ?? (g.area ??= regionsArea(unionRegions(flattenPath(g.parsed, 0.01), 'nonzero')));
   return {
-    layerId, fieldId, role, materialKind, colour,
+    layerId,
+    fieldId,
+    role,
+    materialKind,
+    colour,
     path: d,
     mirroredPath: g.mirroredPath,
     bboxMm: { ...g.bboxMm },
@@ -153,7 +194,8 @@ function checkComposeInput(input: ComposeInput): void {
         for (const l of o.geometry.layers) {
           if (l.path.length > MOTIF_MAX_PATH_CHARS) throw new LimitError('MOTIF_MAX_PATH_CHARS', `A motif layer's outline is longer than ${MOTIF_MAX_PATH_CHARS.toLocaleString('en')} characters.`);
           const b = l.bboxMm;
-          if (![b.minX, b.minY, b.maxX, b.maxY].every((v) => Math.abs(v) <= MAX_COORDINATE_MM)) throw new LimitError('MAX_COORDINATE_MM', `A motif layer lies outside the ${MAX_COORDINATE_MM} mm limit.`);
+          if (![b.minX, b.minY, b.maxX, b.maxY].every((v) => Math.abs(v) <= MAX_COORDINATE_MM))
+            throw new LimitError('MAX_COORDINATE_MM', `A motif layer lies outside the ${MAX_COORDINATE_MM} mm limit.`);
         }
       }
     }

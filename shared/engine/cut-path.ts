@@ -2,8 +2,9 @@
 // contours, joined script letters); filled on screen that is invisible, but a blade following
 // every contour would cut through the middle of the letter. So a cut path is the union of the
 // piece's contours under the nonzero rule, the way the preview fills them.
-import { flattenPath, formatPath, parsePathData, polygonsToPath } from './path.ts';
+
 import { regionsToPolygons, unionRegions } from './geometry.ts';
+import { flattenPath, formatPath, parsePathData, polygonsToPath } from './path.ts';
 
 /** Cut tolerance for curves turned into chords: 0.01 mm, far below any cutter's resolution. */
 const CUT_TOLERANCE_MM = 0.01;

@@ -7,10 +7,14 @@
  * Path data is re-serialised from parsed geometry, so nothing from the input reaches the file
  * verbatim except escaped ids. Pure.
  */
-import { parsePathData, pathBBox, transformPath, type BBox, type Path, type Segment, type SubPath } from './path.ts';
-import { CutSheetError, type CutSheet, type Placement } from './cut-sheets.ts';
 
-export interface CutSheetSvgPiece { id: string; path: string }
+import { type CutSheet, CutSheetError, type Placement } from './cut-sheets.ts';
+import { type BBox, type Path, parsePathData, pathBBox, type Segment, type SubPath, transformPath } from './path.ts';
+
+export interface CutSheetSvgPiece {
+  id: string;
+  path: string;
+}
 
 type Matrix = [number, number, number, number, number, number];
 /** What placing a path needs from a placement. */
@@ -42,13 +46,20 @@ export function placementMatrix(placement: PlacedRect, bbox: BBox): Matrix {
 export function readPathData(d: string): Path {
   const out: Path = [];
   let cur: SubPath | null = null;
-  let cx = 0, cy = 0, sx = 0, sy = 0;
+  let cx = 0,
+    cy = 0,
+    sx = 0,
+    sy = 0;
   let i = 0;
   let cmd = 0; // char code of the current command
   const n = d.length;
   let bad = false;
   const skip = () => {
-    while (i < n) { const c = d.charCodeAt(i); if (c === 32 || c === 44 || c === 10 || c === 13 || c === 9) i++; else break; }
+    while (i < n) {
+      const c = d.charCodeAt(i);
+      if (c === 32 || c === 44 || c === 10 || c === 13 || c === 9) i++;
+      else break;
+    }
   };
   // SVG number grammar: sign? (digits ('.' digits?)? | '.' digits) (e sign? digits)?
   const num = (): number => {
@@ -57,21 +68,39 @@ export function readPathData(d: string): Path {
     let c = d.charCodeAt(i);
     if (c === 43 || c === 45) c = d.charCodeAt(++i);
     let digits = 0;
-    while (c >= 48 && c <= 57) { digits++; c = d.charCodeAt(++i); }
-    if (c === 46) { c = d.charCodeAt(++i); while (c >= 48 && c <= 57) { digits++; c = d.charCodeAt(++i); } }
-    if (digits === 0) { bad = true; return 0; }
+    while (c >= 48 && c <= 57) {
+      digits++;
+      c = d.charCodeAt(++i);
+    }
+    if (c === 46) {
+      c = d.charCodeAt(++i);
+      while (c >= 48 && c <= 57) {
+        digits++;
+        c = d.charCodeAt(++i);
+      }
+    }
+    if (digits === 0) {
+      bad = true;
+      return 0;
+    }
     if (c === 101 || c === 69) {
       const save = i;
       c = d.charCodeAt(++i);
       if (c === 43 || c === 45) c = d.charCodeAt(++i);
       let ed = 0;
-      while (c >= 48 && c <= 57) { ed++; c = d.charCodeAt(++i); }
+      while (c >= 48 && c <= 57) {
+        ed++;
+        c = d.charCodeAt(++i);
+      }
       if (ed === 0) i = save;
     }
     return +d.slice(s0, i);
   };
   const seg = (sg: Segment) => {
-    if (!cur) { cur = { x0: cx, y0: cy, segs: [], closed: false }; out.push(cur); }
+    if (!cur) {
+      cur = { x0: cx, y0: cy, segs: [], closed: false };
+      out.push(cur);
+    }
     cur.segs.push(sg);
   };
   for (;;) {
@@ -79,32 +108,77 @@ export function readPathData(d: string): Path {
     if (i >= n) break;
     const c = d.charCodeAt(i);
     const isLetter = (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
-    if (isLetter) { cmd = c; i++; if (c !== 90 && c !== 122) continue; }
-    else if (!cmd || cmd === 90 || cmd === 122) return parsePathData(d);
+    if (isLetter) {
+      cmd = c;
+      i++;
+      if (c !== 90 && c !== 122) continue;
+    } else if (!cmd || cmd === 90 || cmd === 122) return parsePathData(d);
     const rel = cmd >= 97;
-    const ox = rel ? cx : 0, oy = rel ? cy : 0;
-    switch (cmd | 32) { // lower-case
-      case 109: { // m
-        const x = num() + ox, y = num() + oy;
-        cur = { x0: x, y0: y, segs: [], closed: false }; out.push(cur);
-        cx = sx = x; cy = sy = y;
+    const ox = rel ? cx : 0,
+      oy = rel ? cy : 0;
+    switch (
+      cmd | 32 // lower-case
+    ) {
+      case 109: {
+        // m
+        const x = num() + ox,
+          y = num() + oy;
+        cur = { x0: x, y0: y, segs: [], closed: false };
+        out.push(cur);
+        cx = sx = x;
+        cy = sy = y;
         cmd = rel ? 108 : 76; // further pairs are lines
         break;
       }
-      case 108: { const x = num() + ox, y = num() + oy; seg({ t: 'L', x, y }); cx = x; cy = y; break; }
-      case 104: { const x = num() + ox; seg({ t: 'L', x, y: cy }); cx = x; break; }
-      case 118: { const y = num() + oy; seg({ t: 'L', x: cx, y }); cy = y; break; }
+      case 108: {
+        const x = num() + ox,
+          y = num() + oy;
+        seg({ t: 'L', x, y });
+        cx = x;
+        cy = y;
+        break;
+      }
+      case 104: {
+        const x = num() + ox;
+        seg({ t: 'L', x, y: cy });
+        cx = x;
+        break;
+      }
+      case 118: {
+        const y = num() + oy;
+        seg({ t: 'L', x: cx, y });
+        cy = y;
+        break;
+      }
       case 113: {
-        const x1 = num() + ox, y1 = num() + oy, x = num() + ox, y = num() + oy;
-        seg({ t: 'Q', x1, y1, x, y }); cx = x; cy = y; break;
+        const x1 = num() + ox,
+          y1 = num() + oy,
+          x = num() + ox,
+          y = num() + oy;
+        seg({ t: 'Q', x1, y1, x, y });
+        cx = x;
+        cy = y;
+        break;
       }
       case 99: {
-        const x1 = num() + ox, y1 = num() + oy, x2 = num() + ox, y2 = num() + oy, x = num() + ox, y = num() + oy;
-        seg({ t: 'C', x1, y1, x2, y2, x, y }); cx = x; cy = y; break;
+        const x1 = num() + ox,
+          y1 = num() + oy,
+          x2 = num() + ox,
+          y2 = num() + oy,
+          x = num() + ox,
+          y = num() + oy;
+        seg({ t: 'C', x1, y1, x2, y2, x, y });
+        cx = x;
+        cy = y;
+        break;
       }
       case 122:
-        if (cur) { (cur as SubPath).closed = true; cur = null; }
-        cx = sx; cy = sy;
+        if (cur) {
+          (cur as SubPath).closed = true;
+          cur = null;
+        }
+        cx = sx;
+        cy = sy;
         break;
       default:
         return parsePathData(d);
@@ -155,10 +229,7 @@ export function placedTransform(placement: PlacedRect, previewPath: string | Pat
   // The nest kept the gap around the placed rect; a path bigger than it would break that promise.
   const TOL = 0.01;
   if (placedW > placement.widthMm + TOL || placedH > placement.heightMm + TOL) {
-    throw new CutSheetError(
-      'invalid_input',
-      `Piece ${placement.pieceId}'s outline (${w.toFixed(1)} × ${h.toFixed(1)} mm) is bigger than the size it was nested with.`,
-    );
+    throw new CutSheetError('invalid_input', `Piece ${placement.pieceId}'s outline (${w.toFixed(1)} × ${h.toFixed(1)} mm) is bigger than the size it was nested with.`);
   }
   return { path: p, matrix: placementMatrix(placement, bbox) };
 }

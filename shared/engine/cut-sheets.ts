@@ -10,13 +10,15 @@
  */
 // The package's main entry is UMD; its ESM build ships no .d.mts (declared in maxrects-packer.d.ts
 // beside this file), so its types come from the main entry's declarations (checked with 2.7.4).
+
+import type { IOption, MaxRectsPacker as MaxRectsPackerClass } from 'maxrects-packer';
 import * as maxrectsEsm from 'maxrects-packer/dist/maxrects-packer.mjs';
-import type { MaxRectsPacker as MaxRectsPackerClass, IOption } from 'maxrects-packer';
 
 const { MaxRectsPacker } = maxrectsEsm as { MaxRectsPacker: typeof MaxRectsPackerClass };
 /** maxrects-packer's PACKING_LOGIC values (dist/types.d.ts). */
 const PACKING_LOGIC = { MAX_AREA: 0, MAX_EDGE: 1 } as const;
 type Logic = NonNullable<IOption['logic']>;
+
 import { z } from 'zod';
 import { LimitError, MAX_NEST_PIECES, MOTIF_MAX_PATH_CHARS } from './limits.ts';
 
@@ -87,8 +89,15 @@ export class CutSheetError extends Error {
   }
 }
 
-interface Attempt { logic: Logic; order: (a: Item, b: Item) => number }
-interface Item { piece: NestPiece; w: number; h: number }
+interface Attempt {
+  logic: Logic;
+  order: (a: Item, b: Item) => number;
+}
+interface Item {
+  piece: NestPiece;
+  w: number;
+  h: number;
+}
 
 // MaxRects is greedy, and which greedy choice wins depends on the mix of sizes: try a few orders
 // and scores and keep the shortest. Each run costs ~50 ms for 300 pieces (the free-rectangle list
@@ -104,7 +113,12 @@ const ATTEMPTS: Attempt[] = [
 ];
 const FEW_PIECES = 150;
 
-interface PackedRect { x: number; y: number; rot: boolean; data: Item }
+interface PackedRect {
+  x: number;
+  y: number;
+  rot: boolean;
+  data: Item;
+}
 
 function packOnce(items: Item[], binW: number, binH: number, gap: number, attempt: Attempt): PackedRect[][] {
   const packer = new MaxRectsPacker<any>(binW, binH, 0, {
@@ -146,9 +160,13 @@ function toSheet(rects: PackedRect[], rollWidthMm: number, gap: number, margin: 
   placements.sort((a, b) => a.yMm - b.yMm || a.xMm - b.xMm);
   const lengthMm = placements.length ? end + margin : 0;
   return {
-    rollWidthMm, gapMm: gap, marginMm: margin, lengthMm,
+    rollWidthMm,
+    gapMm: gap,
+    marginMm: margin,
+    lengthMm,
     utilisation: lengthMm > 0 ? area / (rollWidthMm * lengthMm) : 0,
-    piecesAreaMm2: area, placements,
+    piecesAreaMm2: area,
+    placements,
   };
 }
 
@@ -160,7 +178,10 @@ function toSheet(rects: PackedRect[], rollWidthMm: number, gap: number, margin: 
 export function nestCutSheets(input: NestInput): CutSheet[] {
   // the bound first, before zod reads every piece
   if (Array.isArray(input?.pieces) && input.pieces.length > MAX_NEST_PIECES) {
-    throw new LimitError('MAX_NEST_PIECES', `There are ${input.pieces.length.toLocaleString('en')} pieces to nest; the limit is ${MAX_NEST_PIECES.toLocaleString('en')} at once. Build cut sheets for fewer lines.`);
+    throw new LimitError(
+      'MAX_NEST_PIECES',
+      `There are ${input.pieces.length.toLocaleString('en')} pieces to nest; the limit is ${MAX_NEST_PIECES.toLocaleString('en')} at once. Build cut sheets for fewer lines.`,
+    );
   }
   const parsed = nestInputSchema.safeParse(input);
   if (!parsed.success) {
@@ -179,19 +200,15 @@ export function nestCutSheets(input: NestInput): CutSheet[] {
     const fitsUpright = it.w <= usableW + EPS;
     const fitsTurned = it.h <= usableW + EPS;
     if (!fitsUpright && !fitsTurned) {
-      throw new CutSheetError(
-        'piece_too_wide',
-        `Piece ${it.piece.id} (${round1(it.w)} × ${round1(it.h)} mm) is wider than the roll's usable width of ${round1(usableW)} mm in both orientations.`,
-        { [`pieces.${it.piece.id}`]: 'wider than the roll' },
-      );
+      throw new CutSheetError('piece_too_wide', `Piece ${it.piece.id} (${round1(it.w)} × ${round1(it.h)} mm) is wider than the roll's usable width of ${round1(usableW)} mm in both orientations.`, {
+        [`pieces.${it.piece.id}`]: 'wider than the roll',
+      });
     }
     const fitsSomeWay = (fitsUpright && it.h <= usableL + EPS) || (fitsTurned && it.w <= usableL + EPS);
     if (!fitsSomeWay) {
-      throw new CutSheetError(
-        'piece_too_long',
-        `Piece ${it.piece.id} (${round1(it.w)} × ${round1(it.h)} mm) does not fit a ${round1(maxLengthMm!)} mm sheet.`,
-        { [`pieces.${it.piece.id}`]: 'longer than the sheet' },
-      );
+      throw new CutSheetError('piece_too_long', `Piece ${it.piece.id} (${round1(it.w)} × ${round1(it.h)} mm) does not fit a ${round1(maxLengthMm!)} mm sheet.`, {
+        [`pieces.${it.piece.id}`]: 'longer than the sheet',
+      });
     }
   }
 
@@ -208,7 +225,10 @@ export function nestCutSheets(input: NestInput): CutSheet[] {
     if (placed !== items.length) continue; // should not happen after the checks above
     // Fewer sheets first, then the shorter total, then the shorter last sheet.
     const len = sheets.length * 1e9 + sheets.reduce((s, sh) => s + sh.lengthMm, 0);
-    if (len < bestLen) { best = sheets; bestLen = len; }
+    if (len < bestLen) {
+      best = sheets;
+      bestLen = len;
+    }
   }
   if (!best) throw new CutSheetError('invalid_input', 'The pieces could not be nested.');
   return best;
@@ -216,7 +236,10 @@ export function nestCutSheets(input: NestInput): CutSheet[] {
 
 const round1 = (v: number) => Math.round(v * 10) / 10;
 
-export interface MaterialKey { materialKind: string; colour: string }
+export interface MaterialKey {
+  materialKind: string;
+  colour: string;
+}
 
 /** Groups pieces by material (kind + colour), in first-seen order. */
 export function groupByMaterial<T extends MaterialKey>(pieces: readonly T[]): Array<{ materialKind: string; colour: string; key: string; pieces: T[] }> {
@@ -224,7 +247,10 @@ export function groupByMaterial<T extends MaterialKey>(pieces: readonly T[]): Ar
   for (const p of pieces) {
     const key = materialKey(p);
     let g = groups.get(key);
-    if (!g) { g = { materialKind: p.materialKind, colour: p.colour, key, pieces: [] }; groups.set(key, g); }
+    if (!g) {
+      g = { materialKind: p.materialKind, colour: p.colour, key, pieces: [] };
+      groups.set(key, g);
+    }
     g.pieces.push(p);
   }
   return [...groups.values()];

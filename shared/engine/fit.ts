@@ -68,8 +68,7 @@ export function textWarnings(raw: string): TextWarning[] {
 }
 
 /** Characters named for people: “☃” (U+2603), each with its code point, so invisible ones are named too. */
-export const nameCharacters = (chars: readonly string[]): string =>
-  chars.map((c) => `“${c}” (U+${c.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')})`).join(', ');
+export const nameCharacters = (chars: readonly string[]): string => chars.map((c) => `“${c}” (U+${c.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')})`).join(', ');
 
 const countChars = (text: string) => [...text].filter((ch) => !/\s/u.test(ch)).length;
 

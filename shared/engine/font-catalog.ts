@@ -24,14 +24,59 @@ export interface FontCatalogEntry {
 }
 
 export const FONT_CATALOG: readonly FontCatalogEntry[] = Object.freeze([
-  { id: 'baloo-bold', family: 'Baloo 2', weight: 700, style: 'rounded bold', kind: 'print', licence: 'OFL-1.1', minLetterHeightMm: 8, packageFile: '@expo-google-fonts/baloo-2/700Bold/Baloo2_700Bold.ttf' },
-  { id: 'dancing-script-bold', family: 'Dancing Script', weight: 700, style: 'connected script', kind: 'script', licence: 'OFL-1.1', minLetterHeightMm: 12, packageFile: '@expo-google-fonts/dancing-script/700Bold/DancingScript_700Bold.ttf' },
+  {
+    id: 'baloo-bold',
+    family: 'Baloo 2',
+    weight: 700,
+    style: 'rounded bold',
+    kind: 'print',
+    licence: 'OFL-1.1',
+    minLetterHeightMm: 8,
+    packageFile: '@expo-google-fonts/baloo-2/700Bold/Baloo2_700Bold.ttf',
+  },
+  {
+    id: 'dancing-script-bold',
+    family: 'Dancing Script',
+    weight: 700,
+    style: 'connected script',
+    kind: 'script',
+    licence: 'OFL-1.1',
+    minLetterHeightMm: 12,
+    packageFile: '@expo-google-fonts/dancing-script/700Bold/DancingScript_700Bold.ttf',
+  },
   { id: 'bitter-bold', family: 'Bitter', weight: 700, style: 'slab', kind: 'print', licence: 'OFL-1.1', minLetterHeightMm: 8, packageFile: '@expo-google-fonts/bitter/700Bold/Bitter_700Bold.ttf' },
-  { id: 'bebas-neue', family: 'Bebas Neue', weight: 400, style: 'tall condensed caps', kind: 'print', licence: 'OFL-1.1', minLetterHeightMm: 10, packageFile: '@expo-google-fonts/bebas-neue/400Regular/BebasNeue_400Regular.ttf' },
+  {
+    id: 'bebas-neue',
+    family: 'Bebas Neue',
+    weight: 400,
+    style: 'tall condensed caps',
+    kind: 'print',
+    licence: 'OFL-1.1',
+    minLetterHeightMm: 10,
+    packageFile: '@expo-google-fonts/bebas-neue/400Regular/BebasNeue_400Regular.ttf',
+  },
   // Handwritten: Patrick Hand rather than Caveat — fontkit and HarfBuzz disagree on Caveat's contextual
   // alternates (calt), so its widths could not be held to the HarfBuzz reference.
-  { id: 'patrick-hand', family: 'Patrick Hand', weight: 400, style: 'handwritten', kind: 'print', licence: 'OFL-1.1', minLetterHeightMm: 10, packageFile: '@expo-google-fonts/patrick-hand/400Regular/PatrickHand_400Regular.ttf' },
-  { id: 'bangers', family: 'Bangers', weight: 400, style: 'playful display', kind: 'print', licence: 'OFL-1.1', minLetterHeightMm: 8, packageFile: '@expo-google-fonts/bangers/400Regular/Bangers_400Regular.ttf' },
+  {
+    id: 'patrick-hand',
+    family: 'Patrick Hand',
+    weight: 400,
+    style: 'handwritten',
+    kind: 'print',
+    licence: 'OFL-1.1',
+    minLetterHeightMm: 10,
+    packageFile: '@expo-google-fonts/patrick-hand/400Regular/PatrickHand_400Regular.ttf',
+  },
+  {
+    id: 'bangers',
+    family: 'Bangers',
+    weight: 400,
+    style: 'playful display',
+    kind: 'print',
+    licence: 'OFL-1.1',
+    minLetterHeightMm: 8,
+    packageFile: '@expo-google-fonts/bangers/400Regular/Bangers_400Regular.ttf',
+  },
 ] as const);
 
 export const FONT_IDS = FONT_CATALOG.map((f) => f.id) as [string, ...string[]];

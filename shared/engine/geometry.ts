@@ -9,7 +9,10 @@ const SCALE = 10_000;
 export type FillRule = 'nonzero' | 'evenodd';
 
 /** One filled region: an outer contour and its holes (the counters of a letter). */
-export interface Region { outer: Polygon; holes: Polygon[] }
+export interface Region {
+  outer: Polygon;
+  holes: Polygon[];
+}
 
 function toInt(polys: Polygon[]): ClipperLib.Paths {
   return polys.map((p) => {
@@ -86,7 +89,10 @@ export function polygonAreaAbs(p: Polygon): number {
   let a = 0;
   for (let i = 0; i < p.length; i += 2) {
     const j = (i + 2) % p.length;
-    const xi = p[i]!, yi = p[i + 1]!, xj = p[j]!, yj = p[j + 1]!; // i, j < p.length, pairs of (x, y)
+    const xi = p[i]!,
+      yi = p[i + 1]!,
+      xj = p[j]!,
+      yj = p[j + 1]!; // i, j < p.length, pairs of (x, y)
     a += xi * yj - xj * yi;
   }
   return Math.abs(a / 2);
@@ -100,13 +106,22 @@ export const regionsArea = (rs: Region[]): number => rs.reduce((s, r) => s + reg
 
 /** Squared distance from (x, y) to the segment a–b (to the nearer end beyond either end). */
 function segmentDist2(ax: number, ay: number, bx: number, by: number, x: number, y: number): number {
-  let dx = bx - ax, dy = by - ay;
-  let px = ax, py = ay;
+  let dx = bx - ax,
+    dy = by - ay;
+  let px = ax,
+    py = ay;
   if (dx !== 0 || dy !== 0) {
     const t = ((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy);
-    if (t > 1) { px = bx; py = by; } else if (t > 0) { px += dx * t; py += dy * t; }
+    if (t > 1) {
+      px = bx;
+      py = by;
+    } else if (t > 0) {
+      px += dx * t;
+      py += dy * t;
+    }
   }
-  dx = x - px; dy = y - py;
+  dx = x - px;
+  dy = y - py;
   return dx * dx + dy * dy;
 }
 
@@ -117,7 +132,10 @@ function signedDistance(x: number, y: number, polys: Polygon[]): number {
   for (const p of polys) {
     const n = p.length;
     for (let i = 0, j = n - 2; i < n; j = i, i += 2) {
-      const ax = p[i]!, ay = p[i + 1]!, bx = p[j]!, by = p[j + 1]!; // i, j < n, pairs of (x, y)
+      const ax = p[i]!,
+        ay = p[i + 1]!,
+        bx = p[j]!,
+        by = p[j + 1]!; // i, j < n, pairs of (x, y)
       if (ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax) inside = !inside;
       const d = segmentDist2(ax, ay, bx, by, x, y);
       if (d < best) best = d;
@@ -134,7 +152,12 @@ function edgeTable(polys: Polygon[]): Float64Array {
   let k = 0;
   for (const p of polys) {
     const m = p.length;
-    for (let i = 0, j = m - 2; i < m; j = i, i += 2) { e[k++] = p[i]!; e[k++] = p[i + 1]!; e[k++] = p[j]!; e[k++] = p[j + 1]!; }
+    for (let i = 0, j = m - 2; i < m; j = i, i += 2) {
+      e[k++] = p[i]!;
+      e[k++] = p[i + 1]!;
+      e[k++] = p[j]!;
+      e[k++] = p[j + 1]!;
+    }
   }
   return e;
 }
@@ -146,7 +169,10 @@ function edgeDist2(e: Float64Array, k: number, x: number, y: number): number {
 
 /** The crossing test of signedDistance's even-odd rule for edge k and the ray from (x, y) to the right. */
 function edgeCrosses(e: Float64Array, k: number, x: number, y: number): boolean {
-  const ax = e[k]!, ay = e[k + 1]!, bx = e[k + 2]!, by = e[k + 3]!; // k is an edge's first slot of four
+  const ax = e[k]!,
+    ay = e[k + 1]!,
+    bx = e[k + 2]!,
+    by = e[k + 3]!; // k is an edge's first slot of four
   return ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax;
 }
 
@@ -159,41 +185,78 @@ function edgeCrosses(e: Float64Array, k: number, x: number, y: number): boolean 
  * do not depend on the order edges are visited in.
  */
 interface EdgeIndex {
-  e: Float64Array; n: number;
-  x0: number; y0: number; cw: number; ch: number; gx: number; gy: number;
-  cellStart: Int32Array; cellEdges: Int32Array; rowStart: Int32Array; rowEdges: Int32Array;
-  stamp: Int32Array; query: number;
+  e: Float64Array;
+  n: number;
+  x0: number;
+  y0: number;
+  cw: number;
+  ch: number;
+  gx: number;
+  gy: number;
+  cellStart: Int32Array;
+  cellEdges: Int32Array;
+  rowStart: Int32Array;
+  rowEdges: Int32Array;
+  stamp: Int32Array;
+  query: number;
 }
 
 const INDEX_MIN_EDGES = 64;
 
 function buildEdgeIndex(e: Float64Array, minX: number, minY: number, maxX: number, maxY: number): EdgeIndex {
   const n = e.length >> 2;
-  const W = maxX - minX, H = maxY - minY;
+  const W = maxX - minX,
+    H = maxY - minY;
   const side = Math.sqrt((W * H) / Math.max(1, n / 2)) || Math.max(W, H);
-  const gx = Math.max(1, Math.min(256, Math.ceil(W / side))), gy = Math.max(1, Math.min(256, Math.ceil(H / side)));
-  const cw = W / gx || 1, ch = H / gy || 1;
-  const cx = (v: number) => { const i = Math.floor((v - minX) / cw); return i < 0 ? 0 : i >= gx ? gx - 1 : i; };
-  const cy = (v: number) => { const j = Math.floor((v - minY) / ch); return j < 0 ? 0 : j >= gy ? gy - 1 : j; };
-  const cellCount = new Int32Array(gx * gy + 1), rowCount = new Int32Array(gy + 1);
+  const gx = Math.max(1, Math.min(256, Math.ceil(W / side))),
+    gy = Math.max(1, Math.min(256, Math.ceil(H / side)));
+  const cw = W / gx || 1,
+    ch = H / gy || 1;
+  const cx = (v: number) => {
+    const i = Math.floor((v - minX) / cw);
+    return i < 0 ? 0 : i >= gx ? gx - 1 : i;
+  };
+  const cy = (v: number) => {
+    const j = Math.floor((v - minY) / ch);
+    return j < 0 ? 0 : j >= gy ? gy - 1 : j;
+  };
+  const cellCount = new Int32Array(gx * gy + 1),
+    rowCount = new Int32Array(gy + 1);
   const range = new Int32Array(n * 4);
   for (let q = 0; q < n; q++) {
     const k = q * 4;
-    const ax = e[k]!, ay = e[k + 1]!, bx = e[k + 2]!, by = e[k + 3]!; // q < n = e.length / 4
-    const i0 = cx(Math.min(ax, bx)), i1 = cx(Math.max(ax, bx));
-    const j0 = cy(Math.min(ay, by)), j1 = cy(Math.max(ay, by));
-    range[k] = i0; range[k + 1] = i1; range[k + 2] = j0; range[k + 3] = j1;
+    const ax = e[k]!,
+      ay = e[k + 1]!,
+      bx = e[k + 2]!,
+      by = e[k + 3]!; // q < n = e.length / 4
+    const i0 = cx(Math.min(ax, bx)),
+      i1 = cx(Math.max(ax, bx));
+    const j0 = cy(Math.min(ay, by)),
+      j1 = cy(Math.max(ay, by));
+    range[k] = i0;
+    range[k + 1] = i1;
+    range[k + 2] = j0;
+    range[k + 3] = j1;
     // cx/cy clamp to [0, gx) and [0, gy): the counters have gx·gy + 1 and gy + 1 slots
-    for (let j = j0; j <= j1; j++) { rowCount[j + 1]!++; for (let i = i0; i <= i1; i++) cellCount[j * gx + i + 1]!++; }
+    for (let j = j0; j <= j1; j++) {
+      rowCount[j + 1]!++;
+      for (let i = i0; i <= i1; i++) cellCount[j * gx + i + 1]!++;
+    }
   }
   for (let c = 0; c < gx * gy; c++) cellCount[c + 1]! += cellCount[c]!;
   for (let r = 0; r < gy; r++) rowCount[r + 1]! += rowCount[r]!;
-  const cellStart = cellCount.slice(), rowStart = rowCount.slice();
-  const cellEdges = new Int32Array(cellCount[gx * gy]!), rowEdges = new Int32Array(rowCount[gy]!);
-  const cfill = cellStart.slice(0, gx * gy), rfill = rowStart.slice(0, gy);
+  const cellStart = cellCount.slice(),
+    rowStart = rowCount.slice();
+  const cellEdges = new Int32Array(cellCount[gx * gy]!),
+    rowEdges = new Int32Array(rowCount[gy]!);
+  const cfill = cellStart.slice(0, gx * gy),
+    rfill = rowStart.slice(0, gy);
   for (let q = 0; q < n; q++) {
     const k = q * 4;
-    const i0 = range[k]!, i1 = range[k + 1]!, j0 = range[k + 2]!, j1 = range[k + 3]!; // written in the loop above
+    const i0 = range[k]!,
+      i1 = range[k + 1]!,
+      j0 = range[k + 2]!,
+      j1 = range[k + 3]!; // written in the loop above
     for (let j = j0; j <= j1; j++) {
       rowEdges[rfill[j]!++] = k;
       for (let i = i0; i <= i1; i++) cellEdges[cfill[j * gx + i]!++] = k;
@@ -204,7 +267,8 @@ function buildEdgeIndex(e: Float64Array, minX: number, minY: number, maxX: numbe
 
 function signedDistanceIndexed(x: number, y: number, ix: EdgeIndex): number {
   const { e, gx, gy, cellStart, cellEdges, stamp } = ix;
-  let qi = Math.floor((x - ix.x0) / ix.cw), qj = Math.floor((y - ix.y0) / ix.ch);
+  let qi = Math.floor((x - ix.x0) / ix.cw),
+    qj = Math.floor((y - ix.y0) / ix.ch);
   qi = qi < 0 ? 0 : qi >= gx ? gx - 1 : qi;
   qj = qj < 0 ? 0 : qj >= gy ? gy - 1 : qj;
   let inside = false;
@@ -220,7 +284,10 @@ function signedDistanceIndexed(x: number, y: number, ix: EdgeIndex): number {
       const bound = (k - 1) * step - 1e-7;
       if (bound > 0 && bound * bound > best) break;
     }
-    const j0 = Math.max(0, qj - k), j1 = Math.min(gy - 1, qj + k), i0 = Math.max(0, qi - k), i1 = Math.min(gx - 1, qi + k);
+    const j0 = Math.max(0, qj - k),
+      j1 = Math.min(gy - 1, qj + k),
+      i0 = Math.max(0, qi - k),
+      i1 = Math.min(gx - 1, qi + k);
     for (let j = j0; j <= j1; j++) {
       const onEdgeRow = j === qj - k || j === qj + k;
       for (let i = i0; i <= i1; i++) {
@@ -253,7 +320,15 @@ function signedDistanceEdges(x: number, y: number, e: Float64Array): number {
   return (inside ? 1 : -1) * Math.sqrt(best);
 }
 
-interface Cell { x: number; y: number; h: number; d: number; max: number; pos: number; hi: number }
+interface Cell {
+  x: number;
+  y: number;
+  h: number;
+  d: number;
+  max: number;
+  pos: number;
+  hi: number;
+}
 
 /**
  * The cell queue of the inscribed-circle search. It hands out cells in exactly the order a plain
@@ -265,29 +340,43 @@ interface Cell { x: number; y: number; h: number; d: number; max: number; pos: n
 class CellQueue {
   private readonly arr: Cell[] = [];
   private readonly heap: Cell[] = [];
-  get length(): number { return this.arr.length; }
-  private before(a: Cell, b: Cell): boolean { return a.max > b.max || (a.max === b.max && a.pos < b.pos); }
+  get length(): number {
+    return this.arr.length;
+  }
+  private before(a: Cell, b: Cell): boolean {
+    return a.max > b.max || (a.max === b.max && a.pos < b.pos);
+  }
   // up/down are called with an index of a cell in the heap, and only visit parents/children below heap.length
   private up(i: number): void {
-    const h = this.heap, c = h[i]!;
+    const h = this.heap,
+      c = h[i]!;
     while (i > 0) {
-      const pi = (i - 1) >> 1, p = h[pi]!;
+      const pi = (i - 1) >> 1,
+        p = h[pi]!;
       if (!this.before(c, p)) break;
-      h[i] = p; p.hi = i; i = pi;
+      h[i] = p;
+      p.hi = i;
+      i = pi;
     }
-    h[i] = c; c.hi = i;
+    h[i] = c;
+    c.hi = i;
   }
   private down(i: number): void {
-    const h = this.heap, n = h.length, c = h[i]!;
+    const h = this.heap,
+      n = h.length,
+      c = h[i]!;
     for (;;) {
       let k = 2 * i + 1;
       if (k >= n) break;
       if (k + 1 < n && this.before(h[k + 1]!, h[k]!)) k++;
       const child = h[k]!;
       if (!this.before(child, c)) break;
-      h[i] = child; child.hi = i; i = k;
+      h[i] = child;
+      child.hi = i;
+      i = k;
     }
-    h[i] = c; c.hi = i;
+    h[i] = c;
+    c.hi = i;
   }
   push(c: Cell): void {
     c.pos = this.arr.length;
@@ -298,11 +387,17 @@ class CellQueue {
   }
   /** Removes and returns the most promising cell. */
   pop(): Cell {
-    const h = this.heap, top = h[0];
+    const h = this.heap,
+      top = h[0];
     if (!top) throw new Error('CellQueue.pop() on an empty queue');
     const tail = h.pop()!;
-    if (tail !== top) { h[0] = tail; tail.hi = 0; this.down(0); }
-    const arr = this.arr, last = arr.pop()!;
+    if (tail !== top) {
+      h[0] = tail;
+      tail.hi = 0;
+      this.down(0);
+    }
+    const arr = this.arr,
+      last = arr.pop()!;
     if (last !== top) {
       // swap-remove: the array's last cell takes the popped cell's slot (a lower position ranks earlier among ties)
       arr[top.pos] = last;
@@ -311,7 +406,9 @@ class CellQueue {
     }
     return top;
   }
-  cells(): readonly Cell[] { return this.arr; }
+  cells(): readonly Cell[] {
+    return this.arr;
+  }
 }
 
 /**
@@ -319,12 +416,19 @@ class CellQueue {
  * quadtree "pole of inaccessibility" search (as in Mapbox's polylabel) to `precisionMm`.
  */
 export function inscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of polys) for (let i = 0; i < p.length; i += 2) {
-    const x = p[i]!, y = p[i + 1]!; // i < p.length, pairs of (x, y)
-    if (x < minX) minX = x; if (x > maxX) maxX = x;
-    if (y < minY) minY = y; if (y > maxY) maxY = y;
-  }
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
+  for (const p of polys)
+    for (let i = 0; i < p.length; i += 2) {
+      const x = p[i]!,
+        y = p[i + 1]!; // i < p.length, pairs of (x, y)
+      if (x < minX) minX = x;
+      if (x > maxX) maxX = x;
+      if (y < minY) minY = y;
+      if (y > maxY) maxY = y;
+    }
   if (minX === Infinity) return 0;
   const size = Math.min(maxX - minX, maxY - minY);
   if (size <= 0) return 0;
@@ -345,8 +449,10 @@ export function inscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
     if (c.d > best.d) best = c;
     if (c.max - best.d <= precisionMm / 2) continue;
     const h = c.h / 2;
-    queue.push(cell(c.x - h, c.y - h, h)); queue.push(cell(c.x + h, c.y - h, h));
-    queue.push(cell(c.x - h, c.y + h, h)); queue.push(cell(c.x + h, c.y + h, h));
+    queue.push(cell(c.x - h, c.y - h, h));
+    queue.push(cell(c.x + h, c.y - h, h));
+    queue.push(cell(c.x - h, c.y + h, h));
+    queue.push(cell(c.x + h, c.y + h, h));
   }
   return Math.max(0, 2 * best.d);
 }

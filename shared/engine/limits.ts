@@ -71,7 +71,10 @@ export const MAX_WORKSHEET_PAGES = 400;
 
 /** A bound was crossed. `limit` names it (as above); the message says what it is. */
 export class LimitError extends Error {
-  constructor(public readonly limit: string, message: string) {
+  constructor(
+    public readonly limit: string,
+    message: string,
+  ) {
     super(message);
     this.name = 'LimitError';
   }

@@ -7,12 +7,13 @@
  * Looking up materials and motifs is the caller's: the server's lookups throw with field messages
  * when a colour or motif is gone; the client's return undefined and the piece is left out.
  */
-import type { ComposeInput, FieldDef, MaterialKind } from './compose.ts';
-import { defaultBlank, type Blank } from './blanks.ts';
-import type { StoredMotifGeometry } from './motif.ts';
-import { MATERIAL_KINDS } from './press-defaults.ts';
+
 // type-only: shared/schemas imports the engine at run time, not the other way round
 import type { Choices, ListingContent } from '../schemas/listing.ts';
+import { type Blank, defaultBlank } from './blanks.ts';
+import type { ComposeInput, FieldDef, MaterialKind } from './compose.ts';
+import type { StoredMotifGeometry } from './motif.ts';
+import { MATERIAL_KINDS } from './press-defaults.ts';
 
 /** A blank's kind and the print area on it (a listing's blank; a line snapshot's with its top offset). */
 export type DesignBlank = { kind: string; label: string; widthMm: number; heightMm: number; topOffsetMm: number };
@@ -72,7 +73,10 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
       if (l.mode === 'shopper') summary.push({ label: `${motifChoice.label}: ${l.layerId}`, value: m.colourName });
     }
     fields.push({
-      kind: 'motif', id: 'motif', heightMm: Math.min(content.blank.heightMm * 0.55, 120), materialKind: 'smooth',
+      kind: 'motif',
+      id: 'motif',
+      heightMm: Math.min(content.blank.heightMm * 0.55, 120),
+      materialKind: 'smooth',
       options: [{ id: motif.id, geometry: motif.geometry, layers }],
     });
     engineChoices.motif = { motifId: motif.id };
@@ -87,8 +91,14 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
     if (!m) continue;
     const letterHeightMm = c?.letterHeightMm ?? f.defaultLetterHeightMm;
     fields.push({
-      kind: 'text', id: f.id, fontId: c?.fontId ?? f.defaultFontId, letterHeightMm, maxLetterHeightMm: f.defaultLetterHeightMm * 2, maxChars: f.maxLength,
-      materialKind: asMaterialKind(m.kind), colour: m.colourHex,
+      kind: 'text',
+      id: f.id,
+      fontId: c?.fontId ?? f.defaultFontId,
+      letterHeightMm,
+      maxLetterHeightMm: f.defaultLetterHeightMm * 2,
+      maxChars: f.maxLength,
+      materialKind: asMaterialKind(m.kind),
+      colour: m.colourHex,
       ...(outlineMat && p.outline ? { outline: { offsetMm: p.outline.offsetMm, materialKind: asMaterialKind(outlineMat.kind), colour: outlineMat.colourHex } } : {}),
     });
     engineChoices[f.id] = { text, letterHeightMm };

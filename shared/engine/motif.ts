@@ -10,14 +10,13 @@
  *
  * Units: W3C CSS Values and Units, absolute lengths — 1in = 96px = 25.4mm. A bare number is px.
  */
-import svgpath from 'svgpath';
+
 import { XMLParser, XMLValidator } from 'fast-xml-parser';
+import svgpath from 'svgpath';
 import { cssLengthToMm, MM_PER_CSS_PX } from '../units.ts';
-import { checkPathBounds, flattenPath, fromSvgPath, pathBBox, polygonsToPath, formatPath, parsePathData, type BBox, type Path, type Polygon } from './path.ts';
-import { unionRegions, regionsToPolygons, regionsArea, type FillRule } from './geometry.ts';
-import {
-  LimitError, MOTIF_MAX_BYTES, MOTIF_MAX_DEPTH, MOTIF_MAX_ELEMENTS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_CHARS, MOTIF_MAX_PATH_COMMANDS, MOTIF_MAX_SIDE_MM,
-} from './limits.ts';
+import { type FillRule, regionsArea, regionsToPolygons, unionRegions } from './geometry.ts';
+import { LimitError, MOTIF_MAX_BYTES, MOTIF_MAX_DEPTH, MOTIF_MAX_ELEMENTS, MOTIF_MAX_LAYERS, MOTIF_MAX_PATH_CHARS, MOTIF_MAX_PATH_COMMANDS, MOTIF_MAX_SIDE_MM } from './limits.ts';
+import { type BBox, checkPathBounds, flattenPath, formatPath, fromSvgPath, type Path, type Polygon, parsePathData, pathBBox, polygonsToPath } from './path.ts';
 
 /** The motif caps of limits.ts, by short name (a test may pass lower ones to parseMotifSvg). */
 export const MOTIF_LIMITS = Object.freeze({
@@ -29,14 +28,27 @@ export const MOTIF_LIMITS = Object.freeze({
 });
 
 export type MotifErrorCode =
-  | 'too_large' | 'too_many_elements' | 'too_deep' | 'doctype_refused' | 'malformed' | 'not_svg' | 'bad_size' | 'no_geometry'
-  | 'too_many_layers' | 'too_many_commands' | 'out_of_range' | 'too_complex';
+  | 'too_large'
+  | 'too_many_elements'
+  | 'too_deep'
+  | 'doctype_refused'
+  | 'malformed'
+  | 'not_svg'
+  | 'bad_size'
+  | 'no_geometry'
+  | 'too_many_layers'
+  | 'too_many_commands'
+  | 'out_of_range'
+  | 'too_complex';
 
 /** Codes for a file refused because it crosses one of the limits (not because it is broken). */
 export const MOTIF_LIMIT_CODES: ReadonlySet<MotifErrorCode> = new Set(['too_large', 'too_many_elements', 'too_deep', 'too_many_layers', 'too_many_commands', 'out_of_range', 'too_complex']);
 
 export class MotifError extends Error {
-  constructor(public readonly code: MotifErrorCode, message: string) {
+  constructor(
+    public readonly code: MotifErrorCode,
+    message: string,
+  ) {
     super(message);
     this.name = 'MotifError';
   }
@@ -84,13 +96,41 @@ const REASONS: Record<string, string> = {
 const TOLERANCE_MM = 0.01;
 
 type XNode = Record<string, unknown>;
-interface Ctx { transform: string; fill: string | null; fillRule: FillRule; layer: string | null; layerColour: string | null; depth: number }
-interface LayerAcc { id: string; colour: string | null; polys: Polygon[]; rule: FillRule[]; lines: Path[] }
+interface Ctx {
+  transform: string;
+  fill: string | null;
+  fillRule: FillRule;
+  layer: string | null;
+  layerColour: string | null;
+  depth: number;
+}
+interface LayerAcc {
+  id: string;
+  colour: string | null;
+  polys: Polygon[];
+  rule: FillRule[];
+  lines: Path[];
+}
 
 const NAMED: Record<string, string> = {
-  black: '#000000', white: '#ffffff', red: '#ff0000', green: '#008000', blue: '#0000ff', yellow: '#ffff00',
-  orange: '#ffa500', purple: '#800080', pink: '#ffc0cb', brown: '#a52a2a', grey: '#808080', gray: '#808080',
-  navy: '#000080', teal: '#008080', gold: '#ffd700', silver: '#c0c0c0', lime: '#00ff00', maroon: '#800000',
+  black: '#000000',
+  white: '#ffffff',
+  red: '#ff0000',
+  green: '#008000',
+  blue: '#0000ff',
+  yellow: '#ffff00',
+  orange: '#ffa500',
+  purple: '#800080',
+  pink: '#ffc0cb',
+  brown: '#a52a2a',
+  grey: '#808080',
+  gray: '#808080',
+  navy: '#000080',
+  teal: '#008080',
+  gold: '#ffd700',
+  silver: '#c0c0c0',
+  lime: '#00ff00',
+  maroon: '#800000',
 };
 
 /** A CSS colour → #rrggbb, or null for anything that is not a plain colour (url(), currentColor…). */
@@ -107,7 +147,11 @@ export function normaliseColour(v: string | null | undefined): string | null {
 const SAFE_ID = /^[A-Za-z][A-Za-z0-9_-]{0,63}$/;
 function safeId(raw: string | undefined, fallback: string): string {
   if (!raw) return fallback;
-  const t = raw.trim().replace(/[^A-Za-z0-9_-]+/g, '-').replace(/^[^A-Za-z]+/, '').slice(0, 64);
+  const t = raw
+    .trim()
+    .replace(/[^A-Za-z0-9_-]+/g, '-')
+    .replace(/^[^A-Za-z]+/, '')
+    .slice(0, 64);
   return SAFE_ID.test(t) ? t : fallback;
 }
 
@@ -134,9 +178,13 @@ function shapeToD(tag: string, a: Record<string, string>): string | null {
   const f = (n: number) => String(n);
   switch (tag) {
     case 'rect': {
-      const x = num(a.x), y = num(a.y), w = num(a.width), h = num(a.height);
+      const x = num(a.x),
+        y = num(a.y),
+        w = num(a.width),
+        h = num(a.height);
       if (!(w > 0 && h > 0)) return null;
-      let rx = a.rx !== undefined ? num(a.rx) : NaN, ry = a.ry !== undefined ? num(a.ry) : NaN;
+      let rx = a.rx !== undefined ? num(a.rx) : NaN,
+        ry = a.ry !== undefined ? num(a.ry) : NaN;
       if (Number.isNaN(rx)) rx = Number.isNaN(ry) ? 0 : ry;
       if (Number.isNaN(ry)) ry = rx;
       rx = Math.min(Math.max(0, rx), w / 2);
@@ -146,19 +194,28 @@ function shapeToD(tag: string, a: Record<string, string>): string | null {
     }
     case 'circle':
     case 'ellipse': {
-      const cx = num(a.cx), cy = num(a.cy);
-      const rx = tag === 'circle' ? num(a.r) : num(a.rx), ry = tag === 'circle' ? num(a.r) : num(a.ry);
+      const cx = num(a.cx),
+        cy = num(a.cy);
+      const rx = tag === 'circle' ? num(a.r) : num(a.rx),
+        ry = tag === 'circle' ? num(a.r) : num(a.ry);
       if (!(rx > 0 && ry > 0)) return null;
       return `M${f(cx - rx)} ${f(cy)}A${f(rx)} ${f(ry)} 0 1 0 ${f(cx + rx)} ${f(cy)}A${f(rx)} ${f(ry)} 0 1 0 ${f(cx - rx)} ${f(cy)}Z`;
     }
     case 'line': {
-      const x1 = num(a.x1), y1 = num(a.y1), x2 = num(a.x2), y2 = num(a.y2);
+      const x1 = num(a.x1),
+        y1 = num(a.y1),
+        x2 = num(a.x2),
+        y2 = num(a.y2);
       if ([x1, y1, x2, y2].some((n) => !Number.isFinite(n))) return null;
       return `M${f(x1)} ${f(y1)}L${f(x2)} ${f(y2)}`;
     }
     case 'polyline':
     case 'polygon': {
-      const pts = (a.points ?? '').trim().split(/[\s,]+/).filter(Boolean).map(Number);
+      const pts = (a.points ?? '')
+        .trim()
+        .split(/[\s,]+/)
+        .filter(Boolean)
+        .map(Number);
       if (pts.length < 4 || pts.some((n) => !Number.isFinite(n))) return null;
       let d = `M${f(pts[0]!)} ${f(pts[1]!)}`; // at least four numbers, checked above
       for (let i = 2; i + 1 < pts.length; i += 2) d += `L${f(pts[i]!)} ${f(pts[i + 1]!)}`;
@@ -191,7 +248,8 @@ function attrsOf(node: XNode): Record<string, string> {
  */
 function nestingDepth(svg: string, stopAbove: number): number {
   const text = svg.replace(/<!--[\s\S]*?-->|<!\[CDATA\[[\s\S]*?\]\]>|<\?[\s\S]*?\?>/g, '');
-  let depth = 0, max = 0;
+  let depth = 0,
+    max = 0;
   for (const m of text.matchAll(/<(\/?)[A-Za-z][^>]*?(\/?)>/g)) {
     if (m[1]) depth--;
     else if (!m[2]) {
@@ -254,14 +312,20 @@ function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
   const rootAttrs = attrsOf(rootNode);
 
   // ---- viewport: width/height (absolute CSS units, bare = px) and viewBox ----
-  const vb = (rootAttrs.viewBox ?? '').trim().split(/[\s,]+/).filter(Boolean).map(Number);
+  const vb = (rootAttrs.viewBox ?? '')
+    .trim()
+    .split(/[\s,]+/)
+    .filter(Boolean)
+    .map(Number);
   const [vbX = NaN, vbY = NaN, vbW = NaN, vbH = NaN] = vb;
   const hasVb = vb.length === 4 && vb.every(Number.isFinite) && vbW > 0 && vbH > 0;
   let wMm = cssLengthToMm(rootAttrs.width);
   let hMm = cssLengthToMm(rootAttrs.height);
   if (hasVb) {
-    if (wMm === null && hMm === null) { wMm = vbW * MM_PER_CSS_PX; hMm = vbH * MM_PER_CSS_PX; }
-    else if (wMm === null) wMm = (hMm! * vbW) / vbH;
+    if (wMm === null && hMm === null) {
+      wMm = vbW * MM_PER_CSS_PX;
+      hMm = vbH * MM_PER_CSS_PX;
+    } else if (wMm === null) wMm = (hMm! * vbW) / vbH;
     else if (hMm === null) hMm = (wMm * vbH) / vbW;
   }
   if (wMm === null || hMm === null || !(wMm > 0 && hMm > 0)) {
@@ -271,7 +335,10 @@ function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
     throw new MotifError('bad_size', `The motif's canvas is larger than the ${MOTIF_MAX_SIDE_MM} mm limit on each side.`);
   }
   // user units → mm (preserveAspectRatio: xMidYMid meet by default, or none)
-  let sx: number, sy: number, tx = 0, ty = 0;
+  let sx: number,
+    sy: number,
+    tx = 0,
+    ty = 0;
   if (hasVb) {
     sx = wMm / vbW;
     sy = hMm / vbH;
@@ -380,7 +447,11 @@ function parseMotif(svg: string, lim: typeof MOTIF_LIMITS): MotifGeometry {
     if (p.length === 0) continue;
     const d = formatPath(p);
     // what compose() will be handed later: refused now rather than stored and unusable
-    if (d.length > MOTIF_MAX_PATH_CHARS) throw new MotifError('too_complex', `The motif's layer "${acc.id}" is too detailed: its outline is longer than the ${MOTIF_MAX_PATH_CHARS.toLocaleString('en')}-character limit. Simplify the artwork.`);
+    if (d.length > MOTIF_MAX_PATH_CHARS)
+      throw new MotifError(
+        'too_complex',
+        `The motif's layer "${acc.id}" is too detailed: its outline is longer than the ${MOTIF_MAX_PATH_CHARS.toLocaleString('en')}-character limit. Simplify the artwork.`,
+      );
     out.push({ id: acc.id, colour: acc.colour, path: d, bboxMm: pathBBox(p), areaMm2: regionsArea(regions) });
   }
   if (out.length === 0) throw new MotifError('no_geometry', 'The motif has no filled shapes to cut.');

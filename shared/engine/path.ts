@@ -4,15 +4,22 @@
  * into cubics by svgpath's `unarc`). Pure functions, no I/O.
  */
 import svgpath from 'svgpath';
-import { LimitError, MAX_COORDINATE_MM, MAX_FLATTENED_POINTS, MAX_SEGMENTS_PER_CURVE, checkCoordinate } from './limits.ts';
+import { checkCoordinate, LimitError, MAX_COORDINATE_MM, MAX_FLATTENED_POINTS, MAX_SEGMENTS_PER_CURVE } from './limits.ts';
 
-export type Segment =
-  | { t: 'L'; x: number; y: number }
-  | { t: 'Q'; x1: number; y1: number; x: number; y: number }
-  | { t: 'C'; x1: number; y1: number; x2: number; y2: number; x: number; y: number };
-export interface SubPath { x0: number; y0: number; segs: Segment[]; closed: boolean }
+export type Segment = { t: 'L'; x: number; y: number } | { t: 'Q'; x1: number; y1: number; x: number; y: number } | { t: 'C'; x1: number; y1: number; x2: number; y2: number; x: number; y: number };
+export interface SubPath {
+  x0: number;
+  y0: number;
+  segs: Segment[];
+  closed: boolean;
+}
 export type Path = SubPath[];
-export interface BBox { minX: number; minY: number; maxX: number; maxY: number }
+export interface BBox {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+}
 /** A closed polygon as a flat [x0, y0, x1, y1, …] array, in mm. */
 export type Polygon = number[];
 
@@ -37,40 +44,62 @@ export function fromSvgPath(sp: ReturnType<typeof svgpath>): Path {
   let cy = 0;
   let sx = 0;
   let sy = 0;
-  sp.unarc().unshort().abs().iterate((s) => {
-    const c = s[0];
-    switch (c) {
-      case 'M':
-        cur = { x0: s[1], y0: s[2], segs: [], closed: false };
+  sp.unarc()
+    .unshort()
+    .abs()
+    .iterate((s) => {
+      const c = s[0];
+      switch (c) {
+        case 'M':
+          cur = { x0: s[1], y0: s[2], segs: [], closed: false };
+          out.push(cur);
+          cx = sx = s[1];
+          cy = sy = s[2];
+          return;
+        case 'Z':
+        case 'z':
+          if (cur) {
+            cur.closed = true;
+            cx = sx;
+            cy = sy;
+            cur = null;
+          }
+          return;
+      }
+      if (!cur) {
+        // Drawing after Z without M starts at the last subpath's start point (SVG rule).
+        cur = { x0: cx, y0: cy, segs: [], closed: false };
         out.push(cur);
-        cx = sx = s[1];
-        cy = sy = s[2];
-        return;
-      case 'Z':
-      case 'z':
-        if (cur) {
-          cur.closed = true;
-          cx = sx;
-          cy = sy;
-          cur = null;
-        }
-        return;
-    }
-    if (!cur) {
-      // Drawing after Z without M starts at the last subpath's start point (SVG rule).
-      cur = { x0: cx, y0: cy, segs: [], closed: false };
-      out.push(cur);
-    }
-    const segs = (cur as SubPath).segs;
-    switch (c) {
-      case 'L': segs.push({ t: 'L', x: s[1], y: s[2] }); cx = s[1]; cy = s[2]; break;
-      case 'H': segs.push({ t: 'L', x: s[1], y: cy }); cx = s[1]; break;
-      case 'V': segs.push({ t: 'L', x: cx, y: s[1] }); cy = s[1]; break;
-      case 'Q': segs.push({ t: 'Q', x1: s[1], y1: s[2], x: s[3], y: s[4] }); cx = s[3]; cy = s[4]; break;
-      case 'C': segs.push({ t: 'C', x1: s[1], y1: s[2], x2: s[3], y2: s[4], x: s[5], y: s[6] }); cx = s[5]; cy = s[6]; break;
-      default: break; // after abs/unshort/unarc nothing else remains
-    }
-  });
+      }
+      const segs = (cur as SubPath).segs;
+      switch (c) {
+        case 'L':
+          segs.push({ t: 'L', x: s[1], y: s[2] });
+          cx = s[1];
+          cy = s[2];
+          break;
+        case 'H':
+          segs.push({ t: 'L', x: s[1], y: cy });
+          cx = s[1];
+          break;
+        case 'V':
+          segs.push({ t: 'L', x: cx, y: s[1] });
+          cy = s[1];
+          break;
+        case 'Q':
+          segs.push({ t: 'Q', x1: s[1], y1: s[2], x: s[3], y: s[4] });
+          cx = s[3];
+          cy = s[4];
+          break;
+        case 'C':
+          segs.push({ t: 'C', x1: s[1], y1: s[2], x2: s[3], y2: s[4], x: s[5], y: s[6] });
+          cx = s[5];
+          cy = s[6];
+          break;
+        default:
+          break; // after abs/unshort/unarc nothing else remains
+      }
+    });
   return out;
 }
 
@@ -176,17 +205,35 @@ function cubicExtrema(p0: number, p1: number, p2: number, p3: number, acc: (v: n
 
 /** The tight bounding box of a path (curve extrema, not control points). Empty path → zero box. */
 export function pathBBox(path: Path): BBox {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  const ax = (v: number) => { if (v < minX) minX = v; if (v > maxX) maxX = v; };
-  const ay = (v: number) => { if (v < minY) minY = v; if (v > maxY) maxY = v; };
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
+  const ax = (v: number) => {
+    if (v < minX) minX = v;
+    if (v > maxX) maxX = v;
+  };
+  const ay = (v: number) => {
+    if (v < minY) minY = v;
+    if (v > maxY) maxY = v;
+  };
   for (const sp of path) {
-    let px = sp.x0, py = sp.y0;
-    ax(px); ay(py);
+    let px = sp.x0,
+      py = sp.y0;
+    ax(px);
+    ay(py);
     for (const s of sp.segs) {
-      if (s.t === 'Q') { quadExtrema(px, s.x1, s.x, ax); quadExtrema(py, s.y1, s.y, ay); }
-      else if (s.t === 'C') { cubicExtrema(px, s.x1, s.x2, s.x, ax); cubicExtrema(py, s.y1, s.y2, s.y, ay); }
-      ax(s.x); ay(s.y);
-      px = s.x; py = s.y;
+      if (s.t === 'Q') {
+        quadExtrema(px, s.x1, s.x, ax);
+        quadExtrema(py, s.y1, s.y, ay);
+      } else if (s.t === 'C') {
+        cubicExtrema(px, s.x1, s.x2, s.x, ax);
+        cubicExtrema(py, s.y1, s.y2, s.y, ay);
+      }
+      ax(s.x);
+      ay(s.y);
+      px = s.x;
+      py = s.y;
     }
   }
   if (minX === Infinity) return { ...EMPTY_BBOX };
@@ -231,8 +278,14 @@ function segArea(px: number, py: number, s: Segment): number {
 /** Signed area of each subpath (closed implicitly, as fill does). Positive = clockwise on screen (y down). */
 export function subpathAreas(path: Path): number[] {
   return path.map((sp) => {
-    let a = 0, px = sp.x0, py = sp.y0;
-    for (const s of sp.segs) { a += segArea(px, py, s); px = s.x; py = s.y; }
+    let a = 0,
+      px = sp.x0,
+      py = sp.y0;
+    for (const s of sp.segs) {
+      a += segArea(px, py, s);
+      px = s.x;
+      py = s.y;
+    }
     a += (px * sp.y0 - sp.x0 * py) / 2; // closing line
     return a;
   });
@@ -287,7 +340,8 @@ export function flattenPath(path: Path, tolMm = 0.01): Polygon[] {
   };
   for (const sp of path) {
     const pts: number[] = [sp.x0, sp.y0];
-    let px = sp.x0, py = sp.y0;
+    let px = sp.x0,
+      py = sp.y0;
     spend(1);
     for (const s of sp.segs) {
       if (s.t === 'L') {
@@ -298,14 +352,12 @@ export function flattenPath(path: Path, tolMm = 0.01): Polygon[] {
         const n = chords(0.25, m);
         spend(n);
         for (let i = 1; i <= n; i++) {
-          const t = i / n, u = 1 - t;
+          const t = i / n,
+            u = 1 - t;
           pts.push(u * u * px + 2 * u * t * s.x1 + t * t * s.x, u * u * py + 2 * u * t * s.y1 + t * t * s.y);
         }
       } else {
-        const m = Math.max(
-          Math.hypot(px - 2 * s.x1 + s.x2, py - 2 * s.y1 + s.y2),
-          Math.hypot(s.x1 - 2 * s.x2 + s.x, s.y1 - 2 * s.y2 + s.y),
-        );
+        const m = Math.max(Math.hypot(px - 2 * s.x1 + s.x2, py - 2 * s.y1 + s.y2), Math.hypot(s.x1 - 2 * s.x2 + s.x, s.y1 - 2 * s.y2 + s.y));
         const n = chords(0.75, m);
         spend(n);
         for (let i = 1; i <= n; i++) {
@@ -313,7 +365,8 @@ export function flattenPath(path: Path, tolMm = 0.01): Polygon[] {
           pts.push(cubicAt(px, s.x1, s.x2, s.x, t), cubicAt(py, s.y1, s.y2, s.y, t));
         }
       }
-      px = s.x; py = s.y;
+      px = s.x;
+      py = s.y;
     }
     if (pts.length >= 6) polys.push(pts);
   }
@@ -338,7 +391,10 @@ export function polygonArea(p: Polygon): number {
   const n = p.length;
   for (let i = 0; i < n; i += 2) {
     const j = (i + 2) % n;
-    const xi = p[i]!, yi = p[i + 1]!, xj = p[j]!, yj = p[j + 1]!; // i, j < n, pairs of (x, y)
+    const xi = p[i]!,
+      yi = p[i + 1]!,
+      xj = p[j]!,
+      yj = p[j + 1]!; // i, j < n, pairs of (x, y)
     a += xi * yj - xj * yi;
   }
   return a / 2;

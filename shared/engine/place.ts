@@ -10,13 +10,14 @@
  * area every field is scaled down together until it fits. Pieces come in press order, bottom → top:
  * motif layers, then names (an outline backing travels with its name, see `outline`).
  */
-import type { FontRegistry } from './fonts.ts';
+
+import type { Blank } from './blanks.ts';
 import { usableArea } from './blanks.ts';
 import { fitText, type TextWarning } from './fit.ts';
-import { LayoutError } from './text-layout.ts';
+import type { FontRegistry } from './fonts.ts';
 import type { StoredMotifGeometry } from './motif.ts';
-import { unionBBox, type BBox } from './path.ts';
-import type { Blank } from './blanks.ts';
+import { type BBox, unionBBox } from './path.ts';
+import { LayoutError } from './text-layout.ts';
 
 export type MaterialKind = 'smooth' | 'glitter' | 'flock' | 'metallic' | 'patterned';
 export type PieceRole = 'text' | 'outline' | 'motif';
@@ -73,10 +74,15 @@ export interface ComposeInput {
   gapMm?: number;
 }
 
-export interface ComposeWarning extends TextWarning { fieldId: string }
+export interface ComposeWarning extends TextWarning {
+  fieldId: string;
+}
 
 export class ComposeError extends Error {
-  constructor(public readonly fieldId: string, message: string) {
+  constructor(
+    public readonly fieldId: string,
+    message: string,
+  ) {
     super(message);
     this.name = 'ComposeError';
   }
@@ -167,10 +173,19 @@ export function placeDesign(registry: FontRegistry, input: ComposeInput): Placem
           h: L.heightMm + grow,
           place(x, y) {
             const matrix: Matrix = [1, 0, 0, 1, x + pad - L.bboxMm.minX, y + pad - L.bboxMm.minY];
-            return [{
-              layerId: f.id, fieldId: f.id, role: 'text', materialKind: f.materialKind, colour: colours.get(f.id) ?? f.colour, d: L.path, matrix, bboxMm: boxAt(L.bboxMm, matrix),
-              ...(f.outline ? { outline: { offsetMm: f.outline.offsetMm, materialKind: f.outline.materialKind, colour: colours.get(`${f.id}:outline`) ?? f.outline.colour } } : {}),
-            }];
+            return [
+              {
+                layerId: f.id,
+                fieldId: f.id,
+                role: 'text',
+                materialKind: f.materialKind,
+                colour: colours.get(f.id) ?? f.colour,
+                d: L.path,
+                matrix,
+                bboxMm: boxAt(L.bboxMm, matrix),
+                ...(f.outline ? { outline: { offsetMm: f.outline.offsetMm, materialKind: f.outline.materialKind, colour: colours.get(`${f.id}:outline`) ?? f.outline.colour } } : {}),
+              },
+            ];
           },
         };
       }
@@ -180,7 +195,8 @@ export function placeDesign(registry: FontRegistry, input: ComposeInput): Placem
       let ink: BBox | null = null;
       for (const l of opt.geometry.layers) ink = unionBBox(ink, l.bboxMm);
       const bb = ink!;
-      const iw = bb.maxX - bb.minX, ih = bb.maxY - bb.minY;
+      const iw = bb.maxX - bb.minX,
+        ih = bb.maxY - bb.minY;
       const m = Math.min(f.heightMm / ih, area.widthMm / iw, (area.heightMm - stackGaps) / ih) * k;
       return {
         w: iw * m,
@@ -190,10 +206,15 @@ export function placeDesign(registry: FontRegistry, input: ComposeInput): Placem
           return opt.geometry.layers.map((l) => {
             const spec = opt.layers?.[l.id];
             return {
-              layerId: `${f.id}:${l.id}`, fieldId: f.id, role: 'motif' as const,
+              layerId: `${f.id}:${l.id}`,
+              fieldId: f.id,
+              role: 'motif' as const,
               materialKind: spec?.materialKind ?? f.materialKind,
               colour: colours.get(`${f.id}:${l.id}`) ?? spec?.colour ?? l.colour ?? '#000000',
-              d: l.path, matrix, bboxMm: boxAt(l.bboxMm, matrix), areaMm2: l.areaMm2 * m * m,
+              d: l.path,
+              matrix,
+              bboxMm: boxAt(l.bboxMm, matrix),
+              areaMm2: l.areaMm2 * m * m,
             };
           });
         },
@@ -216,7 +237,10 @@ export function placeDesign(registry: FontRegistry, input: ComposeInput): Placem
     y += b.h + gap;
   }
   const rank = { motif: 1, text: 2 } as const;
-  const pieces = placed.map((p, i) => ({ p, i })).sort((a, b) => rank[a.p.role] - rank[b.p.role] || a.i - b.i).map((x) => x.p);
+  const pieces = placed
+    .map((p, i) => ({ p, i }))
+    .sort((a, b) => rank[a.p.role] - rank[b.p.role] || a.i - b.i)
+    .map((x) => x.p);
   let bbox: BBox | null = null;
   for (const p of pieces) {
     const o = p.outline?.offsetMm ?? 0;

@@ -11,10 +11,7 @@
  */
 import { z } from 'zod';
 import { cToF, formatLength, formatTemperature } from '../units.ts';
-import {
-  BACK_PRESS_S, MATERIAL_KINDS, MAX_LAYERS, PRE_PRESS_S, PRESS_DEFAULTS,
-  type MaterialKind, type Peel, type PressProfile,
-} from './press-defaults.ts';
+import { BACK_PRESS_S, MATERIAL_KINDS, MAX_LAYERS, type MaterialKind, type Peel, PRE_PRESS_S, PRESS_DEFAULTS, type PressProfile } from './press-defaults.ts';
 
 export const PRESS_TYPES = ['handheld', 'clamshell'] as const;
 export type PressType = (typeof PRESS_TYPES)[number];
@@ -31,7 +28,8 @@ export const layerProfileSchema = z.object({
    * The temperatures this material accepts, if its maker gives a range. The defaults table gives
    * one temperature per press type, so without a range a layer accepts exactly that temperature.
    */
-  tempRangeC: z.object({ minC: z.number().min(100).max(220), maxC: z.number().min(100).max(220) })
+  tempRangeC: z
+    .object({ minC: z.number().min(100).max(220), maxC: z.number().min(100).max(220) })
     .refine((r) => r.minC <= r.maxC, 'The lowest temperature must not exceed the highest.')
     .optional(),
 });
@@ -40,12 +38,17 @@ export type LayerProfile = z.infer<typeof layerProfileSchema>;
 export const pressCardInputSchema = z.object({
   pressType: z.enum(PRESS_TYPES),
   /** Bottom → top. */
-  layers: z.array(z.object({
-    layerId: z.string().min(1).max(128),
-    materialKind: z.enum(MATERIAL_KINDS),
-    colourName: z.string().trim().min(1).max(40),
-    profile: layerProfileSchema.optional(),
-  })).min(1, 'An item needs at least one layer.').max(12),
+  layers: z
+    .array(
+      z.object({
+        layerId: z.string().min(1).max(128),
+        materialKind: z.enum(MATERIAL_KINDS),
+        colourName: z.string().trim().min(1).max(40),
+        profile: layerProfileSchema.optional(),
+      }),
+    )
+    .min(1, 'An item needs at least one layer.')
+    .max(12),
   blank: z.object({
     kind: z.string().min(1).max(40),
     name: z.string().max(80).optional(),
@@ -75,7 +78,11 @@ export interface PressStep {
 }
 
 export type PressWarningCode = 'temperatures_do_not_overlap' | 'top_only_not_last' | 'too_many_layers';
-export interface PressWarning { code: PressWarningCode; message: string; layerIds?: string[] }
+export interface PressWarning {
+  code: PressWarningCode;
+  message: string;
+  layerIds?: string[];
+}
 
 export interface ResolvedLayer {
   layerId: string;
@@ -192,7 +199,11 @@ export function pressCard(input: PressCardInput, table: Readonly<Record<Material
       steps.push({
         kind: 'tack',
         text: `Tack ${layerName(l)} for ${l.tackS} s at ${t}${bareVinyl ? ' under a protective sheet' : ''}; peel its carrier ${l.peel}.`,
-        layerId: l.layerId, ...temp, timeS: l.tackS, protectiveSheet: bareVinyl, peel: l.peel,
+        layerId: l.layerId,
+        ...temp,
+        timeS: l.tackS,
+        protectiveSheet: bareVinyl,
+        peel: l.peel,
       });
       bareVinyl = true;
     }
@@ -201,25 +212,39 @@ export function pressCard(input: PressCardInput, table: Readonly<Record<Material
   steps.push({
     kind: 'final_press',
     text: `Final press at ${t} for ${finalTimeS} s${bareVinyl ? ' under a protective sheet' : ''}; peel ${top.peel}. If the vinyl lifts, let it cool and peel again — more heat is not the fix.`,
-    layerId: top.layerId, ...temp, timeS: finalTimeS, protectiveSheet: bareVinyl, peel: top.peel,
+    layerId: top.layerId,
+    ...temp,
+    timeS: finalTimeS,
+    protectiveSheet: bareVinyl,
+    peel: top.peel,
   });
   if (inp.backPress) {
     steps.push({
       kind: 'back_press',
       text: `Turn the item over and press from the back at ${t} for about ${BACK_PRESS_S} s, under a protective sheet.`,
-      ...temp, timeS: BACK_PRESS_S, protectiveSheet: true,
+      ...temp,
+      timeS: BACK_PRESS_S,
+      protectiveSheet: true,
     });
   }
 
   const kinds = new Set(layers.map((l) => l.materialKind));
   const notes = [
     kinds.has('smooth') ? 'Smooth PU settings: common practice (no published source).' : '',
-    [...kinds].some((k) => k !== 'smooth') ? 'Other materials: defaults from memory; follow the maker\'s instructions where they differ.' : '',
-    inp.layers.some((l) => l.profile) ? 'Some settings come from the shop\'s own press profiles.' : '',
+    [...kinds].some((k) => k !== 'smooth') ? "Other materials: defaults from memory; follow the maker's instructions where they differ." : '',
+    inp.layers.some((l) => l.profile) ? "Some settings come from the shop's own press profiles." : '',
   ].filter(Boolean);
 
   return {
-    pressType: inp.pressType, ...temp, tempLabel: t, finalTimeS, peel: top.peel,
-    layers, steps, warnings, placementNote: placementNote(inp.blank), notes,
+    pressType: inp.pressType,
+    ...temp,
+    tempLabel: t,
+    finalTimeS,
+    peel: top.peel,
+    layers,
+    steps,
+    warnings,
+    placementNote: placementNote(inp.blank),
+    notes,
   };
 }

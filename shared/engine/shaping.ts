@@ -32,8 +32,17 @@ import type { Font as FkFont } from 'fontkit';
 /* eslint-disable @typescript-eslint/no-explicit-any -- fontkit's internals are untyped */
 type Any = any;
 
-interface Coverage { version: number; glyphs?: number[]; rangeRecords?: { start: number; end: number; startCoverageIndex: number }[] }
-interface ClassDef { version: number; startGlyph?: number; classValueArray?: number[]; classRangeRecord?: { start: number; end: number; class: number }[] }
+interface Coverage {
+  version: number;
+  glyphs?: number[];
+  rangeRecords?: { start: number; end: number; startCoverageIndex: number }[];
+}
+interface ClassDef {
+  version: number;
+  startGlyph?: number;
+  classValueArray?: number[];
+  classRangeRecord?: { start: number; end: number; class: number }[];
+}
 
 const coverageMaps = new WeakMap<object, Int32Array>();
 const classMaps = new WeakMap<object, Uint16Array | Int32Array>();
@@ -64,12 +73,16 @@ function coverageMap(cov: Coverage): Int32Array {
 function classMap(cd: ClassDef): Uint16Array | Int32Array {
   let m = classMaps.get(cd);
   if (m) return m;
-  let max = -1, maxClass = 0;
+  let max = -1,
+    maxClass = 0;
   if (cd.version === 1) {
     max = cd.startGlyph! + cd.classValueArray!.length - 1;
     for (const c of cd.classValueArray!) maxClass = Math.max(maxClass, c);
   } else if (cd.version === 2) {
-    for (const r of cd.classRangeRecord!) { max = Math.max(max, r.end); maxClass = Math.max(maxClass, r.class); }
+    for (const r of cd.classRangeRecord!) {
+      max = Math.max(max, r.end);
+      maxClass = Math.max(maxClass, r.class);
+    }
   }
   m = maxClass <= 0xffff ? new Uint16Array(Math.max(0, max + 1)) : new Int32Array(Math.max(0, max + 1));
   if (cd.version === 1) {
@@ -128,7 +141,7 @@ function firstCoverage(kind: 'GSUB' | 'GPOS', type: number, t: Any): Coverage | 
     if (t.version === 3) return t.inputCoverage?.length ? t.inputCoverage[0] : null;
     return null;
   }
-  if (kind === 'GSUB') return type >= 1 && type <= 4 ? t.coverage ?? null : null;
+  if (kind === 'GSUB') return type >= 1 && type <= 4 ? (t.coverage ?? null) : null;
   if (type === 1 || type === 2 || type === 3) return t.coverage ?? null;
   if (type === 4 || type === 5) return t.markCoverage ?? null;
   if (type === 6) return t.mark1Coverage ?? null;
@@ -144,7 +157,10 @@ function lookupMask(kind: 'GSUB' | 'GPOS', lookup: Any): Uint8Array | null {
   let ok = true;
   for (const t of lookup.subTables) {
     const cov = firstCoverage(kind, lookup.lookupType, t);
-    if (!cov || (cov.version !== 1 && cov.version !== 2)) { ok = false; break; }
+    if (!cov || (cov.version !== 1 && cov.version !== 2)) {
+      ok = false;
+      break;
+    }
     maps.push(coverageMap(cov));
   }
   if (ok) {
@@ -177,10 +193,16 @@ function patchProcessor(proc: Any, kind: 'GSUB' | 'GPOS'): void {
   proc.lookupsForFeatures = function (userFeatures: string[] = [], exclude?: number[]) {
     if (exclude) return lookupsForFeatures.call(this, userFeatures, exclude);
     let byKey = memo.get(this.features);
-    if (!byKey) { byKey = new Map(); memo.set(this.features, byKey); }
+    if (!byKey) {
+      byKey = new Map();
+      memo.set(this.features, byKey);
+    }
     const key = userFeatures.join(',');
     let r = byKey.get(key);
-    if (!r) { r = lookupsForFeatures.call(this, userFeatures); byKey.set(key, r); }
+    if (!r) {
+      r = lookupsForFeatures.call(this, userFeatures);
+      byKey.set(key, r);
+    }
     return r;
   };
 
@@ -193,7 +215,11 @@ function patchProcessor(proc: Any, kind: 'GSUB' | 'GPOS'): void {
       const mask = lookupMask(kind, lookup);
       if (mask) {
         let hit = false;
-        for (let i = 0; i < glyphs.length; i++) if (mask[glyphs[i].id] === 1) { hit = true; break; }
+        for (let i = 0; i < glyphs.length; i++)
+          if (mask[glyphs[i].id] === 1) {
+            hit = true;
+            break;
+          }
         if (!hit) continue; // no glyph can start a match: the lookup would change nothing
       }
       it.reset(lookup.flags);
@@ -236,7 +262,12 @@ export function accelerateShaping(font: FkFont): void {
   const plans = new Map<string, { shaper: Any; plan: Any }>();
   const gdefClasses = f.GDEF?.glyphClassDef;
   states.set(f, {
-    plans, gsub: engine.GSUBProcessor, gpos: engine.GPOSProcessor, fast: new Map(), cmap: new Map(), advances: new Map(),
+    plans,
+    gsub: engine.GSUBProcessor,
+    gpos: engine.GPOSProcessor,
+    fast: new Map(),
+    cmap: new Map(),
+    advances: new Map(),
     glyphClass: gdefClasses && (gdefClasses.version === 1 || gdefClasses.version === 2) ? classMap(gdefClasses) : null,
   });
 
@@ -287,8 +318,14 @@ export interface ShapedRun {
   yOffset: number[];
 }
 
-interface PairLookup { subTables: Any[] }
-interface FastInfo { first: Uint8Array; guards: Guard[]; pairs: PairLookup[] }
+interface PairLookup {
+  subTables: Any[];
+}
+interface FastInfo {
+  first: Uint8Array;
+  guards: Guard[];
+  pairs: PairLookup[];
+}
 
 const DEFAULT_SCRIPTS = ['DFLT', 'dflt', 'latn'];
 /** Script tag and direction fontkit detects for a lone code point (font-independent). */
@@ -316,15 +353,24 @@ function isDefaultIgnorable(ch: number): boolean {
   const plane = ch >> 16;
   if (plane === 0) {
     switch (ch >> 8) {
-      case 0x00: return ch === 0x00ad;
-      case 0x03: return ch === 0x034f;
-      case 0x06: return ch === 0x061c;
-      case 0x17: return ch >= 0x17b4 && ch <= 0x17b5;
-      case 0x18: return ch >= 0x180b && ch <= 0x180e;
-      case 0x20: return (ch >= 0x200b && ch <= 0x200f) || (ch >= 0x202a && ch <= 0x202e) || (ch >= 0x2060 && ch <= 0x206f);
-      case 0xfe: return (ch >= 0xfe00 && ch <= 0xfe0f) || ch === 0xfeff;
-      case 0xff: return ch >= 0xfff0 && ch <= 0xfff8;
-      default: return false;
+      case 0x00:
+        return ch === 0x00ad;
+      case 0x03:
+        return ch === 0x034f;
+      case 0x06:
+        return ch === 0x061c;
+      case 0x17:
+        return ch >= 0x17b4 && ch <= 0x17b5;
+      case 0x18:
+        return ch >= 0x180b && ch <= 0x180e;
+      case 0x20:
+        return (ch >= 0x200b && ch <= 0x200f) || (ch >= 0x202a && ch <= 0x202e) || (ch >= 0x2060 && ch <= 0x206f);
+      case 0xfe:
+        return (ch >= 0xfe00 && ch <= 0xfe0f) || ch === 0xfeff;
+      case 0xff:
+        return ch >= 0xfff0 && ch <= 0xfff8;
+      default:
+        return false;
     }
   }
   if (plane === 1) return (ch >= 0x1bca0 && ch <= 0x1bca3) || (ch >= 0x1d173 && ch <= 0x1d17a);
@@ -403,7 +449,11 @@ function subtableMayMatch(kind: 'GSUB' | 'GPOS', type: number, t: Any, ids: numb
   return !cov || anyIn(ids, cov);
 }
 
-interface Guard { kind: 'GSUB' | 'GPOS'; lookup: Any; first: Uint8Array }
+interface Guard {
+  kind: 'GSUB' | 'GPOS';
+  lookup: Any;
+  first: Uint8Array;
+}
 
 function buildFastInfo(f: Any, st: FontState, script: string, direction: string): FastInfo | null | 'later' {
   if (direction !== 'ltr' || f._variationProcessor || !st.glyphClass || !st.gpos) return null;
@@ -421,7 +471,10 @@ function buildFastInfo(f: Any, st: FontState, script: string, direction: string)
   if (!st.gpos.features.kern && f.kern) return null;
   const guards: Guard[] = [];
   const pairs: PairLookup[] = [];
-  for (const [kind, proc] of [['GSUB', st.gsub], ['GPOS', st.gpos]] as const) {
+  for (const [kind, proc] of [
+    ['GSUB', st.gsub],
+    ['GPOS', st.gpos],
+  ] as const) {
     if (!proc) continue;
     for (const stage of stages) {
       if (stage.length === 0) continue;
@@ -448,11 +501,19 @@ function buildFastInfo(f: Any, st: FontState, script: string, direction: string)
 /** True when some GSUB lookup, or some GPOS lookup other than pair adjustment, may act on the run. */
 function mayNeedFontkit(info: FastInfo, ids: number[]): boolean {
   let any = false;
-  for (const g of ids) if (info.first[g] === 1) { any = true; break; }
+  for (const g of ids)
+    if (info.first[g] === 1) {
+      any = true;
+      break;
+    }
   if (!any) return false;
   for (const { kind, lookup, first } of info.guards) {
     let hit = false;
-    for (const g of ids) if (first[g] === 1) { hit = true; break; }
+    for (const g of ids)
+      if (first[g] === 1) {
+        hit = true;
+        break;
+      }
     if (!hit) continue;
     const skipsBases = !!lookup.flags?.flags?.ignoreBaseGlyphs;
     for (const t of lookup.subTables) if (subtableMayMatch(kind, lookup.lookupType, t, ids, skipsBases)) return true;
@@ -469,13 +530,19 @@ function fastShape(f: Any, st: FontState, text: string): ShapedRun | null {
     let code = text.charCodeAt(i++);
     if (code >= 0xd800 && code <= 0xdbff && i < len) {
       const next = text.charCodeAt(i);
-      if (next >= 0xdc00 && next <= 0xdfff) { i++; code = ((code & 0x3ff) << 10) + (next & 0x3ff) + 0x10000; }
+      if (next >= 0xdc00 && next <= 0xdfff) {
+        i++;
+        code = ((code & 0x3ff) << 10) + (next & 0x3ff) + 0x10000;
+      }
     }
     // Variation selectors pick glyphs through cmap 14, ignorables become spaces, and a fraction
     // slash switches on local features: all left to fontkit.
     if (isVariationSelector(code) || isDefaultIgnorable(code) || code === 0x2044) return null;
     let gid = st.cmap.get(code);
-    if (gid === undefined) { gid = f._cmapProcessor.lookup(code) as number; st.cmap.set(code, gid); }
+    if (gid === undefined) {
+      gid = f._cmapProcessor.lookup(code) as number;
+      st.cmap.set(code, gid);
+    }
     ids.push(gid);
     cps.push(code);
     if (script === null) {
@@ -506,10 +573,14 @@ function fastShape(f: Any, st: FontState, text: string): ShapedRun | null {
   for (let i = 0; i < n; i++) {
     const g = ids[i]!;
     let a = st.advances.get(g);
-    if (a === undefined) { a = f.getGlyph(g, [cps[i]!]).advanceWidth as number; st.advances.set(g, a); }
+    if (a === undefined) {
+      a = f.getGlyph(g, [cps[i]!]).advanceWidth as number;
+      st.advances.set(g, a);
+    }
     adv[i] = a;
   }
-  const xo = run.xOffset, yo = run.yOffset;
+  const xo = run.xOffset,
+    yo = run.yOffset;
   const apply = (i: number, v: Any) => {
     if (v.xAdvance != null) adv[i] += v.xAdvance;
     if (v.yAdvance != null && v.yAdvance !== 0) return false; // vertical advance: not modelled
@@ -521,7 +592,8 @@ function fastShape(f: Any, st: FontState, text: string): ShapedRun | null {
   // after it; with no mark or ligature glyph in the run, no lookup flag skips a glyph.
   for (const { subTables } of info.pairs) {
     for (let i = 0; i + 1 < n; i++) {
-      const cur = ids[i]!, next = ids[i + 1]!; // i + 1 < n
+      const cur = ids[i]!,
+        next = ids[i + 1]!; // i + 1 < n
       for (const t of subTables) {
         const cov = coverageMap(t.coverage);
         const index = cur < cov.length ? cov[cur]! : -1;
@@ -530,14 +602,20 @@ function fastShape(f: Any, st: FontState, text: string): ShapedRun | null {
         if (t.version === 1) {
           const set = t.pairSets.get(index);
           let found = null;
-          for (const pair of set) if (pair.secondGlyph === next) { found = pair; break; }
+          for (const pair of set)
+            if (pair.secondGlyph === next) {
+              found = pair;
+              break;
+            }
           if (!found) continue;
-          v1 = found.value1; v2 = found.value2;
+          v1 = found.value1;
+          v2 = found.value2;
         } else {
           const row = t.classRecords.get(fastGetClassID(cur, t.classDef1));
           const pair = row?.get(fastGetClassID(next, t.classDef2));
           if (!pair) return null;
-          v1 = pair.value1; v2 = pair.value2;
+          v1 = pair.value1;
+          v2 = pair.value2;
         }
         if (!v1 || !v2) return null;
         if (!apply(i, v1) || !apply(i + 1, v2)) return null;
@@ -565,7 +643,8 @@ export function shapeWithFontkit(font: FkFont, text: string): ShapedRun {
   const n = run.glyphs.length;
   const out: ShapedRun = { glyphIds: new Array(n), codePoints: new Array(n), xAdvance: new Array(n), xOffset: new Array(n), yOffset: new Array(n) };
   for (let i = 0; i < n; i++) {
-    const g = run.glyphs[i], p = run.positions[i];
+    const g = run.glyphs[i],
+      p = run.positions[i];
     out.glyphIds[i] = g.id;
     out.codePoints[i] = g.codePoints;
     out.xAdvance[i] = p.xAdvance;

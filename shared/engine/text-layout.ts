@@ -6,9 +6,9 @@
  * y = letterHeightMm. Letter height is the cap height, measured from the "H" glyph (see fonts.ts).
  */
 import type { FontRegistry, LoadedFont } from './fonts.ts';
-import { shapeText } from './shaping.ts';
-import type { BBox } from './path.ts';
 import { LimitError, MAX_LETTER_HEIGHT_MM, MAX_TEXT_CHARS } from './limits.ts';
+import type { BBox } from './path.ts';
+import { shapeText } from './shaping.ts';
 
 export interface LayoutTextInput {
   text: string;
@@ -51,7 +51,14 @@ export interface TextLayout {
 }
 
 // Glyph outline cache per font, in font units. Ops: 0 M x y, 1 L x y, 2 Q x1 y1 x y, 3 C x1 y1 x2 y2 x y, 4 Z.
-interface GlyphData { ops: number[]; minX: number; minY: number; maxX: number; maxY: number; empty: boolean }
+interface GlyphData {
+  ops: number[];
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+  empty: boolean;
+}
 
 /** fontkit's path commands, each with exactly its own number of coordinates. */
 type GlyphCommand =
@@ -60,7 +67,11 @@ type GlyphCommand =
   | { command: 'bezierCurveTo'; args: [number, number, number, number, number, number] }
   | { command: 'closePath'; args: [] };
 
-interface FontCaches { glyphs: Map<number, GlyphData>; outlines: Map<number, Map<number, GlyphOutline>>; layouts: Map<string, TextLayout> }
+interface FontCaches {
+  glyphs: Map<number, GlyphData>;
+  outlines: Map<number, Map<number, GlyphOutline>>;
+  layouts: Map<string, TextLayout>;
+}
 const caches = new WeakMap<LoadedFont, FontCaches>();
 const LAYOUT_CACHE_SIZE = 2000;
 
@@ -81,16 +92,25 @@ function quadEx(p0: number, p1: number, p2: number, acc: (v: number) => void) {
   }
 }
 function cubicEx(p0: number, p1: number, p2: number, p3: number, acc: (v: number) => void) {
-  const a = -p0 + 3 * p1 - 3 * p2 + p3, b = 2 * (p0 - 2 * p1 + p2), c = p1 - p0;
-  const at = (t: number) => { const u = 1 - t; return u * u * u * p0 + 3 * u * u * t * p1 + 3 * u * t * t * p2 + t * t * t * p3; };
+  const a = -p0 + 3 * p1 - 3 * p2 + p3,
+    b = 2 * (p0 - 2 * p1 + p2),
+    c = p1 - p0;
+  const at = (t: number) => {
+    const u = 1 - t;
+    return u * u * u * p0 + 3 * u * u * t * p1 + 3 * u * t * t * p2 + t * t * t * p3;
+  };
   if (Math.abs(a) < 1e-12) {
-    if (Math.abs(b) > 1e-12) { const t = -c / b; if (t > 0 && t < 1) acc(at(t)); }
+    if (Math.abs(b) > 1e-12) {
+      const t = -c / b;
+      if (t > 0 && t < 1) acc(at(t));
+    }
     return;
   }
   const disc = b * b - 4 * a * c;
   if (disc < 0) return;
   const sq = Math.sqrt(disc);
-  const t1 = (-b + sq) / (2 * a), t2 = (-b - sq) / (2 * a);
+  const t1 = (-b + sq) / (2 * a),
+    t2 = (-b - sq) / (2 * a);
   if (t1 > 0 && t1 < 1) acc(at(t1));
   if (t2 > 0 && t2 < 1) acc(at(t2));
 }
@@ -100,26 +120,60 @@ function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
   if (g) return g;
   const glyph = f.font.getGlyph(id) as unknown as { id: number; path: { commands: GlyphCommand[] } };
   const ops: number[] = [];
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  const ax = (v: number) => { if (v < minX) minX = v; if (v > maxX) maxX = v; };
-  const ay = (v: number) => { if (v < minY) minY = v; if (v > maxY) maxY = v; };
-  let px = 0, py = 0;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
+  const ax = (v: number) => {
+    if (v < minX) minX = v;
+    if (v > maxX) maxX = v;
+  };
+  const ay = (v: number) => {
+    if (v < minY) minY = v;
+    if (v > maxY) maxY = v;
+  };
+  let px = 0,
+    py = 0;
   // .notdef (glyph 0) is drawn as nothing: a missing character is reported, not cut as a box.
   const commands = glyph.id === 0 ? [] : glyph.path.commands;
   for (const cmd of commands) {
     const { command, args: a } = cmd;
     switch (command) {
-      case 'moveTo': ops.push(0, a[0], a[1]); ax(a[0]); ay(a[1]); px = a[0]; py = a[1]; break;
-      case 'lineTo': ops.push(1, a[0], a[1]); ax(a[0]); ay(a[1]); px = a[0]; py = a[1]; break;
+      case 'moveTo':
+        ops.push(0, a[0], a[1]);
+        ax(a[0]);
+        ay(a[1]);
+        px = a[0];
+        py = a[1];
+        break;
+      case 'lineTo':
+        ops.push(1, a[0], a[1]);
+        ax(a[0]);
+        ay(a[1]);
+        px = a[0];
+        py = a[1];
+        break;
       case 'quadraticCurveTo':
         ops.push(2, a[0], a[1], a[2], a[3]);
-        quadEx(px, a[0], a[2], ax); quadEx(py, a[1], a[3], ay); ax(a[2]); ay(a[3]); px = a[2]; py = a[3];
+        quadEx(px, a[0], a[2], ax);
+        quadEx(py, a[1], a[3], ay);
+        ax(a[2]);
+        ay(a[3]);
+        px = a[2];
+        py = a[3];
         break;
       case 'bezierCurveTo':
         ops.push(3, a[0], a[1], a[2], a[3], a[4], a[5]);
-        cubicEx(px, a[0], a[2], a[4], ax); cubicEx(py, a[1], a[3], a[5], ay); ax(a[4]); ay(a[5]); px = a[4]; py = a[5];
+        cubicEx(px, a[0], a[2], a[4], ax);
+        cubicEx(py, a[1], a[3], a[5], ay);
+        ax(a[4]);
+        ay(a[5]);
+        px = a[4];
+        py = a[5];
         break;
-      case 'closePath': ops.push(4); break;
+      case 'closePath':
+        ops.push(4);
+        break;
     }
   }
   const empty = minX === Infinity;
@@ -128,7 +182,11 @@ function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
   return g;
 }
 
-interface GlyphOutline { x0: number; y0: number; rest: string }
+interface GlyphOutline {
+  x0: number;
+  y0: number;
+  rest: string;
+}
 
 /**
  * A glyph's outline at one scale: its first point in µm from the glyph origin and the rest as
@@ -148,29 +206,55 @@ function glyphOutline(c: FontCaches, gd: GlyphData, id: number, s: number, cap: 
   const X = (i: number) => Math.round(ops[i]! * s * 1000);
   const Y = (i: number) => Math.round((cap - ops[i]!) * s * 1000);
   const r = (v: number) => String(v / 1000);
-  let x0 = 0, y0 = 0, cx = 0, cy = 0, sx = 0, sy = 0, rest = '', first = true;
+  let x0 = 0,
+    y0 = 0,
+    cx = 0,
+    cy = 0,
+    sx = 0,
+    sy = 0,
+    rest = '',
+    first = true;
   for (let k = 0; k < ops.length; ) {
     const op = ops[k];
     if (op === 0 || op === 1) {
-      const x = X(k + 1), y = Y(k + 2);
-      if (first) { x0 = x; y0 = y; first = false; }
-      else rest += `${op === 0 ? 'm' : 'l'}${r(x - cx)} ${r(y - cy)}`;
-      cx = x; cy = y;
-      if (op === 0) { sx = x; sy = y; }
+      const x = X(k + 1),
+        y = Y(k + 2);
+      if (first) {
+        x0 = x;
+        y0 = y;
+        first = false;
+      } else rest += `${op === 0 ? 'm' : 'l'}${r(x - cx)} ${r(y - cy)}`;
+      cx = x;
+      cy = y;
+      if (op === 0) {
+        sx = x;
+        sy = y;
+      }
       k += 3;
     } else if (op === 2) {
-      const x1 = X(k + 1), y1 = Y(k + 2), x = X(k + 3), y = Y(k + 4);
+      const x1 = X(k + 1),
+        y1 = Y(k + 2),
+        x = X(k + 3),
+        y = Y(k + 4);
       rest += `q${r(x1 - cx)} ${r(y1 - cy)} ${r(x - cx)} ${r(y - cy)}`;
-      cx = x; cy = y;
+      cx = x;
+      cy = y;
       k += 5;
     } else if (op === 3) {
-      const x1 = X(k + 1), y1 = Y(k + 2), x2 = X(k + 3), y2 = Y(k + 4), x = X(k + 5), y = Y(k + 6);
+      const x1 = X(k + 1),
+        y1 = Y(k + 2),
+        x2 = X(k + 3),
+        y2 = Y(k + 4),
+        x = X(k + 5),
+        y = Y(k + 6);
       rest += `c${r(x1 - cx)} ${r(y1 - cy)} ${r(x2 - cx)} ${r(y2 - cy)} ${r(x - cx)} ${r(y - cy)}`;
-      cx = x; cy = y;
+      cx = x;
+      cy = y;
       k += 7;
     } else {
       rest += 'z';
-      cx = sx; cy = sy; // after closepath the current point is the subpath's start
+      cx = sx;
+      cy = sy; // after closepath the current point is the subpath's start
       k += 1;
     }
   }
@@ -228,7 +312,10 @@ export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { ca
   const glyphs: LaidOutGlyph[] = [];
   let d = '';
   let pen = 0;
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   const n = run.glyphIds.length;
   for (let i = 0; i < n; i++) {
     // the run's arrays are parallel, all n long
@@ -240,10 +327,13 @@ export function layoutWithFont(f: LoadedFont, input: LayoutTextInput, opts: { ca
       const go = glyphOutline(c, gd, id, s, cap);
       // Glyph origin on the 1 µm grid; the outline after the first point is relative, so its string
       // is reused for every occurrence of the glyph at this size.
-      const OX = Math.round(ox * s * 1000), OY = Math.round(-oy * s * 1000);
+      const OX = Math.round(ox * s * 1000),
+        OY = Math.round(-oy * s * 1000);
       d += `M${(OX + go.x0) / 1000} ${(OY + go.y0) / 1000}${go.rest}`;
-      const gx0 = (gd.minX + ox) * s, gx1 = (gd.maxX + ox) * s;
-      const gy0 = (cap - gd.maxY - oy) * s, gy1 = (cap - gd.minY - oy) * s;
+      const gx0 = (gd.minX + ox) * s,
+        gx1 = (gd.maxX + ox) * s;
+      const gy0 = (cap - gd.maxY - oy) * s,
+        gy1 = (cap - gd.minY - oy) * s;
       if (gx0 < minX) minX = gx0;
       if (gx1 > maxX) maxX = gx1;
       if (gy0 < minY) minY = gy0;

@@ -3,8 +3,9 @@
  * 1.5 mm (1/16 in) are hard to weed (from memory); few, large pieces are quick, many small pieces and
  * tiny counters are slow (common practice). The label thresholds below are our own (no published source).
  */
-import { flattenPath, parsePathData, type Path } from './path.ts';
-import { inscribedWidth, polygonAreaAbs, regionArea, simplifyRegions, thinArea, unionRegions, type Region } from './geometry.ts';
+
+import { inscribedWidth, polygonAreaAbs, type Region, regionArea, simplifyRegions, thinArea, unionRegions } from './geometry.ts';
+import { flattenPath, type Path, parsePathData } from './path.ts';
 
 export const NARROW_MM = 1.5;
 
@@ -66,7 +67,10 @@ export function analyseRegions(regions: Region[], opts: { thinStrokes?: boolean 
 function label(r: Omit<WeedingReport, 'label' | 'reasons'>): WeedingReport {
   const reasons: string[] = [];
   let level = 0;
-  const bump = (l: number, why: string) => { level = Math.max(level, l); reasons.push(why); };
+  const bump = (l: number, why: string) => {
+    level = Math.max(level, l);
+    reasons.push(why);
+  };
   if (r.narrowPieces > 0) bump(2, `${r.narrowPieces} piece(s) narrower than ${NARROW_MM} mm`);
   if (r.narrowCounters > 0) bump(2, `${r.narrowCounters} counter(s) narrower than ${NARROW_MM} mm`);
   if (r.thinStrokeAreaMm2 > Math.max(2, 0.03 * r.totalAreaMm2)) bump(1, `strokes thinner than ${NARROW_MM} mm (${r.thinStrokeAreaMm2.toFixed(1)} mm²)`);

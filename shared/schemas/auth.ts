@@ -15,11 +15,7 @@ export const newPasswordSchema = z
   .max(128, 'Use at most 128 characters.')
   .refine((p) => !isCommonPassword(p), 'That password is too common. Choose another.');
 
-export const nameSchema = z
-  .string({ error: 'Enter your name.' })
-  .trim()
-  .min(1, 'Enter your name.')
-  .max(80, 'Use at most 80 characters.');
+export const nameSchema = z.string({ error: 'Enter your name.' }).trim().min(1, 'Enter your name.').max(80, 'Use at most 80 characters.');
 
 export const signUpSchema = z.object({ name: nameSchema, email: emailSchema, password: newPasswordSchema });
 export type SignUpInput = z.infer<typeof signUpSchema>;

@@ -1,11 +1,11 @@
 /** The seller's business view: working calendar, due lines, costs, price check, ledger, charts. */
 import { z } from 'zod';
-import { listingInputSchema } from './listing.ts';
-import { isValidDay } from '../business/working-days.ts';
-import type { ShipMark } from '../business/marks.ts';
 import type { CostTotals, LineCost, PriceCheck } from '../business/costs.ts';
 import type { LedgerEntry, MonthBalance } from '../business/ledger.ts';
+import type { ShipMark } from '../business/marks.ts';
 import type { ListingRow, VinylMonthRow, WeekRow } from '../business/reports.ts';
+import { isValidDay } from '../business/working-days.ts';
+import { listingInputSchema } from './listing.ts';
 
 const day = z.string({ error: 'Enter a date.' }).refine(isValidDay, 'Use a real date, written yyyy-mm-dd.');
 
@@ -16,7 +16,10 @@ export const businessSettingsSchema = z
       .min(1, 'Pick at least one working day.')
       .max(7)
       .transform((d) => [...new Set(d)].sort((a, b) => a - b)),
-    daysOff: z.array(day).max(200, 'At most 200 days off.').transform((d) => [...new Set(d)].sort()),
+    daysOff: z
+      .array(day)
+      .max(200, 'At most 200 days off.')
+      .transform((d) => [...new Set(d)].sort()),
     hourlyRateMinor: z.number({ error: 'Enter an hourly rate.' }).int('Whole cents.').min(0, 'Cannot be negative.').max(1_000_000, 'That is too much.'),
     processingDays: z.number({ error: 'Enter the processing days.' }).int('Whole days.').min(1, 'At least 1 day.').max(60, 'At most 60 days.'),
   })

@@ -4,11 +4,7 @@ import { choicesSchema } from './listing.ts';
 
 export const MAX_LINE_QUANTITY = 20;
 
-const quantity = z
-  .number({ error: 'Enter a quantity.' })
-  .int('Use a whole number.')
-  .min(1, 'At least 1.')
-  .max(MAX_LINE_QUANTITY, `At most ${MAX_LINE_QUANTITY} of one item.`);
+const quantity = z.number({ error: 'Enter a quantity.' }).int('Use a whole number.').min(1, 'At least 1.').max(MAX_LINE_QUANTITY, `At most ${MAX_LINE_QUANTITY} of one item.`);
 
 /**
  * POST /api/cart/lines. Deliberately no price field: unknown keys (a posted `unitPriceMinor`) are

@@ -1,9 +1,9 @@
 /** The public catalogue: search query, list items, the listing page and the public shop page. */
 import { z } from 'zod';
 import type { StoredMotifGeometry } from '../engine/motif.ts';
-import { blankKindSchema, occasionSchema, type ListingContent } from './listing.ts';
+import { blankKindSchema, type ListingContent, occasionSchema } from './listing.ts';
+import { type Page, pageQuery, pageSchema } from './pagination.ts';
 import { SHOP_STATES, type ShopState } from './shop.ts';
-import { pageQuery, pageSchema, type Page } from './pagination.ts';
 
 export const CATALOG_PAGE_SIZE = 24;
 export const CATALOG_SORTS = ['newest', 'price_asc', 'price_desc'] as const;

@@ -3,8 +3,8 @@
  * price of a set of choices, and the listing states. Used by the server routes and the client forms.
  */
 import { z } from 'zod';
-import { FONT_IDS } from '../engine/font-catalog.ts';
 import { DEFAULT_BLANKS, type BlankKind as EngineBlankKind } from '../engine/blanks.ts';
+import { FONT_IDS } from '../engine/font-catalog.ts';
 import { pageQuery } from './pagination.ts';
 
 // ---------------------------------------------------------------- occasions (shoppers browse by these)
@@ -32,16 +32,28 @@ export const BLANK_DEFAULTS: Record<BlankKind, { label: string; widthMm: number;
   }),
 ) as Record<BlankKind, { label: string; widthMm: number; heightMm: number; topOffsetMm: number }>;
 
-const id = (what: string) => z.string({ error: `Pick a ${what}.` }).trim().min(1, `Pick a ${what}.`).max(64, `That ${what} id is too long.`);
+const id = (what: string) =>
+  z
+    .string({ error: `Pick a ${what}.` })
+    .trim()
+    .min(1, `Pick a ${what}.`)
+    .max(64, `That ${what} id is too long.`);
 const fieldKey = z
   .string({ error: 'Give it a short id.' })
   .trim()
   .regex(/^[a-z0-9][a-z0-9_-]{0,31}$/, 'Use 1–32 lower-case letters, digits, - or _.');
 const label = z.string({ error: 'Enter a label.' }).trim().min(1, 'Enter a label.').max(60, 'Use at most 60 characters.');
 const minor = (what: string) =>
-  z.number({ error: `Enter the ${what}.` }).int(`The ${what} is in whole cents.`).min(0, `The ${what} cannot be negative.`).max(10_000_000, `The ${what} is too large.`);
+  z
+    .number({ error: `Enter the ${what}.` })
+    .int(`The ${what} is in whole cents.`)
+    .min(0, `The ${what} cannot be negative.`)
+    .max(10_000_000, `The ${what} is too large.`);
 const mm = (what: string, min: number, max: number) =>
-  z.number({ error: `Enter the ${what} in mm.` }).min(min, `The ${what} is at least ${min} mm.`).max(max, `The ${what} is at most ${max} mm.`);
+  z
+    .number({ error: `Enter the ${what} in mm.` })
+    .min(min, `The ${what} is at least ${min} mm.`)
+    .max(max, `The ${what} is at most ${max} mm.`);
 
 export const blankSchema = z
   .object({
@@ -81,7 +93,10 @@ export const textFieldSchema = z
     id: fieldKey,
     label,
     maxLength: z.number({ error: 'Enter a maximum length.' }).int().min(1, 'At least 1 character.').max(40, 'At most 40 characters.').default(12),
-    fontIds: z.array(z.enum(FONT_IDS, { error: 'Pick a font from the list.' })).min(1, 'Allow at least one font.').max(FONT_IDS.length),
+    fontIds: z
+      .array(z.enum(FONT_IDS, { error: 'Pick a font from the list.' }))
+      .min(1, 'Allow at least one font.')
+      .max(FONT_IDS.length),
     defaultFontId: z.enum(FONT_IDS, { error: 'Pick a font from the list.' }).optional(),
     defaultLetterHeightMm: mm('letter height', 5, 200).default(50),
     required: z.boolean().default(true),
@@ -102,8 +117,7 @@ export const motifLayerChoiceSchema = z
   })
   .superRefine((l, ctx) => {
     if (l.mode === 'fixed' && !l.materialId) ctx.addIssue({ code: 'custom', message: 'Pick the material for this layer.', path: ['materialId'] });
-    if (l.mode === 'shopper' && !(l.colourChoices && l.colourChoices.length > 0))
-      ctx.addIssue({ code: 'custom', message: 'Offer at least one colour for this layer.', path: ['colourChoices'] });
+    if (l.mode === 'shopper' && !(l.colourChoices && l.colourChoices.length > 0)) ctx.addIssue({ code: 'custom', message: 'Offer at least one colour for this layer.', path: ['colourChoices'] });
   });
 export type MotifLayerChoice = z.output<typeof motifLayerChoiceSchema>;
 
@@ -137,10 +151,8 @@ export const personalisationSchema = z
       if (motifs.has(m.motifId)) ctx.addIssue({ code: 'custom', message: 'This motif is offered twice.', path: ['motifChoices', i, 'motifId'] });
       motifs.add(m.motifId);
     });
-    if (p.motifRequired && p.motifChoices.length === 0)
-      ctx.addIssue({ code: 'custom', message: 'Offer a motif, or make the motif optional.', path: ['motifRequired'] });
-    if (p.textFields.length === 0 && p.motifChoices.length === 0)
-      ctx.addIssue({ code: 'custom', message: 'Add a text field or a motif for the shopper to personalise.', path: ['textFields'] });
+    if (p.motifRequired && p.motifChoices.length === 0) ctx.addIssue({ code: 'custom', message: 'Offer a motif, or make the motif optional.', path: ['motifRequired'] });
+    if (p.textFields.length === 0 && p.motifChoices.length === 0) ctx.addIssue({ code: 'custom', message: 'Add a text field or a motif for the shopper to personalise.', path: ['textFields'] });
   });
 export type Personalisation = z.output<typeof personalisationSchema>;
 
@@ -155,7 +167,11 @@ export const listingInputSchema = z.object({
   blank: blankSchema,
   basePriceMinor: minor('base price').min(100, 'The base price is at least 1.00.'),
   extraLayerPriceMinor: minor('price per extra layer').default(0),
-  occasions: z.array(occasionSchema).max(OCCASIONS.length).default([]).transform((o) => [...new Set(o)]),
+  occasions: z
+    .array(occasionSchema)
+    .max(OCCASIONS.length)
+    .default([])
+    .transform((o) => [...new Set(o)]),
   photoIds: z.array(id('photo')).max(8, 'At most 8 photos.').default([]),
   hasSmallDecorations: z.boolean().default(false),
   personalisation: personalisationSchema,
@@ -212,8 +228,7 @@ export function layersForChoices(content: PricedContent, choices: Choices): stri
   };
   if (p.outline) add(choices.outlineMaterialId ?? p.outline.colourChoices[0]);
   const motif = p.motifChoices.find((m) => m.motifId === choices.motifId);
-  if (motif)
-    for (const l of motif.layers) add(l.mode === 'fixed' ? l.materialId : (choices.motifColours[l.layerId] ?? l.colourChoices?.[0]));
+  if (motif) for (const l of motif.layers) add(l.mode === 'fixed' ? l.materialId : (choices.motifColours[l.layerId] ?? l.colourChoices?.[0]));
   for (const f of p.textFields) {
     const t = choices.texts[f.id]?.text.trim() ?? '';
     if (t) add(choices.textColours[f.id] ?? f.colourChoices[0]);
@@ -257,8 +272,7 @@ export function checkChoices(content: PricedContent, choices: Choices): Record<s
       const l = motif.layers.find((x) => x.layerId === layerId);
       if (!l || l.mode !== 'shopper' || !l.colourChoices?.includes(materialId)) errs[`motifColours.${layerId}`] = 'Pick one of the colours offered for this layer.';
     }
-  if (choices.outlineMaterialId !== null && !p.outline?.colourChoices.includes(choices.outlineMaterialId))
-    errs.outlineMaterialId = 'Pick one of the outline colours offered.';
+  if (choices.outlineMaterialId !== null && !p.outline?.colourChoices.includes(choices.outlineMaterialId)) errs.outlineMaterialId = 'Pick one of the outline colours offered.';
   return errs;
 }
 

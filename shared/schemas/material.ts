@@ -1,10 +1,10 @@
 /** Materials: a shop's vinyl stock. Lengths mm, temperatures °C (shown °F too), money minor units. */
 import { z } from 'zod';
-import { MATERIAL_KINDS, PRESS_DEFAULTS, defaultPressProfile, type MaterialKind, type PressProfile } from '../engine/press-defaults.ts';
+import { defaultPressProfile, MATERIAL_KINDS, type MaterialKind, PRESS_DEFAULTS, type PressProfile } from '../engine/press-defaults.ts';
 import { pageQuery } from './pagination.ts';
 
-export { MATERIAL_KINDS, PRESS_DEFAULTS, defaultPressProfile };
 export type { MaterialKind, PressProfile };
+export { defaultPressProfile, MATERIAL_KINDS, PRESS_DEFAULTS };
 
 export const materialKindSchema = z.enum(MATERIAL_KINDS, { error: 'Pick smooth, glitter, flock, metallic or patterned.' });
 

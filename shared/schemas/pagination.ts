@@ -15,7 +15,12 @@ const wholeLimit = `Give the number of rows per page as a whole number from 1 to
 /** `?page=&limit=` with the list's own default page size. */
 export function pageQuery(defaultLimit: number = PAGE_LIMIT_DEFAULT) {
   return z.object({
-    page: z.coerce.number({ error: wholePage }).int(wholePage).min(1, 'Pages start at 1.').max(PAGE_MAX, `Ask for page ${PAGE_MAX.toLocaleString('en-US')} or lower.`).default(1),
+    page: z.coerce
+      .number({ error: wholePage })
+      .int(wholePage)
+      .min(1, 'Pages start at 1.')
+      .max(PAGE_MAX, `Ask for page ${PAGE_MAX.toLocaleString('en-US')} or lower.`)
+      .default(1),
     limit: z.coerce.number({ error: wholeLimit }).int(wholeLimit).min(1, wholeLimit).max(PAGE_LIMIT_MAX, wholeLimit).default(defaultLimit),
   });
 }
@@ -26,8 +31,7 @@ export type PageInput = { page?: number; limit?: number };
 
 /** One page of a list: the rows, how many rows the whole (filtered) list has, and where we are. */
 export type Page<T> = { items: T[]; total: number; page: number; limit: number };
-export const pageSchema = <T extends z.ZodType>(item: T) =>
-  z.object({ items: z.array(item), total: z.number().int().min(0), page: z.number().int().min(1), limit: z.number().int().min(1) });
+export const pageSchema = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int().min(0), page: z.number().int().min(1), limit: z.number().int().min(1) });
 
 /** rows to skip for this page */
 export const pageOffset = (q: PageQuery): number => (q.page - 1) * q.limit;

@@ -3,13 +3,13 @@
  * by the routes and the forms) and the shapes the API answers with. Lengths mm, money minor units.
  */
 import { z } from 'zod';
-import { LINE_STATES, type LineState } from './order.ts';
-import { choicesSchema, type Choices } from './listing.ts';
+import { MAX_CUT_SHEET_LINES } from '../engine/limits.ts';
+import type { PressCard } from '../engine/press-card.ts';
 import type { LineSnapshot } from './cart.ts';
 import type { ShipTo } from './checkout.ts';
-import type { PressCard } from '../engine/press-card.ts';
-import { pageQuery, type Page } from './pagination.ts';
-import { MAX_CUT_SHEET_LINES } from '../engine/limits.ts';
+import { type Choices, choicesSchema } from './listing.ts';
+import { LINE_STATES, type LineState } from './order.ts';
+import { type Page, pageQuery } from './pagination.ts';
 
 export { LINE_STATES, type LineState };
 
@@ -19,13 +19,20 @@ export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', '
 const id = z.string().trim().min(1).max(64);
 export const idParams = z.object({ id });
 export const lineIdsSchema = z.object({
-  lineIds: z.array(id, { error: 'Choose at least one line.' }).min(1, 'Choose at least one line.').max(MAX_CUT_SHEET_LINES, `At most ${MAX_CUT_SHEET_LINES} lines at once.`)
+  lineIds: z
+    .array(id, { error: 'Choose at least one line.' })
+    .min(1, 'Choose at least one line.')
+    .max(MAX_CUT_SHEET_LINES, `At most ${MAX_CUT_SHEET_LINES} lines at once.`)
     .transform((ids) => [...new Set(ids)]),
 });
 export type LineIdsInput = z.input<typeof lineIdsSchema>;
 
 /** an instant as milliseconds since 1970 (the client turns its calendar day into these) */
-const instant = z.coerce.number({ error: 'Give a time as milliseconds since 1970.' }).int('Give a time as milliseconds since 1970.').min(0, 'Give a time after 1970.').max(8_640_000_000_000_000, 'Give a real date.');
+const instant = z.coerce
+  .number({ error: 'Give a time as milliseconds since 1970.' })
+  .int('Give a time as milliseconds since 1970.')
+  .min(0, 'Give a time after 1970.')
+  .max(8_640_000_000_000_000, 'Give a real date.');
 
 /**
  * GET /api/workroom/lines: the shop's lines a page at a time, most urgent first (open lines by
@@ -75,7 +82,14 @@ export const personalisationEditSchema = z.object({ choices: choicesSchema });
 export type PersonalisationEditInput = z.input<typeof personalisationEditSchema>;
 
 /** GET /api/order-lines/:id/personalisation: what the shopper may change after a change request. */
-export type EditableTextField = { id: string; label: string; maxLength: number; required: boolean; fonts: Array<{ id: string; label: string }>; colours: Array<{ id: string; label: string; hex: string }> };
+export type EditableTextField = {
+  id: string;
+  label: string;
+  maxLength: number;
+  required: boolean;
+  fonts: Array<{ id: string; label: string }>;
+  colours: Array<{ id: string; label: string; hex: string }>;
+};
 export type PersonalisationEdit = {
   line: { id: string; orderId: string; state: string; listingTitle: string; version: number };
   editable: boolean;
@@ -125,7 +139,16 @@ export type Proof = {
   changeRequest: string | null;
 };
 
-export type TimelineEvent = { id: string; lineId: string; fromState: LineState | null; toState: LineState; message: string | null; at: number; actorName: string | null; actorRole: 'shopper' | 'shop' | 'namesake' | null };
+export type TimelineEvent = {
+  id: string;
+  lineId: string;
+  fromState: LineState | null;
+  toState: LineState;
+  message: string | null;
+  at: number;
+  actorName: string | null;
+  actorRole: 'shopper' | 'shop' | 'namesake' | null;
+};
 
 export type WorkOrder = {
   id: string;
@@ -184,7 +207,18 @@ export type StockMaterial = {
   /** planned (not yet cut) sheets' length + trim on this material */
   plannedMm: number;
 };
-export type StockSheetUse = { id: string; batchId: string; materialId: string; state: 'planned' | 'cut'; lengthMm: number; consumedMm: number | null; costMinor: number | null; cutAt: number | null; createdAt: number; lineCount: number };
+export type StockSheetUse = {
+  id: string;
+  batchId: string;
+  materialId: string;
+  state: 'planned' | 'cut';
+  lengthMm: number;
+  consumedMm: number | null;
+  costMinor: number | null;
+  cutAt: number | null;
+  createdAt: number;
+  lineCount: number;
+};
 /** GET /api/workroom/stock: every roll in use, and the cut sheets' use a page at a time (newest first) */
 export const STOCK_SHEETS_PAGE_SIZE = 25;
 export const stockQuerySchema = pageQuery(STOCK_SHEETS_PAGE_SIZE);

@@ -1,9 +1,9 @@
 import { createBrowserRouter } from 'react-router-dom';
 import { paths } from '../config/paths.ts';
+import { authKeys } from '../features/auth/api/keys.ts';
 import { RequireAuth } from '../features/auth/components/require-auth.tsx';
 import { setUnauthorizedHandler } from '../lib/api-client.ts';
 import { queryClient } from '../lib/query-client.ts';
-import { authKeys } from '../features/auth/api/keys.ts';
 import { AppLayout } from './layout/app-layout.tsx';
 import { NotFoundPage } from './routes/errors/not-found.tsx';
 import { RouteErrorPage } from './routes/errors/route-error.tsx';

@@ -23,9 +23,7 @@ export const paths = {
   home: { path: '/', getHref: () => '/' },
   search: {
     path: '/search',
-    getHref: (
-      query: { q?: string; occasion?: string; blank?: string; shop?: string; minPrice?: string; maxPrice?: string; sort?: string; page?: string } = {},
-    ) => withQuery('/search', query),
+    getHref: (query: { q?: string; occasion?: string; blank?: string; shop?: string; minPrice?: string; maxPrice?: string; sort?: string; page?: string } = {}) => withQuery('/search', query),
   },
   listing: { path: '/listings/:slug', getHref: (slug: string) => `/listings/${encodeURIComponent(slug)}` },
   shopPage: { path: '/shops/:slug', getHref: (slug: string) => `/shops/${encodeURIComponent(slug)}` },

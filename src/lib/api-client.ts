@@ -113,7 +113,7 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
   }
 
   const text = await response.text();
-  let data: unknown = undefined;
+  let data: unknown;
   if (text) {
     try {
       data = JSON.parse(text);
@@ -133,11 +133,9 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
 
 export const api = {
   get: <T>(path: string, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'GET' }),
-  post: <T>(path: string, body: unknown = {}, options: Omit<RequestOptions, 'method' | 'body'> = {}) =>
-    apiRequest<T>(path, { ...options, method: 'POST', body }),
+  post: <T>(path: string, body: unknown = {}, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'POST', body }),
   put: <T>(path: string, body: unknown, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'PUT', body }),
-  patch: <T>(path: string, body: unknown, options: Omit<RequestOptions, 'method' | 'body'> = {}) =>
-    apiRequest<T>(path, { ...options, method: 'PATCH', body }),
+  patch: <T>(path: string, body: unknown, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'PATCH', body }),
   delete: <T>(path: string, options: Omit<RequestOptions, 'method' | 'body'> = {}) => apiRequest<T>(path, { ...options, method: 'DELETE' }),
 };
 
@@ -156,7 +154,7 @@ export function upload<T>(path: string, formData: FormData, onProgress?: (fracti
     xhr.onerror = () => reject(new ApiError(0, 'network_error', "We couldn't reach Namesake. Check your connection and try again."));
     xhr.onabort = () => reject(new DOMException('Upload cancelled', 'AbortError'));
     xhr.onload = () => {
-      let data: unknown = undefined;
+      let data: unknown;
       try {
         data = xhr.responseText ? JSON.parse(xhr.responseText) : undefined;
       } catch {

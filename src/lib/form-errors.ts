@@ -6,11 +6,7 @@ import { isApiError } from './api-client.ts';
  * when the error isn't about known fields (or isn't an ApiError at all), or null when every
  * message found a field.
  */
-export function applyServerErrors<T extends FieldValues>(
-  error: unknown,
-  setError: UseFormSetError<T>,
-  knownFields: ReadonlyArray<Path<T>>,
-): string | null {
+export function applyServerErrors<T extends FieldValues>(error: unknown, setError: UseFormSetError<T>, knownFields: ReadonlyArray<Path<T>>): string | null {
   if (!isApiError(error)) return 'Something went wrong. Please try again.';
   let placed = 0;
   let first = true;

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm, type DefaultValues, type FieldValues, type Path } from 'react-hook-form';
+import { type DefaultValues, type FieldValues, type Path, useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { useToast } from '../components/ui/toast.tsx';
 import { applyServerErrors } from './form-errors.ts';

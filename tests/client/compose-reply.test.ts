@@ -1,9 +1,9 @@
 // What the compose worker (and its main-thread fallback) hands the preview: compose()'s weeding and
 // true outline for the design, or compose()'s own message when the design is refused.
 import { describe, expect, it } from 'vitest';
-import { compose, type ComposeInput } from '../../shared/engine/compose.ts';
-import { defaultBlank } from '../../shared/engine/blanks.ts';
 import { getFontRegistry } from '../../server/integrations/fonts.ts';
+import { defaultBlank } from '../../shared/engine/blanks.ts';
+import { type ComposeInput, compose } from '../../shared/engine/compose.ts';
 import { composeReply } from '../../src/features/personaliser/lib/compose-reply.ts';
 
 const reg = getFontRegistry();

@@ -4,24 +4,29 @@
 import { createElement } from 'react';
 import { renderToStaticMarkup } from 'react-dom/server';
 import { describe, expect, it } from 'vitest';
-import { compose } from '../../shared/engine/compose.ts';
-import { DEFAULT_BLANKS } from '../../shared/engine/blanks.ts';
-import { LINE_STATES } from '../../shared/schemas/order.ts';
 import { getFontRegistry } from '../../server/integrations/fonts.ts';
+import { DEFAULT_BLANKS } from '../../shared/engine/blanks.ts';
+import { compose } from '../../shared/engine/compose.ts';
+import { LINE_STATES } from '../../shared/schemas/order.ts';
 import { DesignOnBlank, pictureOfBlank, pictureOfLineBlank } from '../../src/components/design/design-on-blank.tsx';
 import { LineStateBadge } from '../../src/components/ui/line-state-badge.tsx';
 
 const reg = getFontRegistry();
-const attrs = (html: string, tag: string) => [...html.matchAll(new RegExp(`<${tag} ([^>]*)/?>`, 'g'))].map((m) => Object.fromEntries([...m[1]!.matchAll(/([\w-]+)="([^"]*)"/g)].map((a) => [a[1], a[2]])));
+const attrs = (html: string, tag: string) =>
+  [...html.matchAll(new RegExp(`<${tag} ([^>]*)/?>`, 'g'))].map((m) => Object.fromEntries([...m[1]!.matchAll(/([\w-]+)="([^"]*)"/g)].map((a) => [a[1], a[2]])));
 
 describe('DesignOnBlank', () => {
   for (const blank of DEFAULT_BLANKS) {
     it(`when a long name is composed on the ${blank.name}, then it fills the dashed print area's width from its top edge, inside it`, () => {
-      const item = compose(reg, {
-        blank,
-        fields: [{ kind: 'text', id: 'name', fontId: 'baloo-bold', letterHeightMm: 60, maxLetterHeightMm: 120, maxChars: 14, materialKind: 'smooth', colour: '#2f7d6d' }],
-        choices: { name: { text: 'Bartholomew' } },
-      }, { weeding: 'none' });
+      const item = compose(
+        reg,
+        {
+          blank,
+          fields: [{ kind: 'text', id: 'name', fontId: 'baloo-bold', letterHeightMm: 60, maxLetterHeightMm: 120, maxChars: 14, materialKind: 'smooth', colour: '#2f7d6d' }],
+          choices: { name: { text: 'Bartholomew' } },
+        },
+        { weeding: 'none' },
+      );
       const html = renderToStaticMarkup(createElement(DesignOnBlank, { blank: pictureOfBlank(blank), label: 'x' }));
       const area = attrs(html, 'rect').find((r) => r['stroke-dasharray'])!;
       const [x, y, w, h] = ['x', 'y', 'width', 'height'].map((k) => Number(area[k]));

@@ -4,14 +4,14 @@
 // charged, and saved choices the listing no longer offers fall back to its defaults.
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { compose } from '../../shared/engine/compose.ts';
 import { getFontRegistry } from '../../server/integrations/fonts.ts';
-import { priceForChoices, type Choices } from '../../shared/schemas/listing.ts';
-import type { ListingPage } from '../../shared/schemas/catalog.ts';
+import { compose } from '../../shared/engine/compose.ts';
 import type { Cart } from '../../shared/schemas/cart.ts';
+import type { ListingPage } from '../../shared/schemas/catalog.ts';
+import { type Choices, priceForChoices } from '../../shared/schemas/listing.ts';
 import { designInput } from '../../src/features/personaliser/lib/design.ts';
 import { defaultChoices, reconcile } from '../../src/features/personaliser/lib/saved-choices.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { at } from '../support/at.ts';
 
 let t: TestApp;
@@ -28,7 +28,7 @@ afterAll(async () => t?.close());
 function choicesFor(l: ListingPage, text: string, pick: 'first' | 'last'): Choices {
   const p = l.content.personalisation;
   const c = defaultChoices(p);
-  const picked = <T,>(xs: readonly T[]) => at(xs, pick === 'first' ? 0 : -1);
+  const picked = <T>(xs: readonly T[]) => at(xs, pick === 'first' ? 0 : -1);
   for (const f of p.textFields) {
     c.texts[f.id] = { text: [...text].slice(0, f.maxLength).join(''), fontId: picked(f.fontIds), letterHeightMm: f.defaultLetterHeightMm };
     c.textColours[f.id] = picked(f.colourChoices);
@@ -50,7 +50,10 @@ describe('personaliser design = cart snapshot', () => {
     const reg = getFontRegistry();
     let checked = 0;
     for (const l of listings) {
-      for (const [text, pick] of [['Zoë', 'first'], ['Bartholomew', 'last']] as const) {
+      for (const [text, pick] of [
+        ['Zoë', 'first'],
+        ['Bartholomew', 'last'],
+      ] as const) {
         const choices = choicesFor(l, text, pick);
         const input = designInput(l, choices);
         expect(input).not.toBeNull();

@@ -53,7 +53,11 @@ describe('client layout = server layout', () => {
       fetched += 1;
       return new Uint8Array(await (await fetch(base + url)).arrayBuffer());
     };
-    const { registry } = await loadClientRegistry(fonts, fonts.map((f) => f.id), fetchBytes);
+    const { registry } = await loadClientRegistry(
+      fonts,
+      fonts.map((f) => f.id),
+      fetchBytes,
+    );
     for (const c of cases) {
       const server = (await request(t.app).post('/api/layout/text').send(c).expect(200)).body;
       const client = layoutText(registry, c, { cache: false });
@@ -66,7 +70,11 @@ describe('client layout = server layout', () => {
     // the CJK name is not in these display fonts: both sides name the same characters
     expect(layoutText(registry, at(cases, 6)).missing).toEqual(['美', '咲']);
     // each font file is fetched once, however many registries ask for it
-    await loadClientRegistry(fonts, fonts.map((f) => f.id), fetchBytes);
+    await loadClientRegistry(
+      fonts,
+      fonts.map((f) => f.id),
+      fetchBytes,
+    );
     expect(fetched).toBe(fonts.length);
   });
 

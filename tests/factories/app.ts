@@ -1,27 +1,26 @@
 // A fresh Namesake app per test file: its own temp DATA_DIR and SQLite file, a real mail fake on
 // a free port, and helpers to make users and sign in through the real auth routes.
+
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import crypto from 'node:crypto';
-import request from 'supertest';
 import { eq } from 'drizzle-orm';
-import { loadEnv } from '../../server/env.ts';
+import request from 'supertest';
+import { startMailFake } from '../../fakes/mail/server.ts';
+import { listMail } from '../../fakes/mail/store.ts';
+import { startStripeFake } from '../../fakes/stripe/server.ts';
+import { type CreateAppInput, createApp } from '../../server/app.ts';
 import { openDb } from '../../server/db/client.ts';
-import { createMailer } from '../../server/integrations/mailer.ts';
-import { createApp, type CreateAppInput } from '../../server/app.ts';
 import { shops, user } from '../../server/db/schema.ts';
 import { seedDemo } from '../../server/db/seed.ts';
-import { startMailFake } from '../../fakes/mail/server.ts';
-import { startStripeFake } from '../../fakes/stripe/server.ts';
-import { listMail } from '../../fakes/mail/store.ts';
+import { loadEnv } from '../../server/env.ts';
+import { createMailer } from '../../server/integrations/mailer.ts';
 import type { Role } from '../../shared/schemas/auth.ts';
 
 export const TEST_PASSWORD = 'correct-horse-battery';
 
-export async function makeTestApp(
-  opts: { seed?: boolean; env?: Record<string, string>; now?: () => number; app?: Pick<CreateAppInput, 'rateLimits' | 'taskTimeoutMs' | 'pool'> } = {},
-) {
+export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, string>; now?: () => number; app?: Pick<CreateAppInput, 'rateLimits' | 'taskTimeoutMs' | 'pool'> } = {}) {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-test-'));
   const mail = await startMailFake({ port: 0, dir: path.join(dataDir, 'mail') });
   // the demo orders are paid at a payment fake: one on a free port, unless the test names its own
@@ -56,7 +55,9 @@ export async function makeTestApp(
     const id = crypto.randomUUID();
     const name = shop.name ?? `Shop ${id.slice(0, 6)}`;
     const at = Date.now();
-    db.insert(shops).values({ id, ownerId: u.id, name, slug: `shop-${id.slice(0, 8)}`, state: shop.state ?? 'live', createdAt: at, updatedAt: at }).run();
+    db.insert(shops)
+      .values({ id, ownerId: u.id, name, slug: `shop-${id.slice(0, 8)}`, state: shop.state ?? 'live', createdAt: at, updatedAt: at })
+      .run();
     return { ...u, shopId: id };
   }
 

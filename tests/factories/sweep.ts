@@ -2,13 +2,13 @@
 // Express app, a fixture world with two shops and two shoppers, XSS payloads, and a fingerprint of
 // the database so a refused call can be shown to have changed nothing.
 import crypto from 'node:crypto';
-import type { Express } from 'express';
 import type Database from 'better-sqlite3';
-import request from 'supertest';
+import type { Express } from 'express';
 import sharp from 'sharp';
-import { makeTestApp, type TestApp } from './app.ts';
-import { createListing, makeMotif } from '../server/listings.fixtures.ts';
+import request from 'supertest';
 import { makeShopWithListing, nameChoices } from '../server/checkout.fixtures.ts';
+import { createListing, makeMotif } from '../server/listings.fixtures.ts';
+import { makeTestApp, type TestApp } from './app.ts';
 
 export type RouteEntry = { method: string; path: string };
 
@@ -76,7 +76,45 @@ export const XSS_PAYLOADS = [
 ] as const;
 
 /** Tags our own HTML (rendered Markdown, mail layouts) may contain; anything else raw came from a user. */
-const OUR_TAGS = new Set(['html', 'head', 'body', 'meta', 'title', 'style', 'p', 'a', 'strong', 'em', 'b', 'i', 'del', 'br', 'hr', 'h1', 'h2', 'h3', 'h4', 'h5', 'h6', 'ul', 'ol', 'li', 'table', 'thead', 'tbody', 'tr', 'td', 'th', 'span', 'div', 'code', 'pre', 'blockquote', 'center', 'font']);
+const OUR_TAGS = new Set([
+  'html',
+  'head',
+  'body',
+  'meta',
+  'title',
+  'style',
+  'p',
+  'a',
+  'strong',
+  'em',
+  'b',
+  'i',
+  'del',
+  'br',
+  'hr',
+  'h1',
+  'h2',
+  'h3',
+  'h4',
+  'h5',
+  'h6',
+  'ul',
+  'ol',
+  'li',
+  'table',
+  'thead',
+  'tbody',
+  'tr',
+  'td',
+  'th',
+  'span',
+  'div',
+  'code',
+  'pre',
+  'blockquote',
+  'center',
+  'font',
+]);
 
 /**
  * What in an HTML string a browser would run or load: a raw <script, a tag we never write (so it
@@ -135,15 +173,26 @@ export async function makeSweepWorld() {
   const motifName = `Sweep motif ${marker}`;
   const draft = await createListing(fern, { title: draftTitle });
   const motif = await makeMotif(fern, undefined, motifName);
-  const photo = await fern
-    .post('/api/uploads')
-    .attach('file', await sharp({ create: { width: 40, height: 30, channels: 3, background: '#2f7d6d' } }).png().toBuffer(), { filename: 'p.png', contentType: 'image/png' });
+  const photo = await fern.post('/api/uploads').attach(
+    'file',
+    await sharp({ create: { width: 40, height: 30, channels: 3, background: '#2f7d6d' } })
+      .png()
+      .toBuffer(),
+    { filename: 'p.png', contentType: 'image/png' },
+  );
   if (photo.status !== 201) throw new Error(`upload: ${photo.status}`);
   const material = one<{ id: string }>(sqlite, 'select id from materials where shop_id = ? order by created_at limit 1', fernShop.id);
   const liveListing = one<{ id: string; slug: string }>(sqlite, "select id, slug from listings where shop_id = ? and state = 'live' limit 1", fernShop.id);
 
   const danaOrders = all<{ id: string; number: string }>(sqlite, 'select id, number from orders where buyer_id = ? and shop_id = ? order by created_at', danaId, fernShop.id);
-  const lineIn = (state: string) => one<{ id: string; order_id: string } | undefined>(sqlite, "select l.id, l.order_id from order_lines l join orders o on o.id = l.order_id where o.shop_id = ? and o.buyer_id = ? and l.state = ? limit 1", fernShop.id, danaId, state);
+  const lineIn = (state: string) =>
+    one<{ id: string; order_id: string } | undefined>(
+      sqlite,
+      'select l.id, l.order_id from order_lines l join orders o on o.id = l.order_id where o.shop_id = ? and o.buyer_id = ? and l.state = ? limit 1',
+      fernShop.id,
+      danaId,
+      state,
+    );
   const approved = lineIn('approved');
   const waiting = lineIn('awaiting_proof');
   if (!approved || !waiting || !danaOrders.length) throw new Error('the seed has no approved/awaiting lines of Dana in Fern’s shop');
@@ -178,21 +227,47 @@ export async function makeSweepWorld() {
   const mail = (await t.mailTo('dana@namesake.test'))[0];
 
   const ids = {
-    danaId, fernId, samId: sam.id, targetId: target.id,
-    fernShop: fernShop.id, fernSlug: fernShop.slug, cometShop: cometShop.id,
-    draftListing: draft.id, liveListing: liveListing.id, liveSlug: liveListing.slug,
-    motif: motif.id, upload: String(photo.body.upload.id), material: material.id,
-    orderA: approved.order_id, orderB: danaOrders[danaOrders.length - 1]!.id,
-    approvedLine: approved.id, changeLine: waiting.id,
-    sheet: String(sheets.body.sheets[0].id), batch: String(sheets.body.batchId), job: String(job.body.job.id),
-    cartLine: cartLineId, checkoutSession: checkout.provider_session_id,
-    pendingShop: pending.shopId, pendingListing: pendingListing.id,
+    danaId,
+    fernId,
+    samId: sam.id,
+    targetId: target.id,
+    fernShop: fernShop.id,
+    fernSlug: fernShop.slug,
+    cometShop: cometShop.id,
+    draftListing: draft.id,
+    liveListing: liveListing.id,
+    liveSlug: liveListing.slug,
+    motif: motif.id,
+    upload: String(photo.body.upload.id),
+    material: material.id,
+    orderA: approved.order_id,
+    orderB: danaOrders[danaOrders.length - 1]!.id,
+    approvedLine: approved.id,
+    changeLine: waiting.id,
+    sheet: String(sheets.body.sheets[0].id),
+    batch: String(sheets.body.batchId),
+    job: String(job.body.job.id),
+    cartLine: cartLineId,
+    checkoutSession: checkout.provider_session_id,
+    pendingShop: pending.shopId,
+    pendingListing: pendingListing.id,
     mailId: mail ? String((mail as { id: string }).id) : 'none',
   };
   /** strings only the owner (or an admin) may see */
   const secrets = [
-    'dana@namesake.test', 'fern@namesake.test', draftTitle, motifName, ids.upload, ids.sheet, ids.batch, ids.job,
-    ids.cartLine, ids.checkoutSession, ...danaOrders.flatMap((o) => [o.id, o.number]), ids.approvedLine, ids.changeLine,
+    'dana@namesake.test',
+    'fern@namesake.test',
+    draftTitle,
+    motifName,
+    ids.upload,
+    ids.sheet,
+    ids.batch,
+    ids.job,
+    ids.cartLine,
+    ids.checkoutSession,
+    ...danaOrders.flatMap((o) => [o.id, o.number]),
+    ids.approvedLine,
+    ids.changeLine,
   ];
 
   /** rows that belong to Fern, Dana, the pending shop and the admin-call target (what a refused call must not touch) */
@@ -206,8 +281,7 @@ export async function makeSweepWorld() {
     q(`select * from account where user_id in (${inList(users.length)}) order by id`, ...users);
     q(`select id, user_id, expires_at from session where user_id in (${inList(users.length)}) order by id`, ...users);
     for (const tb of ['shops']) q(`select * from ${tb} where id in (${inList(shopIds.length)}) order by id`, ...shopIds);
-    for (const tb of ['materials', 'motifs', 'uploads', 'listings', 'cut_sheets', 'ledger'])
-      q(`select * from ${tb} where shop_id in (${inList(shopIds.length)}) order by id`, ...shopIds);
+    for (const tb of ['materials', 'motifs', 'uploads', 'listings', 'cut_sheets', 'ledger']) q(`select * from ${tb} where shop_id in (${inList(shopIds.length)}) order by id`, ...shopIds);
     q('select * from orders where buyer_id = ? or shop_id = ? order by id', danaId, fernShop.id);
     q('select l.* from order_lines l join orders o on o.id = l.order_id where o.buyer_id = ? or o.shop_id = ? order by l.id', danaId, fernShop.id);
     q('select v.* from line_versions v join order_lines l on l.id = v.line_id join orders o on o.id = l.order_id where o.buyer_id = ? order by v.id', danaId);

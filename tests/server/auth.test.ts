@@ -1,8 +1,8 @@
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { makeTestApp, eventually, type TestApp } from '../factories/app.ts';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eventually, makeTestApp, type TestApp } from '../factories/app.ts';
 import { at } from '../support/at.ts';
 
 let t: TestApp;
@@ -71,7 +71,9 @@ describe('brute force (ASVS 6.3.1)', () => {
     const u = await t.makeUser('shopper');
     const statuses: number[] = [];
     for (let i = 0; i < 10; i++) {
-      const r = await request(t.app).post('/api/auth/sign-in/email').send({ email: u.email, password: `wrong-guess-${i}` });
+      const r = await request(t.app)
+        .post('/api/auth/sign-in/email')
+        .send({ email: u.email, password: `wrong-guess-${i}` });
       statuses.push(r.status);
     }
     expect(statuses.slice(0, 5).every((s) => s === 401)).toBe(true);
@@ -129,7 +131,9 @@ describe('bad input gets a 400 with field messages', () => {
   });
 
   it('when a 128-character password is used, then sign-up works (ASVS 6.2.9)', async () => {
-    const res = await request(t.app).post('/api/auth/sign-up/email').send({ name: 'Long', email: 'long-pass@namesake.test', password: 'p1'.repeat(64) });
+    const res = await request(t.app)
+      .post('/api/auth/sign-up/email')
+      .send({ name: 'Long', email: 'long-pass@namesake.test', password: 'p1'.repeat(64) });
     expect(res.status).toBe(200);
   });
 
@@ -152,10 +156,13 @@ describe('password reset by e-mail', () => {
     const u = await t.makeUser('shopper');
     const ask = await request(t.app).post('/api/auth/request-password-reset').send({ email: u.email, redirectTo: '/reset-password' });
     expect(ask.status).toBe(200);
-    const mail = at(await eventually(async () => {
-      const m = await t.mailTo(u.email);
-      return m.length ? m : null;
-    }), 0);
+    const mail = at(
+      await eventually(async () => {
+        const m = await t.mailTo(u.email);
+        return m.length ? m : null;
+      }),
+      0,
+    );
     expect(mail.subject).toMatch(/Reset your Namesake password/);
     const link = /https?:\/\/\S+reset-password\/[^\s"<]+/.exec(mail.text)?.[0];
     expect(link).toBeTruthy();
@@ -233,18 +240,28 @@ describe('one path per auth endpoint (limits cannot be side-stepped)', () => {
   const rawPost = (path: string, body: object) =>
     new Promise<{ status: number; setCookie: unknown; body: { error?: { code: string } } }>((resolve, reject) => {
       const data = JSON.stringify(body);
-      const req = http.request({ host: '127.0.0.1', port: (server.address() as AddressInfo).port, path, method: 'POST', headers: { 'content-type': 'application/json', 'content-length': Buffer.byteLength(data) } }, (res) => {
-        let text = '';
-        res.on('data', (c) => (text += c));
-        res.on('end', () => resolve({ status: res.statusCode ?? 0, setCookie: res.headers['set-cookie'], body: JSON.parse(text || '{}') }));
-      });
+      const req = http.request(
+        { host: '127.0.0.1', port: (server.address() as AddressInfo).port, path, method: 'POST', headers: { 'content-type': 'application/json', 'content-length': Buffer.byteLength(data) } },
+        (res) => {
+          let text = '';
+          res.on('data', (c) => (text += c));
+          res.on('end', () => resolve({ status: res.statusCode ?? 0, setCookie: res.headers['set-cookie'], body: JSON.parse(text || '{}') }));
+        },
+      );
       req.on('error', reject);
       req.end(data);
     });
 
   it.each(VARIANTS)('when %s is used after five failures, then the right password is still refused and no session is made', async (path) => {
     const u = await t.makeUser('shopper');
-    for (let i = 0; i < 5; i++) expect((await request(t.app).post('/api/auth/sign-in/email').send({ email: u.email, password: `wrong-${i}-guess` })).status).toBe(401);
+    for (let i = 0; i < 5; i++)
+      expect(
+        (
+          await request(t.app)
+            .post('/api/auth/sign-in/email')
+            .send({ email: u.email, password: `wrong-${i}-guess` })
+        ).status,
+      ).toBe(401);
     const res = await rawPost(path, { email: u.email, password: u.password });
     expect([400, 404, 429]).toContain(res.status);
     expect(res.setCookie).toBeUndefined();
@@ -297,15 +314,18 @@ describe('every way to set a password follows the sign-up rules', () => {
     const agent = await t.signIn(u.email);
     const cookie = (await agent.get('/api/me')).request.getHeader('cookie') as string | undefined;
     // straight into better-auth's handler, past our HTTP guard
-    const res = await t.deps.auth.handler(new Request('http://localhost:3000/api/auth/change-password', {
-      method: 'POST', headers: { 'content-type': 'application/json', cookie: cookie ?? '', origin: 'http://localhost:3000' },
-      body: JSON.stringify({ currentPassword: u.password, newPassword: 'iloveyou' }),
-    }));
+    const res = await t.deps.auth.handler(
+      new Request('http://localhost:3000/api/auth/change-password', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', cookie: cookie ?? '', origin: 'http://localhost:3000' },
+        body: JSON.stringify({ currentPassword: u.password, newPassword: 'iloveyou' }),
+      }),
+    );
     expect(res.status).toBe(400);
     expect(((await res.json()) as { code: string }).code).toBe('WEAK_PASSWORD');
   });
 
-  it('when an admin sets a user\'s password, then the same rules apply', async () => {
+  it("when an admin sets a user's password, then the same rules apply", async () => {
     const u = await t.makeUser('shopper');
     const admin = await t.signIn('admin@namesake.test', 'namesake-demo');
     const weak = await admin.post('/api/auth/admin/set-user-password').send({ userId: u.id, newPassword: 'password1' });
@@ -346,7 +366,7 @@ describe('nobody changes a role through the account endpoints', () => {
     ['/api/auth/admin/set-user-password', (id: string) => ({ userId: id, newPassword: 'a-long-enough-pass' })],
     ['/api/auth/admin/update-user', (id: string) => ({ userId: id, data: { role: 'admin' } })],
     ['/api/auth/admin/impersonate-user', (id: string) => ({ userId: id })],
-  ])('when a seller calls the admin plugin\'s %s, then 403 and their role is unchanged', async (path, body) => {
+  ])("when a seller calls the admin plugin's %s, then 403 and their role is unchanged", async (path, body) => {
     const u = await t.makeUser('seller');
     const agent = await t.signIn(u.email);
     const res = await agent.post(path).send(body(u.id));
@@ -381,7 +401,7 @@ describe('session lifetime: sliding, with an absolute cap of 30 days', () => {
     expect((await agent.post('/api/auth/change-password').send({ currentPassword: u.password, newPassword: 'a-fresh-long-phrase' })).status).toBe(401);
   });
 
-  it('when the session row is older than 30 days, then better-auth\'s own endpoints refuse it too', async () => {
+  it("when the session row is older than 30 days, then better-auth's own endpoints refuse it too", async () => {
     clock = Date.now();
     const u = await c.makeUser('shopper');
     const agent = await c.signIn(u.email);

@@ -3,15 +3,16 @@
 // one consistent point in time); `npm run db:restore FILE` checks the file, refuses while a server
 // runs on DATA_DIR, keeps the old database aside and puts the backup in place. Restored into a
 // fresh DATA_DIR, a server started on it shows the shopper every order.
+
+import { spawn } from 'node:child_process';
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import crypto from 'node:crypto';
-import { spawn } from 'node:child_process';
 import Database from 'better-sqlite3';
 import request from 'supertest';
 import { afterAll, describe, expect, test } from 'vitest';
-import { startNamesake, type Running } from '../../server/runtime.ts';
+import { type Running, startNamesake } from '../../server/runtime.ts';
 
 const TSX = path.resolve('node_modules/.bin/tsx');
 const dirs: string[] = [];
@@ -27,8 +28,15 @@ afterAll(async () => {
 });
 
 const envFor = (dataDir: string) => ({
-  NODE_ENV: 'test', DATA_DIR: dataDir, PORT: '0', SMTP_PORT: '0', STRIPE_FAKE: 'false', STRIPE_API_BASE: 'http://127.0.0.1:9',
-  LOG_REQUESTS: 'false', DIGEST: 'false', BASE_URL: 'http://localhost:3000',
+  NODE_ENV: 'test',
+  DATA_DIR: dataDir,
+  PORT: '0',
+  SMTP_PORT: '0',
+  STRIPE_FAKE: 'false',
+  STRIPE_API_BASE: 'http://127.0.0.1:9',
+  LOG_REQUESTS: 'false',
+  DIGEST: 'false',
+  BASE_URL: 'http://localhost:3000',
 });
 
 /** Runs one of our npm scripts the way `npm run` does (tsx on the file), with DATA_DIR set. */
@@ -69,7 +77,13 @@ describe('db:backup and db:restore', () => {
     const newOrder = writer.transaction((n: number) => {
       const checkoutId = crypto.randomUUID();
       const orderId = crypto.randomUUID();
-      clone(writer, 'checkouts', tplCheckout, { id: checkoutId, cart_id: crypto.randomUUID(), provider_session_id: `cs_backup_${n}_${checkoutId.slice(0, 8)}`, payment_intent_id: `pi_backup_${n}`, charge_id: `ch_backup_${n}` });
+      clone(writer, 'checkouts', tplCheckout, {
+        id: checkoutId,
+        cart_id: crypto.randomUUID(),
+        provider_session_id: `cs_backup_${n}_${checkoutId.slice(0, 8)}`,
+        payment_intent_id: `pi_backup_${n}`,
+        charge_id: `ch_backup_${n}`,
+      });
       clone(writer, 'orders', template, { id: orderId, checkout_id: checkoutId, number: `NS-BK${String(n).padStart(5, '0')}`, transfer_id: null });
       for (const l of tplLines) clone(writer, 'order_lines', l, { id: crypto.randomUUID(), order_id: orderId });
       return orderId;

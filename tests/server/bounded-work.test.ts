@@ -1,14 +1,15 @@
 // Bounded work (issue #11 part 2): hostile motifs are refused by a named limit before any geometry
 // work, heavy work runs in the worker pool so the server keeps answering, a task past its time
 // limit is ended with a clear error, and heavy routes are rate-limited per account.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
 import type { AddressInfo } from 'node:net';
-import request, { type Agent } from 'supertest';
 import { sql } from 'drizzle-orm';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { createWorkPool, type WorkPool } from '../../server/workers/pool.ts';
+import request, { type Agent } from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AppError } from '../../server/http/app-error.ts';
+import { createWorkPool, type WorkPool } from '../../server/workers/pool.ts';
 import { MAX_COORDINATE_MM, MOTIF_MAX_DEPTH, MOTIF_MAX_ELEMENTS, MOTIF_MAX_PATH_COMMANDS } from '../../shared/engine/limits.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 
 const svg = (body: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100">${body}</svg>`;
 const SMALL = svg('<rect x="10" y="10" width="50" height="40" fill="#ff0000"/>');
@@ -31,8 +32,7 @@ function overlappingMotif(n: number): string {
   return `<svg xmlns="http://www.w3.org/2000/svg" width="1000mm" height="1000mm" viewBox="0 0 1000 1000">${body}</svg>`;
 }
 
-const upload = (agent: Agent, file: string, name = 'Motif') =>
-  agent.post('/api/motifs').field('name', name).attach('file', Buffer.from(file), { filename: 'm.svg', contentType: 'image/svg+xml' });
+const upload = (agent: Agent, file: string, name = 'Motif') => agent.post('/api/motifs').field('name', name).attach('file', Buffer.from(file), { filename: 'm.svg', contentType: 'image/svg+xml' });
 
 const motifRows = (t: TestApp) => t.db.get<{ n: number }>(sql`select count(*) as n from motifs`)!.n;
 
@@ -53,10 +53,25 @@ describe('hostile motifs', () => {
     { label: 'a curve control point at 1e11', file: () => svg('<path d="M0 0 C 1e11 0 10 10 0 10 Z"/>'), code: 'motif_out_of_range', names: new RegExp(`${limitMm} mm`) },
     { label: 'a curve control point at 1e13', file: () => svg('<path d="M0 0 C 10 0 1e13 1e13 0 10 Z"/>'), code: 'motif_out_of_range', names: new RegExp(`${limitMm} mm`) },
     { label: 'a coordinate written 1e999 (infinite)', file: () => svg('<path d="M0 0 L 1e999 0 L 0 10 Z"/>'), code: 'motif_out_of_range', names: /not a finite number.*20,000 mm/ },
-    { label: 'a transform scale(1e12) on a plain square', file: () => svg('<g transform="scale(1e12)"><rect width="10" height="10"/></g>'), code: 'motif_out_of_range', names: new RegExp(`${limitMm} mm`) },
-    { label: 'groups nested 2,000 deep', file: () => svg(`${'<g>'.repeat(2000)}<rect width="10" height="10"/>${'</g>'.repeat(2000)}`), code: 'motif_too_deep', names: new RegExp(`more than ${MOTIF_MAX_DEPTH} deep`) },
+    {
+      label: 'a transform scale(1e12) on a plain square',
+      file: () => svg('<g transform="scale(1e12)"><rect width="10" height="10"/></g>'),
+      code: 'motif_out_of_range',
+      names: new RegExp(`${limitMm} mm`),
+    },
+    {
+      label: 'groups nested 2,000 deep',
+      file: () => svg(`${'<g>'.repeat(2000)}<rect width="10" height="10"/>${'</g>'.repeat(2000)}`),
+      code: 'motif_too_deep',
+      names: new RegExp(`more than ${MOTIF_MAX_DEPTH} deep`),
+    },
     { label: '100,000 elements', file: () => svg('<g/>'.repeat(100_000)), code: 'motif_too_many_elements', names: new RegExp(`more than ${MOTIF_MAX_ELEMENTS} elements`) },
-    { label: '100,000 path commands in one path', file: () => svg(`<path d="M0 0${' L1 1'.repeat(100_000)} Z"/>`), code: 'motif_too_many_commands', names: new RegExp(`more than ${MOTIF_MAX_PATH_COMMANDS.toLocaleString('en')} path commands`) },
+    {
+      label: '100,000 path commands in one path',
+      file: () => svg(`<path d="M0 0${' L1 1'.repeat(100_000)} Z"/>`),
+      code: 'motif_too_many_commands',
+      names: new RegExp(`more than ${MOTIF_MAX_PATH_COMMANDS.toLocaleString('en')} path commands`),
+    },
   ];
 
   for (const c of cases) {

@@ -4,20 +4,28 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { afterAll, expect, test } from 'vitest';
 import { eq, like } from 'drizzle-orm';
-import { startNamesake } from '../../server/runtime.ts';
+import { afterAll, expect, test } from 'vitest';
+import { listMail } from '../../fakes/mail/store.ts';
 import { openDb } from '../../server/db/client.ts';
 import { jobRuns, orders, shops, user } from '../../server/db/schema.ts';
-import { listMail } from '../../fakes/mail/store.ts';
+import { startNamesake } from '../../server/runtime.ts';
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-digest-'));
 afterAll(() => fs.rmSync(dataDir, { recursive: true, force: true }));
 
 const env = (digest: boolean) => ({
-  NODE_ENV: 'test', DATA_DIR: dataDir, PORT: '0', SMTP_PORT: '0', STRIPE_FAKE: 'false', LOG_REQUESTS: 'false', BASE_URL: 'http://localhost:3999',
+  NODE_ENV: 'test',
+  DATA_DIR: dataDir,
+  PORT: '0',
+  SMTP_PORT: '0',
+  STRIPE_FAKE: 'false',
+  LOG_REQUESTS: 'false',
+  BASE_URL: 'http://localhost:3999',
   // midnight UTC has always passed today, so every start-up runs the catch-up
-  DIGEST_CRON: '0 0 * * *', BUSINESS_TIME_ZONE: 'UTC', DIGEST: digest ? 'true' : 'false',
+  DIGEST_CRON: '0 0 * * *',
+  BUSINESS_TIME_ZONE: 'UTC',
+  DIGEST: digest ? 'true' : 'false',
 });
 const digests = async () => (await listMail(path.join(dataDir, 'mail'), { to: 'fern@namesake.test' })).filter((m) => /your workroom for/.test(m.subject ?? ''));
 
@@ -49,6 +57,12 @@ test('when the server starts twice on the same day, then the digest is in the ma
   expect(await digests()).toHaveLength(1);
   const { db, sqlite } = openDb(path.join(dataDir, 'namesake.db'));
   const today = new Date().toISOString().slice(0, 10);
-  expect(db.select().from(jobRuns).where(like(jobRuns.key, `digest:${today}:%`)).all().length).toBeGreaterThanOrEqual(1);
+  expect(
+    db
+      .select()
+      .from(jobRuns)
+      .where(like(jobRuns.key, `digest:${today}:%`))
+      .all().length,
+  ).toBeGreaterThanOrEqual(1);
   sqlite.close();
 }, 120_000);

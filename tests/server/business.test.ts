@@ -1,17 +1,17 @@
 // The business API on a fresh seeded database: calendar settings, ship-by marks, cost of goods
 // from real cut sheets, the price check, the ledger (JSON and CSV), charts and the digest.
 import crypto from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { eq, like } from 'drizzle-orm';
 import Papa from 'papaparse';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { checkouts, cutSheets, jobRuns, orderLines, orders, shops, user } from '../../server/db/schema.ts';
-import { createOrdersForCheckout, type PricedShop } from '../../server/features/orders/orders.service.ts';
 import { runDigest } from '../../server/features/business/digest.ts';
-import { parsePathData, pathArea } from '../../shared/engine/path.ts';
+import { createOrdersForCheckout, type PricedShop } from '../../server/features/orders/orders.service.ts';
 import { sheetCostShares } from '../../shared/business/costs.ts';
-import type { CostsView, DueView, LedgerView, PriceCheckResult, BusinessSettings, ChartsView } from '../../shared/schemas/business.ts';
+import { parsePathData, pathArea } from '../../shared/engine/path.ts';
+import type { BusinessSettings, ChartsView, CostsView, DueView, LedgerView, PriceCheckResult } from '../../shared/schemas/business.ts';
 import type { SellerListing } from '../../shared/schemas/listing.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 
 const DEMO = 'namesake-demo';
 let t: TestApp;
@@ -37,11 +37,29 @@ function makeOrder(paidAt: number): { orderId: string; lineId: string } {
   const src = t.db.select({ line: orderLines }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId)).where(eq(orders.shopId, shop.id)).all()[0]!.line;
   const snapshot = src.snapshot;
   const priced: PricedShop = {
-    shopId: shop.id, shopName: shop.name, shippingMinor: 450, subtotalMinor: src.unitPriceMinor, totalMinor: src.unitPriceMinor + 450,
+    shopId: shop.id,
+    shopName: shop.name,
+    shippingMinor: 450,
+    subtotalMinor: src.unitPriceMinor,
+    totalMinor: src.unitPriceMinor + 450,
     lines: [{ listingId: src.listingId, title: src.listingTitle, quantity: 1, unitPriceMinor: src.unitPriceMinor, totalMinor: src.unitPriceMinor, snapshot }],
   };
   const checkoutId = crypto.randomUUID();
-  t.db.insert(checkouts).values({ id: checkoutId, userId: danaId, cartId: crypto.randomUUID(), cartVersion: 1, state: 'paid', currency: 'USD', totalMinor: priced.totalMinor, priced: { currency: 'USD', totalMinor: priced.totalMinor, shops: [] }, createdAt: paidAt, paidAt }).run();
+  t.db
+    .insert(checkouts)
+    .values({
+      id: checkoutId,
+      userId: danaId,
+      cartId: crypto.randomUUID(),
+      cartVersion: 1,
+      state: 'paid',
+      currency: 'USD',
+      totalMinor: priced.totalMinor,
+      priced: { currency: 'USD', totalMinor: priced.totalMinor, shops: [] },
+      createdAt: paidAt,
+      paidAt,
+    })
+    .run();
   const [o] = createOrdersForCheckout(t.db, { checkoutId, buyerId: danaId, currency: 'USD', shops: [priced], paidAt, feeBps: 800, paymentIntentId: null });
   const line = t.db.select().from(orderLines).where(eq(orderLines.orderId, o!.id)).get()!;
   return { orderId: o!.id, lineId: line.id };
@@ -123,7 +141,10 @@ describe('cost of goods (Must show)', () => {
     const shared = sheets.find((s) => new Set(s.pieces.map((p) => p.lineId)).size === 3);
     expect(shared).toBeDefined();
     expect(shared!.costMinor).toBeGreaterThan(0);
-    const shares = sheetCostShares(shared!.costMinor!, shared!.pieces.map((p) => ({ lineId: p.lineId, areaMm2: pathArea(parsePathData(p.path)) })));
+    const shares = sheetCostShares(
+      shared!.costMinor!,
+      shared!.pieces.map((p) => ({ lineId: p.lineId, areaMm2: pathArea(parsePathData(p.path)) })),
+    );
     expect([...shares.values()].reduce((a, b) => a + b, 0)).toBe(shared!.costMinor);
 
     const costs = (await fern.get('/api/business/costs')).body as CostsView;
@@ -223,7 +244,12 @@ describe('ledger and charts', () => {
     expect(c.vinyl.length).toBeGreaterThan(0); // the sheets cut above
     expect(c.listings.length).toBeGreaterThan(0);
     const costs = (await fern.get('/api/business/costs')).body as CostsView;
-    expect(c.weeks.reduce((a, w) => a + w.marginMinor, 0)).toBe(costs.orders.flatMap((o) => o.lines).filter((l) => l.state !== 'cancelled').reduce((a, l) => a + l.marginMinor, 0));
+    expect(c.weeks.reduce((a, w) => a + w.marginMinor, 0)).toBe(
+      costs.orders
+        .flatMap((o) => o.lines)
+        .filter((l) => l.state !== 'cancelled')
+        .reduce((a, l) => a + l.marginMinor, 0),
+    );
   });
 });
 
@@ -241,9 +267,15 @@ describe('morning digest', () => {
     expect(mails.length).toBe(1);
     expect(mails[0]!.text).toMatch(/Late \(past the ship-by date\)/);
     expect(before).toBe(0);
-    expect(t.db.select().from(jobRuns).where(like(jobRuns.key, 'digest:2026-12-10:%')).all().map((r) => r.key)).toContain(`digest:2026-12-10:${fernShop.id}`);
+    expect(
+      t.db
+        .select()
+        .from(jobRuns)
+        .where(like(jobRuns.key, 'digest:2026-12-10:%'))
+        .all()
+        .map((r) => r.key),
+    ).toContain(`digest:2026-12-10:${fernShop.id}`);
     clock = Date.UTC(2026, 11, 11, 7, 0);
     expect((await runDigest(t.deps)).sent).toContain(fernShop.id);
   });
 });
-

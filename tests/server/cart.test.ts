@@ -1,8 +1,9 @@
 // The cart: guest carts by HttpOnly cookie (OWASP ASVS 3.3.4), merged on sign-in, lines priced by
 // the server from the live listing and the engine's composition of the choices.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import request from 'supertest';
+
 import { eq } from 'drizzle-orm';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { carts, listings } from '../../server/db/schema.ts';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { makeShopWithListing, nameChoices } from './checkout.fixtures.ts';
@@ -37,10 +38,16 @@ describe('cart', () => {
     const b = await makeShopWithListing(t);
     const user = await t.makeUser('shopper');
     const signedIn = await t.signIn(user.email);
-    await signedIn.post('/api/cart/lines').send({ listingId: a.listingId, choices: nameChoices('Theo') }).expect(201);
+    await signedIn
+      .post('/api/cart/lines')
+      .send({ listingId: a.listingId, choices: nameChoices('Theo') })
+      .expect(201);
 
     const guest = request.agent(t.app);
-    await guest.post('/api/cart/lines').send({ listingId: b.listingId, choices: nameChoices('Kai') }).expect(201);
+    await guest
+      .post('/api/cart/lines')
+      .send({ listingId: b.listingId, choices: nameChoices('Kai') })
+      .expect(201);
     await guest.post('/api/auth/sign-in/email').send({ email: user.email, password: user.password }).expect(200);
     const merged = await guest.get('/api/cart');
     expect(merged.body.itemCount).toBe(2);
@@ -50,11 +57,14 @@ describe('cart', () => {
     expect((await signedIn.get('/api/cart')).body.itemCount).toBe(2);
   });
 
-  it('when lines come from two shops, then they are grouped by shop with each shop\'s shipping and totals in minor units', async () => {
+  it("when lines come from two shops, then they are grouped by shop with each shop's shipping and totals in minor units", async () => {
     const a = await makeShopWithListing(t, { shippingMinor: 450, basePriceMinor: 2400, extraLayerPriceMinor: 300, outline: true });
     const b = await makeShopWithListing(t, { shippingMinor: 0, basePriceMinor: 1999 });
     const agent = request.agent(t.app);
-    await agent.post('/api/cart/lines').send({ listingId: a.listingId, quantity: 2, choices: nameChoices('Anouk') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: a.listingId, quantity: 2, choices: nameChoices('Anouk') })
+      .expect(201);
     const res = await agent.post('/api/cart/lines').send({ listingId: b.listingId, quantity: 1, choices: nameChoices('Leon') });
     const [sa, sb] = res.body.shops;
     // outline + name = 2 layers → base + one extra layer
@@ -90,7 +100,7 @@ describe('cart', () => {
     expect(removed.body.shops).toHaveLength(0);
   });
 
-  it('when the choices break the listing\'s rules, then 400 with a message per field and nothing added', async () => {
+  it("when the choices break the listing's rules, then 400 with a message per field and nothing added", async () => {
     const shop = await makeShopWithListing(t);
     const agent = request.agent(t.app);
     const tooLong = await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Bartholomew-Jr') });
@@ -107,7 +117,9 @@ describe('cart', () => {
 
   it('when the font cannot draw a character, then the shopper is told which one', async () => {
     const shop = await makeShopWithListing(t);
-    const res = await request(t.app).post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Mira★') });
+    const res = await request(t.app)
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Mira★') });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toContain('★');
   });
@@ -115,7 +127,10 @@ describe('cart', () => {
   it('when a listing is not live, then it cannot be added, and a line already in the cart cannot be checked out', async () => {
     const shop = await makeShopWithListing(t);
     const agent = request.agent(t.app);
-    await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Zoë') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Zoë') })
+      .expect(201);
     t.db.update(listings).set({ state: 'paused' }).where(eq(listings.id, shop.listingId)).run();
     expect((await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Kai') })).status).toBe(404);
     const cart = (await agent.get('/api/cart')).body;

@@ -1,10 +1,10 @@
 import crypto from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listings } from '../../server/db/schema.ts';
-import { OCCASIONS, liveColumns, listingInputSchema } from '../../shared/schemas/listing.ts';
 import { CATALOG_PAGE_SIZE } from '../../shared/schemas/catalog.ts';
+import { listingInputSchema, liveColumns, OCCASIONS } from '../../shared/schemas/listing.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { createListing, listingBody, liveListing } from './listings.fixtures.ts';
 
 let t: TestApp;
@@ -73,7 +73,7 @@ describe('search (FTS5)', () => {
     expect(res.body.items.map((i: Item) => i.title)).toContain(title);
   });
 
-  it('when searching by shop name, then only that shop\'s listings come back', async () => {
+  it("when searching by shop name, then only that shop's listings come back", async () => {
     const items: Item[] = (await get({ q: 'little comet' })).body.items;
     expect(items.length).toBeGreaterThanOrEqual(3);
     expect(new Set(items.map((i) => i.shop.slug))).toEqual(new Set(['little-comet-print-co']));
@@ -139,7 +139,22 @@ describe('filters, sort, pages', () => {
     const at = Date.now();
     for (let i = 0; i < 30; i++) {
       const content = { ...body, title: `Pagination tote ${i}` };
-      t.db.insert(listings).values({ id: crypto.randomUUID(), shopId, slug: `pagination-${i}`, state: 'live', draft: content, live: content, ...liveColumns(body), liveTitle: `Pagination tote ${i}`, publishedAt: at + i, createdAt: at, updatedAt: at }).run();
+      t.db
+        .insert(listings)
+        .values({
+          id: crypto.randomUUID(),
+          shopId,
+          slug: `pagination-${i}`,
+          state: 'live',
+          draft: content,
+          live: content,
+          ...liveColumns(body),
+          liveTitle: `Pagination tote ${i}`,
+          publishedAt: at + i,
+          createdAt: at,
+          updatedAt: at,
+        })
+        .run();
     }
     const p1 = (await get({ q: 'pagination' })).body;
     const p2 = (await get({ q: 'pagination', page: 2 })).body;

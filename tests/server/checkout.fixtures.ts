@@ -1,19 +1,20 @@
 // Shared arrangements for the cart / checkout / webhook / orders / refunds tests: a test app wired
 // to a real Stripe fake (fakes/stripe) on a free port, listening so the fake's webhooks reach it,
 // and shops with live listings whose rows each test makes itself.
+
+import crypto from 'node:crypto';
+import fs from 'node:fs';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import crypto from 'node:crypto';
-import Stripe from 'stripe';
 import { eq } from 'drizzle-orm';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { startStripeFake, type StripeFake } from '../../fakes/stripe/server.ts';
+import Stripe from 'stripe';
+import { type StripeFake, startStripeFake } from '../../fakes/stripe/server.ts';
 import { listings, materials, shops } from '../../server/db/schema.ts';
 import { defaultPressProfile } from '../../shared/engine/press-defaults.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 
 export const WEBHOOK_SECRET = 'whsec_checkout_tests';
 const SECRET_KEY = 'sk_test_checkout_tests';
@@ -75,10 +76,17 @@ export async function makeShopWithListing(
 ) {
   const seller = await t.makeSeller({ name: o.shopName });
   const at = Date.now();
-  t.db.update(shops).set({ shippingMinor: o.shippingMinor ?? 450, currency: o.currency ?? 'USD' }).where(eq(shops.id, seller.shopId)).run();
+  t.db
+    .update(shops)
+    .set({ shippingMinor: o.shippingMinor ?? 450, currency: o.currency ?? 'USD' })
+    .where(eq(shops.id, seller.shopId))
+    .run();
   const mat = (kind: 'smooth' | 'glitter', colourName: string, colourHex: string) => {
     const id = crypto.randomUUID();
-    t.db.insert(materials).values({ id, shopId: seller.shopId, kind, colourName, colourHex, rollWidthMm: 305, stockMm: 5000, pressProfile: defaultPressProfile(kind), createdAt: at }).run();
+    t.db
+      .insert(materials)
+      .values({ id, shopId: seller.shopId, kind, colourName, colourHex, rollWidthMm: 305, stockMm: 5000, pressProfile: defaultPressProfile(kind), createdAt: at })
+      .run();
     return id;
   };
   const navy = mat('smooth', 'Navy', '#1f2a44');
@@ -105,7 +113,20 @@ export async function makeShopWithListing(
   };
   t.db
     .insert(listings)
-    .values({ id: listingId, shopId: seller.shopId, slug: `tote-${listingId.slice(0, 8)}`, state: 'live', draft: content as never, live: content as never, liveTitle: content.title, livePriceMinor: content.basePriceMinor, currency: o.currency ?? 'USD', publishedAt: at, createdAt: at, updatedAt: at })
+    .values({
+      id: listingId,
+      shopId: seller.shopId,
+      slug: `tote-${listingId.slice(0, 8)}`,
+      state: 'live',
+      draft: content as never,
+      live: content as never,
+      liveTitle: content.title,
+      livePriceMinor: content.basePriceMinor,
+      currency: o.currency ?? 'USD',
+      publishedAt: at,
+      createdAt: at,
+      updatedAt: at,
+    })
     .run();
   return { seller, listingId, navy, gold, content };
 }

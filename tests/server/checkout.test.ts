@@ -1,11 +1,12 @@
 // Checkout across shops, end to end against the Stripe fake (fakes/stripe). Expected behaviour from
 // the Stripe API docs ("separate charges and transfers", test cards, idempotent requests) as
 // summarised in DEVELOPERS.md, "Money and payments"; amounts are integer minor units (ISO 4217: USD 2).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import request from 'supertest';
+
 import { eq } from 'drizzle-orm';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cartLines, checkouts, ledger, orderLines, orders } from '../../server/db/schema.ts';
-import { CARDS, makeShopWithListing, makeWorld, nameChoices, payOnPage, waitFor, type World } from './checkout.fixtures.ts';
+import { CARDS, makeShopWithListing, makeWorld, nameChoices, payOnPage, type World, waitFor } from './checkout.fixtures.ts';
 
 let w: World;
 beforeAll(async () => {
@@ -47,15 +48,31 @@ describe('checkout across two shops', () => {
     for (const o of os) {
       expect(o.shipTo).toEqual({ name: 'Dana Field', line1: '12 Acorn Lane', line2: 'Flat 3', city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' });
     }
-    const lines = w.db.select().from(orderLines).all().filter((l) => os.some((o) => o.id === l.orderId));
+    const lines = w.db
+      .select()
+      .from(orderLines)
+      .all()
+      .filter((l) => os.some((o) => o.id === l.orderId));
     expect(lines.every((l) => l.state === 'awaiting_proof')).toBe(true);
 
     // transfers happen after the commit; wait until both orders carry one
-    await waitFor(() => w.db.select().from(orders).where(eq(orders.checkoutId, checkout.id)).all().every((o) => o.transferId));
+    await waitFor(() =>
+      w.db
+        .select()
+        .from(orders)
+        .where(eq(orders.checkoutId, checkout.id))
+        .all()
+        .every((o) => o.transferId),
+    );
     const charge = (await w.stripe.paymentIntents.retrieve(checkout.paymentIntentId!)).amount_received;
     const transfers = (await w.stripe.transfers.list({ transfer_group: `checkout_${checkout.id}` })).data;
     expect(transfers).toHaveLength(2);
-    const fees = w.db.select().from(orders).where(eq(orders.checkoutId, checkout.id)).all().map((o) => o.platformFeeMinor);
+    const fees = w.db
+      .select()
+      .from(orders)
+      .where(eq(orders.checkoutId, checkout.id))
+      .all()
+      .map((o) => o.platformFeeMinor);
     expect(transfers.reduce((a, t) => a + t.amount, 0) + fees.reduce((a, b) => a + b, 0)).toBe(charge);
     expect(charge).toBe(cart.totalMinor);
     // fee per shop = round(shop total × 800 / 10000): Fern 5250 → 420, Comet 2524 → 201.92 → 202
@@ -74,7 +91,13 @@ describe('checkout across two shops', () => {
     }
 
     // the cart is empty afterwards
-    expect(w.db.select().from(cartLines).all().filter((l) => l.cartId === cart.id)).toHaveLength(0);
+    expect(
+      w.db
+        .select()
+        .from(cartLines)
+        .all()
+        .filter((l) => l.cartId === cart.id),
+    ).toHaveLength(0);
     expect((await agent.get('/api/cart')).body.itemCount).toBe(0);
 
     // e-mails: confirmation listing both shops' parts and the personalisation; one per shop owner
@@ -97,7 +120,10 @@ describe('checkout safety', () => {
     const shop = await makeShopWithListing(w);
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
-    await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Anouk') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Anouk') })
+      .expect(201);
 
     const [a, b] = await Promise.all([agent.post('/api/checkout').send({}), agent.post('/api/checkout').send({})]);
     expect(a.status).toBe(201);
@@ -121,9 +147,7 @@ describe('checkout safety', () => {
     const shop = await makeShopWithListing(w, { basePriceMinor: 2600, shippingMinor: 500 });
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
-    const res = await agent
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, quantity: 1, choices: nameChoices('Kai'), unitPriceMinor: 1, priceMinor: 1, totalMinor: 1 });
+    const res = await agent.post('/api/cart/lines').send({ listingId: shop.listingId, quantity: 1, choices: nameChoices('Kai'), unitPriceMinor: 1, priceMinor: 1, totalMinor: 1 });
     expect(res.status).toBe(201);
     expect(res.body.shops[0].lines[0].unitPriceMinor).toBe(2600);
     expect(res.body.totalMinor).toBe(3100);
@@ -136,7 +160,10 @@ describe('checkout safety', () => {
     const shop = await makeShopWithListing(w);
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
-    await agent.post('/api/cart/lines').send({ listingId: shop.listingId, quantity: 3, choices: nameChoices('Priya', shop.gold) }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, quantity: 3, choices: nameChoices('Priya', shop.gold) })
+      .expect(201);
     const before = (await agent.get('/api/cart')).body;
 
     const started = await agent.post('/api/checkout').send({});
@@ -166,7 +193,10 @@ describe('checkout safety', () => {
   it('when a guest tries to check out, then they are asked to sign in and their cart stays', async () => {
     const shop = await makeShopWithListing(w);
     const guest = request.agent(w.app);
-    await guest.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Leon') }).expect(201);
+    await guest
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Leon') })
+      .expect(201);
     const res = await guest.post('/api/checkout').send({});
     expect(res.status).toBe(401);
     expect(res.body.error.message).toMatch(/Sign in/);
@@ -177,7 +207,10 @@ describe('checkout safety', () => {
     const shop = await makeShopWithListing(w);
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
-    await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Zoë') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Zoë') })
+      .expect(201);
     await agent.post('/api/checkout').send({}).expect(201);
     const latest = (await agent.get('/api/checkout/latest')).body.checkout;
     expect(latest.problem).toMatch(/left the payment page before paying/);
@@ -190,9 +223,15 @@ describe('checkout after the cart changed', () => {
     const shop = await makeShopWithListing(w);
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
-    await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Mira') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Mira') })
+      .expect(201);
     const first = (await agent.post('/api/checkout').send({})).body;
-    await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Theo') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Theo') })
+      .expect(201);
     const second = (await agent.post('/api/checkout').send({})).body;
     expect(second.sessionId).not.toBe(first.sessionId);
     expect((await w.stripe.checkout.sessions.retrieve(first.sessionId)).status).toBe('expired');

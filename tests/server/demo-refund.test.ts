@@ -1,11 +1,12 @@
 // The demo orders are real payments at the payment fake: the seed pays them the way a shopper does,
 // so an admin can refund one (before, every refund of a demo order failed with "No such
 // payment_intent"), and the shop's transfer is reversed for its share.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import Stripe from 'stripe';
+
 import { eq } from 'drizzle-orm';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
+import Stripe from 'stripe';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkouts, ledger, orderLines, orders } from '../../server/db/schema.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 
 let t: TestApp;
 let stripe: Stripe;
@@ -31,7 +32,11 @@ describe('demo orders', () => {
       // paid some days back, as the scenario tells it
       expect(Date.now() - o.paidAt).toBeGreaterThan(20 * 3_600_000);
     }
-    const states = t.db.select().from(orderLines).all().map((l) => l.state);
+    const states = t.db
+      .select()
+      .from(orderLines)
+      .all()
+      .map((l) => l.state);
     expect(states.filter((s) => s === 'approved')).toHaveLength(7);
     expect(states.filter((s) => s === 'awaiting_proof')).toHaveLength(3);
   });

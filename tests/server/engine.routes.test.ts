@@ -1,16 +1,17 @@
 // Routes mounted in a bare express() app with the real error handler (server/app.ts does not
 // mount the engine router yet; the lead mounts it at /api).
-import { describe, expect, it } from 'vitest';
+
 import express from 'express';
 import request from 'supertest';
+import { describe, expect, it } from 'vitest';
 import { engineRouter } from '../../server/features/engine/engine.routes.ts';
 import { errorHandler } from '../../server/http/error-handler.ts';
+import { fitText } from '../../shared/engine/fit.ts';
+import { FONT_CATALOG } from '../../shared/engine/font-catalog.ts';
 import { createFontRegistry } from '../../shared/engine/fonts.ts';
 import { layoutText } from '../../shared/engine/text-layout.ts';
-import { FONT_CATALOG } from '../../shared/engine/font-catalog.ts';
 import { fontListSchema, layoutTextResponseSchema } from '../../shared/schemas/engine.ts';
 import { fontBytes, testRegistry } from '../shared/engine/font-fixture.ts';
-import { fitText } from '../../shared/engine/fit.ts';
 import { hbAdvanceMm, hbFont } from '../shared/engine/harfbuzz-reference.ts';
 
 function app(opts?: Parameters<typeof engineRouter>[0]) {
@@ -40,7 +41,11 @@ describe('engine routes', () => {
   });
 
   it('when fetching a font file, then it is the exact TTF the engine uses, as font/ttf with a long cache', async () => {
-    const res = await request(a).get('/api/fonts/bitter-bold/file').buffer(true).parse(binary as never).expect(200);
+    const res = await request(a)
+      .get('/api/fonts/bitter-bold/file')
+      .buffer(true)
+      .parse(binary as never)
+      .expect(200);
     expect(res.headers['content-type']).toMatch(/^font\/ttf/);
     expect(res.headers['cache-control']).toContain('max-age=31536000');
     expect(Buffer.compare(res.body as Buffer, Buffer.from(fontBytes('bitter-bold')))).toBe(0);
@@ -51,7 +56,11 @@ describe('engine routes', () => {
     const list = (await request(a).get('/api/fonts').expect(200)).body as { id: string; fileUrl: string }[];
     const sources = [];
     for (const f of list) {
-      const bin = await request(a).get(f.fileUrl).buffer(true).parse(binary as never).expect(200);
+      const bin = await request(a)
+        .get(f.fileUrl)
+        .buffer(true)
+        .parse(binary as never)
+        .expect(200);
       const entry = FONT_CATALOG.find((c) => c.id === f.id)!;
       sources.push({ ...entry, bytes: new Uint8Array(bin.body as Buffer) });
     }
@@ -64,7 +73,12 @@ describe('engine routes', () => {
 
   // Reference: HarfBuzz (harfbuzzjs); these strings appear in no other test.
   it('when laying out text over HTTP, then the width agrees with HarfBuzz for unseen strings', async () => {
-    for (const [text, fontId] of [['Wilhelmina', 'bangers'], ['Ødegård', 'bitter-bold'], ['Yvette Tåsen', 'dancing-script-bold'], ['Piotr Żak', 'patrick-hand']] as const) {
+    for (const [text, fontId] of [
+      ['Wilhelmina', 'bangers'],
+      ['Ødegård', 'bitter-bold'],
+      ['Yvette Tåsen', 'dancing-script-bold'],
+      ['Piotr Żak', 'patrick-hand'],
+    ] as const) {
       const res = await request(a).post('/api/layout/text').send({ text, fontId, letterHeightMm: 25 }).expect(200);
       const body = layoutTextResponseSchema.parse(res.body);
       const cap = createFontRegistry([{ ...FONT_CATALOG.find((c) => c.id === fontId)!, bytes: fontBytes(fontId) }]).require(fontId).capHeightUnits;
@@ -74,7 +88,10 @@ describe('engine routes', () => {
   });
 
   it('when text is too long, the font unknown or the height out of range, then 400 with field messages', async () => {
-    const long = await request(a).post('/api/layout/text').send({ text: 'x'.repeat(61), fontId: 'bangers', letterHeightMm: 20 }).expect(400);
+    const long = await request(a)
+      .post('/api/layout/text')
+      .send({ text: 'x'.repeat(61), fontId: 'bangers', letterHeightMm: 20 })
+      .expect(400);
     expect(long.body.error.fields.text).toMatch(/60/);
     const font = await request(a).post('/api/layout/text').send({ text: 'Mira', fontId: 'comic', letterHeightMm: 20 }).expect(400);
     expect(font.body.error.fields.fontId).toBeTruthy();

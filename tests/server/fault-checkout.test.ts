@@ -12,7 +12,7 @@ import Database from 'better-sqlite3';
 import Stripe from 'stripe';
 import { afterAll, describe, expect, it } from 'vitest';
 import { cookieClient } from '../../scripts/lib/cookie-client.ts';
-import { freePort, startTsProcess, stopProcess, waitUntilUp, type ServerProcess } from '../../scripts/lib/server-process.ts';
+import { freePort, type ServerProcess, startTsProcess, stopProcess, waitUntilUp } from '../../scripts/lib/server-process.ts';
 
 const SECRET = 'whsec_fault_test';
 const KEY = 'sk_test_fault_test';
@@ -43,12 +43,16 @@ describe('checkout survives a killed server', () => {
     const fakeUrl = `http://127.0.0.1:${fakePort}`;
     const fakeLog: string[] = [];
     const appLog: string[] = [];
-    const fake = start('fakes/stripe/main.ts', {
-      STRIPE_FAKE_PORT: String(fakePort),
-      DATA_DIR: path.join(dataDir, 'fake'),
-      STRIPE_WEBHOOK_URL: `http://127.0.0.1:${appPort}/api/payments/webhook`,
-      STRIPE_WEBHOOK_SECRET: SECRET,
-    }, fakeLog);
+    const fake = start(
+      'fakes/stripe/main.ts',
+      {
+        STRIPE_FAKE_PORT: String(fakePort),
+        DATA_DIR: path.join(dataDir, 'fake'),
+        STRIPE_WEBHOOK_URL: `http://127.0.0.1:${appPort}/api/payments/webhook`,
+        STRIPE_WEBHOOK_SECRET: SECRET,
+      },
+      fakeLog,
+    );
     const appEnv = {
       NODE_ENV: 'test',
       DATA_DIR: path.join(dataDir, 'app'),
@@ -69,9 +73,7 @@ describe('checkout survives a killed server', () => {
 
     // the demo's two live shops, one listing each
     const catalog = cookieClient(base);
-    const listings = await Promise.all(
-      ['autumn-fox-tote-with-a-name', 'rocket-name-tee-for-kids'].map(async (slug) => (await catalog(`/api/listings/${slug}`)).body),
-    );
+    const listings = await Promise.all(['autumn-fox-tote-with-a-name', 'rocket-name-tee-for-kids'].map(async (slug) => (await catalog(`/api/listings/${slug}`)).body));
     expect(new Set(listings.map((l) => l.shop.slug)).size).toBe(2);
 
     // shoppers with a two-shop cart and an open Checkout Session each
@@ -100,7 +102,20 @@ describe('checkout survives a killed server', () => {
 
     // pay on the fake's hosted page, the same form POST a browser makes
     const pay = async (s: { url: string }) => {
-      const r = await fetch(s.url, { method: 'POST', body: new URLSearchParams({ ship_name: 'Dana Field', ship_line1: '12 Acorn Lane', ship_city: 'Harbourtown', ship_postal_code: 'HT1 2AB', ship_country: 'GB', card_number: '4242 4242 4242 4242', card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
+      const r = await fetch(s.url, {
+        method: 'POST',
+        body: new URLSearchParams({
+          ship_name: 'Dana Field',
+          ship_line1: '12 Acorn Lane',
+          ship_city: 'Harbourtown',
+          ship_postal_code: 'HT1 2AB',
+          ship_country: 'GB',
+          card_number: '4242 4242 4242 4242',
+          card_expiry: '12/34',
+          card_cvc: '123',
+        }),
+        redirect: 'manual',
+      });
       expect(r.status).toBe(303);
     };
     // the first half pay; the server is killed while their webhooks are being delivered
@@ -120,9 +135,11 @@ describe('checkout survives a killed server', () => {
     const countOrders = () => {
       const db = new Database(dbFile, { readonly: true, fileMustExist: true });
       try {
-        return db
-          .prepare(`SELECT checkout_id AS checkoutId, shop_id AS shopId, transfer_id AS transferId FROM orders WHERE checkout_id IN (${ids.map(() => '?').join(',')})`)
-          .all(...ids) as Array<{ checkoutId: string; shopId: string; transferId: string | null }>;
+        return db.prepare(`SELECT checkout_id AS checkoutId, shop_id AS shopId, transfer_id AS transferId FROM orders WHERE checkout_id IN (${ids.map(() => '?').join(',')})`).all(...ids) as Array<{
+          checkoutId: string;
+          shopId: string;
+          transferId: string | null;
+        }>;
       } finally {
         db.close();
       }

@@ -3,14 +3,14 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { checkouts, lineEvents, listings, orderLines, orders } from '../../server/db/schema.ts';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Db } from '../../server/db/client.ts';
+import { checkouts, lineEvents, listings, orderLines, orders } from '../../server/db/schema.ts';
 import { transition, transitionAll } from '../../server/features/orders/line-state.ts';
 import { ordersRepo } from '../../server/features/orders/orders.repo.ts';
-import { FINISHED_LINE_STATES, LINE_STATES, LINE_TRANSITIONS, UNCUT_LINE_STATES, canMoveLine, type LineActor, type LineState } from '../../shared/schemas/order.ts';
+import { canMoveLine, FINISHED_LINE_STATES, LINE_STATES, LINE_TRANSITIONS, type LineActor, type LineState, UNCUT_LINE_STATES } from '../../shared/schemas/order.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 
 const ACTORS: LineActor[] = ['shop', 'shopper', 'admin', 'system'];
 let t: TestApp;
@@ -23,15 +23,40 @@ beforeAll(async () => {
   const buyer = await t.makeUser('shopper');
   const at = Date.now();
   const listingId = crypto.randomUUID();
-  t.db.insert(listings).values({ id: listingId, shopId: seller.shopId, slug: `l-${listingId.slice(0, 8)}`, draft: {} as never, createdAt: at, updatedAt: at }).run();
+  t.db
+    .insert(listings)
+    .values({ id: listingId, shopId: seller.shopId, slug: `l-${listingId.slice(0, 8)}`, draft: {} as never, createdAt: at, updatedAt: at })
+    .run();
   const checkoutId = crypto.randomUUID();
-  t.db.insert(checkouts).values({ id: checkoutId, userId: buyer.id, cartId: 'c', currency: 'USD', totalMinor: 2400, priced: {} as never, createdAt: at }).run();
+  t.db
+    .insert(checkouts)
+    .values({ id: checkoutId, userId: buyer.id, cartId: 'c', currency: 'USD', totalMinor: 2400, priced: {} as never, createdAt: at })
+    .run();
   const orderId = crypto.randomUUID();
-  t.db.insert(orders).values({ id: orderId, number: 'NS-9001', checkoutId, shopId: seller.shopId, buyerId: buyer.id, currency: 'USD', subtotalMinor: 2400, shippingMinor: 0, platformFeeMinor: 192, totalMinor: 2400, paidAt: at, createdAt: at }).run();
+  t.db
+    .insert(orders)
+    .values({
+      id: orderId,
+      number: 'NS-9001',
+      checkoutId,
+      shopId: seller.shopId,
+      buyerId: buyer.id,
+      currency: 'USD',
+      subtotalMinor: 2400,
+      shippingMinor: 0,
+      platformFeeMinor: 192,
+      totalMinor: 2400,
+      paidAt: at,
+      createdAt: at,
+    })
+    .run();
   lineId = crypto.randomUUID();
   otherLineId = crypto.randomUUID();
   for (const id of [lineId, otherLineId]) {
-    t.db.insert(orderLines).values({ id, orderId, listingId, listingTitle: 'Name tote', quantity: 1, unitPriceMinor: 2400, totalMinor: 2400, snapshot: {} as never, createdAt: at, updatedAt: at }).run();
+    t.db
+      .insert(orderLines)
+      .values({ id, orderId, listingId, listingTitle: 'Name tote', quantity: 1, unitPriceMinor: 2400, totalMinor: 2400, snapshot: {} as never, createdAt: at, updatedAt: at })
+      .run();
   }
 });
 afterAll(() => t.close());
@@ -166,8 +191,20 @@ describe('when the server source is searched for writes to a line', () => {
     expect(Object.keys(ordersRepo).filter((k) => /line/i.test(k) && !/^(lines|insertLine|moveLine)$/.test(k))).toEqual([]);
     // checked by tsc (tests are type-checked): drop the rule and this directive fails the build
     const neverRun = (db: Db) => {
-      // @ts-expect-error a new line starts in FIRST_LINE_STATE ('awaiting_proof') only
-      ordersRepo.insertLine(db, { id: 'x', orderId: 'o', listingId: 'l', listingTitle: 't', quantity: 1, unitPriceMinor: 1, totalMinor: 1, snapshot: {} as never, state: 'shipped', createdAt: 0, updatedAt: 0 });
+      ordersRepo.insertLine(db, {
+        id: 'x',
+        orderId: 'o',
+        listingId: 'l',
+        listingTitle: 't',
+        quantity: 1,
+        unitPriceMinor: 1,
+        totalMinor: 1,
+        snapshot: {} as never,
+        // @ts-expect-error a new line starts in FIRST_LINE_STATE ('awaiting_proof') only
+        state: 'shipped',
+        createdAt: 0,
+        updatedAt: 0,
+      });
     };
     expect(typeof neverRun).toBe('function');
   });

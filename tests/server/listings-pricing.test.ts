@@ -11,10 +11,16 @@ const content = listingInputSchema.parse({
       { id: 'name', label: 'Name', fontIds: ['baloo-bold', 'bangers'], colourChoices: ['navy', 'gold'] },
       { id: 'age', label: 'Age', maxLength: 2, fontIds: ['baloo-bold'], required: false, colourChoices: ['navy'] },
     ],
-    motifChoices: [{ motifId: 'rocket', label: 'Rocket', layers: [
-      { layerId: 'hull', mode: 'shopper', colourChoices: ['navy', 'teal'] },
-      { layerId: 'flame', mode: 'fixed', materialId: 'yellow' },
-    ] }],
+    motifChoices: [
+      {
+        motifId: 'rocket',
+        label: 'Rocket',
+        layers: [
+          { layerId: 'hull', mode: 'shopper', colourChoices: ['navy', 'teal'] },
+          { layerId: 'flame', mode: 'fixed', materialId: 'yellow' },
+        ],
+      },
+    ],
     outline: { colourChoices: ['white'] },
   },
 });
@@ -52,10 +58,15 @@ describe('checkChoices', () => {
   });
 
   it('when fields are missing, too long, or name things not offered, then each is named', () => {
-    const errs = checkChoices(content, choices({
-      texts: { name: name('Bartholomew-the-Great', 'pacifico'), age: name('123'), extra: name('x') },
-      textColours: { name: 'pink' }, motifId: 'whale', outlineMaterialId: 'black',
-    }));
+    const errs = checkChoices(
+      content,
+      choices({
+        texts: { name: name('Bartholomew-the-Great', 'pacifico'), age: name('123'), extra: name('x') },
+        textColours: { name: 'pink' },
+        motifId: 'whale',
+        outlineMaterialId: 'black',
+      }),
+    );
     expect(Object.keys(errs).sort()).toEqual(['motifId', 'outlineMaterialId', 'texts.age.text', 'texts.extra', 'texts.name.fontId', 'texts.name.text', 'textColours.name'].sort());
   });
 

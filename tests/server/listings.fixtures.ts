@@ -1,8 +1,8 @@
 // Helpers for the catalogue tests: a seller's materials, a two-layer motif and a listing, made
 // through the real API routes (so every helper also exercises the routes it relies on).
 import type { Agent } from 'supertest';
-import type { TestApp } from '../factories/app.ts';
 import type { ListingInput } from '../../shared/schemas/listing.ts';
+import type { TestApp } from '../factories/app.ts';
 
 export const TWO_LAYER_SVG = `<svg xmlns="http://www.w3.org/2000/svg" width="60mm" height="40mm" viewBox="0 0 60 40">
   <g id="base" fill="#2f7d6d"><rect x="0" y="0" width="60" height="40" rx="4"/></g>
@@ -35,10 +35,16 @@ export async function listingBody(agent: Agent, over: Partial<ListingInput> = {}
     occasions: ['birthday'],
     personalisation: {
       textFields: [{ id: 'name', label: 'Name', maxLength: 12, fontIds: ['baloo-bold', 'dancing-script-bold'], defaultLetterHeightMm: 40, required: true, colourChoices: [navy.id, gold.id] }],
-      motifChoices: [{ motifId: motif.id, label: 'Star', layers: [
-        { layerId: 'base', mode: 'fixed', materialId: navy.id },
-        { layerId: 'star', mode: 'shopper', colourChoices: [gold.id] },
-      ] }],
+      motifChoices: [
+        {
+          motifId: motif.id,
+          label: 'Star',
+          layers: [
+            { layerId: 'base', mode: 'fixed', materialId: navy.id },
+            { layerId: 'star', mode: 'shopper', colourChoices: [gold.id] },
+          ],
+        },
+      ],
       motifRequired: false,
       outline: null,
     },
@@ -62,9 +68,7 @@ export async function shownRevision(admin: Agent, id: string): Promise<number> {
 /** Approves (or rejects, with a reason) the revision the desk shows, as a moderator does. */
 export async function decide(admin: Agent, id: string, reason?: string) {
   const revision = await shownRevision(admin, id);
-  return reason === undefined
-    ? admin.post(`/api/moderation/listings/${id}/approve`).send({ revision })
-    : admin.post(`/api/moderation/listings/${id}/reject`).send({ revision, reason });
+  return reason === undefined ? admin.post(`/api/moderation/listings/${id}/approve`).send({ revision }) : admin.post(`/api/moderation/listings/${id}/reject`).send({ revision, reason });
 }
 
 /** Creates, submits and approves a listing: it is live afterwards. */

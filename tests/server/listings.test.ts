@@ -1,8 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { createListing, decide, listingBody, liveListing, makeMaterial } from './listings.fixtures.ts';
 import { at } from '../support/at.ts';
+import { createListing, decide, listingBody, liveListing, makeMaterial } from './listings.fixtures.ts';
 
 let t: TestApp;
 let a: Agent; // seller A
@@ -18,7 +18,7 @@ beforeAll(async () => {
 afterAll(async () => t.close());
 
 describe('seller listings: ownership', () => {
-  it('when seller B uses seller A\'s listing id on every route, then 404 each time and A\'s listing is unchanged', async () => {
+  it("when seller B uses seller A's listing id on every route, then 404 each time and A's listing is unchanged", async () => {
     const l = await createListing(a);
     const body = await listingBody(b); // valid for B: only the id is foreign
     const calls = [
@@ -37,7 +37,7 @@ describe('seller listings: ownership', () => {
     expect((await b.get('/api/seller/listings')).body.items.map((x: { id: string }) => x.id)).not.toContain(l.id);
   });
 
-  it('when seller B names seller A\'s material or motif in a listing, then 400 naming the field', async () => {
+  it("when seller B names seller A's material or motif in a listing, then 400 naming the field", async () => {
     const aBody = await listingBody(a);
     const res = await b.post('/api/seller/listings').send(aBody);
     expect(res.status).toBe(400);
@@ -53,7 +53,7 @@ describe('seller listings: ownership', () => {
 });
 
 describe('listing editor input', () => {
-  it('when the blank gives only its kind, then the default print area is filled in (kids\' tee 20 × 20 cm, 5 cm below the collar; from memory)', async () => {
+  it("when the blank gives only its kind, then the default print area is filled in (kids' tee 20 × 20 cm, 5 cm below the collar; from memory)", async () => {
     const l = await createListing(a, { blank: { kind: 'kids_tee' } });
     const got = (await a.get(`/api/seller/listings/${l.id}`)).body.listing.draft.blank;
     expect(got).toMatchObject({ kind: 'kids_tee', widthMm: 200, heightMm: 200, topOffsetMm: 50 });
@@ -68,7 +68,7 @@ describe('listing editor input', () => {
     expect((await a.get('/api/seller/listings')).body.total).toBe(before);
   });
 
-  it('when a text field\'s default font is not one of its fonts, then 400 on defaultFontId', async () => {
+  it("when a text field's default font is not one of its fonts, then 400 on defaultFontId", async () => {
     const body = await listingBody(a);
     at(body.personalisation.textFields!, 0).defaultFontId = 'bangers';
     const res = await a.post('/api/seller/listings').send(body);

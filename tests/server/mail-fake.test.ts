@@ -1,8 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { startMailFake, type MailFake } from '../../fakes/mail/server.ts';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { type MailFake, startMailFake } from '../../fakes/mail/server.ts';
 import { listMail, readMail } from '../../fakes/mail/store.ts';
 import { createMailer } from '../../server/integrations/mailer.ts';
 import { at } from '../support/at.ts';

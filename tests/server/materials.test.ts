@@ -1,7 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cToF } from '../../shared/units.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { createListing, makeMaterial } from './listings.fixtures.ts';
 
 let t: TestApp;
@@ -46,13 +46,10 @@ describe('materials', () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['colourHex', 'colourName', 'kind', 'rollWidthMm', 'stockMm']);
   });
 
-  it('when seller B uses seller A\'s material id on every route, then 404 and A\'s material is unchanged', async () => {
+  it("when seller B uses seller A's material id on every route, then 404 and A's material is unchanged", async () => {
     const m = await makeMaterial(a, { colourName: 'Secret teal' });
-    for (const res of await Promise.all([
-      b.get(`/api/materials/${m.id}`),
-      b.patch(`/api/materials/${m.id}`).send({ colourName: 'Stolen' }),
-      b.delete(`/api/materials/${m.id}`),
-    ])) expect(res.status).toBe(404);
+    for (const res of await Promise.all([b.get(`/api/materials/${m.id}`), b.patch(`/api/materials/${m.id}`).send({ colourName: 'Stolen' }), b.delete(`/api/materials/${m.id}`)]))
+      expect(res.status).toBe(404);
     expect((await b.get('/api/materials')).body.items.map((x: { id: string }) => x.id)).not.toContain(m.id);
     expect((await a.get(`/api/materials/${m.id}`)).body.material.colourName).toBe('Secret teal');
   });

@@ -1,6 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
-import { makeTestApp, eventually, type TestApp } from '../factories/app.ts';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eventually, makeTestApp, type TestApp } from '../factories/app.ts';
 import { createListing, decide, liveListing, shownRevision } from './listings.fixtures.ts';
 
 let t: TestApp;
@@ -203,8 +203,10 @@ describe('audit log', () => {
     expect(res.status).toBe(200);
     const top = res.body.items[0];
     expect(top).toMatchObject({
-      action: 'listing.reject', reason: 'Needs a clearer photo.',
-      actor: { id: adminUser.id, email: adminUser.email }, subject: { type: 'listing', id: l.id, label: 'Audit trail tote' },
+      action: 'listing.reject',
+      reason: 'Needs a clearer photo.',
+      actor: { id: adminUser.id, email: adminUser.email },
+      subject: { type: 'listing', id: l.id, label: 'Audit trail tote' },
     });
     expect(top.at).toBeGreaterThanOrEqual(before);
     expect(res.body.total).toBeGreaterThanOrEqual(res.body.items.length);
@@ -304,8 +306,7 @@ describe('moderation decides on the revision it showed', () => {
 
 describe('shop name and description changes', () => {
   type Change = { id: string; revision: number; before: { name: string; description: string }; after: { name: string; description: string }; changed: string[] };
-  const changeOf = async (shopId: string) =>
-    ((await admin.get('/api/moderation/queue/shop-changes?limit=100')).body.items as Change[]).find((c) => c.id === shopId);
+  const changeOf = async (shopId: string) => ((await admin.get('/api/moderation/queue/shop-changes?limit=100')).body.items as Change[]).find((c) => c.id === shopId);
 
   it('when a live shop is renamed, then the old name stays public until an admin approves the change shown to them', async () => {
     const s = await t.makeSeller({ name: 'Puffin Press' });

@@ -7,11 +7,12 @@
 // The ledger must add up for every order: charge − refunds = transfers − reversals + platform fees
 // (net of the fee returned on refunded parts), and the provider's own figures (the charge's
 // amount_refunded, each transfer's amount − amount_reversed) must equal what the ledger says.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
 import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkouts, ledger, orders, refundIntents, refunds, shops, user } from '../../server/db/schema.ts';
 import { refundOrder } from '../../server/features/refunds/refunds.service.ts';
-import { CARDS, WEBHOOK_SECRET, checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, payOnPage, waitFor, type World } from './checkout.fixtures.ts';
+import { CARDS, checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, payOnPage, WEBHOOK_SECRET, type World, waitFor } from './checkout.fixtures.ts';
 
 let w: World;
 beforeAll(async () => {
@@ -31,8 +32,14 @@ async function paidOrder(opts: { brokenAccount?: boolean } = {}) {
   if (opts.brokenAccount) w.db.update(shops).set({ paymentAccountId: 'acct_closedaccount1' }).where(eq(shops.id, shop.seller.shopId)).run();
   const buyer = await w.makeUser('shopper');
   const agent = await w.signIn(buyer.email);
-  await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Mira') }).expect(201);
-  await agent.post('/api/cart/lines').send({ listingId: shop.listingId, quantity: 2, choices: nameChoices('Theo') }).expect(201);
+  await agent
+    .post('/api/cart/lines')
+    .send({ listingId: shop.listingId, choices: nameChoices('Mira') })
+    .expect(201);
+  await agent
+    .post('/api/cart/lines')
+    .send({ listingId: shop.listingId, quantity: 2, choices: nameChoices('Theo') })
+    .expect(201);
   const { orders: made, started } = await checkoutAndPay(w, agent);
   const orderId = made[0]!.id;
   if (!opts.brokenAccount) await waitFor(() => order(orderId).transferId);
@@ -44,9 +51,20 @@ async function paidOrder(opts: { brokenAccount?: boolean } = {}) {
 }
 
 const order = (id: string) => w.db.select().from(orders).where(eq(orders.id, id)).get()!;
-const checkoutOf = (orderId: string) => w.db.select().from(checkouts).where(eq(checkouts.id, order(orderId).checkoutId)).get()!;
+const checkoutOf = (orderId: string) =>
+  w.db
+    .select()
+    .from(checkouts)
+    .where(eq(checkouts.id, order(orderId).checkoutId))
+    .get()!;
 const ledgerSum = (orderId: string, kind: string) =>
-  w.db.select().from(ledger).where(eq(ledger.orderId, orderId)).all().filter((r) => r.kind === kind).reduce((a, r) => a + r.amountMinor, 0);
+  w.db
+    .select()
+    .from(ledger)
+    .where(eq(ledger.orderId, orderId))
+    .all()
+    .filter((r) => r.kind === kind)
+    .reduce((a, r) => a + r.amountMinor, 0);
 const recordedRefunds = (orderId: string) => w.db.select().from(refunds).where(eq(refunds.orderId, orderId)).all();
 
 async function admin(): Promise<Agent> {
@@ -107,7 +125,11 @@ describe('refunds at the same moment', () => {
   it('when three whole-order refunds race, then exactly one refund of 6500 is made', async () => {
     const { orderId, seller } = await paidOrder();
     const boss = await admin();
-    const replies = await Promise.all([seller.post(`/api/orders/${orderId}/refunds`).send({}), boss.post(`/api/orders/${orderId}/refunds`).send({}), seller.post(`/api/orders/${orderId}/refunds`).send({})]);
+    const replies = await Promise.all([
+      seller.post(`/api/orders/${orderId}/refunds`).send({}),
+      boss.post(`/api/orders/${orderId}/refunds`).send({}),
+      seller.post(`/api/orders/${orderId}/refunds`).send({}),
+    ]);
     expect(replies.every((r) => r.status === 201 || r.status === 409)).toBe(true);
     expect(new Set(replies.filter((r) => r.status === 201).map((r) => r.body.refundId)).size).toBe(1);
     expect((await w.stripe.refunds.list({ payment_intent: checkoutOf(orderId).paymentIntentId! })).data.map((r) => r.amount)).toEqual([6500]);
@@ -121,7 +143,14 @@ describe('refunds at the same moment', () => {
     const refused = await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: mira });
     expect(refused.status).toBe(502);
     expect(refused.body.error.message).toMatch(/refused the refund: No such payment_intent.*Nothing was refunded/);
-    expect(w.db.select().from(refundIntents).where(eq(refundIntents.orderId, orderId)).all().map((i) => i.state)).toEqual(['failed']);
+    expect(
+      w.db
+        .select()
+        .from(refundIntents)
+        .where(eq(refundIntents.orderId, orderId))
+        .all()
+        .map((i) => i.state),
+    ).toEqual(['failed']);
     expect(recordedRefunds(orderId)).toHaveLength(0);
 
     w.db.update(checkouts).set({ paymentIntentId: c.paymentIntentId }).where(eq(checkouts.id, c.id)).run();
@@ -162,7 +191,10 @@ describe('payouts net of refunds', () => {
       (e) => e.type === 'checkout.session.completed' && e.object_id === sessionId,
     )!;
     await fetch(`${w.fake.url}/_fake/events/${ev.id}/retry`, { method: 'POST' });
-    await waitFor(async () => ((await (await fetch(`${w.fake.url}/_fake/events`)).json()) as { data: Array<{ id: string; delivery: { status: string } }> }).data.find((e) => e.id === ev.id)?.delivery.status === 'delivered');
+    await waitFor(
+      async () =>
+        ((await (await fetch(`${w.fake.url}/_fake/events`)).json()) as { data: Array<{ id: string; delivery: { status: string } }> }).data.find((e) => e.id === ev.id)?.delivery.status === 'delivered',
+    );
     expect(order(orderId).transferId).toBeNull();
     const { transfers, refunded } = await expectLedgerMatchesProvider(orderId);
     expect(refunded).toBe(6500);
@@ -185,7 +217,12 @@ describe('refund recorded from the charge.refunded webhook', () => {
     const sellerUser = w.db.select().from(user).where(eq(user.email, shop.seller.email)).get()!;
     const actor = { id: sellerUser.id, email: sellerUser.email, name: sellerUser.name, role: 'seller' } as Parameters<typeof refundOrder>[1];
     await w.stopApp(); // the webhook waits at the provider until the app is back
-    const failing = { ...w.deps, beforeLocalWrite: () => { throw new Error('disk full'); } };
+    const failing = {
+      ...w.deps,
+      beforeLocalWrite: () => {
+        throw new Error('disk full');
+      },
+    };
     await expect(refundOrder(failing, actor, orderId, { lineId: theo })).rejects.toThrow('disk full');
     expect(recordedRefunds(orderId)).toHaveLength(0);
     expect(w.db.select().from(refundIntents).where(eq(refundIntents.orderId, orderId)).get()!.state).toBe('pending');
@@ -207,7 +244,11 @@ describe('refund recorded from the charge.refunded webhook', () => {
 
 describe('the webhook believes the provider, not the posted body', () => {
   const post = (payload: string) =>
-    fetch(`${w.appUrl}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }) }, body: payload });
+    fetch(`${w.appUrl}/api/payments/webhook`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json', 'stripe-signature': w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }) },
+      body: payload,
+    });
   const completed = (id: string, object: Record<string, unknown>) =>
     JSON.stringify({ id, object: 'event', type: 'checkout.session.completed', created: Math.floor(Date.now() / 1000), data: { object: { object: 'checkout.session', ...object } } });
 
@@ -215,7 +256,10 @@ describe('the webhook believes the provider, not the posted body', () => {
     const shop = await makeShopWithListing(w);
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
-    await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Ida') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: shop.listingId, choices: nameChoices('Ida') })
+      .expect(201);
     const started = (await agent.post('/api/checkout').send({}).expect(201)).body as { checkoutId: string; sessionId: string; url: string };
     return { started, total: w.db.select().from(checkouts).where(eq(checkouts.id, started.checkoutId)).get()!.totalMinor };
   }
@@ -228,14 +272,42 @@ describe('the webhook believes the provider, not the posted body', () => {
     const before = w.db.select().from(orders).all().length;
 
     // the real paid session, relabelled as the victim's checkout
-    const relabelled = await post(completed('evt_forged_relabel', { id: paid.started.sessionId, metadata: { checkoutId: victim.started.checkoutId }, payment_status: 'paid', status: 'complete', amount_total: victim.total, currency: 'usd' }));
+    const relabelled = await post(
+      completed('evt_forged_relabel', {
+        id: paid.started.sessionId,
+        metadata: { checkoutId: victim.started.checkoutId },
+        payment_status: 'paid',
+        status: 'complete',
+        amount_total: victim.total,
+        currency: 'usd',
+      }),
+    );
     expect(relabelled.status).toBe(200);
     expect((await relabelled.json()).outcome).toBe('rejected');
     // the victim's own session, which nobody paid, posted as paid
-    const unpaid = await post(completed('evt_forged_unpaid', { id: victim.started.sessionId, metadata: { checkoutId: victim.started.checkoutId }, payment_status: 'paid', status: 'complete', amount_total: victim.total, currency: 'usd', payment_intent: 'pi_madeup' }));
+    const unpaid = await post(
+      completed('evt_forged_unpaid', {
+        id: victim.started.sessionId,
+        metadata: { checkoutId: victim.started.checkoutId },
+        payment_status: 'paid',
+        status: 'complete',
+        amount_total: victim.total,
+        currency: 'usd',
+        payment_intent: 'pi_madeup',
+      }),
+    );
     expect((await unpaid.json()).outcome).toBe('rejected');
     // a session the provider never made
-    const madeUp = await post(completed('evt_forged_madeup', { id: 'cs_test_madeup', metadata: { checkoutId: victim.started.checkoutId }, payment_status: 'paid', status: 'complete', amount_total: victim.total, currency: 'usd' }));
+    const madeUp = await post(
+      completed('evt_forged_madeup', {
+        id: 'cs_test_madeup',
+        metadata: { checkoutId: victim.started.checkoutId },
+        payment_status: 'paid',
+        status: 'complete',
+        amount_total: victim.total,
+        currency: 'usd',
+      }),
+    );
     expect((await madeUp.json()).outcome).toBe('rejected');
 
     expect(w.db.select().from(orders).all()).toHaveLength(before);

@@ -14,8 +14,14 @@ describe('orders for shoppers', () => {
     const b = await makeShopWithListing(w, { shopName: 'Little Comet Print Co.' });
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
-    await agent.post('/api/cart/lines').send({ listingId: a.listingId, quantity: 2, choices: nameChoices('Mira') }).expect(201);
-    await agent.post('/api/cart/lines').send({ listingId: b.listingId, choices: nameChoices('Theo') }).expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: a.listingId, quantity: 2, choices: nameChoices('Mira') })
+      .expect(201);
+    await agent
+      .post('/api/cart/lines')
+      .send({ listingId: b.listingId, choices: nameChoices('Theo') })
+      .expect(201);
     const { orders } = await checkoutAndPay(w, agent);
     expect(orders).toHaveLength(2);
 

@@ -3,17 +3,18 @@
 // must hold every row of the caller's once (no gap, no repeat), in the list's order, with the
 // total the database counts, and never a row of another shop or shopper. Bad page input is a 400
 // naming the field.
+
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import crypto from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import type { Agent } from 'supertest';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { auditLog, checkouts, cutSheets, listings, materials, orderLines, orders, shops, user } from '../../server/db/schema.ts';
-import { PAGE_LIMIT_MAX } from '../../shared/schemas/pagination.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
+import { PAGE_LIMIT_MAX } from '../../shared/schemas/pagination.ts';
 import type { WorkLine } from '../../shared/schemas/workroom.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 
 const DEMO = 'namesake-demo';
 let t: TestApp;
@@ -66,15 +67,56 @@ function makeOrders(buyerId: string, shopId: string, n: number, at: number, stat
     const checkoutId = crypto.randomUUID();
     const orderId = crypto.randomUUID();
     const paidAt = at + i * 60_000;
-    t.db.insert(checkouts).values({ id: checkoutId, userId: buyerId, cartId: crypto.randomUUID(), cartVersion: 1, state: 'paid', currency: 'USD', totalMinor: 2000, priced: { currency: 'USD', totalMinor: 2000, shops: [] }, createdAt: paidAt, paidAt }).run();
-    t.db.insert(orders).values({
-      id: orderId, number: `NS-T${crypto.randomBytes(5).toString('hex')}`, checkoutId, shopId, buyerId, currency: 'USD', subtotalMinor: 1600, shippingMinor: 400,
-      platformFeeMinor: 160, totalMinor: 2000, shipByDate: new Date(paidAt + 5 * 86_400_000).toISOString().slice(0, 10), paidAt, createdAt: paidAt,
-    }).run();
-    t.db.insert(orderLines).values({
-      id: crypto.randomUUID(), orderId, listingId: listing.id, listingTitle: listing.liveTitle ?? 'A listing', quantity: 1, unitPriceMinor: 1600, totalMinor: 1600,
-      state, snapshot: model.snapshot, version: 1, createdAt: paidAt, updatedAt: paidAt,
-    }).run();
+    t.db
+      .insert(checkouts)
+      .values({
+        id: checkoutId,
+        userId: buyerId,
+        cartId: crypto.randomUUID(),
+        cartVersion: 1,
+        state: 'paid',
+        currency: 'USD',
+        totalMinor: 2000,
+        priced: { currency: 'USD', totalMinor: 2000, shops: [] },
+        createdAt: paidAt,
+        paidAt,
+      })
+      .run();
+    t.db
+      .insert(orders)
+      .values({
+        id: orderId,
+        number: `NS-T${crypto.randomBytes(5).toString('hex')}`,
+        checkoutId,
+        shopId,
+        buyerId,
+        currency: 'USD',
+        subtotalMinor: 1600,
+        shippingMinor: 400,
+        platformFeeMinor: 160,
+        totalMinor: 2000,
+        shipByDate: new Date(paidAt + 5 * 86_400_000).toISOString().slice(0, 10),
+        paidAt,
+        createdAt: paidAt,
+      })
+      .run();
+    t.db
+      .insert(orderLines)
+      .values({
+        id: crypto.randomUUID(),
+        orderId,
+        listingId: listing.id,
+        listingTitle: listing.liveTitle ?? 'A listing',
+        quantity: 1,
+        unitPriceMinor: 1600,
+        totalMinor: 1600,
+        state,
+        snapshot: model.snapshot,
+        version: 1,
+        createdAt: paidAt,
+        updatedAt: paidAt,
+      })
+      .run();
     made.push(orderId);
   }
   return made;
@@ -155,8 +197,7 @@ describe("the workroom's lines", () => {
     fernMade = [...makeOrders(buyer.id, fernShop, 40, at), ...makeOrders(buyer.id, fernShop, 15, at + 3_600_000, 'shipped')];
     cometMade = makeOrders(buyer.id, cometShop, 12, at);
   });
-  const linesOf = (shopId: string) =>
-    t.db.select({ line: orderLines, order: orders }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId)).where(eq(orders.shopId, shopId)).all();
+  const linesOf = (shopId: string) => t.db.select({ line: orderLines, order: orders }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId)).where(eq(orders.shopId, shopId)).all();
 
   test('when Fern walks her lines 7 at a time, then she gets each of her lines once and none of Comet’s; Comet the reverse', async () => {
     const { items, total } = await walk<WorkLine>(fern, '/api/workroom/lines', 7);
@@ -216,7 +257,14 @@ describe("the workroom's lines", () => {
 
   test('when the filters are offered, then they list only Fern’s own materials and sold listings; the counts stay whole', async () => {
     const res = (await fern.get('/api/workroom/lines?limit=1')).body;
-    const ownMaterials = new Set(t.db.select().from(materials).where(eq(materials.shopId, fernShop)).all().map((m) => m.id));
+    const ownMaterials = new Set(
+      t.db
+        .select()
+        .from(materials)
+        .where(eq(materials.shopId, fernShop))
+        .all()
+        .map((m) => m.id),
+    );
     expect(res.options.materials.length).toBe(ownMaterials.size);
     for (const m of res.options.materials) expect(ownMaterials.has(m.id)).toBe(true);
     const sold = new Set(linesOf(fernShop).map((r) => r.line.listingId));
@@ -235,7 +283,10 @@ describe("a seller's listings and materials", () => {
     const at = Date.parse('2025-05-01T00:00:00Z');
     const made: string[] = Array.from({ length: 27 }, (_, i) => {
       const id = crypto.randomUUID();
-      t.db.insert(listings).values({ ...model, id, shopId: seller.shopId, slug: `wren-${id.slice(0, 8)}`, state: i % 3 === 0 ? 'paused' : 'draft', createdAt: at, updatedAt: at + i * 1000 }).run();
+      t.db
+        .insert(listings)
+        .values({ ...model, id, shopId: seller.shopId, slug: `wren-${id.slice(0, 8)}`, state: i % 3 === 0 ? 'paused' : 'draft', createdAt: at, updatedAt: at + i * 1000 })
+        .run();
       return id;
     });
     const agent = await t.signIn(seller.email);
@@ -258,10 +309,21 @@ describe("a seller's listings and materials", () => {
     const kinds = ['smooth', 'glitter', 'flock', 'metallic', 'patterned'];
     const made: string[] = Array.from({ length: 55 }, (_, i) => {
       const id = crypto.randomUUID();
-      t.db.insert(materials).values({
-        id, shopId: seller.shopId, kind: kinds[i % 5]!, colourName: `Colour ${String(i).padStart(2, '0')}`, colourHex: '#112233', rollWidthMm: 305, stockMm: 5000,
-        pressProfile: {} as never, archived: i < 6, createdAt: Date.now(),
-      }).run();
+      t.db
+        .insert(materials)
+        .values({
+          id,
+          shopId: seller.shopId,
+          kind: kinds[i % 5]!,
+          colourName: `Colour ${String(i).padStart(2, '0')}`,
+          colourHex: '#112233',
+          rollWidthMm: 305,
+          stockMm: 5000,
+          pressProfile: {} as never,
+          archived: i < 6,
+          createdAt: Date.now(),
+        })
+        .run();
       return id;
     });
     const agent = await t.signIn(seller.email);
@@ -283,13 +345,28 @@ describe("a seller's listings and materials", () => {
 
 describe('stock', () => {
   test("when a shop has 30 cut sheets, then the sheets' use pages 25 at a time, newest first; planned length counts every uncut sheet", async () => {
-    const mats = t.db.select().from(materials).where(and(eq(materials.shopId, fernShop), eq(materials.archived, false))).all();
+    const mats = t.db
+      .select()
+      .from(materials)
+      .where(and(eq(materials.shopId, fernShop), eq(materials.archived, false)))
+      .all();
     const at = Date.parse('2025-06-01T00:00:00Z');
     for (let i = 0; i < 30; i++) {
-      t.db.insert(cutSheets).values({
-        id: crypto.randomUUID(), shopId: fernShop, materialId: mats[i % mats.length]!.id, batchId: `page-batch-${Math.floor(i / 10)}`, rollWidthMm: 305, lengthMm: 100 + i,
-        utilisation: 0.5, pieces: [], state: i % 2 ? 'cut' : 'planned', createdAt: at + i * 1000,
-      }).run();
+      t.db
+        .insert(cutSheets)
+        .values({
+          id: crypto.randomUUID(),
+          shopId: fernShop,
+          materialId: mats[i % mats.length]!.id,
+          batchId: `page-batch-${Math.floor(i / 10)}`,
+          rollWidthMm: 305,
+          lengthMm: 100 + i,
+          utilisation: 0.5,
+          pieces: [],
+          state: i % 2 ? 'cut' : 'planned',
+          createdAt: at + i * 1000,
+        })
+        .run();
     }
     const sheets = t.db.select().from(cutSheets).where(eq(cutSheets.shopId, fernShop)).all();
     const { items, total } = await walk<{ id: string; createdAt: number }>(fern, '/api/workroom/stock', 25);
@@ -315,7 +392,10 @@ describe('the moderation desk', () => {
     const model = t.db.select().from(listings).where(eq(listings.shopId, fernShop)).get()!;
     const waiting: string[] = Array.from({ length: 22 }, (_, i) => {
       const id = crypto.randomUUID();
-      t.db.insert(listings).values({ ...model, id, slug: `queue-${id.slice(0, 8)}`, state: 'in_review', pendingReview: false, createdAt: before, updatedAt: before + i }).run();
+      t.db
+        .insert(listings)
+        .values({ ...model, id, slug: `queue-${id.slice(0, 8)}`, state: 'in_review', pendingReview: false, createdAt: before, updatedAt: before + i })
+        .run();
       return id;
     });
     const shopsWaiting = t.db.select().from(shops).where(eq(shops.state, 'in_review')).all();
@@ -325,20 +405,32 @@ describe('the moderation desk', () => {
     expect(sq.items.map((s) => s.createdAt)).toEqual(sq.items.map((s) => s.createdAt).sort((a, b) => a - b));
 
     const lq = await walk<{ id: string; submittedAt: number }>(admin, '/api/moderation/queue/listings', 20);
-    const listingsWaiting = t.db.select().from(listings).all().filter((l) => l.state === 'in_review' || l.pendingReview);
+    const listingsWaiting = t.db
+      .select()
+      .from(listings)
+      .all()
+      .filter((l) => l.state === 'in_review' || l.pendingReview);
     expect(lq.total).toBe(listingsWaiting.length);
     expect(new Set(ids(lq.items))).toEqual(new Set(ids(listingsWaiting)));
     expect(ids(lq.items).filter((id) => waiting.includes(id))).toEqual(waiting); // oldest first
     const last = waiting.at(-1)!;
     expect((await admin.get(`/api/moderation/queue/listings/${last}`)).body.listing).toEqual(lq.items.find((l) => l.id === last));
-    const live = t.db.select().from(listings).where(and(eq(listings.state, 'live'), eq(listings.pendingReview, false))).get()!;
+    const live = t.db
+      .select()
+      .from(listings)
+      .where(and(eq(listings.state, 'live'), eq(listings.pendingReview, false)))
+      .get()!;
     expect((await admin.get(`/api/moderation/queue/listings/${live.id}`)).status).toBe(404);
   });
 
   test('when the audit log has more than a page, then pages of 50 hold each entry once, newest first', async () => {
     const actor = t.db.select().from(user).where(eq(user.email, 'admin@namesake.test')).get()!;
     const at = Date.parse('2025-07-01T00:00:00Z');
-    for (let i = 0; i < 61; i++) t.db.insert(auditLog).values({ id: crypto.randomUUID(), actorId: actor.id, action: 'shop.approve', subjectType: 'shop', subjectId: fernShop, reason: null, createdAt: at + i }).run();
+    for (let i = 0; i < 61; i++)
+      t.db
+        .insert(auditLog)
+        .values({ id: crypto.randomUUID(), actorId: actor.id, action: 'shop.approve', subjectType: 'shop', subjectId: fernShop, reason: null, createdAt: at + i })
+        .run();
     const all = t.db.select().from(auditLog).all();
     const first = (await admin.get('/api/moderation/audit')).body as PageBody<{ id: string; at: number }>;
     expect(first).toMatchObject({ total: all.length, limit: 50 });

@@ -1,17 +1,18 @@
 // Production configuration, through the real entry points: `tsx server/index.ts` (what `npm start`
 // runs) and `tsx scripts/admin-create.ts` (`npm run admin:create`), each a child process with a clean
 // environment of its own, so nothing from the test runner's environment leaks in.
+
+import { type ChildProcess, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { spawn, type ChildProcess } from 'node:child_process';
 import Database from 'better-sqlite3';
-import { afterAll, describe, expect, test } from 'vitest';
 import request from 'supertest';
+import { afterAll, describe, expect, test } from 'vitest';
+import { freePort } from '../../scripts/lib/server-process.ts';
+import { seedDemo } from '../../server/db/seed.ts';
 import { loadEnv } from '../../server/env.ts';
 import { makeTestApp } from '../factories/app.ts';
-import { seedDemo } from '../../server/db/seed.ts';
-import { freePort } from '../../scripts/lib/server-process.ts';
 
 const TSX = ['node_modules/tsx/dist/cli.mjs'];
 const SECRET = 'a-test-secret-of-forty-characters-xxxxxxx';
@@ -89,13 +90,23 @@ async function call(port: number, pathname: string, opts: { method?: string; ori
 }
 
 describe('loadEnv: production needs its own secrets', () => {
-  const complete: Record<string, string> = { NODE_ENV: 'production', AUTH_SECRET: SECRET, BASE_URL: 'https://shop.example.com', STRIPE_SECRET_KEY: 'sk_live_x', STRIPE_WEBHOOK_SECRET: 'whsec_x', SMTP_HOST: 'smtp.example.com' };
+  const complete: Record<string, string> = {
+    NODE_ENV: 'production',
+    AUTH_SECRET: SECRET,
+    BASE_URL: 'https://shop.example.com',
+    STRIPE_SECRET_KEY: 'sk_live_x',
+    STRIPE_WEBHOOK_SECRET: 'whsec_x',
+    SMTP_HOST: 'smtp.example.com',
+  };
   const problemsOf = (env: Record<string, string>) => {
     try {
       loadEnv(env);
       return [];
     } catch (e) {
-      return (e as Error).message.split('\n').slice(1).map((l) => l.trim().split(':')[0]);
+      return (e as Error).message
+        .split('\n')
+        .slice(1)
+        .map((l) => l.trim().split(':')[0]);
     }
   };
 
@@ -145,7 +156,10 @@ describe('npm start with NODE_ENV=production', () => {
     const dataDir = path.join(tmp(), 'data');
     const r = await run('server/index.ts', [], { NODE_ENV: 'production', DATA_DIR: dataDir, PORT: '0' });
     expect(r.code).toBe(1);
-    const named = r.err.split('\n').filter((l) => /^\s+[A-Z_]+:/.test(l)).map((l) => l.trim().split(':')[0]);
+    const named = r.err
+      .split('\n')
+      .filter((l) => /^\s+[A-Z_]+:/.test(l))
+      .map((l) => l.trim().split(':')[0]);
     expect(named.sort()).toEqual([...REQUIRED].sort());
     expect(r.err).not.toMatch(/\n\s+at /); // a message, not a stack trace
     expect(fs.existsSync(dataDir)).toBe(false);
@@ -155,7 +169,18 @@ describe('npm start with NODE_ENV=production', () => {
     const dataDir = tmp();
     const port = await freePort();
     const base = `http://localhost:${port}`;
-    const env = { NODE_ENV: 'production', LOCAL_FAKES: 'true', AUTH_SECRET: SECRET, DATA_DIR: dataDir, PORT: String(port), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', LOG_REQUESTS: 'false', DIGEST: 'false', CLIENT_DIR: path.join(dataDir, 'no-client') };
+    const env = {
+      NODE_ENV: 'production',
+      LOCAL_FAKES: 'true',
+      AUTH_SECRET: SECRET,
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      SMTP_PORT: '0',
+      STRIPE_FAKE_PORT: '0',
+      LOG_REQUESTS: 'false',
+      DIGEST: 'false',
+      CLIENT_DIR: path.join(dataDir, 'no-client'),
+    };
     // a bad address is refused before anything is opened (run meanwhile: start-ups are the slow part)
     const refusal = run('scripts/admin-create.ts', ['not-an-email'], env);
     const { proc, output } = await startServer(env);
@@ -202,7 +227,10 @@ describe('npm start with NODE_ENV=production', () => {
 
     const signIn = await call(port, '/api/auth/sign-in/email', { origin: base, body: { email: 'boss@example.com', password } });
     expect(signIn.status).toBe(200);
-    const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const cookie = signIn.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
     expect(cookie).toMatch(/__Secure-/); // production cookies are Secure
     const session = await call(port, '/api/auth/get-session', { cookie });
     expect(session.json.user).toMatchObject({ email: 'boss@example.com', role: 'admin' });
@@ -215,7 +243,17 @@ describe('npm start in development', () => {
   test('when the page is opened at 127.0.0.1 instead of localhost, then sign-up and sign-in work; another site is still refused', async () => {
     const dataDir = tmp();
     const port = await freePort();
-    const { proc } = await startServer({ NODE_ENV: 'development', DEMO_DATA: 'false', DATA_DIR: dataDir, PORT: String(port), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', LOG_REQUESTS: 'false', DIGEST: 'false', CLIENT_DIR: path.join(dataDir, 'no-client') });
+    const { proc } = await startServer({
+      NODE_ENV: 'development',
+      DEMO_DATA: 'false',
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      SMTP_PORT: '0',
+      STRIPE_FAKE_PORT: '0',
+      LOG_REQUESTS: 'false',
+      DIGEST: 'false',
+      CLIENT_DIR: path.join(dataDir, 'no-client'),
+    });
     const account = { email: 'dev@example.com', password: 'a-long-dev-passphrase', name: 'Dev' };
     const own = `http://127.0.0.1:${port}`;
     expect((await call(port, '/api/auth/sign-up/email', { origin: own, body: account })).status).toBe(200);
@@ -227,7 +265,7 @@ describe('npm start in development', () => {
   }, 60_000);
 });
 
-describe('the sign-in page\'s demo list (/api/config)', () => {
+describe("the sign-in page's demo list (/api/config)", () => {
   const DEMO_EMAILS = ['dana@namesake.test', 'fern@namesake.test', 'comet@namesake.test', 'harbour@namesake.test', 'admin@namesake.test'];
 
   test('when DEMO_DATA is on, then the demo accounts are listed only once they are in the database', async () => {

@@ -1,9 +1,10 @@
 // Refunds through the Stripe fake: the charge is refunded, the shop's transfer reversed for its
 // part ("separate charges and transfers": the platform bears refunds; Stripe Connect docs).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
 import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkouts, ledger, orderLines, orders, refundIntents } from '../../server/db/schema.ts';
-import { checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, waitFor, type World } from './checkout.fixtures.ts';
+import { checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, type World, waitFor } from './checkout.fixtures.ts';
 
 let w: World;
 beforeAll(async () => {
@@ -15,8 +16,14 @@ async function paidOrderWithTwoLines() {
   const shop = await makeShopWithListing(w, { basePriceMinor: 2000, shippingMinor: 500, extraLayerPriceMinor: 0 });
   const buyer = await w.makeUser('shopper');
   const agent = await w.signIn(buyer.email);
-  await agent.post('/api/cart/lines').send({ listingId: shop.listingId, choices: nameChoices('Mira') }).expect(201);
-  await agent.post('/api/cart/lines').send({ listingId: shop.listingId, quantity: 2, choices: nameChoices('Theo') }).expect(201);
+  await agent
+    .post('/api/cart/lines')
+    .send({ listingId: shop.listingId, choices: nameChoices('Mira') })
+    .expect(201);
+  await agent
+    .post('/api/cart/lines')
+    .send({ listingId: shop.listingId, quantity: 2, choices: nameChoices('Theo') })
+    .expect(201);
   const { orders: made } = await checkoutAndPay(w, agent);
   const orderId = made[0]!.id;
   await waitFor(() => w.db.select().from(orders).where(eq(orders.id, orderId)).get()?.transferId);
@@ -81,7 +88,14 @@ describe('refunds', () => {
     const otherSeller = await w.signIn(other.seller.email);
     expect((await otherSeller.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(404);
     expect((await agent.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(403);
-    expect(w.db.select().from(ledger).where(eq(ledger.orderId, orderId)).all().some((r) => r.kind === 'refund')).toBe(false);
+    expect(
+      w.db
+        .select()
+        .from(ledger)
+        .where(eq(ledger.orderId, orderId))
+        .all()
+        .some((r) => r.kind === 'refund'),
+    ).toBe(false);
   });
 
   it('when a line the state table may not refund is refunded, then 409 before the provider is asked, and nothing is claimed', async () => {

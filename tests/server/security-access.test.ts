@@ -3,8 +3,9 @@
 // another shop's seller and an admin, with ids that belong to Fern's shop or to Dana. Only the owner
 // (or an admin, where the product says so) gets data; every refused call leaves the victims' rows
 // unchanged. A route the table below cannot classify fails the test.
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+
 import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { listRoutes, makeSweepWorld, ROLES, type SweepRole, type SweepWorld } from '../factories/sweep.ts';
 
 let w: SweepWorld;
@@ -136,7 +137,10 @@ const SPECS: Record<string, Spec> = {
   'GET /api/workroom/stock': S('mine'),
   'PATCH /api/workroom/stock/:id': S('owner', { url: (i) => `/api/workroom/stock/${i.material}`, body: () => ({ lowStockMm: 1 }) }),
   'GET /api/order-lines/:id/personalisation': S('owner', { url: (i) => `/api/order-lines/${i.changeLine}/personalisation`, owner: 'dana' }),
-  'PUT /api/order-lines/:id/personalisation': S('owner', { url: (i) => `/api/order-lines/${i.changeLine}/personalisation`, body: () => ({ choices: { texts: { name: { text: 'Hijack', fontId: 'baloo-bold', letterHeightMm: 40 } } } }) }),
+  'PUT /api/order-lines/:id/personalisation': S('owner', {
+    url: (i) => `/api/order-lines/${i.changeLine}/personalisation`,
+    body: () => ({ choices: { texts: { name: { text: 'Hijack', fontId: 'baloo-bold', letterHeightMm: 40 } } } }),
+  }),
   'GET /api/business/settings': S('mine'),
   'PATCH /api/business/settings': S('mine', { body: () => ({}) }),
   'GET /api/business/due': S('mine'),
@@ -257,6 +261,8 @@ describe('access sweep (OWASP ASVS 8.2.1, 8.2.2, 8.3.1)', () => {
     expect(roles.map((x) => x.role)).not.toContain('admin');
     const routeCount = routes.filter((r) => r.method !== 'ALL').length;
     const skipped = endpoints * ROLES.length - calls;
-    console.log(`access sweep: ${routeCount} routes + ${AUTH_ENDPOINTS.length} auth endpoints = ${endpoints} endpoints × 4 roles = ${calls} calls${skipped ? ` (${skipped} admin calls that would remove or impersonate an account left out)` : ''}, all refused or owner-only`);
+    console.log(
+      `access sweep: ${routeCount} routes + ${AUTH_ENDPOINTS.length} auth endpoints = ${endpoints} endpoints × 4 roles = ${calls} calls${skipped ? ` (${skipped} admin calls that would remove or impersonate an account left out)` : ''}, all refused or owner-only`,
+    );
   }, 120_000);
 });

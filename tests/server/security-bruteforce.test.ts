@@ -2,8 +2,9 @@
 // limit (tests/server/auth.test.ts) does not stop an attacker who tries one password on many
 // accounts, so better-auth's per-IP limit must: with it switched on (AUTH_IP_RATE_LIMIT=true, as
 // in production), the 31st sign-in from one IP within a minute gets 429, whatever the account.
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+
 import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 
 let t: TestApp;
@@ -41,5 +42,4 @@ describe('sign-in brute force across accounts (ASVS 6.3.1)', () => {
     expect((await signIn(real[1]!.email, real[1]!.password, '198.51.100.9')).status).toBe(200);
     console.log(`brute-force sweep: 40 sign-ins over ${real.length} real + 20 unknown accounts from one IP → ${statuses.filter((s) => s === 429).length} limited (429)`);
   }, 60_000);
-
 });

@@ -2,10 +2,11 @@
 // from another site (Origin https://evil.example, Sec-Fetch-Site: cross-site — the headers a
 // browser adds to a cross-site form post or fetch, Fetch Metadata, W3C), is refused with 403 and
 // changes nothing. The signed payment webhook is the one exception (it carries no cookie).
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+
 import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
-import { dbFingerprint, DEMO_PASSWORD, listRoutes, sessionCookie } from '../factories/sweep.ts';
+import { DEMO_PASSWORD, dbFingerprint, listRoutes, sessionCookie } from '../factories/sweep.ts';
 
 let t: TestApp;
 let cookies: { admin: string; seller: string; shopper: string };
@@ -21,11 +22,18 @@ afterAll(async () => t?.close());
 
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS']);
 /** better-auth endpoints behind the catch-all that change an account */
-const AUTH_WRITES = ['/api/auth/sign-out', '/api/auth/update-user', '/api/auth/change-password', '/api/auth/change-email', '/api/auth/revoke-sessions', '/api/auth/delete-user', '/api/auth/admin/set-role', '/api/auth/admin/ban-user'];
+const AUTH_WRITES = [
+  '/api/auth/sign-out',
+  '/api/auth/update-user',
+  '/api/auth/change-password',
+  '/api/auth/change-email',
+  '/api/auth/revoke-sessions',
+  '/api/auth/delete-user',
+  '/api/auth/admin/set-role',
+  '/api/auth/admin/ban-user',
+];
 const victimOf = (path: string) =>
-  /^\/api\/(moderation|admin|auth\/admin)/.test(path) ? cookies.admin
-  : /^\/api\/(shop|materials|seller|uploads|motifs|workroom|business)\b/.test(path) ? cookies.seller
-  : cookies.shopper;
+  /^\/api\/(moderation|admin|auth\/admin)/.test(path) ? cookies.admin : /^\/api\/(shop|materials|seller|uploads|motifs|workroom|business)\b/.test(path) ? cookies.seller : cookies.shopper;
 const concrete = (path: string) => path.replace(/:(\w+)/g, 'x-$1');
 
 function writes(): Array<{ method: string; path: string }> {
@@ -80,7 +88,10 @@ describe('CSRF (OWASP ASVS 3.5.1 / 3.5.3: cross-origin state changes refused)', 
   test('when the same request comes from our own origin, then it is not refused as cross-site (the check is not just "refuse everything")', async () => {
     const res = await request(t.app).post('/api/auth/update-user').set('Cookie', cookies.shopper).set('Origin', 'http://localhost:3000').set('Sec-Fetch-Site', 'same-origin').send({ name: 'Dana R.' });
     expect(res.status).toBe(200);
-    const cart = await request(t.app).post('/api/cart/lines').set('Origin', 'http://localhost:3000').send({ listingId: 'nope', choices: { texts: {} } });
+    const cart = await request(t.app)
+      .post('/api/cart/lines')
+      .set('Origin', 'http://localhost:3000')
+      .send({ listingId: 'nope', choices: { texts: {} } });
     expect(cart.status).not.toBe(403);
   });
 });

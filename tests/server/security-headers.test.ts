@@ -5,10 +5,10 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import request, { type Response } from 'supertest';
-import { makeTestApp, type TestApp } from '../factories/app.ts';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { createApp } from '../../server/app.ts';
+import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { DEMO_PASSWORD } from '../factories/sweep.ts';
 
 let t: TestApp;
@@ -70,7 +70,13 @@ describe('security headers', () => {
 
   test('when an uploaded photo, a motif SVG and a cut sheet are served, then they cannot run script and are nosniff', async () => {
     const fern = await t.signIn('fern@namesake.test', DEMO_PASSWORD);
-    const up = await fern.post('/api/uploads').attach('file', await sharp({ create: { width: 20, height: 20, channels: 3, background: '#000' } }).png().toBuffer(), { filename: 'a.png', contentType: 'image/png' });
+    const up = await fern.post('/api/uploads').attach(
+      'file',
+      await sharp({ create: { width: 20, height: 20, channels: 3, background: '#000' } })
+        .png()
+        .toBuffer(),
+      { filename: 'a.png', contentType: 'image/png' },
+    );
     expect(up.status).toBe(201);
     const photo = await request(t.app).get(up.body.upload.url);
     expect(photo.status).toBe(200);

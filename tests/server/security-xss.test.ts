@@ -4,14 +4,15 @@
 // messages — come back escaped: every HTML field of the API (`…Html`, rendered Markdown) and every
 // e-mail's HTML holds no live tag, handler or javascript: URL. JSON string fields are data (the
 // client renders them as text); the browser half (journeys in a real browser) is in e2e/.
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+
 import request, { type Agent } from 'supertest';
-import { makeTestApp, eventually, type TestApp } from '../factories/app.ts';
-import { DEMO_PASSWORD, unsafeHtml, XSS_PAYLOADS } from '../factories/sweep.ts';
-import { createListing, decide } from './listings.fixtures.ts';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { confirmationMail, newOrderMail, refundMail } from '../../server/features/orders/order-mails.ts';
 import { changeRequestMail, shippedMail } from '../../server/features/workroom/workroom-mails.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
+import { eventually, makeTestApp, type TestApp } from '../factories/app.ts';
+import { DEMO_PASSWORD, unsafeHtml, XSS_PAYLOADS } from '../factories/sweep.ts';
+import { createListing, decide } from './listings.fixtures.ts';
 
 let t: TestApp;
 let fern: Agent;
@@ -47,8 +48,7 @@ function checkMail(label: string, html: string | undefined) {
   const bad = unsafeHtml(html ?? '');
   if (bad) problems.push(`${label}: ${bad}`);
 }
-const newMail = async (to: string, since: Set<string>, subject: RegExp) =>
-  eventually(async () => (await t.mailTo(to)).find((m) => !since.has(m.id) && subject.test(m.subject)));
+const newMail = async (to: string, since: Set<string>, subject: RegExp) => eventually(async () => (await t.mailTo(to)).find((m) => !since.has(m.id) && subject.test(m.subject)));
 const seen = async (to: string) => new Set((await t.mailTo(to)).map((m) => m.id));
 
 describe('XSS payloads in user-typed text (server half)', () => {
@@ -70,7 +70,11 @@ describe('XSS payloads in user-typed text (server half)', () => {
       checkJson('shop page', page.body);
 
       // the shopper's name → the mails the shop's actions send them
-      await dana.post('/api/auth/update-user').set('Origin', 'http://localhost:3000').send({ name: `Dana ${p}` }).expect(200);
+      await dana
+        .post('/api/auth/update-user')
+        .set('Origin', 'http://localhost:3000')
+        .send({ name: `Dana ${p}` })
+        .expect(200);
       typed('user name');
 
       // listing title + Markdown description, rejected with a reason → the seller's mail
@@ -85,7 +89,11 @@ describe('XSS payloads in user-typed text (server half)', () => {
       checkJson('draft listing page', draftView.body);
 
       // the same text, approved → the public listing page other shoppers read, and the approval mail
-      const approved = await createListing(fern, { title: `Mug ${p}`, description: `# Hello\n\n${p}\n\n[site](javascript:alert(1)) <b onmouseover=alert(1)>x</b>`, descriptionFormat: 'markdown' } as never);
+      const approved = await createListing(fern, {
+        title: `Mug ${p}`,
+        description: `# Hello\n\n${p}\n\n[site](javascript:alert(1)) <b onmouseover=alert(1)>x</b>`,
+        descriptionFormat: 'markdown',
+      } as never);
       await fern.post(`/api/seller/listings/${approved.id}/submit`).send({}).expect(200);
       before = await seen('fern@namesake.test');
       expect((await decide(admin, approved.id)).status).toBe(200);
@@ -112,14 +120,31 @@ describe('XSS payloads in user-typed text (server half)', () => {
       // the order, shipping and refund mails, built by the same functions the checkout webhook,
       // the workroom and refunds call: payload in names, shop name, titles and personalisation text
       const snapshot = { summary: [{ label: `Name ${p}`, value: p }] } as unknown as LineSnapshot;
-      const order = { number: 'NS-1001', shopName: `Shop ${p}`, currency: 'USD', subtotalMinor: 2400, shippingMinor: 450, totalMinor: 2850, lines: [{ title: `Tote ${p}`, quantity: 1, totalMinor: 2400, snapshot }] };
+      const order = {
+        number: 'NS-1001',
+        shopName: `Shop ${p}`,
+        currency: 'USD',
+        subtotalMinor: 2400,
+        shippingMinor: 450,
+        totalMinor: 2850,
+        lines: [{ title: `Tote ${p}`, quantity: 1, totalMinor: 2400, snapshot }],
+      };
       const who = { email: 'x@namesake.test', name: `Pat ${p}` };
       checkMail('confirmation mail', confirmationMail(who, [order], 'http://localhost:3000').html);
       checkMail('new-order mail', newOrderMail(who, { ...order, feeMinor: 228, buyerName: `Buyer ${p}` }, 'http://localhost:3000').html);
-      checkMail('refund mail', refundMail(who, { number: 'NS-1001', shopName: `Shop ${p}`, currency: 'USD', amountMinor: 100, what: `Line ${p}`, reason: `Because ${p}`, orderId: 'o1' }, 'http://localhost:3000').html);
-      checkMail('change-request mail (template)', changeRequestMail(who, { shopName: `Shop ${p}`, orderNumber: 'NS-1', orderId: 'o1', lineTitle: `Tote ${p}`, text: p, message: `Msg ${p}` }, 'http://localhost:3000').html);
-      checkMail('shipped mail', shippedMail(who, { shopName: `Shop ${p}`, orderNumber: 'NS-1', orderId: 'o1', carrier: `UPS ${p}`, trackingNumber: p, items: [`Tote ${p}`] }, 'http://localhost:3000').html);
-      typed('personalisation label', 'personalisation text', 'buyer name', 'order line title', 'refund reason', 'carrier', 'tracking number')
+      checkMail(
+        'refund mail',
+        refundMail(who, { number: 'NS-1001', shopName: `Shop ${p}`, currency: 'USD', amountMinor: 100, what: `Line ${p}`, reason: `Because ${p}`, orderId: 'o1' }, 'http://localhost:3000').html,
+      );
+      checkMail(
+        'change-request mail (template)',
+        changeRequestMail(who, { shopName: `Shop ${p}`, orderNumber: 'NS-1', orderId: 'o1', lineTitle: `Tote ${p}`, text: p, message: `Msg ${p}` }, 'http://localhost:3000').html,
+      );
+      checkMail(
+        'shipped mail',
+        shippedMail(who, { shopName: `Shop ${p}`, orderNumber: 'NS-1', orderId: 'o1', carrier: `UPS ${p}`, trackingNumber: p, items: [`Tote ${p}`] }, 'http://localhost:3000').html,
+      );
+      typed('personalisation label', 'personalisation text', 'buyer name', 'order line title', 'refund reason', 'carrier', 'tracking number');
     }
 
     // the seller's workroom shows the shoppers' names and personalisation text as data only

@@ -1,6 +1,6 @@
 import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request, { type Agent } from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { createListing, liveListing } from './listings.fixtures.ts';
 
@@ -39,8 +39,10 @@ describe('shop settings', () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['processingDays', 'shippingMinor', 'slug']);
   });
 
-  it('when seller B sets seller A\'s upload as a logo, then 400 (not theirs)', async () => {
-    const img = await sharp({ create: { width: 200, height: 200, channels: 3, background: '#fbf7f0' } }).png().toBuffer();
+  it("when seller B sets seller A's upload as a logo, then 400 (not theirs)", async () => {
+    const img = await sharp({ create: { width: 200, height: 200, channels: 3, background: '#fbf7f0' } })
+      .png()
+      .toBuffer();
     const up = (await a.post('/api/uploads').field('kind', 'logo').attach('file', img, { filename: 'l.png', contentType: 'image/png' })).body.upload;
     const res = await b.patch('/api/shop').send({ logoId: up.id });
     expect(res.status).toBe(400);
@@ -49,8 +51,10 @@ describe('shop settings', () => {
     expect(mine.body.shop.logoUrl).toBe(up.thumbnailUrl);
   });
 
-  it('when a logo is uploaded to /api/shop/logo, then it becomes the shop\'s logo and is served', async () => {
-    const img = await sharp({ create: { width: 300, height: 300, channels: 4, background: '#2f7d6d' } }).png().toBuffer();
+  it("when a logo is uploaded to /api/shop/logo, then it becomes the shop's logo and is served", async () => {
+    const img = await sharp({ create: { width: 300, height: 300, channels: 4, background: '#2f7d6d' } })
+      .png()
+      .toBuffer();
     const res = await a.post('/api/shop/logo').attach('file', img, { filename: 'logo.png', contentType: 'image/png' });
     expect(res.status).toBe(200);
     expect(res.body.shop.logoUrl).toMatch(/^\/uploads\/[a-f0-9]{32}-t\.webp$/);

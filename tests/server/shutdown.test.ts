@@ -3,13 +3,14 @@
 // the process exits 0, and the database was closed cleanly — its WAL checkpointed, so no -wal
 // file is left with frames in it (sqlite.org, "Write-Ahead Logging": the last connection to close
 // checkpoints and deletes the WAL).
+
+import { type ChildProcess, spawn } from 'node:child_process';
 import fs from 'node:fs';
+import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
-import http from 'node:http';
-import { spawn, type ChildProcess } from 'node:child_process';
-import sharp from 'sharp';
 import Database from 'better-sqlite3';
+import sharp from 'sharp';
 import { afterAll, describe, expect, test } from 'vitest';
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-shutdown-'));
@@ -21,7 +22,19 @@ afterAll(() => {
 
 function start(): Promise<{ url: string; proc: ChildProcess; output: () => string }> {
   const proc = spawn(path.resolve('node_modules/.bin/tsx'), ['server/index.ts'], {
-    env: { ...process.env, NODE_ENV: 'test', DATA_DIR: dataDir, PORT: '0', SMTP_PORT: '0', STRIPE_FAKE: 'false', STRIPE_API_BASE: 'http://127.0.0.1:9', LOG_REQUESTS: 'false', DIGEST: 'false', BASE_URL: 'http://localhost:3000', CLIENT_DIR: path.join(dataDir, 'no-client') },
+    env: {
+      ...process.env,
+      NODE_ENV: 'test',
+      DATA_DIR: dataDir,
+      PORT: '0',
+      SMTP_PORT: '0',
+      STRIPE_FAKE: 'false',
+      STRIPE_API_BASE: 'http://127.0.0.1:9',
+      LOG_REQUESTS: 'false',
+      DIGEST: 'false',
+      BASE_URL: 'http://localhost:3000',
+      CLIENT_DIR: path.join(dataDir, 'no-client'),
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   child = proc;
@@ -46,12 +59,21 @@ describe('graceful shutdown', () => {
   test('when SIGTERM arrives during an upload, then the upload completes, the process exits 0 and the WAL is checkpointed', async () => {
     const { url, proc, output } = await start();
     const u = new URL(url);
-    const signIn = await fetch(`${url}/api/auth/sign-in/email`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'fern@namesake.test', password: 'namesake-demo' }) });
+    const signIn = await fetch(`${url}/api/auth/sign-in/email`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ email: 'fern@namesake.test', password: 'namesake-demo' }),
+    });
     expect(signIn.status).toBe(200);
-    const cookie = signIn.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const cookie = signIn.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
 
     // a multipart upload, sent in two halves with SIGTERM in between
-    const image = await sharp({ create: { width: 1600, height: 1200, channels: 3 as const, background: '#808080', noise: { type: 'gaussian' as const, mean: 128, sigma: 60 } } }).png().toBuffer();
+    const image = await sharp({ create: { width: 1600, height: 1200, channels: 3 as const, background: '#808080', noise: { type: 'gaussian' as const, mean: 128, sigma: 60 } } })
+      .png()
+      .toBuffer();
     const boundary = 'namesakeboundary';
     const body = Buffer.concat([
       Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="big.png"\r\nContent-Type: image/png\r\n\r\n`),
@@ -59,11 +81,14 @@ describe('graceful shutdown', () => {
       Buffer.from(`\r\n--${boundary}--\r\n`),
     ]);
     const response = new Promise<{ status: number; body: string }>((resolve, reject) => {
-      const req = http.request({ host: u.hostname, port: u.port, method: 'POST', path: '/api/uploads', headers: { cookie, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': body.length } }, (res) => {
-        let text = '';
-        res.on('data', (d) => (text += d));
-        res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
-      });
+      const req = http.request(
+        { host: u.hostname, port: u.port, method: 'POST', path: '/api/uploads', headers: { cookie, 'content-type': `multipart/form-data; boundary=${boundary}`, 'content-length': body.length } },
+        (res) => {
+          let text = '';
+          res.on('data', (d) => (text += d));
+          res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
+        },
+      );
       req.on('error', reject);
       const half = Math.floor(body.length / 2);
       req.write(body.subarray(0, half), () => {

@@ -2,15 +2,15 @@
 // local fakes find their usual ports taken by the first one's and take free ports instead, and each
 // app talks to its own fakes. A taken app PORT is a one-line refusal.
 import fs from 'node:fs';
-import os from 'node:os';
 import net from 'node:net';
+import os from 'node:os';
 import path from 'node:path';
 import { afterAll, expect, test } from 'vitest';
-import { startNamesake, type Running } from '../../server/runtime.ts';
-import { createMailer } from '../../server/integrations/mailer.ts';
 import { listMail } from '../../fakes/mail/store.ts';
-import { eventually } from '../factories/app.ts';
 import { freePort } from '../../scripts/lib/server-process.ts';
+import { createMailer } from '../../server/integrations/mailer.ts';
+import { type Running, startNamesake } from '../../server/runtime.ts';
+import { eventually } from '../factories/app.ts';
 
 const running: Running[] = [];
 const dirs: string[] = [];
@@ -23,8 +23,15 @@ test('when a second runtime starts with the same fake ports, then it runs beside
   // the "usual" ports both runtimes ask for (free ones here, so the test never touches 2525/12111)
   const [smtp, stripe] = [await freePort(), await freePort()];
   const envFor = (dir: string) => ({
-    NODE_ENV: 'test', DATA_DIR: dir, PORT: '0', SMTP_PORT: String(smtp), STRIPE_API_BASE: `http://127.0.0.1:${stripe}`,
-    DEMO_DATA: 'false', DIGEST: 'false', LOG_REQUESTS: 'false', BASE_URL: 'http://localhost:3999',
+    NODE_ENV: 'test',
+    DATA_DIR: dir,
+    PORT: '0',
+    SMTP_PORT: String(smtp),
+    STRIPE_API_BASE: `http://127.0.0.1:${stripe}`,
+    DEMO_DATA: 'false',
+    DIGEST: 'false',
+    LOG_REQUESTS: 'false',
+    BASE_URL: 'http://localhost:3999',
   });
   const [dirA, dirB] = [fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-a-')), fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-b-'))];
   dirs.push(dirA, dirB);
@@ -63,7 +70,10 @@ test('when the app PORT itself is taken, then start-up refuses with a one-line m
   dirs.push(dir);
   try {
     await expect(
-      startNamesake({ envSource: { NODE_ENV: 'test', DATA_DIR: dir, PORT: String(port), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', DEMO_DATA: 'false', DIGEST: 'false', LOG_REQUESTS: 'false' }, log: () => {} }),
+      startNamesake({
+        envSource: { NODE_ENV: 'test', DATA_DIR: dir, PORT: String(port), SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', DEMO_DATA: 'false', DIGEST: 'false', LOG_REQUESTS: 'false' },
+        log: () => {},
+      }),
     ).rejects.toThrow(`127.0.0.1:${port} is already in use`);
   } finally {
     holder.close();

@@ -1,12 +1,12 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import request, { type Agent } from 'supertest';
 import { sql } from 'drizzle-orm';
+import sharp from 'sharp';
+import request, { type Agent } from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { pngHeader } from '../factories/images.ts';
-import { TWO_LAYER_SVG, liveListing } from './listings.fixtures.ts';
+import { liveListing, TWO_LAYER_SVG } from './listings.fixtures.ts';
 
 let t: TestApp;
 let a: Agent;
@@ -24,7 +24,10 @@ const filesOnDisk = () => (fs.existsSync(t.env.uploadsDir) ? fs.readdirSync(t.en
 const uploadRows = () => t.db.get<{ n: number }>(sql`select count(*) as n from uploads`)!.n;
 const motifRows = () => t.db.get<{ n: number }>(sql`select count(*) as n from motifs`)!.n;
 
-const png = (w = 640, h = 480) => sharp({ create: { width: w, height: h, channels: 3, background: '#2f7d6d' } }).png().toBuffer();
+const png = (w = 640, h = 480) =>
+  sharp({ create: { width: w, height: h, channels: 3, background: '#2f7d6d' } })
+    .png()
+    .toBuffer();
 
 describe('photo uploads', () => {
   it('when a real PNG is uploaded, then a re-encoded WebP and a WebP thumbnail are stored under random names and served with nosniff', async () => {
@@ -45,7 +48,9 @@ describe('photo uploads', () => {
   });
 
   it('when a JPEG is uploaded, then it is kept as JPEG (served image/jpeg)', async () => {
-    const jpg = await sharp({ create: { width: 300, height: 200, channels: 3, background: '#e0a526' } }).jpeg().toBuffer();
+    const jpg = await sharp({ create: { width: 300, height: 200, channels: 3, background: '#e0a526' } })
+      .jpeg()
+      .toBuffer();
     const res = await a.post('/api/uploads').attach('file', jpg, { filename: 'x.jpg', contentType: 'image/jpeg' });
     expect(res.status).toBe(201);
     expect(res.body.upload.url).toMatch(/\.jpg$/);
@@ -85,7 +90,7 @@ describe('photo uploads', () => {
     expect(filesOnDisk()).toEqual(before);
   });
 
-  it('when seller B deletes seller A\'s upload, then 404; A can delete it and its files are removed', async () => {
+  it("when seller B deletes seller A's upload, then 404; A can delete it and its files are removed", async () => {
     const up = (await a.post('/api/uploads').attach('file', await png(), { filename: 'a.png', contentType: 'image/png' })).body.upload;
     expect((await b.delete(`/api/uploads/${up.id}`)).status).toBe(404);
     expect((await b.get('/api/uploads')).body.uploads.map((u: { id: string }) => u.id)).not.toContain(up.id);
@@ -100,8 +105,7 @@ describe('photo uploads', () => {
 });
 
 describe('motif uploads', () => {
-  const upload = (agent: Agent, svg: string, name = 'Star') =>
-    agent.post('/api/motifs').field('name', name).attach('file', Buffer.from(svg), { filename: 'm.svg', contentType: 'image/svg+xml' });
+  const upload = (agent: Agent, svg: string, name = 'Star') => agent.post('/api/motifs').field('name', name).attach('file', Buffer.from(svg), { filename: 'm.svg', contentType: 'image/svg+xml' });
 
   it('when a layered SVG is uploaded, then its layers are stored as geometry and the served SVG is our own', async () => {
     const res = await upload(a, TWO_LAYER_SVG);
@@ -123,9 +127,18 @@ describe('motif uploads', () => {
     ['a script', `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><script>alert(1)</script><rect width="10" height="10"/></svg>`],
     ['an onload handler', `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10" onload="alert(1)"><rect width="10" height="10"/></svg>`],
     ['an event handler on a shape', `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><rect width="10" height="10" onclick="alert(1)"/></svg>`],
-    ['a foreignObject', `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><foreignObject width="10" height="10"><div xmlns="http://www.w3.org/1999/xhtml">hi</div></foreignObject><rect width="10" height="10"/></svg>`],
-    ['an external entity', `<?xml version="1.0"?><!DOCTYPE svg [<!ENTITY x SYSTEM "file:///etc/passwd">]><svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><text>&x;</text><rect width="10" height="10"/></svg>`],
-    ['an external image link', `<svg xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" viewBox="0 0 10 10"><image xlink:href="http://evil.test/x.png"/><rect width="10" height="10"/></svg>`],
+    [
+      'a foreignObject',
+      `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><foreignObject width="10" height="10"><div xmlns="http://www.w3.org/1999/xhtml">hi</div></foreignObject><rect width="10" height="10"/></svg>`,
+    ],
+    [
+      'an external entity',
+      `<?xml version="1.0"?><!DOCTYPE svg [<!ENTITY x SYSTEM "file:///etc/passwd">]><svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10"><text>&x;</text><rect width="10" height="10"/></svg>`,
+    ],
+    [
+      'an external image link',
+      `<svg xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" viewBox="0 0 10 10"><image xlink:href="http://evil.test/x.png"/><rect width="10" height="10"/></svg>`,
+    ],
     ['not SVG at all', `<html><body>hi</body></html>`],
   ];
   it.each(bad)('when the SVG has %s, then it is refused with a clear message and nothing is stored (ASVS 1.3.4, 1.5.1)', async (_label, svg) => {
@@ -142,7 +155,7 @@ describe('motif uploads', () => {
     expect(res.status).toBe(413);
   });
 
-  it('when seller B asks for seller A\'s motif by id, then 404 on every route; guests cannot see an unpublished motif', async () => {
+  it("when seller B asks for seller A's motif by id, then 404 on every route; guests cannot see an unpublished motif", async () => {
     const m = (await upload(a, TWO_LAYER_SVG)).body.motif;
     expect((await b.get(`/api/motifs/${m.id}`)).status).toBe(404);
     expect((await b.delete(`/api/motifs/${m.id}`)).status).toBe(404);

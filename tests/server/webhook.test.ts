@@ -2,10 +2,11 @@
 // body (stripe-node src/Webhooks.ts: v1 = HMAC-SHA256(secret, `${t}.${body}`), tolerance 300 s),
 // each event processed once (Stripe API docs, "Handle duplicate events"), and nothing lost when
 // our server is down at delivery time (the fake retries with back-off, as Stripe does).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
 import { eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkouts, ledger, orders, webhookEvents } from '../../server/db/schema.ts';
-import { CARDS, WEBHOOK_SECRET, makeShopWithListing, makeWorld, nameChoices, payOnPage, waitFor, type World } from './checkout.fixtures.ts';
+import { CARDS, makeShopWithListing, makeWorld, nameChoices, payOnPage, WEBHOOK_SECRET, type World, waitFor } from './checkout.fixtures.ts';
 
 let w: World;
 beforeAll(async () => {
@@ -23,14 +24,19 @@ async function paidCartOfTwoShops() {
   const b = await makeShopWithListing(w);
   const buyer = await w.makeUser('shopper');
   const agent = await w.signIn(buyer.email);
-  await agent.post('/api/cart/lines').send({ listingId: a.listingId, choices: nameChoices('Mira') }).expect(201);
-  await agent.post('/api/cart/lines').send({ listingId: b.listingId, choices: nameChoices('Theo') }).expect(201);
+  await agent
+    .post('/api/cart/lines')
+    .send({ listingId: a.listingId, choices: nameChoices('Mira') })
+    .expect(201);
+  await agent
+    .post('/api/cart/lines')
+    .send({ listingId: b.listingId, choices: nameChoices('Theo') })
+    .expect(201);
   const started = (await agent.post('/api/checkout').send({}).expect(201)).body as { checkoutId: string; sessionId: string; url: string };
   return { agent, buyer, started };
 }
 
-const post = (body: string, signature: string) =>
-  fetch(`${w.appUrl}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': signature }, body });
+const post = (body: string, signature: string) => fetch(`${w.appUrl}/api/payments/webhook`, { method: 'POST', headers: { 'content-type': 'application/json', 'stripe-signature': signature }, body });
 
 const counts = () => ({
   orders: w.db.select().from(orders).all().length,
@@ -42,14 +48,20 @@ describe('payment webhook', () => {
   it('when the same checkout.session.completed arrives 10 times, then exactly one set of orders, transfers and e-mails', async () => {
     const { started, buyer } = await paidCartOfTwoShops();
     await payOnPage(started.url, CARDS.ok);
-    await waitFor(() => w.db.select().from(orders).where(eq(orders.checkoutId, started.checkoutId)).all().filter((o) => o.transferId).length === 2);
+    await waitFor(
+      () =>
+        w.db
+          .select()
+          .from(orders)
+          .where(eq(orders.checkoutId, started.checkoutId))
+          .all()
+          .filter((o) => o.transferId).length === 2,
+    );
     const ev = (await fakeEvents()).find((e) => e.type === 'checkout.session.completed' && (e.event as { data: { object: { id: string } } }).data.object.id === started.sessionId)!;
     const payload = JSON.stringify(ev.event, null, 2);
     const before = counts();
 
-    const replies = await Promise.all(
-      Array.from({ length: 10 }, () => post(payload, w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }))),
-    );
+    const replies = await Promise.all(Array.from({ length: 10 }, () => post(payload, w.stripe.webhooks.generateTestHeaderString({ payload, secret: WEBHOOK_SECRET }))));
     expect(replies.map((r) => r.status)).toEqual(Array(10).fill(200));
     expect(counts()).toEqual(before);
     expect(w.db.select().from(orders).where(eq(orders.checkoutId, started.checkoutId)).all()).toHaveLength(2);
@@ -67,7 +79,9 @@ describe('payment webhook', () => {
       object: 'event',
       type: 'checkout.session.completed',
       created: Math.floor(Date.now() / 1000),
-      data: { object: { id: started.sessionId, object: 'checkout.session', metadata: { checkoutId: started.checkoutId }, payment_status: 'paid', amount_total: 1, currency: 'usd', payment_intent: null } },
+      data: {
+        object: { id: started.sessionId, object: 'checkout.session', metadata: { checkoutId: started.checkoutId }, payment_status: 'paid', amount_total: 1, currency: 'usd', payment_intent: null },
+      },
     };
     const payload = JSON.stringify(fakeEvent);
     const before = counts();
@@ -92,7 +106,7 @@ describe('payment webhook', () => {
     const pay = await payOnPage(started.url, CARDS.ok);
     expect(pay.status).toBe(303);
     // the fake tries, fails (connection refused) and schedules retries
-    await waitFor(async () => ((await fakeEvents()).find((e) => e.type === 'checkout.session.completed' && e.delivery && e.delivery.attempts >= 1 && e.delivery.status === 'pending')));
+    await waitFor(async () => (await fakeEvents()).find((e) => e.type === 'checkout.session.completed' && e.delivery && e.delivery.attempts >= 1 && e.delivery.status === 'pending'));
     expect(w.db.select().from(orders).where(eq(orders.checkoutId, started.checkoutId)).all()).toHaveLength(0);
 
     await w.startApp();

@@ -1,11 +1,12 @@
 // The workroom API on the seeded demo (a fresh database for this file): Fern & Fable Goods has
 // paid lines from dana@; Little Comet Print Co. has none of them. Each test uses its own lines.
-import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+
 import { eq } from 'drizzle-orm';
-import { eventually, makeTestApp, type TestApp } from '../factories/app.ts';
-import { cutSheets, lineVersions, materials, orderLines, ledger, orders } from '../../server/db/schema.ts';
-import type { WorkLine, WorkSheet, MarkCutResult, Proof } from '../../shared/schemas/workroom.ts';
+import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { cutSheets, ledger, lineVersions, materials, orderLines, orders } from '../../server/db/schema.ts';
 import type { ShipTo } from '../../shared/schemas/checkout.ts';
+import type { MarkCutResult, Proof, WorkLine, WorkSheet } from '../../shared/schemas/workroom.ts';
+import { eventually, makeTestApp, type TestApp } from '../factories/app.ts';
 
 const DEMO = 'namesake-demo';
 let t: TestApp;
@@ -164,7 +165,12 @@ describe('proofs and states', () => {
     const row = t.db.select().from(orderLines).where(eq(orderLines.id, line.id)).get()!;
     expect(row.state).toBe('awaiting_proof');
     expect(row.version).toBe(2);
-    const versions = t.db.select().from(lineVersions).where(eq(lineVersions.lineId, line.id)).all().sort((a, b) => a.version - b.version);
+    const versions = t.db
+      .select()
+      .from(lineVersions)
+      .where(eq(lineVersions.lineId, line.id))
+      .all()
+      .sort((a, b) => a.version - b.version);
     expect(versions.map((v) => v.snapshot.choices.texts.name!.text)).toEqual(['mIRA', 'Mira']);
     // the geometry was composed again by the engine: the name's outline changed
     const v1 = versions[0]!.snapshot;
@@ -242,7 +248,11 @@ describe('cut sheets, stock, pressing and shipping', () => {
     const sheets = res.body.sheets as WorkSheet[];
     const [a, b] = sheets;
     t.db.update(materials).set({ stockMm: 10, lowStockMm: 1000 }).where(eq(materials.id, a!.material.id)).run();
-    t.db.update(materials).set({ stockMm: a!.material.id === b!.material.id ? 10 : b!.lengthMm + 25 + 500, lowStockMm: 1000 }).where(eq(materials.id, b!.material.id)).run();
+    t.db
+      .update(materials)
+      .set({ stockMm: a!.material.id === b!.material.id ? 10 : b!.lengthMm + 25 + 500, lowStockMm: 1000 })
+      .where(eq(materials.id, b!.material.id))
+      .run();
     const cut = (await fern.post(`/api/workroom/batches/${res.body.batchId}/cut`)).body as MarkCutResult;
     expect(stockOf(a!.material.id)).toBe(0);
     expect(cut.warnings.find((w) => w.materialId === a!.material.id)?.level).toBe('short');
@@ -260,7 +270,11 @@ describe('cut sheets, stock, pressing and shipping', () => {
       expect((await dana.get(`/api/orders/${theo.orderId}`)).body.shipTo).toEqual(shipTo);
       // a malformed stored value is shown as "no address", never passed through
       // (written around the column's type on purpose: rows from before the schema, or edited by hand)
-      t.db.update(orders).set({ shipTo: { line1: '<script>' } as unknown as ShipTo }).where(eq(orders.id, theo.orderId)).run();
+      t.db
+        .update(orders)
+        .set({ shipTo: { line1: '<script>' } as unknown as ShipTo })
+        .where(eq(orders.id, theo.orderId))
+        .run();
       expect((await fern.get(`/api/workroom/orders/${theo.orderId}`)).body.order.shipTo).toBeNull();
     } finally {
       t.db.update(orders).set({ shipTo: before }).where(eq(orders.id, theo.orderId)).run();

@@ -1,13 +1,17 @@
-import { describe, expect, it } from 'vitest';
 import { inflateSync } from 'node:zlib';
-import { buildWorksheetPdf, mapPageCount, worksheetPageCount, type WorksheetInput } from '../../server/workers/worksheet-pdf.ts';
-import { nestCutSheets, type NestPiece } from '../../shared/engine/cut-sheets.ts';
+import { describe, expect, it } from 'vitest';
+import { buildWorksheetPdf, mapPageCount, type WorksheetInput, worksheetPageCount } from '../../server/workers/worksheet-pdf.ts';
+import { type NestPiece, nestCutSheets } from '../../shared/engine/cut-sheets.ts';
 import { pressCard } from '../../shared/engine/press-card.ts';
 import { at } from '../support/at.ts';
 
 // ---- a small PDF reader: objects, page boxes, and text decoded through each font's ToUnicode map ----
 
-interface Parsed { pages: number[][]; text: string; fontNames: string[] }
+interface Parsed {
+  pages: number[][];
+  text: string;
+  fontNames: string[];
+}
 
 function parsePdf(buf: Buffer): Parsed {
   const src = buf.toString('latin1');
@@ -15,7 +19,10 @@ function parsePdf(buf: Buffer): Parsed {
   for (const m of src.matchAll(/(\d+) 0 obj\s*([\s\S]*?)endobj/g)) {
     const body = at(m, 2);
     const si = body.indexOf('stream');
-    if (si < 0) { objs.set(Number(m[1]), { dict: body }); continue; }
+    if (si < 0) {
+      objs.set(Number(m[1]), { dict: body });
+      continue;
+    }
     const dict = body.slice(0, si);
     let raw = body.slice(si + 6).replace(/^\r?\n/, '');
     raw = raw.slice(0, raw.lastIndexOf('endstream')).replace(/\r?\n$/, '');
@@ -27,7 +34,12 @@ function parsePdf(buf: Buffer): Parsed {
   const contents: Array<{ stream: string; fonts: Record<string, number> }> = [];
   for (const o of objs.values()) {
     if (!/\/Type \/Page\b/.test(o.dict)) continue;
-    pages.push(at(/\/MediaBox \[([^\]]+)\]/.exec(o.dict)!, 1).trim().split(/\s+/).map(Number));
+    pages.push(
+      at(/\/MediaBox \[([^\]]+)\]/.exec(o.dict)!, 1)
+        .trim()
+        .split(/\s+/)
+        .map(Number),
+    );
     const c = /\/Contents (\d+) 0 R/.exec(o.dict);
     const resRef = /\/Resources (\d+) 0 R/.exec(o.dict);
     const res = resRef ? objs.get(Number(resRef[1]))!.dict : o.dict;
@@ -45,7 +57,12 @@ function parsePdf(buf: Buffer): Parsed {
     const base = /\/BaseFont \/(\S+)/.exec(dict);
     if (base) fontNames.push(at(base, 1));
     const tu = /\/ToUnicode (\d+) 0 R/.exec(dict);
-    const utf16 = (hex: string) => { const h = hex.replace(/\s+/g, ''); let s = ''; for (let i = 0; i < h.length; i += 4) s += String.fromCharCode(parseInt(h.slice(i, i + 4), 16)); return s; };
+    const utf16 = (hex: string) => {
+      const h = hex.replace(/\s+/g, '');
+      let s = '';
+      for (let i = 0; i < h.length; i += 4) s += String.fromCharCode(parseInt(h.slice(i, i + 4), 16));
+      return s;
+    };
     if (tu) {
       const cm = objs.get(Number(tu[1]))!.stream!;
       for (const r of cm.matchAll(/<([0-9a-f]+)>\s*<([0-9a-f]+)>\s*\[([^\]]*)\]/gi)) {
@@ -63,7 +80,11 @@ function parsePdf(buf: Buffer): Parsed {
   for (const { stream, fonts } of contents) {
     let map = new Map<number, string>();
     for (const op of stream.matchAll(/\/(\w+) [\d.]+ Tf|\[((?:<[0-9a-f]*>|[^\]])*)\] TJ|<([0-9a-f]*)> Tj/gi)) {
-      if (op[1]) { const fontObj = fonts[op[1]]; map = fontObj ? cmapFor(fontObj) : new Map(); continue; }
+      if (op[1]) {
+        const fontObj = fonts[op[1]];
+        map = fontObj ? cmapFor(fontObj) : new Map();
+        continue;
+      }
       const hexes = op[2] !== undefined ? [...op[2].matchAll(/<([0-9a-f]*)>/gi)].map((h) => at(h, 1)) : [op[3] ?? ''];
       for (const h of hexes) for (let i = 0; i < h.length; i += 4) text += map.get(parseInt(h.slice(i, i + 4), 16)) ?? '\uFFFD';
       text += '\n';
@@ -86,7 +107,10 @@ function batch(paper: 'A4' | 'Letter', extra: Partial<WorksheetInput> = {}): Wor
   const gl = nestCutSheets({ rollWidthMm: 305, pieces: glitter })[0];
   const card = pressCard({
     pressType: 'handheld',
-    layers: [{ layerId: 'name', materialKind: 'smooth', colourName: 'Navy' }, { layerId: 'acorn', materialKind: 'glitter', colourName: 'Gold' }],
+    layers: [
+      { layerId: 'name', materialKind: 'smooth', colourName: 'Navy' },
+      { layerId: 'acorn', materialKind: 'glitter', colourName: 'Gold' },
+    ],
     blank: { kind: 'tote', name: 'Tote bag', topOffsetMm: 50 },
     backPress: true,
   });
@@ -137,7 +161,16 @@ describe('buildWorksheetPdf', () => {
   });
 
   it('when a sheet is longer than one page shows, then its map continues over as many pages, labelled part k of n', async () => {
-    const many: NestPiece[] = Array.from({ length: 40 }, (_, i) => ({ id: `m${i}`, lineId: `l${i}`, orderNumber: `NS-2${String(i).padStart(3, '0')}`, layerId: 'name', widthMm: 200, heightMm: 60, areaMm2: 6000, path: rect(200, 60) }));
+    const many: NestPiece[] = Array.from({ length: 40 }, (_, i) => ({
+      id: `m${i}`,
+      lineId: `l${i}`,
+      orderNumber: `NS-2${String(i).padStart(3, '0')}`,
+      layerId: 'name',
+      widthMm: 200,
+      heightMm: 60,
+      areaMm2: 6000,
+      path: rect(200, 60),
+    }));
     const long = at(nestCutSheets({ rollWidthMm: 305, pieces: many }), 0);
     const n = mapPageCount('Letter', long);
     expect(n).toBeGreaterThan(3);

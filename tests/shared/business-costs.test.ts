@@ -1,12 +1,13 @@
 // Cost of goods, margin and the ledger helpers (shared/business). Exactness is checked by sums;
 // the largest-remainder method is the Hamilton apportionment method (any text on apportionment).
-import { describe, expect, test } from 'vitest';
+
 import fc from 'fast-check';
 import Papa from 'papaparse';
+import { describe, expect, test } from 'vitest';
 import { estimateVinyl, longestSampleName, orderCosts, paymentFee, priceCheck, sheetCostShares, splitExact } from '../../shared/business/costs.ts';
-import { balanceByMonth, ledgerCsv, minorToDecimal, signForShop, type LedgerEntry } from '../../shared/business/ledger.ts';
-import { splitForShop } from '../../shared/money.ts';
+import { balanceByMonth, type LedgerEntry, ledgerCsv, minorToDecimal, signForShop } from '../../shared/business/ledger.ts';
 import { ordersByListing, salesByWeek, vinylByMaterialMonth, weekStart } from '../../shared/business/reports.ts';
+import { splitForShop } from '../../shared/money.ts';
 
 describe('splitting a sheet cost by piece area', () => {
   test('when three orders share a cut sheet, then their vinyl costs add up to the sheet cost to the cent', () => {
@@ -56,10 +57,15 @@ describe('cost and margin of an order', () => {
 
   test('when an order has two lines, then every amount is whole minor units and the order totals are the sums of the lines', () => {
     const order = { totalMinor: 2400 + 1350 + 450, shippingMinor: 450, platformFeeMinor: 336 };
-    const r = orderCosts(order, [
-      { lineId: 'a', totalMinor: 2400, refundedMinor: 0, quantity: 1, layers: 2, blankCostMinor: 480, minutesPerLayer: 7, vinylCutMinor: 412, vinylEstimateExact: 0 },
-      { lineId: 'b', totalMinor: 1350, refundedMinor: 0, quantity: 1, layers: 1, blankCostMinor: 300, minutesPerLayer: 7, vinylCutMinor: null, vinylEstimateExact: 87.6 },
-    ], fees, 1800);
+    const r = orderCosts(
+      order,
+      [
+        { lineId: 'a', totalMinor: 2400, refundedMinor: 0, quantity: 1, layers: 2, blankCostMinor: 480, minutesPerLayer: 7, vinylCutMinor: 412, vinylEstimateExact: 0 },
+        { lineId: 'b', totalMinor: 1350, refundedMinor: 0, quantity: 1, layers: 1, blankCostMinor: 300, minutesPerLayer: 7, vinylCutMinor: null, vinylEstimateExact: 87.6 },
+      ],
+      fees,
+      1800,
+    );
     const [a, b] = r.lines;
     // labour: 7 min × 2 layers at 18.00/h = 4.20; 7 min × 1 layer = 2.10
     expect(a!.labourMinor).toBe(420);
@@ -80,9 +86,12 @@ describe('cost and margin of an order', () => {
   });
 
   test('when a line was refunded, then its revenue drops by the refund', () => {
-    const r = orderCosts({ totalMinor: 2000, shippingMinor: 0, platformFeeMinor: 160 }, [
-      { lineId: 'a', totalMinor: 2000, refundedMinor: 2000, quantity: 1, layers: 1, blankCostMinor: 400, minutesPerLayer: 0, vinylCutMinor: 0, vinylEstimateExact: 0 },
-    ], fees, 0);
+    const r = orderCosts(
+      { totalMinor: 2000, shippingMinor: 0, platformFeeMinor: 160 },
+      [{ lineId: 'a', totalMinor: 2000, refundedMinor: 2000, quantity: 1, layers: 1, blankCostMinor: 400, minutesPerLayer: 0, vinylCutMinor: 0, vinylEstimateExact: 0 }],
+      fees,
+      0,
+    );
     expect(r.lines[0]!.revenueMinor).toBe(0);
     expect(r.lines[0]!.marginMinor).toBeLessThan(0);
   });
@@ -97,7 +106,15 @@ describe('estimates and the price check', () => {
   });
 
   test('when the price is below cost, then the margin is negative by exactly the difference', () => {
-    const p = priceCheck({ priceMinor: 800, layers: 2, blankCostMinor: 600, minutesPerLayer: 6, hourlyRateMinor: 2000, vinylEstimateExact: 49.5, fees: { platformFeeBps: 800, paymentFeeBps: 290, paymentFeeFixedMinor: 30 } });
+    const p = priceCheck({
+      priceMinor: 800,
+      layers: 2,
+      blankCostMinor: 600,
+      minutesPerLayer: 6,
+      hourlyRateMinor: 2000,
+      vinylEstimateExact: 49.5,
+      fees: { platformFeeBps: 800, paymentFeeBps: 290, paymentFeeFixedMinor: 30 },
+    });
     // 600 + 50 (49.5 rounds up) + 400 labour + 64 fee + (23.2 → 23) + 30
     expect(p.costMinor).toBe(600 + 50 + 400 + 64 + 53);
     expect(p.marginMinor).toBe(800 - p.costMinor);
@@ -105,8 +122,21 @@ describe('estimates and the price check', () => {
 
   test('when a price ends on half a cent of fee, then the margin check takes the fee checkout takes (half rounds up, once)', () => {
     // 2506 × 8 % = 200.48 → 200; 6 × 25 % = 1.5 → 2; 1056 × 8 % = 84.48 → 84 (integer rounding, not a float product)
-    for (const [priceMinor, platformFeeBps, fee] of [[2506, 800, 200], [6, 2500, 2], [1056, 800, 84], [2524, 800, 202]] as const) {
-      const p = priceCheck({ priceMinor, layers: 1, blankCostMinor: 0, minutesPerLayer: 0, hourlyRateMinor: 0, vinylEstimateExact: 0, fees: { platformFeeBps, paymentFeeBps: 0, paymentFeeFixedMinor: 0 } });
+    for (const [priceMinor, platformFeeBps, fee] of [
+      [2506, 800, 200],
+      [6, 2500, 2],
+      [1056, 800, 84],
+      [2524, 800, 202],
+    ] as const) {
+      const p = priceCheck({
+        priceMinor,
+        layers: 1,
+        blankCostMinor: 0,
+        minutesPerLayer: 0,
+        hourlyRateMinor: 0,
+        vinylEstimateExact: 0,
+        fees: { platformFeeBps, paymentFeeBps: 0, paymentFeeFixedMinor: 0 },
+      });
       expect(p.platformFeeMinor).toBe(fee);
       expect(p.platformFeeMinor).toBe(splitForShop(priceMinor, 0, platformFeeBps).feeMinor);
     }
@@ -120,13 +150,25 @@ describe('estimates and the price check', () => {
 
 describe('ledger', () => {
   const e = (day: string, kind: LedgerEntry['kind'], amountMinor: number, memo: string | null = null): LedgerEntry => ({
-    id: `${day}-${kind}`, at: Date.parse(`${day}T10:00:00Z`), day, kind, orderId: null, orderNumber: 'NS-1001', amountMinor, currency: 'USD', memo, ...signForShop(kind, amountMinor),
+    id: `${day}-${kind}`,
+    at: Date.parse(`${day}T10:00:00Z`),
+    day,
+    kind,
+    orderId: null,
+    orderNumber: 'NS-1001',
+    amountMinor,
+    currency: 'USD',
+    memo,
+    ...signForShop(kind, amountMinor),
   });
 
   test('when a month has a charge, its fee and its transfer, then earned − paid out is 0; a refund with a smaller reversal leaves a balance', () => {
     const months = balanceByMonth([
-      e('2026-11-20', 'charge', 2850), e('2026-11-20', 'platform_fee', 228), e('2026-11-20', 'transfer', 2622),
-      e('2026-12-02', 'refund', -1000), e('2026-12-02', 'refund_reversal', -920),
+      e('2026-11-20', 'charge', 2850),
+      e('2026-11-20', 'platform_fee', 228),
+      e('2026-11-20', 'transfer', 2622),
+      e('2026-12-02', 'refund', -1000),
+      e('2026-12-02', 'refund_reversal', -920),
     ]);
     expect(months.map((m) => m.month)).toEqual(['2026-11', '2026-12']);
     expect(months[0]).toMatchObject({ chargesMinor: 2850, feesMinor: -228, earnedMinor: 2622, paidOutMinor: 2622, netMinor: 0, balanceMinor: 0 });
@@ -153,15 +195,23 @@ describe('chart data', () => {
       { day: '2026-12-06', salesMinor: 500, marginMinor: 100, quantity: 2 },
       { day: '2026-12-07', salesMinor: 700, marginMinor: -50, quantity: 1 },
     ]);
-    expect(w).toEqual([{ week: '2026-11-30', salesMinor: 1500, marginMinor: 400, items: 3 }, { week: '2026-12-07', salesMinor: 700, marginMinor: -50, items: 1 }]);
+    expect(w).toEqual([
+      { week: '2026-11-30', salesMinor: 1500, marginMinor: 400, items: 3 },
+      { week: '2026-12-07', salesMinor: 700, marginMinor: -50, items: 1 },
+    ]);
   });
 
   test('when sheets are cut, then vinyl is summed per material per month, and orders are counted once per listing', () => {
-    expect(vinylByMaterialMonth([
-      { month: '2026-12', materialId: 'g', material: 'Gold glitter', consumedMm: 300.2 },
-      { month: '2026-12', materialId: 'g', material: 'Gold glitter', consumedMm: 125 },
-      { month: '2026-11', materialId: 's', material: 'Navy smooth', consumedMm: 80 },
-    ])).toEqual([{ month: '2026-11', materialId: 's', material: 'Navy smooth', usedMm: 80 }, { month: '2026-12', materialId: 'g', material: 'Gold glitter', usedMm: 425.2 }]);
+    expect(
+      vinylByMaterialMonth([
+        { month: '2026-12', materialId: 'g', material: 'Gold glitter', consumedMm: 300.2 },
+        { month: '2026-12', materialId: 'g', material: 'Gold glitter', consumedMm: 125 },
+        { month: '2026-11', materialId: 's', material: 'Navy smooth', consumedMm: 80 },
+      ]),
+    ).toEqual([
+      { month: '2026-11', materialId: 's', material: 'Navy smooth', usedMm: 80 },
+      { month: '2026-12', materialId: 'g', material: 'Gold glitter', usedMm: 425.2 },
+    ]);
     const l = ordersByListing([
       { listingId: 'tote', title: 'Tote', orderId: 'o1', quantity: 1, salesMinor: 100 },
       { listingId: 'tote', title: 'Tote', orderId: 'o1', quantity: 2, salesMinor: 200 },

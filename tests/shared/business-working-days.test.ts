@@ -1,10 +1,11 @@
 // Working-day arithmetic (shared/business/working-days.ts) and the ship-by marks.
 // References: date-fns's own addBusinessDays / differenceInBusinessDays (Sat + Sun off) for
 // hand-picked and swept dates, and the printed month of December 2026 below.
-import { describe, expect, test } from 'vitest';
+
 import { addBusinessDays, differenceInBusinessDays, format, parseISO } from 'date-fns';
-import { addWorkingDays, dayInZone, isoWeekday, shipByDate, workingDaysBetween, type WorkCalendar } from '../../shared/business/working-days.ts';
+import { describe, expect, test } from 'vitest';
 import { compareByShipBy, shipMark } from '../../shared/business/marks.ts';
+import { addWorkingDays, dayInZone, isoWeekday, shipByDate, type WorkCalendar, workingDaysBetween } from '../../shared/business/working-days.ts';
 
 const MON_FRI: WorkCalendar = { workingDays: [1, 2, 3, 4, 5], daysOff: [] };
 
@@ -59,7 +60,13 @@ describe('adding working days', () => {
   });
 
   test('when counting working days between weekdays, then the count equals date-fns differenceInBusinessDays', () => {
-    const pairs: Array<[string, string]> = [['2026-12-04', '2026-12-09'], ['2026-12-01', '2026-12-31'], ['2026-11-27', '2026-12-02'], ['2026-02-27', '2026-03-02'], ['2026-12-09', '2026-12-04']];
+    const pairs: Array<[string, string]> = [
+      ['2026-12-04', '2026-12-09'],
+      ['2026-12-01', '2026-12-31'],
+      ['2026-11-27', '2026-12-02'],
+      ['2026-02-27', '2026-03-02'],
+      ['2026-12-09', '2026-12-04'],
+    ];
     for (const [a, b] of pairs) expect(workingDaysBetween(a, b, MON_FRI), `${a} → ${b}`).toBe(differenceInBusinessDays(parseISO(b), parseISO(a)));
   });
 

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { getFontRegistry } from '../../server/integrations/fonts.ts';
 import { cutOutline } from '../../shared/engine/cut-path.ts';
 import { parsePathData, pathArea, pathBBox } from '../../shared/engine/path.ts';
 import { layoutText } from '../../shared/engine/text-layout.ts';
-import { getFontRegistry } from '../../server/integrations/fonts.ts';
 
 const subpaths = (d: string) => (d.match(/M/g) ?? []).length;
 

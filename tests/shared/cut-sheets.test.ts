@@ -1,17 +1,24 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { CutSheetError, groupByMaterial, materialKey, nestCutSheets, type CutSheet, type NestPiece } from '../../shared/engine/cut-sheets.ts';
+import { describe, expect, it } from 'vitest';
 import { cutSheetSvg, formatTransformed, placedCutPath, readPathData } from '../../shared/engine/cut-sheet-svg.ts';
-import { flattenPath, formatPath, parsePathData, pathBBox, subpathAreas, pathArea, transformPath } from '../../shared/engine/path.ts';
-import { cssLengthToMm, inToMm } from '../../shared/units.ts';
-import { layoutText } from '../../shared/engine/text-layout.ts';
+import { type CutSheet, CutSheetError, groupByMaterial, materialKey, type NestPiece, nestCutSheets } from '../../shared/engine/cut-sheets.ts';
 import { FONT_CATALOG } from '../../shared/engine/font-catalog.ts';
-import { testRegistry } from './engine/font-fixture.ts';
+import { flattenPath, formatPath, parsePathData, pathArea, pathBBox, subpathAreas, transformPath } from '../../shared/engine/path.ts';
+import { layoutText } from '../../shared/engine/text-layout.ts';
+import { cssLengthToMm, inToMm } from '../../shared/units.ts';
 import { at } from '../support/at.ts';
+import { testRegistry } from './engine/font-fixture.ts';
 
 const rectPath = (x: number, y: number, w: number, h: number) => `M${x} ${y}H${x + w}V${y + h}H${x}Z`;
 const piece = (id: string, w: number, h: number, extra: Partial<NestPiece> = {}): NestPiece => ({
-  id, lineId: `line-${id}`, layerId: 'name', widthMm: w, heightMm: h, areaMm2: w * h, path: rectPath(0, 0, w, h), ...extra,
+  id,
+  lineId: `line-${id}`,
+  layerId: 'name',
+  widthMm: w,
+  heightMm: h,
+  areaMm2: w * h,
+  path: rectPath(0, 0, w, h),
+  ...extra,
 });
 
 /** Every guarantee a sheet makes, checked from its placements alone. */
@@ -33,7 +40,8 @@ function checkSheet(sheet: CutSheet, pieces: NestPiece[], rollWidthMm: number, g
   const pls = sheet.placements;
   for (let i = 0; i < pls.length; i++) {
     for (let j = i + 1; j < pls.length; j++) {
-      const a = at(pls, i), b = at(pls, j);
+      const a = at(pls, i),
+        b = at(pls, j);
       const dx = Math.max(b.xMm - (a.xMm + a.widthMm), a.xMm - (b.xMm + b.widthMm));
       const dy = Math.max(b.yMm - (a.yMm + a.heightMm), a.yMm - (b.yMm + b.heightMm));
       expect(Math.max(dx, dy)).toBeGreaterThanOrEqual(gapMm - EPS);
@@ -59,7 +67,9 @@ describe('nestCutSheets', () => {
           const pieces = dims.map(([w, h], i) => piece(`p${i}`, Math.min(w, usable), h));
           const sheets = nestCutSheets({ rollWidthMm, gapMm, marginMm, pieces });
           expect(sheets).toHaveLength(1);
-          const ids = at(sheets, 0).placements.map((p) => p.pieceId).sort();
+          const ids = at(sheets, 0)
+            .placements.map((p) => p.pieceId)
+            .sort();
           expect(ids).toEqual(pieces.map((p) => p.id).sort());
           checkSheet(at(sheets, 0), pieces, rollWidthMm, gapMm, marginMm);
         },
@@ -91,7 +101,8 @@ describe('nestCutSheets', () => {
     expect(fit.lengthMm).toBeCloseTo(6 + 50 + 6, 9);
     expect(new Set(fit.placements.map((p) => p.yMm)).size).toBe(1);
     const byX = [...fit.placements].sort((p, q) => p.xMm - q.xMm);
-    const a = at(byX, 0), b = at(byX, 1);
+    const a = at(byX, 0),
+      b = at(byX, 1);
     expect(b.xMm - (a.xMm + a.widthMm)).toBeCloseTo(6, 9);
     expect(a.xMm).toBe(6);
     expect(b.xMm + b.widthMm).toBeCloseTo(305 - 6, 9);
@@ -111,7 +122,9 @@ describe('nestCutSheets', () => {
     let err: unknown;
     try {
       nestCutSheets({ rollWidthMm: 305, pieces: [piece('ok', 50, 50), piece('huge', 293.5, 300)] });
-    } catch (e) { err = e; }
+    } catch (e) {
+      err = e;
+    }
     expect(err).toBeInstanceOf(CutSheetError);
     expect((err as CutSheetError).code).toBe('piece_too_wide');
     expect((err as CutSheetError).message).toMatch(/huge.*293 mm/);
@@ -121,7 +134,11 @@ describe('nestCutSheets', () => {
 
   it('when input is malformed, then invalid_input names the field', () => {
     let err: CutSheetError | undefined;
-    try { nestCutSheets({ rollWidthMm: 305, pieces: [{ ...piece('x', 10, 10), widthMm: -1 }] }); } catch (e) { err = e as CutSheetError; }
+    try {
+      nestCutSheets({ rollWidthMm: 305, pieces: [{ ...piece('x', 10, 10), widthMm: -1 }] });
+    } catch (e) {
+      err = e as CutSheetError;
+    }
     expect(err?.code).toBe('invalid_input');
     expect(Object.keys(err?.fields ?? {})).toContain('pieces.0.widthMm');
   });
@@ -295,15 +312,19 @@ describe('cutSheetSvg', () => {
       fc.tuple(fc.constantFrom('C', 'c'), fc.array(fc.integer({ min: -300, max: 300 }), { minLength: 6, maxLength: 6 })).map(([c, v]) => `${c}${v.join(' ')}`),
       fc.constantFrom('Z', 'z', 'S1 2 3 4', 'A5 5 0 0 1 10 10'),
     );
-    fc.assert(fc.property(fc.double({ min: -100, max: 100, noNaN: true }), fc.array(cmd, { maxLength: 20 }), (x, cmds) => {
-      const d = `M${x} 0 ${cmds.join(' ')}`;
-      const a = readPathData(d), b = parsePathData(d);
-      expect(a.length).toBe(b.length);
-      a.forEach((sp, i) => {
-        expect(sp.closed).toBe(at(b, i).closed);
-        expect(formatPath([sp])).toBe(formatPath([at(b, i)]));
-      });
-    }), { numRuns: 300 });
+    fc.assert(
+      fc.property(fc.double({ min: -100, max: 100, noNaN: true }), fc.array(cmd, { maxLength: 20 }), (x, cmds) => {
+        const d = `M${x} 0 ${cmds.join(' ')}`;
+        const a = readPathData(d),
+          b = parsePathData(d);
+        expect(a.length).toBe(b.length);
+        a.forEach((sp, i) => {
+          expect(sp.closed).toBe(at(b, i).closed);
+          expect(formatPath([sp])).toBe(formatPath([at(b, i)]));
+        });
+      }),
+      { numRuns: 300 },
+    );
   });
 
   it('when an outline is bigger than the size it was nested with, then the SVG refuses it', () => {

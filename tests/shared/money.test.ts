@@ -1,7 +1,8 @@
 // Money in minor units. Digits per currency: ISO 4217 Table A.1 (USD 2, EUR 2, GBP 2, JPY 0);
 // Stripe's amounts are the same smallest-unit integers (Stripe API docs, "Currencies").
-import { describe, expect, it } from 'vitest';
+
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import { allocate, formatMoney, minorDigits, parseMajor, platformFee, roundDiv, splitForShop } from '../../shared/money.ts';
 
 describe('money', () => {

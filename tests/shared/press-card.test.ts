@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { pressCard, placementNote, type PressCardInput } from '../../shared/engine/press-card.ts';
-import { MATERIAL_KINDS, PRESS_DEFAULTS, PRESS_DEFAULT_SOURCES, pressDefaultRow, defaultPressProfile, type MaterialKind } from '../../shared/engine/press-defaults.ts';
+import { type PressCardInput, placementNote, pressCard } from '../../shared/engine/press-card.ts';
+import { defaultPressProfile, MATERIAL_KINDS, type MaterialKind, PRESS_DEFAULT_SOURCES, PRESS_DEFAULTS, pressDefaultRow } from '../../shared/engine/press-defaults.ts';
 import { cToF, fToC } from '../../shared/units.ts';
 
 /**
@@ -17,8 +17,12 @@ const TRADE_TABLE: Record<MaterialKind, { handheld: [number, number]; clamshell:
 };
 
 const tote = { kind: 'tote', name: 'Tote bag', topOffsetMm: 50 };
-const layer = (layerId: string, materialKind: MaterialKind, colourName = 'Navy', profile?: PressCardInput['layers'][number]['profile']) =>
-  ({ layerId, materialKind, colourName, ...(profile ? { profile } : {}) });
+const layer = (layerId: string, materialKind: MaterialKind, colourName = 'Navy', profile?: PressCardInput['layers'][number]['profile']) => ({
+  layerId,
+  materialKind,
+  colourName,
+  ...(profile ? { profile } : {}),
+});
 
 describe('press defaults', () => {
   it('when read, then the defaults table is the hand-copied materials table row for row, with its source marks', () => {
@@ -28,7 +32,10 @@ describe('press defaults', () => {
       expect(pressDefaultRow(kind)).toEqual({
         handheld: { tempC: t.handheld[0], timeS: t.handheld[1] },
         clamshell: { tempC: t.clamshell[0], timeS: t.clamshell[1] },
-        tackS: t.tackS, peel: t.peel, topOnly: t.topOnly, source: t.source,
+        tackS: t.tackS,
+        peel: t.peel,
+        topOnly: t.topOnly,
+        source: t.source,
       });
       expect(PRESS_DEFAULT_SOURCES[kind]).toBe(t.source);
     }
@@ -76,15 +83,26 @@ describe('pressCard', () => {
     const card = pressCard({
       pressType: 'clamshell',
       layers: [layer('base', 'smooth', 'Navy'), layer('mid', 'smooth', 'White'), layer('top', 'glitter', 'Gold')],
-      blank: tote, backPress: true,
+      blank: tote,
+      backPress: true,
     });
     expect(card.steps.map((s) => `${s.kind}${s.layerId ? ':' + s.layerId : ''}`)).toEqual([
-      'pre_press', 'place:base', 'tack:base', 'place:mid', 'tack:mid', 'place:top', 'final_press:top', 'back_press',
+      'pre_press',
+      'place:base',
+      'tack:base',
+      'place:mid',
+      'tack:mid',
+      'place:top',
+      'final_press:top',
+      'back_press',
     ]);
     const pre = card.steps[0];
     expect(pre).toMatchObject({ timeS: 5, protectiveSheet: false }); // about 5 s (common practice)
     const byKind = (k: string) => card.steps.filter((s) => s.kind === k);
-    expect(byKind('tack').map((s) => [s.timeS, s.protectiveSheet])).toEqual([[2, false], [2, true]]);
+    expect(byKind('tack').map((s) => [s.timeS, s.protectiveSheet])).toEqual([
+      [2, false],
+      [2, true],
+    ]);
     expect(byKind('final_press')[0]).toMatchObject({ timeS: 15, protectiveSheet: true, peel: 'hot or cold' }); // top layer's time
     expect(byKind('back_press')[0]).toMatchObject({ timeS: 15, protectiveSheet: true }); // about 15 s (common practice)
     expect(card.layers.map((l) => l.layerId)).toEqual(['base', 'mid', 'top']);
@@ -98,7 +116,7 @@ describe('pressCard', () => {
     expect(pressCard({ pressType: 'handheld', layers: [layer('a', 'smooth')], blank: tote }).steps.some((s) => s.kind === 'back_press')).toBe(false);
   });
 
-  it('when layers\' temperatures differ, then the card warns and presses at the lowest temperature every layer accepts', () => {
+  it("when layers' temperatures differ, then the card warns and presses at the lowest temperature every layer accepts", () => {
     // handheld: smooth 157 °C, glitter 160 °C — single values, so no common temperature
     const card = pressCard({ pressType: 'handheld', layers: [layer('s', 'smooth'), layer('g', 'glitter', 'Gold')], blank: tote });
     expect(card.warnings.map((w) => w.code)).toEqual(['temperatures_do_not_overlap']);
@@ -132,8 +150,12 @@ describe('pressCard', () => {
     expect(five.steps.filter((s) => s.kind === 'tack')).toHaveLength(4);
   });
 
-  it('when the seller\'s profile or final time overrides the table, then the card uses them', () => {
-    const card = pressCard({ pressType: 'handheld', layers: [layer('a', 'smooth', 'Navy', { handheld: { tempC: 150, timeS: 20 }, tackS: 3, peel: 'cold' }), layer('b', 'smooth', 'Red', { handheld: { tempC: 150, timeS: 20 } })], blank: tote });
+  it("when the seller's profile or final time overrides the table, then the card uses them", () => {
+    const card = pressCard({
+      pressType: 'handheld',
+      layers: [layer('a', 'smooth', 'Navy', { handheld: { tempC: 150, timeS: 20 }, tackS: 3, peel: 'cold' }), layer('b', 'smooth', 'Red', { handheld: { tempC: 150, timeS: 20 } })],
+      blank: tote,
+    });
     expect(card.tempC).toBe(150);
     expect(card.finalTimeS).toBe(20);
     expect(card.steps.find((s) => s.kind === 'tack')).toMatchObject({ timeS: 3, peel: 'cold' });

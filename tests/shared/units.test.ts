@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cToF, cssLengthToMm, deltaFToDeltaC, fToC, formatLength, formatTemperature, inToMm, mmToIn, pxToMm } from '../../shared/units.ts';
+import { cssLengthToMm, cToF, deltaFToDeltaC, formatLength, formatTemperature, fToC, inToMm, mmToIn, pxToMm } from '../../shared/units.ts';
 
 describe('units', () => {
   // NIST SP 811, Appendix B.8: inch → metre 2.54 E−02 exactly.

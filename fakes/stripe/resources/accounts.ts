@@ -16,9 +16,7 @@ const createSchema = z.object({
     .optional(),
   email: email.optional(),
   business_type: z.enum(['individual', 'company', 'non_profit', 'government_entity']).optional(),
-  business_profile: z
-    .object({ name: z.string().max(200).optional(), url: z.string().max(500).optional(), product_description: z.string().optional(), mcc: z.string().optional() })
-    .optional(),
+  business_profile: z.object({ name: z.string().max(200).optional(), url: z.string().max(500).optional(), product_description: z.string().optional(), mcc: z.string().optional() }).optional(),
   capabilities: z.record(z.string(), z.object({ requested: z.enum(['true', 'false']) })).optional(),
   metadata: metadata.optional(),
   expand: expandList,

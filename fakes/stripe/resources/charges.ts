@@ -11,9 +11,7 @@ const listChargesSchema = z.object({ ...listQuery, payment_intent: z.string().op
 
 export const listCharges: Handler = (fake, call) => {
   const q = validate(listChargesSchema, call.params);
-  const items = fake.store
-    .all('charges')
-    .filter((c) => (!q.payment_intent || c.payment_intent === q.payment_intent) && (!q.transfer_group || c.transfer_group === q.transfer_group));
+  const items = fake.store.all('charges').filter((c) => (!q.payment_intent || c.payment_intent === q.payment_intent) && (!q.transfer_group || c.transfer_group === q.transfer_group));
   return listOf(fake.store, items, '/v1/charges', q);
 };
 
@@ -44,7 +42,13 @@ export function makeCharge(fake: Fake, s: CheckoutSession, pi: PaymentIntent, ca
     metadata: clone(pi.metadata),
     outcome: ok
       ? { network_status: 'approved_by_network', reason: null, risk_level: 'normal', seller_message: 'Payment complete.', type: 'authorized' }
-      : { network_status: 'declined_by_network', reason: failure.decline_code, risk_level: 'normal', seller_message: 'The bank did not return any further details with this decline.', type: 'issuer_declined' },
+      : {
+          network_status: 'declined_by_network',
+          reason: failure.decline_code,
+          risk_level: 'normal',
+          seller_message: 'The bank did not return any further details with this decline.',
+          type: 'issuer_declined',
+        },
     paid: ok,
     payment_intent: pi.id,
     payment_method: pi.payment_method,

@@ -5,7 +5,7 @@ import type { Handler } from '../api.ts';
 import type { Fake } from '../context.ts';
 import { invalid } from '../http.ts';
 import { listOf, withExpand } from '../lists.ts';
-import { currency, email, expandList, listQuery, listSchema, metadata, nonNegInt, posInt, retrieveSchema, intStr, validate } from '../params.ts';
+import { currency, email, expandList, intStr, listQuery, listSchema, metadata, nonNegInt, posInt, retrieveSchema, validate } from '../params.ts';
 import { newId } from '../store.ts';
 import type { CheckoutSession, EventCause, LineItem } from '../types.ts';
 import { cancelPaymentIntent } from './payment-intents.ts';

@@ -8,7 +8,12 @@ const listEventsSchema = z.object({ ...listQuery, type: z.string().optional() })
 
 export const listEvents: Handler = (fake, call) => {
   const q = validate(listEventsSchema, call.params);
-  return listOf(fake.store, fake.store.all('events').filter((e) => !q.type || e.type === q.type), '/v1/events', q);
+  return listOf(
+    fake.store,
+    fake.store.all('events').filter((e) => !q.type || e.type === q.type),
+    '/v1/events',
+    q,
+  );
 };
 
 export const retrieveEvent: Handler = (fake, call) => {

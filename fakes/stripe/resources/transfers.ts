@@ -26,7 +26,8 @@ const reversalSchema = z.object({ amount: posInt.optional(), metadata: metadata.
 function checkSourceTransaction(store: Store, chargeId: string, amount: number, cur: string): void {
   const ch = store.mustGet('charges', chargeId, 'charge', 'source_transaction');
   if (ch.status !== 'succeeded') throw invalid(`The charge ${ch.id} has not succeeded.`, { code: 'parameter_invalid', param: 'source_transaction' });
-  if (ch.currency !== cur) throw invalid(`The currency of source_transaction's balance transaction (${ch.currency}) must be the same as the transfer currency (${cur}).`, { code: 'parameter_invalid', param: 'currency' });
+  if (ch.currency !== cur)
+    throw invalid(`The currency of source_transaction's balance transaction (${ch.currency}) must be the same as the transfer currency (${cur}).`, { code: 'parameter_invalid', param: 'currency' });
   const already = store
     .all('transfers')
     .filter((t) => t.source_transaction === ch.id)

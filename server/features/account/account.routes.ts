@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { openShopSchema } from '../../../shared/schemas/auth.ts';
-import { validate } from '../../http/validate.ts';
-import { currentUser, requireUser } from '../../http/auth-guards.ts';
 import type { AppDeps } from '../../deps.ts';
+import { currentUser, requireUser } from '../../http/auth-guards.ts';
+import { validate } from '../../http/validate.ts';
 import { getMe, openShop } from './account.service.ts';
 
 export function accountRouter(deps: AppDeps): Router {

@@ -1,9 +1,9 @@
-import slugify from 'slugify';
 import crypto from 'node:crypto';
-import type { Db } from '../../db/client.ts';
+import slugify from 'slugify';
 import type { Me, OpenShopInput } from '../../../shared/schemas/auth.ts';
-import type { SessionUser } from '../../http/auth-guards.ts';
+import type { Db } from '../../db/client.ts';
 import { conflict } from '../../http/app-error.ts';
+import type { SessionUser } from '../../http/auth-guards.ts';
 import { findShopByOwner, insertShop, setUserRole, slugsLike } from './account.repo.ts';
 
 type ShopState = NonNullable<Me['shop']>['state'];

@@ -12,8 +12,7 @@ export type MaterialRow = typeof materials.$inferSelect;
 export const businessRepo = {
   shop: (db: Db, shopId: string) => db.select().from(shops).where(eq(shops.id, shopId)).get(),
   /** shops that can have orders (live or suspended shops still owe what was bought) with their owner's address */
-  shopsWithOwners: (db: Db) =>
-    db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).orderBy(asc(shops.createdAt)).all(),
+  shopsWithOwners: (db: Db) => db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).orderBy(asc(shops.createdAt)).all(),
   setShop: (db: Db, shopId: string, set: Partial<typeof shops.$inferInsert>) => db.update(shops).set(set).where(eq(shops.id, shopId)).run(),
   linesOfShop: (db: Db, shopId: string) =>
     db
@@ -28,7 +27,13 @@ export const businessRepo = {
   sheetsOfShop: (db: Db, shopId: string) => db.select().from(cutSheets).where(eq(cutSheets.shopId, shopId)).orderBy(asc(cutSheets.createdAt), asc(cutSheets.id)).all(),
   materialsOfShop: (db: Db, shopId: string) => db.select().from(materials).where(eq(materials.shopId, shopId)).all(),
   motifsOfShop: (db: Db, shopId: string, ids: string[]) =>
-    ids.length ? db.select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry }).from(motifs).where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids))).all() : [],
+    ids.length
+      ? db
+          .select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry })
+          .from(motifs)
+          .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
+          .all()
+      : [],
   listingsByIds: (db: Db, ids: string[]) => (ids.length ? db.select().from(listings).where(inArray(listings.id, ids)).all() : []),
   ledgerOfShop: (db: Db, shopId: string) =>
     db

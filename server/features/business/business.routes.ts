@@ -1,8 +1,8 @@
 import { Router } from 'express';
+import { businessSettingsSchema, dueQuerySchema, type LedgerQuery, ledgerQuerySchema, orderIdParams, priceCheckSchema } from '../../../shared/schemas/business.ts';
 import type { AppDeps } from '../../deps.ts';
 import { ownShop, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { businessSettingsSchema, dueQuerySchema, ledgerQuerySchema, orderIdParams, priceCheckSchema, type LedgerQuery } from '../../../shared/schemas/business.ts';
 import * as service from './business.service.ts';
 
 /** The seller's business view: /api/business. Everything is scoped by the seller's own shop. */

@@ -1,28 +1,50 @@
 // The seller's business view: the working calendar and ship-by marks, cost of goods and margin per
 // line, the listing editor's price check, the ledger and the charts. Rules live in shared/business
 // (pure); this file gathers the rows and hands them over.
-import type { AppDeps } from '../../deps.ts';
-import type { Db } from '../../db/client.ts';
-import { AppError, badRequest } from '../../http/app-error.ts';
-import { getFontRegistry } from '../../integrations/fonts.ts';
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
-import type { Choices } from '../../../shared/schemas/listing.ts';
-import { minorDigits } from '../../../shared/money.ts';
-import { dayInZone, parseDay, shipByDate, workingDaysBetween, type WorkCalendar } from '../../../shared/business/working-days.ts';
+
+import {
+  estimateVinyl,
+  type FeeConfig,
+  type LineCostInput,
+  longestSampleName,
+  type MaterialPrice,
+  orderCosts,
+  priceCheck as priceCheckPure,
+  sheetCostShares,
+  sumCosts,
+} from '../../../shared/business/costs.ts';
+import { balanceByMonth, type LedgerEntry, type LedgerKind, ledgerCsv, monthOf, signForShop } from '../../../shared/business/ledger.ts';
 import { compareByShipBy, shipMark } from '../../../shared/business/marks.ts';
-import { estimateVinyl, longestSampleName, orderCosts, priceCheck as priceCheckPure, sheetCostShares, sumCosts, type FeeConfig, type LineCostInput, type MaterialPrice } from '../../../shared/business/costs.ts';
-import { balanceByMonth, ledgerCsv, monthOf, signForShop, type LedgerEntry, type LedgerKind } from '../../../shared/business/ledger.ts';
-import { isFinishedLine } from '../../../shared/schemas/order.ts';
 import { ordersByListing, salesByWeek, vinylByMaterialMonth } from '../../../shared/business/reports.ts';
+import { dayInZone, parseDay, shipByDate, type WorkCalendar, workingDaysBetween } from '../../../shared/business/working-days.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
+import { minorDigits } from '../../../shared/money.ts';
 import type {
-  BusinessSettings, BusinessSettingsInput, ChartsView, CostsView, DueLine, DueView, LedgerQuery, LedgerView, LineCostView, OrderCostView, PriceCheckInput, PriceCheckResult,
+  BusinessSettings,
+  BusinessSettingsInput,
+  ChartsView,
+  CostsView,
+  DueLine,
+  DueView,
+  LedgerQuery,
+  LedgerView,
+  LineCostView,
+  OrderCostView,
+  PriceCheckInput,
+  PriceCheckResult,
 } from '../../../shared/schemas/business.ts';
 import { priceCheckSchema } from '../../../shared/schemas/business.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import type { Choices } from '../../../shared/schemas/listing.ts';
+import { isFinishedLine } from '../../../shared/schemas/order.ts';
+import type { Db } from '../../db/client.ts';
+import type { AppDeps } from '../../deps.ts';
+import { AppError, badRequest } from '../../http/app-error.ts';
+import { getFontRegistry } from '../../integrations/fonts.ts';
 // The cart's mapping from a listing's personalisation to the engine is the one a real order goes
 // through; the price check reuses it rather than keep a second copy that could drift.
 import { buildSnapshot, snapshotLookups } from '../cart/index.ts';
-import { businessRepo as repo, type LineRow, type OrderRow, type SheetRow, type ShopRow } from './business.repo.ts';
+import { type LineRow, type OrderRow, businessRepo as repo, type SheetRow, type ShopRow } from './business.repo.ts';
 
 export type BusinessDeps = Pick<AppDeps, 'db' | 'env' | 'now'>;
 
@@ -211,7 +233,15 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
   const { draft } = input;
   const p = draft.personalisation;
   const matRows = repo.materialsOfShop(deps.db, shop.id);
-  const { materials, motifs } = snapshotLookups(p, matRows, repo.motifsOfShop(deps.db, shop.id, p.motifChoices.map((m) => m.motifId)));
+  const { materials, motifs } = snapshotLookups(
+    p,
+    matRows,
+    repo.motifsOfShop(
+      deps.db,
+      shop.id,
+      p.motifChoices.map((m) => m.motifId),
+    ),
+  );
   const content = { title: 'Price check', blank: draft.blank, basePriceMinor: draft.basePriceMinor, extraLayerPriceMinor: draft.extraLayerPriceMinor, personalisation: p };
   const fees = feesOf(deps.env);
   const prices = priceMap(matRows);
@@ -252,7 +282,10 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
   const money = (m: number) => `${m < 0 ? '-' : ''}${(Math.abs(m) / 10 ** digits).toFixed(digits)} ${shop.currency}`;
   const warnings: string[] = [];
   if (sample.marginMinor < 0) warnings.push(`At this price you lose ${money(-sample.marginMinor)} on “${sample.name}”.`);
-  if (longest && longest.marginMinor < 0) warnings.push(`The longest name this listing allows (${[...longest.name].length} letters, e.g. “${longest.name}”) leaves a margin of ${money(longest.marginMinor)}: raise the price or shorten the maximum length.`);
+  if (longest && longest.marginMinor < 0)
+    warnings.push(
+      `The longest name this listing allows (${[...longest.name].length} letters, e.g. “${longest.name}”) leaves a margin of ${money(longest.marginMinor)}: raise the price or shorten the maximum length.`,
+    );
   if (draft.minutesPerLayer > 0 && shop.hourlyRateMinor === 0) warnings.push('Your hourly rate is 0, so labour counts as free. Set it in Business settings.');
   const unpriced = [...new Set(Object.values(p.textFields.flatMap((f) => f.colourChoices)))].filter((id) => prices.get(id)?.pricePerMetreMinor === 0);
   if (unpriced.length) warnings.push('Some colours offered have no price per metre yet, so their vinyl counts as free. Add prices on the Materials page.');
@@ -296,16 +329,21 @@ export function charts(deps: BusinessDeps, shop: ShopRow): ChartsView {
   const c = costs(deps, shop);
   const lineCost = new Map(c.orders.flatMap((o) => o.lines.map((l) => [l.lineId, l] as const)));
   const rows = repo.linesOfShop(deps.db, shop.id).filter((r) => r.line.state !== 'cancelled');
-  const weeks = salesByWeek(rows.map(({ line, order }) => {
-    const lc = lineCost.get(line.id)!;
-    return { day: dayInZone(order.paidAt, tz), salesMinor: lc.revenueMinor + lc.shippingMinor, marginMinor: lc.marginMinor, quantity: line.quantity };
-  }));
+  const weeks = salesByWeek(
+    rows.map(({ line, order }) => {
+      const lc = lineCost.get(line.id)!;
+      return { day: dayInZone(order.paidAt, tz), salesMinor: lc.revenueMinor + lc.shippingMinor, marginMinor: lc.marginMinor, quantity: line.quantity };
+    }),
+  );
   const mats = new Map(repo.materialsOfShop(deps.db, shop.id).map((m) => [m.id, `${m.colourName} ${m.kind}`]));
   const vinyl = vinylByMaterialMonth(
-    repo.sheetsOfShop(deps.db, shop.id)
+    repo
+      .sheetsOfShop(deps.db, shop.id)
       .filter((s) => s.state === 'cut' && s.cutAt !== null)
       .map((s) => ({ month: monthOf(s.cutAt!, tz), materialId: s.materialId, material: mats.get(s.materialId) ?? 'a removed material', consumedMm: s.consumedMm ?? s.lengthMm })),
   );
-  const listings = ordersByListing(rows.map(({ line, order }) => ({ listingId: line.listingId, title: line.listingTitle, orderId: order.id, quantity: line.quantity, salesMinor: line.totalMinor - line.refundedMinor })));
+  const listings = ordersByListing(
+    rows.map(({ line, order }) => ({ listingId: line.listingId, title: line.listingTitle, orderId: order.id, quantity: line.quantity, salesMinor: line.totalMinor - line.refundedMinor })),
+  );
   return { currency: shop.currency, weeks, vinyl, listings };
 }

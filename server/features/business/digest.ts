@@ -2,10 +2,11 @@
 // due today or at risk. "Once per day" is kept by the job_runs table: the key
 // digest:<yyyy-MM-dd>:<shopId> is inserted BEFORE the mail is handed to the mailer, so a second run
 // (the cron and the start-up catch-up, two processes, a restart) finds it and sends nothing.
-import type { AppDeps } from '../../deps.ts';
-import { escapeHtml as esc, mailLayout, type Mail } from '../../integrations/mailer.ts';
+
 import { SHIP_MARK_LABELS } from '../../../shared/business/marks.ts';
 import type { DueLine } from '../../../shared/schemas/business.ts';
+import type { AppDeps } from '../../deps.ts';
+import { escapeHtml as esc, type Mail, mailLayout } from '../../integrations/mailer.ts';
 import { businessRepo } from './business.repo.ts';
 import { due, todayOf } from './business.service.ts';
 
@@ -24,16 +25,16 @@ export function digestMail(to: { email: string; name: string }, shopName: string
   return {
     to: to.email,
     subject: `${shopName}: ${dueToday} due today, ${late} late — your workroom for ${day}`,
-    text: [
-      `Good morning ${to.name},`,
-      '',
-      ...groups.flatMap((g) => [`${title[g.mark]}:`, ...g.lines.map((l) => `  - ${item(l)}`), '']),
-      `Open the workroom: ${link}`,
-    ].join('\n'),
+    text: [`Good morning ${to.name},`, '', ...groups.flatMap((g) => [`${title[g.mark]}:`, ...g.lines.map((l) => `  - ${item(l)}`), '']), `Open the workroom: ${link}`].join('\n'),
     html: mailLayout(
       `Your workroom for ${day}`,
       `<p>Good morning ${esc(to.name)},</p>` +
-        groups.map((g) => `<h2 style="font-size:16px;margin:16px 0 6px">${esc(title[g.mark]!)}</h2><ul>${g.lines.map((l) => `<li><strong>${esc(SHIP_MARK_LABELS[l.mark!])}</strong> — ${esc(item(l))}</li>`).join('')}</ul>`).join('') +
+        groups
+          .map(
+            (g) =>
+              `<h2 style="font-size:16px;margin:16px 0 6px">${esc(title[g.mark]!)}</h2><ul>${g.lines.map((l) => `<li><strong>${esc(SHIP_MARK_LABELS[l.mark!])}</strong> — ${esc(item(l))}</li>`).join('')}</ul>`,
+          )
+          .join('') +
         `<p><a href="${esc(link)}" style="display:inline-block;background:#e0a526;color:#1f2a44;font-weight:800;padding:10px 18px;border-radius:8px;text-decoration:none">Open the workroom</a></p>`,
     ),
   };

@@ -2,7 +2,7 @@
 // SameSite, 3.3.4 HttpOnly). The id is a random UUID: knowing it is what owns a guest cart.
 import type { Request, Response } from 'express';
 import type { CartRow } from './cart.repo.ts';
-import { resolveCart, type CartDeps } from './cart.service.ts';
+import { type CartDeps, resolveCart } from './cart.service.ts';
 
 export const CART_COOKIE = 'ns_cart';
 const MAX_AGE_S = 30 * 24 * 3600;

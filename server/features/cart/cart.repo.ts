@@ -1,5 +1,5 @@
 // Every database call of the cart.
-import { and, eq, inArray, desc, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { cartLines, carts, listings, materials, motifs, shops } from '../../db/schema.ts';
 
@@ -14,27 +14,56 @@ export const cartRepo = {
     return cartRepo.find(db, row.id)!;
   },
   /** every change to the lines bumps the version (two tabs checking out one version share one session) */
-  touch: (db: Db, id: string, at: number) => db.update(carts).set({ version: sql`${carts.version} + 1`, updatedAt: at }).where(eq(carts.id, id)).run(),
-  claim: (db: Db, id: string, userId: string, at: number) => db.update(carts).set({ userId, version: sql`${carts.version} + 1`, updatedAt: at }).where(eq(carts.id, id)).run(),
+  touch: (db: Db, id: string, at: number) =>
+    db
+      .update(carts)
+      .set({ version: sql`${carts.version} + 1`, updatedAt: at })
+      .where(eq(carts.id, id))
+      .run(),
+  claim: (db: Db, id: string, userId: string, at: number) =>
+    db
+      .update(carts)
+      .set({ userId, version: sql`${carts.version} + 1`, updatedAt: at })
+      .where(eq(carts.id, id))
+      .run(),
   remove: (db: Db, id: string) => db.delete(carts).where(eq(carts.id, id)).run(),
 
   lines: (db: Db, cartId: string) => db.select().from(cartLines).where(eq(cartLines.cartId, cartId)).orderBy(cartLines.createdAt, cartLines.id).all(),
-  line: (db: Db, cartId: string, lineId: string) => db.select().from(cartLines).where(and(eq(cartLines.cartId, cartId), eq(cartLines.id, lineId))).get(),
+  line: (db: Db, cartId: string, lineId: string) =>
+    db
+      .select()
+      .from(cartLines)
+      .where(and(eq(cartLines.cartId, cartId), eq(cartLines.id, lineId)))
+      .get(),
   addLine: (db: Db, row: typeof cartLines.$inferInsert) => db.insert(cartLines).values(row).run(),
   setQuantity: (db: Db, lineId: string, quantity: number) => db.update(cartLines).set({ quantity }).where(eq(cartLines.id, lineId)).run(),
   deleteLine: (db: Db, lineId: string) => db.delete(cartLines).where(eq(cartLines.id, lineId)).run(),
   deleteLines: (db: Db, cartId: string, lineIds: string[]) =>
-    lineIds.length ? db.delete(cartLines).where(and(eq(cartLines.cartId, cartId), inArray(cartLines.id, lineIds))).run() : undefined,
+    lineIds.length
+      ? db
+          .delete(cartLines)
+          .where(and(eq(cartLines.cartId, cartId), inArray(cartLines.id, lineIds)))
+          .run()
+      : undefined,
   moveLines: (db: Db, from: string, to: string) => db.update(cartLines).set({ cartId: to }).where(eq(cartLines.cartId, from)).run(),
 
-  listingWithShop: (db: Db, listingId: string) =>
-    db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(eq(listings.id, listingId)).get(),
+  listingWithShop: (db: Db, listingId: string) => db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(eq(listings.id, listingId)).get(),
   listingsWithShops: (db: Db, ids: string[]) =>
     ids.length ? db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(inArray(listings.id, ids)).all() : [],
   materials: (db: Db, shopId: string, ids: string[]) =>
     ids.length
-      ? db.select({ id: materials.id, kind: materials.kind, colourName: materials.colourName, colourHex: materials.colourHex }).from(materials).where(and(eq(materials.shopId, shopId), inArray(materials.id, ids))).all()
+      ? db
+          .select({ id: materials.id, kind: materials.kind, colourName: materials.colourName, colourHex: materials.colourHex })
+          .from(materials)
+          .where(and(eq(materials.shopId, shopId), inArray(materials.id, ids)))
+          .all()
       : [],
   motifs: (db: Db, shopId: string, ids: string[]) =>
-    ids.length ? db.select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry }).from(motifs).where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids))).all() : [],
+    ids.length
+      ? db
+          .select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry })
+          .from(motifs)
+          .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
+          .all()
+      : [],
 };

@@ -1,9 +1,9 @@
 import { Router } from 'express';
-import type { AppDeps } from '../../deps.ts';
-import { validate } from '../../http/validate.ts';
 import { addCartLineSchema, cartLineParams, updateCartLineSchema } from '../../../shared/schemas/cart.ts';
-import { cartRepo } from './cart.repo.ts';
+import type { AppDeps } from '../../deps.ts';
 import { perAccountLimit } from '../../http/account-rate-limit.ts';
+import { validate } from '../../http/validate.ts';
+import { cartRepo } from './cart.repo.ts';
 import { addLine, cartView, removeLine, setQuantity } from './cart.service.ts';
 import { cartOfRequest } from './cart-cookie.ts';
 

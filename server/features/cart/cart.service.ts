@@ -1,14 +1,14 @@
 // Cart rules: one cart per signed-in user, a guest cart by cookie, merged on the first signed-in
 // call; lines priced by the server from the live listing (the posted body has no price at all).
 import crypto from 'node:crypto';
-import type { AppDeps } from '../../deps.ts';
-import type { Db } from '../../db/client.ts';
-import { conflict, notFound } from '../../http/app-error.ts';
 import type { AddCartLineInput, Cart, CartLine, CartShop } from '../../../shared/schemas/cart.ts';
 import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
-import { cartRepo, type CartRow } from './cart.repo.ts';
+import { type ListingContent, materialIdsOf } from '../../../shared/schemas/listing.ts';
+import type { Db } from '../../db/client.ts';
+import type { AppDeps } from '../../deps.ts';
+import { conflict, notFound } from '../../http/app-error.ts';
+import { type CartRow, cartRepo } from './cart.repo.ts';
 import { buildSnapshotOffThread, readLiveContent, snapshotLookups, unitPrice } from './design.ts';
-import { materialIdsOf, type ListingContent } from '../../../shared/schemas/listing.ts';
 
 export type CartDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
 
@@ -140,7 +140,15 @@ export async function addLine(deps: CartDeps & Pick<AppDeps, 'pool'>, cart: Cart
   if (!row || !content) throw notFound('This listing is not on sale right now.');
 
   const p = content.personalisation;
-  const { materials, motifs } = snapshotLookups(p, cartRepo.materials(db, row.shop.id, materialIdsOf(p)), cartRepo.motifs(db, row.shop.id, p.motifChoices.map((m) => m.motifId)));
+  const { materials, motifs } = snapshotLookups(
+    p,
+    cartRepo.materials(db, row.shop.id, materialIdsOf(p)),
+    cartRepo.motifs(
+      db,
+      row.shop.id,
+      p.motifChoices.map((m) => m.motifId),
+    ),
+  );
 
   // composed in the worker pool: the request thread never runs the geometry
   const snapshot = await buildSnapshotOffThread({

@@ -2,11 +2,11 @@
 // keeps (title, personalisation in words, pieces for the preview, unit price). The mapping from the
 // listing's personalisation schema to the engine's field definitions is shared with the personaliser
 // (shared/engine/listing-design.ts); here the server adds validation, pricing and the snapshot.
-import { compose, ComposeError, type ComposedItem, type ComposeInput } from '../../../shared/engine/compose.ts';
-import { listingDesign, type DesignMaterial, type DesignMotif } from '../../../shared/engine/listing-design.ts';
+import { type ComposedItem, ComposeError, type ComposeInput, compose } from '../../../shared/engine/compose.ts';
 import type { FontRegistry } from '../../../shared/engine/fonts.ts';
-import { checkChoices, layersForChoices, materialIdsOf, priceForChoices, personalisationSchema, type Choices, type ListingContent, type Personalisation } from '../../../shared/schemas/listing.ts';
+import { type DesignMaterial, type DesignMotif, listingDesign } from '../../../shared/engine/listing-design.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { type Choices, checkChoices, type ListingContent, layersForChoices, materialIdsOf, type Personalisation, personalisationSchema, priceForChoices } from '../../../shared/schemas/listing.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 
@@ -55,7 +55,11 @@ type SnapshotArgs = {
  */
 export function buildSnapshot(args: SnapshotArgs): LineSnapshot {
   const design = prepare(args);
-  return finish(args, design, composeHere(() => compose(args.registry, design.input)));
+  return finish(
+    args,
+    design,
+    composeHere(() => compose(args.registry, design.input)),
+  );
 }
 
 /** buildSnapshot with the composition done in the worker pool (plain data in, plain data out). */
@@ -92,8 +96,7 @@ function prepare(args: Omit<SnapshotArgs, 'registry'>) {
   return { summary, pieceMaterial, input: design.input as ComposeInput };
 }
 
-const composeRefusal = (e: unknown): unknown =>
-  e instanceof ComposeError ? badRequest(e.message, { [`choices.texts.${e.fieldId}.text`]: e.message }) : e;
+const composeRefusal = (e: unknown): unknown => (e instanceof ComposeError ? badRequest(e.message, { [`choices.texts.${e.fieldId}.text`]: e.message }) : e);
 
 function composeHere(fn: () => ComposedItem): ComposedItem {
   try {

@@ -3,19 +3,32 @@
  * of the site; see bench/catalog.ts): FTS5 for `q`, the denormalised live_* columns for filters and
  * sort, and a join on the shop's state so a suspended shop's listings vanish at once.
  */
-import { and, eq, inArray } from 'drizzle-orm';
+
 import type { Statement } from 'better-sqlite3';
+import { and, eq, inArray } from 'drizzle-orm';
+import type { CatalogQuery } from '../../../shared/schemas/catalog.ts';
 import type { Db } from '../../db/client.ts';
 import { listings, materials, motifs, shops, uploads } from '../../db/schema.ts';
-import type { CatalogQuery } from '../../../shared/schemas/catalog.ts';
 
 export type CatalogRow = {
-  id: string; slug: string; title: string; priceMinor: number; currency: string; occasions: string | null; thumb: string | null; shopSlug: string; shopName: string;
+  id: string;
+  slug: string;
+  title: string;
+  priceMinor: number;
+  currency: string;
+  occasions: string | null;
+  thumb: string | null;
+  shopSlug: string;
+  shopName: string;
 };
 
 /** Words of the query as FTS5 prefix terms, quoted so no FTS syntax from the user is interpreted. */
 export function ftsQuery(q: string): string | null {
-  const words = q.normalize('NFC').match(/[\p{L}\p{N}]+/gu)?.slice(0, 8) ?? [];
+  const words =
+    q
+      .normalize('NFC')
+      .match(/[\p{L}\p{N}]+/gu)
+      ?.slice(0, 8) ?? [];
   return words.length ? words.map((w) => `"${w}"*`).join(' AND ') : null;
 }
 
@@ -99,14 +112,20 @@ export function catalogPage(db: Db, q: CatalogQuery): { rows: CatalogRow[]; tota
 
   const { where, params } = build({ ...q, fts });
   const shape = JSON.stringify([!!fts, !!q.occasion, !!q.blank, !!q.shop, q.minPrice !== undefined, q.maxPrice !== undefined, q.sort]);
-  const from = fts
-    ? 'FROM listings_fts JOIN listings l ON l.id = listings_fts.listing_id JOIN shops s ON s.id = l.shop_id'
-    : 'FROM listings l JOIN shops s ON s.id = l.shop_id';
-  const total = prepared(db, `count:${shape}`, `SELECT count(*) ${from} WHERE ${where}`).pluck().get(...params) as number;
-  const rows = total === 0 ? [] : (prepared(db, `page:${shape}`,
-    `SELECT l.id, l.slug, l.live_title AS title, l.live_price_minor AS priceMinor, l.currency, l.live_occasions AS occasions,
+  const from = fts ? 'FROM listings_fts JOIN listings l ON l.id = listings_fts.listing_id JOIN shops s ON s.id = l.shop_id' : 'FROM listings l JOIN shops s ON s.id = l.shop_id';
+  const total = prepared(db, `count:${shape}`, `SELECT count(*) ${from} WHERE ${where}`)
+    .pluck()
+    .get(...params) as number;
+  const rows =
+    total === 0
+      ? []
+      : (prepared(
+          db,
+          `page:${shape}`,
+          `SELECT l.id, l.slug, l.live_title AS title, l.live_price_minor AS priceMinor, l.currency, l.live_occasions AS occasions,
        l.live_thumb_path AS thumb, s.slug AS shopSlug, s.name AS shopName
-     ${from} WHERE ${where} ORDER BY ${ORDER[q.sort]} LIMIT ? OFFSET ?`).all(...params, pageSize, (q.page - 1) * pageSize) as CatalogRow[]);
+     ${from} WHERE ${where} ORDER BY ${ORDER[q.sort]} LIMIT ? OFFSET ?`,
+        ).all(...params, pageSize, (q.page - 1) * pageSize) as CatalogRow[]);
   const value = { rows, total };
   if (c.size >= CACHE_MAX) c.delete(c.keys().next().value!);
   c.set(key, { version, value });
@@ -114,19 +133,43 @@ export function catalogPage(db: Db, q: CatalogQuery): { rows: CatalogRow[]; tota
 }
 
 export const liveListingBySlug = (db: Db, slug: string) =>
-  db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId))
-    .where(and(eq(listings.slug, slug), eq(listings.state, 'live'), eq(shops.state, 'live'))).get();
+  db
+    .select({ listing: listings, shop: shops })
+    .from(listings)
+    .innerJoin(shops, eq(shops.id, listings.shopId))
+    .where(and(eq(listings.slug, slug), eq(listings.state, 'live'), eq(shops.state, 'live')))
+    .get();
 export const anyListingBySlug = (db: Db, slug: string) =>
   db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(eq(listings.slug, slug)).get();
-export const liveShopBySlug = (db: Db, slug: string) => db.select().from(shops).where(and(eq(shops.slug, slug), eq(shops.state, 'live'))).get();
+export const liveShopBySlug = (db: Db, slug: string) =>
+  db
+    .select()
+    .from(shops)
+    .where(and(eq(shops.slug, slug), eq(shops.state, 'live')))
+    .get();
 export const shopOwnedBy = (db: Db, userId: string) => db.select({ id: shops.id }).from(shops).where(eq(shops.ownerId, userId)).get();
 
 export const photosOf = (db: Db, shopId: string, ids: string[]) =>
-  ids.length ? db.select().from(uploads).where(and(eq(uploads.shopId, shopId), inArray(uploads.id, ids))).all() : [];
+  ids.length
+    ? db
+        .select()
+        .from(uploads)
+        .where(and(eq(uploads.shopId, shopId), inArray(uploads.id, ids)))
+        .all()
+    : [];
 export const motifsOf = (db: Db, shopId: string, ids: string[]) =>
-  ids.length ? db.select().from(motifs).where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids))).all() : [];
+  ids.length
+    ? db
+        .select()
+        .from(motifs)
+        .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
+        .all()
+    : [];
 export const materialsOf = (db: Db, shopId: string, ids: string[]) =>
   ids.length
-    ? db.select({ id: materials.id, kind: materials.kind, colourName: materials.colourName, colourHex: materials.colourHex }).from(materials)
-        .where(and(eq(materials.shopId, shopId), inArray(materials.id, ids))).all()
+    ? db
+        .select({ id: materials.id, kind: materials.kind, colourName: materials.colourName, colourHex: materials.colourHex })
+        .from(materials)
+        .where(and(eq(materials.shopId, shopId), inArray(materials.id, ids)))
+        .all()
     : [];

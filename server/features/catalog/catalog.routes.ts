@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { type CatalogQuery, catalogQuerySchema, listingSlugParams } from '../../../shared/schemas/catalog.ts';
+import { shopSlugParams } from '../../../shared/schemas/shop.ts';
 import type { AppDeps } from '../../deps.ts';
 import { validate } from '../../http/validate.ts';
-import { catalogQuerySchema, listingSlugParams, type CatalogQuery } from '../../../shared/schemas/catalog.ts';
-import { shopSlugParams } from '../../../shared/schemas/shop.ts';
 import * as svc from './catalog.service.ts';
 
 const versionQuery = z.object({ version: z.enum(['live', 'draft']).default('live') });

@@ -1,19 +1,23 @@
-import type { Db } from '../../db/client.ts';
-import type { SessionUser } from '../../http/auth-guards.ts';
-import { notFound } from '../../http/app-error.ts';
-import { uploadUrl } from '../../integrations/storage.ts';
-import {
-  CARE_CARD, SMALL_PARTS_NOTES, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage, type PublicShop,
-} from '../../../shared/schemas/catalog.ts';
+import { CARE_CARD, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage, type PublicShop, SMALL_PARTS_NOTES } from '../../../shared/schemas/catalog.ts';
 import { materialIdsOf, type Occasion } from '../../../shared/schemas/listing.ts';
 import { toPage } from '../../../shared/schemas/pagination.ts';
+import type { Db } from '../../db/client.ts';
+import { notFound } from '../../http/app-error.ts';
+import type { SessionUser } from '../../http/auth-guards.ts';
+import { uploadUrl } from '../../integrations/storage.ts';
 import * as repo from './catalog.repo.ts';
 import { renderDescription } from './markdown.ts';
 
 const toItem = (r: repo.CatalogRow): CatalogItem => ({
-  id: r.id, slug: r.slug, title: r.title, shop: { slug: r.shopSlug, name: r.shopName }, priceMinor: r.priceMinor, currency: r.currency,
+  id: r.id,
+  slug: r.slug,
+  title: r.title,
+  shop: { slug: r.shopSlug, name: r.shopName },
+  priceMinor: r.priceMinor,
+  currency: r.currency,
   // live_occasions is nullable (rows written before it existed, or straight inserts): no occasions then
-  occasions: (r.occasions ?? '').split(',').filter(Boolean) as Occasion[], thumbnailUrl: uploadUrl(r.thumb),
+  occasions: (r.occasions ?? '').split(',').filter(Boolean) as Occasion[],
+  thumbnailUrl: uploadUrl(r.thumb),
 });
 
 export function search(db: Db, q: CatalogQuery): CatalogPage {
@@ -32,7 +36,16 @@ export function publicShop(db: Db, slug: string): PublicShop {
     if (page * 100 >= total) break;
   }
   return {
-    shop: { name: s.name, slug: s.slug, description: s.description, processingDays: s.processingDays, shippingMinor: s.shippingMinor, currency: s.currency, returnPolicy: s.returnPolicy, logoUrl: uploadUrl(s.logoPath) },
+    shop: {
+      name: s.name,
+      slug: s.slug,
+      description: s.description,
+      processingDays: s.processingDays,
+      shippingMinor: s.shippingMinor,
+      currency: s.currency,
+      returnPolicy: s.returnPolicy,
+      logoUrl: uploadUrl(s.logoPath),
+    },
     listings: items,
   };
 }
@@ -64,8 +77,13 @@ export function listingPage(db: Db, slug: string, version: 'live' | 'draft', vie
     content,
     descriptionHtml: renderDescription(content.description, content.descriptionFormat),
     shop: {
-      slug: shop.slug, name: shop.name, processingDays: shop.processingDays, shippingMinor: shop.shippingMinor, currency: shop.currency,
-      returnPolicy: shop.returnPolicy, logoUrl: uploadUrl(shop.logoPath),
+      slug: shop.slug,
+      name: shop.name,
+      processingDays: shop.processingDays,
+      shippingMinor: shop.shippingMinor,
+      currency: shop.currency,
+      returnPolicy: shop.returnPolicy,
+      logoUrl: uploadUrl(shop.logoPath),
     },
     photos: content.photoIds.flatMap((id) => {
       const u = photos.get(id);

@@ -1,10 +1,10 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { AppDeps } from '../../deps.ts';
-import { currentUser } from '../../http/auth-guards.ts';
-import { unauthorized } from '../../http/app-error.ts';
-import { validate } from '../../http/validate.ts';
 import { checkoutStatusParams } from '../../../shared/schemas/checkout.ts';
+import type { AppDeps } from '../../deps.ts';
+import { unauthorized } from '../../http/app-error.ts';
+import { currentUser } from '../../http/auth-guards.ts';
+import { validate } from '../../http/validate.ts';
 import { cartOfRequest } from '../cart/index.ts';
 import { checkoutStatus, latestCheckout, openCheckout } from './checkout.service.ts';
 

@@ -4,15 +4,15 @@
 // is one charge at most (Stripe API docs, "Idempotent requests").
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../deps.ts';
+import { type CheckoutStarted, type CheckoutState, type CheckoutStatus, type PricedCheckout, SHIPPING_COUNTRIES } from '../../../shared/schemas/checkout.ts';
 import type { Db } from '../../db/client.ts';
+import type { AppDeps } from '../../deps.ts';
 import { AppError, badRequest, conflict, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
-import { SHIPPING_COUNTRIES, type CheckoutStarted, type CheckoutStatus, type CheckoutState, type PricedCheckout } from '../../../shared/schemas/checkout.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
-import { cartView, newCartVersion, type CartRow } from '../cart/index.ts';
-import { checkoutRepo, type CheckoutRow } from './checkout.repo.ts';
+import { type CartRow, cartView, newCartVersion } from '../cart/index.ts';
+import { type CheckoutRow, checkoutRepo } from './checkout.repo.ts';
 import { CANCELLED_WORDS, declineInOurWords } from './decline-words.ts';
 
 export type CheckoutDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
@@ -58,7 +58,15 @@ function freeze(view: ReturnType<typeof cartView>): PricedCheckout {
       shippingMinor: s.shippingMinor,
       subtotalMinor: s.subtotalMinor,
       totalMinor: s.totalMinor,
-      lines: s.lines.map((l) => ({ cartLineId: l.id, listingId: l.listingId, title: l.snapshot.listingTitle, quantity: l.quantity, unitPriceMinor: l.unitPriceMinor, totalMinor: l.lineTotalMinor, snapshot: { ...l.snapshot, unitPriceMinor: l.unitPriceMinor } })),
+      lines: s.lines.map((l) => ({
+        cartLineId: l.id,
+        listingId: l.listingId,
+        title: l.snapshot.listingTitle,
+        quantity: l.quantity,
+        unitPriceMinor: l.unitPriceMinor,
+        totalMinor: l.lineTotalMinor,
+        snapshot: { ...l.snapshot, unitPriceMinor: l.unitPriceMinor },
+      })),
     })),
   };
 }
@@ -69,7 +77,8 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
   const view = cartView(db, cart);
   if (!cart || view.itemCount === 0) throw badRequest('Your cart is empty. Add something first.');
   const gone = view.shops.flatMap((s) => s.lines).filter((l) => !l.available);
-  if (gone.length > 0) throw conflict(`${gone.map((l) => `“${l.snapshot.listingTitle}”`).join(', ')} ${gone.length > 1 ? 'are' : 'is'} no longer on sale. Remove ${gone.length > 1 ? 'them' : 'it'} to check out.`);
+  if (gone.length > 0)
+    throw conflict(`${gone.map((l) => `“${l.snapshot.listingTitle}”`).join(', ')} ${gone.length > 1 ? 'are' : 'is'} no longer on sale. Remove ${gone.length > 1 ? 'them' : 'it'} to check out.`);
   const currencies = new Set(view.shops.map((s) => s.currency));
   if (currencies.size > 1) throw conflict('Your cart mixes currencies; check out one currency at a time.');
 

@@ -4,16 +4,16 @@
  *   GET  /fonts/:id/file  → the exact TTF bytes the engine uses (font/ttf, cached a year; URL is versioned)
  *   POST /layout/text     → { widthMm, heightMm, advanceMm, path, glyphs, missing, warnings, … }
  */
-import { Router, type RequestHandler } from 'express';
+import { type RequestHandler, Router } from 'express';
 import { rateLimit } from 'express-rate-limit';
-import { validate } from '../../http/validate.ts';
-import { AppError, badRequest, notFound } from '../../http/app-error.ts';
-import { fontParamsSchema, layoutTextRequestSchema, type FontInfo, type LayoutTextRequest, type LayoutTextResponse } from '../../../shared/schemas/engine.ts';
-import { getFontFile, getFontRegistry, listFontFiles } from '../../integrations/fonts.ts';
-import { layoutText, LayoutError, type TextLayout } from '../../../shared/engine/text-layout.ts';
-import type { WorkPool } from '../../workers/pool.ts';
-import { createLayoutCache } from '../../workers/layout.ts';
 import { layoutWarnings } from '../../../shared/engine/fit.ts';
+import { LayoutError, layoutText, type TextLayout } from '../../../shared/engine/text-layout.ts';
+import { type FontInfo, fontParamsSchema, type LayoutTextRequest, type LayoutTextResponse, layoutTextRequestSchema } from '../../../shared/schemas/engine.ts';
+import { AppError, badRequest, notFound } from '../../http/app-error.ts';
+import { validate } from '../../http/validate.ts';
+import { getFontFile, getFontRegistry, listFontFiles } from '../../integrations/fonts.ts';
+import { createLayoutCache } from '../../workers/layout.ts';
+import type { WorkPool } from '../../workers/pool.ts';
 
 export interface EngineRouterOptions {
   /** Layout requests per minute per client (default 240). */

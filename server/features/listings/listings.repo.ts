@@ -11,18 +11,55 @@ export const listOwn = (db: Db, shopId: string, state: string | undefined, limit
 export const countOwn = (db: Db, shopId: string, state?: string) => db.select({ n: sql<number>`count(*)` }).from(listings).where(ownWhere(shopId, state)).get()?.n ?? 0;
 /** scoped by shop: another shop's listing id is not found */
 export const findOwn = (db: Db, shopId: string, id: string) =>
-  db.select().from(listings).where(and(eq(listings.id, id), eq(listings.shopId, shopId))).get();
+  db
+    .select()
+    .from(listings)
+    .where(and(eq(listings.id, id), eq(listings.shopId, shopId)))
+    .get();
 export const insertListing = (db: Db, row: typeof listings.$inferInsert) => db.insert(listings).values(row).returning().get();
 export const updateOwn = (db: Db, shopId: string, id: string, set: Partial<typeof listings.$inferInsert>) =>
-  db.update(listings).set(set).where(and(eq(listings.id, id), eq(listings.shopId, shopId))).returning().get();
-export const deleteOwn = (db: Db, shopId: string, id: string) => db.delete(listings).where(and(eq(listings.id, id), eq(listings.shopId, shopId))).run();
+  db
+    .update(listings)
+    .set(set)
+    .where(and(eq(listings.id, id), eq(listings.shopId, shopId)))
+    .returning()
+    .get();
+export const deleteOwn = (db: Db, shopId: string, id: string) =>
+  db
+    .delete(listings)
+    .where(and(eq(listings.id, id), eq(listings.shopId, shopId)))
+    .run();
 export const slugExists = (db: Db, slug: string) => !!db.select({ id: listings.id }).from(listings).where(eq(listings.slug, slug)).get();
-export const slugsLike = (db: Db, base: string) => db.select({ slug: listings.slug }).from(listings).where(like(listings.slug, `${base}%`)).all().map((r) => r.slug);
+export const slugsLike = (db: Db, base: string) =>
+  db
+    .select({ slug: listings.slug })
+    .from(listings)
+    .where(like(listings.slug, `${base}%`))
+    .all()
+    .map((r) => r.slug);
 
 // ownership lookups for what a listing refers to: only rows of this shop come back
 export const ownMaterials = (db: Db, shopId: string, ids: string[]) =>
-  ids.length ? db.select({ id: materials.id, archived: materials.archived }).from(materials).where(and(eq(materials.shopId, shopId), inArray(materials.id, ids))).all() : [];
+  ids.length
+    ? db
+        .select({ id: materials.id, archived: materials.archived })
+        .from(materials)
+        .where(and(eq(materials.shopId, shopId), inArray(materials.id, ids)))
+        .all()
+    : [];
 export const ownMotifs = (db: Db, shopId: string, ids: string[]) =>
-  ids.length ? db.select().from(motifs).where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids))).all() : [];
+  ids.length
+    ? db
+        .select()
+        .from(motifs)
+        .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
+        .all()
+    : [];
 export const ownPhotos = (db: Db, shopId: string, ids: string[]) =>
-  ids.length ? db.select({ id: uploads.id, kind: uploads.kind }).from(uploads).where(and(eq(uploads.shopId, shopId), inArray(uploads.id, ids))).all() : [];
+  ids.length
+    ? db
+        .select({ id: uploads.id, kind: uploads.kind })
+        .from(uploads)
+        .where(and(eq(uploads.shopId, shopId), inArray(uploads.id, ids)))
+        .all()
+    : [];

@@ -1,8 +1,8 @@
 import { Router } from 'express';
+import { listingIdParams, listingInputSchema, type SellerListingsQuery, sellerListingsQuerySchema } from '../../../shared/schemas/listing.ts';
 import type { AppDeps } from '../../deps.ts';
 import { ownShop, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { listingIdParams, listingInputSchema, sellerListingsQuerySchema, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
 import * as svc from './listings.service.ts';
 
 /** /api/seller/listings: the signed-in seller's own listings. Every lookup is scoped by their shop. */
@@ -20,10 +20,15 @@ export function listingsRouter(deps: AppDeps): Router {
     res.json({ listing: svc.get(deps.db, ownShop(deps.db, req).id, id(req.params.id)) });
   });
   // ownership is checked before the body, so another shop's id is a 404 whatever the body holds
-  r.put('/:id', validate({ params: listingIdParams }), (req, _res, next) => (svc.get(deps.db, ownShop(deps.db, req).id, id(req.params.id)), next()),
-    validate({ body: listingInputSchema }), (req, res) => {
+  r.put(
+    '/:id',
+    validate({ params: listingIdParams }),
+    (req, _res, next) => (svc.get(deps.db, ownShop(deps.db, req).id, id(req.params.id)), next()),
+    validate({ body: listingInputSchema }),
+    (req, res) => {
       res.json({ listing: svc.update(deps, ownShop(deps.db, req).id, id(req.params.id), req.body) });
-    });
+    },
+  );
   r.post('/:id/submit', validate({ params: listingIdParams }), (req, res) => {
     res.json({ listing: svc.submit(deps, ownShop(deps.db, req).id, id(req.params.id)) });
   });

@@ -1,18 +1,27 @@
 import crypto from 'node:crypto';
 import slugify from 'slugify';
+import { type ListingContent, type ListingState, materialIdsOf, type SellerListing, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
+import { type Page, pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
-import { materialIdsOf, type ListingContent, type ListingState, type SellerListing, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
-import { pageOffset, toPage, type Page } from '../../../shared/schemas/pagination.ts';
-import { countOwn, deleteOwn, findOwn, insertListing, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn, type ListingRow } from './listings.repo.ts';
+import { countOwn, deleteOwn, findOwn, insertListing, type ListingRow, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn } from './listings.repo.ts';
 
 type Deps = { db: Db; now: () => number };
 
 export function toSellerListing(l: ListingRow): SellerListing {
   return {
-    id: l.id, slug: l.slug, state: l.state as ListingState, pendingReview: l.pendingReview, rejectionReason: l.rejectionReason, revision: l.revision,
-    draft: l.draft, live: l.live,
-    currency: l.currency, publishedAt: l.publishedAt, createdAt: l.createdAt, updatedAt: l.updatedAt,
+    id: l.id,
+    slug: l.slug,
+    state: l.state as ListingState,
+    pendingReview: l.pendingReview,
+    rejectionReason: l.rejectionReason,
+    revision: l.revision,
+    draft: l.draft,
+    live: l.live,
+    currency: l.currency,
+    publishedAt: l.publishedAt,
+    createdAt: l.createdAt,
+    updatedAt: l.updatedAt,
   };
 }
 
@@ -34,7 +43,13 @@ function checkReferences(db: Db, shopId: string, c: ListingContent) {
   };
   p.textFields.forEach((f, i) => f.colourChoices.forEach((m, j) => checkMat(m, `personalisation.textFields.${i}.colourChoices.${j}`)));
   p.outline?.colourChoices.forEach((m, j) => checkMat(m, `personalisation.outline.colourChoices.${j}`));
-  const motifs = new Map(ownMotifs(db, shopId, p.motifChoices.map((m) => m.motifId)).map((m) => [m.id, m]));
+  const motifs = new Map(
+    ownMotifs(
+      db,
+      shopId,
+      p.motifChoices.map((m) => m.motifId),
+    ).map((m) => [m.id, m]),
+  );
   p.motifChoices.forEach((mc, i) => {
     const motif = motifs.get(mc.motifId);
     if (!motif) {
@@ -48,7 +63,11 @@ function checkReferences(db: Db, shopId: string, c: ListingContent) {
       l.colourChoices?.forEach((m, k) => checkMat(m, `personalisation.motifChoices.${i}.layers.${j}.colourChoices.${k}`));
     });
   });
-  const photos = new Set(ownPhotos(db, shopId, c.photoIds).filter((u) => u.kind === 'photo').map((u) => u.id));
+  const photos = new Set(
+    ownPhotos(db, shopId, c.photoIds)
+      .filter((u) => u.kind === 'photo')
+      .map((u) => u.id),
+  );
   c.photoIds.forEach((id, i) => {
     if (!photos.has(id)) fields[`photoIds.${i}`] = 'Upload this photo to your shop first.';
   });
@@ -76,10 +95,18 @@ export function get(db: Db, shopId: string, id: string): SellerListing {
 export function create(deps: Deps, shop: { id: string; currency: string }, content: ListingContent): SellerListing {
   checkReferences(deps.db, shop.id, content);
   const at = deps.now();
-  return toSellerListing(insertListing(deps.db, {
-    id: crypto.randomUUID(), shopId: shop.id, slug: uniqueSlug(deps.db, content.title), state: 'draft',
-    draft: content, currency: shop.currency, createdAt: at, updatedAt: at,
-  }));
+  return toSellerListing(
+    insertListing(deps.db, {
+      id: crypto.randomUUID(),
+      shopId: shop.id,
+      slug: uniqueSlug(deps.db, content.title),
+      state: 'draft',
+      draft: content,
+      currency: shop.currency,
+      createdAt: at,
+      updatedAt: at,
+    }),
+  );
 }
 
 /**
@@ -94,10 +121,16 @@ export function update(deps: Deps, shopId: string, id: string, content: ListingC
   checkReferences(deps.db, shopId, content);
   const onSale = l.live !== null && (l.state === 'live' || l.state === 'paused');
   const state = l.state === 'rejected' ? 'draft' : l.state;
-  return toSellerListing(updateOwn(deps.db, shopId, id, {
-    draft: content, state, pendingReview: onSale ? true : l.pendingReview,
-    rejectionReason: onSale ? l.rejectionReason : null, revision: l.revision + 1, updatedAt: deps.now(),
-  })!);
+  return toSellerListing(
+    updateOwn(deps.db, shopId, id, {
+      draft: content,
+      state,
+      pendingReview: onSale ? true : l.pendingReview,
+      rejectionReason: onSale ? l.rejectionReason : null,
+      revision: l.revision + 1,
+      updatedAt: deps.now(),
+    })!,
+  );
 }
 
 /** draft | rejected → in_review. */

@@ -1,8 +1,8 @@
 import { Router } from 'express';
+import { createMaterialSchema, type MaterialsQuery, materialIdParams, materialsQuerySchema, PRESS_DEFAULTS, updateMaterialSchema } from '../../../shared/schemas/material.ts';
 import type { AppDeps } from '../../deps.ts';
 import { ownShop, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { createMaterialSchema, materialIdParams, materialsQuerySchema, PRESS_DEFAULTS, updateMaterialSchema, type MaterialsQuery } from '../../../shared/schemas/material.ts';
 import * as svc from './materials.service.ts';
 
 /** /api/materials: the signed-in seller's vinyl stock. Every query is scoped by their shop. */

@@ -1,17 +1,25 @@
 import crypto from 'node:crypto';
+import type { z } from 'zod';
+import type { CreateMaterialInput, createMaterialSchema, Material, MaterialKind, MaterialsQuery, UpdateMaterialInput, updateMaterialSchema } from '../../../shared/schemas/material.ts';
+import { type Page, pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
 import type { Db } from '../../db/client.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
-import type { CreateMaterialInput, Material, MaterialKind, MaterialsQuery, UpdateMaterialInput } from '../../../shared/schemas/material.ts';
-import { createMaterialSchema, updateMaterialSchema } from '../../../shared/schemas/material.ts';
-import { countMaterials, deleteMaterial, findMaterial, insertMaterial, listingsUsing, listMaterials, updateMaterial, type MaterialRow } from './materials.repo.ts';
-import { pageOffset, toPage, type Page } from '../../../shared/schemas/pagination.ts';
-import type { z } from 'zod';
+import { countMaterials, deleteMaterial, findMaterial, insertMaterial, listingsUsing, listMaterials, type MaterialRow, updateMaterial } from './materials.repo.ts';
 
 export function toMaterial(m: MaterialRow): Material {
   return {
-    id: m.id, kind: m.kind as MaterialKind, colourName: m.colourName, colourHex: m.colourHex, rollWidthMm: m.rollWidthMm,
-    stockMm: m.stockMm, lowStockMm: m.lowStockMm, lowStock: m.stockMm <= m.lowStockMm, pricePerMetreMinor: m.pricePerMetreMinor,
-    pressProfile: m.pressProfile, archived: m.archived, createdAt: m.createdAt,
+    id: m.id,
+    kind: m.kind as MaterialKind,
+    colourName: m.colourName,
+    colourHex: m.colourHex,
+    rollWidthMm: m.rollWidthMm,
+    stockMm: m.stockMm,
+    lowStockMm: m.lowStockMm,
+    lowStock: m.stockMm <= m.lowStockMm,
+    pricePerMetreMinor: m.pricePerMetreMinor,
+    pressProfile: m.pressProfile,
+    archived: m.archived,
+    createdAt: m.createdAt,
   };
 }
 

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, or, type SQL, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
 
@@ -8,48 +8,91 @@ export type ListingRow = typeof listings.$inferSelect;
 // the review queue, oldest first (a page at a time)
 const shopWaits = eq(shops.state, 'in_review');
 export const shopsInReview = (db: Db, limit: number, offset: number) =>
-  db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
-    .where(shopWaits).orderBy(shops.createdAt, shops.id).limit(limit).offset(offset).all();
-export const shopsInReviewCount = (db: Db) =>
-  db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopWaits).get()?.n ?? 0;
+  db
+    .select({ shop: shops, ownerEmail: user.email, ownerName: user.name })
+    .from(shops)
+    .innerJoin(user, eq(user.id, shops.ownerId))
+    .where(shopWaits)
+    .orderBy(shops.createdAt, shops.id)
+    .limit(limit)
+    .offset(offset)
+    .all();
+export const shopsInReviewCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopWaits).get()?.n ?? 0;
 const listingWaits = or(eq(listings.state, 'in_review'), eq(listings.pendingReview, true));
 export const listingsInReview = (db: Db, limit: number, offset: number) =>
-  db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId))
-    .where(listingWaits).orderBy(listings.updatedAt, listings.id).limit(limit).offset(offset).all();
+  db
+    .select({ listing: listings, shop: shops })
+    .from(listings)
+    .innerJoin(shops, eq(shops.id, listings.shopId))
+    .where(listingWaits)
+    .orderBy(listings.updatedAt, listings.id)
+    .limit(limit)
+    .offset(offset)
+    .all();
 export const listingInReview = (db: Db, id: string) =>
-  db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(and(eq(listings.id, id), listingWaits)).get();
-export const listingsInReviewCount = (db: Db) =>
-  db.select({ n: sql<number>`count(*)` }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(listingWaits).get()?.n ?? 0;
+  db
+    .select({ listing: listings, shop: shops })
+    .from(listings)
+    .innerJoin(shops, eq(shops.id, listings.shopId))
+    .where(and(eq(listings.id, id), listingWaits))
+    .get();
+export const listingsInReviewCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(listingWaits).get()?.n ?? 0;
 /** live (or suspended) shops whose name/description change waits for review, oldest first */
 const shopHasChange = isNotNull(shops.pendingChange);
 export const shopsWithChanges = (db: Db, limit: number, offset: number) =>
-  db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
-    .where(shopHasChange).orderBy(shops.updatedAt, shops.id).limit(limit).offset(offset).all();
-export const shopsWithChangesCount = (db: Db) =>
-  db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopHasChange).get()?.n ?? 0;
+  db
+    .select({ shop: shops, ownerEmail: user.email, ownerName: user.name })
+    .from(shops)
+    .innerJoin(user, eq(user.id, shops.ownerId))
+    .where(shopHasChange)
+    .orderBy(shops.updatedAt, shops.id)
+    .limit(limit)
+    .offset(offset)
+    .all();
+export const shopsWithChangesCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopHasChange).get()?.n ?? 0;
 
 export const findShop = (db: Db, id: string) => db.select().from(shops).where(eq(shops.id, id)).get();
 export const findListing = (db: Db, id: string) => db.select().from(listings).where(eq(listings.id, id)).get();
-export const ownerOf = (db: Db, shopId: string) =>
-  db.select({ email: user.email, name: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(eq(shops.id, shopId)).get();
+export const ownerOf = (db: Db, shopId: string) => db.select({ email: user.email, name: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(eq(shops.id, shopId)).get();
 export const updateShop = (db: Db, id: string, set: Partial<typeof shops.$inferInsert>) => db.update(shops).set(set).where(eq(shops.id, id)).returning().get();
 /** updates only while the listing is still at the revision the moderator saw; undefined otherwise */
 export const updateListingAt = (db: Db, id: string, revision: number, set: Partial<typeof listings.$inferInsert>) =>
-  db.update(listings).set(set).where(and(eq(listings.id, id), eq(listings.revision, revision))).returning().get();
+  db
+    .update(listings)
+    .set(set)
+    .where(and(eq(listings.id, id), eq(listings.revision, revision)))
+    .returning()
+    .get();
 /** updates only while the shop's pending change is still the revision the moderator saw */
 export const updateShopAt = (db: Db, id: string, changeRevision: number, set: Partial<typeof shops.$inferInsert>) =>
-  db.update(shops).set(set).where(and(eq(shops.id, id), eq(shops.changeRevision, changeRevision), isNotNull(shops.pendingChange))).returning().get();
+  db
+    .update(shops)
+    .set(set)
+    .where(and(eq(shops.id, id), eq(shops.changeRevision, changeRevision), isNotNull(shops.pendingChange)))
+    .returning()
+    .get();
 export const thumbOf = (db: Db, shopId: string, uploadId: string | undefined) =>
-  uploadId ? (db.select({ t: uploads.thumbPath }).from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.shopId, shopId))).get()?.t ?? null) : null;
+  uploadId
+    ? (db
+        .select({ t: uploads.thumbPath })
+        .from(uploads)
+        .where(and(eq(uploads.id, uploadId), eq(uploads.shopId, shopId)))
+        .get()?.t ?? null)
+    : null;
 
 export const insertAudit = (db: Db, row: typeof auditLog.$inferInsert) => db.insert(auditLog).values(row).run();
 export const auditPage = (db: Db, limit: number, offset: number) =>
-  db.select({ entry: auditLog, actorName: user.name, actorEmail: user.email }).from(auditLog).innerJoin(user, eq(user.id, auditLog.actorId))
-    .orderBy(desc(auditLog.createdAt), desc(sql`audit_log.rowid`)).limit(limit).offset(offset).all();
+  db
+    .select({ entry: auditLog, actorName: user.name, actorEmail: user.email })
+    .from(auditLog)
+    .innerJoin(user, eq(user.id, auditLog.actorId))
+    .orderBy(desc(auditLog.createdAt), desc(sql`audit_log.rowid`))
+    .limit(limit)
+    .offset(offset)
+    .all();
 export const auditCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(auditLog).get()?.n ?? 0;
 export const shopNames = (db: Db, ids: string[]) => (ids.length ? db.select({ id: shops.id, name: shops.name }).from(shops).where(inArray(shops.id, ids)).all() : []);
-export const listingTitles = (db: Db, ids: string[]) =>
-  ids.length ? db.select({ id: listings.id, draft: listings.draft }).from(listings).where(inArray(listings.id, ids)).all() : [];
+export const listingTitles = (db: Db, ids: string[]) => (ids.length ? db.select({ id: listings.id, draft: listings.draft }).from(listings).where(inArray(listings.id, ids)).all() : []);
 
 /** Every shop, filtered by a case-insensitive substring of name, slug or owner e-mail and by state. */
 function shopFilter(q: string, state: string | undefined): SQL | undefined {
@@ -63,7 +106,14 @@ function shopFilter(q: string, state: string | undefined): SQL | undefined {
   return conds.length ? and(...conds) : undefined;
 }
 export const shopsPage = (db: Db, f: { q: string; state?: string }, limit: number, offset: number) =>
-  db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId))
-    .where(shopFilter(f.q, f.state)).orderBy(asc(sql`lower(${shops.name})`), asc(shops.id)).limit(limit).offset(offset).all();
+  db
+    .select({ shop: shops, ownerEmail: user.email, ownerName: user.name })
+    .from(shops)
+    .innerJoin(user, eq(user.id, shops.ownerId))
+    .where(shopFilter(f.q, f.state))
+    .orderBy(asc(sql`lower(${shops.name})`), asc(shops.id))
+    .limit(limit)
+    .offset(offset)
+    .all();
 export const shopsCount = (db: Db, f: { q: string; state?: string }) =>
   db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopFilter(f.q, f.state)).get()?.n ?? 0;

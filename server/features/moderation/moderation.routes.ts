@@ -1,12 +1,20 @@
 import { Router } from 'express';
+import {
+  approveShopSchema,
+  auditQuerySchema,
+  decisionSchema,
+  type ModerationShopsFilter,
+  moderationIdParams,
+  moderationShopsQuery,
+  optionalReasonSchema,
+  queueQuerySchema,
+  reasonSchema,
+  rejectDecisionSchema,
+} from '../../../shared/schemas/catalog.ts';
+import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import type { AppDeps } from '../../deps.ts';
 import { currentUser, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import {
-  approveShopSchema, auditQuerySchema, decisionSchema, moderationIdParams, moderationShopsQuery, optionalReasonSchema, queueQuerySchema, reasonSchema,
-  rejectDecisionSchema, type ModerationShopsFilter,
-} from '../../../shared/schemas/catalog.ts';
-import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import * as svc from './moderation.service.ts';
 
 /** /api/moderation: the moderation desk, admins only (403 for everyone else, 401 for guests). */

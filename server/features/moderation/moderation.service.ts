@@ -1,15 +1,13 @@
 import crypto from 'node:crypto';
+import { type ListingPage, type ModerationShopsFilter, type ModerationShopsPage, STALE_LISTING_MESSAGE, STALE_SHOP_CHANGE_MESSAGE } from '../../../shared/schemas/catalog.ts';
+import { type ListingContent, liveColumns } from '../../../shared/schemas/listing.ts';
+import { type PageQuery, pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
+import type { ShopState } from '../../../shared/schemas/shop.ts';
 import type { Db } from '../../db/client.ts';
+import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
+import type { SessionUser } from '../../http/auth-guards.ts';
 import type { Mailer } from '../../integrations/mailer.ts';
 import { escapeHtml, mailLayout } from '../../integrations/mailer.ts';
-import type { SessionUser } from '../../http/auth-guards.ts';
-import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
-import { liveColumns, type ListingContent } from '../../../shared/schemas/listing.ts';
-import {
-  STALE_LISTING_MESSAGE, STALE_SHOP_CHANGE_MESSAGE, type ListingPage, type ModerationShopsFilter, type ModerationShopsPage,
-} from '../../../shared/schemas/catalog.ts';
-import { pageOffset, toPage, type PageQuery } from '../../../shared/schemas/pagination.ts';
-import type { ShopState } from '../../../shared/schemas/shop.ts';
 import { listingPage } from '../catalog/index.ts';
 import * as repo from './moderation.repo.ts';
 
@@ -42,7 +40,13 @@ function notOwnShop(db: Db, actor: SessionUser, shopId: string) {
 /** Shops waiting for their first review, oldest first, a page at a time. */
 export function shopQueue(db: Db, q: PageQuery) {
   const rows = repo.shopsInReview(db, q.limit, pageOffset(q)).map(({ shop, ownerEmail, ownerName }) => ({
-    id: shop.id, name: shop.name, slug: shop.slug, state: shop.state, description: shop.description, owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+    id: shop.id,
+    name: shop.name,
+    slug: shop.slug,
+    state: shop.state,
+    description: shop.description,
+    owner: { name: ownerName, email: ownerEmail },
+    createdAt: shop.createdAt,
     /** the revision of the name/description shown; approving may name it */
     revision: shop.changeRevision,
   }));
@@ -52,7 +56,10 @@ export function shopQueue(db: Db, q: PageQuery) {
 /** Name/description changes of approved shops: the public shop keeps `before` until approval. */
 export function shopChangeQueue(db: Db, q: PageQuery) {
   const rows = repo.shopsWithChanges(db, q.limit, pageOffset(q)).map(({ shop, ownerEmail, ownerName }) => ({
-    id: shop.id, slug: shop.slug, state: shop.state, owner: { name: ownerName, email: ownerEmail },
+    id: shop.id,
+    slug: shop.slug,
+    state: shop.state,
+    owner: { name: ownerName, email: ownerEmail },
     revision: shop.changeRevision,
     before: { name: shop.name, description: shop.description },
     after: { name: shop.pendingChange?.name ?? shop.name, description: shop.pendingChange?.description ?? shop.description },
@@ -64,7 +71,10 @@ export function shopChangeQueue(db: Db, q: PageQuery) {
 
 function queueListing({ listing, shop }: { listing: repo.ListingRow; shop: repo.ShopRow }) {
   return {
-    id: listing.id, slug: listing.slug, state: listing.state, pendingReview: listing.pendingReview,
+    id: listing.id,
+    slug: listing.slug,
+    state: listing.state,
+    pendingReview: listing.pendingReview,
     /** the revision shown here; approve/reject must name it */
     revision: listing.revision,
     /** "new" waits for its first approval; "edit" is a change to a listing already on sale */
@@ -107,8 +117,13 @@ export function listingForReview(db: Db, actor: SessionUser, id: string): { list
 export function shops(db: Db, f: ModerationShopsFilter): ModerationShopsPage {
   const rows = repo.shopsPage(db, f, f.limit, pageOffset(f));
   const items = rows.map(({ shop, ownerEmail, ownerName }) => ({
-    id: shop.id, name: shop.name, slug: shop.slug, state: shop.state as ShopState, stateReason: shop.stateReason ?? null,
-    owner: { name: ownerName, email: ownerEmail }, createdAt: shop.createdAt,
+    id: shop.id,
+    name: shop.name,
+    slug: shop.slug,
+    state: shop.state as ShopState,
+    stateReason: shop.stateReason ?? null,
+    owner: { name: ownerName, email: ownerEmail },
+    createdAt: shop.createdAt,
   }));
   return toPage(items, repo.shopsCount(db, f), f);
 }
@@ -130,9 +145,14 @@ export async function approveListing(deps: Deps, actor: SessionUser, id: string,
   const row = deps.db.transaction((tx) => {
     const db = tx as unknown as Db;
     const updated = repo.updateListingAt(db, id, revision, {
-      live: l.draft, ...liveColumns(content), liveThumbPath: repo.thumbOf(db, l.shopId, content.photoIds[0]),
-      state: l.state === 'paused' ? 'paused' : 'live', pendingReview: false, rejectionReason: null,
-      publishedAt: l.publishedAt ?? at, updatedAt: at,
+      live: l.draft,
+      ...liveColumns(content),
+      liveThumbPath: repo.thumbOf(db, l.shopId, content.photoIds[0]),
+      state: l.state === 'paused' ? 'paused' : 'live',
+      pendingReview: false,
+      rejectionReason: null,
+      publishedAt: l.publishedAt ?? at,
+      updatedAt: at,
     });
     if (!updated) throw stale(STALE_LISTING_MESSAGE);
     audit(deps, actor, 'listing.approve', 'listing', id, null);
@@ -153,15 +173,18 @@ export async function rejectListing(deps: Deps, actor: SessionUser, id: string, 
   const at = deps.now();
   // a rejected edit leaves the approved copy on sale; a new listing goes back to the seller
   const row = deps.db.transaction((tx) => {
-    const updated = repo.updateListingAt(tx as unknown as Db, id, revision, l.live ? { pendingReview: false, rejectionReason: reason, updatedAt: at } : { state: 'rejected', rejectionReason: reason, updatedAt: at });
+    const updated = repo.updateListingAt(
+      tx as unknown as Db,
+      id,
+      revision,
+      l.live ? { pendingReview: false, rejectionReason: reason, updatedAt: at } : { state: 'rejected', rejectionReason: reason, updatedAt: at },
+    );
     if (!updated) throw stale(STALE_LISTING_MESSAGE);
     audit(deps, actor, 'listing.reject', 'listing', id, reason);
     return updated;
   });
   await tell(deps, l.shopId, `Changes needed: ${content.title}`, [
-    l.live
-      ? `Your changes to "${content.title}" were not approved. The approved version stays on sale.`
-      : `Your listing "${content.title}" was not approved yet.`,
+    l.live ? `Your changes to "${content.title}" were not approved. The approved version stays on sale.` : `Your listing "${content.title}" was not approved yet.`,
     `Reason from the moderator:\n${reason}`,
     'Edit the listing in your workroom and send it for review again.',
   ]);
@@ -219,7 +242,11 @@ export async function approveShopChange(deps: Deps, actor: SessionUser, id: stri
   const name = change.name ?? shop.name;
   const row = deps.db.transaction((tx) => {
     const updated = repo.updateShopAt(tx as unknown as Db, id, revision, {
-      name, description: change.description ?? shop.description, pendingChange: null, changeRejectionReason: null, updatedAt: deps.now(),
+      name,
+      description: change.description ?? shop.description,
+      pendingChange: null,
+      changeRejectionReason: null,
+      updatedAt: deps.now(),
     });
     if (!updated) throw stale(STALE_SHOP_CHANGE_MESSAGE);
     audit(deps, actor, 'shop.change.approve', 'shop', id, null);
@@ -259,8 +286,12 @@ export function auditLog(db: Db, q: PageQuery) {
     ...repo.listingTitles(db, listingIds).map((l) => [l.id, l.draft.title] as [string, string]),
   ]);
   const items = rows.map(({ entry, actorName, actorEmail }) => ({
-    id: entry.id, at: entry.createdAt, actor: { id: entry.actorId, name: actorName, email: actorEmail }, action: entry.action,
-    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null }, reason: entry.reason,
+    id: entry.id,
+    at: entry.createdAt,
+    actor: { id: entry.actorId, name: actorName, email: actorEmail },
+    action: entry.action,
+    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null },
+    reason: entry.reason,
   }));
   return toPage(items, repo.auditCount(db), q);
 }

@@ -3,10 +3,10 @@
 // checks the move against LINE_TRANSITIONS (shared/schemas/order.ts) and writes the line and its
 // timeline event in one transaction.
 import crypto from 'node:crypto';
+import { canMoveLine, type FIRST_LINE_STATE, LINE_STATE_LABELS, LINE_TRANSITIONS, type LineActor, type LineState } from '../../../shared/schemas/order.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError } from '../../http/app-error.ts';
-import { canMoveLine, type FIRST_LINE_STATE, LINE_STATE_LABELS, LINE_TRANSITIONS, type LineActor, type LineState } from '../../../shared/schemas/order.ts';
-import { ordersRepo, type OrderLineRow } from './orders.repo.ts';
+import { type OrderLineRow, ordersRepo } from './orders.repo.ts';
 
 export type LineMove = {
   /** the line as read by the caller; the write only lands while the line is still in this state */
@@ -44,8 +44,7 @@ export function assertMove(from: LineState, to: LineState, actor: LineActor): vo
 export function assertEachCanMove(lines: Array<{ id: string; state: string; name: string }>, to: LineState, actor: LineActor, lead: string): void {
   const wrong = lines.filter((l) => !canMoveLine(l.state as LineState, to, actor));
   if (!wrong.length) return;
-  throw new AppError(409, 'wrong_state', `${lead}: ${wrong.map((l) => `${l.name} (${l.state.replace(/_/g, ' ')})`).join(', ')}.`,
-    Object.fromEntries(wrong.map((l) => [`lineIds.${l.id}`, l.state])));
+  throw new AppError(409, 'wrong_state', `${lead}: ${wrong.map((l) => `${l.name} (${l.state.replace(/_/g, ' ')})`).join(', ')}.`, Object.fromEntries(wrong.map((l) => [`lineIds.${l.id}`, l.state])));
 }
 
 /**

@@ -1,16 +1,16 @@
 // The e-mails about orders: confirmation to the shopper, a new-order notice to each shop, refunds.
 // HTML and plain text; every value a person typed is escaped (a product rule: nothing typed may run
 // script anywhere, an e-mail client included).
-import { escapeHtml as esc, mailLayout, type Mail } from '../../integrations/mailer.ts';
+
 import { formatMoney } from '../../../shared/money.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { escapeHtml as esc, type Mail, mailLayout } from '../../integrations/mailer.ts';
 
 export type MailLine = { title: string; quantity: number; totalMinor: number; snapshot: LineSnapshot };
 export type MailOrder = { number: string; shopName: string; currency: string; subtotalMinor: number; shippingMinor: number; totalMinor: number; lines: MailLine[] };
 
 const personalisationText = (s: LineSnapshot) => s.summary.map((x) => `${x.label}: ${x.value}`).join('; ');
-const personalisationHtml = (s: LineSnapshot) =>
-  s.summary.map((x) => `<span style="white-space:nowrap">${esc(x.label)}: <strong>${esc(x.value)}</strong></span>`).join(' · ');
+const personalisationHtml = (s: LineSnapshot) => s.summary.map((x) => `<span style="white-space:nowrap">${esc(x.label)}: <strong>${esc(x.value)}</strong></span>`).join(' · ');
 
 function orderBlockHtml(o: MailOrder): string {
   const rows = o.lines
@@ -89,7 +89,11 @@ ${orderBlockHtml(o)}
   };
 }
 
-export function refundMail(to: { email: string; name: string }, r: { number: string; shopName: string; currency: string; amountMinor: number; what: string; reason: string | null; orderId: string }, baseUrl: string): Mail {
+export function refundMail(
+  to: { email: string; name: string },
+  r: { number: string; shopName: string; currency: string; amountMinor: number; what: string; reason: string | null; orderId: string },
+  baseUrl: string,
+): Mail {
   const amount = formatMoney(r.amountMinor, r.currency);
   const link = `${baseUrl}/orders/${encodeURIComponent(r.orderId)}`;
   return {

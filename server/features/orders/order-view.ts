@@ -1,9 +1,10 @@
 // Orders as the API shows them (shopper pages, the seller's refund answer).
-import type { Db } from '../../db/client.ts';
+
 import { parseShipTo } from '../../../shared/schemas/checkout.ts';
 import type { LineState, OrderDetail, OrderEvent, OrderSummary } from '../../../shared/schemas/order.ts';
-import { pageOffset, toPage, type Page, type PageQuery } from '../../../shared/schemas/pagination.ts';
-import { ordersRepo, type OrderLineRow, type OrderRow } from './orders.repo.ts';
+import { type Page, type PageQuery, pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
+import type { Db } from '../../db/client.ts';
+import { type OrderLineRow, type OrderRow, ordersRepo } from './orders.repo.ts';
 
 type ShopRow = ReturnType<typeof ordersRepo.shopsByIds>[number];
 
@@ -24,16 +25,28 @@ function summary(o: OrderRow, shop: ShopRow | undefined, lines: OrderLineRow[]):
 /** One page of the shopper's orders, newest first. */
 export function listOrders(db: Db, buyerId: string, q: PageQuery): Page<OrderSummary> {
   const os = ordersRepo.forBuyer(db, buyerId, q.limit, pageOffset(q));
-  const lines = ordersRepo.lines(db, os.map((o) => o.id));
+  const lines = ordersRepo.lines(
+    db,
+    os.map((o) => o.id),
+  );
   const shops = new Map(ordersRepo.shopsByIds(db, [...new Set(os.map((o) => o.shopId))]).map((s) => [s.id, s]));
-  const items = os.map((o) => summary(o, shops.get(o.shopId), lines.filter((l) => l.orderId === o.id)));
+  const items = os.map((o) =>
+    summary(
+      o,
+      shops.get(o.shopId),
+      lines.filter((l) => l.orderId === o.id),
+    ),
+  );
   return toPage(items, ordersRepo.countForBuyer(db, buyerId), q);
 }
 
 export function orderDetail(db: Db, o: OrderRow): OrderDetail {
   const lines = ordersRepo.lines(db, [o.id]);
   const shop = ordersRepo.shopsByIds(db, [o.shopId])[0];
-  const events = ordersRepo.events(db, lines.map((l) => l.id));
+  const events = ordersRepo.events(
+    db,
+    lines.map((l) => l.id),
+  );
   const actor = (id: string | null): OrderEvent['actor'] => (id === null ? null : id === o.buyerId ? 'you' : id === shop?.ownerId ? 'shop' : 'namesake');
   const refunded = ordersRepo.refundsOf(db, o.id).reduce((a, r) => a + r.amountMinor, 0);
   return {

@@ -1,7 +1,7 @@
 // Every database call for orders, their lines, versions, events and ledger rows.
 import { and, desc, eq, inArray, isNull, sql } from 'drizzle-orm';
-import type { Db } from '../../db/client.ts';
 import type { FIRST_LINE_STATE, LineState } from '../../../shared/schemas/order.ts';
+import type { Db } from '../../db/client.ts';
 import { checkouts, ledger, lineEvents, lineVersions, orderLines, orders, refunds, shops, user } from '../../db/schema.ts';
 
 export type OrderRow = typeof orders.$inferSelect;
@@ -39,10 +39,18 @@ export const ordersRepo = {
   ledgerOf: (db: Db, orderId: string) => db.select().from(ledger).where(eq(ledger.orderId, orderId)).all(),
   /** claims the order's transfer slot; false when another delivery already recorded it */
   setTransfer: (db: Db, orderId: string, transferId: string) =>
-    db.update(orders).set({ transferId }).where(and(eq(orders.id, orderId), isNull(orders.transferId))).run().changes === 1,
+    db
+      .update(orders)
+      .set({ transferId })
+      .where(and(eq(orders.id, orderId), isNull(orders.transferId)))
+      .run().changes === 1,
   /** writes a state move only while the line is still in `from`; false when another move got there first (only line-state.ts transition() calls it) */
   moveLine: (db: Db, lineId: string, from: LineState, set: LineColumns & { state: LineState }) =>
-    db.update(orderLines).set(set).where(and(eq(orderLines.id, lineId), eq(orderLines.state, from))).run().changes === 1,
+    db
+      .update(orderLines)
+      .set(set)
+      .where(and(eq(orderLines.id, lineId), eq(orderLines.state, from)))
+      .run().changes === 1,
   refundsOf: (db: Db, orderId: string) => db.select().from(refunds).where(eq(refunds.orderId, orderId)).all(),
   insertRefund: (db: Db, row: typeof refunds.$inferInsert) => db.insert(refunds).values(row).run(),
   refundByProviderId: (db: Db, id: string) => db.select().from(refunds).where(eq(refunds.providerRefundId, id)).get(),

@@ -1,9 +1,9 @@
 import { Router } from 'express';
+import { orderIdParams, ordersQuerySchema } from '../../../shared/schemas/order.ts';
+import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import type { AppDeps } from '../../deps.ts';
 import { currentUser, requireUser } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { orderIdParams, ordersQuerySchema } from '../../../shared/schemas/order.ts';
-import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import { shopperOrder, shopperOrders } from './orders.service.ts';
 
 /** /api/orders — the signed-in shopper's own orders. */

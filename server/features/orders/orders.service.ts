@@ -1,15 +1,15 @@
 // Orders are made from a paid checkout: one order per shop, lines waiting for the proof check.
 import crypto from 'node:crypto';
-import type { Db } from '../../db/client.ts';
-import { splitForShop } from '../../../shared/money.ts';
 import { shipByDate as businessShipBy } from '../../../shared/business/working-days.ts';
+import { splitForShop } from '../../../shared/money.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
-import { notFound } from '../../http/app-error.ts';
-import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import { FIRST_LINE_STATE } from '../../../shared/schemas/order.ts';
-import { ordersRepo, type OrderRow } from './orders.repo.ts';
-import { listOrders, orderDetail } from './order-view.ts';
+import type { PageQuery } from '../../../shared/schemas/pagination.ts';
+import type { Db } from '../../db/client.ts';
+import { notFound } from '../../http/app-error.ts';
 import { recordFirstState } from './line-state.ts';
+import { listOrders, orderDetail } from './order-view.ts';
+import { type OrderRow, ordersRepo } from './orders.repo.ts';
 
 export type PricedShop = {
   shopId: string;
@@ -32,8 +32,18 @@ export function shipByDate(paidAt: number, days: number, workingDays: number[], 
  * Creates the orders of one paid checkout. Runs inside the webhook's transaction (the caller's
  * `db` is the transaction), so the orders and the processed event id commit together or not at all.
  */
-export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buyerId: string; currency: string; shops: PricedShop[]; paidAt: number; feeBps: number; paymentIntentId: string | null; timeZone?: string }): OrderRow[] {
-  const shopRows = new Map(ordersRepo.shopsByIds(db, args.shops.map((s) => s.shopId)).map((s) => [s.id, s]));
+export function createOrdersForCheckout(
+  db: Db,
+  args: { checkoutId: string; buyerId: string; currency: string; shops: PricedShop[]; paidAt: number; feeBps: number; paymentIntentId: string | null; timeZone?: string },
+): OrderRow[] {
+  const shopRows = new Map(
+    ordersRepo
+      .shopsByIds(
+        db,
+        args.shops.map((s) => s.shopId),
+      )
+      .map((s) => [s.id, s]),
+  );
   const made: OrderRow[] = [];
   for (const s of args.shops) {
     const shop = shopRows.get(s.shopId);
@@ -73,7 +83,17 @@ export function createOrdersForCheckout(db: Db, args: { checkoutId: string; buye
       ordersRepo.insertVersion(db, { id: crypto.randomUUID(), lineId, version: 1, snapshot: l.snapshot, authorId: args.buyerId, createdAt: args.paidAt });
       recordFirstState(db, { id: lineId, state: FIRST_LINE_STATE }, null, args.paidAt, 'Paid. The shop will check the personalisation before cutting.');
     }
-    ordersRepo.insertLedger(db, { id: crypto.randomUUID(), shopId: s.shopId, orderId, kind: 'charge', amountMinor: split.shopTotalMinor, currency: args.currency, providerRef: args.paymentIntentId, memo: 'shopper paid (lines + shipping)', createdAt: args.paidAt });
+    ordersRepo.insertLedger(db, {
+      id: crypto.randomUUID(),
+      shopId: s.shopId,
+      orderId,
+      kind: 'charge',
+      amountMinor: split.shopTotalMinor,
+      currency: args.currency,
+      providerRef: args.paymentIntentId,
+      memo: 'shopper paid (lines + shipping)',
+      createdAt: args.paidAt,
+    });
     made.push(ordersRepo.find(db, orderId)!);
   }
   return made;

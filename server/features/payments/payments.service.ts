@@ -17,15 +17,15 @@
 // is brought to what is due.
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../deps.ts';
-import type { Db } from '../../db/client.ts';
-import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
+import type { Db } from '../../db/client.ts';
+import type { AppDeps } from '../../deps.ts';
+import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 // payments drives orders, refunds and payouts (one-way: none of them imports payments)
-import { confirmationMail, createOrdersForCheckout, newOrderMail, ordersRepo, type MailOrder } from '../orders/index.ts';
-import { recordProviderRefund } from '../refunds/index.ts';
+import { confirmationMail, createOrdersForCheckout, type MailOrder, newOrderMail, ordersRepo } from '../orders/index.ts';
 import { settleOrder } from '../payouts/index.ts';
-import { paymentsRepo, type CheckoutRow } from './payments.repo.ts';
+import { recordProviderRefund } from '../refunds/index.ts';
+import { type CheckoutRow, paymentsRepo } from './payments.repo.ts';
 
 export type PaymentsDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'>;
 
@@ -90,11 +90,26 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       });
       // the platform's fee is earned with the charge; what is paid out follows in settle
       for (const o of made) {
-        ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: o.shopId, orderId: o.id, kind: 'platform_fee', amountMinor: o.platformFeeMinor, currency: o.currency, providerRef: pi, memo: `fee ${deps.env.PLATFORM_FEE_BPS} bps`, createdAt: at });
+        ordersRepo.insertLedger(t, {
+          id: crypto.randomUUID(),
+          shopId: o.shopId,
+          orderId: o.id,
+          kind: 'platform_fee',
+          amountMinor: o.platformFeeMinor,
+          currency: o.currency,
+          providerRef: pi,
+          memo: `fee ${deps.env.PLATFORM_FEE_BPS} bps`,
+          createdAt: at,
+        });
       }
       const shipTo = shipToOf(session);
       if (shipTo) paymentsRepo.setShipTo(t, c.id, shipTo);
-      paymentsRepo.removeCartLines(t, c.cartId, c.priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)), at);
+      paymentsRepo.removeCartLines(
+        t,
+        c.cartId,
+        c.priced.shops.flatMap((s) => s.lines.map((l) => l.cartLineId)),
+        at,
+      );
       created = true;
       return true;
     });
@@ -186,8 +201,18 @@ async function sendOrderMails(deps: PaymentsDeps, checkoutId: string): Promise<v
   const { db } = deps;
   const c = paymentsRepo.checkout(db, checkoutId)!;
   const orders = ordersRepo.ofCheckout(db, checkoutId);
-  const lines = ordersRepo.lines(db, orders.map((o) => o.id));
-  const shops = new Map(ordersRepo.shopsByIds(db, orders.map((o) => o.shopId)).map((s) => [s.id, s]));
+  const lines = ordersRepo.lines(
+    db,
+    orders.map((o) => o.id),
+  );
+  const shops = new Map(
+    ordersRepo
+      .shopsByIds(
+        db,
+        orders.map((o) => o.shopId),
+      )
+      .map((s) => [s.id, s]),
+  );
   const buyer = ordersRepo.userEmail(db, c.userId);
   const mailOrders: Array<MailOrder & { shopId: string; feeMinor: number }> = orders.map((o) => ({
     shopId: o.shopId,

@@ -1,3 +1,3 @@
 // Public module of the payouts feature: what each shop is paid for an order, brought up to date after
 // a payment (payments) or a refund (refunds).
-export { settleOrder, PayoutError, type PayoutDeps } from './payouts.service.ts';
+export { type PayoutDeps, PayoutError, settleOrder } from './payouts.service.ts';

@@ -12,14 +12,14 @@
 // next settle) starts afresh from what is due then, under a new key.
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../deps.ts';
-import type { Db } from '../../db/client.ts';
-import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 import { payoutDue } from '../../../shared/money.ts';
-// payouts read orders and the checkout's transfer group (one-way: neither imports payouts)
-import { ordersRepo, type OrderRow } from '../orders/index.ts';
+import type { Db } from '../../db/client.ts';
+import type { AppDeps } from '../../deps.ts';
+import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 import { transferGroupOf } from '../checkout/index.ts';
-import { payoutsRepo, type PayoutStep } from './payouts.repo.ts';
+// payouts read orders and the checkout's transfer group (one-way: neither imports payouts)
+import { type OrderRow, ordersRepo } from '../orders/index.ts';
+import { type PayoutStep, payoutsRepo } from './payouts.repo.ts';
 
 export type PayoutDeps = Pick<AppDeps, 'db' | 'now' | 'env'>;
 
@@ -67,9 +67,29 @@ function recordStep(deps: PayoutDeps, o: OrderRow, step: PayoutStep, providerId:
     if (!payoutsRepo.clearPayoutStep(t, o.id, step.key)) return;
     if (step.kind === 'transfer') {
       ordersRepo.setTransfer(t, o.id, providerId);
-      ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: o.shopId, orderId: o.id, kind: 'transfer', amountMinor: step.amountMinor, currency: o.currency, providerRef: providerId, memo: 'payout to the shop', createdAt: at });
+      ordersRepo.insertLedger(t, {
+        id: crypto.randomUUID(),
+        shopId: o.shopId,
+        orderId: o.id,
+        kind: 'transfer',
+        amountMinor: step.amountMinor,
+        currency: o.currency,
+        providerRef: providerId,
+        memo: 'payout to the shop',
+        createdAt: at,
+      });
     } else {
-      ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: o.shopId, orderId: o.id, kind: 'refund_reversal', amountMinor: -step.amountMinor, currency: o.currency, providerRef: providerId, memo: 'taken back from the shop payout (refund)', createdAt: at });
+      ordersRepo.insertLedger(t, {
+        id: crypto.randomUUID(),
+        shopId: o.shopId,
+        orderId: o.id,
+        kind: 'refund_reversal',
+        amountMinor: -step.amountMinor,
+        currency: o.currency,
+        providerRef: providerId,
+        memo: 'taken back from the shop payout (refund)',
+        createdAt: at,
+      });
     }
   });
 }

@@ -1,8 +1,8 @@
 import { Router } from 'express';
+import { orderIdParams, refundSchema } from '../../../shared/schemas/order.ts';
 import type { AppDeps } from '../../deps.ts';
 import { currentUser, requireUser } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { orderIdParams, refundSchema } from '../../../shared/schemas/order.ts';
 import { refundOrder } from './refunds.service.ts';
 
 /** POST /api/orders/:id/refunds — the order's shop or an admin. */

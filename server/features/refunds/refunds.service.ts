@@ -13,17 +13,17 @@
 // charge.refunded webhook, whichever comes first (matched by the intent id in the refund's metadata).
 import crypto from 'node:crypto';
 import type Stripe from 'stripe';
-import type { AppDeps } from '../../deps.ts';
+import { shopShareOfRefunds } from '../../../shared/money.ts';
+import { canMoveLine, type LineState, type RefundInput, type RefundResult } from '../../../shared/schemas/order.ts';
 import type { Db } from '../../db/client.ts';
+import type { AppDeps } from '../../deps.ts';
 import { AppError, conflict, forbidden, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
-import { shopShareOfRefunds } from '../../../shared/money.ts';
-import { canMoveLine, type LineState, type RefundInput, type RefundResult } from '../../../shared/schemas/order.ts';
 // refunds work on orders and pay out through payments' payouts (one-way), through their public modules
-import { assertMove, orderDetail, ordersRepo, refundMail, transitionAll, type OrderLineRow, type OrderRow } from '../orders/index.ts';
+import { assertMove, type OrderLineRow, type OrderRow, orderDetail, ordersRepo, refundMail, transitionAll } from '../orders/index.ts';
 import { settleOrder } from '../payouts/index.ts';
-import { refundsRepo, type RefundIntentRow } from './refunds.repo.ts';
+import { type RefundIntentRow, refundsRepo } from './refunds.repo.ts';
 
 export type RefundDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'> & {
   /** For tests: runs after the provider refunded and before our own write (to make that write fail). */
@@ -109,7 +109,11 @@ export async function refundOrder(deps: RefundDeps, actor: SessionUser, orderId:
       refundsRepo.markFailed(db, intent.id, providerMessage(e), deps.now());
       throw new AppError(502, 'payment_provider', `The payment provider refused the refund: ${providerMessage(e)} Nothing was refunded; you can try again.`);
     }
-    throw new AppError(502, 'payment_provider', 'We could not confirm the refund with the payment provider. It is kept as started: send the same refund again to finish it; it will never be made twice.');
+    throw new AppError(
+      502,
+      'payment_provider',
+      'We could not confirm the refund with the payment provider. It is kept as started: send the same refund again to finish it; it will never be made twice.',
+    );
   }
   deps.beforeLocalWrite?.();
   await recordProviderRefund(deps, intent.id, { id: refund.id, amount: refund.amount });
@@ -122,7 +126,12 @@ export async function refundOrder(deps: RefundDeps, actor: SessionUser, orderId:
  * shopper's e-mail and the shop's payout brought to what is due. Returns false when it was recorded
  * already (or the refund does not match the intent, or `orderIds` does not hold its order).
  */
-export async function recordProviderRefund(deps: Pick<RefundDeps, 'db' | 'now' | 'env' | 'mailer'>, intentId: string, refund: { id: string; amount: number }, orderIds?: Set<string>): Promise<boolean> {
+export async function recordProviderRefund(
+  deps: Pick<RefundDeps, 'db' | 'now' | 'env' | 'mailer'>,
+  intentId: string,
+  refund: { id: string; amount: number },
+  orderIds?: Set<string>,
+): Promise<boolean> {
   const { db } = deps;
   const at = deps.now();
   const done = db.transaction(
@@ -143,17 +152,55 @@ export async function recordProviderRefund(deps: Pick<RefundDeps, 'db' | 'now' |
       const shopShare = shopShareOfRefunds(order, before + intent.amountMinor) - shopShareOfRefunds(order, before);
       const feeReturned = intent.amountMinor - shopShare;
       refundsRepo.markSucceeded(t, intent.id, refund.id, at);
-      ordersRepo.insertRefund(t, { id: crypto.randomUUID(), orderId: order.id, lineId: intent.lineId, amountMinor: intent.amountMinor, providerRefundId: refund.id, actorId: intent.actorId, reason: intent.reason, createdAt: at });
-      ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: order.shopId, orderId: order.id, kind: 'refund', amountMinor: -intent.amountMinor, currency: order.currency, providerRef: refund.id, memo: intent.lineId ? 'refund of one item' : 'refund of the order', createdAt: at });
-      if (feeReturned > 0) ordersRepo.insertLedger(t, { id: crypto.randomUUID(), shopId: order.shopId, orderId: order.id, kind: 'platform_fee', amountMinor: -feeReturned, currency: order.currency, providerRef: refund.id, memo: 'fee returned on the refunded part', createdAt: at });
+      ordersRepo.insertRefund(t, {
+        id: crypto.randomUUID(),
+        orderId: order.id,
+        lineId: intent.lineId,
+        amountMinor: intent.amountMinor,
+        providerRefundId: refund.id,
+        actorId: intent.actorId,
+        reason: intent.reason,
+        createdAt: at,
+      });
+      ordersRepo.insertLedger(t, {
+        id: crypto.randomUUID(),
+        shopId: order.shopId,
+        orderId: order.id,
+        kind: 'refund',
+        amountMinor: -intent.amountMinor,
+        currency: order.currency,
+        providerRef: refund.id,
+        memo: intent.lineId ? 'refund of one item' : 'refund of the order',
+        createdAt: at,
+      });
+      if (feeReturned > 0)
+        ordersRepo.insertLedger(t, {
+          id: crypto.randomUUID(),
+          shopId: order.shopId,
+          orderId: order.id,
+          kind: 'platform_fee',
+          amountMinor: -feeReturned,
+          currency: order.currency,
+          providerRef: refund.id,
+          memo: 'fee returned on the refunded part',
+          createdAt: at,
+        });
       const lines = ordersRepo.lines(t, [order.id]);
       // the remainder covers every line not refunded and not claimed by a line refund of its own
-      const claimedLines = new Set(refundsRepo.intentsOf(t, order.id).filter((i) => i.state === 'pending' && i.lineId).map((i) => i.lineId));
+      const claimedLines = new Set(
+        refundsRepo
+          .intentsOf(t, order.id)
+          .filter((i) => i.state === 'pending' && i.lineId)
+          .map((i) => i.lineId),
+      );
       // the app records the move the provider's refund makes (on behalf of the shop or admin who
       // asked); a line the table can't move to refunded (refunded or cancelled already) is left as it is
       const refundable = (l: OrderLineRow) => canMoveLine(l.state as LineState, 'refunded', 'system');
       const targets: OrderLineRow[] = intent.lineId ? lines.filter((l) => l.id === intent.lineId && refundable(l)) : lines.filter((l) => refundable(l) && !claimedLines.has(l.id));
-      transitionAll(t, targets.map((l) => ({ line: l, to: 'refunded' as const, actor: 'system' as const, actorId: intent.actorId, at, message: intent.reason ?? 'Refunded.', set: { refundedMinor: l.totalMinor } })));
+      transitionAll(
+        t,
+        targets.map((l) => ({ line: l, to: 'refunded' as const, actor: 'system' as const, actorId: intent.actorId, at, message: intent.reason ?? 'Refunded.', set: { refundedMinor: l.totalMinor } })),
+      );
       refundsRepo.insertAudit(t, { id: crypto.randomUUID(), actorId: intent.actorId, action: 'order.refund', subjectType: 'order', subjectId: order.id, reason: intent.reason, createdAt: at });
       return { intent, order, what: intent.lineId ? (lines.find((l) => l.id === intent.lineId)?.listingTitle ?? null) : null };
     },
@@ -166,7 +213,21 @@ export async function recordProviderRefund(deps: Pick<RefundDeps, 'db' | 'now' |
   const shop = refundsRepo.shop(db, order.shopId);
   if (buyer) {
     await deps.mailer
-      .send(refundMail(buyer, { number: order.number, shopName: shop?.name ?? 'The shop', currency: order.currency, amountMinor: intent.amountMinor, what: done.what ? `“${done.what}”` : 'your whole order', reason: intent.reason, orderId: order.id }, deps.env.baseUrl))
+      .send(
+        refundMail(
+          buyer,
+          {
+            number: order.number,
+            shopName: shop?.name ?? 'The shop',
+            currency: order.currency,
+            amountMinor: intent.amountMinor,
+            what: done.what ? `“${done.what}”` : 'your whole order',
+            reason: intent.reason,
+            orderId: order.id,
+          },
+          deps.env.baseUrl,
+        ),
+      )
       .catch((e: unknown) => console.error('refunds: e-mail failed', e));
   }
   // the shop's share comes back from its payout now, or the next payout is made smaller

@@ -1,12 +1,12 @@
 import { Router } from 'express';
+import { shopSettingsSchema } from '../../../shared/schemas/shop.ts';
 import type { AppDeps } from '../../deps.ts';
+import { perAccountLimit } from '../../http/account-rate-limit.ts';
+import { badRequest } from '../../http/app-error.ts';
 import { currentUser, ownShop, requireRole } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { badRequest } from '../../http/app-error.ts';
 import { createStorage, IMAGE_LIMITS, singleFile } from '../../integrations/storage.ts';
-import { shopSettingsSchema } from '../../../shared/schemas/shop.ts';
 import { replaceLogo, toOwnShop, updateSettings } from './shops.service.ts';
-import { perAccountLimit } from '../../http/account-rate-limit.ts';
 
 /** The seller's own shop: /api/shop. (The public page is the catalogue's GET /api/shops/:slug.) */
 export function shopsRouter(deps: AppDeps): Router {
@@ -20,9 +20,15 @@ export function shopsRouter(deps: AppDeps): Router {
   r.patch('/', validate({ body: shopSettingsSchema }), (req, res) => {
     res.json({ shop: updateSettings(deps, ownShop(deps.db, req), req.body) });
   });
-  r.post('/logo', (req, _res, next) => (ownShop(deps.db, req), next()), perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads'), singleFile(IMAGE_LIMITS.maxBytes), async (req, res) => {
-    if (!req.file) throw badRequest('Choose an image file.', { file: 'Choose an image file.' });
-    res.json({ shop: await replaceLogo({ ...deps, storage }, currentUser(req), ownShop(deps.db, req), req.file.buffer) });
-  });
+  r.post(
+    '/logo',
+    (req, _res, next) => (ownShop(deps.db, req), next()),
+    perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads'),
+    singleFile(IMAGE_LIMITS.maxBytes),
+    async (req, res) => {
+      if (!req.file) throw badRequest('Choose an image file.', { file: 'Choose an image file.' });
+      res.json({ shop: await replaceLogo({ ...deps, storage }, currentUser(req), ownShop(deps.db, req), req.file.buffer) });
+    },
+  );
   return r;
 }

@@ -1,10 +1,10 @@
 import crypto from 'node:crypto';
-import type { Db } from '../../db/client.ts';
-import type { ShopRow, SessionUser } from '../../http/auth-guards.ts';
-import { badRequest, conflict } from '../../http/app-error.ts';
-import { uploadUrl, type Storage } from '../../integrations/storage.ts';
 import type { OwnShop, ShopSettingsInput, ShopState } from '../../../shared/schemas/shop.ts';
-import { findOwnUpload, insertUpload, slugTakenByOther, updateShop, type ShopChange } from './shops.repo.ts';
+import type { Db } from '../../db/client.ts';
+import { badRequest, conflict } from '../../http/app-error.ts';
+import type { SessionUser, ShopRow } from '../../http/auth-guards.ts';
+import { type Storage, uploadUrl } from '../../integrations/storage.ts';
+import { findOwnUpload, insertUpload, type ShopChange, slugTakenByOther, updateShop } from './shops.repo.ts';
 
 export function toOwnShop(s: ShopRow): OwnShop {
   return {
@@ -79,8 +79,17 @@ export async function replaceLogo(deps: { db: Db; now: () => number; storage: St
   const img = await deps.storage.saveImage(buf);
   const at = deps.now();
   insertUpload(deps.db, {
-    id: crypto.randomUUID(), ownerId: user.id, shopId: shop.id, kind: 'logo', path: img.fileName, thumbPath: img.thumbName,
-    mime: img.mime, width: img.width, height: img.height, bytes: img.bytes, createdAt: at,
+    id: crypto.randomUUID(),
+    ownerId: user.id,
+    shopId: shop.id,
+    kind: 'logo',
+    path: img.fileName,
+    thumbPath: img.thumbName,
+    mime: img.mime,
+    width: img.width,
+    height: img.height,
+    bytes: img.bytes,
+    createdAt: at,
   });
   return toOwnShop(updateShop(deps.db, shop.id, { logoPath: img.thumbName, updatedAt: at })!);
 }

@@ -1,12 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { MOTIF_LIMITS } from '../../../shared/engine/motif.ts';
 import type { AppDeps } from '../../deps.ts';
+import { perAccountLimit } from '../../http/account-rate-limit.ts';
+import { badRequest } from '../../http/app-error.ts';
 import { currentUser, ownShop, requireRole, shopOfRequester } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { badRequest } from '../../http/app-error.ts';
 import { createStorage, IMAGE_LIMITS, singleFile, uploadsRouter } from '../../integrations/storage.ts';
-import { MOTIF_LIMITS } from '../../../shared/engine/motif.ts';
-import { perAccountLimit } from '../../http/account-rate-limit.ts';
 import * as svc from './uploads.service.ts';
 
 const idParams = z.object({ id: z.string().min(1).max(64) });
@@ -23,11 +23,17 @@ export function uploadsApiRouter(deps: AppDeps): { uploads: Router; motifs: Rout
   const up = Router();
   up.use(requireRole('seller'));
   // the shop is checked before multer reads a byte, so a user without a shop uploads nothing
-  up.post('/', (req, _res, next) => (ownShop(deps.db, req), next()), uploadLimit, singleFile(IMAGE_LIMITS.maxBytes), async (req, res) => {
-    const { kind } = photoKind.parse(req.body ?? {});
-    if (!req.file) throw badRequest('Choose an image file.', { file: 'Choose an image file.' });
-    res.status(201).json({ upload: await svc.savePhoto({ ...deps, storage }, currentUser(req), ownShop(deps.db, req).id, kind, req.file.buffer) });
-  });
+  up.post(
+    '/',
+    (req, _res, next) => (ownShop(deps.db, req), next()),
+    uploadLimit,
+    singleFile(IMAGE_LIMITS.maxBytes),
+    async (req, res) => {
+      const { kind } = photoKind.parse(req.body ?? {});
+      if (!req.file) throw badRequest('Choose an image file.', { file: 'Choose an image file.' });
+      res.status(201).json({ upload: await svc.savePhoto({ ...deps, storage }, currentUser(req), ownShop(deps.db, req).id, kind, req.file.buffer) });
+    },
+  );
   up.get('/', (req, res) => {
     res.json({ uploads: svc.listPhotos(deps.db, ownShop(deps.db, req).id) });
   });
@@ -45,11 +51,17 @@ export function uploadsApiRouter(deps: AppDeps): { uploads: Router; motifs: Rout
     res.type('image/svg+xml').send(svg);
   });
   motifs.use(requireRole('seller'));
-  motifs.post('/', (req, _res, next) => (ownShop(deps.db, req), next()), uploadLimit, singleFile(MOTIF_LIMITS.maxBytes), async (req, res) => {
-    const { name } = motifName.parse(req.body ?? {});
-    if (!req.file) throw badRequest('Choose an SVG file.', { file: 'Choose an SVG file.' });
-    res.status(201).json(await svc.saveMotif(deps, ownShop(deps.db, req).id, name, req.file.buffer));
-  });
+  motifs.post(
+    '/',
+    (req, _res, next) => (ownShop(deps.db, req), next()),
+    uploadLimit,
+    singleFile(MOTIF_LIMITS.maxBytes),
+    async (req, res) => {
+      const { name } = motifName.parse(req.body ?? {});
+      if (!req.file) throw badRequest('Choose an SVG file.', { file: 'Choose an SVG file.' });
+      res.status(201).json(await svc.saveMotif(deps, ownShop(deps.db, req).id, name, req.file.buffer));
+    },
+  );
   motifs.get('/', (req, res) => {
     res.json({ motifs: svc.listOwnMotifs(deps.db, ownShop(deps.db, req).id) });
   });

@@ -1,26 +1,55 @@
 import crypto from 'node:crypto';
+import { checkMotifBounds, MOTIF_LIMIT_CODES, MotifError, type MotifGeometry, renderMotifSvg } from '../../../shared/engine/motif.ts';
 import type { Db } from '../../db/client.ts';
-import type { SessionUser } from '../../http/auth-guards.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
-import { uploadUrl, type Storage } from '../../integrations/storage.ts';
-import { checkMotifBounds, MOTIF_LIMIT_CODES, MotifError, renderMotifSvg, type MotifGeometry } from '../../../shared/engine/motif.ts';
+import type { SessionUser } from '../../http/auth-guards.ts';
+import { type Storage, uploadUrl } from '../../integrations/storage.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 import {
-  deleteMotif, deleteUpload, findMotif, findMotifAnyShop, findUpload, insertMotif, insertUpload, listingsMentioning,
-  listMotifs, listUploads, motifOnSale, type MotifRow, type UploadRow,
+  deleteMotif,
+  deleteUpload,
+  findMotif,
+  findMotifAnyShop,
+  findUpload,
+  insertMotif,
+  insertUpload,
+  listingsMentioning,
+  listMotifs,
+  listUploads,
+  type MotifRow,
+  motifOnSale,
+  type UploadRow,
 } from './uploads.repo.ts';
 
 export type UploadView = { id: string; kind: string; url: string; thumbnailUrl: string; width: number; height: number; bytes: number; createdAt: number };
 export const toUpload = (u: UploadRow): UploadView => ({
-  id: u.id, kind: u.kind, url: uploadUrl(u.path)!, thumbnailUrl: uploadUrl(u.thumbPath)!, width: u.width, height: u.height, bytes: u.bytes, createdAt: u.createdAt,
+  id: u.id,
+  kind: u.kind,
+  url: uploadUrl(u.path)!,
+  thumbnailUrl: uploadUrl(u.thumbPath)!,
+  width: u.width,
+  height: u.height,
+  bytes: u.bytes,
+  createdAt: u.createdAt,
 });
 
 export async function savePhoto(deps: { db: Db; now: () => number; storage: Storage }, user: SessionUser, shopId: string, kind: 'photo' | 'logo', buf: Buffer) {
   const img = await deps.storage.saveImage(buf);
-  return toUpload(insertUpload(deps.db, {
-    id: crypto.randomUUID(), ownerId: user.id, shopId, kind, path: img.fileName, thumbPath: img.thumbName,
-    mime: img.mime, width: img.width, height: img.height, bytes: img.bytes, createdAt: deps.now(),
-  }));
+  return toUpload(
+    insertUpload(deps.db, {
+      id: crypto.randomUUID(),
+      ownerId: user.id,
+      shopId,
+      kind,
+      path: img.fileName,
+      thumbPath: img.thumbName,
+      mime: img.mime,
+      width: img.width,
+      height: img.height,
+      bytes: img.bytes,
+      createdAt: deps.now(),
+    }),
+  );
 }
 
 export const listPhotos = (db: Db, shopId: string) => listUploads(db, shopId).map(toUpload);
@@ -38,7 +67,6 @@ export function removePhoto(deps: { db: Db; storage: Storage }, shopId: string, 
 // ---------------------------------------------------------------- motifs
 const ACTIVE = /^(<script>|<foreignObject>|<iframe>|on\w+ attribute)$/i;
 
-
 export type MotifView = {
   id: string;
   name: string;
@@ -51,9 +79,13 @@ export type MotifView = {
 export function toMotif(m: MotifRow): MotifView {
   const g = m.geometry;
   return {
-    id: m.id, name: m.name, widthMm: g.widthMm, heightMm: g.heightMm,
+    id: m.id,
+    name: m.name,
+    widthMm: g.widthMm,
+    heightMm: g.heightMm,
     layers: g.layers.map((l) => ({ id: l.id, colour: l.colour, areaMm2: l.areaMm2, bboxMm: l.bboxMm })),
-    svgUrl: `/api/motifs/${m.id}/svg`, createdAt: m.createdAt,
+    svgUrl: `/api/motifs/${m.id}/svg`,
+    createdAt: m.createdAt,
   };
 }
 

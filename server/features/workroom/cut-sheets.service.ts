@@ -2,19 +2,19 @@
 // and marking sheets cut — which takes the vinyl from stock and moves a line to `cut` once all its
 // pieces are cut (through orders' transition()).
 import crypto from 'node:crypto';
-import type { Db } from '../../db/client.ts';
-import { AppError, conflict, notFound } from '../../http/app-error.ts';
-import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
-import type { MarkCutResult, StockWarning, StoredSheetPiece, WorkSheet } from '../../../shared/schemas/workroom.ts';
-import { CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM, type CutSheet } from '../../../shared/engine/cut-sheets.ts';
 import { cutOutline } from '../../../shared/engine/cut-path.ts';
 import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
+import { type CutSheet, CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM } from '../../../shared/engine/cut-sheets.ts';
 import { MAX_NEST_PIECES } from '../../../shared/engine/limits.ts';
+import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
+import type { MarkCutResult, StockWarning, StoredSheetPiece, WorkSheet } from '../../../shared/schemas/workroom.ts';
+import type { Db } from '../../db/client.ts';
+import { AppError, conflict, notFound } from '../../http/app-error.ts';
 import type { RawPiece } from '../../workers/tasks.ts';
-import { assertEachCanMove, transition } from '../orders/index.ts';
 import { TRIM_ALLOWANCE_MM } from '../../workers/worksheet-pdf.ts';
-import { workroomRepo as repo, type MaterialRow, type SheetRow } from './workroom.repo.ts';
+import { assertEachCanMove, transition } from '../orders/index.ts';
 import { lineSnapshot, type WorkroomDeps, type WorkroomPoolDeps } from './lines.service.ts';
+import { type MaterialRow, workroomRepo as repo, type SheetRow } from './workroom.repo.ts';
 
 /** Rounds a length to the micrometre, as stored. */
 export const r3 = (v: number) => Math.round(v * 1000) / 1000;
@@ -54,7 +54,17 @@ export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string
     lengthMm: s.lengthMm,
     utilisation: s.utilisation,
     piecesAreaMm2: s.utilisation * s.rollWidthMm * s.lengthMm,
-    placements: stored.map((p) => ({ pieceId: p.pieceId, lineId: p.lineId, orderNumber: p.orderNumber, layerId: p.layerId, xMm: p.xMm, yMm: p.yMm, widthMm: p.widthMm, heightMm: p.heightMm, rotated: p.rotated })),
+    placements: stored.map((p) => ({
+      pieceId: p.pieceId,
+      lineId: p.lineId,
+      orderNumber: p.orderNumber,
+      layerId: p.layerId,
+      xMm: p.xMm,
+      yMm: p.yMm,
+      widthMm: p.widthMm,
+      heightMm: p.heightMm,
+      rotated: p.rotated,
+    })),
     pieces: stored.map((p) => ({ id: p.pieceId, path: p.path })),
   };
 }
@@ -69,14 +79,20 @@ export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, lin
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
   // a line goes on a sheet when cutting is its next move
-  assertEachCanMove(rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })), 'cut', 'shop', 'Only approved lines go on cut sheets');
+  assertEachCanMove(
+    rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })),
+    'cut',
+    'shop',
+    'Only approved lines go on cut sheets',
+  );
   const mats = new Map(repo.materialsOfShop(db, shopId).map((m) => [m.id, m]));
   const groups = new Map<string, { material: MaterialRow; pieces: RawPiece[] }>();
   let pieceCount = 0;
   for (const { line, order } of rows) {
     const s = lineSnapshot(line);
     pieceCount += line.quantity * s.geometry.pieces.length;
-    if (pieceCount > MAX_NEST_PIECES) throw new AppError(400, 'limit_exceeded', `These lines make more than ${MAX_NEST_PIECES.toLocaleString('en')} pieces, the most one cut-sheet build nests. Choose fewer lines.`);
+    if (pieceCount > MAX_NEST_PIECES)
+      throw new AppError(400, 'limit_exceeded', `These lines make more than ${MAX_NEST_PIECES.toLocaleString('en')} pieces, the most one cut-sheet build nests. Choose fewer lines.`);
     for (let unit = 0; unit < line.quantity; unit++) {
       s.geometry.pieces.forEach((pc, i) => {
         const m = pc.materialId ? mats.get(pc.materialId) : undefined;
@@ -119,10 +135,20 @@ export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, lin
         rollWidthMm: n.rollWidthMm,
         lengthMm: r3(n.lengthMm),
         utilisation: n.utilisation,
-        pieces: n.placements.map((pl): StoredSheetPiece => ({
-          pieceId: pl.pieceId, lineId: pl.lineId, orderNumber: pl.orderNumber ?? '', layerId: pl.layerId,
-          xMm: pl.xMm, yMm: pl.yMm, widthMm: pl.widthMm, heightMm: pl.heightMm, rotated: pl.rotated, path: paths.get(pl.pieceId)!,
-        })),
+        pieces: n.placements.map(
+          (pl): StoredSheetPiece => ({
+            pieceId: pl.pieceId,
+            lineId: pl.lineId,
+            orderNumber: pl.orderNumber ?? '',
+            layerId: pl.layerId,
+            xMm: pl.xMm,
+            yMm: pl.yMm,
+            widthMm: pl.widthMm,
+            heightMm: pl.heightMm,
+            rotated: pl.rotated,
+            path: paths.get(pl.pieceId)!,
+          }),
+        ),
         state: 'planned',
         createdAt: at,
       };
@@ -159,7 +185,13 @@ export function sheetSvg(db: Db, shopId: string, sheetId: string): { svg: string
   const cs = asCutSheet(s);
   const name = `cut-sheet-${(m ? `${m.colourName}-${m.kind}` : 'material').toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${s.id.slice(0, 8)}.svg`;
   // the blade follows each piece's outer outline, not the overlapping contours the font drew
-  return { svg: cutSheetSvg(cs, cs.pieces.map((p) => ({ ...p, path: cutOutline(p.path) }))), name };
+  return {
+    svg: cutSheetSvg(
+      cs,
+      cs.pieces.map((p) => ({ ...p, path: cutOutline(p.path) })),
+    ),
+    name,
+  };
 }
 
 /**
@@ -187,14 +219,24 @@ export function markCut(deps: WorkroomDeps, shopId: string, actorId: string, she
       const after = r3(m.stockMm - consumed);
       repo.setMaterial(t, m.id, { stockMm: Math.max(0, after) });
       const label = `${m.colourName} ${m.kind}`;
-      if (after < 0) warnings.push({ materialId: m.id, level: 'short', message: `${label}: this sheet needed ${consumed} mm but only ${m.stockMm} mm was in stock — short by ${r3(-after)} mm. Stock is now 0; check the roll and update it.` });
+      if (after < 0)
+        warnings.push({
+          materialId: m.id,
+          level: 'short',
+          message: `${label}: this sheet needed ${consumed} mm but only ${m.stockMm} mm was in stock — short by ${r3(-after)} mm. Stock is now 0; check the roll and update it.`,
+        });
       else if (after < m.lowStockMm) warnings.push({ materialId: m.id, level: 'low', message: `${label}: ${after} mm left, under your low-stock mark of ${m.lowStockMm} mm. Time to reorder.` });
     }
     const lineIds = [...new Set(todo.flatMap((s) => s.pieces.map((p) => p.lineId)))];
     for (const { line } of repo.linesByIds(t, shopId, lineIds)) {
       if (!canMoveLine(line.state as LineState, 'cut', 'shop')) continue;
       const batches = new Set(todo.filter((s) => s.pieces.some((p) => p.lineId === line.id)).map((s) => s.batchId));
-      const allCut = [...batches].every((b) => repo.sheetsOfBatch(t, shopId, b).filter((s) => s.pieces.some((p) => p.lineId === line.id)).every((s) => s.state === 'cut'));
+      const allCut = [...batches].every((b) =>
+        repo
+          .sheetsOfBatch(t, shopId, b)
+          .filter((s) => s.pieces.some((p) => p.lineId === line.id))
+          .every((s) => s.state === 'cut'),
+      );
       if (allCut) {
         transition(t, { line, to: 'cut', actor: 'shop', actorId, at, message: 'All its pieces are cut.' });
         linesCut.push(line.id);

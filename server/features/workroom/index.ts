@@ -1,3 +1,4 @@
 // Public module of the workroom feature: its routes, and proof approval for the demo seed.
-export { proofEditRouter, workroomRouter } from './workroom.routes.ts';
+
 export { approve } from './proofs.service.ts';
+export { proofEditRouter, workroomRouter } from './workroom.routes.ts';

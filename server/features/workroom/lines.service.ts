@@ -1,18 +1,16 @@
 // The workroom's lines: the views of a line and its order that every part of the workroom shows,
 // the home page's counts and list, and one order with its timeline. Every call takes the seller's
 // shop id; a line or order of another shop is "not found".
-import type { AppDeps } from '../../deps.ts';
-import type { Db } from '../../db/client.ts';
-import { notFound } from '../../http/app-error.ts';
+
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
-import type { LineState } from '../../../shared/schemas/order.ts';
 import { parseShipTo } from '../../../shared/schemas/checkout.ts';
-import {
-  WORK_STATES,
-  type LinesQuery, type MaterialRef, type TimelineEvent, type WorkLine, type WorkLinesPage, type WorkOrder, type WorkroomSummary,
-} from '../../../shared/schemas/workroom.ts';
+import type { LineState } from '../../../shared/schemas/order.ts';
 import { pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
-import { workroomRepo as repo, type LineRow, type MaterialRow, type OrderRow } from './workroom.repo.ts';
+import { type LinesQuery, type MaterialRef, type TimelineEvent, WORK_STATES, type WorkLine, type WorkLinesPage, type WorkOrder, type WorkroomSummary } from '../../../shared/schemas/workroom.ts';
+import type { Db } from '../../db/client.ts';
+import type { AppDeps } from '../../deps.ts';
+import { notFound } from '../../http/app-error.ts';
+import { type LineRow, type MaterialRow, type OrderRow, workroomRepo as repo } from './workroom.repo.ts';
 
 export type WorkroomDeps = Pick<AppDeps, 'db' | 'now' | 'env' | 'mailer'>;
 /** What the work that runs in the worker pool (nesting cut sheets) needs besides. */
@@ -95,7 +93,10 @@ export function orderView(db: Db, shopId: string, orderId: string): WorkOrder {
   if (!order) throw notFound('We could not find that order in your shop.');
   const lines = repo.linesOfOrder(db, order.id);
   const shop = repo.shop(db, shopId);
-  const events = repo.events(db, lines.map((l) => l.id));
+  const events = repo.events(
+    db,
+    lines.map((l) => l.id),
+  );
   const people = new Map(repo.users(db, [...new Set([order.buyerId, ...events.map((e) => e.actorId).filter((x): x is string => !!x)])]).map((u) => [u.id, u]));
   const buyer = people.get(order.buyerId);
   const timeline: TimelineEvent[] = events.map((e) => ({
@@ -121,7 +122,11 @@ export function orderView(db: Db, shopId: string, orderId: string): WorkOrder {
     trackingNumber: order.trackingNumber,
     shippedAt: order.shippedAt,
     shipTo: parseShipTo(order.shipTo),
-    lines: lineViews(db, shopId, lines.map((line) => ({ line, order }))),
+    lines: lineViews(
+      db,
+      shopId,
+      lines.map((line) => ({ line, order })),
+    ),
     timeline,
   };
 }

@@ -1,15 +1,16 @@
 // Press cards (the heat, time and peel for each layer of a line, on the shop's press) and marking
 // lines pressed (through orders' transition()).
-import type { Db } from '../../db/client.ts';
-import { notFound } from '../../http/app-error.ts';
+
+import { type PressType, pressCard } from '../../../shared/engine/press-card.ts';
+import { MATERIAL_KINDS, type MaterialKind } from '../../../shared/engine/press-defaults.ts';
 import type { LineState } from '../../../shared/schemas/order.ts';
 import type { PressCardView, WorkLine } from '../../../shared/schemas/workroom.ts';
-import { pressCard, type PressType } from '../../../shared/engine/press-card.ts';
-import { MATERIAL_KINDS, type MaterialKind } from '../../../shared/engine/press-defaults.ts';
+import type { Db } from '../../db/client.ts';
+import { notFound } from '../../http/app-error.ts';
 import { assertEachCanMove, transitionAll } from '../orders/index.ts';
-import { workroomRepo as repo, type MaterialRow } from './workroom.repo.ts';
-import { lineMaterialIds, lineSnapshot, lineViews, ownLine, type LineWithOrder, type WorkroomDeps } from './lines.service.ts';
+import { type LineWithOrder, lineMaterialIds, lineSnapshot, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
 import { listingContent, proofBlank } from './proofs.service.ts';
+import { type MaterialRow, workroomRepo as repo } from './workroom.repo.ts';
 
 const asKind = (k: string): MaterialKind => ((MATERIAL_KINDS as readonly string[]).includes(k) ? (k as MaterialKind) : 'smooth');
 
@@ -47,8 +48,16 @@ export function markPressed(deps: WorkroomDeps, shopId: string, actorId: string,
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
-  assertEachCanMove(rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })), 'pressed', 'shop', 'Only cut items can be marked pressed');
+  assertEachCanMove(
+    rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })),
+    'pressed',
+    'shop',
+    'Only cut items can be marked pressed',
+  );
   const at = deps.now();
-  transitionAll(db, rows.map((r) => ({ line: r.line, to: 'pressed' as const, actor: 'shop' as const, actorId, at, message: 'Pressed.' })));
+  transitionAll(
+    db,
+    rows.map((r) => ({ line: r.line, to: 'pressed' as const, actor: 'shop' as const, actorId, at, message: 'Pressed.' })),
+  );
   return lineViews(db, shopId, repo.linesByIds(db, shopId, lineIds));
 }

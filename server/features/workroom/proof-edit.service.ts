@@ -4,18 +4,18 @@
 // gets a new line_versions row and goes back to `awaiting_proof` (through orders' transition()).
 // Every version is kept.
 import crypto from 'node:crypto';
+import { catalogEntry } from '../../../shared/engine/font-catalog.ts';
+import { formatMoney } from '../../../shared/money.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
+import { type PersonalisationEdit, personalisationEditSchema } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
-import type { WorkroomDeps } from './lines.service.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
-import { personalisationEditSchema, type PersonalisationEdit } from '../../../shared/schemas/workroom.ts';
-import { catalogEntry } from '../../../shared/engine/font-catalog.ts';
 // the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
 import { buildSnapshot, readLiveContent, snapshotLookups } from '../cart/index.ts';
-import { formatMoney } from '../../../shared/money.ts';
-import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
 import { transition } from '../orders/index.ts';
+import type { WorkroomDeps } from './lines.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 
 function buyersLine(db: Db, buyerId: string, lineId: string) {
@@ -72,7 +72,15 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
   const old = line.snapshot;
 
   const p = content.personalisation;
-  const { materials, motifs } = snapshotLookups(p, repo.materialsOfShop(db, listing.shopId), repo.motifsOfShop(db, listing.shopId, p.motifChoices.map((m) => m.motifId)));
+  const { materials, motifs } = snapshotLookups(
+    p,
+    repo.materialsOfShop(db, listing.shopId),
+    repo.motifsOfShop(
+      db,
+      listing.shopId,
+      p.motifChoices.map((m) => m.motifId),
+    ),
+  );
   const fresh = buildSnapshot({
     registry: getFontRegistry(),
     listing: { id: listing.id, slug: listing.slug, shopId: listing.shopId, currency: listing.currency },
@@ -83,7 +91,11 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
   });
   // The item is paid: a correction may not add layers that would cost more than was paid.
   if (fresh.unitPriceMinor > old.unitPriceMinor) {
-    throw new AppError(409, 'price_changed', `This change adds a layer and would cost ${formatMoney(fresh.unitPriceMinor, old.currency)} instead of the ${formatMoney(old.unitPriceMinor, old.currency)} you paid. Keep the same colours, or write to the shop.`);
+    throw new AppError(
+      409,
+      'price_changed',
+      `This change adds a layer and would cost ${formatMoney(fresh.unitPriceMinor, old.currency)} instead of the ${formatMoney(old.unitPriceMinor, old.currency)} you paid. Keep the same colours, or write to the shop.`,
+    );
   }
   const snapshot: LineSnapshot = { ...fresh, unitPriceMinor: old.unitPriceMinor, listingTitle: old.listingTitle };
   const at = deps.now();

@@ -1,29 +1,56 @@
 // Proofs: what the seller checks before anything is cut (the text letter by letter, warnings, the
 // versions the shopper made), and the two answers — approve, or ask the shopper for a change.
 // Both move the line through the order-line state machine (orders' transition()).
+
+import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
+import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
+import { blankFor } from '../../../shared/engine/listing-design.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
+import { type Personalisation, personalisationSchema } from '../../../shared/schemas/listing.ts';
+import type { CharInfo, Proof, ProofText, ProofVersion, ProofWarning, WorkLine } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
-import { personalisationSchema, type Personalisation } from '../../../shared/schemas/listing.ts';
-import type { CharInfo, Proof, ProofText, ProofVersion, ProofWarning, WorkLine } from '../../../shared/schemas/workroom.ts';
-import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
-import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
-import { blankFor } from '../../../shared/engine/listing-design.ts';
 import { assertEachCanMove, transition, transitionAll } from '../orders/index.ts';
-import { changeRequestMail } from './workroom-mails.ts';
-import { workroomRepo as repo } from './workroom.repo.ts';
 import { lineSnapshot, lineText, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
+import { workroomRepo as repo } from './workroom.repo.ts';
+import { changeRequestMail } from './workroom-mails.ts';
 
 /** Characters people mistake for others or can't see; named on the proof. */
 const CHAR_NAMES: Record<number, string> = {
-  0x20: 'space', 0xa0: 'no-break space', 0x2007: 'figure space', 0x200b: 'zero-width space', 0x200c: 'zero-width non-joiner', 0x200d: 'zero-width joiner',
-  0x2060: 'word joiner', 0xfeff: 'zero-width no-break space', 0x09: 'tab',
-  0x300: 'combining grave accent', 0x301: 'combining acute accent', 0x302: 'combining circumflex', 0x303: 'combining tilde', 0x304: 'combining macron',
-  0x306: 'combining breve', 0x307: 'combining dot above', 0x308: 'combining diaeresis', 0x30a: 'combining ring above', 0x30b: 'combining double acute',
-  0x30c: 'combining caron', 0x327: 'combining cedilla', 0x328: 'combining ogonek',
-  0x2018: 'left single quotation mark', 0x2019: 'right single quotation mark (apostrophe)', 0x2010: 'hyphen', 0x2013: 'en dash', 0x2014: 'em dash',
-  0x0430: 'Cyrillic small a', 0x0435: 'Cyrillic small ie', 0x043e: 'Cyrillic small o', 0x0440: 'Cyrillic small er', 0x0441: 'Cyrillic small es', 0x0456: 'Cyrillic small i',
+  0x20: 'space',
+  0xa0: 'no-break space',
+  0x2007: 'figure space',
+  0x200b: 'zero-width space',
+  0x200c: 'zero-width non-joiner',
+  0x200d: 'zero-width joiner',
+  0x2060: 'word joiner',
+  0xfeff: 'zero-width no-break space',
+  0x09: 'tab',
+  0x300: 'combining grave accent',
+  0x301: 'combining acute accent',
+  0x302: 'combining circumflex',
+  0x303: 'combining tilde',
+  0x304: 'combining macron',
+  0x306: 'combining breve',
+  0x307: 'combining dot above',
+  0x308: 'combining diaeresis',
+  0x30a: 'combining ring above',
+  0x30b: 'combining double acute',
+  0x30c: 'combining caron',
+  0x327: 'combining cedilla',
+  0x328: 'combining ogonek',
+  0x2018: 'left single quotation mark',
+  0x2019: 'right single quotation mark (apostrophe)',
+  0x2010: 'hyphen',
+  0x2013: 'en dash',
+  0x2014: 'em dash',
+  0x0430: 'Cyrillic small a',
+  0x0435: 'Cyrillic small ie',
+  0x043e: 'Cyrillic small o',
+  0x0440: 'Cyrillic small er',
+  0x0441: 'Cyrillic small es',
+  0x0456: 'Cyrillic small i',
 };
 const hex = (cp: number) => `U+${cp.toString(16).toUpperCase().padStart(4, '0')}`;
 
@@ -85,11 +112,15 @@ export function proofWarnings(s: LineSnapshot, p: Personalisation | null, topOff
     try {
       // The motif takes about 55 % of the height (cart/design.ts); the text gets what is left.
       const motifShare = s.choices.motifId ? Math.min(blank.printArea.heightMm * 0.55, 120) : 0;
-      const fitted = fitText(registry, { text: t.text.trim(), fontId: t.fontId, letterHeightMm: t.letterHeightMm }, {
-        maxWidthMm: area.widthMm,
-        maxHeightMm: Math.max(1, area.heightMm - stackGaps - motifShare),
-        maxChars: field?.maxLength,
-      });
+      const fitted = fitText(
+        registry,
+        { text: t.text.trim(), fontId: t.fontId, letterHeightMm: t.letterHeightMm },
+        {
+          maxWidthMm: area.widthMm,
+          maxHeightMm: Math.max(1, area.heightMm - stackGaps - motifShare),
+          maxChars: field?.maxLength,
+        },
+      );
       texts[texts.length - 1]!.letterHeightMm = Math.round(fitted.letterHeightMm * 10) / 10;
       for (const w of fitted.warnings) {
         if (w.code === 'extra_spaces' || w.code === 'mixed_case') continue; // already said on the raw text
@@ -103,7 +134,11 @@ export function proofWarnings(s: LineSnapshot, p: Personalisation | null, topOff
     }
     const outside = [...new Set([...t.text].filter((c) => !/[\x20-\x7e]/.test(c)))];
     if (outside.length) {
-      warnings.push({ code: 'non_ascii', fieldId, message: `${label}: contains ${outside.map((c) => `“${/\p{M}/u.test(c) ? `◌${c}` : c}” ${hex(c.codePointAt(0)!)}`).join(', ')} — check the spelling letter by letter.` });
+      warnings.push({
+        code: 'non_ascii',
+        fieldId,
+        message: `${label}: contains ${outside.map((c) => `“${/\p{M}/u.test(c) ? `◌${c}` : c}” ${hex(c.codePointAt(0)!)}`).join(', ')} — check the spelling letter by letter.`,
+      });
     }
     if (normalForm(t.text) === 'NFD' || normalForm(t.text) === 'mixed') {
       warnings.push({ code: 'combining_marks', fieldId, message: `${label}: an accent is typed as a separate combining mark; the cut comes out the same, but check it sits on the right letter.` });
@@ -118,7 +153,14 @@ export function proof(db: Db, shopId: string, lineId: string): Proof {
   const { personalisation, topOffsetMm } = listingContent(db, row.line.listingId);
   const { texts, warnings } = proofWarnings(s, personalisation, topOffsetMm);
   const versions = repo.versions(db, row.line.id);
-  const authors = new Map(repo.users(db, versions.map((v) => v.authorId).filter((x): x is string => !!x)).map((u) => [u.id, u.name]));
+  const authors = new Map(
+    repo
+      .users(
+        db,
+        versions.map((v) => v.authorId).filter((x): x is string => !!x),
+      )
+      .map((u) => [u.id, u.name]),
+  );
   const events = repo.events(db, [row.line.id]);
   const lastRequest = [...events].reverse().find((e) => e.toState === 'changes_requested');
   return {
@@ -129,7 +171,13 @@ export function proof(db: Db, shopId: string, lineId: string): Proof {
     warnings,
     versions: versions.map((v): ProofVersion => {
       const vs = v.snapshot;
-      return { version: v.version, createdAt: v.createdAt, authorName: v.authorId ? (authors.get(v.authorId) ?? null) : null, summary: vs.summary, texts: Object.values(vs.choices.texts).map((t) => t.text) };
+      return {
+        version: v.version,
+        createdAt: v.createdAt,
+        authorName: v.authorId ? (authors.get(v.authorId) ?? null) : null,
+        summary: vs.summary,
+        texts: Object.values(vs.choices.texts).map((t) => t.text),
+      };
     }),
     changeRequest: row.line.state === 'changes_requested' ? (lastRequest?.message ?? null) : null,
   };
@@ -140,9 +188,17 @@ export function approve(deps: WorkroomDeps, shopId: string, actorId: string, lin
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
-  assertEachCanMove(rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })), 'approved', 'shop', 'Only proofs waiting for a check can be approved');
+  assertEachCanMove(
+    rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })),
+    'approved',
+    'shop',
+    'Only proofs waiting for a check can be approved',
+  );
   const at = deps.now();
-  transitionAll(db, rows.map((r) => ({ line: r.line, to: 'approved' as const, actor: 'shop' as const, actorId, at, message: `Proof approved (version ${r.line.version}).` })));
+  transitionAll(
+    db,
+    rows.map((r) => ({ line: r.line, to: 'approved' as const, actor: 'shop' as const, actorId, at, message: `Proof approved (version ${r.line.version}).` })),
+  );
   return lineViews(db, shopId, repo.linesByIds(db, shopId, lineIds));
 }
 
@@ -155,7 +211,13 @@ export async function requestChange(deps: WorkroomDeps, shopId: string, actorId:
   const shop = repo.shop(db, shopId);
   if (buyer) {
     await deps.mailer
-      .send(changeRequestMail(buyer, { shopName: shop?.name ?? 'The shop', orderNumber: row.order.number, orderId: row.order.id, lineTitle: row.line.listingTitle, text: lineText(lineSnapshot(row.line)), message }, deps.env.baseUrl))
+      .send(
+        changeRequestMail(
+          buyer,
+          { shopName: shop?.name ?? 'The shop', orderNumber: row.order.number, orderId: row.order.id, lineTitle: row.line.listingTitle, text: lineText(lineSnapshot(row.line)), message },
+          deps.env.baseUrl,
+        ),
+      )
       .catch((e: unknown) => console.error('workroom: change-request e-mail failed', e));
   }
   return lineViews(db, shopId, [ownLine(db, shopId, lineId)])[0]!;

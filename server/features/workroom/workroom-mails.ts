@@ -1,12 +1,16 @@
 // E-mails from the workroom to the shopper: a change request on a proof, and the shipped notice.
 // HTML and plain text; every value a person typed is escaped (a product rule: nothing typed may run
 // script anywhere, an e-mail client included).
-import { escapeHtml as esc, mailLayout, type Mail } from '../../integrations/mailer.ts';
+import { escapeHtml as esc, type Mail, mailLayout } from '../../integrations/mailer.ts';
 
 const button = (href: string, label: string) =>
   `<p><a href="${esc(href)}" style="display:inline-block;background:#e0a526;color:#1f2a44;font-weight:800;padding:10px 18px;border-radius:8px;text-decoration:none">${esc(label)}</a></p>`;
 
-export function changeRequestMail(to: { email: string; name: string }, r: { shopName: string; orderNumber: string; orderId: string; lineTitle: string; text: string; message: string }, baseUrl: string): Mail {
+export function changeRequestMail(
+  to: { email: string; name: string },
+  r: { shopName: string; orderNumber: string; orderId: string; lineTitle: string; text: string; message: string },
+  baseUrl: string,
+): Mail {
   const link = `${baseUrl}/orders/${encodeURIComponent(r.orderId)}`;
   return {
     to: to.email,
@@ -31,7 +35,11 @@ ${button(link, 'Edit your personalisation')}`,
   };
 }
 
-export function shippedMail(to: { email: string; name: string }, r: { shopName: string; orderNumber: string; orderId: string; carrier: string; trackingNumber: string; items: string[] }, baseUrl: string): Mail {
+export function shippedMail(
+  to: { email: string; name: string },
+  r: { shopName: string; orderNumber: string; orderId: string; carrier: string; trackingNumber: string; items: string[] },
+  baseUrl: string,
+): Mail {
   const link = `${baseUrl}/orders/${encodeURIComponent(r.orderId)}`;
   return {
     to: to.email,

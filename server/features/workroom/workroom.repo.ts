@@ -1,11 +1,11 @@
 // Every database call of the workroom. Each read that takes an id from the client is scoped by
 // the seller's shop, so another shop's ids simply find nothing (→ 404, nothing revealed). A line's
 // state and its timeline are written only by orders' transition(), never from here.
-import { and, desc, eq, gte, inArray, lte, ne, sql, type SQL } from 'drizzle-orm';
+import { and, desc, eq, gte, inArray, lte, ne, type SQL, sql } from 'drizzle-orm';
+import { FINISHED_LINE_STATES, UNCUT_LINE_STATES } from '../../../shared/schemas/order.ts';
+import type { LinesFilter } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { cutSheets, lineEvents, lineVersions, listings, materials, motifs, orderLines, orders, shops, user } from '../../db/schema.ts';
-import type { LinesFilter } from '../../../shared/schemas/workroom.ts';
-import { FINISHED_LINE_STATES, UNCUT_LINE_STATES } from '../../../shared/schemas/order.ts';
 
 export type LineRow = typeof orderLines.$inferSelect;
 export type OrderRow = typeof orders.$inferSelect;
@@ -64,12 +64,23 @@ export const workroomRepo = {
     db.select({ n: sql<number>`count(*)` }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId)).where(linesWhere(shopId, f)).get()?.n ?? 0,
   /** how many of the shop's lines are in each state */
   stateCounts: (db: Db, shopId: string) =>
-    db.select({ state: orderLines.state, n: sql<number>`count(*)` }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId))
-      .where(eq(orders.shopId, shopId)).groupBy(orderLines.state).all(),
+    db
+      .select({ state: orderLines.state, n: sql<number>`count(*)` })
+      .from(orderLines)
+      .innerJoin(orders, eq(orders.id, orderLines.orderId))
+      .where(eq(orders.shopId, shopId))
+      .groupBy(orderLines.state)
+      .all(),
   /** every listing the shop has sold (id and the title on its latest line), for the listing filter */
   soldListings: (db: Db, shopId: string) =>
-    db.select({ id: orderLines.listingId, title: sql<string>`max(${orderLines.listingTitle})` }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId))
-      .where(eq(orders.shopId, shopId)).groupBy(orderLines.listingId).orderBy(sql`max(${orderLines.listingTitle})`).all(),
+    db
+      .select({ id: orderLines.listingId, title: sql<string>`max(${orderLines.listingTitle})` })
+      .from(orderLines)
+      .innerJoin(orders, eq(orders.id, orderLines.orderId))
+      .where(eq(orders.shopId, shopId))
+      .groupBy(orderLines.listingId)
+      .orderBy(sql`max(${orderLines.listingTitle})`)
+      .all(),
   /** the shop's lines among `ids` (others' ids are simply absent) */
   linesByIds: (db: Db, shopId: string, ids: string[]) =>
     ids.length
@@ -81,7 +92,12 @@ export const workroomRepo = {
           .all()
       : [],
   linesOfOrder: (db: Db, orderId: string) => db.select().from(orderLines).where(eq(orderLines.orderId, orderId)).orderBy(orderLines.createdAt, orderLines.id).all(),
-  order: (db: Db, shopId: string, orderId: string) => db.select().from(orders).where(and(eq(orders.id, orderId), eq(orders.shopId, shopId))).get(),
+  order: (db: Db, shopId: string, orderId: string) =>
+    db
+      .select()
+      .from(orders)
+      .where(and(eq(orders.id, orderId), eq(orders.shopId, shopId)))
+      .get(),
   orderById: (db: Db, orderId: string) => db.select().from(orders).where(eq(orders.id, orderId)).get(),
   lineById: (db: Db, lineId: string) => db.select().from(orderLines).where(eq(orderLines.id, lineId)).get(),
   setOrder: (db: Db, orderId: string, set: Partial<typeof orders.$inferInsert>) => db.update(orders).set(set).where(eq(orders.id, orderId)).run(),
@@ -91,15 +107,36 @@ export const workroomRepo = {
   users: (db: Db, ids: string[]) => (ids.length ? db.select({ id: user.id, name: user.name, email: user.email }).from(user).where(inArray(user.id, ids)).all() : []),
   shop: (db: Db, shopId: string) => db.select().from(shops).where(eq(shops.id, shopId)).get(),
   materialsOfShop: (db: Db, shopId: string) => db.select().from(materials).where(eq(materials.shopId, shopId)).orderBy(materials.kind, materials.colourName).all(),
-  material: (db: Db, shopId: string, id: string) => db.select().from(materials).where(and(eq(materials.id, id), eq(materials.shopId, shopId))).get(),
+  material: (db: Db, shopId: string, id: string) =>
+    db
+      .select()
+      .from(materials)
+      .where(and(eq(materials.id, id), eq(materials.shopId, shopId)))
+      .get(),
   setMaterial: (db: Db, id: string, set: Partial<typeof materials.$inferInsert>) => db.update(materials).set(set).where(eq(materials.id, id)).run(),
   motifsOfShop: (db: Db, shopId: string, ids: string[]) =>
-    ids.length ? db.select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry }).from(motifs).where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids))).all() : [],
+    ids.length
+      ? db
+          .select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry })
+          .from(motifs)
+          .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
+          .all()
+      : [],
   listing: (db: Db, id: string) => db.select().from(listings).where(eq(listings.id, id)).get(),
   insertSheet: (db: Db, row: typeof cutSheets.$inferInsert) => db.insert(cutSheets).values(row).run(),
-  sheet: (db: Db, shopId: string, id: string) => db.select().from(cutSheets).where(and(eq(cutSheets.id, id), eq(cutSheets.shopId, shopId))).get(),
+  sheet: (db: Db, shopId: string, id: string) =>
+    db
+      .select()
+      .from(cutSheets)
+      .where(and(eq(cutSheets.id, id), eq(cutSheets.shopId, shopId)))
+      .get(),
   sheetsOfBatch: (db: Db, shopId: string, batchId: string) =>
-    db.select().from(cutSheets).where(and(eq(cutSheets.batchId, batchId), eq(cutSheets.shopId, shopId))).orderBy(cutSheets.createdAt, cutSheets.id).all(),
+    db
+      .select()
+      .from(cutSheets)
+      .where(and(eq(cutSheets.batchId, batchId), eq(cutSheets.shopId, shopId)))
+      .orderBy(cutSheets.createdAt, cutSheets.id)
+      .all(),
   sheetsOfShop: (db: Db, shopId: string) => db.select().from(cutSheets).where(eq(cutSheets.shopId, shopId)).orderBy(desc(cutSheets.createdAt), cutSheets.id).all(),
   /** one page of the shop's cut sheets, newest first */
   sheetsPage: (db: Db, shopId: string, limit: number, offset: number) =>
@@ -107,7 +144,11 @@ export const workroomRepo = {
   sheetsCount: (db: Db, shopId: string) => db.select({ n: sql<number>`count(*)` }).from(cutSheets).where(eq(cutSheets.shopId, shopId)).get()?.n ?? 0,
   /** per material: the sheets not cut yet (their count and nested length) */
   plannedByMaterial: (db: Db, shopId: string) =>
-    db.select({ materialId: cutSheets.materialId, sheets: sql<number>`count(*)`, lengthMm: sql<number>`sum(${cutSheets.lengthMm})` }).from(cutSheets)
-      .where(and(eq(cutSheets.shopId, shopId), ne(cutSheets.state, 'cut'))).groupBy(cutSheets.materialId).all(),
+    db
+      .select({ materialId: cutSheets.materialId, sheets: sql<number>`count(*)`, lengthMm: sql<number>`sum(${cutSheets.lengthMm})` })
+      .from(cutSheets)
+      .where(and(eq(cutSheets.shopId, shopId), ne(cutSheets.state, 'cut')))
+      .groupBy(cutSheets.materialId)
+      .all(),
   setSheet: (db: Db, id: string, set: Partial<typeof cutSheets.$inferInsert>) => db.update(cutSheets).set(set).where(eq(cutSheets.id, id)).run(),
 };

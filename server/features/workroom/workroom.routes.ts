@@ -1,20 +1,28 @@
 import { Router } from 'express';
+import type { PageQuery } from '../../../shared/schemas/pagination.ts';
+import {
+  idParams,
+  type LinesQuery,
+  lineIdsSchema,
+  linesQuerySchema,
+  lowStockSchema,
+  requestChangeSchema,
+  shipSchema,
+  stockQuerySchema,
+  worksheetRequestSchema,
+} from '../../../shared/schemas/workroom.ts';
 import type { AppDeps } from '../../deps.ts';
+import { perAccountLimit } from '../../http/account-rate-limit.ts';
 import { currentUser, ownShop, requireRole, requireUser } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import {
-  idParams, lineIdsSchema, linesQuerySchema, lowStockSchema, requestChangeSchema, shipSchema, stockQuerySchema, worksheetRequestSchema, type LinesQuery,
-} from '../../../shared/schemas/workroom.ts';
-import type { PageQuery } from '../../../shared/schemas/pagination.ts';
-import { listLines, orderView, summary } from './lines.service.ts';
-import { approve, proof, requestChange } from './proofs.service.ts';
 import { batch, buildCutSheets, markCut, recentBatches, sheetSvg } from './cut-sheets.service.ts';
+import { listLines, orderView, summary } from './lines.service.ts';
 import { markPressed, pressCards } from './press.service.ts';
+import { personalisationForEdit, savePersonalisation } from './proof-edit.service.ts';
+import { approve, proof, requestChange } from './proofs.service.ts';
 import { ship } from './shipping.service.ts';
 import { setLowStock, stock } from './stock.service.ts';
 import { createWorksheetJobs } from './worksheet-jobs.ts';
-import { personalisationForEdit, savePersonalisation } from './proof-edit.service.ts';
-import { perAccountLimit } from '../../http/account-rate-limit.ts';
 
 /**
  * /api/workroom — the signed-in seller's production desk. Every route is seller-only and scoped by
@@ -80,7 +88,14 @@ export function workroomRouter(deps: AppDeps): Router {
   });
   r.post('/batches/:id/cut', validate({ params: idParams }), (req, res) => {
     const sheets = batch(deps.db, shopId(req), id(req));
-    res.json(markCut(deps, shopId(req), currentUser(req).id, sheets.map((s) => s.id)));
+    res.json(
+      markCut(
+        deps,
+        shopId(req),
+        currentUser(req).id,
+        sheets.map((s) => s.id),
+      ),
+    );
   });
   r.get('/cut-sheets/:id/svg', validate({ params: idParams }), (req, res) => {
     const { svg, name } = sheetSvg(deps.db, shopId(req), id(req));

@@ -2,17 +2,17 @@
 // fraction of pages buildWorksheetPdf reports), then the file is fetched once it is done. Jobs live
 // in memory for 15 minutes; each belongs to one shop and is "not found" for any other.
 import crypto from 'node:crypto';
+import { MAX_WORKSHEET_PAGES } from '../../../shared/engine/limits.ts';
+import { parseShipTo, shipToLines } from '../../../shared/schemas/checkout.ts';
+import type { WorksheetJob } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 import type { WorkPool } from '../../workers/pool.ts';
-import { MAX_WORKSHEET_PAGES } from '../../../shared/engine/limits.ts';
-import type { WorksheetJob } from '../../../shared/schemas/workroom.ts';
-import { parseShipTo, shipToLines } from '../../../shared/schemas/checkout.ts';
-import { worksheetPageCount, worksheetInputSchema, type Paper } from '../../workers/worksheet-pdf.ts';
-import { workroomRepo as repo } from './workroom.repo.ts';
-import { lineSnapshot, lineText } from './lines.service.ts';
+import { type Paper, worksheetInputSchema, worksheetPageCount } from '../../workers/worksheet-pdf.ts';
 import { asCutSheet } from './cut-sheets.service.ts';
+import { lineSnapshot, lineText } from './lines.service.ts';
 import { pressCardFor } from './press.service.ts';
+import { workroomRepo as repo } from './workroom.repo.ts';
 
 type Job = { id: string; shopId: string; batchId: string; paper: Paper; state: WorksheetJob['state']; progress: number; pages: number | null; pdf: Buffer | null; error: string | null; at: number };
 
@@ -61,7 +61,12 @@ export function createWorksheetJobs(pool: WorkPool, now: () => number = Date.now
         const cs = asCutSheet(s);
         return { id: s.id, material: { kind: m?.kind ?? 'unknown', colour: m?.colourName ?? 'unknown' }, ...cs };
       }),
-      cards: rows.map((r) => ({ orderNumber: r.order.number, lineTitle: r.line.listingTitle.slice(0, 200), text: lineText(lineSnapshot(r.line)).slice(0, 500), pressCard: pressCardFor(db, shopId, r, mats).card })),
+      cards: rows.map((r) => ({
+        orderNumber: r.order.number,
+        lineTitle: r.line.listingTitle.slice(0, 200),
+        text: lineText(lineSnapshot(r.line)).slice(0, 500),
+        pressCard: pressCardFor(db, shopId, r, mats).card,
+      })),
       packingSlips: [...orders.values()],
     });
   }
@@ -76,7 +81,8 @@ export function createWorksheetJobs(pool: WorkPool, now: () => number = Date.now
       }
       const job: Job = { id: crypto.randomUUID(), shopId, batchId, paper, state: 'running', progress: 0, pages, pdf: null, error: null, at: now() };
       jobs.set(job.id, job);
-      pool.worksheet(input, (f) => (job.progress = f))
+      pool
+        .worksheet(input, (f) => (job.progress = f))
         .then((pdf) => {
           job.pdf = pdf;
           job.progress = 1;

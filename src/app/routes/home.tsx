@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
-import { ButtonLink } from '../../components/ui/button.tsx';
 import { DesignOnBlank, pictureOfKind } from '../../components/design/design-on-blank.tsx';
+import { ButtonLink } from '../../components/ui/button.tsx';
 import { occasions, paths } from '../../config/paths.ts';
 import { useMe } from '../../features/auth/api/get-me.ts';
 import { OccasionShelves } from './home/occasion-shelves.tsx';
@@ -24,8 +24,8 @@ export function HomePage() {
             Their name, cut in vinyl and pressed to last.
           </h1>
           <p className="max-w-prose text-lg text-ink-soft">
-            Namesake brings together small craft studios that decorate tote bags, kids' tees, pouches and drawstring bags with heat
-            transfer vinyl. You type the name and choose the colours; you see exactly how it will look before a single letter is cut.
+            Namesake brings together small craft studios that decorate tote bags, kids' tees, pouches and drawstring bags with heat transfer vinyl. You type the name and choose the colours; you see
+            exactly how it will look before a single letter is cut.
           </p>
           <div className="flex flex-wrap gap-3">
             <ButtonLink to={paths.search.getHref()}>Browse the shops</ButtonLink>

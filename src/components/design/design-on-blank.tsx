@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { defaultBlank, type Blank } from '../../../shared/engine/blanks.ts';
+import { type Blank, defaultBlank } from '../../../shared/engine/blanks.ts';
 import { MM_PER_IN } from '../../../shared/units.ts';
 
 /**
@@ -92,9 +92,7 @@ export function BlankOutline({ kind, widthMm: W, heightMm: H }: Pick<BlankPictur
   // tote (and any kind we do not know yet: a plain bag shape)
   return (
     <g>
-      {kind === 'tote' ? (
-        <path d={`M${W * 0.3} 2 C${W * 0.3} ${-H * 0.3} ${W * 0.7} ${-H * 0.3} ${W * 0.7} 2`} fill="none" stroke={INK} strokeWidth="9" strokeLinecap="round" />
-      ) : null}
+      {kind === 'tote' ? <path d={`M${W * 0.3} 2 C${W * 0.3} ${-H * 0.3} ${W * 0.7} ${-H * 0.3} ${W * 0.7} 2`} fill="none" stroke={INK} strokeWidth="9" strokeLinecap="round" /> : null}
       <rect x="0" y="0" width={W} height={H} rx="6" fill={CLOTH} {...stroke} />
     </g>
   );
@@ -165,7 +163,8 @@ type Props = {
 
 /** The blank laid flat, to scale, with its print area dashed and the design on it. */
 export function DesignOnBlank({ blank, label, children, rulers = false, size, fit = 'width', className = '', testId }: Props) {
-  const W = blank.widthMm, H = blank.heightMm;
+  const W = blank.widthMm,
+    H = blank.heightMm;
   const top = headroomMm(blank.kind, H) + 6;
   const bottom = rulers ? RULER_GAP + 2 * RULER_H + 4 : 8;
   const pa = blank.printArea;

@@ -3,9 +3,7 @@ import { Link, type LinkProps } from 'react-router-dom';
 
 export type ButtonVariant = 'primary' | 'secondary' | 'quiet';
 
-const base =
-  'inline-flex min-h-11 items-center justify-center gap-2 rounded-lg px-5 py-2.5 text-base font-bold leading-tight transition-colors ' +
-  'disabled:cursor-not-allowed disabled:opacity-60';
+const base = 'inline-flex min-h-11 items-center justify-center gap-2 rounded-lg px-5 py-2.5 text-base font-bold leading-tight transition-colors ' + 'disabled:cursor-not-allowed disabled:opacity-60';
 
 // Primary is marigold with ink-navy text (6.5 : 1); white on marigold would fail WCAG AA.
 const variants: Record<ButtonVariant, string> = {
@@ -27,13 +25,7 @@ type ButtonProps = ButtonHTMLAttributes<HTMLButtonElement> & {
 
 export function Button({ variant = 'primary', pending = false, pendingLabel, disabled, className = '', children, type = 'button', ...rest }: ButtonProps) {
   return (
-    <button
-      type={type}
-      className={buttonClasses(variant, className)}
-      disabled={disabled || pending}
-      aria-busy={pending || undefined}
-      {...rest}
-    >
+    <button type={type} className={buttonClasses(variant, className)} disabled={disabled || pending} aria-busy={pending || undefined} {...rest}>
       {pending ? <Spinner /> : null}
       {pending && pendingLabel ? pendingLabel : children}
     </button>

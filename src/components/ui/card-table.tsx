@@ -1,5 +1,5 @@
-import { flexRender, type Cell, type RowData, type Table } from '@tanstack/react-table';
-import { useSyncExternalStore, type ReactNode } from 'react';
+import { type Cell, flexRender, type RowData, type Table } from '@tanstack/react-table';
+import { type ReactNode, useSyncExternalStore } from 'react';
 
 declare module '@tanstack/react-table' {
   interface ColumnMeta<TData extends RowData, TValue> {
@@ -20,7 +20,11 @@ const subscribe = (onChange: () => void) => {
 };
 /** True on a phone-width window. One layout is rendered at a time, so every row exists once in the page. */
 function usePhoneWidth(): boolean {
-  return useSyncExternalStore(subscribe, () => window.matchMedia(PHONE_QUERY).matches, () => false);
+  return useSyncExternalStore(
+    subscribe,
+    () => window.matchMedia(PHONE_QUERY).matches,
+    () => false,
+  );
 }
 
 type Props<T> = {
@@ -54,14 +58,19 @@ export function CardTable<T>({ table, label, minWidthClass, rowClassName, rowAtt
   const columnCount = table.getVisibleLeafColumns().length;
 
   if (phone && phoneCards) {
-    const selectHeader = table.getHeaderGroups().at(-1)?.headers.find((h) => h.column.id === SELECT);
+    const selectHeader = table
+      .getHeaderGroups()
+      .at(-1)
+      ?.headers.find((h) => h.column.id === SELECT);
     const cell = (c: Cell<T, unknown>) => flexRender(c.column.columnDef.cell, c.getContext());
     return (
       <div className="flex flex-col gap-3">
         {selectHeader && rows.length > 0 ? (
           <div className="flex min-h-11 items-center gap-3 rounded-lg border border-line bg-paper-deep px-4">
             {flexRender(selectHeader.column.columnDef.header, selectHeader.getContext())}
-            <span aria-hidden="true" className="text-sm font-bold text-ink-soft">All shown</span>
+            <span aria-hidden="true" className="text-sm font-bold text-ink-soft">
+              All shown
+            </span>
           </div>
         ) : null}
         <ul className="flex flex-col gap-3" aria-label={label}>
@@ -111,7 +120,12 @@ export function CardTable<T>({ table, label, minWidthClass, rowClassName, rowAtt
                 const sorted = h.column.getIsSorted();
                 const num = h.column.columnDef.meta?.num;
                 return (
-                  <th key={h.id} scope="col" className={`px-4 py-3 text-sm font-extrabold ${num ? 'text-right' : ''}`} aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}>
+                  <th
+                    key={h.id}
+                    scope="col"
+                    className={`px-4 py-3 text-sm font-extrabold ${num ? 'text-right' : ''}`}
+                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+                  >
                     {h.column.getCanSort() ? (
                       <button type="button" onClick={h.column.getToggleSortingHandler()} className={`inline-flex min-h-8 items-center gap-1 font-extrabold ${num ? 'flex-row-reverse' : ''}`}>
                         {flexRender(h.column.columnDef.header, h.getContext())}

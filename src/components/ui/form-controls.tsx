@@ -1,5 +1,5 @@
+import { type FormEventHandler, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes, useId, useState } from 'react';
 import { formatMoney, minorDigits, parseMajor } from '../../../shared/money.ts';
-import { useId, useState, type FormEventHandler, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 import { Button } from './button.tsx';
 
 /** Field pieces that match TextField: label, hint and error linked with aria-describedby. */
@@ -126,14 +126,7 @@ export function ProgressBar({ value, label }: { value: number | null; label: str
         <span>{label}</span>
         <span>{pct === null ? '…' : `${pct} %`}</span>
       </div>
-      <div
-        role="progressbar"
-        aria-label={label}
-        aria-valuemin={0}
-        aria-valuemax={100}
-        aria-valuenow={pct ?? undefined}
-        className="h-2.5 w-full overflow-hidden rounded-full bg-paper-deep"
-      >
+      <div role="progressbar" aria-label={label} aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct ?? undefined} className="h-2.5 w-full overflow-hidden rounded-full bg-paper-deep">
         <div className={`h-full rounded-full bg-thread transition-[width] ${pct === null ? 'w-1/3 animate-pulse' : ''}`} style={pct === null ? undefined : { width: `${pct}%` }} />
       </div>
     </div>
@@ -141,7 +134,19 @@ export function ProgressBar({ value, label }: { value: number | null; label: str
 }
 
 /** A one-column form: its fields, then the submit button, which shows `pendingLabel` while `pending`. */
-export function SubmitForm({ onSubmit, pending, pendingLabel, submitLabel, children }: { onSubmit: FormEventHandler<HTMLFormElement>; pending: boolean; pendingLabel: string; submitLabel: string; children: ReactNode }) {
+export function SubmitForm({
+  onSubmit,
+  pending,
+  pendingLabel,
+  submitLabel,
+  children,
+}: {
+  onSubmit: FormEventHandler<HTMLFormElement>;
+  pending: boolean;
+  pendingLabel: string;
+  submitLabel: string;
+  children: ReactNode;
+}) {
   return (
     <form noValidate onSubmit={onSubmit} className="flex flex-col gap-5">
       {children}

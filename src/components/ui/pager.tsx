@@ -1,4 +1,4 @@
-import { useCallback, type ReactNode } from 'react';
+import { type ReactNode, useCallback } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { PAGE_MAX, pageCount } from '../../../shared/schemas/pagination.ts';
 import { Button } from './button.tsx';

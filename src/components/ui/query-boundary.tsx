@@ -13,7 +13,11 @@ export function QueryBoundary<T>({ query, loading, children }: { query: QuerySta
   return (
     <>
       {query.isPending ? <Spinner label={loading} /> : null}
-      {query.isError ? <p role="alert" className="font-semibold text-danger">{query.error?.message}</p> : null}
+      {query.isError ? (
+        <p role="alert" className="font-semibold text-danger">
+          {query.error?.message}
+        </p>
+      ) : null}
       {query.data !== undefined ? children(query.data) : null}
     </>
   );

@@ -1,4 +1,4 @@
-import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode } from 'react';
+import { createContext, type ReactNode, useCallback, useContext, useMemo, useRef, useState } from 'react';
 
 export type ToastTone = 'error' | 'success' | 'info';
 type ToastItem = { id: number; tone: ToastTone; message: string };
@@ -29,35 +29,19 @@ export function ToastProvider({ children }: { children: ReactNode }) {
     },
     [dismiss],
   );
-  const api = useMemo<ToastApi>(
-    () => ({ show, error: (m) => show(m, 'error'), success: (m) => show(m, 'success') }),
-    [show],
-  );
+  const api = useMemo<ToastApi>(() => ({ show, error: (m) => show(m, 'error'), success: (m) => show(m, 'success') }), [show]);
 
   return (
     <ToastContext.Provider value={api}>
       {children}
-      <div
-        role="status"
-        aria-live="polite"
-        aria-label="Notifications"
-        className="pointer-events-none fixed inset-x-0 bottom-0 z-50 flex flex-col items-center gap-2 p-4 sm:items-end"
-      >
+      <div role="status" aria-live="polite" aria-label="Notifications" className="pointer-events-none fixed inset-x-0 bottom-0 z-50 flex flex-col items-center gap-2 p-4 sm:items-end">
         {toasts.map((toast) => (
-          <div
-            key={toast.id}
-            className={`pointer-events-auto flex w-full max-w-sm items-start gap-3 rounded-lg border-2 p-3.5 shadow-lg ${toneClasses[toast.tone]}`}
-          >
+          <div key={toast.id} className={`pointer-events-auto flex w-full max-w-sm items-start gap-3 rounded-lg border-2 p-3.5 shadow-lg ${toneClasses[toast.tone]}`}>
             <span aria-hidden="true" className={`mt-0.5 flex size-6 shrink-0 items-center justify-center rounded-full text-sm font-black ${toneIconClasses[toast.tone]}`}>
               {toneIcons[toast.tone]}
             </span>
             <p className="flex-1 pt-0.5 font-semibold">{toast.message}</p>
-            <button
-              type="button"
-              onClick={() => dismiss(toast.id)}
-              className="flex size-8 shrink-0 items-center justify-center rounded-lg text-lg hover:bg-black/5"
-              aria-label="Dismiss notification"
-            >
+            <button type="button" onClick={() => dismiss(toast.id)} className="flex size-8 shrink-0 items-center justify-center rounded-lg text-lg hover:bg-black/5" aria-label="Dismiss notification">
               ×
             </button>
           </div>

@@ -1,8 +1,9 @@
 // The fake's /v1 API plumbing (fakes/stripe/api.ts): API keys and idempotent requests.
 // Reference for the expected behaviour: Stripe API docs (authentication, "Idempotent requests"),
 // as summarised in DEVELOPERS.md, "Money and payments".
-import { describe, expect, it } from 'vitest';
+
 import Stripe from 'stripe';
+import { describe, expect, it } from 'vitest';
 import { sessionParams, withStripeFakes } from './helpers.ts';
 
 const { fake } = withStripeFakes();

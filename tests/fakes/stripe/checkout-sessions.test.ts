@@ -2,9 +2,10 @@
 // parameter errors.
 // Reference for the expected behaviour: Stripe API docs (Checkout Session object and endpoints),
 // as summarised in DEVELOPERS.md, "Money and payments".
-import { describe, expect, it } from 'vitest';
+
 import type Stripe from 'stripe';
-import { pay, SECRET, sessionParams, startReceiver, TOTAL, withStripeFakes, waitFor } from './helpers.ts';
+import { describe, expect, it } from 'vitest';
+import { pay, SECRET, sessionParams, startReceiver, TOTAL, waitFor, withStripeFakes } from './helpers.ts';
 
 const { fake, closers } = withStripeFakes();
 

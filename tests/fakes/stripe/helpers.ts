@@ -1,13 +1,14 @@
 // Shared set-up for the Stripe fake tests: a fake per test on a fresh data directory, driven through
 // the official `stripe` SDK (23.1.0) and plain HTTP, and a tiny webhook receiver.
-import { afterEach, beforeEach } from 'vitest';
+
+import fs from 'node:fs';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
-import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import Stripe from 'stripe';
-import { startStripeFake, type StripeFake, type StripeFakeOptions } from '../../../fakes/stripe/server.ts';
+import { afterEach, beforeEach } from 'vitest';
+import { type StripeFake, type StripeFakeOptions, startStripeFake } from '../../../fakes/stripe/server.ts';
 
 export const SECRET = 'whsec_test_secret_for_fake';
 export const KEY = 'sk_test_namesake_fake';
@@ -60,7 +61,6 @@ export function pay(url: string, card: string, expiry = '12/34', cvc = '123') {
     redirect: 'manual',
   });
 }
-
 
 export function sessionParams(over: Partial<Stripe.Checkout.SessionCreateParams> = {}): Stripe.Checkout.SessionCreateParams {
   return {

@@ -2,8 +2,9 @@
 // declines, the extra confirmation step, card and address checks.
 // Reference for the expected behaviour: Stripe API docs ("Testing" test cards, Checkout shipping address collection),
 // as summarised in DEVELOPERS.md, "Money and payments".
-import { describe, expect, it } from 'vitest';
+
 import type Stripe from 'stripe';
+import { describe, expect, it } from 'vitest';
 import { pay, sessionParams, TOTAL, withStripeFakes } from './helpers.ts';
 
 const { fake } = withStripeFakes();
@@ -11,9 +12,7 @@ const { fake } = withStripeFakes();
 describe('the hosted payment page', () => {
   it('when JPY is used, then the page shows no decimals (zero-decimal currency, ISO 4217 / Stripe "Currencies")', async () => {
     const { stripe } = await fake();
-    const s = await stripe.checkout.sessions.create(
-      sessionParams({ line_items: [{ price_data: { currency: 'jpy', unit_amount: 3200, product_data: { name: 'Pouch' } }, quantity: 1 }] }),
-    );
+    const s = await stripe.checkout.sessions.create(sessionParams({ line_items: [{ price_data: { currency: 'jpy', unit_amount: 3200, product_data: { name: 'Pouch' } }, quantity: 1 }] }));
     const html = await (await fetch(s.url!)).text();
     expect(html).toContain('¥3,200');
   });
@@ -195,7 +194,18 @@ describe('the hosted payment page', () => {
   it('when a card needs the extra confirmation, then the address typed with it is kept until the payment completes', async () => {
     const { stripe } = await fake();
     const s = await stripe.checkout.sessions.create(sessionParams({ shipping_address_collection: { allowed_countries: ['US'] } }));
-    const form = { ship_name: 'Priya Lane', ship_line1: '7 Lantern Row', ship_line2: 'Unit 2', ship_city: 'Springfield', ship_postal_code: '12345', ship_state: 'OR', ship_country: 'US', card_number: '4000 0027 6000 3184', card_expiry: '12/34', card_cvc: '123' };
+    const form = {
+      ship_name: 'Priya Lane',
+      ship_line1: '7 Lantern Row',
+      ship_line2: 'Unit 2',
+      ship_city: 'Springfield',
+      ship_postal_code: '12345',
+      ship_state: 'OR',
+      ship_country: 'US',
+      card_number: '4000 0027 6000 3184',
+      card_expiry: '12/34',
+      card_cvc: '123',
+    };
     expect((await fetch(s.url!, { method: 'POST', body: new URLSearchParams(form), redirect: 'manual' })).status).toBe(200);
     expect((await fetch(`${s.url}/authenticate`, { method: 'POST', body: new URLSearchParams({ result: 'complete' }), redirect: 'manual' })).status).toBe(303);
     const done = await stripe.checkout.sessions.retrieve(s.id);

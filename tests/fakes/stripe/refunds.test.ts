@@ -1,9 +1,10 @@
 // Refunds in the fake (fakes/stripe/resources/refunds.ts) and their `charge.refunded` events.
 // Reference for the expected behaviour: Stripe API docs (Refunds) and stripe-node `src/Webhooks.ts`,
 // as summarised in DEVELOPERS.md, "Money and payments".
-import { describe, expect, it } from 'vitest';
+
 import type Stripe from 'stripe';
-import { paidSession, pay, SECRET, sessionParams, startReceiver, TOTAL, withStripeFakes, waitFor } from './helpers.ts';
+import { describe, expect, it } from 'vitest';
+import { paidSession, pay, SECRET, sessionParams, startReceiver, TOTAL, waitFor, withStripeFakes } from './helpers.ts';
 
 const { fake, closers } = withStripeFakes();
 

@@ -1,10 +1,11 @@
 // The fake's state across restarts (fakes/stripe/store.ts) and running it on its own (fakes/stripe/main.ts).
-import { describe, expect, it } from 'vitest';
+
+import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
-import { spawn } from 'node:child_process';
 import Stripe from 'stripe';
-import { KEY, pay, SECRET, sessionParams, startReceiver, TOTAL, withStripeFakes, waitFor } from './helpers.ts';
+import { describe, expect, it } from 'vitest';
+import { KEY, pay, SECRET, sessionParams, startReceiver, TOTAL, waitFor, withStripeFakes } from './helpers.ts';
 
 const env = withStripeFakes();
 const { fake, fakes, closers } = env;

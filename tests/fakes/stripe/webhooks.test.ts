@@ -1,9 +1,10 @@
 // Webhook signing, delivery and retries in the fake (fakes/stripe/webhooks.ts).
 // Reference for the expected behaviour: Stripe API docs (webhook signatures) and stripe-node `src/Webhooks.ts`,
 // as summarised in DEVELOPERS.md, "Money and payments".
-import { describe, expect, it } from 'vitest';
+
 import Stripe from 'stripe';
-import { pay, SECRET, sessionParams, startReceiver, withStripeFakes, waitFor } from './helpers.ts';
+import { describe, expect, it } from 'vitest';
+import { pay, SECRET, sessionParams, startReceiver, waitFor, withStripeFakes } from './helpers.ts';
 
 const { fake, closers } = withStripeFakes();
 
@@ -42,7 +43,9 @@ describe('webhooks', () => {
     const s = await stripe.checkout.sessions.create(sessionParams());
     await pay(s.url!, '4242424242424242');
     const ours = await waitFor(async () => {
-      const list = (await (await fetch(`${f.url}/_fake/events`)).json()) as { data: Array<{ type: string; delivery: { status: string; attempts: number; attempts_log: Array<{ at: number; status: number }> } }> };
+      const list = (await (await fetch(`${f.url}/_fake/events`)).json()) as {
+        data: Array<{ type: string; delivery: { status: string; attempts: number; attempts_log: Array<{ at: number; status: number }> } }>;
+      };
       const e = list.data.find((x) => x.type === 'checkout.session.completed');
       return e?.delivery.status === 'delivered' && e;
     });

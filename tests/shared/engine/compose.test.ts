@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { compose, ComposeError, type FieldDef } from '../../../shared/engine/compose.ts';
-import { defaultBlank, DEFAULT_BLANKS, usableArea } from '../../../shared/engine/blanks.ts';
+import { DEFAULT_BLANKS, defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
+import { ComposeError, compose, type FieldDef } from '../../../shared/engine/compose.ts';
 import { parseMotifSvg } from '../../../shared/engine/motif.ts';
 import { outlinePath } from '../../../shared/engine/outline.ts';
-import { analyseWeeding } from '../../../shared/engine/weeding.ts';
-import { layoutText } from '../../../shared/engine/text-layout.ts';
 import { parsePathData, pathBBox } from '../../../shared/engine/path.ts';
+import { layoutText } from '../../../shared/engine/text-layout.ts';
+import { analyseWeeding } from '../../../shared/engine/weeding.ts';
 import { testRegistry } from './font-fixture.ts';
 
 const reg = testRegistry();
@@ -25,7 +25,10 @@ describe('compose', () => {
 
   it('when composing, then pieces come in press order bottom → top: outline, motif layers, name', () => {
     expect(item.pieces.map((p) => [p.layerId, p.role])).toEqual([
-      ['name-outline', 'outline'], ['motif:flame', 'motif'], ['motif:body', 'motif'], ['name', 'text'],
+      ['name-outline', 'outline'],
+      ['motif:flame', 'motif'],
+      ['motif:body', 'motif'],
+      ['name', 'text'],
     ]);
     expect(item.pieces[3]?.colour).toBe('#e0a526');
     expect(item.pieces[1]?.materialKind).toBe('glitter');

@@ -1,5 +1,5 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
 import { FONT_IDS } from '../../../shared/engine/font-catalog.ts';
 import { testRegistry } from './font-fixture.ts';

@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { FONT_CATALOG } from '../../../shared/engine/font-catalog.ts';
-import { createFontRegistry, fontSource, type FontRegistry } from '../../../shared/engine/fonts.ts';
+import { createFontRegistry, type FontRegistry, fontSource } from '../../../shared/engine/fonts.ts';
 
 const require = createRequire(import.meta.url);
 

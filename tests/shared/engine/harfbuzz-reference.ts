@@ -6,7 +6,10 @@
  */
 import * as hb from 'harfbuzzjs';
 
-export interface HbFont { shape(text: string): { glyphIds: number[]; xAdvances: number[] }; upem: number }
+export interface HbFont {
+  shape(text: string): { glyphIds: number[]; xAdvances: number[] };
+  upem: number;
+}
 
 export function hbFont(bytes: Uint8Array): HbFont {
   const face = new hb.Face(new hb.Blob(bytes), 0);

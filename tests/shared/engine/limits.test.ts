@@ -1,15 +1,22 @@
 // The engine refuses out-of-bounds input on its own (defence in depth: the routes check first).
 import { describe, expect, it } from 'vitest';
+import { defaultBlank } from '../../../shared/engine/blanks.ts';
+import { compose } from '../../../shared/engine/compose.ts';
+import { nestCutSheets } from '../../../shared/engine/cut-sheets.ts';
 import {
-  LimitError, MAX_COORDINATE_MM, MAX_FLATTENED_POINTS, MAX_LETTER_HEIGHT_MM, MAX_NEST_PIECES, MAX_SEGMENTS_PER_CURVE, MAX_TEXT_CHARS,
-  MOTIF_MAX_DEPTH, MOTIF_MAX_PATH_COMMANDS,
+  LimitError,
+  MAX_COORDINATE_MM,
+  MAX_FLATTENED_POINTS,
+  MAX_LETTER_HEIGHT_MM,
+  MAX_NEST_PIECES,
+  MAX_SEGMENTS_PER_CURVE,
+  MAX_TEXT_CHARS,
+  MOTIF_MAX_DEPTH,
+  MOTIF_MAX_PATH_COMMANDS,
 } from '../../../shared/engine/limits.ts';
-import { MotifError, parseMotifSvg, type MotifGeometry } from '../../../shared/engine/motif.ts';
+import { MotifError, type MotifGeometry, parseMotifSvg } from '../../../shared/engine/motif.ts';
 import { flattenPath, parsePathData } from '../../../shared/engine/path.ts';
 import { layoutText } from '../../../shared/engine/text-layout.ts';
-import { nestCutSheets } from '../../../shared/engine/cut-sheets.ts';
-import { compose } from '../../../shared/engine/compose.ts';
-import { defaultBlank } from '../../../shared/engine/blanks.ts';
 import { testRegistry } from './font-fixture.ts';
 
 const svg = (body: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="100mm" height="100mm" viewBox="0 0 100 100">${body}</svg>`;
@@ -93,8 +100,19 @@ describe('text, nesting and compose bounds', () => {
   });
 
   it('when a stored motif (tampered) lies beyond the coordinate limit, then compose refuses it', () => {
-    const far: MotifGeometry = { widthMm: 10, heightMm: 10, dropped: [], layers: [{ id: 'a', colour: '#000000', path: 'M0 0L1e13 0L0 10Z', bboxMm: { minX: 0, minY: 0, maxX: 1e13, maxY: 10 }, areaMm2: 1 }] };
-    const e = refusal(() => compose(reg, { blank: defaultBlank('tote')!, fields: [{ kind: 'motif', id: 'm', heightMm: 60, materialKind: 'smooth', options: [{ id: 'far', geometry: far }] }], choices: { m: { motifId: 'far' } } }));
+    const far: MotifGeometry = {
+      widthMm: 10,
+      heightMm: 10,
+      dropped: [],
+      layers: [{ id: 'a', colour: '#000000', path: 'M0 0L1e13 0L0 10Z', bboxMm: { minX: 0, minY: 0, maxX: 1e13, maxY: 10 }, areaMm2: 1 }],
+    };
+    const e = refusal(() =>
+      compose(reg, {
+        blank: defaultBlank('tote')!,
+        fields: [{ kind: 'motif', id: 'm', heightMm: 60, materialKind: 'smooth', options: [{ id: 'far', geometry: far }] }],
+        choices: { m: { motifId: 'far' } },
+      }),
+    );
     expect((e as LimitError).limit).toBe('MAX_COORDINATE_MM');
   });
 });

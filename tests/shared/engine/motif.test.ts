@@ -5,7 +5,12 @@ import { at } from '../../support/at.ts';
 // 1in across 96 user units: one user unit is one CSS px (25.4/96 mm)
 const svg = (inner: string, root = 'width="1in" height="1in" viewBox="0 0 96 96"') => `<svg xmlns="http://www.w3.org/2000/svg" ${root}>${inner}</svg>`;
 const refusal = (f: () => unknown): string => {
-  try { f(); } catch (e) { if (e instanceof MotifError) return e.code; throw e; }
+  try {
+    f();
+  } catch (e) {
+    if (e instanceof MotifError) return e.code;
+    throw e;
+  }
   return 'accepted';
 };
 
@@ -38,11 +43,13 @@ describe('motif geometry', () => {
     expect(at(m.layers, 0).colour).toBe('#e0a526');
   });
   it('when groups carry ids or data-layer, then they become layers in document order; loose shapes group by fill', () => {
-    const m = parseMotifSvg(svg(`
+    const m = parseMotifSvg(
+      svg(`
       <g id="pumpkin" fill="#e07a26"><ellipse cx="48" cy="60" rx="40" ry="30"/><rect x="10" y="50" width="10" height="10"/></g>
       <g data-layer="stem" fill="green"><polygon points="44,20 52,20 50,32 46,32"/></g>
       <path d="M0 0h10v10h-10z" fill="#fff"/><polyline points="80,0 90,0 90,10" fill="#ffffff"/>
-      <line x1="0" y1="90" x2="20" y2="90" stroke="black"/>`));
+      <line x1="0" y1="90" x2="20" y2="90" stroke="black"/>`),
+    );
     expect(m.layers.map((l) => l.id)).toEqual(['pumpkin', 'stem', 'fill-ffffff', 'fill-000000']);
     expect(at(m.layers, 1).colour).toBe('#008000');
     // rect inside the ellipse overlaps it: the union counts the overlap once

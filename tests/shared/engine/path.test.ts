@@ -1,7 +1,7 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { svgPathBbox } from 'svg-path-bbox';
-import { formatPath, mirrorPath, parsePathData, pathArea, pathBBox, mirrorPathData } from '../../../shared/engine/path.ts';
+import { describe, expect, it } from 'vitest';
+import { formatPath, mirrorPath, mirrorPathData, parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
 
 const num = fc.double({ min: -500, max: 500, noNaN: true, noDefaultInfinity: true }).map((v) => Math.round(v * 1000) / 1000);
 const seg = fc.oneof(
@@ -44,8 +44,12 @@ describe('path geometry', () => {
       fc.property(pathArb, num, (d, axis) => {
         const p = parsePathData(d);
         const twice = mirrorPath(mirrorPath(p, axis), axis);
-        const a = formatPath(p).match(/-?[\d.]+/g)!.map(Number);
-        const b = formatPath(twice).match(/-?[\d.]+/g)!.map(Number);
+        const a = formatPath(p)
+          .match(/-?[\d.]+/g)!
+          .map(Number);
+        const b = formatPath(twice)
+          .match(/-?[\d.]+/g)!
+          .map(Number);
         return a.length === b.length && a.every((v, i) => Math.abs(v - b[i]!) <= 0.0011);
       }),
       { numRuns: 300 },

@@ -3,51 +3,77 @@
  * the straightforward one it replaced, the µm rounding shortcut against writing and re-parsing, and
  * compose's weeding modes and caches against the full analysis done afresh.
  */
-import { describe, expect, it } from 'vitest';
+
 import fc from 'fast-check';
-import { inscribedWidth, unionRegions, type Region } from '../../../shared/engine/geometry.ts';
-import { flattenPath, formatPath, parsePathData, roundPath, type Polygon } from '../../../shared/engine/path.ts';
-import { compose, type FieldDef } from '../../../shared/engine/compose.ts';
+import { describe, expect, it } from 'vitest';
 import { defaultBlank } from '../../../shared/engine/blanks.ts';
+import { compose, type FieldDef } from '../../../shared/engine/compose.ts';
+import { inscribedWidth, type Region, unionRegions } from '../../../shared/engine/geometry.ts';
 import { parseMotifSvg } from '../../../shared/engine/motif.ts';
+import { flattenPath, formatPath, type Polygon, parsePathData, roundPath } from '../../../shared/engine/path.ts';
 import { layoutText } from '../../../shared/engine/text-layout.ts';
 import { analyseWeeding } from '../../../shared/engine/weeding.ts';
-import { testRegistry } from './font-fixture.ts';
 import { at } from '../../support/at.ts';
+import { testRegistry } from './font-fixture.ts';
 
 const reg = testRegistry();
 
 // The search as it was first written (quadtree pole of inaccessibility, as in Mapbox's polylabel):
 // an array scanned for the most promising cell and emptied by swap-remove, every edge per distance.
 function referenceInscribedWidth(polys: Polygon[], precisionMm = 0.05): number {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
-  for (const p of polys) for (let i = 0; i < p.length; i += 2) {
-    const x = p[i]!, y = p[i + 1]!; // i < p.length, pairs of (x, y)
-    minX = Math.min(minX, x); maxX = Math.max(maxX, x); minY = Math.min(minY, y); maxY = Math.max(maxY, y);
-  }
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
+  for (const p of polys)
+    for (let i = 0; i < p.length; i += 2) {
+      const x = p[i]!,
+        y = p[i + 1]!; // i < p.length, pairs of (x, y)
+      minX = Math.min(minX, x);
+      maxX = Math.max(maxX, x);
+      minY = Math.min(minY, y);
+      maxY = Math.max(maxY, y);
+    }
   if (minX === Infinity) return 0;
   const size = Math.min(maxX - minX, maxY - minY);
   if (size <= 0) return 0;
   const dist = (x: number, y: number) => {
-    let inside = false, best = Infinity;
+    let inside = false,
+      best = Infinity;
     for (const p of polys) {
       const n = p.length;
       for (let i = 0, j = n - 2; i < n; j = i, i += 2) {
-        const ax = p[i]!, ay = p[i + 1]!, bx = p[j]!, by = p[j + 1]!; // i, j < n, pairs of (x, y)
+        const ax = p[i]!,
+          ay = p[i + 1]!,
+          bx = p[j]!,
+          by = p[j + 1]!; // i, j < n, pairs of (x, y)
         if (ay > y !== by > y && x < ((bx - ax) * (y - ay)) / (by - ay) + ax) inside = !inside;
-        let dx = bx - ax, dy = by - ay, px = ax, py = ay;
+        let dx = bx - ax,
+          dy = by - ay,
+          px = ax,
+          py = ay;
         if (dx !== 0 || dy !== 0) {
           const t = ((x - ax) * dx + (y - ay) * dy) / (dx * dx + dy * dy);
-          if (t > 1) { px = bx; py = by; } else if (t > 0) { px += dx * t; py += dy * t; }
+          if (t > 1) {
+            px = bx;
+            py = by;
+          } else if (t > 0) {
+            px += dx * t;
+            py += dy * t;
+          }
         }
-        dx = x - px; dy = y - py;
+        dx = x - px;
+        dy = y - py;
         best = Math.min(best, dx * dx + dy * dy);
       }
     }
     return (inside ? 1 : -1) * Math.sqrt(best);
   };
   type Cell = { x: number; y: number; h: number; d: number; max: number };
-  const cell = (x: number, y: number, h: number): Cell => { const d = dist(x, y); return { x, y, h, d, max: d + h * Math.SQRT2 }; };
+  const cell = (x: number, y: number, h: number): Cell => {
+    const d = dist(x, y);
+    return { x, y, h, d, max: d + h * Math.SQRT2 };
+  };
   const queue: Cell[] = [];
   const h0 = size / 2;
   for (let x = minX; x < maxX; x += size) for (let y = minY; y < maxY; y += size) queue.push(cell(x + h0, y + h0, h0));
@@ -72,9 +98,21 @@ const regionsOf = (d: string): Region[] => unionRegions(flattenPath(parsePathDat
 
 describe('inscribed width (the widest stroke, for weeding)', () => {
   it('when measuring letters and outlines of real names, then the fast search returns exactly the straightforward result', () => {
-    for (const [text, fontId, h] of [['Bartholomew', 'dancing-script-bold', 30], ['Łukasz', 'baloo-bold', 40], ['AVATAR', 'bangers', 12], ['Zoë', 'bitter-bold', 60]] as const) {
+    for (const [text, fontId, h] of [
+      ['Bartholomew', 'dancing-script-bold', 30],
+      ['Łukasz', 'baloo-bold', 40],
+      ['AVATAR', 'bangers', 12],
+      ['Zoë', 'bitter-bold', 60],
+    ] as const) {
       const l = layoutText(reg, { text, fontId, letterHeightMm: h });
-      const outline = at(compose(reg, { blank: defaultBlank('tote')!, fields: [{ kind: 'text', id: 'n', fontId, letterHeightMm: h, materialKind: 'smooth', colour: '#000000', outline: { offsetMm: 3, materialKind: 'smooth', colour: '#ffffff' } }], choices: { n: { text } } }).pieces, 0).path;
+      const outline = at(
+        compose(reg, {
+          blank: defaultBlank('tote')!,
+          fields: [{ kind: 'text', id: 'n', fontId, letterHeightMm: h, materialKind: 'smooth', colour: '#000000', outline: { offsetMm: 3, materialKind: 'smooth', colour: '#ffffff' } }],
+          choices: { n: { text } },
+        }).pieces,
+        0,
+      ).path;
       for (const d of [l.path, outline]) {
         for (const r of regionsOf(d)) {
           expect(inscribedWidth([r.outer, ...r.holes])).toBe(referenceInscribedWidth([r.outer, ...r.holes]));
@@ -85,16 +123,22 @@ describe('inscribed width (the widest stroke, for weeding)', () => {
   });
   it('when measuring random star polygons of many points, then the fast search returns exactly the straightforward result (fast-check)', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 3, max: 300 }), fc.double({ min: 0.5, max: 80, noNaN: true }), fc.double({ min: 0.05, max: 1, noNaN: true }), fc.integer({ min: 1, max: 1000 }), (n, r, dent, seed) => {
-        const p: Polygon = [];
-        let s = seed;
-        for (let i = 0; i < n; i++) {
-          s = (s * 16807) % 2147483647;
-          const rr = r * (i % 2 ? dent : 1) * (0.8 + 0.2 * (s / 2147483647));
-          p.push(rr * Math.cos((2 * Math.PI * i) / n), rr * Math.sin((2 * Math.PI * i) / n));
-        }
-        return inscribedWidth([p]) === referenceInscribedWidth([p]);
-      }),
+      fc.property(
+        fc.integer({ min: 3, max: 300 }),
+        fc.double({ min: 0.5, max: 80, noNaN: true }),
+        fc.double({ min: 0.05, max: 1, noNaN: true }),
+        fc.integer({ min: 1, max: 1000 }),
+        (n, r, dent, seed) => {
+          const p: Polygon = [];
+          let s = seed;
+          for (let i = 0; i < n; i++) {
+            s = (s * 16807) % 2147483647;
+            const rr = r * (i % 2 ? dent : 1) * (0.8 + 0.2 * (s / 2147483647));
+            p.push(rr * Math.cos((2 * Math.PI * i) / n), rr * Math.sin((2 * Math.PI * i) / n));
+          }
+          return inscribedWidth([p]) === referenceInscribedWidth([p]);
+        },
+      ),
       { numRuns: 150 },
     );
   });
@@ -104,13 +148,20 @@ describe('µm rounding', () => {
   const num = fc.double({ min: -800, max: 800, noNaN: true, noDefaultInfinity: true });
   it('when a path is rounded to the µm grid directly, then it equals writing it and parsing it back (fast-check)', () => {
     fc.assert(
-      fc.property(fc.array(fc.tuple(num, num, fc.array(fc.tuple(fc.constantFrom('L', 'Q', 'C'), fc.array(num, { minLength: 6, maxLength: 6 })), { maxLength: 6 }), fc.boolean()), { minLength: 1, maxLength: 4 }), (subs) => {
-        const path = subs.map(([x0, y0, segs, closed]) => ({
-          x0, y0, closed,
-          segs: segs.map(([t, v]) => (t === 'L' ? { t, x: v[0], y: v[1] } : t === 'Q' ? { t, x1: v[0], y1: v[1], x: v[2], y: v[3] } : { t, x1: v[0], y1: v[1], x2: v[2], y2: v[3], x: v[4], y: v[5] })),
-        }));
-        expect(roundPath(path as never)).toEqual(parsePathData(formatPath(path as never)));
-      }),
+      fc.property(
+        fc.array(fc.tuple(num, num, fc.array(fc.tuple(fc.constantFrom('L', 'Q', 'C'), fc.array(num, { minLength: 6, maxLength: 6 })), { maxLength: 6 }), fc.boolean()), { minLength: 1, maxLength: 4 }),
+        (subs) => {
+          const path = subs.map(([x0, y0, segs, closed]) => ({
+            x0,
+            y0,
+            closed,
+            segs: segs.map(([t, v]) =>
+              t === 'L' ? { t, x: v[0], y: v[1] } : t === 'Q' ? { t, x1: v[0], y1: v[1], x: v[2], y: v[3] } : { t, x1: v[0], y1: v[1], x2: v[2], y2: v[3], x: v[4], y: v[5] },
+            ),
+          }));
+          expect(roundPath(path as never)).toEqual(parsePathData(formatPath(path as never)));
+        },
+      ),
       { numRuns: 300 },
     );
   });

@@ -5,10 +5,11 @@
  * slashes, ignorables, variation selectors and other scripts, so both paths and the switches
  * between scripts are exercised — and the fast path against HarfBuzz (harfbuzzjs), the reference.
  */
-import { describe, expect, it } from 'vitest';
+
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import { FONT_CATALOG } from '../../../shared/engine/font-catalog.ts';
-import { loadFont, type LoadedFont } from '../../../shared/engine/fonts.ts';
+import { type LoadedFont, loadFont } from '../../../shared/engine/fonts.ts';
 import { shapeFast, shapeText, shapeWithFontkit } from '../../../shared/engine/shaping.ts';
 import { fontBytes } from './font-fixture.ts';
 import { hbFont } from './harfbuzz-reference.ts';
@@ -22,9 +23,46 @@ const NAME_LETTERS = [...'abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZä
 // Pieces that make fontkit do more than kern: ligatures, contextual forms, marks, fractions,
 // ignorables, variation selectors, other scripts (and their shapers), astral characters.
 const TRICKY = [
-  'ff', 'fi', 'fl', 'ffi', 'ffl', 'ft', 'ij', 'll', 'tt', 'Th', 'Q', 'fj', '1\u20442', '\u2044', '\u0300', '\u0301', '\u0308',
-  '\u0327', '\u030c', '\u00ad', '\u200d', '\u200c', '\ufe0f', '\u200b', ' ', '-', "'", '’', '.', '&', '0', '7', 'αβγ', 'Жя',
-  'مرحبا', 'שלום', 'नमस्ते', '美咲', '😀', '\ud800',
+  'ff',
+  'fi',
+  'fl',
+  'ffi',
+  'ffl',
+  'ft',
+  'ij',
+  'll',
+  'tt',
+  'Th',
+  'Q',
+  'fj',
+  '1\u20442',
+  '\u2044',
+  '\u0300',
+  '\u0301',
+  '\u0308',
+  '\u0327',
+  '\u030c',
+  '\u00ad',
+  '\u200d',
+  '\u200c',
+  '\ufe0f',
+  '\u200b',
+  ' ',
+  '-',
+  "'",
+  '’',
+  '.',
+  '&',
+  '0',
+  '7',
+  'αβγ',
+  'Жя',
+  'مرحبا',
+  'שלום',
+  'नमस्ते',
+  '美咲',
+  '😀',
+  '\ud800',
 ];
 const nameArb = fc.array(fc.constantFrom(...NAME_LETTERS), { minLength: 1, maxLength: 14 }).map((a) => a.join(''));
 const mixedArb = fc
@@ -55,7 +93,8 @@ describe('shaping against fontkit as published', () => {
   });
 
   it('when shaping random names, then the fast path is taken for most and equals unpatched fontkit exactly (fast-check)', () => {
-    let fast = 0, runs = 0;
+    let fast = 0,
+      runs = 0;
     fc.assert(
       fc.property(fontArb, nameArb, (id, t) => {
         const f = byId(id);
@@ -74,7 +113,11 @@ describe('shaping against fontkit as published', () => {
 
   it('when a name needs a ligature or a combining mark, then the fast path declines and fontkit shapes it', () => {
     // Patrick Hand's "liga" joins f+l, Baloo's joins f+i; a combining mark needs GPOS mark positioning.
-    for (const [id, t] of [['patrick-hand', 'Raffl'], ['baloo-bold', 'Fifi'], ['bitter-bold', 'Zoe\u0308']] as const) {
+    for (const [id, t] of [
+      ['patrick-hand', 'Raffl'],
+      ['baloo-bold', 'Fifi'],
+      ['bitter-bold', 'Zoe\u0308'],
+    ] as const) {
       const f = byId(id);
       const ref = shapeWithFontkit(f.plain.font, t);
       expect(shapeFast(f.fast.font, t)).toBeNull();
@@ -88,8 +131,13 @@ describe('shaping against fontkit as published', () => {
 
   it('when layout is asked for other features, directions or scripts in turn, then the cached plans give unpatched fontkit\u2019s runs', () => {
     const cases: [string, string[] | undefined, string | undefined][] = [
-      ['Office 1/2', undefined, undefined], ['Office 1/2', ['smcp'], undefined], ['Office', ['liga'], undefined],
-      ['Ωmega', undefined, undefined], ['Office', undefined, 'grek'], ['مرحبا', undefined, undefined], ['Office 1/2', undefined, undefined],
+      ['Office 1/2', undefined, undefined],
+      ['Office 1/2', ['smcp'], undefined],
+      ['Office', ['liga'], undefined],
+      ['Ωmega', undefined, undefined],
+      ['Office', undefined, 'grek'],
+      ['مرحبا', undefined, undefined],
+      ['Office 1/2', undefined, undefined],
     ];
     const run = (f: LoadedFont, [t, feats, script]: (typeof cases)[number]) => {
       const r = (f.font as unknown as { layout(t: string, f?: string[], s?: string): { glyphs: { id: number }[]; positions: object[]; features: object; script: string } }).layout(t, feats, script);

@@ -1,9 +1,9 @@
-import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
 import { FONT_CATALOG, requiredCoverage } from '../../../shared/engine/font-catalog.ts';
-import { layoutText } from '../../../shared/engine/text-layout.ts';
-import { pathBBox, parsePathData } from '../../../shared/engine/path.ts';
 import { createFontRegistry } from '../../../shared/engine/fonts.ts';
+import { parsePathData, pathBBox } from '../../../shared/engine/path.ts';
+import { layoutText } from '../../../shared/engine/text-layout.ts';
 import { fontBytes, testRegistry } from './font-fixture.ts';
 import { hbAdvanceMm, hbFont } from './harfbuzz-reference.ts';
 
@@ -115,8 +115,16 @@ describe('characters per glyph', () => {
     const reg2 = createFontRegistry(FONT_CATALOG.map((f) => ({ ...f, bytes: fontBytes(f.id) })));
     for (const f of FONT_CATALOG) {
       layoutText(reg2, { text: 'Zoë', fontId: f.id, letterHeightMm: 20 });
-      expect(layoutText(reg2, { text: 'Wilhelmina', fontId: f.id, letterHeightMm: 20 }).glyphs.map((g) => g.char).join('')).toBe('Wilhelmina');
-      expect(layoutText(reg2, { text: 'Zoë', fontId: f.id, letterHeightMm: 21 }).glyphs.map((g) => g.char).join('')).toBe('Zoë');
+      expect(
+        layoutText(reg2, { text: 'Wilhelmina', fontId: f.id, letterHeightMm: 20 })
+          .glyphs.map((g) => g.char)
+          .join(''),
+      ).toBe('Wilhelmina');
+      expect(
+        layoutText(reg2, { text: 'Zoë', fontId: f.id, letterHeightMm: 21 })
+          .glyphs.map((g) => g.char)
+          .join(''),
+      ).toBe('Zoë');
     }
   });
 });

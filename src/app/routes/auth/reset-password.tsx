@@ -29,11 +29,7 @@ export function ResetPasswordPage() {
   }
 
   return (
-    <AuthPanel
-      title="Choose a new password"
-      lead="Pick something you don't use anywhere else."
-      footer={<BackToSignIn />}
-    >
+    <AuthPanel title="Choose a new password" lead="Pick something you don't use anywhere else." footer={<BackToSignIn />}>
       <ResetPasswordForm token={token} onDone={() => setDone(true)} />
     </AuthPanel>
   );

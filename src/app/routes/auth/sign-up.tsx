@@ -1,5 +1,5 @@
-import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { useRef } from 'react';
+import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths, safeNextPath } from '../../../config/paths.ts';
 import { useMe } from '../../../features/auth/api/get-me.ts';

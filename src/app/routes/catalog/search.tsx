@@ -1,16 +1,16 @@
-import { useEffect, useId, useMemo, useState, type FormEvent } from 'react';
+import { type FormEvent, useEffect, useId, useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
-import { pageCount } from '../../../../shared/schemas/pagination.ts';
 import { BLANK_DEFAULTS, BLANK_KINDS, OCCASION_LABELS, OCCASIONS } from '../../../../shared/schemas/listing.ts';
+import { pageCount } from '../../../../shared/schemas/pagination.ts';
 import { Button } from '../../../components/ui/button.tsx';
-import { Pager } from '../../../components/ui/pager.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
+import { Pager } from '../../../components/ui/pager.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useListings } from '../../../features/catalog/api/get-listings.ts';
 import { ListingGrid } from '../../../features/catalog/components/listing-card.tsx';
 import { ListingGridSkeleton } from '../../../features/catalog/components/listing-grid-skeleton.tsx';
-import { readSearchState, toFilters, writeSearchState, type SearchState } from '../../../features/catalog/lib/search-params.ts';
+import { readSearchState, type SearchState, toFilters, writeSearchState } from '../../../features/catalog/lib/search-params.ts';
 
 const SORT_LABELS = { newest: 'Newest first', price_asc: 'Price, low to high', price_desc: 'Price, high to low' } as const;
 
@@ -71,41 +71,87 @@ export function SearchPage() {
           </div>
           <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
             <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-occasion`} className="font-bold">Occasion</label>
+              <label htmlFor={`${selectId}-occasion`} className="font-bold">
+                Occasion
+              </label>
               <select id={`${selectId}-occasion`} className={selectClass} value={state.occasion} onChange={(e) => update({ occasion: e.target.value as SearchState['occasion'] })}>
                 <option value="">Any occasion</option>
-                {OCCASIONS.map((o) => <option key={o} value={o}>{OCCASION_LABELS[o]}</option>)}
+                {OCCASIONS.map((o) => (
+                  <option key={o} value={o}>
+                    {OCCASION_LABELS[o]}
+                  </option>
+                ))}
               </select>
             </div>
             <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-blank`} className="font-bold">Item</label>
+              <label htmlFor={`${selectId}-blank`} className="font-bold">
+                Item
+              </label>
               <select id={`${selectId}-blank`} className={selectClass} value={state.blank} onChange={(e) => update({ blank: e.target.value as SearchState['blank'] })}>
                 <option value="">Any item</option>
-                {BLANK_KINDS.map((b) => <option key={b} value={b}>{BLANK_DEFAULTS[b].label}</option>)}
+                {BLANK_KINDS.map((b) => (
+                  <option key={b} value={b}>
+                    {BLANK_DEFAULTS[b].label}
+                  </option>
+                ))}
               </select>
             </div>
             <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-shop`} className="font-bold">Shop</label>
+              <label htmlFor={`${selectId}-shop`} className="font-bold">
+                Shop
+              </label>
               <select id={`${selectId}-shop`} className={selectClass} value={state.shop} onChange={(e) => update({ shop: e.target.value })}>
                 <option value="">Any shop</option>
-                {shops.map(([slug, name]) => <option key={slug} value={slug}>{name}</option>)}
+                {shops.map(([slug, name]) => (
+                  <option key={slug} value={slug}>
+                    {name}
+                  </option>
+                ))}
               </select>
             </div>
             <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-sort`} className="font-bold">Sort</label>
+              <label htmlFor={`${selectId}-sort`} className="font-bold">
+                Sort
+              </label>
               <select id={`${selectId}-sort`} className={selectClass} value={state.sort} onChange={(e) => update({ sort: e.target.value as SearchState['sort'] })}>
-                {Object.entries(SORT_LABELS).map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+                {Object.entries(SORT_LABELS).map(([v, l]) => (
+                  <option key={v} value={v}>
+                    {l}
+                  </option>
+                ))}
               </select>
             </div>
           </div>
           <fieldset className="flex flex-col gap-2">
             <legend className="mb-1.5 font-bold">Price (USD)</legend>
             <div className="flex flex-wrap items-end gap-3">
-              <TextField label="From" inputMode="decimal" value={minPrice} onChange={(e) => setMinPrice(e.target.value)} placeholder="0" className="w-28" aria-invalid={invalid === 'minPrice' || !!serverFields?.minPrice || undefined} />
-              <TextField label="To" inputMode="decimal" value={maxPrice} onChange={(e) => setMaxPrice(e.target.value)} placeholder="any" className="w-28" aria-invalid={invalid === 'maxPrice' || !!serverFields?.maxPrice || undefined} />
-              <Button type="submit" variant="secondary">Apply price</Button>
+              <TextField
+                label="From"
+                inputMode="decimal"
+                value={minPrice}
+                onChange={(e) => setMinPrice(e.target.value)}
+                placeholder="0"
+                className="w-28"
+                aria-invalid={invalid === 'minPrice' || !!serverFields?.minPrice || undefined}
+              />
+              <TextField
+                label="To"
+                inputMode="decimal"
+                value={maxPrice}
+                onChange={(e) => setMaxPrice(e.target.value)}
+                placeholder="any"
+                className="w-28"
+                aria-invalid={invalid === 'maxPrice' || !!serverFields?.maxPrice || undefined}
+              />
+              <Button type="submit" variant="secondary">
+                Apply price
+              </Button>
             </div>
-            {priceError ? <p role="alert" className="text-sm font-semibold text-danger">{priceError}</p> : null}
+            {priceError ? (
+              <p role="alert" className="text-sm font-semibold text-danger">
+                {priceError}
+              </p>
+            ) : null}
           </fieldset>
         </form>
       </search>
@@ -125,7 +171,9 @@ export function SearchPage() {
         <StitchedBox className="py-14 text-center">
           <p className="text-lg font-bold">Nothing matches yet</p>
           <p className="mt-1 text-ink-soft">Try fewer words, another occasion, or clear the filters.</p>
-          <Link to={paths.search.getHref()} className="mt-3 inline-block font-bold text-thread-deep underline">Clear all filters</Link>
+          <Link to={paths.search.getHref()} className="mt-3 inline-block font-bold text-thread-deep underline">
+            Clear all filters
+          </Link>
         </StitchedBox>
       ) : (
         <div className={list.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>

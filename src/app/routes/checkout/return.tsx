@@ -1,10 +1,10 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { useCallback } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { useQueryClient } from '@tanstack/react-query';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { cartKeys } from '../../../features/cart/api/keys.ts';
-import { orderKeys } from '../../../features/orders/api/keys.ts';
 import { CheckoutReturn } from '../../../features/checkout/components/checkout-return.tsx';
+import { orderKeys } from '../../../features/orders/api/keys.ts';
 
 export function CheckoutReturnPage() {
   const [params] = useSearchParams();

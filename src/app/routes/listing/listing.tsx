@@ -1,14 +1,14 @@
 import { lazy, Suspense, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
-import { formatSize } from '../../../../shared/units.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
+import { formatSize } from '../../../../shared/units.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { Card } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
-import { isApiError } from '../../../lib/api-client.ts';
-import { useListing } from '../../../features/catalog/api/get-listing.ts';
 import { useAddCartLine } from '../../../features/cart/api/add-cart-line.ts';
+import { useListing } from '../../../features/catalog/api/get-listing.ts';
+import { isApiError } from '../../../lib/api-client.ts';
 import { NotFoundPage } from '../errors/not-found.tsx';
 
 // the personaliser brings the font engine (fontkit): it loads here, and only here
@@ -32,15 +32,29 @@ export function ListingPage() {
       <div className="grid gap-8 md:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="flex flex-col gap-3">
           {current ? (
-            <img src={current.url} alt={`${c.title}, ${photo + 1} of ${l.photos.length}`} width={current.width} height={current.height} className="aspect-[4/3] w-full rounded-lg border border-line bg-white object-cover" />
+            <img
+              src={current.url}
+              alt={`${c.title}, ${photo + 1} of ${l.photos.length}`}
+              width={current.width}
+              height={current.height}
+              className="aspect-[4/3] w-full rounded-lg border border-line bg-white object-cover"
+            />
           ) : (
-            <div className="flex aspect-[4/3] items-center justify-center rounded-lg border-2 border-dashed border-line bg-paper-deep text-ink-soft">No photos yet — the preview below is drawn to scale.</div>
+            <div className="flex aspect-[4/3] items-center justify-center rounded-lg border-2 border-dashed border-line bg-paper-deep text-ink-soft">
+              No photos yet — the preview below is drawn to scale.
+            </div>
           )}
           {l.photos.length > 1 ? (
             <ul className="flex flex-wrap gap-2" aria-label="Photos">
               {l.photos.map((ph, i) => (
                 <li key={ph.id}>
-                  <button type="button" onClick={() => setPhoto(i)} aria-pressed={i === photo} aria-label={`Show photo ${i + 1}`} className={`overflow-hidden rounded-lg border-2 ${i === photo ? 'border-thread' : 'border-line'}`}>
+                  <button
+                    type="button"
+                    onClick={() => setPhoto(i)}
+                    aria-pressed={i === photo}
+                    aria-label={`Show photo ${i + 1}`}
+                    className={`overflow-hidden rounded-lg border-2 ${i === photo ? 'border-thread' : 'border-line'}`}
+                  >
                     <img src={ph.thumbnailUrl} alt="" className="size-16 object-cover" />
                   </button>
                 </li>
@@ -63,7 +77,9 @@ export function ListingPage() {
           </p>
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-sm">
             <dt className="font-bold">Made and sent within</dt>
-            <dd>{l.shop.processingDays} working {l.shop.processingDays === 1 ? 'day' : 'days'}</dd>
+            <dd>
+              {l.shop.processingDays} working {l.shop.processingDays === 1 ? 'day' : 'days'}
+            </dd>
             <dt className="font-bold">Shipping</dt>
             <dd>{l.shop.shippingMinor === 0 ? 'Free' : `${formatMoney(l.shop.shippingMinor, l.shop.currency)} per order from this shop`}</dd>
             <dt className="font-bold">Print area</dt>
@@ -81,9 +97,13 @@ export function ListingPage() {
           ) : null}
           {l.safetyNotes ? (
             <section aria-labelledby="safety-title" className="rounded-lg border-2 border-danger bg-danger-wash p-4">
-              <h2 id="safety-title" className="font-extrabold">Safety: small parts</h2>
+              <h2 id="safety-title" className="font-extrabold">
+                Safety: small parts
+              </h2>
               <ul className="mt-1 list-disc pl-5 text-sm">
-                {l.safetyNotes.map((n) => <li key={n}>{n}</li>)}
+                {l.safetyNotes.map((n) => (
+                  <li key={n}>{n}</li>
+                ))}
               </ul>
             </section>
           ) : null}
@@ -92,7 +112,9 @@ export function ListingPage() {
 
       <section aria-labelledby="personalise-title" className="flex flex-col gap-5">
         <div>
-          <h2 id="personalise-title" className="text-2xl font-extrabold">Personalise it</h2>
+          <h2 id="personalise-title" className="text-2xl font-extrabold">
+            Personalise it
+          </h2>
           <p className="text-ink-soft">Type the name and pick the colours. The preview is set in the very font the shop will cut, to scale on the {c.blank.label.toLowerCase()}.</p>
         </div>
         <Suspense fallback={<Spinner label="Opening the personaliser…" />}>
@@ -104,7 +126,9 @@ export function ListingPage() {
         <Card>
           <h2 className="text-lg font-extrabold">Care card</h2>
           <ul className="mt-2 list-disc pl-5">
-            {l.careCard.map((n) => <li key={n}>{n}</li>)}
+            {l.careCard.map((n) => (
+              <li key={n}>{n}</li>
+            ))}
           </ul>
         </Card>
         <Card>

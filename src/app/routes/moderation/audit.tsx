@@ -12,7 +12,11 @@ export function AuditLogPage() {
     <div>
       <PageHeading eyebrow="Moderation desk" title="Audit log" lead="Every decision on a shop or listing: who made it, when, and the reason given." />
       {audit.isPending ? <Spinner label="Loading…" /> : null}
-      {audit.isError ? <p role="alert" className="text-danger">{audit.error.message}</p> : null}
+      {audit.isError ? (
+        <p role="alert" className="text-danger">
+          {audit.error.message}
+        </p>
+      ) : null}
       {audit.data && audit.data.total === 0 ? (
         <StitchedBox>
           <p>No decisions yet.</p>

@@ -3,8 +3,8 @@ import { Link, useLocation } from 'react-router-dom';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
-import { paths } from '../../../config/paths.ts';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { paths } from '../../../config/paths.ts';
 import { useListingQueue, useShopChangeQueue, useShopQueue } from '../../../features/moderation/api/get-queue.ts';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
 import { ShopChangeCard } from '../../../features/moderation/components/shop-change.tsx';
@@ -24,8 +24,7 @@ export function ModerationDeskPage() {
   const changeQueue = useShopChangeQueue({ page: changesPage });
   const pending = listingQueue.isPending || shopQueue.isPending || changeQueue.isPending;
   const error = listingQueue.error ?? shopQueue.error ?? changeQueue.error;
-  const queue =
-    listingQueue.data && shopQueue.data && changeQueue.data ? { listings: listingQueue.data, shops: shopQueue.data, changes: changeQueue.data } : undefined;
+  const queue = listingQueue.data && shopQueue.data && changeQueue.data ? { listings: listingQueue.data, shops: shopQueue.data, changes: changeQueue.data } : undefined;
   const { hash } = useLocation();
   const loaded = Boolean(queue);
   // the navigation's "Shops" leads to the shop sections of this page
@@ -37,7 +36,11 @@ export function ModerationDeskPage() {
     <div>
       <PageHeading eyebrow="Moderation desk" title="Waiting for review" lead="Approve what is ready, or send it back with a reason the seller will receive by e-mail." />
       {pending ? <Spinner label="Loading the queue…" /> : null}
-      {error ? <p role="alert" className="font-semibold text-danger">{error.message}</p> : null}
+      {error ? (
+        <p role="alert" className="font-semibold text-danger">
+          {error.message}
+        </p>
+      ) : null}
       {queue ? (
         <div className="flex flex-col gap-10">
           <section aria-labelledby="q-listings" className="flex flex-col gap-4">
@@ -125,7 +128,9 @@ export function ModerationDeskPage() {
             <h2 id="q-known" className="text-2xl font-extrabold">
               All shops
             </h2>
-            <p className="-mt-2 max-w-prose text-ink-soft">Find any shop, live, in review or suspended. Suspending hides every listing of the shop from browse and search at once; the seller gets your reason by e-mail.</p>
+            <p className="-mt-2 max-w-prose text-ink-soft">
+              Find any shop, live, in review or suspended. Suspending hides every listing of the shop from browse and search at once; the seller gets your reason by e-mail.
+            </p>
             <ShopFinder />
           </section>
         </div>

@@ -6,16 +6,23 @@ import { PageHeading } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
-import { isApiError } from '../../../lib/api-client.ts';
 import { useApproveListing, useRejectListing } from '../../../features/moderation/api/decide-listing.ts';
 import { useListingReview } from '../../../features/moderation/api/get-listing-review.ts';
 import { ListingPreview } from '../../../features/moderation/components/listing-preview.tsx';
 import { ReasonForm } from '../../../features/moderation/components/reason-form.tsx';
 import { ShopActions } from '../../../features/moderation/components/shop-actions.tsx';
+import { isApiError } from '../../../lib/api-client.ts';
 
 const PARTS: [keyof ListingContent, string][] = [
-  ['title', 'title'], ['description', 'description'], ['blank', 'blank'], ['basePriceMinor', 'base price'], ['extraLayerPriceMinor', 'extra-layer price'],
-  ['occasions', 'occasions'], ['photoIds', 'photos'], ['hasSmallDecorations', 'small decorations'], ['personalisation', 'personalisation'],
+  ['title', 'title'],
+  ['description', 'description'],
+  ['blank', 'blank'],
+  ['basePriceMinor', 'base price'],
+  ['extraLayerPriceMinor', 'extra-layer price'],
+  ['occasions', 'occasions'],
+  ['photoIds', 'photos'],
+  ['hasSmallDecorations', 'small decorations'],
+  ['personalisation', 'personalisation'],
 ];
 /** Which parts of a live listing an edit changes (so the moderator knows where to look). */
 function changedParts(draft: ListingContent, live: ListingContent): string[] {

@@ -21,14 +21,20 @@ export function OrderPage() {
     return (
       <div role="alert" className="flex flex-col items-start gap-4 py-8">
         <p className="text-lg font-bold">{order.error.message}</p>
-        <ButtonLink to={paths.orders.getHref()} variant="secondary">All your orders</ButtonLink>
+        <ButtonLink to={paths.orders.getHref()} variant="secondary">
+          All your orders
+        </ButtonLink>
       </div>
     );
   }
   const o = order.data;
   return (
     <div>
-      <PageHeading eyebrow={`Order ${o.number}`} title={`Your order from ${o.shop.name}`} lead={`Paid on ${new Date(o.paidAt).toLocaleDateString(undefined, { year: 'numeric', month: 'long', day: 'numeric' })}.`} />
+      <PageHeading
+        eyebrow={`Order ${o.number}`}
+        title={`Your order from ${o.shop.name}`}
+        lead={`Paid on ${new Date(o.paidAt).toLocaleDateString(undefined, { year: 'numeric', month: 'long', day: 'numeric' })}.`}
+      />
       <ProofEditPanel lines={o.lines} onSaved={() => void order.refetch()} />
       <OrderDetailView order={o} preview={(s) => <DesignPreview snapshot={s} size={120} />} summary={(s) => <PersonalisationSummary snapshot={s} />} />
     </div>

@@ -7,7 +7,7 @@ import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useSellerListings } from '../../../features/listings-editor/api/get-seller-listings.ts';
-import { useListingAction, type ListingAction } from '../../../features/listings-editor/api/listing-actions.ts';
+import { type ListingAction, useListingAction } from '../../../features/listings-editor/api/listing-actions.ts';
 import { ListingsTable } from '../../../features/listings-editor/components/listings-table.tsx';
 
 const done: Record<ListingAction, string> = { submit: 'sent for review', pause: 'paused', unpause: 'back on sale' };

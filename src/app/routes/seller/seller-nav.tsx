@@ -1,5 +1,5 @@
 import { Outlet } from 'react-router-dom';
-import { SectionNav, isUnder, type SectionLink } from '../../../components/ui/section-nav.tsx';
+import { isUnder, type SectionLink, SectionNav } from '../../../components/ui/section-nav.tsx';
 import { paths } from '../../../config/paths.ts';
 
 const links: SectionLink[] = [

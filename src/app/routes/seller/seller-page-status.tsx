@@ -6,7 +6,9 @@ export function SellerPageStatus({ error, loading }: { error: Error | null; load
   return error ? (
     <div role="alert" className="flex flex-col items-start gap-4 py-8">
       <p className="text-lg font-bold">{error.message}</p>
-      <ButtonLink to={paths.workroom.getHref()} variant="secondary">Back to the workroom</ButtonLink>
+      <ButtonLink to={paths.workroom.getHref()} variant="secondary">
+        Back to the workroom
+      </ButtonLink>
     </div>
   ) : (
     <Spinner label={loading} />

@@ -1,7 +1,7 @@
 import { useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
-import { Card, PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Spinner } from '../../../components/ui/button.tsx';
+import { Card, PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { useShop } from '../../../features/catalog/api/get-shop.ts';
 import { ListingGrid } from '../../../features/catalog/components/listing-card.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -25,7 +25,9 @@ export function ShopPage() {
       <dl className="grid gap-4 sm:grid-cols-3">
         <Card className="!p-5">
           <dt className="text-sm font-bold text-ink-soft">Made and sent within</dt>
-          <dd className="text-lg font-extrabold">{s.processingDays} working {s.processingDays === 1 ? 'day' : 'days'}</dd>
+          <dd className="text-lg font-extrabold">
+            {s.processingDays} working {s.processingDays === 1 ? 'day' : 'days'}
+          </dd>
         </Card>
         <Card className="!p-5">
           <dt className="text-sm font-bold text-ink-soft">Shipping per order</dt>
@@ -37,12 +39,10 @@ export function ShopPage() {
         </Card>
       </dl>
       <section aria-labelledby="shop-listings" className="flex flex-col gap-4">
-        <h2 id="shop-listings" className="text-2xl font-extrabold">On sale at {s.name}</h2>
-        {listings.length === 0 ? (
-          <StitchedBox className="py-10 text-center text-ink-soft">This shop has nothing on sale right now.</StitchedBox>
-        ) : (
-          <ListingGrid items={listings} />
-        )}
+        <h2 id="shop-listings" className="text-2xl font-extrabold">
+          On sale at {s.name}
+        </h2>
+        {listings.length === 0 ? <StitchedBox className="py-10 text-center text-ink-soft">This shop has nothing on sale right now.</StitchedBox> : <ListingGrid items={listings} />}
       </section>
     </div>
   );

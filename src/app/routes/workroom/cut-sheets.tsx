@@ -5,23 +5,28 @@ import { PageHeading } from '../../../components/ui/card.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
-import { isApiError } from '../../../lib/api-client.ts';
+import { useBuildCutSheets } from '../../../features/workroom/api/build-cut-sheets.ts';
 import { useBatch } from '../../../features/workroom/api/get-batch.ts';
 import { useBatches } from '../../../features/workroom/api/get-batches.ts';
 import { useLines } from '../../../features/workroom/api/get-lines.ts';
-import { useBuildCutSheets } from '../../../features/workroom/api/build-cut-sheets.ts';
 import { useMarkCut } from '../../../features/workroom/api/mark-cut.ts';
 import { CutSheetCard, stockWarningsText } from '../../../features/workroom/components/cut-sheet-card.tsx';
 import { formatDateTime, formatLength } from '../../../features/workroom/components/format.ts';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { WorksheetDownload } from '../../../features/workroom/components/worksheet-download.tsx';
+import { isApiError } from '../../../lib/api-client.ts';
 
 function Batch({ batchId }: { batchId: string }) {
   const batch = useBatch(batchId);
   const markCut = useMarkCut();
   const toast = useToast();
   if (batch.isPending) return <Spinner label="Loading the cut sheets…" />;
-  if (batch.isError) return <p role="alert" className="font-bold text-danger">{batch.error.message}</p>;
+  if (batch.isError)
+    return (
+      <p role="alert" className="font-bold text-danger">
+        {batch.error.message}
+      </p>
+    );
   const sheets = batch.data;
   const planned = sheets.filter((s) => s.state === 'planned');
   const total = sheets.reduce((a, s) => a + s.lengthMm, 0);
@@ -29,7 +34,10 @@ function Batch({ batchId }: { batchId: string }) {
     <div className="flex flex-col gap-6">
       <div className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-line bg-white p-4">
         <p>
-          <span className="font-extrabold">{sheets.length} cut sheet{sheets.length === 1 ? '' : 's'}</span>, one per material, {formatLength(total)} of vinyl in all. Files are mirrored for cutting, 1 unit = 1 mm.
+          <span className="font-extrabold">
+            {sheets.length} cut sheet{sheets.length === 1 ? '' : 's'}
+          </span>
+          , one per material, {formatLength(total)} of vinyl in all. Files are mirrored for cutting, 1 unit = 1 mm.
         </p>
         {planned.length ? (
           <Button
@@ -48,7 +56,9 @@ function Batch({ batchId }: { batchId: string }) {
             Mark all {planned.length} sheets cut
           </Button>
         ) : (
-          <Link to={paths.workroomPress.getHref()} className="font-bold text-thread-deep underline decoration-2">All cut — go to the press cards</Link>
+          <Link to={paths.workroomPress.getHref()} className="font-bold text-thread-deep underline decoration-2">
+            All cut — go to the press cards
+          </Link>
         )}
       </div>
       <WorksheetDownload batchId={batchId} />
@@ -72,7 +82,12 @@ function Choose() {
   // the lines ticked on the page shown; until one is touched, every line of the page is
   const [picked, setPicked] = useState<{ page: number; ids: Set<string> } | null>(null);
   if (lines.isPending) return <Spinner label="Loading approved lines…" />;
-  if (lines.isError) return <p role="alert" className="font-bold text-danger">{lines.error.message}</p>;
+  if (lines.isError)
+    return (
+      <p role="alert" className="font-bold text-danger">
+        {lines.error.message}
+      </p>
+    );
   const items = lines.data.items;
   const chosen = picked && picked.page === lines.data.page ? picked.ids : new Set(items.map((l) => l.id));
   const pick = (ids: Set<string>) => setPicked({ page: lines.data.page, ids });
@@ -85,9 +100,17 @@ function Choose() {
   return (
     <div className="flex flex-col gap-8">
       <section aria-labelledby="approved" className="flex flex-col gap-3">
-        <h2 id="approved" className="text-xl font-extrabold">Approved lines, ready to cut</h2>
+        <h2 id="approved" className="text-xl font-extrabold">
+          Approved lines, ready to cut
+        </h2>
         {lines.data.total === 0 ? (
-          <p className="text-ink-soft">No approved lines yet. Approve proofs in the <Link className="underline" to={paths.workroom.getHref()}>workroom</Link> first.</p>
+          <p className="text-ink-soft">
+            No approved lines yet. Approve proofs in the{' '}
+            <Link className="underline" to={paths.workroom.getHref()}>
+              workroom
+            </Link>{' '}
+            first.
+          </p>
         ) : (
           <>
             <ul className="flex flex-col gap-2">
@@ -96,7 +119,10 @@ function Choose() {
                   <label className="flex min-h-11 cursor-pointer flex-wrap items-center gap-3 rounded-lg border border-line bg-white px-3 py-2 hover:border-thread">
                     <input type="checkbox" className="size-5 accent-thread" checked={chosen.has(l.id)} onChange={() => toggle(l.id)} />
                     <span className="font-bold">{l.orderNumber}</span>
-                    <span className="font-extrabold">{l.text || '—'}{l.quantity > 1 ? ` × ${l.quantity}` : ''}</span>
+                    <span className="font-extrabold">
+                      {l.text || '—'}
+                      {l.quantity > 1 ? ` × ${l.quantity}` : ''}
+                    </span>
                     <span className="text-ink-soft">{l.listingTitle}</span>
                     <MaterialChips materials={l.materials} />
                   </label>
@@ -119,8 +145,12 @@ function Choose() {
               >
                 Build cut sheets for {chosen.size} line{chosen.size === 1 ? '' : 's'}
               </Button>
-              <Button variant="quiet" onClick={() => pick(new Set(items.map((l) => l.id)))}>Select all{lines.data.total > items.length ? ' on this page' : ''}</Button>
-              <Button variant="quiet" onClick={() => pick(new Set())}>Select none</Button>
+              <Button variant="quiet" onClick={() => pick(new Set(items.map((l) => l.id)))}>
+                Select all{lines.data.total > items.length ? ' on this page' : ''}
+              </Button>
+              <Button variant="quiet" onClick={() => pick(new Set())}>
+                Select none
+              </Button>
             </div>
             <Pager page={page} total={lines.data.total} limit={lines.data.limit} label="Approved line pages" noun="approved lines" onPageChange={setPage} />
           </>
@@ -128,7 +158,9 @@ function Choose() {
       </section>
       {batches.data?.length ? (
         <section aria-labelledby="recent" className="flex flex-col gap-2">
-          <h2 id="recent" className="text-xl font-extrabold">Earlier batches</h2>
+          <h2 id="recent" className="text-xl font-extrabold">
+            Earlier batches
+          </h2>
           <ul className="flex flex-col gap-1">
             {batches.data.map((b) => (
               <li key={b.batchId}>
@@ -152,7 +184,11 @@ export function CutSheetsPage() {
       <PageHeading eyebrow="Workroom" title="Cut sheets" lead="Approved pieces, grouped by material and colour, nested on each roll with a 6 mm gap and 6 mm edges." />
       {batchId ? (
         <>
-          <p className="mb-4"><Link className="font-bold underline decoration-thread decoration-2" to={paths.workroomCutSheets.getHref()}>← Choose other lines</Link></p>
+          <p className="mb-4">
+            <Link className="font-bold underline decoration-thread decoration-2" to={paths.workroomCutSheets.getHref()}>
+              ← Choose other lines
+            </Link>
+          </p>
           <Batch batchId={batchId} />
         </>
       ) : (

@@ -2,13 +2,13 @@ import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
 import { canMoveLine, isFinishedLine } from '../../../../shared/schemas/order.ts';
 import { PageHeading } from '../../../components/ui/card.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useOrder } from '../../../features/workroom/api/get-order.ts';
 import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
-import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { Timeline } from '../../../features/workroom/components/timeline.tsx';
 import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
@@ -22,29 +22,41 @@ export function WorkroomOrderPage() {
   const label = (lineId: string) => o.lines.find((l) => l.id === lineId)?.text || o.lines.find((l) => l.id === lineId)?.listingTitle || '';
   return (
     <div>
-      <PageHeading eyebrow={`Order ${o.number}`} title={`For ${o.buyerName}`} lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`} />
+      <PageHeading
+        eyebrow={`Order ${o.number}`}
+        title={`For ${o.buyerName}`}
+        lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`}
+      />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex flex-col gap-6">
           <section aria-labelledby="items">
-            <h2 id="items" className="mb-3 text-xl font-extrabold">Items</h2>
+            <h2 id="items" className="mb-3 text-xl font-extrabold">
+              Items
+            </h2>
             <ul className="flex flex-col gap-3">
               {o.lines.map((l) => (
                 <li key={l.id} className="flex flex-col gap-2 rounded-lg border border-line bg-white p-4 sm:flex-row sm:items-start sm:justify-between">
                   <div className="flex flex-col gap-1.5">
-                    <p className="font-bold">{l.quantity} × {l.listingTitle}</p>
+                    <p className="font-bold">
+                      {l.quantity} × {l.listingTitle}
+                    </p>
                     <p className="text-lg font-extrabold">{l.text || '—'}</p>
                     <MaterialChips materials={l.materials} />
                   </div>
                   <div className="flex flex-col items-start gap-2 sm:items-end">
                     <LineStateBadge state={l.state} words="workroom" />
-                    <Link className="font-bold text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(l.id)}>{l.state === 'awaiting_proof' ? 'Check proof' : 'Open proof'}</Link>
+                    <Link className="font-bold text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(l.id)}>
+                      {l.state === 'awaiting_proof' ? 'Check proof' : 'Open proof'}
+                    </Link>
                   </div>
                 </li>
               ))}
             </ul>
           </section>
           <section aria-labelledby="tl">
-            <h2 id="tl" className="mb-3 text-xl font-extrabold">Timeline</h2>
+            <h2 id="tl" className="mb-3 text-xl font-extrabold">
+              Timeline
+            </h2>
             <Timeline events={o.timeline} lineLabel={label} />
           </section>
         </div>
@@ -55,7 +67,9 @@ export function WorkroomOrderPage() {
             <ShipToAddress shipTo={o.shipTo} label="Post to" />
           </div>
           {o.trackingNumber ? (
-            <p data-testid="tracking">Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <span className="font-mono font-bold">{o.trackingNumber}</span></p>
+            <p data-testid="tracking">
+              Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <span className="font-mono font-bold">{o.trackingNumber}</span>
+            </p>
           ) : ready ? (
             <ShipForm orderId={o.id} />
           ) : (

@@ -3,10 +3,10 @@ import { Button, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
-import { isApiError } from '../../../lib/api-client.ts';
 import { usePressCards } from '../../../features/workroom/api/get-press-cards.ts';
 import { useMarkPressed } from '../../../features/workroom/api/mark-pressed.ts';
 import { PressCardView } from '../../../features/workroom/components/press-card-view.tsx';
+import { isApiError } from '../../../lib/api-client.ts';
 
 export function PressPage() {
   const cards = usePressCards();
@@ -18,16 +18,34 @@ export function PressPage() {
       {cards.isPending ? (
         <Spinner label="Loading press cards…" />
       ) : cards.isError ? (
-        <p role="alert" className="font-bold text-danger">{cards.error.message}</p>
+        <p role="alert" className="font-bold text-danger">
+          {cards.error.message}
+        </p>
       ) : cards.data.length === 0 ? (
-        <p className="text-ink-soft">Nothing waiting to be pressed. Cut sheets first: <Link className="underline" to={paths.workroomCutSheets.getHref()}>cut sheets</Link>.</p>
+        <p className="text-ink-soft">
+          Nothing waiting to be pressed. Cut sheets first:{' '}
+          <Link className="underline" to={paths.workroomCutSheets.getHref()}>
+            cut sheets
+          </Link>
+          .
+        </p>
       ) : (
         <ul className="grid gap-5 lg:grid-cols-2">
           {cards.data.map(({ line, card }) => (
-            <li key={line.id} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm" data-testid="press-card" aria-label={`Press card for ${line.text || line.listingTitle}`}>
+            <li
+              key={line.id}
+              className="flex flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm"
+              data-testid="press-card"
+              aria-label={`Press card for ${line.text || line.listingTitle}`}
+            >
               <header className="flex flex-wrap items-baseline justify-between gap-2">
-                <h2 className="text-lg font-extrabold">{line.orderNumber} · {line.text || '—'}{line.quantity > 1 ? ` × ${line.quantity}` : ''}</h2>
-                <Link className="text-sm font-bold text-thread-deep underline" to={paths.workroomOrder.getHref(line.orderId)}>order</Link>
+                <h2 className="text-lg font-extrabold">
+                  {line.orderNumber} · {line.text || '—'}
+                  {line.quantity > 1 ? ` × ${line.quantity}` : ''}
+                </h2>
+                <Link className="text-sm font-bold text-thread-deep underline" to={paths.workroomOrder.getHref(line.orderId)}>
+                  order
+                </Link>
               </header>
               <p className="text-sm text-ink-soft">{line.listingTitle}</p>
               <PressCardView card={card} />

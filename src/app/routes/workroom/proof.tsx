@@ -1,9 +1,9 @@
 import { Link, useParams } from 'react-router-dom';
 import { Button } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
+import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
-import { isApiError } from '../../../lib/api-client.ts';
 import { useApproveProofs } from '../../../features/workroom/api/approve-proofs.ts';
 import { useProof } from '../../../features/workroom/api/get-proof.ts';
 import { DesignProof } from '../../../features/workroom/components/design-proof.tsx';
@@ -11,7 +11,7 @@ import { formatDateTime } from '../../../features/workroom/components/format.ts'
 import { LetterByLetter } from '../../../features/workroom/components/letter-by-letter.tsx';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
 import { RequestChangeForm } from '../../../features/workroom/components/request-change-form.tsx';
-import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
+import { isApiError } from '../../../lib/api-client.ts';
 import { SellerPageStatus } from '../seller/seller-page-status.tsx';
 
 export function ProofPage() {
@@ -27,24 +27,39 @@ export function ProofPage() {
       <PageHeading
         eyebrow={`Proof · order ${l.orderNumber}`}
         title={l.text || l.listingTitle}
-        lead={<>{l.quantity} × {l.listingTitle} for {l.buyerName} · version {l.version} · <Link className="underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(l.orderId)}>the whole order</Link></>}
+        lead={
+          <>
+            {l.quantity} × {l.listingTitle} for {l.buyerName} · version {l.version} ·{' '}
+            <Link className="underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(l.orderId)}>
+              the whole order
+            </Link>
+          </>
+        }
       />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_24rem]">
         <div className="flex flex-col gap-6">
           <DesignProof proof={p} />
           <section aria-labelledby="letters" className="flex flex-col gap-4 rounded-lg border border-line bg-white p-5">
-            <h2 id="letters" className="text-lg font-extrabold">Letter by letter</h2>
+            <h2 id="letters" className="text-lg font-extrabold">
+              Letter by letter
+            </h2>
             {p.texts.length ? p.texts.map((t) => <LetterByLetter key={t.fieldId} text={t} />) : <p className="text-ink-soft">This design has no text.</p>}
           </section>
         </div>
         <aside className="flex flex-col gap-5">
-          <div className="flex items-center gap-3"><span className="font-bold">State</span> <LineStateBadge state={l.state} words="workroom" /></div>
+          <div className="flex items-center gap-3">
+            <span className="font-bold">State</span> <LineStateBadge state={l.state} words="workroom" />
+          </div>
           <section aria-labelledby="warn" className="flex flex-col gap-2">
-            <h2 id="warn" className="text-lg font-extrabold">Check before approving</h2>
+            <h2 id="warn" className="text-lg font-extrabold">
+              Check before approving
+            </h2>
             {p.warnings.length ? (
               <ul className="flex flex-col gap-2" data-testid="proof-warnings">
                 {p.warnings.map((w, i) => (
-                  <li key={i} className="rounded-lg border-2 border-marigold bg-marigold-wash px-3 py-2 text-sm font-semibold">⚠ {w.message}</li>
+                  <li key={i} className="rounded-lg border-2 border-marigold bg-marigold-wash px-3 py-2 text-sm font-semibold">
+                    ⚠ {w.message}
+                  </li>
                 ))}
               </ul>
             ) : (
@@ -52,7 +67,9 @@ export function ProofPage() {
             )}
           </section>
           <section aria-labelledby="mats" className="flex flex-col gap-2">
-            <h2 id="mats" className="font-extrabold">Materials, bottom to top</h2>
+            <h2 id="mats" className="font-extrabold">
+              Materials, bottom to top
+            </h2>
             <MaterialChips materials={l.materials} />
           </section>
           {l.state === 'awaiting_proof' ? (
@@ -80,12 +97,19 @@ export function ProofPage() {
             </div>
           ) : null}
           <section aria-labelledby="vers" className="flex flex-col gap-2">
-            <h2 id="vers" className="font-extrabold">Versions</h2>
+            <h2 id="vers" className="font-extrabold">
+              Versions
+            </h2>
             <ol className="flex flex-col gap-2" data-testid="proof-versions">
               {[...p.versions].reverse().map((v) => (
                 <li key={v.version} className="rounded-lg border border-line bg-white px-3 py-2 text-sm">
-                  <p className="font-bold">Version {v.version}: {v.texts.join(' / ') || '—'}</p>
-                  <p className="text-ink-soft">{formatDateTime(v.createdAt)}{v.authorName ? ` · ${v.authorName}` : ''}</p>
+                  <p className="font-bold">
+                    Version {v.version}: {v.texts.join(' / ') || '—'}
+                  </p>
+                  <p className="text-ink-soft">
+                    {formatDateTime(v.createdAt)}
+                    {v.authorName ? ` · ${v.authorName}` : ''}
+                  </p>
                 </li>
               ))}
             </ol>

@@ -10,7 +10,13 @@ export function StockPage() {
   return (
     <div>
       <PageHeading eyebrow="Workroom" title="Stock" lead="Vinyl left on each roll. Cutting a sheet takes its length plus the trim; you are warned when a roll runs low." />
-      {stock.isPending ? <Spinner label="Loading stock…" /> : stock.isError ? <p role="alert" className="font-bold text-danger">{stock.error.message}</p> : (
+      {stock.isPending ? (
+        <Spinner label="Loading stock…" />
+      ) : stock.isError ? (
+        <p role="alert" className="font-bold text-danger">
+          {stock.error.message}
+        </p>
+      ) : (
         <StockTable
           stock={stock.data}
           sheetsPager={<Pager className="mt-4" page={page} total={stock.data.sheets.total} limit={stock.data.sheets.limit} label="Cut sheet pages" noun="cut sheets" onPageChange={setPage} />}

@@ -1,9 +1,10 @@
-import { PageHeading } from '../../../components/ui/card.tsx';
 import { lazy, Suspense } from 'react';
 import { Spinner } from '../../../components/ui/button.tsx';
+import { PageHeading } from '../../../components/ui/card.tsx';
 
 // the order table (and TanStack Table with it) loads on demand, keeping the first page small
 const WorkroomOrders = lazy(async () => ({ default: (await import('../../../features/workroom/components/workroom-orders.tsx')).WorkroomOrders }));
+
 import { useMe } from '../../../features/auth/api/get-me.ts';
 import { useShipByLookup } from '../../../features/business/api/ship-by-lookup.ts';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { meSchema, type Me } from '../../../../shared/schemas/auth.ts';
+import { type Me, meSchema } from '../../../../shared/schemas/auth.ts';
 import { api, isApiError } from '../../../lib/api-client.ts';
 import { authKeys } from './keys.ts';
 

@@ -21,8 +21,8 @@ export function ForgotPasswordForm() {
       <div role="status" className="rounded-lg border-2 border-thread bg-thread-wash p-5">
         <h2 className="text-lg font-extrabold">Check your inbox</h2>
         <p className="mt-1">
-          If an account uses <strong>{getValues('email')}</strong>, a link to choose a new password is on its way. It works for a
-          limited time; if it doesn't arrive in a few minutes, check your spam folder or ask again.
+          If an account uses <strong>{getValues('email')}</strong>, a link to choose a new password is on its way. It works for a limited time; if it doesn't arrive in a few minutes, check your spam
+          folder or ask again.
         </p>
       </div>
     );

@@ -38,8 +38,7 @@ export function SignInForm({ onSignedIn, demoPassword, demoAccounts }: Props) {
             Demo accounts
           </h2>
           <p className="mt-1 text-ink-soft">
-            This is a demo. Every account below uses the password{' '}
-            <code className="rounded bg-white px-1.5 py-0.5 font-mono font-bold text-ink">{demoPassword}</code>. Pick one to fill in the form.
+            This is a demo. Every account below uses the password <code className="rounded bg-white px-1.5 py-0.5 font-mono font-bold text-ink">{demoPassword}</code>. Pick one to fill in the form.
           </p>
           <ul className="mt-4 grid gap-2 sm:grid-cols-2">
             {demoAccounts.map((account) => (

@@ -15,8 +15,7 @@ export async function getLedger(q: LedgerQuery, signal?: AbortSignal): Promise<L
   return api.get<LedgerView>(`/api/business/ledger${qs(q)}`, { signal });
 }
 
-export const getLedgerQueryOptions = (q: LedgerQuery) =>
-  queryOptions({ queryKey: businessKeys.ledger(q), queryFn: ({ signal }) => getLedger(q, signal), placeholderData: keepPreviousData });
+export const getLedgerQueryOptions = (q: LedgerQuery) => queryOptions({ queryKey: businessKeys.ledger(q), queryFn: ({ signal }) => getLedger(q, signal), placeholderData: keepPreviousData });
 
 export function useLedger(q: LedgerQuery) {
   return useQuery(getLedgerQueryOptions(q));

@@ -1,5 +1,5 @@
-import { useState, type ReactNode } from 'react';
-import { Bar, BarChart, CartesianGrid, Legend, Line, ComposedChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import { type ReactNode, useState } from 'react';
+import { Bar, BarChart, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { formatMoney, minorDigits } from '../../../../shared/money.ts';
 import type { ChartsView } from '../../../../shared/schemas/business.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
@@ -46,17 +46,32 @@ function ChartPanel({ id, title, lead, chart, table: spec, empty: emptyWords }: 
     <section aria-labelledby={`${id}-title`} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-4 sm:p-6">
       <div className="flex flex-wrap items-start justify-between gap-2">
         <div>
-          <h2 id={`${id}-title`} className="text-xl font-extrabold">{title}</h2>
+          <h2 id={`${id}-title`} className="text-xl font-extrabold">
+            {title}
+          </h2>
           <p className="text-sm text-ink-soft">{lead}</p>
         </div>
-        {empty ? null : <button type="button" aria-pressed={asTable} className="min-h-11 rounded-lg border-2 border-thread px-3 font-bold text-thread-deep hover:bg-thread-wash" onClick={() => setAsTable((v) => !v)}>
-          {asTable ? 'Show chart' : 'Show table'}
-        </button>}
+        {empty ? null : (
+          <button
+            type="button"
+            aria-pressed={asTable}
+            className="min-h-11 rounded-lg border-2 border-thread px-3 font-bold text-thread-deep hover:bg-thread-wash"
+            onClick={() => setAsTable((v) => !v)}
+          >
+            {asTable ? 'Show chart' : 'Show table'}
+          </button>
+        )}
       </div>
       {/* the chart is a picture of the table: screen readers get the table either way */}
-      {empty ? <p className="rounded-lg bg-paper-deep p-4 text-ink-soft">{empty}</p> : asTable ? table : (
+      {empty ? (
+        <p className="rounded-lg bg-paper-deep p-4 text-ink-soft">{empty}</p>
+      ) : asTable ? (
+        table
+      ) : (
         <>
-          <div aria-hidden="true" className="h-64 w-full">{chart}</div>
+          <div aria-hidden="true" className="h-64 w-full">
+            {chart}
+          </div>
           <div className="sr-only">{table}</div>
         </>
       )}
@@ -70,15 +85,37 @@ function Table({ caption, head, rows }: TableSpec) {
       <table className="w-full min-w-[22rem] text-left">
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-paper-deep text-sm">
-          <tr>{head.map((h, i) => <th key={h} scope="col" className={`px-3 py-2 ${i ? 'text-right' : ''}`}>{h}</th>)}</tr>
+          <tr>
+            {head.map((h, i) => (
+              <th key={h} scope="col" className={`px-3 py-2 ${i ? 'text-right' : ''}`}>
+                {h}
+              </th>
+            ))}
+          </tr>
         </thead>
         <tbody>
           {rows.map((r, k) => (
             <tr key={k} className="border-t border-line">
-              {r.map((v, i) => (i === 0 ? <th key={i} scope="row" className="px-3 py-2 font-semibold">{v}</th> : <td key={i} className="px-3 py-2 text-right tabular-nums">{v}</td>))}
+              {r.map((v, i) =>
+                i === 0 ? (
+                  <th key={i} scope="row" className="px-3 py-2 font-semibold">
+                    {v}
+                  </th>
+                ) : (
+                  <td key={i} className="px-3 py-2 text-right tabular-nums">
+                    {v}
+                  </td>
+                ),
+              )}
             </tr>
           ))}
-          {rows.length === 0 ? <tr><td colSpan={head.length} className="px-3 py-4 text-ink-soft">Nothing yet.</td></tr> : null}
+          {rows.length === 0 ? (
+            <tr>
+              <td colSpan={head.length} className="px-3 py-4 text-ink-soft">
+                Nothing yet.
+              </td>
+            </tr>
+          ) : null}
         </tbody>
       </table>
     </div>
@@ -88,7 +125,12 @@ function Table({ caption, head, rows }: TableSpec) {
 export function BusinessCharts() {
   const charts = useCharts();
   if (charts.isPending) return <Spinner label="Loading charts…" />;
-  if (charts.isError) return <p role="alert" className="font-semibold text-danger">{charts.error.message}</p>;
+  if (charts.isError)
+    return (
+      <p role="alert" className="font-semibold text-danger">
+        {charts.error.message}
+      </p>
+    );
   return <ChartsBody data={charts.data} />;
 }
 
@@ -124,7 +166,9 @@ function ChartsBody({ data }: { data: ChartsView }) {
         lead="Length of roll taken by cut sheets, trim included, in cm."
         chart={
           <PeriodChart data={months} period="month" unit=" cm" format={(v) => cmIn(v * 10)}>
-            {materials.map(([id, label], i) => <Bar key={id} dataKey={id} name={label} stackId="v" fill={PALETTE[i % PALETTE.length]} isAnimationActive={false} />)}
+            {materials.map(([id, label], i) => (
+              <Bar key={id} dataKey={id} name={label} stackId="v" fill={PALETTE[i % PALETTE.length]} isAnimationActive={false} />
+            ))}
           </PeriodChart>
         }
         table={{ caption: 'Vinyl used per material per month', head: ['Month', 'Material', 'Used'], rows: data.vinyl.map((v) => [v.month, v.material, cmIn(v.usedMm)]) }}

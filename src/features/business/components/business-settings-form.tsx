@@ -1,8 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { businessSettingsSchema, type BusinessSettings, type BusinessSettingsInput } from '../../../../shared/schemas/business.ts';
 import { formatMoney } from '../../../../shared/money.ts';
+import { type BusinessSettings, type BusinessSettingsInput, businessSettingsSchema } from '../../../../shared/schemas/business.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { FieldError, FormSection, MoneyField } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
@@ -13,8 +13,13 @@ import { useUpdateBusinessSettings } from '../api/update-business-settings.ts';
 type Values = { workingDays: number[]; daysOff: string[]; hourlyRateMinor: number; processingDays: number };
 const FIELDS = ['workingDays', 'daysOff', 'hourlyRateMinor', 'processingDays'] as const;
 export const WEEKDAYS = [
-  { iso: 1, label: 'Monday' }, { iso: 2, label: 'Tuesday' }, { iso: 3, label: 'Wednesday' }, { iso: 4, label: 'Thursday' },
-  { iso: 5, label: 'Friday' }, { iso: 6, label: 'Saturday' }, { iso: 7, label: 'Sunday' },
+  { iso: 1, label: 'Monday' },
+  { iso: 2, label: 'Tuesday' },
+  { iso: 3, label: 'Wednesday' },
+  { iso: 4, label: 'Thursday' },
+  { iso: 5, label: 'Friday' },
+  { iso: 6, label: 'Saturday' },
+  { iso: 7, label: 'Sunday' },
 ];
 
 /** Working weekdays, days off, processing days and the hourly rate used for labour. */
@@ -50,7 +55,16 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
   return (
     <form noValidate onSubmit={onSubmit} className="flex flex-col gap-6">
       <FormSection title="Working calendar" lead={`Ship-by dates count your processing days on these weekdays only, skipping your days off. Calendar days are in ${settings.timeZone}.`}>
-        <TextField label="Processing days" hint="Working days from payment to shipping." type="number" min={1} max={60} className="max-w-40" error={e.processingDays?.message} {...register('processingDays', { valueAsNumber: true })} />
+        <TextField
+          label="Processing days"
+          hint="Working days from payment to shipping."
+          type="number"
+          min={1}
+          max={60}
+          className="max-w-40"
+          error={e.processingDays?.message}
+          {...register('processingDays', { valueAsNumber: true })}
+        />
         <Controller
           control={control}
           name="workingDays"
@@ -61,7 +75,10 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
                 {WEEKDAYS.map((d) => {
                   const on = field.value.includes(d.iso);
                   return (
-                    <label key={d.iso} className={`flex min-h-11 cursor-pointer items-center gap-2 rounded-lg border-2 px-3 font-semibold ${on ? 'border-thread bg-thread-wash text-thread-deep' : 'border-line bg-white text-ink'}`}>
+                    <label
+                      key={d.iso}
+                      className={`flex min-h-11 cursor-pointer items-center gap-2 rounded-lg border-2 px-3 font-semibold ${on ? 'border-thread bg-thread-wash text-thread-deep' : 'border-line bg-white text-ink'}`}
+                    >
                       <input
                         type="checkbox"
                         className="size-5 accent-[var(--color-thread)]"
@@ -90,7 +107,18 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
               {daysOff.map((d) => (
                 <li key={d} className="flex items-center gap-1 rounded-full border border-line bg-paper-deep py-0.5 pr-1 pl-3 font-semibold">
                   {d}
-                  <button type="button" aria-label={`Remove day off ${d}`} className="flex size-8 items-center justify-center rounded-full hover:bg-danger-wash" onClick={() => setValue('daysOff', daysOff.filter((x) => x !== d), { shouldDirty: true })}>
+                  <button
+                    type="button"
+                    aria-label={`Remove day off ${d}`}
+                    className="flex size-8 items-center justify-center rounded-full hover:bg-danger-wash"
+                    onClick={() =>
+                      setValue(
+                        'daysOff',
+                        daysOff.filter((x) => x !== d),
+                        { shouldDirty: true },
+                      )
+                    }
+                  >
                     ×
                   </button>
                 </li>
@@ -106,12 +134,22 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
           control={control}
           name="hourlyRateMinor"
           render={({ field }) => (
-            <MoneyField label="Hourly rate" currency={settings.currency} value={field.value} onChange={field.onChange} onBlur={field.onBlur} name={field.name} error={e.hourlyRateMinor?.message} className="max-w-56" />
+            <MoneyField
+              label="Hourly rate"
+              currency={settings.currency}
+              value={field.value}
+              onChange={field.onChange}
+              onBlur={field.onBlur}
+              name={field.name}
+              error={e.hourlyRateMinor?.message}
+              className="max-w-56"
+            />
           )}
         />
       </FormSection>
       <p className="text-sm text-ink-soft">
-        Fees in margins: platform {settings.fees.platformFeeBps / 100} %; payment {settings.fees.paymentFeeBps / 100} % + {formatMoney(settings.fees.paymentFeeFixedMinor, settings.currency)} per charge.
+        Fees in margins: platform {settings.fees.platformFeeBps / 100} %; payment {settings.fees.paymentFeeBps / 100} % + {formatMoney(settings.fees.paymentFeeFixedMinor, settings.currency)} per
+        charge.
       </p>
       <div>
         <Button type="submit" pending={update.isPending} pendingLabel="Saving…">

@@ -4,27 +4,49 @@ import { Spinner } from '../../../components/ui/button.tsx';
 import { useCosts } from '../api/get-costs.ts';
 
 const COLS = [
-  ['revenueMinor', 'Price'], ['shippingMinor', 'Shipping'], ['blankMinor', 'Blank'], ['vinylMinor', 'Vinyl'], ['labourMinor', 'Labour'],
-  ['platformFeeMinor', 'Platform fee'], ['paymentFeeMinor', 'Payment fee'], ['marginMinor', 'Margin'],
+  ['revenueMinor', 'Price'],
+  ['shippingMinor', 'Shipping'],
+  ['blankMinor', 'Blank'],
+  ['vinylMinor', 'Vinyl'],
+  ['labourMinor', 'Labour'],
+  ['platformFeeMinor', 'Platform fee'],
+  ['paymentFeeMinor', 'Payment fee'],
+  ['marginMinor', 'Margin'],
 ] as const;
 
 /** Cost of goods and margin per line and per order. */
 export function CostsTable() {
   const costs = useCosts();
   if (costs.isPending) return <Spinner label="Working out costs…" />;
-  if (costs.isError) return <p role="alert" className="font-semibold text-danger">{costs.error.message}</p>;
+  if (costs.isError)
+    return (
+      <p role="alert" className="font-semibold text-danger">
+        {costs.error.message}
+      </p>
+    );
   const { currency, orders, totals } = costs.data;
   const money = (m: number) => formatMoney(m, currency);
   return (
     <section aria-labelledby="costs-title" className="flex flex-col gap-3">
-      <h2 id="costs-title" className="text-xl font-extrabold">Cost of goods and margin</h2>
-      <p className="text-ink-soft">Vinyl is each line’s share of its cut sheets by piece area once cut (marked “cut”), an estimate from the design before. Fees and shipping are split across an order’s lines so every column adds up.</p>
+      <h2 id="costs-title" className="text-xl font-extrabold">
+        Cost of goods and margin
+      </h2>
+      <p className="text-ink-soft">
+        Vinyl is each line’s share of its cut sheets by piece area once cut (marked “cut”), an estimate from the design before. Fees and shipping are split across an order’s lines so every column adds
+        up.
+      </p>
       <div className="overflow-x-auto rounded-lg border border-line bg-white">
         <table className="w-full min-w-[56rem] text-left text-sm">
           <thead className="bg-paper-deep">
             <tr>
-              <th scope="col" className="px-3 py-2">Order / item</th>
-              {COLS.map(([, h]) => <th key={h} scope="col" className="px-3 py-2 text-right">{h}</th>)}
+              <th scope="col" className="px-3 py-2">
+                Order / item
+              </th>
+              {COLS.map(([, h]) => (
+                <th key={h} scope="col" className="px-3 py-2 text-right">
+                  {h}
+                </th>
+              ))}
             </tr>
           </thead>
           <tbody>
@@ -35,18 +57,34 @@ export function CostsTable() {
                     <th scope="row" className="px-3 py-1.5 font-normal">
                       {l.quantity} × {l.listingTitle} <span className="text-ink-soft">({l.vinylSource === 'cut' ? 'cut' : 'estimate'})</span>
                     </th>
-                    {COLS.map(([k]) => <td key={k} className={`px-3 py-1.5 text-right tabular-nums ${k === 'marginMinor' && l[k] < 0 ? 'font-bold text-danger' : ''}`}>{money(l[k])}</td>)}
+                    {COLS.map(([k]) => (
+                      <td key={k} className={`px-3 py-1.5 text-right tabular-nums ${k === 'marginMinor' && l[k] < 0 ? 'font-bold text-danger' : ''}`}>
+                        {money(l[k])}
+                      </td>
+                    ))}
                   </tr>
                 ))}
                 <tr className="border-t border-line bg-paper">
-                  <th scope="row" className="px-3 py-1.5 font-bold">Order {o.orderNumber}</th>
-                  {COLS.map(([k]) => <td key={k} className={`px-3 py-1.5 text-right font-bold tabular-nums ${k === 'marginMinor' && o.totals[k] < 0 ? 'text-danger' : ''}`}>{money(o.totals[k])}</td>)}
+                  <th scope="row" className="px-3 py-1.5 font-bold">
+                    Order {o.orderNumber}
+                  </th>
+                  {COLS.map(([k]) => (
+                    <td key={k} className={`px-3 py-1.5 text-right font-bold tabular-nums ${k === 'marginMinor' && o.totals[k] < 0 ? 'text-danger' : ''}`}>
+                      {money(o.totals[k])}
+                    </td>
+                  ))}
                 </tr>
               </Fragment>
             ))}
             <tr className="border-t-2 border-ink">
-              <th scope="row" className="px-3 py-2 font-extrabold">All orders</th>
-              {COLS.map(([k]) => <td key={k} className="px-3 py-2 text-right font-extrabold tabular-nums">{money(totals[k])}</td>)}
+              <th scope="row" className="px-3 py-2 font-extrabold">
+                All orders
+              </th>
+              {COLS.map(([k]) => (
+                <td key={k} className="px-3 py-2 text-right font-extrabold tabular-nums">
+                  {money(totals[k])}
+                </td>
+              ))}
             </tr>
           </tbody>
         </table>

@@ -1,7 +1,7 @@
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, type SortingState, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
-import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { formatMoney } from '../../../../shared/money.ts';
 import { LEDGER_KIND_LABELS, type LedgerEntry, type MonthBalance } from '../../../../shared/business/ledger.ts';
+import { formatMoney } from '../../../../shared/money.ts';
 import type { LedgerQuery } from '../../../../shared/schemas/business.ts';
 import { buttonClasses } from '../../../components/ui/button.tsx';
 import { CardTable } from '../../../components/ui/card-table.tsx';
@@ -30,7 +30,14 @@ export function LedgerTable() {
     ],
     [currency],
   );
-  const table = useReactTable({ data: ledger.data?.entries ?? [], columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  const table = useReactTable({
+    data: ledger.data?.entries ?? [],
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
   const monthColumns = useMemo(() => {
     const amount = (key: Exclude<keyof MonthBalance, 'month'>, header: string) => monthCol.accessor(key, { header, enableSorting: false, cell: (c) => money(c.getValue()), meta: { num: true } });
     return [
@@ -68,11 +75,15 @@ export function LedgerTable() {
         {(data) => (
           <>
             <section aria-labelledby="months-title" className="flex flex-col gap-2">
-              <h2 id="months-title" className="text-xl font-extrabold">Balance by month</h2>
+              <h2 id="months-title" className="text-xl font-extrabold">
+                Balance by month
+              </h2>
               <CardTable table={months} label="Balance by month" minWidthClass="min-w-[40rem]" rowHeaders phoneCards={false} empty="No money has moved yet." />
             </section>
             <section aria-labelledby="entries-title" className="flex flex-col gap-2">
-              <h2 id="entries-title" className="text-xl font-extrabold">Movements <span className="text-base font-semibold text-ink-soft">({data.entries.length})</span></h2>
+              <h2 id="entries-title" className="text-xl font-extrabold">
+                Movements <span className="text-base font-semibold text-ink-soft">({data.entries.length})</span>
+              </h2>
               <CardTable table={table} label="Movements" minWidthClass="min-w-[40rem]" empty="Nothing in these dates." />
             </section>
           </>

@@ -1,8 +1,8 @@
 import { useEffect, useMemo, useState } from 'react';
 import { formatMoney } from '../../../../shared/money.ts';
-import { priceCheckSchema, type PriceCheckInput, type PriceCheckResult } from '../../../../shared/schemas/business.ts';
-import { TextField } from '../../../components/ui/text-field.tsx';
+import { type PriceCheckInput, type PriceCheckResult, priceCheckSchema } from '../../../../shared/schemas/business.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
+import { TextField } from '../../../components/ui/text-field.tsx';
 import { usePriceCheck } from '../api/price-check.ts';
 
 type Props = {
@@ -47,7 +47,9 @@ export function PricingHelper({ values, currency }: Props) {
   return (
     <section aria-labelledby="pricing-helper-title" className="flex flex-col gap-4 rounded-lg border border-line bg-paper p-4">
       <div>
-        <h3 id="pricing-helper-title" className="text-lg font-extrabold text-ink">Pricing helper</h3>
+        <h3 id="pricing-helper-title" className="text-lg font-extrabold text-ink">
+          Pricing helper
+        </h3>
         <p className="text-sm text-ink-soft">Expected cost of one item from the engine’s geometry, your material prices, blank cost, labour at your hourly rate and the fees.</p>
       </div>
       <TextField label="Sample name" hint="Try the names your shoppers type." value={sampleName} maxLength={40} onChange={(e) => setSampleName(e.target.value)} className="max-w-xs" />
@@ -65,21 +67,41 @@ export function PricingHelper({ values, currency }: Props) {
               <caption className="sr-only">Cost and margin of one item</caption>
               <thead>
                 <tr className="border-b border-line text-sm text-ink-soft">
-                  <th scope="col" className="py-1.5 pr-3">Per item</th>
-                  <th scope="col" className="py-1.5 pr-3 text-right">“{r.sample.name}”</th>
-                  {r.longest ? <th scope="col" className="py-1.5 text-right">Longest: “{r.longest.name}”</th> : null}
+                  <th scope="col" className="py-1.5 pr-3">
+                    Per item
+                  </th>
+                  <th scope="col" className="py-1.5 pr-3 text-right">
+                    “{r.sample.name}”
+                  </th>
+                  {r.longest ? (
+                    <th scope="col" className="py-1.5 text-right">
+                      Longest: “{r.longest.name}”
+                    </th>
+                  ) : null}
                 </tr>
               </thead>
               <tbody>
                 {ROWS.map((row) => (
                   <tr key={row.key} className="border-b border-line/60">
-                    <th scope="row" className="py-1.5 pr-3 font-semibold">{row.label}</th>
-                    <td className="py-1.5 pr-3 text-right tabular-nums">{row.minus ? '−' : ''}{money(r.sample[row.key] as number)}</td>
-                    {r.longest ? <td className="py-1.5 text-right tabular-nums">{row.minus ? '−' : ''}{money(r.longest[row.key] as number)}</td> : null}
+                    <th scope="row" className="py-1.5 pr-3 font-semibold">
+                      {row.label}
+                    </th>
+                    <td className="py-1.5 pr-3 text-right tabular-nums">
+                      {row.minus ? '−' : ''}
+                      {money(r.sample[row.key] as number)}
+                    </td>
+                    {r.longest ? (
+                      <td className="py-1.5 text-right tabular-nums">
+                        {row.minus ? '−' : ''}
+                        {money(r.longest[row.key] as number)}
+                      </td>
+                    ) : null}
                   </tr>
                 ))}
                 <tr className="font-extrabold">
-                  <th scope="row" className="py-1.5 pr-3">Margin</th>
+                  <th scope="row" className="py-1.5 pr-3">
+                    Margin
+                  </th>
                   <td className={`py-1.5 pr-3 text-right tabular-nums ${r.sample.marginMinor < 0 ? 'text-danger' : 'text-thread-deep'}`}>{money(r.sample.marginMinor)}</td>
                   {r.longest ? <td className={`py-1.5 text-right tabular-nums ${r.longest.marginMinor < 0 ? 'text-danger' : 'text-thread-deep'}`}>{money(r.longest.marginMinor)}</td> : null}
                 </tr>
@@ -93,7 +115,9 @@ export function PricingHelper({ values, currency }: Props) {
               ))}
             </ul>
           ) : (
-            <p role="status" className="text-sm font-semibold text-thread-deep">No loss at this price, even for the longest name.</p>
+            <p role="status" className="text-sm font-semibold text-thread-deep">
+              No loss at this price, even for the longest name.
+            </p>
           )}
         </>
       ) : null}

@@ -5,8 +5,7 @@ import { cartKeys } from './keys.ts';
 
 export const getCart = (signal?: AbortSignal) => api.get<Cart>('/api/cart', { signal });
 
-export const getCartQueryOptions = (viewer: string) =>
-  queryOptions({ queryKey: cartKeys.current(viewer), queryFn: ({ signal }) => getCart(signal), staleTime: 5_000 });
+export const getCartQueryOptions = (viewer: string) => queryOptions({ queryKey: cartKeys.current(viewer), queryFn: ({ signal }) => getCart(signal), staleTime: 5_000 });
 
 export function useCart(viewer: string) {
   return useQuery(getCartQueryOptions(viewer));

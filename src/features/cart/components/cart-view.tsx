@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import type { Cart } from '../../../../shared/schemas/cart.ts';
 import { formatMoney } from '../../../../shared/money.ts';
+import type { Cart } from '../../../../shared/schemas/cart.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useRemoveCartLine } from '../api/remove-cart-line.ts';
@@ -19,7 +19,14 @@ export function CartView({ cart, checkout }: { cart: Cart; checkout: ReactNode }
         {cart.shops.map((shop) => (
           <section key={shop.shopId} aria-labelledby={`shop-${shop.shopId}`} className="rounded-lg border border-line bg-white p-5 shadow-sm">
             <h2 id={`shop-${shop.shopId}`} className="mb-4 text-lg font-extrabold">
-              From {shop.shopSlug ? <Link to={`/shops/${shop.shopSlug}`} className="underline decoration-thread decoration-2 underline-offset-4">{shop.shopName}</Link> : shop.shopName}
+              From{' '}
+              {shop.shopSlug ? (
+                <Link to={`/shops/${shop.shopSlug}`} className="underline decoration-thread decoration-2 underline-offset-4">
+                  {shop.shopName}
+                </Link>
+              ) : (
+                shop.shopName
+              )}
             </h2>
             <ul className="flex flex-col divide-y divide-line">
               {shop.lines.map((line) => (
@@ -31,7 +38,8 @@ export function CartView({ cart, checkout }: { cart: Cart; checkout: ReactNode }
                       <p className="font-bold">{formatMoney(line.lineTotalMinor, shop.currency)}</p>
                     </div>
                     <p className="text-sm text-ink-soft">
-                      {formatMoney(line.unitPriceMinor, shop.currency)} each · {line.snapshot.blank.label} · {line.snapshot.geometry.layerCount} {line.snapshot.geometry.layerCount === 1 ? 'layer' : 'layers'}
+                      {formatMoney(line.unitPriceMinor, shop.currency)} each · {line.snapshot.blank.label} · {line.snapshot.geometry.layerCount}{' '}
+                      {line.snapshot.geometry.layerCount === 1 ? 'layer' : 'layers'}
                     </p>
                     <PersonalisationSummary snapshot={line.snapshot} />
                     {!line.available ? (
@@ -55,18 +63,38 @@ export function CartView({ cart, checkout }: { cart: Cart; checkout: ReactNode }
               ))}
             </ul>
             <dl className="mt-2 flex flex-col gap-1 border-t border-line pt-3 text-sm">
-              <div className="flex justify-between"><dt>Items</dt><dd>{formatMoney(shop.subtotalMinor, shop.currency)}</dd></div>
-              <div className="flex justify-between"><dt>Shipping from {shop.shopName}</dt><dd>{formatMoney(shop.shippingMinor, shop.currency)}</dd></div>
-              <div className="flex justify-between font-bold"><dt>{shop.shopName} total</dt><dd>{formatMoney(shop.totalMinor, shop.currency)}</dd></div>
+              <div className="flex justify-between">
+                <dt>Items</dt>
+                <dd>{formatMoney(shop.subtotalMinor, shop.currency)}</dd>
+              </div>
+              <div className="flex justify-between">
+                <dt>Shipping from {shop.shopName}</dt>
+                <dd>{formatMoney(shop.shippingMinor, shop.currency)}</dd>
+              </div>
+              <div className="flex justify-between font-bold">
+                <dt>{shop.shopName} total</dt>
+                <dd>{formatMoney(shop.totalMinor, shop.currency)}</dd>
+              </div>
             </dl>
           </section>
         ))}
       </div>
       <aside aria-label="Order total" className="flex h-fit flex-col gap-4 rounded-lg border-2 border-ink/10 bg-white p-5 shadow-sm lg:sticky lg:top-4">
         <dl className="flex flex-col gap-1.5">
-          <div className="flex justify-between"><dt>Items ({cart.itemCount})</dt><dd>{formatMoney(cart.subtotalMinor, cur)}</dd></div>
-          <div className="flex justify-between"><dt>Shipping ({cart.shops.length} {cart.shops.length === 1 ? 'shop' : 'shops'})</dt><dd>{formatMoney(cart.shippingMinor, cur)}</dd></div>
-          <div className="flex justify-between border-t border-line pt-2 text-lg font-extrabold"><dt>Total</dt><dd data-testid="cart-total">{formatMoney(cart.totalMinor, cur)}</dd></div>
+          <div className="flex justify-between">
+            <dt>Items ({cart.itemCount})</dt>
+            <dd>{formatMoney(cart.subtotalMinor, cur)}</dd>
+          </div>
+          <div className="flex justify-between">
+            <dt>
+              Shipping ({cart.shops.length} {cart.shops.length === 1 ? 'shop' : 'shops'})
+            </dt>
+            <dd>{formatMoney(cart.shippingMinor, cur)}</dd>
+          </div>
+          <div className="flex justify-between border-t border-line pt-2 text-lg font-extrabold">
+            <dt>Total</dt>
+            <dd data-testid="cart-total">{formatMoney(cart.totalMinor, cur)}</dd>
+          </div>
         </dl>
         <p className="text-sm text-ink-soft">One payment covers every shop. Each shop gets its own order and checks your personalisation before cutting.</p>
         {checkout}

@@ -6,7 +6,10 @@ import { DesignOnBlank, DesignPieces, pictureOfLineBlank } from '../../../compon
  * drawing (the snapshot's pieces are already placed on the blank, in its millimetres).
  */
 export function DesignPreview({ snapshot, size = 112 }: { snapshot: LineSnapshot; size?: number }) {
-  const words = snapshot.summary.filter((s) => !/colour/i.test(s.label)).map((s) => s.value).join(', ');
+  const words = snapshot.summary
+    .filter((s) => !/colour/i.test(s.label))
+    .map((s) => s.value)
+    .join(', ');
   return (
     <DesignOnBlank blank={pictureOfLineBlank(snapshot.blank)} size={size} label={`Preview of the design${words ? `: ${words}` : ''}`} className="rounded-lg border border-line bg-paper-deep">
       <DesignPieces pieces={snapshot.geometry.pieces} />

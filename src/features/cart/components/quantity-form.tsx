@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { MAX_LINE_QUANTITY, updateCartLineSchema, type UpdateCartLineInput } from '../../../../shared/schemas/cart.ts';
+import { MAX_LINE_QUANTITY, type UpdateCartLineInput, updateCartLineSchema } from '../../../../shared/schemas/cart.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { applyServerErrors } from '../../../lib/form-errors.ts';

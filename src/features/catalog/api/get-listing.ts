@@ -8,8 +8,7 @@ export async function getListing(slug: string, signal?: AbortSignal): Promise<Li
   return api.get<ListingPage>(`/api/listings/${encodeURIComponent(slug)}`, { signal });
 }
 
-export const getListingQueryOptions = (slug: string) =>
-  queryOptions({ queryKey: catalogKeys.listing(slug), queryFn: ({ signal }) => getListing(slug, signal) });
+export const getListingQueryOptions = (slug: string) => queryOptions({ queryKey: catalogKeys.listing(slug), queryFn: ({ signal }) => getListing(slug, signal) });
 
 export function useListing(slug: string) {
   return useQuery(getListingQueryOptions(slug));

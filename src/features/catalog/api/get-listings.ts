@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { catalogPageSchema, type CatalogPage } from '../../../../shared/schemas/catalog.ts';
+import { type CatalogPage, catalogPageSchema } from '../../../../shared/schemas/catalog.ts';
 import { api } from '../../../lib/api-client.ts';
-import { catalogKeys, type CatalogFilters } from './keys.ts';
+import { type CatalogFilters, catalogKeys } from './keys.ts';
 
 function toQueryString(filters: CatalogFilters): string {
   const params = new URLSearchParams();

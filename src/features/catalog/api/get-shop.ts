@@ -8,8 +8,7 @@ export async function getShop(slug: string, signal?: AbortSignal): Promise<Publi
   return api.get<PublicShop>(`/api/shops/${encodeURIComponent(slug)}`, { signal });
 }
 
-export const getShopQueryOptions = (slug: string) =>
-  queryOptions({ queryKey: catalogKeys.shop(slug), queryFn: ({ signal }) => getShop(slug, signal) });
+export const getShopQueryOptions = (slug: string) => queryOptions({ queryKey: catalogKeys.shop(slug), queryFn: ({ signal }) => getShop(slug, signal) });
 
 export function useShop(slug: string) {
   return useQuery(getShopQueryOptions(slug));

@@ -1,22 +1,16 @@
 import { Link } from 'react-router-dom';
+import { formatMoney } from '../../../../shared/money.ts';
 import type { CatalogItem } from '../../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
-import { formatMoney } from '../../../../shared/money.ts';
-import { paths } from '../../../config/paths.ts';
 import { DesignOnBlank, pictureOfKind } from '../../../components/design/design-on-blank.tsx';
+import { paths } from '../../../config/paths.ts';
 
 /** One listing in a grid: photo (or a drawn stand-in), title linking to the listing, shop, base price. */
 export function ListingCard({ item, headingLevel = 3 }: { item: CatalogItem; headingLevel?: 2 | 3 }) {
   const Heading = headingLevel === 2 ? 'h2' : 'h3';
   return (
     <article className="group relative flex h-full flex-col overflow-hidden rounded-lg border border-line bg-white shadow-sm transition-shadow focus-within:shadow-md hover:shadow-md">
-      <div className="aspect-[4/3] bg-paper-deep">
-        {item.thumbnailUrl ? (
-          <img src={item.thumbnailUrl} alt="" loading="lazy" className="size-full object-cover" />
-        ) : (
-          <NoPhoto />
-        )}
-      </div>
+      <div className="aspect-[4/3] bg-paper-deep">{item.thumbnailUrl ? <img src={item.thumbnailUrl} alt="" loading="lazy" className="size-full object-cover" /> : <NoPhoto />}</div>
       <div className="flex flex-1 flex-col gap-1.5 p-4">
         <Heading className="text-lg leading-snug font-extrabold">
           {/* the whole card is clickable through this link's ::after; the shop link sits above it */}

@@ -2,9 +2,10 @@
  * The search page keeps its whole state in the URL (shareable, survives a reload, back button
  * works). Prices are in major units in the URL ("minPrice=15") and in minor units for the API.
  */
-import { CATALOG_SORTS, type CatalogQuery } from '../../../../shared/schemas/catalog.ts';
-import { BLANK_KINDS, OCCASIONS, type BlankKind, type Occasion } from '../../../../shared/schemas/listing.ts';
+
 import { parseMajor } from '../../../../shared/money.ts';
+import { CATALOG_SORTS, type CatalogQuery } from '../../../../shared/schemas/catalog.ts';
+import { BLANK_KINDS, type BlankKind, OCCASIONS, type Occasion } from '../../../../shared/schemas/listing.ts';
 import type { CatalogFilters } from '../api/keys.ts';
 
 export type SearchState = {

@@ -4,8 +4,7 @@ import { api } from '../../../lib/api-client.ts';
 import { checkoutKeys } from './keys.ts';
 
 /** The server holds the request up to `wait` ms for the payment notice, so one call usually suffices. */
-export const getCheckoutStatus = (sessionId: string, signal?: AbortSignal) =>
-  api.get<CheckoutStatus>(`/api/checkout/${encodeURIComponent(sessionId)}/status?wait=8000`, { signal });
+export const getCheckoutStatus = (sessionId: string, signal?: AbortSignal) => api.get<CheckoutStatus>(`/api/checkout/${encodeURIComponent(sessionId)}/status?wait=8000`, { signal });
 
 export const getCheckoutStatusQueryOptions = (sessionId: string) =>
   queryOptions({

@@ -27,7 +27,9 @@ export function CheckoutReturn({ sessionId, onConfirmed }: { sessionId: string; 
       <div role="alert" className="flex flex-col gap-3">
         <p className="font-bold">We could not check this payment.</p>
         <p>{status.error.message}</p>
-        <ButtonLink to={paths.cart.getHref()} variant="secondary">Back to your cart</ButtonLink>
+        <ButtonLink to={paths.cart.getHref()} variant="secondary">
+          Back to your cart
+        </ButtonLink>
       </div>
     );
   }
@@ -36,7 +38,9 @@ export function CheckoutReturn({ sessionId, onConfirmed }: { sessionId: string; 
     return (
       <section aria-labelledby="confirmed" className="flex flex-col gap-5">
         <div role="status" className="rounded-lg border-2 border-thread bg-thread-wash p-5">
-          <h2 id="confirmed" className="text-2xl font-extrabold">Thank you, your order is confirmed</h2>
+          <h2 id="confirmed" className="text-2xl font-extrabold">
+            Thank you, your order is confirmed
+          </h2>
           <p>
             You paid {formatMoney(s.totalMinor, s.currency)}. {s.orders.length > 1 ? `Each of the ${s.orders.length} shops has its own order:` : 'Your order:'}
           </p>
@@ -73,8 +77,14 @@ export function CheckoutReturn({ sessionId, onConfirmed }: { sessionId: string; 
       <p className="font-bold">{s.state === 'expired' ? 'This payment page expired before it was used.' : 'Your payment did not go through.'}</p>
       {s.problem ? <p>{s.problem}</p> : null}
       <div className="flex flex-wrap gap-3">
-        {s.payUrl ? <a href={s.payUrl} className="font-bold underline">Try again on the payment page</a> : null}
-        <ButtonLink to={paths.cart.getHref()} variant="secondary">Back to your cart</ButtonLink>
+        {s.payUrl ? (
+          <a href={s.payUrl} className="font-bold underline">
+            Try again on the payment page
+          </a>
+        ) : null}
+        <ButtonLink to={paths.cart.getHref()} variant="secondary">
+          Back to your cart
+        </ButtonLink>
       </div>
     </div>
   );

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { fontListSchema, type FontInfo } from '../../../../shared/schemas/engine.ts';
+import { type FontInfo, fontListSchema } from '../../../../shared/schemas/engine.ts';
 import { api } from '../../../lib/api-client.ts';
 import { fontKeys } from './keys.ts';
 

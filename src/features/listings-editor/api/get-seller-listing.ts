@@ -7,8 +7,7 @@ export async function getSellerListing(id: string, signal?: AbortSignal): Promis
   return (await api.get<{ listing: SellerListing }>(`/api/seller/listings/${encodeURIComponent(id)}`, { signal })).listing;
 }
 
-export const getSellerListingQueryOptions = (id: string) =>
-  queryOptions({ queryKey: sellerListingKeys.detail(id), queryFn: ({ signal }) => getSellerListing(id, signal) });
+export const getSellerListingQueryOptions = (id: string) => queryOptions({ queryKey: sellerListingKeys.detail(id), queryFn: ({ signal }) => getSellerListing(id, signal) });
 
 export function useSellerListing(id: string | undefined) {
   return useQuery({ ...getSellerListingQueryOptions(id ?? ''), enabled: Boolean(id) });

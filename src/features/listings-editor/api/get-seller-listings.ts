@@ -1,8 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { SellerListing } from '../../../../shared/schemas/listing.ts';
-import { pageSearch, type Page } from '../../../../shared/schemas/pagination.ts';
+import { type Page, pageSearch } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
-import { sellerListingKeys, type SellerListingsFilters } from './keys.ts';
+import { type SellerListingsFilters, sellerListingKeys } from './keys.ts';
 
 /** GET /api/seller/listings: one page of the shop's listings, last changed first. */
 export async function getSellerListings(filters: SellerListingsFilters, signal?: AbortSignal): Promise<Page<SellerListing>> {

@@ -68,7 +68,10 @@ function useFontFaces(fonts: FontInfo[]) {
       if (loaded.has(f.id)) continue;
       loaded.add(f.id);
       const face = new FontFace(`namesake-${f.id}`, `url(${f.fileUrl}) format('truetype')`);
-      face.load().then((ff) => document.fonts.add(ff)).catch(() => loaded.delete(f.id));
+      face
+        .load()
+        .then((ff) => document.fonts.add(ff))
+        .catch(() => loaded.delete(f.id));
     }
   }, [fonts]);
 }

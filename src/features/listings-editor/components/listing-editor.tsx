@@ -1,16 +1,16 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useRef, useState, type ComponentType, type ReactNode } from 'react';
-import { Controller, useForm, useWatch, type FieldErrors, type Path } from 'react-hook-form';
+import { type ComponentType, type ReactNode, useEffect, useRef, useState } from 'react';
+import { Controller, type FieldErrors, type Path, useForm, useWatch } from 'react-hook-form';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
 import {
   BLANK_DEFAULTS,
   BLANK_KINDS,
-  listingInputSchema,
-  OCCASION_LABELS,
-  OCCASIONS,
   type BlankKind,
   type ListingContent,
   type ListingInput,
+  listingInputSchema,
+  OCCASION_LABELS,
+  OCCASIONS,
   type SellerListing,
 } from '../../../../shared/schemas/listing.ts';
 import type { Material } from '../../../../shared/schemas/material.ts';
@@ -23,7 +23,7 @@ import { isApiError } from '../../../lib/api-client.ts';
 import { useListingAction } from '../api/listing-actions.ts';
 import { useCreateListing, useUpdateListing } from '../api/save-listing.ts';
 import { LISTING_STATE_LABELS, ListingStateBadges } from './listing-state.tsx';
-import { PersonalisationEditor, type EditorMotif, type MotifPreviewProps } from './personalisation-editor.tsx';
+import { type EditorMotif, type MotifPreviewProps, PersonalisationEditor } from './personalisation-editor.tsx';
 
 export type PhotoPickerProps = { value: string[]; onChange: (ids: string[]) => void; error?: string };
 /** the editor's current (watched) values and the shop's currency; the helper sends only the parts that cost */
@@ -74,7 +74,10 @@ function readDraft(id: string | undefined): ListingInput | null {
 }
 function writeDraft(id: string | undefined, values: unknown) {
   try {
-    window.localStorage.setItem(draftKey(id), JSON.stringify(values, (_k, v) => (typeof v === 'number' && Number.isNaN(v) ? '__NaN__' : v)));
+    window.localStorage.setItem(
+      draftKey(id),
+      JSON.stringify(values, (_k, v) => (typeof v === 'number' && Number.isNaN(v) ? '__NaN__' : v)),
+    );
   } catch {
     // storage full or disabled: the form still works, only the browser copy is lost
   }
@@ -175,9 +178,7 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
       {listing ? (
         <div className="flex flex-col gap-2 rounded-lg border border-line bg-paper-deep p-4">
           <ListingStateBadges state={listing.state} pendingReview={listing.pendingReview} />
-          <p className="text-ink-soft">
-            {listing.pendingReview ? 'Your latest changes wait for review; shoppers still see the approved version.' : LISTING_STATE_LABELS[listing.state].help}
-          </p>
+          <p className="text-ink-soft">{listing.pendingReview ? 'Your latest changes wait for review; shoppers still see the approved version.' : LISTING_STATE_LABELS[listing.state].help}</p>
           {listing.rejectionReason ? (
             <p className="font-semibold text-danger">
               Reason from the moderator: <span className="font-normal whitespace-pre-wrap text-ink">{listing.rejectionReason}</span>
@@ -237,11 +238,7 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
           </div>
           <FieldError message={e.occasions?.message} />
         </fieldset>
-        <CheckboxField
-          label="Has small decorations (bows, buttons, gems)"
-          hint="Shoppers then see a choking-hazard note for children under 3."
-          {...register('hasSmallDecorations')}
-        />
+        <CheckboxField label="Has small decorations (bows, buttons, gems)" hint="Shoppers then see a choking-hazard note for children under 3." {...register('hasSmallDecorations')} />
       </FormSection>
 
       <FormSection title="Blank and print area" lead="Prefilled for each blank; change them to match the blanks you buy.">
@@ -287,9 +284,7 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
             />
           ))}
         </div>
-        <p className="text-sm text-ink-soft">
-          Top offset: from the top edge of the blank ({BLANK_DEFAULTS[blankKind]?.label ?? 'blank'}) down to the top of the print area.
-        </p>
+        <p className="text-sm text-ink-soft">Top offset: from the top edge of the blank ({BLANK_DEFAULTS[blankKind]?.label ?? 'blank'}) down to the top of the print area.</p>
       </FormSection>
 
       <FormSection title="Price">
@@ -298,7 +293,16 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
             control={control}
             name="basePriceMinor"
             render={({ field }) => (
-              <MoneyField label="Base price" hint="With one layer of vinyl." currency={currency} value={field.value} onChange={field.onChange} onBlur={field.onBlur} name={field.name} error={e.basePriceMinor?.message} />
+              <MoneyField
+                label="Base price"
+                hint="With one layer of vinyl."
+                currency={currency}
+                value={field.value}
+                onChange={field.onChange}
+                onBlur={field.onBlur}
+                name={field.name}
+                error={e.basePriceMinor?.message}
+              />
             )}
           />
           <Controller
@@ -321,7 +325,11 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
       </FormSection>
 
       <FormSection title="Photos" lead="Up to 8. The first is the thumbnail in search results.">
-        <Controller control={control} name="photoIds" render={({ field }) => <PhotoPicker value={field.value ?? []} onChange={field.onChange} error={e.photoIds?.message ?? e.photoIds?.root?.message} />} />
+        <Controller
+          control={control}
+          name="photoIds"
+          render={({ field }) => <PhotoPicker value={field.value ?? []} onChange={field.onChange} error={e.photoIds?.message ?? e.photoIds?.root?.message} />}
+        />
       </FormSection>
 
       <PersonalisationEditor

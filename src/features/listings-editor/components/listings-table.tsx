@@ -1,11 +1,11 @@
-import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, type SortingState, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { BLANK_DEFAULTS, type SellerListing } from '../../../../shared/schemas/listing.ts';
 import { formatMoney } from '../../../../shared/money.ts';
+import { BLANK_DEFAULTS, type SellerListing } from '../../../../shared/schemas/listing.ts';
+import { CardTable } from '../../../components/ui/card-table.tsx';
 import type { ListingAction } from '../api/listing-actions.ts';
 import { ListingStateBadges } from './listing-state.tsx';
-import { CardTable } from '../../../components/ui/card-table.tsx';
 
 const col = createColumnHelper<SellerListing>();
 const dateFmt = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });

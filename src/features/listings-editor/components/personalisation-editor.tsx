@@ -1,5 +1,5 @@
 import type { ComponentType, ReactNode } from 'react';
-import { Controller, useFieldArray, useWatch, type Control, type FieldErrors, type UseFormRegister, type UseFormSetValue } from 'react-hook-form';
+import { type Control, Controller, type FieldErrors, type UseFormRegister, type UseFormSetValue, useFieldArray, useWatch } from 'react-hook-form';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
 import type { ListingInput } from '../../../../shared/schemas/listing.ts';
 import type { Material } from '../../../../shared/schemas/material.ts';
@@ -63,7 +63,15 @@ function TextFieldsEditor({ control, register, errors, fonts, materials }: Props
             </div>
             <div className="grid grid-cols-1 gap-4 sm:grid-cols-3">
               <TextField label="Label" hint="What the shopper sees, e.g. “Name”." maxLength={60} error={fe?.label?.message} {...register(`personalisation.textFields.${i}.label`)} />
-              <TextField label="Short id" hint="Lower-case, used on orders." maxLength={32} spellCheck={false} autoCapitalize="none" error={fe?.id?.message} {...register(`personalisation.textFields.${i}.id`)} />
+              <TextField
+                label="Short id"
+                hint="Lower-case, used on orders."
+                maxLength={32}
+                spellCheck={false}
+                autoCapitalize="none"
+                error={fe?.id?.message}
+                {...register(`personalisation.textFields.${i}.id`)}
+              />
               <TextField
                 label="Max length"
                 hint="Characters."
@@ -190,7 +198,11 @@ function MotifsEditor({ control, register, errors, materials, motifs, MotifPrevi
                       </label>
                     </fieldset>
                     {l?.mode === 'fixed' ? (
-                      <SelectField label={`Material for ${l.layerId}`} error={le?.materialId?.message} {...register(`personalisation.motifChoices.${i}.layers.${j}.materialId`, { setValueAs: (v: string) => v || undefined })}>
+                      <SelectField
+                        label={`Material for ${l.layerId}`}
+                        error={le?.materialId?.message}
+                        {...register(`personalisation.motifChoices.${i}.layers.${j}.materialId`, { setValueAs: (v: string) => v || undefined })}
+                      >
                         <option value="">Pick a material</option>
                         {materials.map((m) => (
                           <option key={m.id} value={m.id}>

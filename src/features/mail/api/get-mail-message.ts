@@ -18,8 +18,7 @@ export async function getMailMessage(id: string, signal?: AbortSignal): Promise<
   return mailMessageSchema.parse(await api.get<unknown>(`/api/admin/mail/${encodeURIComponent(id)}`, { signal }));
 }
 
-export const getMailMessageQueryOptions = (id: string) =>
-  queryOptions({ queryKey: mailKeys.detail(id), queryFn: ({ signal }) => getMailMessage(id, signal), staleTime: Infinity });
+export const getMailMessageQueryOptions = (id: string) => queryOptions({ queryKey: mailKeys.detail(id), queryFn: ({ signal }) => getMailMessage(id, signal), staleTime: Infinity });
 
 export function useMailMessage(id: string | null) {
   return useQuery({ ...getMailMessageQueryOptions(id ?? ''), enabled: Boolean(id) });

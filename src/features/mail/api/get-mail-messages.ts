@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
-import { pageSchema, pageSearch, type Page, type PageInput } from '../../../../shared/schemas/pagination.ts';
+import { type Page, type PageInput, pageSchema, pageSearch } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
 import { mailKeys } from './keys.ts';
 

@@ -10,7 +10,12 @@ export function MailList({ selectedId }: { selectedId: string | null }) {
   const messages = useMailMessages({ page });
 
   if (messages.isPending) return <Spinner label="Loading mail…" />;
-  if (messages.isError) return <p role="alert" className="font-semibold text-danger">{messages.error.message}</p>;
+  if (messages.isError)
+    return (
+      <p role="alert" className="font-semibold text-danger">
+        {messages.error.message}
+      </p>
+    );
   if (messages.data.total === 0) {
     return <p className="rounded-lg border-2 border-dashed border-line p-6 text-center text-ink-soft">No mail captured yet. A password reset or an order will put one here.</p>;
   }

@@ -15,7 +15,12 @@ export function MailViewer({ id }: { id: string | null }) {
     return <p className="rounded-lg border-2 border-dashed border-line p-10 text-center text-ink-soft">Choose a message to read it.</p>;
   }
   if (message.isPending) return <Spinner label="Opening message…" />;
-  if (message.isError) return <p role="alert" className="font-semibold text-danger">{message.error.message}</p>;
+  if (message.isError)
+    return (
+      <p role="alert" className="font-semibold text-danger">
+        {message.error.message}
+      </p>
+    );
 
   const m = message.data;
   const hasHtml = Boolean(m.html);

@@ -1,8 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { Material } from '../../../../shared/schemas/material.ts';
-import { PAGE_LIMIT_MAX, pageCount, pageSearch, type Page, type PageInput } from '../../../../shared/schemas/pagination.ts';
+import { PAGE_LIMIT_MAX, type Page, type PageInput, pageCount, pageSearch } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
-import { materialKeys, type MaterialFilters } from './keys.ts';
+import { type MaterialFilters, materialKeys } from './keys.ts';
 
 /** GET /api/materials: one page of the shop's materials by kind and colour; `archived` undefined lists both. */
 export async function getMaterials(filters: MaterialFilters & PageInput, signal?: AbortSignal): Promise<Page<Material>> {
@@ -25,14 +25,11 @@ export function useMaterials(filters: MaterialFilters & PageInput = {}) {
  */
 export async function getAllMaterials(filters: MaterialFilters, signal?: AbortSignal): Promise<Material[]> {
   const first = await getMaterials({ ...filters, page: 1, limit: PAGE_LIMIT_MAX }, signal);
-  const rest = await Promise.all(
-    Array.from({ length: pageCount(first.total, first.limit) - 1 }, (_, i) => getMaterials({ ...filters, page: i + 2, limit: PAGE_LIMIT_MAX }, signal)),
-  );
+  const rest = await Promise.all(Array.from({ length: pageCount(first.total, first.limit) - 1 }, (_, i) => getMaterials({ ...filters, page: i + 2, limit: PAGE_LIMIT_MAX }, signal)));
   return [first, ...rest].flatMap((p) => p.items);
 }
 
-export const getAllMaterialsQueryOptions = (filters: MaterialFilters = {}) =>
-  queryOptions({ queryKey: materialKeys.every(filters), queryFn: ({ signal }) => getAllMaterials(filters, signal) });
+export const getAllMaterialsQueryOptions = (filters: MaterialFilters = {}) => queryOptions({ queryKey: materialKeys.every(filters), queryFn: ({ signal }) => getAllMaterials(filters, signal) });
 
 export function useAllMaterials(filters: MaterialFilters = {}) {
   return useQuery(getAllMaterialsQueryOptions(filters));

@@ -1,16 +1,16 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useForm, type Resolver, type UseFormRegisterReturn } from 'react-hook-form';
+import { type Resolver, type UseFormRegisterReturn, useForm } from 'react-hook-form';
+import { PRESS_DEFAULT_SOURCES } from '../../../../shared/engine/press-defaults.ts';
 import {
   COMMON_ROLL_WIDTHS_MM,
   createMaterialSchema,
   defaultPressProfile,
   MATERIAL_DEFAULTS,
   MATERIAL_KINDS,
-  updateMaterialSchema,
   type Material,
   type MaterialKind,
+  updateMaterialSchema,
 } from '../../../../shared/schemas/material.ts';
-import { PRESS_DEFAULT_SOURCES } from '../../../../shared/engine/press-defaults.ts';
 import { cToF, formatLength, roundTo } from '../../../../shared/units.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { CheckboxField, FormSection, SelectField } from '../../../components/ui/form-controls.tsx';
@@ -25,12 +25,29 @@ export const KIND_LABELS: Record<MaterialKind, string> = { smooth: 'Smooth', gli
 /** The material's own fields, all of which the form holds. */
 type Values = Omit<Material, 'id' | 'lowStock' | 'archived' | 'createdAt'>;
 const FIELDS = [
-  'kind', 'colourName', 'colourHex', 'rollWidthMm', 'stockMm', 'lowStockMm', 'pricePerMetreMinor',
-  'pressProfile.handheld.tempC', 'pressProfile.handheld.timeS', 'pressProfile.clamshell.tempC', 'pressProfile.clamshell.timeS', 'pressProfile.tackS', 'pressProfile.peel',
+  'kind',
+  'colourName',
+  'colourHex',
+  'rollWidthMm',
+  'stockMm',
+  'lowStockMm',
+  'pricePerMetreMinor',
+  'pressProfile.handheld.tempC',
+  'pressProfile.handheld.timeS',
+  'pressProfile.clamshell.tempC',
+  'pressProfile.clamshell.timeS',
+  'pressProfile.tackS',
+  'pressProfile.peel',
 ] as const;
 
 const blank = (): Values => ({
-  kind: 'smooth', colourName: '', colourHex: '#2f7d6d', rollWidthMm: COMMON_ROLL_WIDTHS_MM[0], stockMm: 5000, ...MATERIAL_DEFAULTS, pressProfile: defaultPressProfile('smooth'),
+  kind: 'smooth',
+  colourName: '',
+  colourHex: '#2f7d6d',
+  rollWidthMm: COMMON_ROLL_WIDTHS_MM[0],
+  stockMm: 5000,
+  ...MATERIAL_DEFAULTS,
+  pressProfile: defaultPressProfile('smooth'),
 });
 
 const fahrenheit = (c: number) => (Number.isFinite(c) ? `${roundTo(cToF(c), 0)} °F` : '— °F');
@@ -46,8 +63,14 @@ export function MaterialForm({ material, onDone }: { material?: Material; onDone
     resolver: (material ? zodResolver(updateMaterialSchema) : zodResolver(createMaterialSchema)) as unknown as Resolver<Values>,
     defaultValues: material
       ? {
-          kind: material.kind, colourName: material.colourName, colourHex: material.colourHex, rollWidthMm: material.rollWidthMm, stockMm: material.stockMm,
-          lowStockMm: material.lowStockMm, pricePerMetreMinor: material.pricePerMetreMinor, pressProfile: structuredClone(material.pressProfile),
+          kind: material.kind,
+          colourName: material.colourName,
+          colourHex: material.colourHex,
+          rollWidthMm: material.rollWidthMm,
+          stockMm: material.stockMm,
+          lowStockMm: material.lowStockMm,
+          pricePerMetreMinor: material.pricePerMetreMinor,
+          pressProfile: structuredClone(material.pressProfile),
         }
       : blank(),
   });
@@ -116,7 +139,15 @@ export function MaterialForm({ material, onDone }: { material?: Material; onDone
         </div>
         <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">
           <TextField label="Length in stock (mm)" hint={lengthHint(v.stockMm)} type="number" inputMode="decimal" min={0} error={e.stockMm?.message} {...num('stockMm')} />
-          <TextField label="Low-stock mark (mm)" hint={`Flag it when the roll gets this short. ${lengthHint(v.lowStockMm)}`} type="number" inputMode="decimal" min={0} error={e.lowStockMm?.message} {...num('lowStockMm')} />
+          <TextField
+            label="Low-stock mark (mm)"
+            hint={`Flag it when the roll gets this short. ${lengthHint(v.lowStockMm)}`}
+            type="number"
+            inputMode="decimal"
+            min={0}
+            error={e.lowStockMm?.message}
+            {...num('lowStockMm')}
+          />
         </div>
       </FormSection>
 
@@ -147,7 +178,14 @@ export function MaterialForm({ material, onDone }: { material?: Material; onDone
           ))}
         </div>
         <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">
-          <TextField label="Tack between layers (s)" hint="A short press before the next layer goes on." type="number" inputMode="decimal" error={e.pressProfile?.tackS?.message} {...num('pressProfile.tackS')} />
+          <TextField
+            label="Tack between layers (s)"
+            hint="A short press before the next layer goes on."
+            type="number"
+            inputMode="decimal"
+            error={e.pressProfile?.tackS?.message}
+            {...num('pressProfile.tackS')}
+          />
           <SelectField label="Peel" hint="When to take the carrier sheet off." error={e.pressProfile?.peel?.message} {...register('pressProfile.peel')}>
             <option value="hot">Hot</option>
             <option value="warm">Warm</option>

@@ -1,10 +1,10 @@
-import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, type SortingState, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import type { Material } from '../../../../shared/schemas/material.ts';
 import { formatLength, formatTemperature } from '../../../../shared/units.ts';
+import { CardTable } from '../../../components/ui/card-table.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 import { KIND_LABELS } from './material-form.tsx';
-import { CardTable } from '../../../components/ui/card-table.tsx';
 
 const col = createColumnHelper<Material>();
 

@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { pageSearch, type PageInput } from '../../../../shared/schemas/pagination.ts';
+import { type PageInput, pageSearch } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
 import { moderationKeys } from './keys.ts';
 import type { AuditPage } from './types.ts';

@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { pageSearch, type Page, type PageInput } from '../../../../shared/schemas/pagination.ts';
+import { type Page, type PageInput, pageSearch } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
 import { moderationKeys } from './keys.ts';
 import type { QueueListing, QueueShop, QueueShopChange } from './types.ts';

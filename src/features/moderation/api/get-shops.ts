@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '../../../lib/api-client.ts';
 import type { ModerationShopsPage, ModerationShopsQuery } from '../../../../shared/schemas/catalog.ts';
+import { api } from '../../../lib/api-client.ts';
 import { moderationKeys } from './keys.ts';
 
 /** GET /api/moderation/shops?q=&state=&page= — every shop, any state (admins only). */

@@ -1,7 +1,7 @@
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import type { ListingContent, ListingState } from '../../../../shared/schemas/listing.ts';
-import type { ShopState } from '../../../../shared/schemas/shop.ts';
 import type { Page } from '../../../../shared/schemas/pagination.ts';
+import type { ShopState } from '../../../../shared/schemas/shop.ts';
 
 /** GET /api/moderation/queue/shops (server/features/moderation/moderation.service.ts) */
 export type QueueShop = { id: string; name: string; slug: string; state: ShopState; description: string; owner: { name: string; email: string }; createdAt: number; revision: number };

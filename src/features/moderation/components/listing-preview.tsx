@@ -1,10 +1,10 @@
+import { blankFor } from '../../../../shared/engine/listing-design.ts';
+import { formatMoney } from '../../../../shared/money.ts';
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
-import { formatMoney } from '../../../../shared/money.ts';
-import { formatSize, formatSmallLength, formatLength } from '../../../../shared/units.ts';
-import { blankFor } from '../../../../shared/engine/listing-design.ts';
-import { Badge } from '../../../components/ui/form-controls.tsx';
+import { formatLength, formatSize, formatSmallLength } from '../../../../shared/units.ts';
 import { DesignOnBlank, pictureOfBlank } from '../../../components/design/design-on-blank.tsx';
+import { Badge } from '../../../components/ui/form-controls.tsx';
 
 /**
  * The listing as a shopper would see it, from the server's listing-page answer for the version
@@ -83,7 +83,10 @@ export function ListingPreview({ page }: { page: ListingPage }) {
         {c.personalisation.textFields.map((f) => (
           <div key={f.id} className="flex flex-col gap-1.5 rounded-lg bg-paper p-3">
             <p className="font-bold">
-              {f.label} <span className="font-normal text-ink-soft">({f.required ? 'required' : 'optional'}, up to {f.maxLength} characters, letters {formatSmallLength(f.defaultLetterHeightMm)})</span>
+              {f.label}{' '}
+              <span className="font-normal text-ink-soft">
+                ({f.required ? 'required' : 'optional'}, up to {f.maxLength} characters, letters {formatSmallLength(f.defaultLetterHeightMm)})
+              </span>
             </p>
             <p className="text-sm">Fonts: {f.fontIds.join(', ')}</p>
             {swatches(f.colourChoices)}

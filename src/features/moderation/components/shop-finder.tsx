@@ -1,9 +1,9 @@
 import { useEffect, useState } from 'react';
-import { SHOP_STATES, type ShopState } from '../../../../shared/schemas/shop.ts';
 import { pageCount } from '../../../../shared/schemas/pagination.ts';
-import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { SHOP_STATES, type ShopState } from '../../../../shared/schemas/shop.ts';
 import { StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge, SelectField } from '../../../components/ui/form-controls.tsx';
+import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useShops } from '../api/get-shops.ts';

@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import type { OrderSummary } from '../../../../shared/schemas/order.ts';
-import { pageSearch, type Page, type PageInput } from '../../../../shared/schemas/pagination.ts';
+import { type Page, type PageInput, pageSearch } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
 import { orderKeys } from './keys.ts';
 

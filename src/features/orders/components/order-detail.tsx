@@ -1,9 +1,9 @@
 import type { ReactNode } from 'react';
+import { formatMoney } from '../../../../shared/money.ts';
 import type { LineSnapshot } from '../../../../shared/schemas/cart.ts';
 import { LINE_STATE_LABELS, type OrderDetail } from '../../../../shared/schemas/order.ts';
-import { formatMoney } from '../../../../shared/money.ts';
-import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
+import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 
 const when = (ms: number) => new Date(ms).toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
 const who = { you: 'You', shop: 'The shop', namesake: 'Namesake' } as const;
@@ -37,7 +37,11 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
               {l.history.map((e) => (
                 <li key={e.id} className="text-sm">
                   <span className="font-bold">{LINE_STATE_LABELS[e.toState]}</span>
-                  <span className="text-ink-soft"> · {when(e.at)}{e.actor ? ` · ${who[e.actor]}` : ''}</span>
+                  <span className="text-ink-soft">
+                    {' '}
+                    · {when(e.at)}
+                    {e.actor ? ` · ${who[e.actor]}` : ''}
+                  </span>
                   {e.message ? <p className="text-ink">{e.message}</p> : null}
                 </li>
               ))}
@@ -48,10 +52,24 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
       <aside aria-label="Order summary" className="flex h-fit flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm">
         <p className="font-extrabold">From {order.shop.name}</p>
         <dl className="flex flex-col gap-1 text-sm">
-          <div className="flex justify-between"><dt>Items</dt><dd>{formatMoney(order.subtotalMinor, cur)}</dd></div>
-          <div className="flex justify-between"><dt>Shipping</dt><dd>{formatMoney(order.shippingMinor, cur)}</dd></div>
-          <div className="flex justify-between border-t border-line pt-1 font-bold"><dt>Paid</dt><dd>{formatMoney(order.totalMinor, cur)}</dd></div>
-          {order.refundedMinor > 0 ? <div className="flex justify-between"><dt>Refunded</dt><dd>{formatMoney(order.refundedMinor, cur)}</dd></div> : null}
+          <div className="flex justify-between">
+            <dt>Items</dt>
+            <dd>{formatMoney(order.subtotalMinor, cur)}</dd>
+          </div>
+          <div className="flex justify-between">
+            <dt>Shipping</dt>
+            <dd>{formatMoney(order.shippingMinor, cur)}</dd>
+          </div>
+          <div className="flex justify-between border-t border-line pt-1 font-bold">
+            <dt>Paid</dt>
+            <dd>{formatMoney(order.totalMinor, cur)}</dd>
+          </div>
+          {order.refundedMinor > 0 ? (
+            <div className="flex justify-between">
+              <dt>Refunded</dt>
+              <dd>{formatMoney(order.refundedMinor, cur)}</dd>
+            </div>
+          ) : null}
         </dl>
         <div>
           <h2 className="mb-1 text-sm font-bold tracking-wide text-thread-deep uppercase">Sending to</h2>

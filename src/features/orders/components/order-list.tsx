@@ -1,8 +1,8 @@
 import { Link } from 'react-router-dom';
-import type { OrderSummary } from '../../../../shared/schemas/order.ts';
 import { formatMoney } from '../../../../shared/money.ts';
-import { paths } from '../../../config/paths.ts';
+import type { OrderSummary } from '../../../../shared/schemas/order.ts';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
+import { paths } from '../../../config/paths.ts';
 
 const date = (ms: number) => new Date(ms).toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' });
 
@@ -11,7 +11,10 @@ export function OrderList({ orders }: { orders: OrderSummary[] }) {
     <ul className="flex flex-col gap-3">
       {orders.map((o) => (
         <li key={o.id}>
-          <Link to={paths.orderDetail.getHref(o.id)} className="flex flex-col gap-2 rounded-lg border border-line bg-white p-4 shadow-sm hover:border-thread sm:flex-row sm:items-center sm:justify-between">
+          <Link
+            to={paths.orderDetail.getHref(o.id)}
+            className="flex flex-col gap-2 rounded-lg border border-line bg-white p-4 shadow-sm hover:border-thread sm:flex-row sm:items-center sm:justify-between"
+          >
             <span className="flex flex-col">
               <span className="text-lg font-extrabold">{o.number}</span>
               <span className="text-ink-soft">

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { fontListSchema, type FontInfo } from '../../../../shared/schemas/engine.ts';
+import { type FontInfo, fontListSchema } from '../../../../shared/schemas/engine.ts';
 import { api } from '../../../lib/api-client.ts';
 import { personaliserKeys } from './keys.ts';
 
@@ -8,8 +8,7 @@ export async function getFonts(signal?: AbortSignal): Promise<FontInfo[]> {
   return fontListSchema.parse(await api.get<unknown>('/api/fonts', { signal }));
 }
 
-export const getFontsQueryOptions = () =>
-  queryOptions({ queryKey: personaliserKeys.fonts(), queryFn: ({ signal }) => getFonts(signal), staleTime: Infinity });
+export const getFontsQueryOptions = () => queryOptions({ queryKey: personaliserKeys.fonts(), queryFn: ({ signal }) => getFonts(signal), staleTime: Infinity });
 
 export function useFonts() {
   return useQuery(getFontsQueryOptions());

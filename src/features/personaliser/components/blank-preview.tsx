@@ -8,9 +8,7 @@ const Piece = memo(function Piece({ p, outlineStroke }: { p: PlacedPiece; outlin
   const t = `matrix(${p.matrix.join(' ')})`;
   return (
     <g>
-      {outlineStroke && p.outline ? (
-        <path d={p.d} transform={t} fill={p.outline.colour} stroke={p.outline.colour} strokeWidth={p.outline.offsetMm * 2} strokeLinejoin="round" />
-      ) : null}
+      {outlineStroke && p.outline ? <path d={p.d} transform={t} fill={p.outline.colour} stroke={p.outline.colour} strokeWidth={p.outline.offsetMm * 2} strokeLinejoin="round" /> : null}
       <path d={p.d} transform={t} fill={p.colour} fillRule="nonzero" stroke="#1f2a44" strokeOpacity="0.25" strokeWidth={0.3 / p.matrix[0]} />
     </g>
   );
@@ -25,8 +23,12 @@ export function BlankPreview({ blank, placement, full, label }: { blank: Blank; 
   const outlinesDone = full !== null;
   return (
     <DesignOnBlank blank={pictureOfBlank(blank)} label={label} rulers testId="design-preview">
-      {full?.outlines.map((o) => <path key={o.fieldId} d={o.path} fill={o.colour} stroke="#1f2a44" strokeOpacity="0.25" strokeWidth="0.3" />)}
-      {placement?.pieces.map((p) => <Piece key={p.layerId} p={p} outlineStroke={!outlinesDone} />)}
+      {full?.outlines.map((o) => (
+        <path key={o.fieldId} d={o.path} fill={o.colour} stroke="#1f2a44" strokeOpacity="0.25" strokeWidth="0.3" />
+      ))}
+      {placement?.pieces.map((p) => (
+        <Piece key={p.layerId} p={p} outlineStroke={!outlinesDone} />
+      ))}
     </DesignOnBlank>
   );
 }

@@ -7,18 +7,18 @@
  * component only renders them.
  */
 import { useId } from 'react';
-import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
-import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
 import { formatMoney } from '../../../../shared/money.ts';
+import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
+import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import { formatLength, formatSize, formatSmallLength } from '../../../../shared/units.ts';
 import { Button, ButtonLink } from '../../../components/ui/button.tsx';
-import { useFonts } from '../api/get-fonts.ts';
-import type { ComposeResult } from '../lib/compose-client.ts';
-import { useAddToCart, type AddToCart } from '../hooks/use-add-to-cart.ts';
-import { textChoice, useDesignState, withText, type ChoicesUpdate } from '../hooks/use-design-state.ts';
-import { useLivePreview } from '../hooks/use-live-preview.ts';
-import { BlankPreview } from './blank-preview.tsx';
 import { FieldError } from '../../../components/ui/form-controls.tsx';
+import { useFonts } from '../api/get-fonts.ts';
+import { type AddToCart, useAddToCart } from '../hooks/use-add-to-cart.ts';
+import { type ChoicesUpdate, textChoice, useDesignState, withText } from '../hooks/use-design-state.ts';
+import { useLivePreview } from '../hooks/use-live-preview.ts';
+import type { ComposeResult } from '../lib/compose-client.ts';
+import { BlankPreview } from './blank-preview.tsx';
 import { FontPicker, MotifPicker, SwatchPicker } from './pickers.tsx';
 
 export type PersonaliserProps = {
@@ -75,7 +75,11 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
             : null}
           <WeedingLine full={preview.full} waiting={!!preview.placement && !preview.full} failed={preview.fullFailed} />
         </div>
-        {preview.engineError ? <p role="alert" className="font-semibold text-danger">The fonts didn't load: {preview.engineError}. Reload the page to try again; what you typed is kept.</p> : null}
+        {preview.engineError ? (
+          <p role="alert" className="font-semibold text-danger">
+            The fonts didn't load: {preview.engineError}. Reload the page to try again; what you typed is kept.
+          </p>
+        ) : null}
         {preview.placementError ? <p className="font-semibold text-danger">{preview.placementError}</p> : null}
       </div>
 
@@ -112,7 +116,11 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
                 <div id={warnId} aria-live="polite" className="flex flex-col gap-1">
                   <FieldError message={err} />
                   {warnings.map((w, i) => (
-                    <p key={`${w.code}-${i}`} className={`rounded-lg border-l-4 px-3 py-2 text-sm ${w.code === 'missing_characters' || w.code === 'below_min_letter_height' || w.code === 'too_long' ? 'border-danger bg-danger-wash' : 'border-marigold bg-marigold-wash'}`} data-warning={w.code}>
+                    <p
+                      key={`${w.code}-${i}`}
+                      className={`rounded-lg border-l-4 px-3 py-2 text-sm ${w.code === 'missing_characters' || w.code === 'below_min_letter_height' || w.code === 'too_long' ? 'border-danger bg-danger-wash' : 'border-marigold bg-marigold-wash'}`}
+                      data-warning={w.code}
+                    >
                       {w.message}
                     </p>
                   ))}
@@ -133,7 +141,9 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
               ) : null}
 
               <div className="flex flex-col gap-1.5">
-                <label htmlFor={`${inputId}-height`} className="font-bold">Letter height</label>
+                <label htmlFor={`${inputId}-height`} className="font-bold">
+                  Letter height
+                </label>
                 <div className="flex items-center gap-3">
                   <input
                     id={`${inputId}-height`}
@@ -215,7 +225,9 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
               </p>
             </div>
             <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${formId}-qty`} className="font-bold">Quantity</label>
+              <label htmlFor={`${formId}-qty`} className="font-bold">
+                Quantity
+              </label>
               <input
                 id={`${formId}-qty`}
                 type="number"
@@ -239,7 +251,9 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
               </p>
               <div className="flex flex-wrap gap-3">
                 <ButtonLink to={cartHref}>Go to your cart</ButtonLink>
-                <Button variant="secondary" onClick={cart.dismissAdded}>Keep personalising</Button>
+                <Button variant="secondary" onClick={cart.dismissAdded}>
+                  Keep personalising
+                </Button>
               </div>
             </div>
           ) : null}
@@ -252,7 +266,12 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
 
 function WeedingLine({ full, waiting, failed }: { full: ComposeResult | null; waiting: boolean; failed: string | null }) {
   if (failed) return <p className="text-danger">{failed}</p>;
-  if (!full) return waiting ? <p className="text-ink-soft"><span className="font-bold text-ink">Weeding: </span>checking…</p> : null;
+  if (!full)
+    return waiting ? (
+      <p className="text-ink-soft">
+        <span className="font-bold text-ink">Weeding: </span>checking…
+      </p>
+    ) : null;
   const w = full.weeding;
   const tone = w.label === 'quick' ? 'bg-thread-wash text-thread-deep' : w.label === 'moderate' ? 'bg-marigold-wash text-ink' : 'bg-danger-wash text-danger';
   const bits = [`${w.pieces} ${w.pieces === 1 ? 'piece' : 'pieces'}`, `${w.counters} ${w.counters === 1 ? 'counter' : 'counters'} to pick out`];

@@ -1,10 +1,10 @@
-import { memo, useEffect, useId, useState, type ReactNode } from 'react';
-import { FieldError } from '../../../components/ui/form-controls.tsx';
+import { memo, type ReactNode, useEffect, useId, useState } from 'react';
 import type { FontRegistry } from '../../../../shared/engine/fonts.ts';
 import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
 import { layoutText } from '../../../../shared/engine/text-layout.ts';
 import type { PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
+import { FieldError } from '../../../components/ui/form-controls.tsx';
 
 const optionBox =
   'flex cursor-pointer items-center gap-3 rounded-lg border-2 bg-white p-2.5 has-[:checked]:border-thread has-[:checked]:bg-thread-wash ' +
@@ -31,7 +31,6 @@ export function missingIn(registry: FontRegistry | null, fontId: string, text: s
   return out;
 }
 
-
 /** The typed name set in one font, from the engine's outlines (not a CSS font): the real geometry. */
 const FontSample = memo(function FontSample({ registry, fontId, text }: { registry: FontRegistry; fontId: string; text: string }) {
   const l = layoutText(registry, { text, fontId, letterHeightMm: 10 });
@@ -45,16 +44,7 @@ const FontSample = memo(function FontSample({ registry, fontId, text }: { regist
   );
 });
 
-export function FontPicker(props: {
-  legend: string;
-  name: string;
-  fonts: FontInfo[];
-  value: string;
-  text: string;
-  registry: FontRegistry | null;
-  onChange: (fontId: string) => void;
-  error?: string;
-}) {
+export function FontPicker(props: { legend: string; name: string; fonts: FontInfo[]; value: string; text: string; registry: FontRegistry | null; onChange: (fontId: string) => void; error?: string }) {
   // The samples follow the typing one frame behind: set after the preview's frame has painted,
   // so laying the name out in every font never delays the preview itself.
   const [typed, setTyped] = useState(props.text);
@@ -91,14 +81,7 @@ export function FontPicker(props: {
   );
 }
 
-export function SwatchPicker(props: {
-  legend: string;
-  name: string;
-  options: PublicMaterial[];
-  value: string | null | undefined;
-  onChange: (materialId: string) => void;
-  error?: string;
-}) {
+export function SwatchPicker(props: { legend: string; name: string; options: PublicMaterial[]; value: string | null | undefined; onChange: (materialId: string) => void; error?: string }) {
   return (
     <OptionGroup legend={props.legend} error={props.error} layout="flex flex-wrap gap-2">
       {props.options.map((m) => (
@@ -116,14 +99,21 @@ export function SwatchPicker(props: {
 }
 
 function MotifThumb({ geometry, colours }: { geometry: StoredMotifGeometry; colours: Record<string, string | undefined> }) {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   for (const l of geometry.layers) {
-    minX = Math.min(minX, l.bboxMm.minX); minY = Math.min(minY, l.bboxMm.minY);
-    maxX = Math.max(maxX, l.bboxMm.maxX); maxY = Math.max(maxY, l.bboxMm.maxY);
+    minX = Math.min(minX, l.bboxMm.minX);
+    minY = Math.min(minY, l.bboxMm.minY);
+    maxX = Math.max(maxX, l.bboxMm.maxX);
+    maxY = Math.max(maxY, l.bboxMm.maxY);
   }
   return (
     <svg viewBox={`${minX - 2} ${minY - 2} ${maxX - minX + 4} ${maxY - minY + 4}`} aria-hidden="true" className="size-12 shrink-0">
-      {geometry.layers.map((l) => <path key={l.id} d={l.path} fill={colours[l.id] ?? l.colour ?? '#1f2a44'} />)}
+      {geometry.layers.map((l) => (
+        <path key={l.id} d={l.path} fill={colours[l.id] ?? l.colour ?? '#1f2a44'} />
+      ))}
     </svg>
   );
 }

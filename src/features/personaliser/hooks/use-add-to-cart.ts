@@ -3,7 +3,7 @@
  * field messages mapped back onto the form's keys (`choices.texts.name.text` → `texts.name.text`);
  * a message no field shows goes to a toast.
  */
-import { useState, type FormEvent } from 'react';
+import { type FormEvent, useState } from 'react';
 import type { Cart } from '../../../../shared/schemas/cart.ts';
 import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
 import type { Choices } from '../../../../shared/schemas/listing.ts';

@@ -5,9 +5,9 @@
  * frame so the write never sits between a keystroke and its paint.
  */
 import { useEffect, useMemo, useState } from 'react';
-import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
-import { defaultColour, layersForChoices, priceForChoices, type Choices, type TextField } from '../../../../shared/schemas/listing.ts';
+import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
+import { type Choices, defaultColour, layersForChoices, priceForChoices, type TextField } from '../../../../shared/schemas/listing.ts';
 import { blankFor, designInput } from '../lib/design.ts';
 import { loadChoices, saveChoices } from '../lib/saved-choices.ts';
 
@@ -16,14 +16,15 @@ export type TextChoice = Choices['texts'][string];
 export type MotifOption = { motifId: string; label: string; geometry: StoredMotifGeometry | null; colours: Record<string, string | undefined> };
 
 /** A text field's current choice, or its defaults before the shopper has touched it. */
-export const textChoice = (choices: Choices, f: TextField): TextChoice =>
-  choices.texts[f.id] ?? { text: '', fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm };
+export const textChoice = (choices: Choices, f: TextField): TextChoice => choices.texts[f.id] ?? { text: '', fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm };
 
 /** Changes part of one text field's choice (text, font or letter height). */
-export const withText = (f: TextField, patch: Partial<TextChoice>): ChoicesUpdate => (s) => ({
-  ...s,
-  texts: { ...s.texts, [f.id]: { ...textChoice(s, f), ...patch } },
-});
+export const withText =
+  (f: TextField, patch: Partial<TextChoice>): ChoicesUpdate =>
+  (s) => ({
+    ...s,
+    texts: { ...s.texts, [f.id]: { ...textChoice(s, f), ...patch } },
+  });
 
 export function useDesignState(listing: ListingPage) {
   const p = listing.content.personalisation;
@@ -41,16 +42,18 @@ export function useDesignState(listing: ListingPage) {
   const materialsOf = (ids: readonly string[] | undefined): PublicMaterial[] => (ids ?? []).flatMap((id) => materials.get(id) ?? []);
 
   /** Picks a motif; the layers' colours carry over where the new motif offers them, else its first. */
-  const withMotif = (motifId: string | null): ChoicesUpdate => (s) => {
-    const layers = p.motifChoices.find((m) => m.motifId === motifId)?.layers ?? [];
-    const motifColours: Choices['motifColours'] = {};
-    for (const l of layers) {
-      if (l.mode !== 'shopper' || !l.colourChoices?.length) continue;
-      const saved = s.motifColours[l.layerId];
-      motifColours[l.layerId] = saved && l.colourChoices.includes(saved) ? saved : defaultColour(l.colourChoices);
-    }
-    return { ...s, motifId, motifColours };
-  };
+  const withMotif =
+    (motifId: string | null): ChoicesUpdate =>
+    (s) => {
+      const layers = p.motifChoices.find((m) => m.motifId === motifId)?.layers ?? [];
+      const motifColours: Choices['motifColours'] = {};
+      for (const l of layers) {
+        if (l.mode !== 'shopper' || !l.colourChoices?.length) continue;
+        const saved = s.motifColours[l.layerId];
+        motifColours[l.layerId] = saved && l.colourChoices.includes(saved) ? saved : defaultColour(l.colourChoices);
+      }
+      return { ...s, motifId, motifColours };
+    };
 
   /** The motifs offered, each drawn in the colours its layers would get. */
   const motifOptions: MotifOption[] = p.motifChoices.map((m) => ({
@@ -58,7 +61,10 @@ export function useDesignState(listing: ListingPage) {
     label: m.label,
     geometry: listing.motifs.find((x) => x.id === m.motifId)?.geometry ?? null,
     colours: Object.fromEntries(
-      m.layers.map((l) => [l.layerId, materials.get(l.mode === 'fixed' ? (l.materialId ?? '') : (m.motifId === choices.motifId ? choices.motifColours[l.layerId] : undefined) ?? l.colourChoices?.[0] ?? '')?.colourHex]),
+      m.layers.map((l) => [
+        l.layerId,
+        materials.get(l.mode === 'fixed' ? (l.materialId ?? '') : ((m.motifId === choices.motifId ? choices.motifColours[l.layerId] : undefined) ?? l.colourChoices?.[0] ?? ''))?.colourHex,
+      ]),
     ),
   }));
 
@@ -76,7 +82,10 @@ export function useDesignState(listing: ListingPage) {
     price: priceForChoices(listing.content, choices),
     layerCount: layersForChoices(listing.content, choices).length,
     /** the names typed, for labels and messages */
-    texts: p.textFields.map((f) => choices.texts[f.id]?.text.trim()).filter(Boolean).join(', '),
+    texts: p.textFields
+      .map((f) => choices.texts[f.id]?.text.trim())
+      .filter(Boolean)
+      .join(', '),
     withMotif,
   };
 }

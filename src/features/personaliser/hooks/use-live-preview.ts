@@ -11,7 +11,7 @@ import type { FontRegistry } from '../../../../shared/engine/fonts.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
 import { ComposeClient, type ComposeReply, type ComposeResult } from '../lib/compose-client.ts';
 import { loadClientRegistry } from '../lib/font-registry.ts';
-import { placeDesign, type Placement } from '../lib/place.ts';
+import { type Placement, placeDesign } from '../lib/place.ts';
 
 type Engine = { registry: FontRegistry; client: ComposeClient };
 

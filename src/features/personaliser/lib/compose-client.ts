@@ -4,7 +4,7 @@
  */
 import type { ComposeInput } from '../../../../shared/engine/compose.ts';
 import type { FontRegistry, FontSource } from '../../../../shared/engine/fonts.ts';
-import { composeReply, type ComposeReply, type ComposeRequest } from './compose-reply.ts';
+import { type ComposeReply, type ComposeRequest, composeReply } from './compose-reply.ts';
 
 export type { ComposeReply, ComposeRequest, ComposeResult } from './compose-reply.ts';
 
@@ -16,7 +16,10 @@ export class ComposeClient {
   private busy = false;
   private waiting: { id: number; input: ComposeInput } | null = null;
 
-  constructor(private readonly registry: FontRegistry, sources: FontSource[]) {
+  constructor(
+    private readonly registry: FontRegistry,
+    sources: FontSource[],
+  ) {
     try {
       this.worker = new Worker(new URL('./compose.worker.ts', import.meta.url), { type: 'module' });
       // structured clone copies the bytes; the page keeps its own

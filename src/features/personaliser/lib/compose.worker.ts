@@ -2,8 +2,8 @@
  * The full compose() — weeding analysis and the outline's polygon offset included — off the main
  * thread, so typing never waits for it. Fonts arrive as the same bytes the page parsed.
  */
-import { fontRegistry, loadFont, type LoadedFont } from '../../../../shared/engine/fonts.ts';
-import { composeReply, type ComposeReply, type ComposeRequest } from './compose-reply.ts';
+import { fontRegistry, type LoadedFont, loadFont } from '../../../../shared/engine/fonts.ts';
+import { type ComposeReply, type ComposeRequest, composeReply } from './compose-reply.ts';
 
 const fonts = new Map<string, LoadedFont>();
 const registry = fontRegistry(fonts);

@@ -4,7 +4,7 @@
  * (tests/client/layout-parity.test.ts). Each file is fetched and parsed once per page load.
  * fontkit reads through a DataView, so a plain Uint8Array does; no Buffer polyfill is needed.
  */
-import { fontRegistry, fontSource, loadFont, type FontRegistry, type FontSource, type LoadedFont } from '../../../../shared/engine/fonts.ts';
+import { type FontRegistry, type FontSource, fontRegistry, fontSource, type LoadedFont, loadFont } from '../../../../shared/engine/fonts.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
 import { getBytes } from '../../../lib/api-client.ts';
 

@@ -4,4 +4,4 @@
  * text layout and no path rewriting. The full compose() — weeding, the true outline, cut-ready
  * mirrored paths — runs off the main thread (compose-client.ts).
  */
-export { placeDesign, type PlacedPiece, type Placement } from '../../../../shared/engine/place.ts';
+export { type PlacedPiece, type Placement, placeDesign } from '../../../../shared/engine/place.ts';

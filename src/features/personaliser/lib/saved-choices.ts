@@ -3,7 +3,7 @@
  * add-to-cart) loses nothing. Read back through the shared choices schema and the listing's own
  * options: a font or colour the listing no longer offers falls back to its default.
  */
-import { choicesSchema, defaultColour, type Choices, type Personalisation } from '../../../../shared/schemas/listing.ts';
+import { type Choices, choicesSchema, defaultColour, type Personalisation } from '../../../../shared/schemas/listing.ts';
 
 const key = (listingId: string) => `namesake.personalise.${listingId}`;
 
@@ -13,7 +13,9 @@ export function defaultChoices(p: Personalisation): Choices {
     textColours: Object.fromEntries(p.textFields.map((f) => [f.id, defaultColour(f.colourChoices)])),
     motifId: p.motifChoices[0]?.motifId ?? null,
     motifColours: Object.fromEntries(
-      p.motifChoices.flatMap((m) => (m.motifId === p.motifChoices[0]?.motifId ? m.layers : []).filter((l) => l.mode === 'shopper' && l.colourChoices?.length).map((l) => [l.layerId, defaultColour(l.colourChoices!)])),
+      p.motifChoices.flatMap((m) =>
+        (m.motifId === p.motifChoices[0]?.motifId ? m.layers : []).filter((l) => l.mode === 'shopper' && l.colourChoices?.length).map((l) => [l.layerId, defaultColour(l.colourChoices!)]),
+      ),
     ),
     outlineMaterialId: p.outline ? defaultColour(p.outline.colourChoices) : null,
   };
@@ -45,7 +47,11 @@ export function reconcile(p: Personalisation, saved: Choices): Choices {
     const s = saved.motifColours[l.layerId];
     motifColours[l.layerId] = s && l.colourChoices.includes(s) ? s : defaultColour(l.colourChoices);
   }
-  const outlineMaterialId = p.outline ? (saved.outlineMaterialId && p.outline.colourChoices.includes(saved.outlineMaterialId) ? saved.outlineMaterialId : defaultColour(p.outline.colourChoices)) : null;
+  const outlineMaterialId = p.outline
+    ? saved.outlineMaterialId && p.outline.colourChoices.includes(saved.outlineMaterialId)
+      ? saved.outlineMaterialId
+      : defaultColour(p.outline.colourChoices)
+    : null;
   return { texts, textColours, motifId, motifColours, outlineMaterialId };
 }
 

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { PersonalisationEditInput } from '../../../../shared/schemas/workroom.ts';
 import { apiRequest } from '../../../lib/api-client.ts';
-import { proofEditKeys } from './keys.ts';
 import type { PersonalisationEdit } from './get-personalisation.ts';
+import { proofEditKeys } from './keys.ts';
 
 export const savePersonalisation = ({ lineId, ...body }: PersonalisationEditInput & { lineId: string }) =>
   apiRequest<PersonalisationEdit>(`/api/order-lines/${encodeURIComponent(lineId)}/personalisation`, { method: 'PUT', body });

@@ -21,7 +21,9 @@ export function ProofEditPanel({ lines, onSaved }: { lines: LineLike[]; onSaved:
   if (!waiting.length) return null;
   return (
     <section aria-labelledby="proof-edit-title" className="mb-8 flex flex-col gap-4 rounded-lg border-2 border-marigold bg-marigold-wash/50 p-5">
-      <h2 id="proof-edit-title" className="text-xl font-extrabold">The shop asks you to check your personalisation</h2>
+      <h2 id="proof-edit-title" className="text-xl font-extrabold">
+        The shop asks you to check your personalisation
+      </h2>
       {waiting.map((l) => (
         <EditOne key={l.id} lineId={l.id} title={l.listingTitle} onSaved={onSaved} />
       ))}
@@ -36,7 +38,12 @@ function EditOne({ lineId, title, onSaved }: { lineId: string; title: string; on
   const [draft, setDraft] = useState<Choices | null>(null);
   const [errors, setErrors] = useState<Record<string, string>>({});
   if (data.isPending) return <Spinner label="Loading…" />;
-  if (data.isError) return <p role="alert" className="font-bold text-danger">{data.error.message}</p>;
+  if (data.isError)
+    return (
+      <p role="alert" className="font-bold text-danger">
+        {data.error.message}
+      </p>
+    );
   const d = data.data;
   const choices = draft ?? d.choices;
   const setText = (fieldId: string, patch: Partial<Choices['texts'][string]>) => {
@@ -90,7 +97,11 @@ function EditOne({ lineId, title, onSaved }: { lineId: string; title: string; on
             <label className="flex flex-col gap-1.5 font-bold">
               Font
               <select className={selectClass} value={fontId} onChange={(e) => setText(f.id, { fontId: e.target.value })}>
-                {f.fonts.map((x) => <option key={x.id} value={x.id}>{x.label}</option>)}
+                {f.fonts.map((x) => (
+                  <option key={x.id} value={x.id}>
+                    {x.label}
+                  </option>
+                ))}
               </select>
               {errors[`choices.texts.${f.id}.fontId`] ? <span className="text-sm text-danger">{errors[`choices.texts.${f.id}.fontId`]}</span> : null}
             </label>
@@ -101,7 +112,11 @@ function EditOne({ lineId, title, onSaved }: { lineId: string; title: string; on
                 value={choices.textColours[f.id] ?? f.colours[0]?.id ?? ''}
                 onChange={(e) => setDraft({ ...choices, textColours: { ...choices.textColours, [f.id]: e.target.value } })}
               >
-                {f.colours.map((x) => <option key={x.id} value={x.id}>{x.label}</option>)}
+                {f.colours.map((x) => (
+                  <option key={x.id} value={x.id}>
+                    {x.label}
+                  </option>
+                ))}
               </select>
               {errors[`choices.textColours.${f.id}`] ? <span className="text-sm text-danger">{errors[`choices.textColours.${f.id}`]}</span> : null}
             </label>
@@ -109,7 +124,9 @@ function EditOne({ lineId, title, onSaved }: { lineId: string; title: string; on
         );
       })}
       {errors.choices ? <p className="text-sm font-semibold text-danger">{errors.choices}</p> : null}
-      <Button type="submit" pending={save.isPending} pendingLabel="Sending…" className="self-start">Send the corrected personalisation</Button>
+      <Button type="submit" pending={save.isPending} pendingLabel="Sending…" className="self-start">
+        Send the corrected personalisation
+      </Button>
     </form>
   );
 }

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
-import { shopSettingsSchema, type OwnShop, type ShopSettingsInput } from '../../../../shared/schemas/shop.ts';
+import { type OwnShop, type ShopSettingsInput, shopSettingsSchema } from '../../../../shared/schemas/shop.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { FormSection, MoneyField, ProgressBar, SelectField, TextAreaField } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
@@ -67,8 +67,9 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
       </p>
       {shop.pendingChange ? (
         <p className="rounded-lg border border-marigold bg-paper-deep p-4 text-ink" role="status">
-          <strong>Waiting for review:</strong> your new {[shop.pendingChange.name !== undefined ? 'name' : null, shop.pendingChange.description !== undefined ? 'description' : null].filter(Boolean).join(' and ')}.
-          Shoppers keep seeing “{shop.name}” and its current description until the Namesake team approves the change.
+          <strong>Waiting for review:</strong> your new{' '}
+          {[shop.pendingChange.name !== undefined ? 'name' : null, shop.pendingChange.description !== undefined ? 'description' : null].filter(Boolean).join(' and ')}. Shoppers keep seeing “
+          {shop.name}” and its current description until the Namesake team approves the change.
         </p>
       ) : shop.changeRejectionReason ? (
         <p className="rounded-lg border border-danger bg-danger-wash p-4 text-ink">
@@ -89,7 +90,14 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
             error={e.slug?.message}
             {...register('slug')}
           />
-          <TextAreaField label="Description" hint="A few sentences about what you make. Shown on your shop page." rows={4} maxLength={2000} error={e.description?.message} {...register('description')} />
+          <TextAreaField
+            label="Description"
+            hint="A few sentences about what you make. Shown on your shop page."
+            rows={4}
+            maxLength={2000}
+            error={e.description?.message}
+            {...register('description')}
+          />
         </FormSection>
         <FormSection title="Orders and shipping">
           <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { z } from 'zod';
-import { shopStateSchema, type OpenShopInput } from '../../../../shared/schemas/auth.ts';
+import { type OpenShopInput, shopStateSchema } from '../../../../shared/schemas/auth.ts';
 import { api } from '../../../lib/api-client.ts';
 import { shopKeys } from './keys.ts';
 

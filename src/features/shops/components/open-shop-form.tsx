@@ -2,7 +2,7 @@ import { openShopSchema } from '../../../../shared/schemas/auth.ts';
 import { SubmitForm } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useServerForm } from '../../../lib/use-server-form.ts';
-import { useCreateShop, type CreatedShop } from '../api/create-shop.ts';
+import { type CreatedShop, useCreateShop } from '../api/create-shop.ts';
 
 export function OpenShopForm({ onOpened }: { onOpened: (shop: CreatedShop) => void | Promise<void> }) {
   const createShop = useCreateShop();

@@ -16,8 +16,7 @@ export async function getSiteConfig(signal?: AbortSignal): Promise<SiteConfig> {
   return siteConfigSchema.parse(await api.get<unknown>('/api/config', { signal, redirectOn401: false }));
 }
 
-export const getSiteConfigQueryOptions = () =>
-  queryOptions({ queryKey: siteConfigKeys.all, queryFn: ({ signal }) => getSiteConfig(signal), staleTime: Infinity });
+export const getSiteConfigQueryOptions = () => queryOptions({ queryKey: siteConfigKeys.all, queryFn: ({ signal }) => getSiteConfig(signal), staleTime: Infinity });
 
 export function useSiteConfig() {
   return useQuery(getSiteConfigQueryOptions());

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { MotifView } from '../../../../shared/schemas/upload.ts';
 import { api } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { MotifView } from '../../../../shared/schemas/upload.ts';
 
 export async function getMotifs(signal?: AbortSignal): Promise<MotifView[]> {
   return (await api.get<{ motifs: MotifView[] }>('/api/motifs', { signal })).motifs;

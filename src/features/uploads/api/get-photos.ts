@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { UploadView } from '../../../../shared/schemas/upload.ts';
 import { api } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { UploadView } from '../../../../shared/schemas/upload.ts';
 
 export async function getPhotos(signal?: AbortSignal): Promise<UploadView[]> {
   return (await api.get<{ uploads: UploadView[] }>('/api/uploads', { signal })).uploads;

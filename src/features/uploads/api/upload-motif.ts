@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { DroppedReport, MotifView } from '../../../../shared/schemas/upload.ts';
 import { upload } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { DroppedReport, MotifView } from '../../../../shared/schemas/upload.ts';
 
 export async function uploadMotif({ name, file, onProgress }: { name: string; file: File; onProgress?: (f: number | null) => void }) {
   const form = new FormData();

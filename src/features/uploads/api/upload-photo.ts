@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { UploadView } from '../../../../shared/schemas/upload.ts';
 import { upload } from '../../../lib/api-client.ts';
 import { uploadKeys } from './keys.ts';
-import type { UploadView } from '../../../../shared/schemas/upload.ts';
 
 export async function uploadPhoto({ file, onProgress }: { file: File; onProgress?: (f: number | null) => void }): Promise<UploadView> {
   const form = new FormData();

@@ -1,4 +1,5 @@
 import { useRef, useState } from 'react';
+import type { DroppedReport, MotifView } from '../../../../shared/schemas/upload.ts';
 import { formatSize } from '../../../../shared/units.ts';
 import { Button, Spinner } from '../../../components/ui/button.tsx';
 import { ProgressBar } from '../../../components/ui/form-controls.tsx';
@@ -6,7 +7,6 @@ import { TextField } from '../../../components/ui/text-field.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
 import { useMotif } from '../api/get-motif.ts';
 import { useUploadMotif } from '../api/upload-motif.ts';
-import type { DroppedReport, MotifView } from '../../../../shared/schemas/upload.ts';
 
 /**
  * The motif as the engine normalised it, drawn from its stored geometry (never the uploaded file):

@@ -70,13 +70,30 @@ export function PhotoPicker({ value, onChange, max = 8, error }: { value: string
                 </div>
                 <span className="text-sm font-bold">{i === 0 ? 'Photo 1 · thumbnail' : `Photo ${i + 1}`}</span>
                 <span className="flex flex-wrap gap-1">
-                  <button type="button" className="min-h-8 min-w-8 rounded border border-line px-2 text-sm disabled:opacity-40" disabled={i === 0} onClick={() => move(i, -1)} aria-label={`Move photo ${i + 1} earlier`}>
+                  <button
+                    type="button"
+                    className="min-h-8 min-w-8 rounded border border-line px-2 text-sm disabled:opacity-40"
+                    disabled={i === 0}
+                    onClick={() => move(i, -1)}
+                    aria-label={`Move photo ${i + 1} earlier`}
+                  >
                     ←
                   </button>
-                  <button type="button" className="min-h-8 min-w-8 rounded border border-line px-2 text-sm disabled:opacity-40" disabled={i === value.length - 1} onClick={() => move(i, 1)} aria-label={`Move photo ${i + 1} later`}>
+                  <button
+                    type="button"
+                    className="min-h-8 min-w-8 rounded border border-line px-2 text-sm disabled:opacity-40"
+                    disabled={i === value.length - 1}
+                    onClick={() => move(i, 1)}
+                    aria-label={`Move photo ${i + 1} later`}
+                  >
                     →
                   </button>
-                  <button type="button" className="min-h-8 rounded border border-line px-2 text-sm font-bold text-danger" onClick={() => onChange(value.filter((x) => x !== id))} aria-label={`Remove photo ${i + 1}`}>
+                  <button
+                    type="button"
+                    className="min-h-8 rounded border border-line px-2 text-sm font-bold text-danger"
+                    onClick={() => onChange(value.filter((x) => x !== id))}
+                    aria-label={`Remove photo ${i + 1}`}
+                  >
                     Remove
                   </button>
                 </span>

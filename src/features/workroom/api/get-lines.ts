@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { type PageInput, pageSearch } from '../../../../shared/schemas/pagination.ts';
 import type { LinesFilter, WorkLinesPage } from '../../../../shared/schemas/workroom.ts';
-import { pageSearch, type PageInput } from '../../../../shared/schemas/pagination.ts';
 import { api } from '../../../lib/api-client.ts';
 import { workroomKeys } from './keys.ts';
 

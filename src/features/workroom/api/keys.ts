@@ -1,5 +1,5 @@
-import type { LinesFilter } from '../../../../shared/schemas/workroom.ts';
 import type { PageInput } from '../../../../shared/schemas/pagination.ts';
+import type { LinesFilter } from '../../../../shared/schemas/workroom.ts';
 
 export const workroomKeys = {
   all: ['workroom'] as const,

@@ -36,10 +36,16 @@ export function CutSheetCard({ sheet, index }: { sheet: WorkSheet; index: number
         <img src={sheet.svgUrl} alt={`Cut file for ${sheet.material.colour}, mirrored: ${sheet.pieces.length} pieces`} className="mx-auto h-auto w-full max-w-sm" />
       </div>
       <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
-        <dt className="text-ink-soft">Roll width</dt><dd className="font-semibold">{formatLength(sheet.rollWidthMm)}</dd>
-        <dt className="text-ink-soft">Length used</dt><dd className="font-semibold">{formatLength(sheet.lengthMm)} + 25 mm trim</dd>
-        <dt className="text-ink-soft">Utilisation</dt><dd className="font-semibold">{percent(sheet.utilisation)}</dd>
-        <dt className="text-ink-soft">Pieces</dt><dd className="font-semibold">{sheet.pieces.length} from {orders.join(', ')}</dd>
+        <dt className="text-ink-soft">Roll width</dt>
+        <dd className="font-semibold">{formatLength(sheet.rollWidthMm)}</dd>
+        <dt className="text-ink-soft">Length used</dt>
+        <dd className="font-semibold">{formatLength(sheet.lengthMm)} + 25 mm trim</dd>
+        <dt className="text-ink-soft">Utilisation</dt>
+        <dd className="font-semibold">{percent(sheet.utilisation)}</dd>
+        <dt className="text-ink-soft">Pieces</dt>
+        <dd className="font-semibold">
+          {sheet.pieces.length} from {orders.join(', ')}
+        </dd>
         <dt className="text-ink-soft">Stock</dt>
         <dd className={`font-semibold ${sheet.stock.short ? 'text-danger' : ''}`}>
           {sheet.state === 'cut' ? `took ${formatLength(sheet.consumedMm ?? 0)}` : `${formatLength(sheet.stock.stockMm)} → ${formatLength(Math.max(0, sheet.stock.afterMm))}`}
@@ -51,7 +57,9 @@ export function CutSheetCard({ sheet, index }: { sheet: WorkSheet; index: number
           Download SVG
         </a>
         {sheet.state !== 'cut' ? (
-          <Button variant="secondary" onClick={onCut} pending={markCut.isPending} pendingLabel="Saving…">Mark this sheet cut</Button>
+          <Button variant="secondary" onClick={onCut} pending={markCut.isPending} pendingLabel="Saving…">
+            Mark this sheet cut
+          </Button>
         ) : null}
       </div>
     </article>

@@ -1,17 +1,14 @@
+import { createColumnHelper, getCoreRowModel, getSortedRowModel, type RowSelectionState, type SortingState, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
-import {
-  createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable,
-  type RowSelectionState, type SortingState,
-} from '@tanstack/react-table';
 import type { WorkLine, WorkLinesPage } from '../../../../shared/schemas/workroom.ts';
 import { WORK_STATES } from '../../../../shared/schemas/workroom.ts';
-import { paths } from '../../../config/paths.ts';
 import { CardTable } from '../../../components/ui/card-table.tsx';
-import { formatDate, stateWords } from './format.ts';
-import { MaterialChips } from './material-chips.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipByCell, type ShipByLookup } from '../../../components/ui/ship-by-cell.tsx';
+import { paths } from '../../../config/paths.ts';
+import { formatDate, stateWords } from './format.ts';
+import { MaterialChips } from './material-chips.tsx';
 
 /** a line with its ship-by sort key beside it, so the table sorts on data it holds */
 type Row = WorkLine & { shipByKey: string };
@@ -63,7 +60,13 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
           <input type="checkbox" className="size-5 accent-thread" aria-label="Select every line shown" checked={table.getIsAllRowsSelected()} onChange={table.getToggleAllRowsSelectedHandler()} />
         ),
         cell: ({ row }) => (
-          <input type="checkbox" className="size-5 accent-thread" aria-label={`Select ${row.original.orderNumber} ${row.original.text || row.original.listingTitle}`} checked={row.getIsSelected()} onChange={row.getToggleSelectedHandler()} />
+          <input
+            type="checkbox"
+            className="size-5 accent-thread"
+            aria-label={`Select ${row.original.orderNumber} ${row.original.text || row.original.listingTitle}`}
+            checked={row.getIsSelected()}
+            onChange={row.getToggleSelectedHandler()}
+          />
         ),
       }),
       col.accessor('orderNumber', {
@@ -87,12 +90,19 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
         ),
       }),
       col.accessor('materials', { header: 'Materials', enableSorting: false, cell: (c) => <MaterialChips materials={c.getValue()} /> }),
-      col.accessor('state', { header: 'State', cell: (c) => <LineStateBadge state={c.getValue()} words="workroom" />, sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never) }),
+      col.accessor('state', {
+        header: 'State',
+        cell: (c) => <LineStateBadge state={c.getValue()} words="workroom" />,
+        sortingFn: (a, b) => WORK_STATES.indexOf(a.original.state as never) - WORK_STATES.indexOf(b.original.state as never),
+      }),
       col.display({
         id: 'actions',
         header: () => <span className="sr-only">Open</span>,
         cell: ({ row }) => (
-          <Link className="-my-2.5 inline-flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap text-thread-deep underline decoration-2 underline-offset-4 hover:bg-thread-wash" to={paths.workroomProof.getHref(row.original.id)}>
+          <Link
+            className="-my-2.5 inline-flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap text-thread-deep underline decoration-2 underline-offset-4 hover:bg-thread-wash"
+            to={paths.workroomProof.getHref(row.original.id)}
+          >
             {row.original.state === 'awaiting_proof' ? 'Check proof' : 'Open'}
           </Link>
         ),
@@ -119,7 +129,9 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
 
   return (
     <section aria-labelledby="lines-title" className="flex min-w-0 max-w-full flex-col gap-4">
-      <h2 id="lines-title" className="text-xl font-extrabold">Order lines</h2>
+      <h2 id="lines-title" className="text-xl font-extrabold">
+        Order lines
+      </h2>
       <fieldset className="grid gap-3 rounded-lg border border-line bg-white p-4 sm:grid-cols-2 lg:grid-cols-5">
         <legend className="px-1 text-sm font-bold text-ink-soft">Filter</legend>
         <label className="flex flex-col gap-1 font-bold">
@@ -127,7 +139,9 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
           <select className={selectClass} value={state} onChange={(e) => onFiltersChange({ state: e.target.value })}>
             <option value="">Every state</option>
             {[...WORK_STATES, 'cancelled', 'refunded'].map((s) => (
-              <option key={s} value={s}>{stateWords(s)}</option>
+              <option key={s} value={s}>
+                {stateWords(s)}
+              </option>
             ))}
           </select>
         </label>
@@ -144,7 +158,9 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
           <select className={selectClass} value={material} onChange={(e) => onFiltersChange({ material: e.target.value })}>
             <option value="">Any material</option>
             {materials.map((m) => (
-              <option key={m.id} value={m.id}>{m.colour} ({m.kind})</option>
+              <option key={m.id} value={m.id}>
+                {m.colour} ({m.kind})
+              </option>
             ))}
           </select>
         </label>
@@ -153,7 +169,9 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
           <select className={selectClass} value={listing} onChange={(e) => onFiltersChange({ listing: e.target.value })}>
             <option value="">Any listing</option>
             {listings.map(({ id, title }) => (
-              <option key={id} value={id}>{title}</option>
+              <option key={id} value={id}>
+                {title}
+              </option>
             ))}
           </select>
         </label>

@@ -15,7 +15,9 @@ export function PressCardView({ card }: { card: PressCard }) {
       {card.warnings.length ? (
         <ul className="flex flex-col gap-1" aria-label="Press warnings">
           {card.warnings.map((w) => (
-            <li key={w.code} className="rounded-lg border-2 border-marigold bg-marigold-wash px-3 py-2 text-sm font-semibold">⚠ {w.message}</li>
+            <li key={w.code} className="rounded-lg border-2 border-marigold bg-marigold-wash px-3 py-2 text-sm font-semibold">
+              ⚠ {w.message}
+            </li>
           ))}
         </ul>
       ) : null}
@@ -23,7 +25,9 @@ export function PressCardView({ card }: { card: PressCard }) {
         {card.steps.map((s, i) => (
           // biome-ignore lint/suspicious/noArrayIndexKey: the steps are one fixed procedure and the place is the step number shown; a step may repeat
           <li key={i} className="grid grid-cols-[7rem_1fr] gap-2 text-sm">
-            <span className="font-bold">{i + 1}. {kindWords[s.kind] ?? s.kind}</span>
+            <span className="font-bold">
+              {i + 1}. {kindWords[s.kind] ?? s.kind}
+            </span>
             <span>
               {s.text}
               {s.protectiveSheet ? <span className="ml-1 rounded bg-thread-wash px-1.5 text-xs font-bold text-thread-deep">protective sheet</span> : null}
@@ -31,9 +35,13 @@ export function PressCardView({ card }: { card: PressCard }) {
           </li>
         ))}
       </ol>
-      <p className="text-sm"><span className="font-bold">Placement:</span> {card.placementNote}</p>
+      <p className="text-sm">
+        <span className="font-bold">Placement:</span> {card.placementNote}
+      </p>
       {card.notes.map((n) => (
-        <p key={n} className="text-xs text-ink-soft">{n}</p>
+        <p key={n} className="text-xs text-ink-soft">
+          {n}
+        </p>
       ))}
       <p className="text-xs text-ink-soft">Heat burns: keep hands clear, use a protective sheet, let the press cool, keep it away from children. Ventilate when pressing vinyl.</p>
     </div>

@@ -1,7 +1,7 @@
-import { useId } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useId } from 'react';
 import { useForm } from 'react-hook-form';
-import { requestChangeSchema, type RequestChangeInput } from '../../../../shared/schemas/workroom.ts';
+import { type RequestChangeInput, requestChangeSchema } from '../../../../shared/schemas/workroom.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { applyServerErrors } from '../../../lib/form-errors.ts';
@@ -27,8 +27,12 @@ export function RequestChangeForm({ lineId, onDone }: { lineId: string; onDone?:
   });
   return (
     <form noValidate onSubmit={onSubmit} className="flex flex-col gap-2">
-      <label htmlFor={id} className="font-bold">Message to the shopper</label>
-      <p id={`${id}-hint`} className="text-sm text-ink-soft">Say what to check or change, e.g. “Is it Mira or Myra?”. It goes out by e-mail.</p>
+      <label htmlFor={id} className="font-bold">
+        Message to the shopper
+      </label>
+      <p id={`${id}-hint`} className="text-sm text-ink-soft">
+        Say what to check or change, e.g. “Is it Mira or Myra?”. It goes out by e-mail.
+      </p>
       <textarea
         id={id}
         rows={3}
@@ -37,8 +41,14 @@ export function RequestChangeForm({ lineId, onDone }: { lineId: string; onDone?:
         className={`w-full rounded-lg border-2 bg-white px-3 py-2 ${error ? 'border-danger' : 'border-field hover:border-ink'}`}
         {...form.register('message')}
       />
-      {error ? <p id={`${id}-err`} className="text-sm font-semibold text-danger">{error}</p> : null}
-      <Button type="submit" variant="secondary" pending={request.isPending} pendingLabel="Sending…" className="self-start">Ask for a change</Button>
+      {error ? (
+        <p id={`${id}-err`} className="text-sm font-semibold text-danger">
+          {error}
+        </p>
+      ) : null}
+      <Button type="submit" variant="secondary" pending={request.isPending} pendingLabel="Sending…" className="self-start">
+        Ask for a change
+      </Button>
     </form>
   );
 }

@@ -1,7 +1,7 @@
-import { useId } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useId } from 'react';
 import { useForm } from 'react-hook-form';
-import { CARRIERS, shipSchema, type ShipInput } from '../../../../shared/schemas/workroom.ts';
+import { CARRIERS, type ShipInput, shipSchema } from '../../../../shared/schemas/workroom.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
@@ -32,7 +32,9 @@ export function ShipForm({ orderId }: { orderId: string }) {
         ))}
       </datalist>
       <TextField label="Tracking number" autoComplete="off" spellCheck={false} error={form.formState.errors.trackingNumber?.message} {...form.register('trackingNumber')} />
-      <Button type="submit" pending={ship.isPending} pendingLabel="Saving…" className="self-start">Mark shipped</Button>
+      <Button type="submit" pending={ship.isPending} pendingLabel="Saving…" className="self-start">
+        Mark shipped
+      </Button>
     </form>
   );
 }

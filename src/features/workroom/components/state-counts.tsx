@@ -13,7 +13,9 @@ export function StateCounts({ summary, active, onPick }: { summary: WorkroomSumm
             onClick={() => onPick(active === s ? '' : s)}
             className={`flex w-full flex-col items-start rounded-lg border-2 px-4 py-3 text-left ${active === s ? 'border-thread bg-thread-wash' : 'border-line bg-white hover:border-thread'}`}
           >
-            <span className="text-3xl font-extrabold" data-testid={`count-${s}`}>{summary ? summary.counts[s] : '…'}</span>
+            <span className="text-3xl font-extrabold" data-testid={`count-${s}`}>
+              {summary ? summary.counts[s] : '…'}
+            </span>
             <span className="text-sm font-bold text-ink-soft">{stateWords(s)}</span>
           </button>
         </li>

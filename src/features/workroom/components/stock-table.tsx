@@ -1,7 +1,7 @@
 import { useState } from 'react';
+import { formatMoney } from '../../../../shared/money.ts';
 import type { StockMaterial, StockView } from '../../../../shared/schemas/workroom.ts';
 import { lowStockSchema } from '../../../../shared/schemas/workroom.ts';
-import { formatMoney } from '../../../../shared/money.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -28,14 +28,30 @@ function LowStockEditor({ m }: { m: StockMaterial }) {
   return (
     <div className="flex flex-wrap items-start gap-2">
       <div className="flex flex-col">
-        <label htmlFor={id} className="sr-only">Low-stock mark for {m.colourName}, cm</label>
+        <label htmlFor={id} className="sr-only">
+          Low-stock mark for {m.colourName}, cm
+        </label>
         <div className="flex items-center gap-1">
-          <input id={id} inputMode="decimal" className={`min-h-11 w-24 rounded-lg border-2 bg-white px-2 ${error ? 'border-danger' : 'border-field'}`} value={value} onChange={(e) => setValue(e.target.value)} aria-invalid={error ? true : undefined} aria-describedby={error ? `${id}-e` : undefined} />
+          <input
+            id={id}
+            inputMode="decimal"
+            className={`min-h-11 w-24 rounded-lg border-2 bg-white px-2 ${error ? 'border-danger' : 'border-field'}`}
+            value={value}
+            onChange={(e) => setValue(e.target.value)}
+            aria-invalid={error ? true : undefined}
+            aria-describedby={error ? `${id}-e` : undefined}
+          />
           <span className="text-sm">cm</span>
         </div>
-        {error ? <span id={`${id}-e`} className="text-sm font-semibold text-danger">{error}</span> : null}
+        {error ? (
+          <span id={`${id}-e`} className="text-sm font-semibold text-danger">
+            {error}
+          </span>
+        ) : null}
       </div>
-      <Button variant="quiet" onClick={save} pending={update.isPending} className="min-h-11 px-2">Save</Button>
+      <Button variant="quiet" onClick={save} pending={update.isPending} className="min-h-11 px-2">
+        Save
+      </Button>
     </div>
   );
 }
@@ -46,11 +62,19 @@ export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPag
   return (
     <div className="flex flex-col gap-8">
       <section aria-labelledby="stock-mat">
-        <h2 id="stock-mat" className="mb-3 text-xl font-extrabold">Remaining per material</h2>
+        <h2 id="stock-mat" className="mb-3 text-xl font-extrabold">
+          Remaining per material
+        </h2>
         <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
           <table className="w-full min-w-[720px] text-left">
             <thead className="bg-paper-deep text-sm">
-              <tr><th className="px-3 py-2">Material</th><th className="px-3 py-2">Roll width</th><th className="px-3 py-2">Remaining</th><th className="px-3 py-2">Planned on uncut sheets</th><th className="px-3 py-2">Low-stock mark</th></tr>
+              <tr>
+                <th className="px-3 py-2">Material</th>
+                <th className="px-3 py-2">Roll width</th>
+                <th className="px-3 py-2">Remaining</th>
+                <th className="px-3 py-2">Planned on uncut sheets</th>
+                <th className="px-3 py-2">Low-stock mark</th>
+              </tr>
             </thead>
             <tbody>
               {stock.materials.map((m) => (
@@ -67,7 +91,9 @@ export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPag
                     {m.low ? <span className="ml-2 rounded-full bg-danger-wash px-2 py-0.5 text-sm font-bold text-danger">low</span> : null}
                   </td>
                   <td className="px-3 py-2.5">{m.plannedMm ? formatLength(m.plannedMm) : '—'}</td>
-                  <td className="px-3 py-2.5"><LowStockEditor m={m} /></td>
+                  <td className="px-3 py-2.5">
+                    <LowStockEditor m={m} />
+                  </td>
                 </tr>
               ))}
             </tbody>
@@ -75,13 +101,25 @@ export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPag
         </div>
       </section>
       <section aria-labelledby="stock-use">
-        <h2 id="stock-use" className="mb-1 text-xl font-extrabold">What each cut sheet used</h2>
+        <h2 id="stock-use" className="mb-1 text-xl font-extrabold">
+          What each cut sheet used
+        </h2>
         <p className="mb-3 text-sm text-ink-soft">A cut sheet takes its nested length plus {stock.trimMm} mm trim from the roll.</p>
-        {stock.sheets.total === 0 ? <p className="text-ink-soft">No cut sheets yet.</p> : (
+        {stock.sheets.total === 0 ? (
+          <p className="text-ink-soft">No cut sheets yet.</p>
+        ) : (
           <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
             <table className="w-full min-w-[640px] text-left">
               <thead className="bg-paper-deep text-sm">
-                <tr><th className="px-3 py-2">Material</th><th className="px-3 py-2">State</th><th className="px-3 py-2">Length</th><th className="px-3 py-2">Taken from stock</th><th className="px-3 py-2">Cost</th><th className="px-3 py-2">Lines</th><th className="px-3 py-2">When</th></tr>
+                <tr>
+                  <th className="px-3 py-2">Material</th>
+                  <th className="px-3 py-2">State</th>
+                  <th className="px-3 py-2">Length</th>
+                  <th className="px-3 py-2">Taken from stock</th>
+                  <th className="px-3 py-2">Cost</th>
+                  <th className="px-3 py-2">Lines</th>
+                  <th className="px-3 py-2">When</th>
+                </tr>
               </thead>
               <tbody>
                 {stock.sheets.items.map((s) => {

@@ -2,6 +2,7 @@ import { useNavigate, useSearchParams } from 'react-router-dom';
 import { LINE_STATES, type LineState } from '../../../../shared/schemas/order.ts';
 import { Button, Spinner } from '../../../components/ui/button.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import type { ShipByLookup } from '../../../components/ui/ship-by-cell.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -9,8 +10,7 @@ import { useApproveProofs } from '../api/approve-proofs.ts';
 import { useBuildCutSheets } from '../api/build-cut-sheets.ts';
 import { useLines } from '../api/get-lines.ts';
 import { useSummary } from '../api/get-summary.ts';
-import type { ShipByLookup } from '../../../components/ui/ship-by-cell.tsx';
-import { LinesTable, type LinesFilterValues } from './lines-table.tsx';
+import { type LinesFilterValues, LinesTable } from './lines-table.tsx';
 import { StateCounts } from './state-counts.tsx';
 
 const FILTER_KEYS = ['state', 'from', 'to', 'material', 'listing'] as const;
@@ -35,7 +35,9 @@ export function WorkroomOrders({ shipBy }: { shipBy: ShipByLookup }) {
     setParams(
       (prev) => {
         const next = new URLSearchParams(prev);
-        for (const [k, v] of Object.entries(patch)) if (v) next.set(k, v); else next.delete(k);
+        for (const [k, v] of Object.entries(patch))
+          if (v) next.set(k, v);
+          else next.delete(k);
         next.delete('page');
         return next;
       },
@@ -62,10 +64,16 @@ export function WorkroomOrders({ shipBy }: { shipBy: ShipByLookup }) {
       {lines.isPending ? (
         <Spinner label="Loading orders…" />
       ) : lines.isError && !lines.data ? (
-        <p role="alert" className="font-bold text-danger">{lines.error.message}</p>
+        <p role="alert" className="font-bold text-danger">
+          {lines.error.message}
+        </p>
       ) : (
         <div className={`flex min-w-0 max-w-full flex-col gap-4 ${lines.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}`}>
-          {lines.isError ? <p role="alert" className="font-bold text-danger">{lines.error.message}</p> : null}
+          {lines.isError ? (
+            <p role="alert" className="font-bold text-danger">
+              {lines.error.message}
+            </p>
+          ) : null}
           <LinesTable
             shipBy={shipBy}
             lines={lines.data.items}

@@ -3,8 +3,8 @@ import type { WorksheetRequest } from '../../../../shared/schemas/workroom.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
-import { useStartWorksheet } from '../api/start-worksheet.ts';
 import { useWorksheetJob } from '../api/get-worksheet-job.ts';
+import { useStartWorksheet } from '../api/start-worksheet.ts';
 
 /** Builds the batch's work sheet PDF on the server, shows how far it has got, then offers it. */
 export function WorksheetDownload({ batchId }: { batchId: string }) {
@@ -26,19 +26,32 @@ export function WorksheetDownload({ batchId }: { batchId: string }) {
   const pct = Math.round((j?.progress ?? 0) * 100);
   return (
     <section aria-labelledby={`${id}-t`} className="flex flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm">
-      <h3 id={`${id}-t`} className="text-lg font-extrabold">Work sheet (PDF)</h3>
+      <h3 id={`${id}-t`} className="text-lg font-extrabold">
+        Work sheet (PDF)
+      </h3>
       <p className="text-sm text-ink-soft">Summary, a map of each cut sheet, a press card per item, cautions, care cards for the parcels and a packing slip per order.</p>
       <fieldset className="flex flex-wrap gap-4">
         <legend className="mb-1 font-bold">Paper</legend>
         {(['A4', 'Letter'] as const).map((p) => (
           <label key={p} className="inline-flex min-h-11 items-center gap-2">
-            <input type="radio" name={`${id}-paper`} className="size-5 accent-thread" checked={paper === p} onChange={() => { setPaper(p); setJobId(null); }} />
+            <input
+              type="radio"
+              name={`${id}-paper`}
+              className="size-5 accent-thread"
+              checked={paper === p}
+              onChange={() => {
+                setPaper(p);
+                setJobId(null);
+              }}
+            />
             {p === 'A4' ? 'A4 (210 × 297 mm)' : 'Letter (8.5 × 11 in)'}
           </label>
         ))}
       </fieldset>
       <div className="flex flex-wrap items-center gap-3">
-        <Button onClick={onBuild} pending={start.isPending || building} pendingLabel="Building…">Build the work sheet</Button>
+        <Button onClick={onBuild} pending={start.isPending || building} pendingLabel="Building…">
+          Build the work sheet
+        </Button>
         {j?.state === 'done' && j.downloadUrl ? (
           <a href={j.downloadUrl} download className="inline-flex min-h-11 items-center rounded-lg border-2 border-thread px-4 font-bold text-thread-deep hover:bg-thread-wash">
             Download the PDF ({j.pages} pages, {paper})
@@ -50,7 +63,9 @@ export function WorksheetDownload({ batchId }: { batchId: string }) {
           <div role="progressbar" aria-label="Building the work sheet" aria-valuemin={0} aria-valuemax={100} aria-valuenow={pct} className="h-3 w-full overflow-hidden rounded-full bg-paper-deep">
             <div className="h-full bg-thread transition-[width]" style={{ width: `${pct}%` }} />
           </div>
-          <p className="text-sm text-ink-soft" aria-live="polite">{j?.state === 'failed' ? j.error : `${pct} % of ${j?.pages ?? '…'} pages`}</p>
+          <p className="text-sm text-ink-soft" aria-live="polite">
+            {j?.state === 'failed' ? j.error : `${pct} % of ${j?.pages ?? '…'} pages`}
+          </p>
         </div>
       ) : null}
     </section>
