@@ -31,9 +31,6 @@ function ensureChromium() {
   return r.status === 0 && fs.existsSync('/usr/bin/chromium');
 }
 
-// Biome (formatting and lint) runs with the other checks; switch it off here only while the tree is
-// being reformatted.
-const BIOME = true;
 
 const counts = { passed: 0, failed: 0, skipped: 0 };
 let ok = true;
@@ -65,7 +62,7 @@ if (only !== 'e2e') {
     'bench',
     'scripts',
   ]);
-  if (BIOME) check('formatting and lint (Biome)', ['node_modules/@biomejs/biome/bin/biome', 'check', '.']);
+  check('formatting and lint (Biome)', ['node_modules/@biomejs/biome/bin/biome', 'check', '.']);
   const vitestJson = path.join(out, 'vitest.json');
   ok = run('unit and API tests (Vitest)', node, ['node_modules/vitest/vitest.mjs', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`]) && ok;
   if (fs.existsSync(vitestJson)) {
