@@ -9,7 +9,7 @@ import { parseMotifSvg, renderMotifSvg } from '../../shared/engine/motif.ts';
 import { defaultPressProfile, type MaterialKind } from '../../shared/engine/press-defaults.ts';
 import { type BlankKind, type ListingInput, listingInputSchema, liveColumns } from '../../shared/schemas/listing.ts';
 import type { AppDeps } from '../deps.ts';
-import { createStorage } from '../integrations/storage.ts';
+import { createStorage, storedImageColumns } from '../integrations/storage.ts';
 import { seedRepo } from './seed.repo.ts';
 import type { SeedContext } from './seed-context.ts';
 
@@ -346,12 +346,7 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
         ownerId: owner,
         shopId,
         kind: 'photo',
-        path: img.fileName,
-        thumbPath: img.thumbName,
-        mime: img.mime,
-        width: img.width,
-        height: img.height,
-        bytes: img.bytes,
+        ...storedImageColumns(img),
         createdAt: base,
       });
     }

@@ -28,6 +28,9 @@ const unsupported = (message: string) => new AppError(415, 'unsupported_file', m
 
 export type StoredImage = { fileName: string; thumbName: string; mime: 'image/jpeg' | 'image/webp'; width: number; height: number; bytes: number };
 
+/** The columns of an upload row that describe a stored image: its two files, type and size. */
+export const storedImageColumns = (img: StoredImage) => ({ path: img.fileName, thumbPath: img.thumbName, mime: img.mime, width: img.width, height: img.height, bytes: img.bytes });
+
 export type Storage = {
   dir: string;
   /** checks, re-encodes and writes an image and its WebP thumbnail; throws AppError when refused */

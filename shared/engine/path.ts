@@ -172,7 +172,8 @@ export function mirrorPathData(d: string, axisX?: number): string {
 
 // ---- exact bounding box: endpoints plus the curve's extrema (roots of the derivative) ----
 
-function quadExtrema(p0: number, p1: number, p2: number, acc: (v: number) => void): void {
+/** Passes `acc` the value of a quadratic Bézier (one coordinate) at each turning point strictly inside the curve. */
+export function quadExtrema(p0: number, p1: number, p2: number, acc: (v: number) => void): void {
   const den = p0 - 2 * p1 + p2;
   if (den !== 0) {
     const t = (p0 - p1) / den;
@@ -185,7 +186,8 @@ function cubicAt(p0: number, p1: number, p2: number, p3: number, t: number): num
   return u * u * u * p0 + 3 * u * u * t * p1 + 3 * u * t * t * p2 + t * t * t * p3;
 }
 
-function cubicExtrema(p0: number, p1: number, p2: number, p3: number, acc: (v: number) => void): void {
+/** Passes `acc` the value of a cubic Bézier (one coordinate) at each turning point strictly inside the curve. */
+export function cubicExtrema(p0: number, p1: number, p2: number, p3: number, acc: (v: number) => void): void {
   // B'(t)/3 = a t² + b t + c
   const a = -p0 + 3 * p1 - 3 * p2 + p3;
   const b = 2 * (p0 - 2 * p1 + p2);
@@ -204,19 +206,30 @@ function cubicExtrema(p0: number, p1: number, p2: number, p3: number, acc: (v: n
 }
 
 /** The tight bounding box of a path (curve extrema, not control points). Empty path → zero box. */
-export function pathBBox(path: Path): BBox {
+/**
+ * A box grown one coordinate at a time (x and y are fed separately, as the extrema helpers above
+ * report them): `box()` is the box so far, or null while nothing has been added.
+ */
+export function bboxGrower() {
   let minX = Infinity,
     minY = Infinity,
     maxX = -Infinity,
     maxY = -Infinity;
-  const ax = (v: number) => {
-    if (v < minX) minX = v;
-    if (v > maxX) maxX = v;
+  return {
+    ax: (v: number) => {
+      if (v < minX) minX = v;
+      if (v > maxX) maxX = v;
+    },
+    ay: (v: number) => {
+      if (v < minY) minY = v;
+      if (v > maxY) maxY = v;
+    },
+    box: (): BBox | null => (minX === Infinity ? null : { minX, minY, maxX, maxY }),
   };
-  const ay = (v: number) => {
-    if (v < minY) minY = v;
-    if (v > maxY) maxY = v;
-  };
+}
+
+export function pathBBox(path: Path): BBox {
+  const { ax, ay, box } = bboxGrower();
   for (const sp of path) {
     let px = sp.x0,
       py = sp.y0;
@@ -236,8 +249,7 @@ export function pathBBox(path: Path): BBox {
       py = s.y;
     }
   }
-  if (minX === Infinity) return { ...EMPTY_BBOX };
-  return { minX, minY, maxX, maxY };
+  return box() ?? { ...EMPTY_BBOX };
 }
 
 export function unionBBox(a: BBox | null, b: BBox): BBox {

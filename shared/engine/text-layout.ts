@@ -7,7 +7,7 @@
  */
 import type { FontRegistry, LoadedFont } from './fonts.ts';
 import { LimitError, MAX_LETTER_HEIGHT_MM, MAX_TEXT_CHARS } from './limits.ts';
-import type { BBox } from './path.ts';
+import { type BBox, bboxGrower, cubicExtrema, EMPTY_BBOX, quadExtrema } from './path.ts';
 import { shapeText } from './shaping.ts';
 
 export interface LayoutTextInput {
@@ -84,54 +84,12 @@ function cachesFor(f: LoadedFont): FontCaches {
   return c;
 }
 
-function quadEx(p0: number, p1: number, p2: number, acc: (v: number) => void) {
-  const den = p0 - 2 * p1 + p2;
-  if (den !== 0) {
-    const t = (p0 - p1) / den;
-    if (t > 0 && t < 1) acc((1 - t) * (1 - t) * p0 + 2 * (1 - t) * t * p1 + t * t * p2);
-  }
-}
-function cubicEx(p0: number, p1: number, p2: number, p3: number, acc: (v: number) => void) {
-  const a = -p0 + 3 * p1 - 3 * p2 + p3,
-    b = 2 * (p0 - 2 * p1 + p2),
-    c = p1 - p0;
-  const at = (t: number) => {
-    const u = 1 - t;
-    return u * u * u * p0 + 3 * u * u * t * p1 + 3 * u * t * t * p2 + t * t * t * p3;
-  };
-  if (Math.abs(a) < 1e-12) {
-    if (Math.abs(b) > 1e-12) {
-      const t = -c / b;
-      if (t > 0 && t < 1) acc(at(t));
-    }
-    return;
-  }
-  const disc = b * b - 4 * a * c;
-  if (disc < 0) return;
-  const sq = Math.sqrt(disc);
-  const t1 = (-b + sq) / (2 * a),
-    t2 = (-b - sq) / (2 * a);
-  if (t1 > 0 && t1 < 1) acc(at(t1));
-  if (t2 > 0 && t2 < 1) acc(at(t2));
-}
-
 function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
   let g = c.glyphs.get(id);
   if (g) return g;
   const glyph = f.font.getGlyph(id) as unknown as { id: number; path: { commands: GlyphCommand[] } };
   const ops: number[] = [];
-  let minX = Infinity,
-    minY = Infinity,
-    maxX = -Infinity,
-    maxY = -Infinity;
-  const ax = (v: number) => {
-    if (v < minX) minX = v;
-    if (v > maxX) maxX = v;
-  };
-  const ay = (v: number) => {
-    if (v < minY) minY = v;
-    if (v > maxY) maxY = v;
-  };
+  const { ax, ay, box } = bboxGrower();
   let px = 0,
     py = 0;
   // .notdef (glyph 0) is drawn as nothing: a missing character is reported, not cut as a box.
@@ -155,8 +113,8 @@ function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
         break;
       case 'quadraticCurveTo':
         ops.push(2, a[0], a[1], a[2], a[3]);
-        quadEx(px, a[0], a[2], ax);
-        quadEx(py, a[1], a[3], ay);
+        quadExtrema(px, a[0], a[2], ax);
+        quadExtrema(py, a[1], a[3], ay);
         ax(a[2]);
         ay(a[3]);
         px = a[2];
@@ -164,8 +122,8 @@ function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
         break;
       case 'bezierCurveTo':
         ops.push(3, a[0], a[1], a[2], a[3], a[4], a[5]);
-        cubicEx(px, a[0], a[2], a[4], ax);
-        cubicEx(py, a[1], a[3], a[5], ay);
+        cubicExtrema(px, a[0], a[2], a[4], ax);
+        cubicExtrema(py, a[1], a[3], a[5], ay);
         ax(a[4]);
         ay(a[5]);
         px = a[4];
@@ -176,8 +134,8 @@ function glyphData(f: LoadedFont, c: FontCaches, id: number): GlyphData {
         break;
     }
   }
-  const empty = minX === Infinity;
-  g = empty ? { ops, minX: 0, minY: 0, maxX: 0, maxY: 0, empty } : { ops, minX, minY, maxX, maxY, empty };
+  const b = box();
+  g = b ? { ops, ...b, empty: false } : { ops, ...EMPTY_BBOX, empty: true };
   c.glyphs.set(id, g);
   return g;
 }

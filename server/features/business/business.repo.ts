@@ -1,7 +1,8 @@
 // Every database call of the business view. Reads are scoped by the seller's shop id.
-import { and, asc, eq, inArray } from 'drizzle-orm';
+import { asc, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
-import { cutSheets, jobRuns, ledger, listings, materials, motifs, orderLines, orders, shops, user } from '../../db/schema.ts';
+import { cutSheets, jobRuns, ledger, listings, materials, motifs, orderLines, orders, shops } from '../../db/schema.ts';
+import { amongShop, motifOutline, shopsWithOwner } from '../../db/shared-queries.repo.ts';
 
 export type ShopRow = typeof shops.$inferSelect;
 export type OrderRow = typeof orders.$inferSelect;
@@ -12,7 +13,7 @@ export type MaterialRow = typeof materials.$inferSelect;
 export const businessRepo = {
   shop: (db: Db, shopId: string) => db.select().from(shops).where(eq(shops.id, shopId)).get(),
   /** shops that can have orders (live or suspended shops still owe what was bought) with their owner's address */
-  shopsWithOwners: (db: Db) => db.select({ shop: shops, ownerEmail: user.email, ownerName: user.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).orderBy(asc(shops.createdAt)).all(),
+  shopsWithOwners: (db: Db) => shopsWithOwner(db).orderBy(asc(shops.createdAt)).all(),
   setShop: (db: Db, shopId: string, set: Partial<typeof shops.$inferInsert>) => db.update(shops).set(set).where(eq(shops.id, shopId)).run(),
   linesOfShop: (db: Db, shopId: string) =>
     db
@@ -26,14 +27,7 @@ export const businessRepo = {
   setOrder: (db: Db, orderId: string, set: Partial<typeof orders.$inferInsert>) => db.update(orders).set(set).where(eq(orders.id, orderId)).run(),
   sheetsOfShop: (db: Db, shopId: string) => db.select().from(cutSheets).where(eq(cutSheets.shopId, shopId)).orderBy(asc(cutSheets.createdAt), asc(cutSheets.id)).all(),
   materialsOfShop: (db: Db, shopId: string) => db.select().from(materials).where(eq(materials.shopId, shopId)).all(),
-  motifsOfShop: (db: Db, shopId: string, ids: string[]) =>
-    ids.length
-      ? db
-          .select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry })
-          .from(motifs)
-          .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
-          .all()
-      : [],
+  motifsOfShop: (db: Db, shopId: string, ids: string[]) => amongShop(db, motifs, motifOutline, shopId, ids),
   listingsByIds: (db: Db, ids: string[]) => (ids.length ? db.select().from(listings).where(inArray(listings.id, ids)).all() : []),
   ledgerOfShop: (db: Db, shopId: string) =>
     db

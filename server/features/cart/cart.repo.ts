@@ -1,7 +1,8 @@
 // Every database call of the cart.
 import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
-import { cartLines, carts, listings, materials, motifs, shops } from '../../db/schema.ts';
+import { cartLines, carts, listings, materials, motifs } from '../../db/schema.ts';
+import { amongShop, listingsWithShop, materialSwatch, motifOutline } from '../../db/shared-queries.repo.ts';
 
 export type CartRow = typeof carts.$inferSelect;
 export type CartLineRow = typeof cartLines.$inferSelect;
@@ -47,23 +48,8 @@ export const cartRepo = {
       : undefined,
   moveLines: (db: Db, from: string, to: string) => db.update(cartLines).set({ cartId: to }).where(eq(cartLines.cartId, from)).run(),
 
-  listingWithShop: (db: Db, listingId: string) => db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(eq(listings.id, listingId)).get(),
-  listingsWithShops: (db: Db, ids: string[]) =>
-    ids.length ? db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(inArray(listings.id, ids)).all() : [],
-  materials: (db: Db, shopId: string, ids: string[]) =>
-    ids.length
-      ? db
-          .select({ id: materials.id, kind: materials.kind, colourName: materials.colourName, colourHex: materials.colourHex })
-          .from(materials)
-          .where(and(eq(materials.shopId, shopId), inArray(materials.id, ids)))
-          .all()
-      : [],
-  motifs: (db: Db, shopId: string, ids: string[]) =>
-    ids.length
-      ? db
-          .select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry })
-          .from(motifs)
-          .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
-          .all()
-      : [],
+  listingWithShop: (db: Db, listingId: string) => listingsWithShop(db).where(eq(listings.id, listingId)).get(),
+  listingsWithShops: (db: Db, ids: string[]) => (ids.length ? listingsWithShop(db).where(inArray(listings.id, ids)).all() : []),
+  materials: (db: Db, shopId: string, ids: string[]) => amongShop(db, materials, materialSwatch, shopId, ids),
+  motifs: (db: Db, shopId: string, ids: string[]) => amongShop(db, motifs, motifOutline, shopId, ids),
 };

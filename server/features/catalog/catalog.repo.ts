@@ -5,10 +5,11 @@
  */
 
 import type { Statement } from 'better-sqlite3';
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, eq, getTableColumns } from 'drizzle-orm';
 import type { CatalogQuery } from '../../../shared/schemas/catalog.ts';
 import type { Db } from '../../db/client.ts';
 import { listings, materials, motifs, shops, uploads } from '../../db/schema.ts';
+import { amongShop, listingsWithShop, materialSwatch } from '../../db/shared-queries.repo.ts';
 
 export type CatalogRow = {
   id: string;
@@ -133,14 +134,10 @@ export function catalogPage(db: Db, q: CatalogQuery): { rows: CatalogRow[]; tota
 }
 
 export const liveListingBySlug = (db: Db, slug: string) =>
-  db
-    .select({ listing: listings, shop: shops })
-    .from(listings)
-    .innerJoin(shops, eq(shops.id, listings.shopId))
+  listingsWithShop(db)
     .where(and(eq(listings.slug, slug), eq(listings.state, 'live'), eq(shops.state, 'live')))
     .get();
-export const anyListingBySlug = (db: Db, slug: string) =>
-  db.select({ listing: listings, shop: shops }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(eq(listings.slug, slug)).get();
+export const anyListingBySlug = (db: Db, slug: string) => listingsWithShop(db).where(eq(listings.slug, slug)).get();
 export const liveShopBySlug = (db: Db, slug: string) =>
   db
     .select()
@@ -149,27 +146,6 @@ export const liveShopBySlug = (db: Db, slug: string) =>
     .get();
 export const shopOwnedBy = (db: Db, userId: string) => db.select({ id: shops.id }).from(shops).where(eq(shops.ownerId, userId)).get();
 
-export const photosOf = (db: Db, shopId: string, ids: string[]) =>
-  ids.length
-    ? db
-        .select()
-        .from(uploads)
-        .where(and(eq(uploads.shopId, shopId), inArray(uploads.id, ids)))
-        .all()
-    : [];
-export const motifsOf = (db: Db, shopId: string, ids: string[]) =>
-  ids.length
-    ? db
-        .select()
-        .from(motifs)
-        .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
-        .all()
-    : [];
-export const materialsOf = (db: Db, shopId: string, ids: string[]) =>
-  ids.length
-    ? db
-        .select({ id: materials.id, kind: materials.kind, colourName: materials.colourName, colourHex: materials.colourHex })
-        .from(materials)
-        .where(and(eq(materials.shopId, shopId), inArray(materials.id, ids)))
-        .all()
-    : [];
+export const photosOf = (db: Db, shopId: string, ids: string[]) => amongShop(db, uploads, getTableColumns(uploads), shopId, ids);
+export const motifsOf = (db: Db, shopId: string, ids: string[]) => amongShop(db, motifs, getTableColumns(motifs), shopId, ids);
+export const materialsOf = (db: Db, shopId: string, ids: string[]) => amongShop(db, materials, materialSwatch, shopId, ids);

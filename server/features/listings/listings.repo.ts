@@ -1,6 +1,7 @@
-import { and, desc, eq, inArray, like, sql } from 'drizzle-orm';
+import { and, desc, eq, getTableColumns, like, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { listings, materials, motifs, uploads } from '../../db/schema.ts';
+import { amongShop } from '../../db/shared-queries.repo.ts';
 
 export type ListingRow = typeof listings.$inferSelect;
 
@@ -39,27 +40,6 @@ export const slugsLike = (db: Db, base: string) =>
     .map((r) => r.slug);
 
 // ownership lookups for what a listing refers to: only rows of this shop come back
-export const ownMaterials = (db: Db, shopId: string, ids: string[]) =>
-  ids.length
-    ? db
-        .select({ id: materials.id, archived: materials.archived })
-        .from(materials)
-        .where(and(eq(materials.shopId, shopId), inArray(materials.id, ids)))
-        .all()
-    : [];
-export const ownMotifs = (db: Db, shopId: string, ids: string[]) =>
-  ids.length
-    ? db
-        .select()
-        .from(motifs)
-        .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
-        .all()
-    : [];
-export const ownPhotos = (db: Db, shopId: string, ids: string[]) =>
-  ids.length
-    ? db
-        .select({ id: uploads.id, kind: uploads.kind })
-        .from(uploads)
-        .where(and(eq(uploads.shopId, shopId), inArray(uploads.id, ids)))
-        .all()
-    : [];
+export const ownMaterials = (db: Db, shopId: string, ids: string[]) => amongShop(db, materials, { id: materials.id, archived: materials.archived }, shopId, ids);
+export const ownMotifs = (db: Db, shopId: string, ids: string[]) => amongShop(db, motifs, getTableColumns(motifs), shopId, ids);
+export const ownPhotos = (db: Db, shopId: string, ids: string[]) => amongShop(db, uploads, { id: uploads.id, kind: uploads.kind }, shopId, ids);

@@ -1,55 +1,37 @@
 import { and, asc, desc, eq, inArray, isNotNull, or, type SQL, sql } from 'drizzle-orm';
+import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../../db/client.ts';
 import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
+import { listingsWithShop, shopsWithOwner } from '../../db/shared-queries.repo.ts';
 
 export type ShopRow = typeof shops.$inferSelect;
 export type ListingRow = typeof listings.$inferSelect;
 
+/** One page of shops with their owner that pass `where`, in `order`; and how many pass in all. */
+const shopOwnerPage = (db: Db, where: SQL | undefined, order: (SQLiteColumn | SQL)[], limit: number, offset: number) =>
+  shopsWithOwner(db)
+    .where(where)
+    .orderBy(...order)
+    .limit(limit)
+    .offset(offset)
+    .all();
+const shopOwnerCount = (db: Db, where: SQL | undefined) => db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(where).get()?.n ?? 0;
+
 // the review queue, oldest first (a page at a time)
 const shopWaits = eq(shops.state, 'in_review');
-export const shopsInReview = (db: Db, limit: number, offset: number) =>
-  db
-    .select({ shop: shops, ownerEmail: user.email, ownerName: user.name })
-    .from(shops)
-    .innerJoin(user, eq(user.id, shops.ownerId))
-    .where(shopWaits)
-    .orderBy(shops.createdAt, shops.id)
-    .limit(limit)
-    .offset(offset)
-    .all();
-export const shopsInReviewCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopWaits).get()?.n ?? 0;
+export const shopsInReview = (db: Db, limit: number, offset: number) => shopOwnerPage(db, shopWaits, [shops.createdAt, shops.id], limit, offset);
+export const shopsInReviewCount = (db: Db) => shopOwnerCount(db, shopWaits);
 const listingWaits = or(eq(listings.state, 'in_review'), eq(listings.pendingReview, true));
-export const listingsInReview = (db: Db, limit: number, offset: number) =>
-  db
-    .select({ listing: listings, shop: shops })
-    .from(listings)
-    .innerJoin(shops, eq(shops.id, listings.shopId))
-    .where(listingWaits)
-    .orderBy(listings.updatedAt, listings.id)
-    .limit(limit)
-    .offset(offset)
-    .all();
+export const listingsInReview = (db: Db, limit: number, offset: number) => listingsWithShop(db).where(listingWaits).orderBy(listings.updatedAt, listings.id).limit(limit).offset(offset).all();
 export const listingInReview = (db: Db, id: string) =>
-  db
-    .select({ listing: listings, shop: shops })
-    .from(listings)
-    .innerJoin(shops, eq(shops.id, listings.shopId))
+  listingsWithShop(db)
     .where(and(eq(listings.id, id), listingWaits))
     .get();
 export const listingsInReviewCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(listingWaits).get()?.n ?? 0;
 /** live (or suspended) shops whose name/description change waits for review, oldest first */
 const shopHasChange = isNotNull(shops.pendingChange);
-export const shopsWithChanges = (db: Db, limit: number, offset: number) =>
-  db
-    .select({ shop: shops, ownerEmail: user.email, ownerName: user.name })
-    .from(shops)
-    .innerJoin(user, eq(user.id, shops.ownerId))
-    .where(shopHasChange)
-    .orderBy(shops.updatedAt, shops.id)
-    .limit(limit)
-    .offset(offset)
-    .all();
-export const shopsWithChangesCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopHasChange).get()?.n ?? 0;
+export const shopsWithChanges = (db: Db, limit: number, offset: number) => shopOwnerPage(db, shopHasChange, [shops.updatedAt, shops.id], limit, offset);
+export const shopsWithChangesCount = (db: Db) => shopOwnerCount(db, shopHasChange);
 
 export const findShop = (db: Db, id: string) => db.select().from(shops).where(eq(shops.id, id)).get();
 export const findListing = (db: Db, id: string) => db.select().from(listings).where(eq(listings.id, id)).get();
@@ -106,14 +88,5 @@ function shopFilter(q: string, state: string | undefined): SQL | undefined {
   return conds.length ? and(...conds) : undefined;
 }
 export const shopsPage = (db: Db, f: { q: string; state?: string }, limit: number, offset: number) =>
-  db
-    .select({ shop: shops, ownerEmail: user.email, ownerName: user.name })
-    .from(shops)
-    .innerJoin(user, eq(user.id, shops.ownerId))
-    .where(shopFilter(f.q, f.state))
-    .orderBy(asc(sql`lower(${shops.name})`), asc(shops.id))
-    .limit(limit)
-    .offset(offset)
-    .all();
-export const shopsCount = (db: Db, f: { q: string; state?: string }) =>
-  db.select({ n: sql<number>`count(*)` }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(shopFilter(f.q, f.state)).get()?.n ?? 0;
+  shopOwnerPage(db, shopFilter(f.q, f.state), [asc(sql`lower(${shops.name})`), asc(shops.id)], limit, offset);
+export const shopsCount = (db: Db, f: { q: string; state?: string }) => shopOwnerCount(db, shopFilter(f.q, f.state));

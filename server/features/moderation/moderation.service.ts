@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import { type ListingPage, type ModerationShopsFilter, type ModerationShopsPage, STALE_LISTING_MESSAGE, STALE_SHOP_CHANGE_MESSAGE } from '../../../shared/schemas/catalog.ts';
-import { type ListingContent, liveColumns } from '../../../shared/schemas/listing.ts';
+import { liveColumns } from '../../../shared/schemas/listing.ts';
 import { type PageQuery, pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
 import type { ShopState } from '../../../shared/schemas/shop.ts';
 import type { Db } from '../../db/client.ts';
@@ -128,18 +128,19 @@ export function shops(db: Db, f: ModerationShopsFilter): ModerationShopsPage {
   return toPage(items, repo.shopsCount(db, f), f);
 }
 
-function waiting(db: Db, id: string) {
+/** The listing a moderator decides on: waiting for review, not in their own shop, still at the revision they saw. */
+function waiting(db: Db, actor: SessionUser, id: string, revision: number) {
   const l = repo.findListing(db, id);
   if (!l) throw notFound('No such listing.');
   if (l.state !== 'in_review' && !l.pendingReview) throw conflict('This listing is not waiting for review.');
+  notOwnShop(db, actor, l.shopId);
+  if (l.revision !== revision) throw stale(STALE_LISTING_MESSAGE);
   return l;
 }
 
 /** Publishes exactly the revision the moderator reviewed; a later seller edit makes this a 409. */
 export async function approveListing(deps: Deps, actor: SessionUser, id: string, revision: number) {
-  const l = waiting(deps.db, id);
-  notOwnShop(deps.db, actor, l.shopId);
-  if (l.revision !== revision) throw stale(STALE_LISTING_MESSAGE);
+  const l = waiting(deps.db, actor, id, revision);
   const content = l.draft;
   const at = deps.now();
   const row = deps.db.transaction((tx) => {
@@ -166,9 +167,7 @@ export async function approveListing(deps: Deps, actor: SessionUser, id: string,
 }
 
 export async function rejectListing(deps: Deps, actor: SessionUser, id: string, revision: number, reason: string) {
-  const l = waiting(deps.db, id);
-  notOwnShop(deps.db, actor, l.shopId);
-  if (l.revision !== revision) throw stale(STALE_LISTING_MESSAGE);
+  const l = waiting(deps.db, actor, id, revision);
   const content = l.draft;
   const at = deps.now();
   // a rejected edit leaves the approved copy on sale; a new listing goes back to the seller

@@ -3,7 +3,7 @@ import type { OwnShop, ShopSettingsInput, ShopState } from '../../../shared/sche
 import type { Db } from '../../db/client.ts';
 import { badRequest, conflict } from '../../http/app-error.ts';
 import type { SessionUser, ShopRow } from '../../http/auth-guards.ts';
-import { type Storage, uploadUrl } from '../../integrations/storage.ts';
+import { type Storage, storedImageColumns, uploadUrl } from '../../integrations/storage.ts';
 import { findOwnUpload, insertUpload, type ShopChange, slugTakenByOther, updateShop } from './shops.repo.ts';
 
 export function toOwnShop(s: ShopRow): OwnShop {
@@ -83,12 +83,7 @@ export async function replaceLogo(deps: { db: Db; now: () => number; storage: St
     ownerId: user.id,
     shopId: shop.id,
     kind: 'logo',
-    path: img.fileName,
-    thumbPath: img.thumbName,
-    mime: img.mime,
-    width: img.width,
-    height: img.height,
-    bytes: img.bytes,
+    ...storedImageColumns(img),
     createdAt: at,
   });
   return toOwnShop(updateShop(deps.db, shop.id, { logoPath: img.thumbName, updatedAt: at })!);

@@ -1,9 +1,10 @@
 import crypto from 'node:crypto';
 import { checkMotifBounds, MOTIF_LIMIT_CODES, MotifError, type MotifGeometry, renderMotifSvg } from '../../../shared/engine/motif.ts';
+import type { MotifView, UploadView } from '../../../shared/schemas/upload.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
-import { type Storage, uploadUrl } from '../../integrations/storage.ts';
+import { type Storage, storedImageColumns, uploadUrl } from '../../integrations/storage.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 import {
   deleteMotif,
@@ -21,7 +22,6 @@ import {
   type UploadRow,
 } from './uploads.repo.ts';
 
-export type UploadView = { id: string; kind: string; url: string; thumbnailUrl: string; width: number; height: number; bytes: number; createdAt: number };
 export const toUpload = (u: UploadRow): UploadView => ({
   id: u.id,
   kind: u.kind,
@@ -41,12 +41,7 @@ export async function savePhoto(deps: { db: Db; now: () => number; storage: Stor
       ownerId: user.id,
       shopId,
       kind,
-      path: img.fileName,
-      thumbPath: img.thumbName,
-      mime: img.mime,
-      width: img.width,
-      height: img.height,
-      bytes: img.bytes,
+      ...storedImageColumns(img),
       createdAt: deps.now(),
     }),
   );
@@ -67,15 +62,6 @@ export function removePhoto(deps: { db: Db; storage: Storage }, shopId: string, 
 // ---------------------------------------------------------------- motifs
 const ACTIVE = /^(<script>|<foreignObject>|<iframe>|on\w+ attribute)$/i;
 
-export type MotifView = {
-  id: string;
-  name: string;
-  widthMm: number;
-  heightMm: number;
-  layers: { id: string; colour: string | null; areaMm2: number; bboxMm: MotifGeometry['layers'][number]['bboxMm'] }[];
-  svgUrl: string;
-  createdAt: number;
-};
 export function toMotif(m: MotifRow): MotifView {
   const g = m.geometry;
   return {

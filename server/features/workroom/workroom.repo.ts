@@ -6,6 +6,7 @@ import { FINISHED_LINE_STATES, UNCUT_LINE_STATES } from '../../../shared/schemas
 import type { LinesFilter } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { cutSheets, lineEvents, lineVersions, listings, materials, motifs, orderLines, orders, shops, user } from '../../db/schema.ts';
+import { amongShop, motifOutline } from '../../db/shared-queries.repo.ts';
 
 export type LineRow = typeof orderLines.$inferSelect;
 export type OrderRow = typeof orders.$inferSelect;
@@ -114,14 +115,7 @@ export const workroomRepo = {
       .where(and(eq(materials.id, id), eq(materials.shopId, shopId)))
       .get(),
   setMaterial: (db: Db, id: string, set: Partial<typeof materials.$inferInsert>) => db.update(materials).set(set).where(eq(materials.id, id)).run(),
-  motifsOfShop: (db: Db, shopId: string, ids: string[]) =>
-    ids.length
-      ? db
-          .select({ id: motifs.id, name: motifs.name, geometry: motifs.geometry })
-          .from(motifs)
-          .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, ids)))
-          .all()
-      : [],
+  motifsOfShop: (db: Db, shopId: string, ids: string[]) => amongShop(db, motifs, motifOutline, shopId, ids),
   listing: (db: Db, id: string) => db.select().from(listings).where(eq(listings.id, id)).get(),
   insertSheet: (db: Db, row: typeof cutSheets.$inferInsert) => db.insert(cutSheets).values(row).run(),
   sheet: (db: Db, shopId: string, id: string) =>
