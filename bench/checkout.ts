@@ -18,6 +18,7 @@ import { startMailFake } from '../fakes/mail/server.ts';
 import { listMailIds } from '../fakes/mail/store.ts';
 import { startStripeFake } from '../fakes/stripe/server.ts';
 import { cookieClient } from '../scripts/lib/cookie-client.ts';
+import { payOnHostedPage } from '../scripts/lib/hosted-payment.ts';
 import { createApp } from '../server/app.ts';
 import { openDb } from '../server/db/client.ts';
 import { checkouts, listings, materials, orders, shops } from '../server/db/schema.ts';
@@ -131,20 +132,7 @@ export async function run(): Promise<void> {
         }
         const co = await c('/api/checkout', { body: {} });
         if (co.status !== 201) throw new Error(`checkout: ${co.status} ${JSON.stringify(co.body)}`);
-        const pay = await fetch(co.body.url, {
-          method: 'POST',
-          body: new URLSearchParams({
-            ship_name: 'Dana Field',
-            ship_line1: '12 Acorn Lane',
-            ship_city: 'Harbourtown',
-            ship_postal_code: 'HT1 2AB',
-            ship_country: 'GB',
-            card_number: '4242 4242 4242 4242',
-            card_expiry: '12/34',
-            card_cvc: '123',
-          }),
-          redirect: 'manual',
-        });
+        const pay = await payOnHostedPage(co.body.url);
         if (pay.status !== 303) throw new Error(`pay: ${pay.status}`);
         for (;;) {
           const s = await c(`/api/checkout/${co.body.sessionId}/status?wait=10000`);

@@ -20,7 +20,7 @@ import os from 'node:os';
 import path from 'node:path';
 // @ts-expect-error autocannon ships no type declarations; the few calls used are typed below
 import autocannonUntyped from 'autocannon';
-import { buildClientIfMissing, freePort, startTsProcess, stopProcess, waitUntilUp } from '../scripts/lib/server-process.ts';
+import { startBuiltApp, stopProcess, waitUntilUp } from '../scripts/lib/server-process.ts';
 
 type AcRequest = { method?: string; path?: string; headers?: Record<string, string>; body?: string };
 type AcRequestStep = AcRequest & {
@@ -32,7 +32,6 @@ type AcInstance = { on(ev: 'response', fn: (client: object, status: number, byte
 type AcOptions = { url: string; connections: number; duration: number; pipelining?: number; timeout?: number; requests: AcRequestStep[] };
 const autocannon = autocannonUntyped as (opts: AcOptions) => AcInstance & PromiseLike<AcResult>;
 
-const root = path.resolve(import.meta.dirname, '..');
 const SECONDS = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
 const SHOPPERS = 20;
 const PASSWORD = 'bench-load-password-1';
@@ -61,24 +60,13 @@ function pct(sorted: number[], p: number): number {
 type Stats = { kind: string; ms: number[]; byStatus: Map<number, number> };
 
 export async function run(): Promise<void> {
-  buildClientIfMissing();
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-bench-load-'));
-  const port = await freePort();
-  const base = `http://localhost:${port}`;
-  const server = startTsProcess('server/index.ts', {
-    ...process.env,
+  const { server, base } = await startBuiltApp(dataDir, {
     NODE_ENV: 'production',
     AUTH_SECRET: crypto.randomBytes(24).toString('hex'),
     // production settings with the local fakes and their keys, and the demo scenario to drive
     LOCAL_FAKES: 'true',
     DEMO_DATA: 'true',
-    DATA_DIR: dataDir,
-    PORT: String(port),
-    BASE_URL: base,
-    CLIENT_DIR: path.join(root, 'dist'),
-    SMTP_PORT: '0',
-    STRIPE_FAKE_PORT: '0',
-    LOG_REQUESTS: 'false',
   });
 
   try {

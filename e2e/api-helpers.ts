@@ -2,6 +2,7 @@
 // same HTTP API the client uses, on the page's own cookie jar, so the browser then sees them.
 // Every call sends the app's Origin, as a browser would (the CSRF guard refuses other sites).
 import { type APIResponse, expect, type Page } from '@playwright/test';
+import { hostedPaymentForm } from '../scripts/lib/hosted-payment.ts';
 import { DEMO_PASSWORD } from './fixtures.ts';
 
 export const FOX_TOTE = 'autumn-fox-tote-with-a-name';
@@ -78,16 +79,7 @@ export async function addToCartApi(page: Page, slug: string, name: string): Prom
 export async function payCartApi(page: Page): Promise<{ sessionId: string; checkoutId: string }> {
   const co = await apiPost(page, '/api/checkout', {});
   const pay = await page.request.post(co.url, {
-    form: {
-      ship_name: 'Dana Field',
-      ship_line1: '12 Acorn Lane',
-      ship_city: 'Harbourtown',
-      ship_postal_code: 'HT1 2AB',
-      ship_country: 'GB',
-      card_number: '4242 4242 4242 4242',
-      card_expiry: '12/34',
-      card_cvc: '123',
-    },
+    form: hostedPaymentForm(),
     maxRedirects: 0,
   });
   expect(pay.status(), 'the payment page accepts the test card').toBe(303);

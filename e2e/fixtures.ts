@@ -18,6 +18,11 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password', { exact: true }).fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
+  await expectSignedIn(page);
+}
+
+/** The header shows a signed-in person's controls (sign out, or the menu that holds it on a phone). */
+export async function expectSignedIn(page: Page) {
   await expect(
     page
       .getByRole('button', { name: /sign out/i })

@@ -5,7 +5,7 @@
 // enters the tracking number, and the shopper's shipped e-mail is read from the mail fake's store.
 import type { Browser, Page } from '@playwright/test';
 import { fillShipTo } from './api-helpers.ts';
-import { demo, expect, signIn, test, waitForMail } from './fixtures.ts';
+import { demo, expect, expectSignedIn, signIn, test, waitForMail } from './fixtures.ts';
 
 const PASSWORD = 'workroom-journey-9';
 
@@ -17,12 +17,7 @@ async function newShopper(browser: Browser): Promise<{ page: Page; email: string
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password', { exact: true }).fill(PASSWORD);
   await page.getByRole('button', { name: 'Create account' }).click();
-  await expect(
-    page
-      .getByRole('button', { name: /sign out/i })
-      .or(page.getByRole('button', { name: /menu/i }))
-      .first(),
-  ).toBeVisible();
+  await expectSignedIn(page);
   return { page, email };
 }
 

@@ -8,7 +8,7 @@ import path from 'node:path';
 import { type Browser, chromium, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { fillShipTo } from '../e2e/api-helpers.ts';
-import { buildClientIfMissing, freePort, startTsProcess, stopProcess, waitUntilUp } from './lib/server-process.ts';
+import { startBuiltApp, stopProcess, waitUntilUp } from './lib/server-process.ts';
 
 const root = path.resolve(import.meta.dirname, '..');
 const outDir = path.join(root, 'public/screenshots');
@@ -42,22 +42,9 @@ async function signedIn(browser: Browser, base: string, email: string, viewport 
 }
 
 async function main(): Promise<void> {
-  buildClientIfMissing();
   fs.mkdirSync(outDir, { recursive: true });
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-screenshots-'));
-  const port = await freePort();
-  const base = `http://localhost:${port}`;
-  const server = startTsProcess('server/index.ts', {
-    ...process.env,
-    DATA_DIR: dataDir,
-    PORT: String(port),
-    BASE_URL: base,
-    CLIENT_DIR: path.join(root, 'dist'),
-    SMTP_PORT: '0',
-    STRIPE_FAKE_PORT: '0',
-    LOG_REQUESTS: 'false',
-    DEMO_MODE: 'true',
-  });
+  const { server, base } = await startBuiltApp(dataDir, { DEMO_MODE: 'true' });
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],

@@ -72,3 +72,26 @@ export async function stopProcess(child: ChildProcess, signal: NodeJS.Signals = 
   if (child.exitCode === null && child.signalCode === null) child.kill(signal);
   await exited(child);
 }
+
+/**
+ * Starts the built app (`server/index.ts` serving dist/, built first when missing) as a process of
+ * its own on a free port with `dataDir`, its mail and payment fakes on ports the OS picks and no
+ * request log; `env` adds the run's own settings. Answers at once: wait with `waitUntilUp`.
+ */
+export async function startBuiltApp(dataDir: string, env: NodeJS.ProcessEnv = {}): Promise<{ server: ServerProcess; base: string }> {
+  buildClientIfMissing();
+  const port = await freePort();
+  const base = `http://localhost:${port}`;
+  const server = startTsProcess('server/index.ts', {
+    ...process.env,
+    DATA_DIR: dataDir,
+    PORT: String(port),
+    BASE_URL: base,
+    CLIENT_DIR: path.join(repoRoot, 'dist'),
+    SMTP_PORT: '0',
+    STRIPE_FAKE_PORT: '0',
+    LOG_REQUESTS: 'false',
+    ...env,
+  });
+  return { server, base };
+}

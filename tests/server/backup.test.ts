@@ -13,6 +13,7 @@ import Database from 'better-sqlite3';
 import request from 'supertest';
 import { afterAll, describe, expect, test } from 'vitest';
 import { type Running, startNamesake } from '../../server/runtime.ts';
+import { offlineServerEnv } from '../factories/offline-env.ts';
 
 const TSX = path.resolve('node_modules/.bin/tsx');
 const dirs: string[] = [];
@@ -27,17 +28,7 @@ afterAll(async () => {
   for (const d of dirs) fs.rmSync(d, { recursive: true, force: true });
 });
 
-const envFor = (dataDir: string) => ({
-  NODE_ENV: 'test',
-  DATA_DIR: dataDir,
-  PORT: '0',
-  SMTP_PORT: '0',
-  STRIPE_FAKE: 'false',
-  STRIPE_API_BASE: 'http://127.0.0.1:9',
-  LOG_REQUESTS: 'false',
-  DIGEST: 'false',
-  BASE_URL: 'http://localhost:3000',
-});
+const envFor = offlineServerEnv;
 
 /** Runs one of our npm scripts the way `npm run` does (tsx on the file), with DATA_DIR set. */
 function runScript(script: string, args: string[], dataDir: string): Promise<{ code: number | null; out: string; err: string }> {

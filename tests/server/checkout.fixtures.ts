@@ -11,7 +11,8 @@ import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import Stripe from 'stripe';
 import { type StripeFake, startStripeFake } from '../../fakes/stripe/server.ts';
-import { listings, materials, shops } from '../../server/db/schema.ts';
+import { payOnHostedPage, TEST_CARD_OK } from '../../scripts/lib/hosted-payment.ts';
+import { listings, materials, orders, shops } from '../../server/db/schema.ts';
 import { defaultPressProfile } from '../../shared/engine/press-defaults.ts';
 import type { ChoicesInput } from '../../shared/schemas/listing.ts';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
@@ -136,20 +137,12 @@ export const nameChoices = (name: string, colour?: string): ChoicesInput => ({
   ...(colour ? { textColours: { name: colour } } : {}),
 });
 
-/** The parcel address typed on the payment page (invented, like all demo data). */
-export const SHIP_FORM = {
-  ship_name: 'Dana Field',
-  ship_line1: '12 Acorn Lane',
-  ship_line2: 'Flat 3',
-  ship_city: 'Harbourtown',
-  ship_postal_code: 'HT1 2AB',
-  ship_state: '',
-  ship_country: 'GB',
-} as const;
-
-/** Pays on the fake's hosted page the way the browser's form does, address included. */
+/**
+ * Pays on the fake's hosted page the way the browser's form does, address included; the optional
+ * fields are typed too (line 2 filled, state left empty), so tests can see what becomes of them.
+ */
 export function payOnPage(url: string, card: string) {
-  return fetch(url, { method: 'POST', body: new URLSearchParams({ ...SHIP_FORM, card_number: card, card_expiry: '12/34', card_cvc: '123' }), redirect: 'manual' });
+  return payOnHostedPage(url, card, { ship_line2: 'Flat 3', ship_state: '' });
 }
 
 export async function waitFor<T>(fn: () => T | undefined | null | false | Promise<T | undefined | null | false>, ms = 10_000): Promise<T> {
@@ -162,9 +155,29 @@ export async function waitFor<T>(fn: () => T | undefined | null | false | Promis
   }
 }
 
-export const CARDS = { ok: '4242 4242 4242 4242', declined: '4000 0000 0000 0002', noFunds: '4000 0000 0000 9995' };
+export const CARDS = { ok: TEST_CARD_OK, declined: '4000 0000 0000 0002', noFunds: '4000 0000 0000 9995' };
 
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;
+
+/** One cart line of a name-field listing: `name` typed, optionally in `colour`, `quantity` times. */
+export type NameLine = { listingId: string; name: string; colour?: string; quantity?: number };
+
+/** Adds the line through the cart API, which must accept it (201); answers with the cart. */
+export async function addNameLine(agent: Pick<Agent, 'post'>, line: NameLine) {
+  const res = await agent
+    .post('/api/cart/lines')
+    .send({ listingId: line.listingId, ...(line.quantity ? { quantity: line.quantity } : {}), choices: nameChoices(line.name, line.colour) })
+    .expect(201);
+  return res.body;
+}
+
+/** A new shopper, signed in, whose cart holds `lines`. */
+export async function shopperWithCart(t: TestApp, ...lines: NameLine[]) {
+  const buyer = await t.makeUser('shopper');
+  const agent = await t.signIn(buyer.email);
+  for (const line of lines) await addNameLine(agent, line);
+  return { buyer, agent };
+}
 
 /** Starts a checkout for the agent's cart, pays it with `card` and (for 4242) waits for the orders. */
 export async function checkoutAndPay(w: World, agent: Agent, card = CARDS.ok) {
@@ -177,4 +190,24 @@ export async function checkoutAndPay(w: World, agent: Agent, card = CARDS.ok) {
     return s.body.state === 'paid' && s.body;
   });
   return { started: started.body as { checkoutId: string; sessionId: string; url: string }, pay, orders: status.orders as Array<{ id: string; number: string }> };
+}
+
+/**
+ * One paid order of 6500 from a new shop: "Mira" 2000 + "Theo" × 2 = 4000 + shipping 500. Fee
+ * round(6500 × 800 / 10000) = 520, so the shop's transfer is 5980 (awaited unless `brokenAccount`,
+ * which makes the shop's transfers fail: the provider answers "No such destination" until the
+ * account is put right). `mira` and `theo` are the order's line ids; `seller` is the shop owner signed in.
+ */
+export async function paidTwoLineOrder(w: World, opts: { brokenAccount?: boolean } = {}) {
+  const shop = await makeShopWithListing(w, { basePriceMinor: 2000, shippingMinor: 500, extraLayerPriceMinor: 0 });
+  if (opts.brokenAccount) w.db.update(shops).set({ paymentAccountId: 'acct_closedaccount1' }).where(eq(shops.id, shop.seller.shopId)).run();
+  const { buyer, agent } = await shopperWithCart(w, { listingId: shop.listingId, name: 'Mira' }, { listingId: shop.listingId, name: 'Theo', quantity: 2 });
+  const { orders: made, started } = await checkoutAndPay(w, agent);
+  const orderId = made[0]!.id;
+  if (!opts.brokenAccount) await waitFor(() => w.db.select().from(orders).where(eq(orders.id, orderId)).get()?.transferId);
+  const detail = (await agent.get(`/api/orders/${orderId}`)).body as { lines: Array<{ id: string; quantity: number }> };
+  const mira = detail.lines.find((l) => l.quantity === 1)!.id;
+  const theo = detail.lines.find((l) => l.quantity === 2)!.id;
+  const seller = await w.signIn(shop.seller.email);
+  return { shop, buyer, agent, seller, orderId, mira, theo, sessionId: started.sessionId };
 }

@@ -6,7 +6,7 @@ import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cartLines, checkouts, ledger, orderLines, orders } from '../../server/db/schema.ts';
-import { CARDS, makeShopWithListing, makeWorld, nameChoices, payOnPage, type World, waitFor } from './checkout.fixtures.ts';
+import { addNameLine, CARDS, makeShopWithListing, makeWorld, nameChoices, payOnPage, shopperWithCart, type World, waitFor } from './checkout.fixtures.ts';
 
 let w: World;
 beforeAll(async () => {
@@ -44,7 +44,7 @@ describe('checkout across two shops', () => {
     const checkout = w.db.select().from(checkouts).where(eq(checkouts.id, started.body.checkoutId)).get()!;
     const os = w.db.select().from(orders).where(eq(orders.checkoutId, checkout.id)).all();
     expect(os).toHaveLength(2);
-    // both parcels go to the address typed on the payment page (SHIP_FORM); empty optional fields are null
+    // both parcels go to the address typed on the payment page (see payOnPage in checkout.fixtures); empty optional fields are null
     for (const o of os) {
       expect(o.shipTo).toEqual({ name: 'Dana Field', line1: '12 Acorn Lane', line2: 'Flat 3', city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' });
     }
@@ -118,12 +118,7 @@ describe('checkout across two shops', () => {
 describe('checkout safety', () => {
   it('when two tabs start checkout for one cart and both pay, then there is one session and one charge', async () => {
     const shop = await makeShopWithListing(w);
-    const buyer = await w.makeUser('shopper');
-    const agent = await w.signIn(buyer.email);
-    await agent
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, choices: nameChoices('Anouk') })
-      .expect(201);
+    const { agent } = await shopperWithCart(w, { listingId: shop.listingId, name: 'Anouk' });
 
     const [a, b] = await Promise.all([agent.post('/api/checkout').send({}), agent.post('/api/checkout').send({})]);
     expect(a.status).toBe(201);
@@ -158,12 +153,7 @@ describe('checkout safety', () => {
 
   it('when the card is declined, then the cart is untouched and the reason comes back in our words', async () => {
     const shop = await makeShopWithListing(w);
-    const buyer = await w.makeUser('shopper');
-    const agent = await w.signIn(buyer.email);
-    await agent
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, quantity: 3, choices: nameChoices('Priya', shop.gold) })
-      .expect(201);
+    const { agent } = await shopperWithCart(w, { listingId: shop.listingId, name: 'Priya', colour: shop.gold, quantity: 3 });
     const before = (await agent.get('/api/cart')).body;
 
     const started = await agent.post('/api/checkout').send({});
@@ -193,10 +183,7 @@ describe('checkout safety', () => {
   it('when a guest tries to check out, then they are asked to sign in and their cart stays', async () => {
     const shop = await makeShopWithListing(w);
     const guest = request.agent(w.app);
-    await guest
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, choices: nameChoices('Leon') })
-      .expect(201);
+    await addNameLine(guest, { listingId: shop.listingId, name: 'Leon' });
     const res = await guest.post('/api/checkout').send({});
     expect(res.status).toBe(401);
     expect(res.body.error.message).toMatch(/Sign in/);
@@ -205,12 +192,7 @@ describe('checkout safety', () => {
 
   it('when the shopper comes back from the payment page without paying, then the cart page hears that nothing was charged', async () => {
     const shop = await makeShopWithListing(w);
-    const buyer = await w.makeUser('shopper');
-    const agent = await w.signIn(buyer.email);
-    await agent
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, choices: nameChoices('Zoë') })
-      .expect(201);
+    const { agent } = await shopperWithCart(w, { listingId: shop.listingId, name: 'Zoë' });
     await agent.post('/api/checkout').send({}).expect(201);
     const latest = (await agent.get('/api/checkout/latest')).body.checkout;
     expect(latest.problem).toMatch(/left the payment page before paying/);
@@ -221,17 +203,9 @@ describe('checkout safety', () => {
 describe('checkout after the cart changed', () => {
   it('when the cart changes after a payment page was opened, then the old page is closed and only the new one can be paid', async () => {
     const shop = await makeShopWithListing(w);
-    const buyer = await w.makeUser('shopper');
-    const agent = await w.signIn(buyer.email);
-    await agent
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, choices: nameChoices('Mira') })
-      .expect(201);
+    const { agent } = await shopperWithCart(w, { listingId: shop.listingId, name: 'Mira' });
     const first = (await agent.post('/api/checkout').send({})).body;
-    await agent
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, choices: nameChoices('Theo') })
-      .expect(201);
+    await addNameLine(agent, { listingId: shop.listingId, name: 'Theo' });
     const second = (await agent.post('/api/checkout').send({})).body;
     expect(second.sessionId).not.toBe(first.sessionId);
     expect((await w.stripe.checkout.sessions.retrieve(first.sessionId)).status).toBe('expired');

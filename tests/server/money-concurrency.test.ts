@@ -12,7 +12,7 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkouts, ledger, orders, refundIntents, refunds, shops, user } from '../../server/db/schema.ts';
 import { refundOrder } from '../../server/features/refunds/refunds.service.ts';
-import { CARDS, checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, payOnPage, WEBHOOK_SECRET, type World, waitFor } from './checkout.fixtures.ts';
+import { CARDS, makeShopWithListing, makeWorld, paidTwoLineOrder, payOnPage, shopperWithCart, WEBHOOK_SECRET, type World, waitFor } from './checkout.fixtures.ts';
 
 let w: World;
 beforeAll(async () => {
@@ -22,33 +22,8 @@ afterAll(async () => w?.teardown());
 
 type Agent = Awaited<ReturnType<World['signIn']>>;
 
-/**
- * One paid order of 6500: "Mira" 2000 + "Theo" × 2 = 4000 + shipping 500. Fee round(6500 × 800 /
- * 10000) = 520, so the shop's transfer is 5980. `brokenAccount` makes the shop's transfers fail
- * (the provider answers "No such destination") until the account is put right.
- */
-async function paidOrder(opts: { brokenAccount?: boolean } = {}) {
-  const shop = await makeShopWithListing(w, { basePriceMinor: 2000, shippingMinor: 500, extraLayerPriceMinor: 0 });
-  if (opts.brokenAccount) w.db.update(shops).set({ paymentAccountId: 'acct_closedaccount1' }).where(eq(shops.id, shop.seller.shopId)).run();
-  const buyer = await w.makeUser('shopper');
-  const agent = await w.signIn(buyer.email);
-  await agent
-    .post('/api/cart/lines')
-    .send({ listingId: shop.listingId, choices: nameChoices('Mira') })
-    .expect(201);
-  await agent
-    .post('/api/cart/lines')
-    .send({ listingId: shop.listingId, quantity: 2, choices: nameChoices('Theo') })
-    .expect(201);
-  const { orders: made, started } = await checkoutAndPay(w, agent);
-  const orderId = made[0]!.id;
-  if (!opts.brokenAccount) await waitFor(() => order(orderId).transferId);
-  const detail = (await agent.get(`/api/orders/${orderId}`)).body as { lines: Array<{ id: string; quantity: number }> };
-  const mira = detail.lines.find((l) => l.quantity === 1)!.id;
-  const theo = detail.lines.find((l) => l.quantity === 2)!.id;
-  const seller = await w.signIn(shop.seller.email);
-  return { shop, orderId, mira, theo, seller, agent, sessionId: started.sessionId };
-}
+/** One paid order of 6500 (see `paidTwoLineOrder`: transfer 5980, fee 520). */
+const paidOrder = (opts: { brokenAccount?: boolean } = {}) => paidTwoLineOrder(w, opts);
 
 const order = (id: string) => w.db.select().from(orders).where(eq(orders.id, id)).get()!;
 const checkoutOf = (orderId: string) =>
@@ -254,12 +229,7 @@ describe('the webhook believes the provider, not the posted body', () => {
 
   async function openCheckout() {
     const shop = await makeShopWithListing(w);
-    const buyer = await w.makeUser('shopper');
-    const agent = await w.signIn(buyer.email);
-    await agent
-      .post('/api/cart/lines')
-      .send({ listingId: shop.listingId, choices: nameChoices('Ida') })
-      .expect(201);
+    const { agent } = await shopperWithCart(w, { listingId: shop.listingId, name: 'Ida' });
     const started = (await agent.post('/api/checkout').send({}).expect(201)).body as { checkoutId: string; sessionId: string; url: string };
     return { started, total: w.db.select().from(checkouts).where(eq(checkouts.id, started.checkoutId)).get()!.totalMinor };
   }
@@ -271,43 +241,28 @@ describe('the webhook believes the provider, not the posted body', () => {
     await waitFor(() => w.db.select().from(orders).where(eq(orders.checkoutId, paid.started.checkoutId)).get());
     const before = w.db.select().from(orders).all().length;
 
+    // a signed "completed" event that says session `sessionId` paid the victim's checkout in full
+    const claimPaid = (eventId: string, sessionId: string, extra: Record<string, unknown> = {}) =>
+      post(
+        completed(eventId, {
+          id: sessionId,
+          metadata: { checkoutId: victim.started.checkoutId },
+          payment_status: 'paid',
+          status: 'complete',
+          amount_total: victim.total,
+          currency: 'usd',
+          ...extra,
+        }),
+      );
     // the real paid session, relabelled as the victim's checkout
-    const relabelled = await post(
-      completed('evt_forged_relabel', {
-        id: paid.started.sessionId,
-        metadata: { checkoutId: victim.started.checkoutId },
-        payment_status: 'paid',
-        status: 'complete',
-        amount_total: victim.total,
-        currency: 'usd',
-      }),
-    );
+    const relabelled = await claimPaid('evt_forged_relabel', paid.started.sessionId);
     expect(relabelled.status).toBe(200);
     expect((await relabelled.json()).outcome).toBe('rejected');
     // the victim's own session, which nobody paid, posted as paid
-    const unpaid = await post(
-      completed('evt_forged_unpaid', {
-        id: victim.started.sessionId,
-        metadata: { checkoutId: victim.started.checkoutId },
-        payment_status: 'paid',
-        status: 'complete',
-        amount_total: victim.total,
-        currency: 'usd',
-        payment_intent: 'pi_madeup',
-      }),
-    );
+    const unpaid = await claimPaid('evt_forged_unpaid', victim.started.sessionId, { payment_intent: 'pi_madeup' });
     expect((await unpaid.json()).outcome).toBe('rejected');
     // a session the provider never made
-    const madeUp = await post(
-      completed('evt_forged_madeup', {
-        id: 'cs_test_madeup',
-        metadata: { checkoutId: victim.started.checkoutId },
-        payment_status: 'paid',
-        status: 'complete',
-        amount_total: victim.total,
-        currency: 'usd',
-      }),
-    );
+    const madeUp = await claimPaid('evt_forged_madeup', 'cs_test_madeup');
     expect((await madeUp.json()).outcome).toBe('rejected');
 
     expect(w.db.select().from(orders).all()).toHaveLength(before);

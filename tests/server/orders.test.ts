@@ -38,7 +38,7 @@ describe('orders for shoppers', () => {
     expect(detail.lines[0].history).toHaveLength(1);
     expect(detail.lines[0].history[0]).toMatchObject({ fromState: null, toState: 'awaiting_proof' });
     expect(detail.totalMinor).toBe(detail.subtotalMinor + detail.shippingMinor);
-    // the address typed on the payment page (checkout.fixtures SHIP_FORM) comes back on the order
+    // the address typed on the payment page (checkout.fixtures payOnPage) comes back on the order
     expect(detail.shipTo).toEqual({ name: 'Dana Field', line1: '12 Acorn Lane', line2: 'Flat 3', city: 'Harbourtown', postalCode: 'HT1 2AB', state: null, country: 'GB' });
 
     const stranger = await w.signIn((await w.makeUser('shopper')).email);

@@ -45,6 +45,17 @@ function run(script: string, args: string[], env: Record<string, string>): Promi
   });
 }
 
+/** A server on `dataDir` and `port` with its fakes on ports the OS picks, no client build, no request log and no digest. */
+const quietServerEnv = (dataDir: string, port: number) => ({
+  DATA_DIR: dataDir,
+  PORT: String(port),
+  SMTP_PORT: '0',
+  STRIPE_FAKE_PORT: '0',
+  LOG_REQUESTS: 'false',
+  DIGEST: 'false',
+  CLIENT_DIR: path.join(dataDir, 'no-client'),
+});
+
 /** Starts `server/index.ts` and resolves once it has printed its whole start-up message. */
 function startServer(env: Record<string, string>): Promise<{ proc: ChildProcess; output: () => string }> {
   const proc = spawn(process.execPath, [...TSX, 'server/index.ts'], { env: clean(env), stdio: ['ignore', 'pipe', 'pipe'] });
@@ -169,18 +180,7 @@ describe('npm start with NODE_ENV=production', () => {
     const dataDir = tmp();
     const port = await freePort();
     const base = `http://localhost:${port}`;
-    const env = {
-      NODE_ENV: 'production',
-      LOCAL_FAKES: 'true',
-      AUTH_SECRET: SECRET,
-      DATA_DIR: dataDir,
-      PORT: String(port),
-      SMTP_PORT: '0',
-      STRIPE_FAKE_PORT: '0',
-      LOG_REQUESTS: 'false',
-      DIGEST: 'false',
-      CLIENT_DIR: path.join(dataDir, 'no-client'),
-    };
+    const env = { NODE_ENV: 'production', LOCAL_FAKES: 'true', AUTH_SECRET: SECRET, ...quietServerEnv(dataDir, port) };
     // a bad address is refused before anything is opened (run meanwhile: start-ups are the slow part)
     const refusal = run('scripts/admin-create.ts', ['not-an-email'], env);
     const { proc, output } = await startServer(env);
@@ -243,17 +243,7 @@ describe('npm start in development', () => {
   test('when the page is opened at 127.0.0.1 instead of localhost, then sign-up and sign-in work; another site is still refused', async () => {
     const dataDir = tmp();
     const port = await freePort();
-    const { proc } = await startServer({
-      NODE_ENV: 'development',
-      DEMO_DATA: 'false',
-      DATA_DIR: dataDir,
-      PORT: String(port),
-      SMTP_PORT: '0',
-      STRIPE_FAKE_PORT: '0',
-      LOG_REQUESTS: 'false',
-      DIGEST: 'false',
-      CLIENT_DIR: path.join(dataDir, 'no-client'),
-    });
+    const { proc } = await startServer({ NODE_ENV: 'development', DEMO_DATA: 'false', ...quietServerEnv(dataDir, port) });
     const account = { email: 'dev@example.com', password: 'a-long-dev-passphrase', name: 'Dev' };
     const own = `http://127.0.0.1:${port}`;
     expect((await call(port, '/api/auth/sign-up/email', { origin: own, body: account })).status).toBe(200);

@@ -4,7 +4,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkouts, ledger, orderLines, orders, refundIntents } from '../../server/db/schema.ts';
-import { checkoutAndPay, makeShopWithListing, makeWorld, nameChoices, type World, waitFor } from './checkout.fixtures.ts';
+import { makeShopWithListing, makeWorld, paidTwoLineOrder, type World, waitFor } from './checkout.fixtures.ts';
 
 let w: World;
 beforeAll(async () => {
@@ -12,31 +12,10 @@ beforeAll(async () => {
 }, 30_000);
 afterAll(async () => w?.teardown());
 
-async function paidOrderWithTwoLines() {
-  const shop = await makeShopWithListing(w, { basePriceMinor: 2000, shippingMinor: 500, extraLayerPriceMinor: 0 });
-  const buyer = await w.makeUser('shopper');
-  const agent = await w.signIn(buyer.email);
-  await agent
-    .post('/api/cart/lines')
-    .send({ listingId: shop.listingId, choices: nameChoices('Mira') })
-    .expect(201);
-  await agent
-    .post('/api/cart/lines')
-    .send({ listingId: shop.listingId, quantity: 2, choices: nameChoices('Theo') })
-    .expect(201);
-  const { orders: made } = await checkoutAndPay(w, agent);
-  const orderId = made[0]!.id;
-  await waitFor(() => w.db.select().from(orders).where(eq(orders.id, orderId)).get()?.transferId);
-  const detail = (await agent.get(`/api/orders/${orderId}`)).body;
-  return { shop, buyer, agent, orderId, detail };
-}
-
 describe('refunds', () => {
   it('when the seller refunds one line, then the provider refunds it, the transfer is reversed pro rata, the line is refunded and the shopper is told', async () => {
-    const { shop, buyer, orderId, detail } = await paidOrderWithTwoLines();
-    const theo = detail.lines.find((l: { quantity: number }) => l.quantity === 2);
-    const seller = await w.signIn(shop.seller.email);
-    const res = await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo.id, reason: 'Misspelt on our side' });
+    const { seller, buyer, orderId, theo } = await paidTwoLineOrder(w);
+    const res = await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo, reason: 'Misspelt on our side' });
     expect(res.status).toBe(201);
     expect(res.body.amountMinor).toBe(4000);
 
@@ -52,26 +31,25 @@ describe('refunds', () => {
     expect(rows.find((r) => r.kind === 'refund')!.amountMinor).toBe(-4000);
     expect(rows.find((r) => r.kind === 'refund_reversal')!.amountMinor).toBe(-3680);
 
-    const line = res.body.order.lines.find((l: { id: string }) => l.id === theo.id);
+    const line = res.body.order.lines.find((l: { id: string }) => l.id === theo);
     expect(line.state).toBe('refunded');
     expect(line.history.at(-1)).toMatchObject({ fromState: 'awaiting_proof', toState: 'refunded', message: 'Misspelt on our side', actor: 'shop' });
-    expect(res.body.order.lines.find((l: { id: string }) => l.id !== theo.id).state).toBe('awaiting_proof');
+    expect(res.body.order.lines.find((l: { id: string }) => l.id !== theo).state).toBe('awaiting_proof');
 
     const mail = await waitFor(async () => (await w.mailTo(buyer.email)).find((m) => /Refund/.test(m.subject)));
     expect(mail.subject).toContain('$40.00');
     expect(mail.text).toContain('Misspelt on our side');
 
     // the same line twice → 409, nothing more refunded
-    expect((await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo.id })).status).toBe(409);
+    expect((await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: theo })).status).toBe(409);
     expect((await w.stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toHaveLength(1);
   });
 
   it('when an admin refunds the whole order after a line refund, then the rest (shipping included) goes back and the transfer is fully reversed', async () => {
-    const { orderId, detail } = await paidOrderWithTwoLines();
-    const mira = detail.lines.find((l: { quantity: number }) => l.quantity === 1);
+    const { orderId, mira } = await paidTwoLineOrder(w);
     const shopOwner = w.db.select().from(orders).where(eq(orders.id, orderId)).get()!;
     const admin = await w.signIn((await w.makeUser('admin')).email);
-    expect((await admin.post(`/api/orders/${orderId}/refunds`).send({ lineId: mira.id })).body.amountMinor).toBe(2000);
+    expect((await admin.post(`/api/orders/${orderId}/refunds`).send({ lineId: mira })).body.amountMinor).toBe(2000);
     const all = await admin.post(`/api/orders/${orderId}/refunds`).send({});
     expect(all.status).toBe(201);
     expect(all.body.amountMinor).toBe(6500 - 2000);
@@ -83,7 +61,7 @@ describe('refunds', () => {
   });
 
   it('when someone else tries, then another seller gets 404 and the buyer 403, and nothing is refunded', async () => {
-    const { agent, orderId } = await paidOrderWithTwoLines();
+    const { agent, orderId } = await paidTwoLineOrder(w);
     const other = await makeShopWithListing(w);
     const otherSeller = await w.signIn(other.seller.email);
     expect((await otherSeller.post(`/api/orders/${orderId}/refunds`).send({})).status).toBe(404);
@@ -99,18 +77,16 @@ describe('refunds', () => {
   });
 
   it('when a line the state table may not refund is refunded, then 409 before the provider is asked, and nothing is claimed', async () => {
-    const { shop, orderId, detail } = await paidOrderWithTwoLines();
-    const mira = detail.lines.find((l: { quantity: number }) => l.quantity === 1);
+    const { seller, orderId, mira } = await paidTwoLineOrder(w);
     // nothing in the app cancels a line yet; the table makes `cancelled` final
-    w.db.update(orderLines).set({ state: 'cancelled' }).where(eq(orderLines.id, mira.id)).run();
-    const seller = await w.signIn(shop.seller.email);
-    const res = await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: mira.id });
+    w.db.update(orderLines).set({ state: 'cancelled' }).where(eq(orderLines.id, mira)).run();
+    const res = await seller.post(`/api/orders/${orderId}/refunds`).send({ lineId: mira });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toBe('This item is cancelled; nothing more can happen to it.');
     const o = w.db.select().from(orders).where(eq(orders.id, orderId)).get()!;
     const c = w.db.select().from(checkouts).where(eq(checkouts.id, o.checkoutId)).get()!;
     expect((await w.stripe.refunds.list({ payment_intent: c.paymentIntentId! })).data).toEqual([]);
     expect(w.db.select().from(refundIntents).where(eq(refundIntents.orderId, orderId)).all()).toEqual([]);
-    expect(w.db.select().from(orderLines).where(eq(orderLines.id, mira.id)).get()!.state).toBe('cancelled');
+    expect(w.db.select().from(orderLines).where(eq(orderLines.id, mira)).get()!.state).toBe('cancelled');
   });
 });

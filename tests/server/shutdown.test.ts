@@ -12,6 +12,7 @@ import path from 'node:path';
 import Database from 'better-sqlite3';
 import sharp from 'sharp';
 import { afterAll, describe, expect, test } from 'vitest';
+import { offlineServerEnv } from '../factories/offline-env.ts';
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-shutdown-'));
 let child: ChildProcess | null = null;
@@ -24,15 +25,7 @@ function start(): Promise<{ url: string; proc: ChildProcess; output: () => strin
   const proc = spawn(path.resolve('node_modules/.bin/tsx'), ['server/index.ts'], {
     env: {
       ...process.env,
-      NODE_ENV: 'test',
-      DATA_DIR: dataDir,
-      PORT: '0',
-      SMTP_PORT: '0',
-      STRIPE_FAKE: 'false',
-      STRIPE_API_BASE: 'http://127.0.0.1:9',
-      LOG_REQUESTS: 'false',
-      DIGEST: 'false',
-      BASE_URL: 'http://localhost:3000',
+      ...offlineServerEnv(dataDir),
       CLIENT_DIR: path.join(dataDir, 'no-client'),
     },
     stdio: ['ignore', 'pipe', 'pipe'],
