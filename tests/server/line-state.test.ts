@@ -182,7 +182,7 @@ describe('when the server source is searched for writes to a line', () => {
     expect(hits(/\b(update|insert\s+into)\s+["`]?(order_lines|line_events)\b/i)).toEqual([]);
     // the repo's one update of a line is the guarded move, and only the state machine calls it
     const repo = sources.find((s) => s.file === REPO)!.text;
-    expect(repo).toMatch(/moveLine: \(db: Db, lineId: string, from: LineState,[^\n]*\n\s*db\.update\(orderLines\)/);
+    expect(repo).toMatch(/moveLine: \(db: Db, lineId: string, from: LineState,[^\n]*\n\s*db\s*\.update\(orderLines\)/);
     expect(hits(/\.moveLine\(/)).toEqual([MACHINE]);
     expect(hits(/\.insertEvent\(/)).toEqual([MACHINE, MACHINE]);
   });
