@@ -1,5 +1,6 @@
 import { type Cell, flexRender, type RowData, type Table } from '@tanstack/react-table';
 import { type ReactNode, useSyncExternalStore } from 'react';
+import { TableShell } from './simple-table.tsx';
 
 declare module '@tanstack/react-table' {
   interface ColumnMeta<TData extends RowData, TValue> {
@@ -110,63 +111,56 @@ export function CardTable<T>({ table, label, minWidthClass, rowClassName, rowAtt
   }
 
   return (
-    <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
-      <table className={`w-full ${minWidthClass} border-collapse text-left`}>
-        <caption className="sr-only">{label}</caption>
-        <thead className="bg-paper-deep">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => {
-                const sorted = h.column.getIsSorted();
-                const num = h.column.columnDef.meta?.num;
-                return (
-                  <th
-                    key={h.id}
-                    scope="col"
-                    className={`px-4 py-3 text-sm font-extrabold ${num ? 'text-right' : ''}`}
-                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                  >
-                    {h.column.getCanSort() ? (
-                      <button type="button" onClick={h.column.getToggleSortingHandler()} className={`inline-flex min-h-8 items-center gap-1 font-extrabold ${num ? 'flex-row-reverse' : ''}`}>
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden="true">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}</span>
-                      </button>
-                    ) : (
-                      flexRender(h.column.columnDef.header, h.getContext())
-                    )}
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {rows.map((row) => (
-            <tr key={row.id} className={`border-t border-line align-top hover:bg-paper ${rowClassName?.(row.original) ?? ''}`} {...rowAttributes?.(row.original)}>
-              {row.getVisibleCells().map((c, i) => {
-                const content = flexRender(c.column.columnDef.cell, c.getContext());
-                const cls = `px-4 py-3 ${alignClass(c.column.columnDef.meta?.num)}`;
-                return rowHeaders && i === 0 ? (
-                  <th key={c.id} scope="row" className={`${cls} font-bold whitespace-nowrap`}>
-                    {content}
-                  </th>
+    <TableShell
+      minWidthClass={minWidthClass}
+      className="border-collapse"
+      caption={label}
+      columnCount={columnCount}
+      empty={rows.length === 0 ? empty : null}
+      emptyClassName="px-4 py-6 text-ink-soft"
+      head={table.getHeaderGroups().map((hg) => (
+        <tr key={hg.id}>
+          {hg.headers.map((h) => {
+            const sorted = h.column.getIsSorted();
+            const num = h.column.columnDef.meta?.num;
+            return (
+              <th
+                key={h.id}
+                scope="col"
+                className={`px-4 py-3 text-sm font-extrabold ${num ? 'text-right' : ''}`}
+                aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+              >
+                {h.column.getCanSort() ? (
+                  <button type="button" onClick={h.column.getToggleSortingHandler()} className={`inline-flex min-h-8 items-center gap-1 font-extrabold ${num ? 'flex-row-reverse' : ''}`}>
+                    {flexRender(h.column.columnDef.header, h.getContext())}
+                    <span aria-hidden="true">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}</span>
+                  </button>
                 ) : (
-                  <td key={c.id} className={cls}>
-                    {content}
-                  </td>
-                );
-              })}
-            </tr>
-          ))}
-          {rows.length === 0 && empty ? (
-            <tr>
-              <td colSpan={columnCount} className="px-4 py-6 text-ink-soft">
-                {empty}
+                  flexRender(h.column.columnDef.header, h.getContext())
+                )}
+              </th>
+            );
+          })}
+        </tr>
+      ))}
+    >
+      {rows.map((row) => (
+        <tr key={row.id} className={`border-t border-line align-top hover:bg-paper ${rowClassName?.(row.original) ?? ''}`} {...rowAttributes?.(row.original)}>
+          {row.getVisibleCells().map((c, i) => {
+            const content = flexRender(c.column.columnDef.cell, c.getContext());
+            const cls = `px-4 py-3 ${alignClass(c.column.columnDef.meta?.num)}`;
+            return rowHeaders && i === 0 ? (
+              <th key={c.id} scope="row" className={`${cls} font-bold whitespace-nowrap`}>
+                {content}
+              </th>
+            ) : (
+              <td key={c.id} className={cls}>
+                {content}
               </td>
-            </tr>
-          ) : null}
-        </tbody>
-      </table>
-    </div>
+            );
+          })}
+        </tr>
+      ))}
+    </TableShell>
   );
 }

@@ -1,4 +1,5 @@
 import { type FormEventHandler, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes, useId, useState } from 'react';
+import { type Control, type FieldPathByValue, type FieldValues, useController } from 'react-hook-form';
 import { formatMoney, minorDigits, parseMajor } from '../../../shared/money.ts';
 import { Button } from './button.tsx';
 
@@ -219,4 +220,14 @@ export function MoneyField({ currency, value, onChange, onBlur, name, ...field }
       )}
     />
   );
+}
+
+/** A MoneyField bound to a number field of a react-hook-form form (its value, changes and blur). */
+export function MoneyController<T extends FieldValues, O>({
+  control,
+  name,
+  ...field
+}: Omit<MoneyFieldProps, 'value' | 'onChange' | 'onBlur' | 'name'> & { control: Control<T, unknown, O>; name: FieldPathByValue<T, number | undefined> }) {
+  const { field: bound } = useController({ control, name });
+  return <MoneyField {...field} value={bound.value} onChange={bound.onChange} onBlur={bound.onBlur} name={bound.name} />;
 }

@@ -3,6 +3,7 @@ import { useSearchParams } from 'react-router-dom';
 import { PAGE_MAX, pageCount } from '../../../shared/schemas/pagination.ts';
 import { Button } from './button.tsx';
 import { StitchedBox } from './card.tsx';
+import { QueryBoundary, type QueryState } from './query-boundary.tsx';
 
 /**
  * The page number of a list, kept in the URL (`?page=2`, or another name when a screen has two
@@ -78,26 +79,49 @@ export function Pager({ page, total, limit, label, noun, onPageChange, className
   );
 }
 
+/** A paged list's query (`useList`, e.g. a feature's `useMaterials`) at the page kept in the URL (usePageParam): what PagedResults shows. */
+export function usePagedQuery<Q>(useList: (filters: { page: number }) => Q, name?: string) {
+  const [page, setPage] = usePageParam(name);
+  return { page, setPage, query: useList({ page }) };
+}
+
+type PagedQuery<T> = { page: number; setPage: (page: number) => void; query: QueryState<{ items: T[]; total: number; limit: number }> & { isPlaceholderData: boolean } };
+
 /**
- * A page of a paged list that has come: `empty` (in a stitched box) when the list has nothing at
- * all; otherwise `children`, the page's rows, dimmed while the next page loads (`stale`), with the
- * pager under them.
+ * One page of a paged list's query: its loading and error states (QueryBoundary), then `empty` (its
+ * title and a hint at what to do, in a stitched box) when the list has nothing at all; otherwise `children` with the page's items,
+ * dimmed while the next page loads, with the pager under them.
  */
-export function PagedResults({
-  page,
-  onPageChange,
+export function PagedResults<T>({
+  list: { query, page, setPage },
+  loading,
   label,
   noun,
-  data,
-  stale,
   empty,
   children,
-}: Omit<PagerProps, 'total' | 'limit' | 'className'> & { data: { total: number; limit: number }; stale: boolean; empty: ReactNode; children: ReactNode }) {
-  if (data.total === 0) return <StitchedBox>{empty}</StitchedBox>;
+}: Pick<PagerProps, 'label' | 'noun'> & {
+  /** from usePagedQuery */
+  list: PagedQuery<T>;
+  /** the spinner's words while the first page is on its way */
+  loading: string;
+  empty: { title: string; hint: string };
+  children: (items: T[]) => ReactNode;
+}) {
   return (
-    <div className="flex flex-col gap-4">
-      <div className={stale ? 'opacity-60 transition-opacity' : ''}>{children}</div>
-      <Pager page={page} total={data.total} limit={data.limit} label={label} noun={noun} onPageChange={onPageChange} />
-    </div>
+    <QueryBoundary query={query} loading={loading}>
+      {(data) =>
+        data.total === 0 ? (
+          <StitchedBox>
+            <p className="font-bold">{empty.title}</p>
+            <p className="text-ink-soft">{empty.hint}</p>
+          </StitchedBox>
+        ) : (
+          <div className="flex flex-col gap-4">
+            <div className={query.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>{children(data.items)}</div>
+            <Pager page={page} total={data.total} limit={data.limit} label={label} noun={noun} onPageChange={setPage} />
+          </div>
+        )
+      }
+    </QueryBoundary>
   );
 }

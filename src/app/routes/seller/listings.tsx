@@ -2,8 +2,7 @@ import { useCallback, useState } from 'react';
 import type { SellerListing } from '../../../../shared/schemas/listing.ts';
 import { ButtonLink } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
-import { PagedResults, usePageParam } from '../../../components/ui/pager.tsx';
-import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
+import { PagedResults, usePagedQuery } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useSellerListings } from '../../../features/listings-editor/api/get-seller-listings.ts';
@@ -12,9 +11,11 @@ import { ListingsTable } from '../../../features/listings-editor/components/list
 
 const done: Record<ListingAction, string> = { submit: 'sent for review', pause: 'paused', unpause: 'back on sale' };
 
+/** what the page says before the first one is added */
+const EMPTY = { title: 'No listings yet.', hint: 'Start with a blank, a name field and the colours you stock.' };
+
 export function SellerListingsPage() {
-  const [page, setPage] = usePageParam();
-  const listings = useSellerListings({ page });
+  const listings = usePagedQuery(useSellerListings);
   const toast = useToast();
   const { mutate } = useListingAction();
   const [busyId, setBusyId] = useState<string | null>(null);
@@ -40,26 +41,9 @@ export function SellerListingsPage() {
       <ButtonLink to={paths.seller.newListing.getHref()} className="mb-6">
         New listing
       </ButtonLink>
-      <QueryBoundary query={listings} loading="Loading listings…">
-        {(data) => (
-          <PagedResults
-            data={data}
-            stale={listings.isPlaceholderData}
-            page={page}
-            onPageChange={setPage}
-            label="Listing pages"
-            noun="listings"
-            empty={
-              <>
-                <p className="font-bold">No listings yet.</p>
-                <p className="text-ink-soft">Start with a blank, a name field and the colours you stock.</p>
-              </>
-            }
-          >
-            <ListingsTable listings={data.items} editHref={paths.seller.editListing.getHref} onAction={onAction} busyId={busyId} />
-          </PagedResults>
-        )}
-      </QueryBoundary>
+      <PagedResults list={listings} loading="Loading listings…" label="Listing pages" noun="listings" empty={EMPTY}>
+        {(items) => <ListingsTable listings={items} editHref={paths.seller.editListing.getHref} onAction={onAction} busyId={busyId} />}
+      </PagedResults>
     </div>
   );
 }

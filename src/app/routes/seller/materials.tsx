@@ -2,8 +2,7 @@ import { useCallback, useState } from 'react';
 import type { Material } from '../../../../shared/schemas/material.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
-import { PagedResults, usePageParam } from '../../../components/ui/pager.tsx';
-import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
+import { PagedResults, usePagedQuery } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useMaterials } from '../../../features/materials/api/get-materials.ts';
 import { useUpdateMaterial } from '../../../features/materials/api/update-material.ts';
@@ -11,9 +10,11 @@ import { MaterialForm } from '../../../features/materials/components/material-fo
 import { MaterialsTable } from '../../../features/materials/components/materials-table.tsx';
 import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts';
 
+/** what the page says before the first one is added */
+const EMPTY = { title: 'No materials yet.', hint: 'Add the vinyl you cut from; listings offer these as colour choices.' };
+
 export function MaterialsPage() {
-  const [page, setPage] = usePageParam();
-  const materials = useMaterials({ page });
+  const materials = usePagedQuery(useMaterials);
   const shop = useOwnShop();
   const toast = useToast();
   const update = useUpdateMaterial();
@@ -46,26 +47,9 @@ export function MaterialsPage() {
           Add a material
         </Button>
       )}
-      <QueryBoundary query={materials} loading="Loading materials…">
-        {(data) => (
-          <PagedResults
-            data={data}
-            stale={materials.isPlaceholderData}
-            page={page}
-            onPageChange={setPage}
-            label="Material pages"
-            noun="materials"
-            empty={
-              <>
-                <p className="font-bold">No materials yet.</p>
-                <p className="text-ink-soft">Add the vinyl you cut from; listings offer these as colour choices.</p>
-              </>
-            }
-          >
-            <MaterialsTable materials={data.items} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />
-          </PagedResults>
-        )}
-      </QueryBoundary>
+      <PagedResults list={materials} loading="Loading materials…" label="Material pages" noun="materials" empty={EMPTY}>
+        {(items) => <MaterialsTable materials={items} pressType={shop.data?.pressType ?? 'clamshell'} onEdit={onEdit} onArchive={onArchive} />}
+      </PagedResults>
     </div>
   );
 }

@@ -1,6 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { PageHeading } from '../../../components/ui/card.tsx';
-import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
+import { QueryPage } from '../../../components/ui/query-boundary.tsx';
 import { authKeys } from '../../../features/auth/api/keys.ts';
 import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts';
 import { ShopSettingsForm } from '../../../features/shop-settings/components/shop-settings-form.tsx';
@@ -9,17 +8,12 @@ export function ShopSettingsPage() {
   const shop = useOwnShop();
   const queryClient = useQueryClient();
   return (
-    <div>
-      <PageHeading eyebrow="Workroom" title="Shop settings" lead="How your shop appears to shoppers, and what they can expect from you." />
-      <div className="max-w-3xl">
-        <QueryBoundary query={shop} loading="Loading your shop…">
-          {(data) => (
-            // the header reads the shop's name from /api/me, so refresh it after a save
-            <ShopSettingsForm key={data.slug} shop={data} onSaved={() => void queryClient.invalidateQueries({ queryKey: authKeys.me() })} />
-          )}
-        </QueryBoundary>
-      </div>
-    </div>
+    <QueryPage eyebrow="Workroom" title="Shop settings" lead="How your shop appears to shoppers, and what they can expect from you." narrow query={shop} loading="Loading your shop…">
+      {(data) => (
+        // the header reads the shop's name from /api/me, so refresh it after a save
+        <ShopSettingsForm key={data.slug} shop={data} onSaved={() => void queryClient.invalidateQueries({ queryKey: authKeys.me() })} />
+      )}
+    </QueryPage>
   );
 }
 

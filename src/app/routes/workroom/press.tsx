@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
-import { Button, Spinner } from '../../../components/ui/button.tsx';
-import { PageHeading } from '../../../components/ui/card.tsx';
+import { Button } from '../../../components/ui/button.tsx';
+import { QueryPage } from '../../../components/ui/query-boundary.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { usePressCards } from '../../../features/workroom/api/get-press-cards.ts';
@@ -13,61 +13,62 @@ export function PressPage() {
   const pressed = useMarkPressed();
   const toast = useToast();
   return (
-    <div>
-      <PageHeading eyebrow="Workroom" title="Press cards" lead="One card for each cut item: pre-press, layers bottom to top with their tack times, the final press and where to place the design." />
-      {cards.isPending ? (
-        <Spinner label="Loading press cards…" />
-      ) : cards.isError ? (
-        <p role="alert" className="font-bold text-danger">
-          {cards.error.message}
-        </p>
-      ) : cards.data.length === 0 ? (
-        <p className="text-ink-soft">
-          Nothing waiting to be pressed. Cut sheets first:{' '}
-          <Link className="underline" to={paths.workroomCutSheets.getHref()}>
-            cut sheets
-          </Link>
-          .
-        </p>
-      ) : (
-        <ul className="grid gap-5 lg:grid-cols-2">
-          {cards.data.map(({ line, card }) => (
-            <li
-              key={line.id}
-              className="flex flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm"
-              data-testid="press-card"
-              aria-label={`Press card for ${line.text || line.listingTitle}`}
-            >
-              <header className="flex flex-wrap items-baseline justify-between gap-2">
-                <h2 className="text-lg font-extrabold">
-                  {line.orderNumber} · {line.text || '—'}
-                  {line.quantity > 1 ? ` × ${line.quantity}` : ''}
-                </h2>
-                <Link className="text-sm font-bold text-thread-deep underline" to={paths.workroomOrder.getHref(line.orderId)}>
-                  order
-                </Link>
-              </header>
-              <p className="text-sm text-ink-soft">{line.listingTitle}</p>
-              <PressCardView card={card} />
-              <Button
-                variant="secondary"
-                className="self-start"
-                pending={pressed.isPending && pressed.variables?.includes(line.id)}
-                onClick={async () => {
-                  try {
-                    await pressed.mutateAsync([line.id]);
-                    toast.success(`${line.orderNumber} · ${line.text} marked pressed.`);
-                  } catch (e) {
-                    toast.error(isApiError(e) ? e.message : 'That did not work.');
-                  }
-                }}
+    <QueryPage
+      eyebrow="Workroom"
+      title="Press cards"
+      lead="One card for each cut item: pre-press, layers bottom to top with their tack times, the final press and where to place the design."
+      query={cards}
+      loading="Loading press cards…"
+    >
+      {(data) =>
+        data.length === 0 ? (
+          <p className="text-ink-soft">
+            Nothing waiting to be pressed. Cut sheets first:{' '}
+            <Link className="underline" to={paths.workroomCutSheets.getHref()}>
+              cut sheets
+            </Link>
+            .
+          </p>
+        ) : (
+          <ul className="grid gap-5 lg:grid-cols-2">
+            {data.map(({ line, card }) => (
+              <li
+                key={line.id}
+                className="flex flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm"
+                data-testid="press-card"
+                aria-label={`Press card for ${line.text || line.listingTitle}`}
               >
-                Mark pressed
-              </Button>
-            </li>
-          ))}
-        </ul>
-      )}
-    </div>
+                <header className="flex flex-wrap items-baseline justify-between gap-2">
+                  <h2 className="text-lg font-extrabold">
+                    {line.orderNumber} · {line.text || '—'}
+                    {line.quantity > 1 ? ` × ${line.quantity}` : ''}
+                  </h2>
+                  <Link className="text-sm font-bold text-thread-deep underline" to={paths.workroomOrder.getHref(line.orderId)}>
+                    order
+                  </Link>
+                </header>
+                <p className="text-sm text-ink-soft">{line.listingTitle}</p>
+                <PressCardView card={card} />
+                <Button
+                  variant="secondary"
+                  className="self-start"
+                  pending={pressed.isPending && pressed.variables?.includes(line.id)}
+                  onClick={async () => {
+                    try {
+                      await pressed.mutateAsync([line.id]);
+                      toast.success(`${line.orderNumber} · ${line.text} marked pressed.`);
+                    } catch (e) {
+                      toast.error(isApiError(e) ? e.message : 'That did not work.');
+                    }
+                  }}
+                >
+                  Mark pressed
+                </Button>
+              </li>
+            ))}
+          </ul>
+        )
+      }
+    </QueryPage>
   );
 }

@@ -56,8 +56,9 @@ export function ProofPage() {
             </h2>
             {p.warnings.length ? (
               <ul className="flex flex-col gap-2" data-testid="proof-warnings">
-                {p.warnings.map((w, i) => (
-                  <li key={i} className="rounded-lg border-2 border-marigold bg-marigold-wash px-3 py-2 text-sm font-semibold">
+                {p.warnings.map((w) => (
+                  // one warning of each kind per text field
+                  <li key={`${w.fieldId ?? ''}:${w.code}`} className="rounded-lg border-2 border-marigold bg-marigold-wash px-3 py-2 text-sm font-semibold">
                     ⚠ {w.message}
                   </li>
                 ))}

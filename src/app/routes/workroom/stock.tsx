@@ -1,6 +1,5 @@
-import { Spinner } from '../../../components/ui/button.tsx';
-import { PageHeading } from '../../../components/ui/card.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
+import { QueryPage } from '../../../components/ui/query-boundary.tsx';
 import { useStock } from '../../../features/workroom/api/get-stock.ts';
 import { StockTable } from '../../../features/workroom/components/stock-table.tsx';
 
@@ -8,20 +7,19 @@ export function StockPage() {
   const [page, setPage] = usePageParam();
   const stock = useStock({ page });
   return (
-    <div>
-      <PageHeading eyebrow="Workroom" title="Stock" lead="Vinyl left on each roll. Cutting a sheet takes its length plus the trim; you are warned when a roll runs low." />
-      {stock.isPending ? (
-        <Spinner label="Loading stock…" />
-      ) : stock.isError ? (
-        <p role="alert" className="font-bold text-danger">
-          {stock.error.message}
-        </p>
-      ) : (
+    <QueryPage
+      eyebrow="Workroom"
+      title="Stock"
+      lead="Vinyl left on each roll. Cutting a sheet takes its length plus the trim; you are warned when a roll runs low."
+      query={stock}
+      loading="Loading stock…"
+    >
+      {(data) => (
         <StockTable
-          stock={stock.data}
-          sheetsPager={<Pager className="mt-4" page={page} total={stock.data.sheets.total} limit={stock.data.sheets.limit} label="Cut sheet pages" noun="cut sheets" onPageChange={setPage} />}
+          stock={data}
+          sheetsPager={<Pager className="mt-4" page={page} total={data.sheets.total} limit={data.sheets.limit} label="Cut sheet pages" noun="cut sheets" onPageChange={setPage} />}
         />
       )}
-    </div>
+    </QueryPage>
   );
 }

@@ -2,7 +2,8 @@ import { type ReactNode, useState } from 'react';
 import { Bar, BarChart, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { formatMoney, minorDigits } from '../../../../shared/money.ts';
 import type { ChartsView } from '../../../../shared/schemas/business.ts';
-import { Spinner } from '../../../components/ui/button.tsx';
+import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
+import { SimpleTable } from '../../../components/ui/simple-table.tsx';
 import { useCharts } from '../api/get-charts.ts';
 
 const INK = '#1f2a44';
@@ -32,7 +33,8 @@ function PeriodChart({ data, period, unit, format, children }: { data: object[];
   );
 }
 
-type TableSpec = { caption: string; head: string[]; rows: Array<Array<string | number>> };
+/** A table of a chart's numbers: each row has a key of its own and one cell per column of `head`. */
+type TableSpec = { caption: string; head: string[]; rows: Array<{ key: string; cells: Array<string | number> }> };
 
 /**
  * A chart panel with a switch between the chart and the same numbers as a table; with no rows in
@@ -79,59 +81,36 @@ function ChartPanel({ id, title, lead, chart, table: spec, empty: emptyWords }: 
   );
 }
 
+/** The chart's numbers as a table: the first column names each row, the others are amounts. */
 function Table({ caption, head, rows }: TableSpec) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[22rem] text-left">
-        <caption className="sr-only">{caption}</caption>
-        <thead className="bg-paper-deep text-sm">
-          <tr>
-            {head.map((h, i) => (
-              <th key={h} scope="col" className={`px-3 py-2 ${i ? 'text-right' : ''}`}>
-                {h}
+    <SimpleTable caption={caption} columns={head.map((h, i) => ({ header: h, num: i > 0 }))} minWidthClass="min-w-[22rem]" framed={false} empty={rows.length === 0 ? 'Nothing yet.' : null}>
+      {rows.map(({ key, cells }) => (
+        <tr key={key} className="border-t border-line">
+          {cells.map((v, i) =>
+            i === 0 ? (
+              <th key={head[i]} scope="row" className="px-3 py-2 font-semibold">
+                {v}
               </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((r, k) => (
-            <tr key={k} className="border-t border-line">
-              {r.map((v, i) =>
-                i === 0 ? (
-                  <th key={i} scope="row" className="px-3 py-2 font-semibold">
-                    {v}
-                  </th>
-                ) : (
-                  <td key={i} className="px-3 py-2 text-right tabular-nums">
-                    {v}
-                  </td>
-                ),
-              )}
-            </tr>
-          ))}
-          {rows.length === 0 ? (
-            <tr>
-              <td colSpan={head.length} className="px-3 py-4 text-ink-soft">
-                Nothing yet.
+            ) : (
+              <td key={head[i]} className="px-3 py-2 text-right tabular-nums">
+                {v}
               </td>
-            </tr>
-          ) : null}
-        </tbody>
-      </table>
-    </div>
+            ),
+          )}
+        </tr>
+      ))}
+    </SimpleTable>
   );
 }
 
 export function BusinessCharts() {
   const charts = useCharts();
-  if (charts.isPending) return <Spinner label="Loading charts…" />;
-  if (charts.isError)
-    return (
-      <p role="alert" className="font-semibold text-danger">
-        {charts.error.message}
-      </p>
-    );
-  return <ChartsBody data={charts.data} />;
+  return (
+    <QueryBoundary query={charts} loading="Loading charts…">
+      {(data) => <ChartsBody data={data} />}
+    </QueryBoundary>
+  );
 }
 
 function ChartsBody({ data }: { data: ChartsView }) {
@@ -157,7 +136,11 @@ function ChartsBody({ data }: { data: ChartsView }) {
             <Line dataKey="margin" name="Margin" stroke={MARIGOLD} strokeWidth={3} dot={{ r: 4 }} isAnimationActive={false} />
           </PeriodChart>
         }
-        table={{ caption: 'Sales and margin by week', head: ['Week of', 'Items', 'Sales', 'Margin'], rows: data.weeks.map((w) => [w.week, w.items, money(w.salesMinor), money(w.marginMinor)]) }}
+        table={{
+          caption: 'Sales and margin by week',
+          head: ['Week of', 'Items', 'Sales', 'Margin'],
+          rows: data.weeks.map((w) => ({ key: w.week, cells: [w.week, w.items, money(w.salesMinor), money(w.marginMinor)] })),
+        }}
       />
       <ChartPanel
         id="vinyl-month"
@@ -171,7 +154,11 @@ function ChartsBody({ data }: { data: ChartsView }) {
             ))}
           </PeriodChart>
         }
-        table={{ caption: 'Vinyl used per material per month', head: ['Month', 'Material', 'Used'], rows: data.vinyl.map((v) => [v.month, v.material, cmIn(v.usedMm)]) }}
+        table={{
+          caption: 'Vinyl used per material per month',
+          head: ['Month', 'Material', 'Used'],
+          rows: data.vinyl.map((v) => ({ key: `${v.month}:${v.materialId}`, cells: [v.month, v.material, cmIn(v.usedMm)] })),
+        }}
       />
       <ChartPanel
         id="by-listing"
@@ -189,7 +176,11 @@ function ChartsBody({ data }: { data: ChartsView }) {
             </BarChart>
           </ResponsiveContainer>
         }
-        table={{ caption: 'Orders by listing', head: ['Listing', 'Orders', 'Items', 'Sales'], rows: data.listings.map((l) => [l.title, l.orders, l.items, money(l.salesMinor)]) }}
+        table={{
+          caption: 'Orders by listing',
+          head: ['Listing', 'Orders', 'Items', 'Sales'],
+          rows: data.listings.map((l) => ({ key: l.listingId, cells: [l.title, l.orders, l.items, money(l.salesMinor)] })),
+        }}
       />
     </div>
   );

@@ -4,7 +4,7 @@ import { Controller, useForm } from 'react-hook-form';
 import { formatMoney } from '../../../../shared/money.ts';
 import { type BusinessSettings, type BusinessSettingsInput, businessSettingsSchema } from '../../../../shared/schemas/business.ts';
 import { Button } from '../../../components/ui/button.tsx';
-import { FieldError, FormSection, MoneyField } from '../../../components/ui/form-controls.tsx';
+import { FieldError, FormSection, MoneyController } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { applyServerErrors } from '../../../lib/form-errors.ts';
@@ -130,22 +130,7 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
         </div>
       </FormSection>
       <FormSection title="Labour" lead="Minutes per layer (set on each listing) × your hourly rate gives the labour cost of an item.">
-        <Controller
-          control={control}
-          name="hourlyRateMinor"
-          render={({ field }) => (
-            <MoneyField
-              label="Hourly rate"
-              currency={settings.currency}
-              value={field.value}
-              onChange={field.onChange}
-              onBlur={field.onBlur}
-              name={field.name}
-              error={e.hourlyRateMinor?.message}
-              className="max-w-56"
-            />
-          )}
-        />
+        <MoneyController control={control} name="hourlyRateMinor" label="Hourly rate" currency={settings.currency} error={e.hourlyRateMinor?.message} className="max-w-56" />
       </FormSection>
       <p className="text-sm text-ink-soft">
         Fees in margins: platform {settings.fees.platformFeeBps / 100} %; payment {settings.fees.paymentFeeBps / 100} % + {formatMoney(settings.fees.paymentFeeFixedMinor, settings.currency)} per

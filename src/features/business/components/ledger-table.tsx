@@ -17,19 +17,18 @@ export function LedgerTable() {
   const [q, setQ] = useState<LedgerQuery>({});
   const ledger = useLedger(q);
   const currency = ledger.data?.currency ?? 'USD';
-  const money = (m: number) => formatMoney(m, currency);
   const [sorting, setSorting] = useState<SortingState>([{ id: 'at', desc: true }]);
-  const columns = useMemo(
-    () => [
+  const columns = useMemo(() => {
+    const money = (m: number) => formatMoney(m, currency);
+    return [
       col.accessor('at', { header: 'Date', cell: (c) => c.row.original.day }),
       col.accessor('kind', { header: 'Movement', cell: (c) => LEDGER_KIND_LABELS[c.getValue()] ?? c.getValue() }),
       col.accessor('orderNumber', { header: 'Order', cell: (c) => c.getValue() ?? '—' }),
       col.accessor('earnedMinor', { header: 'Earned', cell: (c) => (c.getValue() ? money(c.getValue()) : '—'), meta: { num: true } }),
       col.accessor('paidOutMinor', { header: 'Paid out', cell: (c) => (c.getValue() ? money(c.getValue()) : '—'), meta: { num: true } }),
       col.accessor('memo', { header: 'Note', enableSorting: false, cell: (c) => c.getValue() ?? '' }),
-    ],
-    [currency],
-  );
+    ];
+  }, [currency]);
   const table = useReactTable({
     data: ledger.data?.entries ?? [],
     columns,
@@ -39,6 +38,7 @@ export function LedgerTable() {
     getSortedRowModel: getSortedRowModel(),
   });
   const monthColumns = useMemo(() => {
+    const money = (m: number) => formatMoney(m, currency);
     const amount = (key: Exclude<keyof MonthBalance, 'month'>, header: string) => monthCol.accessor(key, { header, enableSorting: false, cell: (c) => money(c.getValue()), meta: { num: true } });
     return [
       monthCol.accessor('month', { header: 'Month', enableSorting: false }),

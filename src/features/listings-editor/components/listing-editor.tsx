@@ -16,7 +16,7 @@ import {
 import type { Material } from '../../../../shared/schemas/material.ts';
 import { formatLength } from '../../../../shared/units.ts';
 import { Button } from '../../../components/ui/button.tsx';
-import { CheckboxField, FieldError, FormSection, MoneyField, SelectField, TextAreaField } from '../../../components/ui/form-controls.tsx';
+import { CheckboxField, FieldError, FormSection, MoneyController, SelectField, TextAreaField } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -289,37 +289,14 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
 
       <FormSection title="Price">
         <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">
-          <Controller
-            control={control}
-            name="basePriceMinor"
-            render={({ field }) => (
-              <MoneyField
-                label="Base price"
-                hint="With one layer of vinyl."
-                currency={currency}
-                value={field.value}
-                onChange={field.onChange}
-                onBlur={field.onBlur}
-                name={field.name}
-                error={e.basePriceMinor?.message}
-              />
-            )}
-          />
-          <Controller
+          <MoneyController control={control} name="basePriceMinor" label="Base price" hint="With one layer of vinyl." currency={currency} error={e.basePriceMinor?.message} />
+          <MoneyController
             control={control}
             name="extraLayerPriceMinor"
-            render={({ field }) => (
-              <MoneyField
-                label="Price per extra layer"
-                hint="Added for each colour after the first."
-                currency={currency}
-                value={field.value}
-                onChange={field.onChange}
-                onBlur={field.onBlur}
-                name={field.name}
-                error={e.extraLayerPriceMinor?.message}
-              />
-            )}
+            label="Price per extra layer"
+            hint="Added for each colour after the first."
+            currency={currency}
+            error={e.extraLayerPriceMinor?.message}
           />
         </div>
       </FormSection>
@@ -346,13 +323,7 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
 
       <FormSection title="Costing (only you see this)" lead="Used by your workroom to estimate cost per item.">
         <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">
-          <Controller
-            control={control}
-            name="blankCostMinor"
-            render={({ field }) => (
-              <MoneyField label="Cost of one blank" currency={currency} value={field.value} onChange={field.onChange} onBlur={field.onBlur} name={field.name} error={e.blankCostMinor?.message} />
-            )}
-          />
+          <MoneyController control={control} name="blankCostMinor" label="Cost of one blank" currency={currency} error={e.blankCostMinor?.message} />
           <TextField label="Minutes per layer" type="number" inputMode="decimal" min={0} max={240} error={e.minutesPerLayer?.message} {...register('minutesPerLayer', { valueAsNumber: true })} />
         </div>
         <PricingHelper values={values} currency={currency} />

@@ -123,7 +123,7 @@ export function MaterialForm({ material, onDone }: { material?: Material; onDone
           </div>
           <div className="flex flex-col gap-2">
             <TextField label="Roll width (mm)" hint={lengthHint(v.rollWidthMm)} type="number" inputMode="decimal" min={50} max={1600} error={e.rollWidthMm?.message} {...num('rollWidthMm')} />
-            <div className="flex flex-wrap gap-2" role="group" aria-label="Common roll widths">
+            <fieldset className="flex min-w-0 flex-wrap gap-2" aria-label="Common roll widths">
               {COMMON_ROLL_WIDTHS_MM.map((w) => (
                 <button
                   key={w}
@@ -134,7 +134,7 @@ export function MaterialForm({ material, onDone }: { material?: Material; onDone
                   {formatLength(w)}
                 </button>
               ))}
-            </div>
+            </fieldset>
           </div>
         </div>
         <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">

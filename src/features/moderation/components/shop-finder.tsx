@@ -35,34 +35,34 @@ export function ShopFinder() {
 
   return (
     <div className="flex flex-col gap-4">
-      <form
-        role="search"
-        aria-label="Find a shop"
-        className="grid grid-cols-1 gap-3 sm:grid-cols-[1fr_14rem]"
-        onSubmit={(e) => {
-          e.preventDefault();
-          setQ(typed.trim());
-          setPage(1, { replace: true });
-        }}
-      >
-        <TextField label="Find a shop" hint="Name, web address or owner e-mail" type="search" value={typed} maxLength={100} onChange={(e) => setTyped(e.target.value)} />
-        <SelectField
-          label="State"
-          hint="Which shops to list"
-          value={state}
-          onChange={(e) => {
-            setState(e.target.value as ShopState | '');
+      <search aria-label="Find a shop">
+        <form
+          className="grid grid-cols-1 gap-3 sm:grid-cols-[1fr_14rem]"
+          onSubmit={(e) => {
+            e.preventDefault();
+            setQ(typed.trim());
             setPage(1, { replace: true });
           }}
         >
-          <option value="">All states</option>
-          {SHOP_STATES.map((s) => (
-            <option key={s} value={s}>
-              {SHOP_STATE_LABELS[s]}
-            </option>
-          ))}
-        </SelectField>
-      </form>
+          <TextField label="Find a shop" hint="Name, web address or owner e-mail" type="search" value={typed} maxLength={100} onChange={(e) => setTyped(e.target.value)} />
+          <SelectField
+            label="State"
+            hint="Which shops to list"
+            value={state}
+            onChange={(e) => {
+              setState(e.target.value as ShopState | '');
+              setPage(1, { replace: true });
+            }}
+          >
+            <option value="">All states</option>
+            {SHOP_STATES.map((s) => (
+              <option key={s} value={s}>
+                {SHOP_STATE_LABELS[s]}
+              </option>
+            ))}
+          </SelectField>
+        </form>
+      </search>
 
       <QueryBoundary query={shops} loading="Loading shops…">
         {(data) => (

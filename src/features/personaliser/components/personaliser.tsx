@@ -115,9 +115,10 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
                 </p>
                 <div id={warnId} aria-live="polite" className="flex flex-col gap-1">
                   <FieldError message={err} />
-                  {warnings.map((w, i) => (
+                  {warnings.map((w) => (
+                    // the warnings are this field's: one of each kind
                     <p
-                      key={`${w.code}-${i}`}
+                      key={w.code}
                       className={`rounded-lg border-l-4 px-3 py-2 text-sm ${w.code === 'missing_characters' || w.code === 'below_min_letter_height' || w.code === 'too_long' ? 'border-danger bg-danger-wash' : 'border-marigold bg-marigold-wash'}`}
                       data-warning={w.code}
                     >

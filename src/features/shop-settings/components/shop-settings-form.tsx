@@ -1,9 +1,9 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useRef, useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { type OwnShop, type ShopSettingsInput, shopSettingsSchema } from '../../../../shared/schemas/shop.ts';
 import { Button } from '../../../components/ui/button.tsx';
-import { FormSection, MoneyField, ProgressBar, SelectField, TextAreaField } from '../../../components/ui/form-controls.tsx';
+import { FormSection, MoneyController, ProgressBar, SelectField, TextAreaField } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -111,21 +111,13 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
               error={e.processingDays?.message}
               {...register('processingDays', { valueAsNumber: true })}
             />
-            <Controller
+            <MoneyController
               control={control}
               name="shippingMinor"
-              render={({ field }) => (
-                <MoneyField
-                  label="Shipping price per order"
-                  hint={`In ${shop.currency}. One price however many of your items are in the order.`}
-                  currency={shop.currency}
-                  value={field.value}
-                  onChange={field.onChange}
-                  onBlur={field.onBlur}
-                  name={field.name}
-                  error={e.shippingMinor?.message}
-                />
-              )}
+              label="Shipping price per order"
+              hint={`In ${shop.currency}. One price however many of your items are in the order.`}
+              currency={shop.currency}
+              error={e.shippingMinor?.message}
             />
           </div>
           <TextAreaField label="Return policy" rows={4} maxLength={2000} error={e.returnPolicy?.message} {...register('returnPolicy')} />

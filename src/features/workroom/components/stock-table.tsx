@@ -3,6 +3,7 @@ import { formatMoney } from '../../../../shared/money.ts';
 import type { StockMaterial, StockView } from '../../../../shared/schemas/workroom.ts';
 import { lowStockSchema } from '../../../../shared/schemas/workroom.ts';
 import { Button } from '../../../components/ui/button.tsx';
+import { SimpleTable } from '../../../components/ui/simple-table.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
 import { useUpdateLowStock } from '../api/update-low-stock.ts';
@@ -56,6 +57,9 @@ function LowStockEditor({ m }: { m: StockMaterial }) {
   );
 }
 
+const MATERIAL_COLUMNS = ['Material', 'Roll width', 'Remaining', 'Planned on uncut sheets', 'Low-stock mark'];
+const SHEET_COLUMNS = ['Material', 'State', 'Length', 'Taken from stock', 'Cost', 'Lines', 'When'];
+
 /** Every roll in use, and one page of what the cut sheets used (`sheetsPager` goes under it). */
 export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPager?: React.ReactNode }) {
   const byId = new Map(stock.materials.map((m) => [m.id, m]));
@@ -65,40 +69,27 @@ export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPag
         <h2 id="stock-mat" className="mb-3 text-xl font-extrabold">
           Remaining per material
         </h2>
-        <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
-          <table className="w-full min-w-[720px] text-left">
-            <thead className="bg-paper-deep text-sm">
-              <tr>
-                <th className="px-3 py-2">Material</th>
-                <th className="px-3 py-2">Roll width</th>
-                <th className="px-3 py-2">Remaining</th>
-                <th className="px-3 py-2">Planned on uncut sheets</th>
-                <th className="px-3 py-2">Low-stock mark</th>
-              </tr>
-            </thead>
-            <tbody>
-              {stock.materials.map((m) => (
-                <tr key={m.id} className="border-t border-line align-top" data-testid="stock-row">
-                  <th scope="row" className="px-3 py-2.5 font-bold">
-                    <span className="inline-flex items-center gap-2">
-                      <span aria-hidden="true" className="size-4 rounded-full border border-ink/30" style={{ background: m.colourHex }} />
-                      {m.colourName} <span className="font-normal text-ink-soft">({m.kind})</span>
-                    </span>
-                  </th>
-                  <td className="px-3 py-2.5">{formatLength(m.rollWidthMm)}</td>
-                  <td className="px-3 py-2.5">
-                    <span className="font-semibold">{formatLength(m.stockMm)}</span>
-                    {m.low ? <span className="ml-2 rounded-full bg-danger-wash px-2 py-0.5 text-sm font-bold text-danger">low</span> : null}
-                  </td>
-                  <td className="px-3 py-2.5">{m.plannedMm ? formatLength(m.plannedMm) : '—'}</td>
-                  <td className="px-3 py-2.5">
-                    <LowStockEditor m={m} />
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <SimpleTable columns={MATERIAL_COLUMNS} minWidthClass="min-w-[720px]">
+          {stock.materials.map((m) => (
+            <tr key={m.id} className="border-t border-line align-top" data-testid="stock-row">
+              <th scope="row" className="px-3 py-2.5 font-bold">
+                <span className="inline-flex items-center gap-2">
+                  <span aria-hidden="true" className="size-4 rounded-full border border-ink/30" style={{ background: m.colourHex }} />
+                  {m.colourName} <span className="font-normal text-ink-soft">({m.kind})</span>
+                </span>
+              </th>
+              <td className="px-3 py-2.5">{formatLength(m.rollWidthMm)}</td>
+              <td className="px-3 py-2.5">
+                <span className="font-semibold">{formatLength(m.stockMm)}</span>
+                {m.low ? <span className="ml-2 rounded-full bg-danger-wash px-2 py-0.5 text-sm font-bold text-danger">low</span> : null}
+              </td>
+              <td className="px-3 py-2.5">{m.plannedMm ? formatLength(m.plannedMm) : '—'}</td>
+              <td className="px-3 py-2.5">
+                <LowStockEditor m={m} />
+              </td>
+            </tr>
+          ))}
+        </SimpleTable>
       </section>
       <section aria-labelledby="stock-use">
         <h2 id="stock-use" className="mb-1 text-xl font-extrabold">
@@ -108,37 +99,22 @@ export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPag
         {stock.sheets.total === 0 ? (
           <p className="text-ink-soft">No cut sheets yet.</p>
         ) : (
-          <div className="relative max-w-full overflow-x-auto rounded-lg border border-line bg-white">
-            <table className="w-full min-w-[640px] text-left">
-              <thead className="bg-paper-deep text-sm">
-                <tr>
-                  <th className="px-3 py-2">Material</th>
-                  <th className="px-3 py-2">State</th>
-                  <th className="px-3 py-2">Length</th>
-                  <th className="px-3 py-2">Taken from stock</th>
-                  <th className="px-3 py-2">Cost</th>
-                  <th className="px-3 py-2">Lines</th>
-                  <th className="px-3 py-2">When</th>
+          <SimpleTable columns={SHEET_COLUMNS} minWidthClass="min-w-[640px]">
+            {stock.sheets.items.map((s) => {
+              const m = byId.get(s.materialId);
+              return (
+                <tr key={s.id} className="border-t border-line">
+                  <td className="px-3 py-2">{m ? `${m.colourName} (${m.kind})` : '—'}</td>
+                  <td className="px-3 py-2">{s.state}</td>
+                  <td className="px-3 py-2">{formatLength(s.lengthMm)}</td>
+                  <td className="px-3 py-2">{s.consumedMm !== null ? formatLength(s.consumedMm) : 'not cut yet'}</td>
+                  <td className="px-3 py-2">{s.costMinor !== null ? formatMoney(s.costMinor, stock.currency) : '—'}</td>
+                  <td className="px-3 py-2">{s.lineCount}</td>
+                  <td className="px-3 py-2">{formatDateTime(s.cutAt ?? s.createdAt)}</td>
                 </tr>
-              </thead>
-              <tbody>
-                {stock.sheets.items.map((s) => {
-                  const m = byId.get(s.materialId);
-                  return (
-                    <tr key={s.id} className="border-t border-line">
-                      <td className="px-3 py-2">{m ? `${m.colourName} (${m.kind})` : '—'}</td>
-                      <td className="px-3 py-2">{s.state}</td>
-                      <td className="px-3 py-2">{formatLength(s.lengthMm)}</td>
-                      <td className="px-3 py-2">{s.consumedMm !== null ? formatLength(s.consumedMm) : 'not cut yet'}</td>
-                      <td className="px-3 py-2">{s.costMinor !== null ? formatMoney(s.costMinor, stock.currency) : '—'}</td>
-                      <td className="px-3 py-2">{s.lineCount}</td>
-                      <td className="px-3 py-2">{formatDateTime(s.cutAt ?? s.createdAt)}</td>
-                    </tr>
-                  );
-                })}
-              </tbody>
-            </table>
-          </div>
+              );
+            })}
+          </SimpleTable>
         )}
         {sheetsPager}
       </section>
