@@ -31,7 +31,6 @@ function ensureChromium() {
   return r.status === 0 && fs.existsSync('/usr/bin/chromium');
 }
 
-
 const counts = { passed: 0, failed: 0, skipped: 0 };
 let ok = true;
 const node = process.execPath;
