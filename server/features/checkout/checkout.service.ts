@@ -13,7 +13,7 @@ import { paymentsClient } from '../../integrations/payments.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
 import { type CartRow, cartView, newCartVersion } from '../cart/index.ts';
 // the discount step after line pricing; a code's use is reserved with the checkout row (one-way)
-import { frozenOffers, releaseUses, reserveUses, withOffers } from '../offers/index.ts';
+import { assertCodesApply, frozenOffers, releaseUses, reserveUses, withOffers } from '../offers/index.ts';
 import { type CheckoutRow, checkoutRepo } from './checkout.repo.ts';
 import { CANCELLED_WORDS, declineInOurWords } from './decline-words.ts';
 
@@ -91,6 +91,7 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
     throw conflict(`${gone.map((l) => `“${l.snapshot.listingTitle}”`).join(', ')} ${gone.length > 1 ? 'are' : 'is'} no longer on sale. Remove ${gone.length > 1 ? 'them' : 'it'} to check out.`);
   const currencies = new Set(view.shops.map((s) => s.currency));
   if (currencies.size > 1) throw conflict('Your cart mixes currencies; check out one currency at a time.');
+  assertCodesApply(view);
 
   // the checkout row and its codes' uses together: a code with no use left rolls both back (409)
   const c = db.transaction(

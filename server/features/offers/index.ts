@@ -2,4 +2,4 @@
 // `withOffers` after line pricing; checkout freezes and reserves; payments confirms or releases.
 export { type DiscountCodeRow, offersRepo } from './offers.repo.ts';
 export { publicOffersRouter, sellerOffersRouter } from './offers.routes.ts';
-export { confirmUses, frozenOffers, releaseUses, removeCartCode, reserveUses, setCartCode, setNeededBy, withOffers } from './offers.service.ts';
+export { assertCodesApply, confirmUses, frozenOffers, releaseUses, removeCartCode, reserveUses, setCartCode, setNeededBy, withOffers } from './offers.service.ts';

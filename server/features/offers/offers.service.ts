@@ -160,6 +160,15 @@ export function frozenOffers(s: Cart['shops'][number]): Pick<PricedCheckout['sho
 }
 
 /**
+ * A code on the cart that does not apply (any more) stops the checkout with its reason: the shopper
+ * saw a price with it, and is never sent to pay a different one without being told.
+ */
+export function assertCodesApply(view: Cart): void {
+  const off = view.shops.filter((s) => s.discount && !s.discount.applied);
+  if (off.length) throw conflict(`${off.map((s) => s.discount!.message).join(' ')} Remove the code from your cart to pay without it.`);
+}
+
+/**
  * Reserves one use of each code in a checkout. Runs inside the transaction that creates the checkout
  * row (the caller's `db` is that transaction, begun IMMEDIATE); throws 409, rolling the checkout back,
  * when a code has no use left.
