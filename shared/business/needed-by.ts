@@ -9,9 +9,10 @@
  *    are mostly public holidays, when parcels do not move either). Counting those as transit days
  *    would promise dates the shop cannot keep, so the estimate errs on the late side.
  */
-import { isFinishedLine } from '../schemas/order.ts';
-import { addWorkingDays, isWorkingDay, parseDay, formatDay, type WorkCalendar, workingDaysBetween } from './working-days.ts';
+
 import { addDays } from 'date-fns';
+import { isFinishedLine } from '../schemas/order.ts';
+import { addWorkingDays, formatDay, isWorkingDay, parseDay, type WorkCalendar, workingDaysBetween } from './working-days.ts';
 
 /** Monday to Friday: the weekdays parcels travel. */
 export const POST_WEEK: readonly number[] = [1, 2, 3, 4, 5];

@@ -4,7 +4,6 @@
  * One schema per contract, used by the form and by the route.
  */
 import { z } from 'zod';
-import type { NeededByVerdict } from '../business/needed-by.ts';
 import { isValidDay } from '../business/working-days.ts';
 
 const day = z.string({ error: 'Enter a date.' }).refine(isValidDay, 'Use a real date, written yyyy-mm-dd.');
@@ -20,11 +19,7 @@ export const CODE_RE = /^[A-Z0-9-]{3,20}$/;
 export const MAX_CODE_LISTINGS = 50;
 
 /** A code as the shopper types it: trimmed and upper-cased before anything else. */
-export const codeText = z
-  .string({ error: 'Enter a code.' })
-  .trim()
-  .toUpperCase()
-  .regex(CODE_RE, 'Codes are 3–20 letters, digits or dashes.');
+export const codeText = z.string({ error: 'Enter a code.' }).trim().toUpperCase().regex(CODE_RE, 'Codes are 3–20 letters, digits or dashes.');
 
 /** POST /api/seller/discounts and PUT /api/seller/discounts/:id — the seller's form. */
 export const discountCodeSchema = z
@@ -107,7 +102,8 @@ export type ListingDelivery = {
   /** ordered today */
   shipBy: string;
   arrival: string;
-  verdict: NeededByVerdict | null;
+  /** the needed-by check (shared/business/needed-by.ts neededByVerdict) */
+  verdict: { neededBy: string; shipBy: string; arrival: string; latestShip: string; canMake: boolean } | null;
   /** the shop's order-by dates still to come, soonest first */
   orderBy: OrderByDate[];
 };

@@ -6,8 +6,8 @@
 import crypto from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { checkouts, discountCodes, discountUses, ledger, listings, orderLines, orders, shops } from '../../server/db/schema.ts';
 import type { Db } from '../../server/db/client.ts';
+import { checkouts, discountCodes, discountUses, ledger, listings, orderLines, orders, shops } from '../../server/db/schema.ts';
 import { reserveUses } from '../../server/features/offers/index.ts';
 import { addNameLine, checkoutAndPay, makeShopWithListing, makeWorld, shopperWithCart, type World, waitFor } from './checkout.fixtures.ts';
 
@@ -26,7 +26,20 @@ function secondListing(shop: Awaited<ReturnType<typeof makeShopWithListing>>, ba
   const at = Date.now();
   w.db
     .insert(listings)
-    .values({ id, shopId: shop.seller.shopId, slug: `pouch-${id.slice(0, 8)}`, state: 'live', draft: content as never, live: content as never, liveTitle: content.title, livePriceMinor: basePriceMinor, currency: 'USD', publishedAt: at, createdAt: at, updatedAt: at })
+    .values({
+      id,
+      shopId: shop.seller.shopId,
+      slug: `pouch-${id.slice(0, 8)}`,
+      state: 'live',
+      draft: content as never,
+      live: content as never,
+      liveTitle: content.title,
+      livePriceMinor: basePriceMinor,
+      currency: 'USD',
+      publishedAt: at,
+      createdAt: at,
+      updatedAt: at,
+    })
     .run();
   return id;
 }
@@ -180,7 +193,11 @@ describe('when another process takes the last use between pricing the cart and r
     await sellerCode(shop, { code: 'LASTONE', kind: 'amount', amountOffMinor: 200, usageLimit: 1 });
     const code = w.db.select().from(discountCodes).where(eq(discountCodes.shopId, shop.seller.shopId)).get()!;
     const { buyer } = await shopperWithCart(w, { listingId: shop.listingId, name: 'Uma' });
-    const priced = { currency: 'USD', totalMinor: 1800, shops: [{ shopId: shop.seller.shopId, shopName: 'Shop', shippingMinor: 0, subtotalMinor: 2000, totalMinor: 1800, discount: { codeId: code.id, code: 'LASTONE', discountMinor: 200 }, lines: [] }] };
+    const priced = {
+      currency: 'USD',
+      totalMinor: 1800,
+      shops: [{ shopId: shop.seller.shopId, shopName: 'Shop', shippingMinor: 0, subtotalMinor: 2000, totalMinor: 1800, discount: { codeId: code.id, code: 'LASTONE', discountMinor: 200 }, lines: [] }],
+    };
     const newCheckout = (cartId: string) => ({ id: crypto.randomUUID(), userId: buyer.id, cartId, cartVersion: 1, state: 'open', currency: 'USD', totalMinor: 1800, priced, createdAt: Date.now() });
     const reserveIn = (row: ReturnType<typeof newCheckout>) =>
       w.db.transaction(

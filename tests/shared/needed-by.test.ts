@@ -2,7 +2,7 @@
 // on a printed calendar of December 2026 – January 2027 (1 December 2026 is a Tuesday, 1 January 2027
 // a Friday; checked against Python's datetime.date(...).strftime('%A')), not computed by the code.
 import { describe, expect, it } from 'vitest';
-import { earliestArrival, latestShipDay, needMark, neededByVerdict } from '../../shared/business/needed-by.ts';
+import { earliestArrival, latestShipDay, neededByVerdict, needMark } from '../../shared/business/needed-by.ts';
 import { addWorkingDays, type WorkCalendar } from '../../shared/business/working-days.ts';
 
 const WEEKDAYS: WorkCalendar = { workingDays: [1, 2, 3, 4, 5], daysOff: [] };

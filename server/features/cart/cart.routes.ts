@@ -1,10 +1,10 @@
 import { type Request, type Response, Router } from 'express';
 import { addCartLineSchema, cartLineParams, updateCartLineSchema } from '../../../shared/schemas/cart.ts';
+// the discount step after line pricing, and the per-shop code and needed-by date (one-way: offers never imports cart)
+import { applyCodeSchema, cartShopParams, neededBySchema } from '../../../shared/schemas/offers.ts';
 import type { AppDeps } from '../../deps.ts';
 import { perAccountLimit } from '../../http/account-rate-limit.ts';
 import { validate } from '../../http/validate.ts';
-// the discount step after line pricing, and the per-shop code and needed-by date (one-way: offers never imports cart)
-import { applyCodeSchema, cartShopParams, neededBySchema } from '../../../shared/schemas/offers.ts';
 import { removeCartCode, setCartCode, setNeededBy, withOffers } from '../offers/index.ts';
 import { type CartRow, cartRepo } from './cart.repo.ts';
 import { addLine, cartView, newCartVersion, removeLine, setQuantity } from './cart.service.ts';
@@ -43,8 +43,21 @@ export function cartRouter(deps: AppDeps): Router {
     res.json(priced(newCartVersion(deps, cart!.id)));
   };
   const codesTried = perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'codes tried');
-  r.post('/shops/:shopId/code', codesTried, validate({ params: cartShopParams, body: applyCodeSchema }), onShop((v, shopId, b) => setCartCode(deps, v, shopId, String(b.code))));
-  r.delete('/shops/:shopId/code', validate({ params: cartShopParams }), onShop((v, shopId) => removeCartCode(deps, v, shopId)));
-  r.put('/shops/:shopId/needed-by', validate({ params: cartShopParams, body: neededBySchema }), onShop((v, shopId, b) => setNeededBy(deps, v, shopId, (b.neededBy as string | null) ?? null)));
+  r.post(
+    '/shops/:shopId/code',
+    codesTried,
+    validate({ params: cartShopParams, body: applyCodeSchema }),
+    onShop((v, shopId, b) => setCartCode(deps, v, shopId, String(b.code))),
+  );
+  r.delete(
+    '/shops/:shopId/code',
+    validate({ params: cartShopParams }),
+    onShop((v, shopId) => removeCartCode(deps, v, shopId)),
+  );
+  r.put(
+    '/shops/:shopId/needed-by',
+    validate({ params: cartShopParams, body: neededBySchema }),
+    onShop((v, shopId, b) => setNeededBy(deps, v, shopId, (b.neededBy as string | null) ?? null)),
+  );
   return r;
 }

@@ -47,7 +47,7 @@ export const offersRepo = {
       .innerJoin(checkouts, eq(checkouts.id, discountUses.checkoutId))
       .where(and(eq(discountUses.codeId, codeId), ne(discountUses.state, 'released'), exceptCartId ? ne(checkouts.cartId, exceptCartId) : undefined))
       .get()!.n,
-  useOf: (db: Db, codeId: string, checkoutId: string) =>
+  findUse: (db: Db, codeId: string, checkoutId: string) =>
     db
       .select()
       .from(discountUses)
@@ -62,7 +62,7 @@ export const offersRepo = {
       .set({ state: to, updatedAt: at })
       .where(and(eq(discountUses.checkoutId, checkoutId), eq(discountUses.state, from)))
       .run(),
-  useCounts: (db: Db, shopId: string) =>
+  countUses: (db: Db, shopId: string) =>
     db
       .select({ codeId: discountUses.codeId, state: discountUses.state, n: sql<number>`count(*)` })
       .from(discountUses)
@@ -93,12 +93,7 @@ export const offersRepo = {
   shops: (db: Db, ids: string[]) => (ids.length ? db.select().from(shops).where(inArray(shops.id, ids)).all() : []),
   setShippingDays: (db: Db, shopId: string, shippingDays: number, at: number) => db.update(shops).set({ shippingDays, updatedAt: at }).where(eq(shops.id, shopId)).run(),
   liveListingShop: (db: Db, slug: string) =>
-    db
-      .select({ shop: shops, listingState: listings.state, live: listings.live })
-      .from(listings)
-      .innerJoin(shops, eq(shops.id, listings.shopId))
-      .where(eq(listings.slug, slug))
-      .get(),
+    db.select({ shop: shops, listingState: listings.state, live: listings.live }).from(listings).innerJoin(shops, eq(shops.id, listings.shopId)).where(eq(listings.slug, slug)).get(),
   orderByDates: (db: Db, shopId: string, fromDay?: string) =>
     db
       .select({ id: orderByDates.id, occasion: orderByDates.occasion, orderBy: orderByDates.orderBy })

@@ -178,7 +178,7 @@ export function reserveUses(db: Db, checkout: { id: string; cartId: string; pric
     if (!s.discount) continue;
     const code = repo.codeById(db, s.discount.codeId);
     if (!code) throw conflict(`${s.shopName} has just withdrawn the code ${s.discount.code}. Remove it from your cart to check out.`);
-    const mine = repo.useOf(db, code.id, checkout.id);
+    const mine = repo.findUse(db, code.id, checkout.id);
     if (mine && mine.state !== 'released') continue;
     if (code.usageLimit !== null && repo.usesTaken(db, code.id, checkout.cartId) >= code.usageLimit) {
       throw conflict(`The code ${code.code} from ${s.shopName} has just been used as many times as the shop allows. Remove it from your cart to check out.`);
@@ -220,7 +220,7 @@ function codeView(row: DiscountCodeRow, counts: Map<string, number>, given: Map<
 
 /** The shop's codes, with uses and what each took off paid orders: the business view's "given away". */
 export function discountsView(deps: OffersDeps, shop: OffersShopRow): DiscountsView {
-  const counts = new Map(repo.useCounts(deps.db, shop.id).map((c) => [`${c.codeId}|${c.state}`, c.n]));
+  const counts = new Map(repo.countUses(deps.db, shop.id).map((c) => [`${c.codeId}|${c.state}`, c.n]));
   const givenRows = repo.givenAway(deps.db, shop.id);
   const given = new Map(givenRows.map((g) => [g.code ?? '', g.minor]));
   return {
