@@ -50,7 +50,11 @@ test('a parent orders a tote with a needed-by date and the shop’s code', async
   await expect(page.getByRole('heading', { name: 'Thank you, your order is confirmed' })).toBeVisible({ timeout: 20_000 });
 
   // her order from Fern & Fable shows the code and the date
-  await page.getByRole('listitem').filter({ hasText: 'Fern & Fable Goods' }).getByRole('link', { name: /See order NS-/ }).click();
+  await page
+    .getByRole('listitem')
+    .filter({ hasText: 'Fern & Fable Goods' })
+    .getByRole('link', { name: /See order NS-/ })
+    .click();
   const summary = page.getByRole('complementary', { name: 'Order summary' });
   await expect(summary.getByText('Code WINTER10', { exact: true })).toBeVisible();
   await expect(summary.getByText(neededBy)).toBeVisible();

@@ -256,11 +256,16 @@ export function createCode(deps: OffersDeps, shop: OffersShopRow, v: DiscountCod
   return discountsView(deps, shop);
 }
 
-/** A code that has been used keeps its text and its terms (shoppers paid under them): only pausing or its end date may change. */
+/**
+ * Changes a code's terms for checkouts from now on (paid orders keep what they paid). A code that has
+ * been used keeps its text: orders and the business view's "given away" name it.
+ */
 export function updateCode(deps: OffersDeps, shop: OffersShopRow, id: string, v: DiscountCodeValues): DiscountsView {
   const row = repo.code(deps.db, shop.id, id);
   if (!row) throw notFound('We could not find that code in your shop.');
   const cols = columnsOf(deps, shop, v);
+  if (cols.code !== row.code && repo.hasUses(deps.db, id))
+    throw conflict(`${row.code} has been used at checkout, so its text stays. Make a new code instead.`, { code: 'A code that has been used keeps its text.' });
   if (cols.code !== row.code && repo.codeByText(deps.db, shop.id, cols.code)) throw conflict(`You have a code ${cols.code} already.`, { code: 'You have this code already.' });
   repo.updateCode(deps.db, id, { ...cols, updatedAt: deps.now() });
   return discountsView(deps, shop);
