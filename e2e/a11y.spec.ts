@@ -111,6 +111,7 @@ test('seller pages (workroom, proof, cut sheets, press, stock, shop, listings) h
   f.push(...(await audit(page, 'press cards', '/workroom/press')));
   f.push(...(await audit(page, 'stock', '/workroom/stock')));
   f.push(...(await audit(page, 'shop settings', '/workroom/shop')));
+  f.push(...(await audit(page, 'codes and dates', '/workroom/offers')));
   f.push(...(await audit(page, 'materials', '/workroom/materials')));
   f.push(...(await audit(page, 'seller listings', '/workroom/listings')));
   f.push(...(await audit(page, 'new listing', '/workroom/listings/new')));

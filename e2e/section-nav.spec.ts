@@ -24,6 +24,7 @@ const SELLER_PAGES: Array<[string, string, string]> = [
   ['Stock', '/workroom/stock', 'Stock'],
   ['Listings', '/workroom/listings', 'Listings'],
   ['Materials', '/workroom/materials', 'Materials'],
+  ['Codes and dates', '/workroom/offers', 'Codes and dates'],
   ['Shop', '/workroom/shop', 'Shop settings'],
   ['Business', '/workroom/business', 'Your business'],
   ['Payouts', '/workroom/business/payouts', 'Payouts'],

@@ -36,6 +36,8 @@ export const shops = sqliteTable(
     currency: text('currency').notNull().default('USD'),
     processingDays: integer('processing_days').notNull().default(3),
     shippingMinor: integer('shipping_minor').notNull().default(0),
+    /** the shop's own estimate of the parcel's time in the post, in working days (needed-by dates) */
+    shippingDays: integer('shipping_days').notNull().default(3),
     returnPolicy: text('return_policy').notNull().default(''),
     /** handheld | clamshell */
     pressType: text('press_type').notNull().default('clamshell'),
@@ -262,6 +264,11 @@ export const orders = sqliteTable(
     carrier: text('carrier'),
     trackingNumber: text('tracking_number'),
     shipByDate: text('ship_by_date'),
+    /** the shopper's "needed by" date for this shop's parcel ('yyyy-MM-dd'), or null */
+    neededBy: text('needed_by'),
+    /** what the shop's discount code took off the lines (subtotal − discount + shipping = total) */
+    discountMinor: integer('discount_minor').notNull().default(0),
+    discountCode: text('discount_code'),
     paidAt: integer('paid_at').notNull(),
     shippedAt: integer('shipped_at'),
     createdAt: createdAt(),
@@ -289,7 +296,10 @@ export const orderLines = sqliteTable(
     listingTitle: text('listing_title').notNull(),
     quantity: integer('quantity').notNull(),
     unitPriceMinor: integer('unit_price_minor').notNull(),
+    /** what the shopper paid for the line: unit price × quantity − its share of the order's discount */
     totalMinor: integer('total_minor').notNull(),
+    /** the line's share of the order's discount (largest remainder, so the shares sum exactly) */
+    discountMinor: integer('discount_minor').notNull().default(0),
     /** awaiting_proof | changes_requested | approved | cut | pressed | shipped | cancelled | refunded */
     state: text('state').notNull().default('awaiting_proof'),
     /** the current personalisation snapshot (latest version) */
@@ -440,3 +450,84 @@ export const jobRuns = sqliteTable('job_runs', {
   key: text('key').primaryKey(),
   ranAt: integer('ran_at').notNull(),
 });
+
+// ---------------------------------------------------------------- shop offers: discount codes, order-by dates
+export const discountCodes = sqliteTable(
+  'discount_codes',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    /** upper case, unique per shop */
+    code: text('code').notNull(),
+    /** percent | amount */
+    kind: text('kind').notNull(),
+    /** percent: basis points off (1500 = 15 %); amount: minor units off */
+    value: integer('value').notNull(),
+    minSpendMinor: integer('min_spend_minor').notNull().default(0),
+    /** first and last calendar day the code works ('yyyy-MM-dd', shops' time zone), null = open */
+    startsOn: text('starts_on'),
+    endsOn: text('ends_on'),
+    /** how many paid (or reserved) checkouts may use it; null = no limit */
+    usageLimit: integer('usage_limit'),
+    /** null = every listing of the shop */
+    listingIds: json<string[]>('listing_ids'),
+    active: integer('active', { mode: 'boolean' }).notNull().default(true),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [uniqueIndex('discount_codes_shop_code_uq').on(t.shopId, t.code)],
+);
+
+/** One use of a code by a checkout: reserved when the payment page opens, used when paid, released when it expires. */
+export const discountUses = sqliteTable(
+  'discount_uses',
+  {
+    id: id(),
+    codeId: text('code_id')
+      .notNull()
+      .references(() => discountCodes.id, { onDelete: 'cascade' }),
+    checkoutId: text('checkout_id')
+      .notNull()
+      .references(() => checkouts.id),
+    /** reserved | used | released */
+    state: text('state').notNull().default('reserved'),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [uniqueIndex('discount_uses_code_checkout_uq').on(t.codeId, t.checkoutId), index('discount_uses_code_idx').on(t.codeId, t.state)],
+);
+
+/** The shopper's choices for one shop's part of a cart: a discount code and a needed-by date. */
+export const cartShopChoices = sqliteTable(
+  'cart_shop_choices',
+  {
+    cartId: text('cart_id')
+      .notNull()
+      .references(() => carts.id, { onDelete: 'cascade' }),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    /** as the shopper typed it (upper-cased); checked again every time the cart is priced */
+    code: text('code'),
+    neededBy: text('needed_by'),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [uniqueIndex('cart_shop_choices_uq').on(t.cartId, t.shopId)],
+);
+
+/** "Order by" dates a shop sets per occasion, shown as banners on its listings until they pass. */
+export const orderByDates = sqliteTable(
+  'order_by_dates',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    occasion: text('occasion').notNull(),
+    orderBy: text('order_by').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('order_by_dates_shop_idx').on(t.shopId, t.orderBy)],
+);

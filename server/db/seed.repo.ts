@@ -3,7 +3,7 @@
 // goes through that feature's public module instead.
 import { and, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from './client.ts';
-import { listings, materials, motifs, orderLines, orders, shops, uploads, user } from './schema.ts';
+import { discountCodes, listings, materials, motifs, orderByDates, orderLines, orders, shops, uploads, user } from './schema.ts';
 
 export const seedRepo = {
   userCount: (db: Db) => db.get<{ n: number }>(sql`select count(*) as n from user`)?.n ?? 0,
@@ -21,6 +21,8 @@ export const seedRepo = {
   insertMotif: (db: Db, row: typeof motifs.$inferInsert) => db.insert(motifs).values(row).run(),
   insertUpload: (db: Db, row: typeof uploads.$inferInsert) => db.insert(uploads).values(row).run(),
   insertListing: (db: Db, row: typeof listings.$inferInsert) => db.insert(listings).values(row).run(),
+  insertDiscountCode: (db: Db, row: typeof discountCodes.$inferInsert) => db.insert(discountCodes).values(row).run(),
+  insertOrderByDate: (db: Db, row: typeof orderByDates.$inferInsert) => db.insert(orderByDates).values(row).run(),
   materialsOf: (db: Db, shopId: string) => db.select().from(materials).where(eq(materials.shopId, shopId)).all(),
   liveListingsOf: (db: Db, shopId: string) =>
     db

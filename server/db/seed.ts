@@ -6,6 +6,7 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts.ts';
 import { seedRepo } from './seed.repo.ts';
 import { seedCatalog } from './seed-catalog.ts';
 import type { SeedContext } from './seed-context.ts';
+import { seedOffers } from './seed-offers.ts';
 import { seedOrders } from './seed-orders.ts';
 
 const SHOPS = [
@@ -81,4 +82,5 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
   // in order: the orders are made from the catalogue's live listings and materials
   await seedCatalog(deps, ctx);
   await seedOrders(deps, ctx);
+  seedOffers(deps, ctx);
 }

@@ -10,6 +10,7 @@ import { engineRouter } from './engine/index.ts';
 import { listingsRouter } from './listings/index.ts';
 import { materialsRouter } from './materials/index.ts';
 import { moderationRouter } from './moderation/index.ts';
+import { publicOffersRouter, sellerOffersRouter } from './offers/index.ts';
 import { ordersRouter } from './orders/index.ts';
 import { paymentsWebhookRouter } from './payments/index.ts';
 import { refundsRouter } from './refunds/index.ts';
@@ -47,6 +48,8 @@ export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[]
       { path: '/api/orders', router: refundsRouter(deps) },
       { path: '/api/workroom', router: workroomRouter(deps) },
       { path: '/api/business', router: businessRouter(deps) },
+      { path: '/api/seller/offers', router: sellerOffersRouter(deps) },
+      { path: '/api/offers', router: publicOffersRouter(deps) },
       { path: '/api/order-lines', router: proofEditRouter(deps) },
       { path: '/api', router: engineRouter({ pool: deps.pool }) },
       { path: '/api', router: catalogRouter(deps) },

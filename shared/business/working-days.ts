@@ -97,3 +97,9 @@ export function workingDaysBetween(from: string, to: string, cal: WorkCalendar):
 export function shipByDate(paidAtMs: number, processingDays: number, cal: WorkCalendar, timeZone = 'UTC'): string {
   return addWorkingDays(dayInZone(paidAtMs, timeZone), Math.max(0, Math.round(processingDays)), cal);
 }
+
+/** A shop's calendar from its stored columns: Monday to Friday when it has named no working day. */
+export const calendarOfShop = (s: { workingDays: readonly number[] | null; daysOff: readonly string[] | null }): WorkCalendar => ({
+  workingDays: s.workingDays?.length ? s.workingDays : [1, 2, 3, 4, 5],
+  daysOff: s.daysOff ?? [],
+});

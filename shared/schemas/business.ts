@@ -3,6 +3,7 @@ import { z } from 'zod';
 import type { CostTotals, LineCost, PriceCheck } from '../business/costs.ts';
 import type { LedgerEntry, MonthBalance } from '../business/ledger.ts';
 import type { ShipMark } from '../business/marks.ts';
+import type { NeedMark } from '../business/needed-by.ts';
 import type { ListingRow, VinylMonthRow, WeekRow } from '../business/reports.ts';
 import { isValidDay } from '../business/working-days.ts';
 import { listingInputSchema } from './listing.ts';
@@ -51,6 +52,9 @@ export type DueLine = {
   mark: ShipMark | null;
   /** working days left until the ship-by date (negative when late) */
   workingDaysLeft: number | null;
+  /** the shopper's needed-by date; shipBy above is then the earlier of the shop's date and the last day to post in time */
+  neededBy?: string | null;
+  needMark?: NeedMark | null;
 };
 export type DueView = { today: string; lines: DueLine[] };
 

@@ -1,6 +1,7 @@
 /** Cart: inputs (add a line, change a quantity) and the cart as the API returns it. */
 import { z } from 'zod';
 import { choicesSchema } from './listing.ts';
+import type { CartDelivery, CartDiscount } from './offers.ts';
 
 export const MAX_LINE_QUANTITY = 20;
 
@@ -56,6 +57,8 @@ export type CartLine = {
   snapshot: LineSnapshot;
   /** false when the listing went off sale after the line was added: it cannot be bought now */
   available: boolean;
+  /** this line's share of its shop's discount code (lineTotalMinor is before it) */
+  discountMinor?: number;
 };
 
 export type CartShop = {
@@ -67,6 +70,11 @@ export type CartShop = {
   subtotalMinor: number;
   shippingMinor: number;
   totalMinor: number;
+  /** the shop's code, after line pricing (totalMinor is after it): server/features/offers */
+  discount?: CartDiscount | null;
+  discountMinor?: number;
+  /** the shopper's needed-by date for this shop's parcel */
+  delivery?: CartDelivery | null;
 };
 
 export type Cart = {
@@ -78,5 +86,7 @@ export type Cart = {
   itemCount: number;
   subtotalMinor: number;
   shippingMinor: number;
+  /** what every shop's code took off (totalMinor is after it) */
+  discountMinor?: number;
   totalMinor: number;
 };

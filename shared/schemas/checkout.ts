@@ -114,6 +114,9 @@ export type PricedCheckout = {
     shippingMinor: number;
     subtotalMinor: number;
     totalMinor: number;
-    lines: Array<{ cartLineId: string; listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; snapshot: LineSnapshot }>;
+    /** the shop's code (totalMinor and each line's totalMinor are after it; subtotalMinor before) */
+    discount?: { codeId: string; code: string; discountMinor: number } | null;
+    neededBy?: string | null;
+    lines: Array<{ cartLineId: string; listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; discountMinor?: number; snapshot: LineSnapshot }>;
   }>;
 };

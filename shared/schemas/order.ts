@@ -96,6 +96,11 @@ export type OrderSummary = {
 export type OrderDetail = OrderSummary & {
   subtotalMinor: number;
   shippingMinor: number;
+  /** what the shop's code took off the items, and the code (subtotal − discount + shipping = total) */
+  discountMinor?: number;
+  discountCode?: string | null;
+  /** the shopper's needed-by date for the parcel */
+  neededBy?: string | null;
   refundedMinor: number;
   carrier: string | null;
   trackingNumber: string | null;

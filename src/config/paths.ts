@@ -42,6 +42,7 @@ export const paths = {
     shop: { path: '/workroom/shop', getHref: () => '/workroom/shop' },
     materials: { path: '/workroom/materials', getHref: () => '/workroom/materials' },
     listings: { path: '/workroom/listings', getHref: () => '/workroom/listings' },
+    offers: { path: '/workroom/offers', getHref: () => '/workroom/offers' },
     newListing: { path: '/workroom/listings/new', getHref: () => '/workroom/listings/new' },
     editListing: { path: '/workroom/listings/:id/edit', getHref: (id: string) => `/workroom/listings/${encodeURIComponent(id)}/edit` },
   },

@@ -15,6 +15,7 @@ import {
 } from '../../../shared/business/costs.ts';
 import { balanceByMonth, type LedgerEntry, type LedgerKind, ledgerCsv, monthOf, signForShop } from '../../../shared/business/ledger.ts';
 import { compareByShipBy, shipMark } from '../../../shared/business/marks.ts';
+import { needMark } from '../../../shared/business/needed-by.ts';
 import { ordersByListing, salesByWeek, vinylByMaterialMonth } from '../../../shared/business/reports.ts';
 import { dayInZone, parseDay, shipByDate, type WorkCalendar, workingDaysBetween } from '../../../shared/business/working-days.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
@@ -119,7 +120,9 @@ export function due(deps: BusinessDeps, shop: ShopRow, today = todayOf(deps)): D
   const lines: DueLine[] = [];
   for (const { line, order } of repo.linesOfShop(deps.db, shop.id)) {
     if (isFinishedLine(line.state)) continue;
-    const shipBy = shipByOf(deps, shop, order);
+    // a needed-by date earlier than the shop's own date moves the line up the queue (shared/business/needed-by.ts)
+    const need = needMark({ state: line.state, shipBy: shipByOf(deps, shop, order), neededBy: order.neededBy, today, shippingDays: shop.shippingDays, calendar: cal });
+    const shipBy = need.shipBy;
     lines.push({
       lineId: line.id,
       orderId: order.id,
@@ -130,6 +133,8 @@ export function due(deps: BusinessDeps, shop: ShopRow, today = todayOf(deps)): D
       shipBy,
       mark: shipMark({ state: line.state, shipBy, today, calendar: cal }),
       workingDaysLeft: workingDaysBetween(today, shipBy, cal),
+      neededBy: order.neededBy,
+      needMark: need.mark,
     });
   }
   lines.sort((a, b) => compareByShipBy(a, b) || a.orderNumber.localeCompare(b.orderNumber));

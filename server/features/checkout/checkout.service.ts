@@ -12,6 +12,8 @@ import type { SessionUser } from '../../http/auth-guards.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
 import { type CartRow, cartView, newCartVersion } from '../cart/index.ts';
+// the discount step after line pricing; a code's use is reserved with the checkout row (one-way)
+import { assertCodesApply, frozenOffers, releaseUses, reserveUses, withOffers } from '../offers/index.ts';
 import { type CheckoutRow, checkoutRepo } from './checkout.repo.ts';
 import { CANCELLED_WORDS, declineInOurWords } from './decline-words.ts';
 
@@ -26,9 +28,14 @@ function sessionParams(deps: CheckoutDeps, c: CheckoutRow, email: string): Strip
   for (const s of priced.shops) {
     for (const l of s.lines) {
       const name = l.snapshot.summary.find((x) => x.value && !/colour/i.test(x.label))?.value;
+      // a line with a share of a code is sent as one item at what it costs after the code (its
+      // share need not divide by the quantity), so the page's total is exactly the checkout's
+      const off = l.discountMinor ?? 0;
+      const title = `${off > 0 && l.quantity > 1 ? `${l.quantity} × ` : ''}${l.title}${name ? ` — ${name}` : ''}`;
+      const description = off > 0 ? `From ${s.shopName}, with code ${s.discount?.code ?? ''}` : `From ${s.shopName}`;
       items.push({
-        quantity: l.quantity,
-        price_data: { currency: cur, unit_amount: l.unitPriceMinor, product_data: { name: `${l.title}${name ? ` — ${name}` : ''}`.slice(0, 250), description: `From ${s.shopName}`.slice(0, 500) } },
+        quantity: off > 0 ? 1 : l.quantity,
+        price_data: { currency: cur, unit_amount: off > 0 ? l.totalMinor : l.unitPriceMinor, product_data: { name: title.slice(0, 250), description: description.slice(0, 500) } },
       });
     }
     if (s.shippingMinor > 0) items.push({ quantity: 1, price_data: { currency: cur, unit_amount: s.shippingMinor, product_data: { name: `Shipping from ${s.shopName}`.slice(0, 250) } } });
@@ -58,13 +65,16 @@ function freeze(view: ReturnType<typeof cartView>): PricedCheckout {
       shippingMinor: s.shippingMinor,
       subtotalMinor: s.subtotalMinor,
       totalMinor: s.totalMinor,
+      ...frozenOffers(s),
       lines: s.lines.map((l) => ({
         cartLineId: l.id,
         listingId: l.listingId,
         title: l.snapshot.listingTitle,
         quantity: l.quantity,
         unitPriceMinor: l.unitPriceMinor,
-        totalMinor: l.lineTotalMinor,
+        // what the shopper pays for the line: its price less its share of the shop's code
+        totalMinor: l.lineTotalMinor - (l.discountMinor ?? 0),
+        discountMinor: l.discountMinor ?? 0,
         snapshot: { ...l.snapshot, unitPriceMinor: l.unitPriceMinor },
       })),
     })),
@@ -74,26 +84,36 @@ function freeze(view: ReturnType<typeof cartView>): PricedCheckout {
 /** POST /api/checkout: opens (or finds) the Checkout Session for this version of the user's cart. */
 export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, user: Pick<SessionUser, 'id' | 'email'>, attempt = 0): Promise<CheckoutStarted> {
   const { db } = deps;
-  const view = cartView(db, cart);
+  const view = withOffers(deps, cartView(db, cart));
   if (!cart || view.itemCount === 0) throw badRequest('Your cart is empty. Add something first.');
   const gone = view.shops.flatMap((s) => s.lines).filter((l) => !l.available);
   if (gone.length > 0)
     throw conflict(`${gone.map((l) => `“${l.snapshot.listingTitle}”`).join(', ')} ${gone.length > 1 ? 'are' : 'is'} no longer on sale. Remove ${gone.length > 1 ? 'them' : 'it'} to check out.`);
   const currencies = new Set(view.shops.map((s) => s.currency));
   if (currencies.size > 1) throw conflict('Your cart mixes currencies; check out one currency at a time.');
+  assertCodesApply(view);
 
-  checkoutRepo.insertIfAbsent(db, {
-    id: crypto.randomUUID(),
-    userId: user.id,
-    cartId: cart.id,
-    cartVersion: cart.version,
-    state: 'open',
-    currency: view.currency!,
-    totalMinor: view.totalMinor,
-    priced: freeze(view),
-    createdAt: deps.now(),
-  });
-  const c = checkoutRepo.forCartVersion(db, cart.id, cart.version)!;
+  // the checkout row and its codes' uses together: a code with no use left rolls both back (409)
+  const c = db.transaction(
+    (tx) => {
+      const t = tx as unknown as Db;
+      checkoutRepo.insertIfAbsent(t, {
+        id: crypto.randomUUID(),
+        userId: user.id,
+        cartId: cart.id,
+        cartVersion: cart.version,
+        state: 'open',
+        currency: view.currency!,
+        totalMinor: view.totalMinor,
+        priced: freeze(view),
+        createdAt: deps.now(),
+      });
+      const row = checkoutRepo.forCartVersion(t, cart.id, cart.version)!;
+      if (row.state === 'open' && row.userId === user.id) reserveUses(t, row, deps.now());
+      return row;
+    },
+    { behavior: 'immediate' },
+  );
   if (c.userId !== user.id) throw notFound('That cart is not yours.');
   if (c.state === 'paid') throw conflict('This cart has been paid already. Your order is on its way to the shops.');
 
@@ -103,6 +123,7 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
     try {
       await stripe.checkout.sessions.expire(old.providerSessionId!);
       checkoutRepo.setState(db, old.id, 'expired');
+      releaseUses(db, old.id, deps.now());
     } catch {
       // already completed or expired at the provider: its own webhook tells us which
     }
@@ -119,6 +140,7 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
   if (session.status === 'expired' && attempt === 0) {
     // the page for this cart version timed out: mark it and start afresh with a new version
     checkoutRepo.setState(db, c.id, 'expired');
+    releaseUses(db, c.id, deps.now());
     return openCheckout(deps, newCartVersion(deps, cart.id), user, 1);
   }
   const url = session.status === 'complete' ? `${deps.env.baseUrl}/checkout/return?session_id=${session.id}` : session.url;

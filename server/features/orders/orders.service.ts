@@ -17,7 +17,10 @@ export type PricedShop = {
   shippingMinor: number;
   subtotalMinor: number;
   totalMinor: number;
-  lines: Array<{ listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; snapshot: LineSnapshot }>;
+  /** the shop's code: subtotalMinor is before it, each line's totalMinor after its share */
+  discount?: { code: string; discountMinor: number } | null;
+  neededBy?: string | null;
+  lines: Array<{ listingId: string; title: string; quantity: number; unitPriceMinor: number; totalMinor: number; discountMinor?: number; snapshot: LineSnapshot }>;
 };
 
 /**
@@ -47,7 +50,9 @@ export function createOrdersForCheckout(
   const made: OrderRow[] = [];
   for (const s of args.shops) {
     const shop = shopRows.get(s.shopId);
-    const split = splitForShop(s.subtotalMinor, s.shippingMinor, args.feeBps);
+    // the platform's fee is taken on what the shopper pays: the lines after the shop's code
+    const discountMinor = s.discount?.discountMinor ?? 0;
+    const split = splitForShop(s.subtotalMinor - discountMinor, s.shippingMinor, args.feeBps);
     const orderId = crypto.randomUUID();
     ordersRepo.insertOrder(db, {
       id: orderId,
@@ -60,6 +65,9 @@ export function createOrdersForCheckout(
       shippingMinor: s.shippingMinor,
       platformFeeMinor: split.feeMinor,
       totalMinor: split.shopTotalMinor,
+      discountMinor,
+      discountCode: discountMinor > 0 ? (s.discount?.code ?? null) : null,
+      neededBy: s.neededBy ?? null,
       shipByDate: shop ? shipByDate(args.paidAt, shop.processingDays, shop.workingDays, shop.daysOff, args.timeZone) : null,
       paidAt: args.paidAt,
       createdAt: args.paidAt,
@@ -74,6 +82,7 @@ export function createOrdersForCheckout(
         quantity: l.quantity,
         unitPriceMinor: l.unitPriceMinor,
         totalMinor: l.totalMinor,
+        discountMinor: l.discountMinor ?? 0,
         state: FIRST_LINE_STATE,
         snapshot: l.snapshot,
         version: 1,

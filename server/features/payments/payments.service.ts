@@ -21,6 +21,7 @@ import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
+import { confirmUses, releaseUses } from '../offers/index.ts';
 // payments drives orders, refunds and payouts (one-way: none of them imports payments)
 import { confirmationMail, createOrdersForCheckout, type MailOrder, newOrderMail, ordersRepo } from '../orders/index.ts';
 import { settleOrder } from '../payouts/index.ts';
@@ -78,6 +79,7 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       const priced = c.priced;
       const pi = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
       if (!paymentsRepo.markPaid(t, c.id, at, pi)) return true; // paid through an earlier event
+      confirmUses(t, c.id, at);
       const made = createOrdersForCheckout(t, {
         checkoutId: c.id,
         buyerId: c.userId,
@@ -123,7 +125,10 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
     if (trusted.s.status !== 'expired') return reject(deps, event, `session ${trusted.s.id} is ${trusted.s.status}, not expired`);
     db.transaction((tx) => {
       const t = tx as unknown as Db;
-      if (paymentsRepo.recordEvent(t, event.id, event.type, at)) paymentsRepo.markExpired(t, trusted.c.id);
+      if (paymentsRepo.recordEvent(t, event.id, event.type, at)) {
+        paymentsRepo.markExpired(t, trusted.c.id);
+        releaseUses(t, trusted.c.id, at);
+      }
     });
     return { outcome: 'recorded', checkoutId: trusted.c.id };
   }

@@ -1,5 +1,5 @@
 import type { DueLine } from '../../../shared/schemas/business.ts';
-import { ShipMarkBadge } from './ship-mark-badge.tsx';
+import { NeedMarkBadge, ShipMarkBadge } from './ship-mark-badge.tsx';
 
 /**
  * Ship-by dates and marks keyed by line id (the business feature's useShipByLookup makes one from
@@ -15,6 +15,7 @@ export function ShipByCell({ info }: { info: DueLine | undefined }) {
     <span className="flex flex-col items-start gap-1">
       <span className="font-semibold whitespace-nowrap tabular-nums">{info.shipBy}</span>
       <ShipMarkBadge mark={info.mark} />
+      <NeedMarkBadge mark={info.needMark} neededBy={info.neededBy} />
     </span>
   );
 }

@@ -4,6 +4,7 @@ import { paths } from '../../../config/paths.ts';
 import { BusinessCharts } from '../../../features/business/components/business-charts.tsx';
 import { CostsTable } from '../../../features/business/components/costs-table.tsx';
 import { DueList } from '../../../features/business/components/due-list.tsx';
+import { DiscountsGivenAway } from '../../../features/offers/components/discount-codes.tsx';
 
 export function BusinessOverviewPage() {
   return (
@@ -17,6 +18,7 @@ export function BusinessOverviewPage() {
         <DueList />
         <BusinessCharts />
         <CostsTable />
+        <DiscountsGivenAway />
       </div>
     </div>
   );

@@ -1,3 +1,4 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { useSearchParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
 import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
@@ -5,9 +6,11 @@ import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useMe } from '../../../features/auth/api/get-me.ts';
 import { useCart } from '../../../features/cart/api/get-cart.ts';
+import { cartKeys } from '../../../features/cart/api/keys.ts';
 import { CartView } from '../../../features/cart/components/cart-view.tsx';
 import { CheckoutButton } from '../../../features/checkout/components/checkout-button.tsx';
 import { CheckoutNotice } from '../../../features/checkout/components/checkout-notice.tsx';
+import { CartShopOffers } from '../../../features/offers/components/cart-shop-offers.tsx';
 
 export function CartPage() {
   const me = useMe();
@@ -15,6 +18,7 @@ export function CartPage() {
   const viewer = me.data?.user.id ?? 'guest';
   const cart = useCart(viewer);
   const cameBack = params.get('checkout') === 'cancelled';
+  const qc = useQueryClient();
 
   return (
     <div>
@@ -37,6 +41,7 @@ export function CartPage() {
       ) : (
         <CartView
           cart={cart.data}
+          shopExtras={(shop) => <CartShopOffers shop={shop} onCart={() => qc.invalidateQueries({ queryKey: cartKeys.all })} />}
           checkout={
             <CheckoutButton
               signedIn={Boolean(me.data)}

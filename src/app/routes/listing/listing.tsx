@@ -8,6 +8,7 @@ import { Card } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useAddCartLine } from '../../../features/cart/api/add-cart-line.ts';
 import { useListing } from '../../../features/catalog/api/get-listing.ts';
+import { ListingDates } from '../../../features/offers/components/listing-dates.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
 import { NotFoundPage } from '../errors/not-found.tsx';
 
@@ -91,6 +92,7 @@ export function ListingPage() {
               </>
             ) : null}
           </dl>
+          <ListingDates slug={slug} />
           {l.descriptionHtml ? (
             // rendered by the server with raw HTML escaped (server/features/catalog/markdown.ts)
             <div className="prose-sm flex flex-col gap-2 text-ink-soft [&_a]:text-thread-deep [&_a]:underline" dangerouslySetInnerHTML={{ __html: l.descriptionHtml }} />

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import type { DueView } from '../../../../shared/schemas/business.ts';
 import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
-import { ShipMarkBadge } from '../../../components/ui/ship-mark-badge.tsx';
+import { NeedMarkBadge, ShipMarkBadge } from '../../../components/ui/ship-mark-badge.tsx';
 import { SimpleTable } from '../../../components/ui/simple-table.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useDue } from '../api/get-due.ts';
@@ -37,7 +37,10 @@ function DueBody({ due: { lines, today } }: { due: DueView }) {
           <tr key={l.lineId} className="border-t border-line">
             <td className="px-3 py-2 font-semibold tabular-nums">{l.shipBy ?? '—'}</td>
             <td className="px-3 py-2">
-              <ShipMarkBadge mark={l.mark} />
+              <span className="flex flex-wrap gap-1">
+                <ShipMarkBadge mark={l.mark} />
+                <NeedMarkBadge mark={l.needMark} neededBy={l.neededBy} />
+              </span>
             </td>
             <td className="px-3 py-2">
               <Link className="font-bold underline decoration-thread decoration-2 underline-offset-4" to={paths.workroomOrder.getHref(l.orderId)}>

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
-import type { Cart } from '../../../../shared/schemas/cart.ts';
+import type { Cart, CartShop } from '../../../../shared/schemas/cart.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { useRemoveCartLine } from '../api/remove-cart-line.ts';
@@ -9,7 +9,15 @@ import { DesignPreview, PersonalisationSummary } from './design-preview.tsx';
 import { QuantityForm } from './quantity-form.tsx';
 
 /** The cart's lines grouped by shop, each shop with its shipping, and the totals; `checkout` is the call to action. */
-export function CartView({ cart, checkout }: { cart: Cart; checkout: ReactNode }) {
+export function CartView({
+  cart,
+  checkout,
+  shopExtras,
+}: {
+  cart: Cart;
+  checkout: ReactNode /** under each shop's lines: its code and needed-by date (composed by the route) */;
+  shopExtras?: (shop: CartShop) => ReactNode;
+}) {
   const toast = useToast();
   const remove = useRemoveCartLine();
   const cur = cart.currency ?? 'USD';
@@ -62,11 +70,18 @@ export function CartView({ cart, checkout }: { cart: Cart; checkout: ReactNode }
                 </li>
               ))}
             </ul>
+            {shopExtras?.(shop)}
             <dl className="mt-2 flex flex-col gap-1 border-t border-line pt-3 text-sm">
               <div className="flex justify-between">
                 <dt>Items</dt>
                 <dd>{formatMoney(shop.subtotalMinor, shop.currency)}</dd>
               </div>
+              {shop.discountMinor ? (
+                <div className="flex justify-between text-thread-deep">
+                  <dt>Code {shop.discount?.code}</dt>
+                  <dd>−{formatMoney(shop.discountMinor, shop.currency)}</dd>
+                </div>
+              ) : null}
               <div className="flex justify-between">
                 <dt>Shipping from {shop.shopName}</dt>
                 <dd>{formatMoney(shop.shippingMinor, shop.currency)}</dd>
@@ -91,6 +106,12 @@ export function CartView({ cart, checkout }: { cart: Cart; checkout: ReactNode }
             </dt>
             <dd>{formatMoney(cart.shippingMinor, cur)}</dd>
           </div>
+          {cart.discountMinor ? (
+            <div className="flex justify-between text-thread-deep">
+              <dt>Shop codes</dt>
+              <dd>−{formatMoney(cart.discountMinor, cur)}</dd>
+            </div>
+          ) : null}
           <div className="flex justify-between border-t border-line pt-2 text-lg font-extrabold">
             <dt>Total</dt>
             <dd data-testid="cart-total">{formatMoney(cart.totalMinor, cur)}</dd>

@@ -56,10 +56,22 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
             <dt>Items</dt>
             <dd>{formatMoney(order.subtotalMinor, cur)}</dd>
           </div>
+          {order.discountMinor ? (
+            <div className="flex justify-between">
+              <dt>Code {order.discountCode}</dt>
+              <dd>−{formatMoney(order.discountMinor, cur)}</dd>
+            </div>
+          ) : null}
           <div className="flex justify-between">
             <dt>Shipping</dt>
             <dd>{formatMoney(order.shippingMinor, cur)}</dd>
           </div>
+          {order.neededBy ? (
+            <div className="flex justify-between">
+              <dt>Needed by</dt>
+              <dd>{order.neededBy}</dd>
+            </div>
+          ) : null}
           <div className="flex justify-between border-t border-line pt-1 font-bold">
             <dt>Paid</dt>
             <dd>{formatMoney(order.totalMinor, cur)}</dd>
