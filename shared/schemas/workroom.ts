@@ -14,7 +14,7 @@ import { type Page, pageQuery } from './pagination.ts';
 export { LINE_STATES, type LineState };
 
 /** The states the workroom counts and filters on (DEVELOPERS.md, "Order-line states"), in production order. */
-export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped'] as const satisfies readonly LineState[];
+export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'planned', 'cut', 'pressed', 'shipped'] as const satisfies readonly LineState[];
 
 const id = z.string().trim().min(1).max(64);
 export const idParams = z.object({ id });

@@ -83,6 +83,9 @@ describe('access', () => {
     expect((await comet.get(sheet.svgUrl)).status).toBe(404);
     expect((await comet.post(`/api/workroom/cut-sheets/${sheet.id}/cut`)).status).toBe(404);
     expect((await comet.post(`/api/workroom/batches/${mine.body.batchId}/worksheet`).send({ paper: 'A4' })).status).toBe(404);
+    expect((await comet.post(`/api/workroom/batches/${mine.body.batchId}/discard`)).status).toBe(404);
+    // Fern's own discard puts the line back to approved for the tests below
+    expect((await fern.post(`/api/workroom/batches/${mine.body.batchId}/discard`)).status).toBe(200);
     // an own id mixed with one that is not Fern's: still 404, nothing made
     const count = t.db.select().from(cutSheets).all().length;
     expect((await fern.post('/api/workroom/cut-sheets').send({ lineIds: [ids[1], 'someone-elses-line'] })).status).toBe(404);

@@ -36,7 +36,7 @@ import type {
 import { priceCheckSchema } from '../../../shared/schemas/business.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import type { Choices } from '../../../shared/schemas/listing.ts';
-import { isFinishedLine } from '../../../shared/schemas/order.ts';
+import { isFinishedLine, UNCUT_LINE_STATES } from '../../../shared/schemas/order.ts';
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
@@ -201,7 +201,7 @@ export function costs(deps: BusinessDeps, shop: ShopRow, orderId?: string): Cost
     const inputs: LineCostInput[] = lines.map((l) => {
       const s = l.snapshot;
       const c = listings.get(l.listingId) ?? { blankCostMinor: 0, minutesPerLayer: 0 };
-      const isCut = cut.has(l.id) && (!planned.has(l.id) || !['awaiting_proof', 'changes_requested', 'approved'].includes(l.state));
+      const isCut = cut.has(l.id) && (!planned.has(l.id) || !(UNCUT_LINE_STATES as readonly string[]).includes(l.state));
       return {
         lineId: l.id,
         totalMinor: l.totalMinor,
