@@ -90,3 +90,46 @@ describe('when approved lines are built onto cut sheets', () => {
     expect(batches).toEqual(new Set([ok[0]!.body.batchId]));
   });
 });
+
+describe('when a press card and a proof are made from a line whose layers do or do not overlap', () => {
+  const rect = (x: number, y: number, w: number, h: number) => `M${x} ${y}H${x + w}V${y + h}H${x}Z`;
+  test('then overlapping glitter under smooth is named on the proof before cutting, and separate layers are pressed in one step', async () => {
+    const [line] = await listed('awaiting_proof');
+    const mats = (await fern.get('/api/materials').query({ limit: 100 })).body.items as Array<{ id: string; kind: string; colourName: string }>;
+    const glitter = mats.find((m) => m.kind === 'glitter')!;
+    const smooth = mats.find((m) => m.kind === 'smooth')!;
+    const row = t.db.select().from(orderLines).where(eq(orderLines.id, line!.id)).get()!;
+    const withPieces = (pieces: Array<{ d: string; materialId: string }>) =>
+      t.db
+        .update(orderLines)
+        .set({ snapshot: { ...row.snapshot, geometry: { ...row.snapshot.geometry, pieces: pieces.map((p) => ({ ...p, colourHex: '#000000' })) } }, version: row.version + pieces.length })
+        .where(eq(orderLines.id, line!.id))
+        .run();
+    try {
+      // glitter first (bottom), smooth over it where the two squares share 10 × 10 mm
+      withPieces([
+        { d: rect(0, 0, 20, 20), materialId: glitter.id },
+        { d: rect(10, 10, 20, 20), materialId: smooth.id },
+      ]);
+      const proof = (await fern.get(`/api/workroom/lines/${line!.id}/proof`)).body.proof;
+      const w = proof.warnings.find((x: { code: string }) => x.code === 'top_only_covered');
+      expect(w.message).toContain(`${glitter.colourName} glitter must stay on top`);
+      const covered = (await fern.get(`/api/workroom/lines/${line!.id}/press-card`)).body.card;
+      expect(covered.groups).toEqual([[glitter.id], [smooth.id]]);
+
+      // the same two squares 20 mm apart: one step, no order warning
+      withPieces([
+        { d: rect(0, 0, 20, 20), materialId: glitter.id },
+        { d: rect(40, 0, 20, 20), materialId: smooth.id },
+        { d: rect(40, 30, 5, 5), materialId: smooth.id },
+      ]);
+      const apart = (await fern.get(`/api/workroom/lines/${line!.id}/press-card`)).body.card;
+      expect(apart.groups).toEqual([[glitter.id, smooth.id]]);
+      expect(apart.steps.map((s: { kind: string }) => s.kind)).toEqual(['pre_press', 'place', 'final_press']);
+      const proof2 = (await fern.get(`/api/workroom/lines/${line!.id}/proof`)).body.proof;
+      expect(proof2.warnings.map((x: { code: string }) => x.code)).not.toContain('top_only_covered');
+    } finally {
+      t.db.update(orderLines).set({ snapshot: row.snapshot, version: row.version }).where(eq(orderLines.id, line!.id)).run();
+    }
+  });
+});
