@@ -191,7 +191,8 @@ export type WorkSheet = {
 export type StockWarning = { materialId: string; level: 'low' | 'short'; message: string };
 export type MarkCutResult = { sheets: WorkSheet[]; linesCut: string[]; warnings: StockWarning[] };
 
-export type PressCardView = { line: WorkLine; card: PressCard };
+/** One item's press card, with its design on the blank at its size (the placement figure of the press run). */
+export type PressCardView = { line: WorkLine; card: PressCard; figure: { blank: Proof['blank']; pieces: LineSnapshot['geometry']['pieces'] } };
 
 export type WorksheetJob = { id: string; state: 'running' | 'done' | 'failed'; progress: number; pages: number | null; downloadUrl: string | null; error: string | null };
 

@@ -57,7 +57,7 @@ export function pressCardFor(db: Db, shopId: string, row: LineWithOrder, mats?: 
     backPress: shop?.backPress ?? false,
     blank: { kind: s.blank.kind, name: b.name, topOffsetMm: b.printArea.yMm },
   });
-  return { line: lineViews(db, shopId, [row])[0]!, card };
+  return { line: lineViews(db, shopId, [row])[0]!, card, figure: { blank: b, pieces: s.geometry.pieces } };
 }
 
 export function pressCards(db: Db, shopId: string, opts: { lineId?: string; state?: LineState }): PressCardView[] {
