@@ -3,6 +3,7 @@
 // JSON columns hold plain data validated by the shared zod schemas before they are written.
 import { sql } from 'drizzle-orm';
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import type { WeedingRates } from '../../shared/business/labour.ts';
 import type { StoredMotifGeometry } from '../../shared/engine/motif.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
 import type { PricedCheckout, ShipTo } from '../../shared/schemas/checkout.ts';
@@ -45,6 +46,10 @@ export const shops = sqliteTable(
     workingDays: json<number[]>('working_days').notNull().default([1, 2, 3, 4, 5]),
     daysOff: json<string[]>('days_off').notNull().default([]),
     hourlyRateMinor: integer('hourly_rate_minor').notNull().default(0),
+    /** the shop presses each item once more from the back after the final press (the press run shows the step) */
+    backPress: integer('back_press', { mode: 'boolean' }).notNull().default(false),
+    /** the shop's own weeding rates (shared/business/labour.ts); null: the default rates */
+    weedingRates: json<WeedingRates>('weeding_rates'),
     paymentAccountId: text('payment_account_id'),
     /** a change of name/description to a shop already approved, waiting for moderation (null: none) */
     pendingChange: json<ShopChange>('pending_change'),
@@ -65,6 +70,7 @@ export type PressProfile = {
   tackS: number;
   peel: 'hot' | 'warm' | 'cold' | 'hot or cold';
   topOnly: boolean;
+  coolS?: number;
 };
 export const materials = sqliteTable(
   'materials',

@@ -63,6 +63,70 @@ const PURCHASES: Array<{ daysAgo: number; items: Item[] }> = [
   },
 ];
 
+/**
+ * A Saturday's run for Fern & Fable Goods: orders that came in over the last days, every proof
+ * approved, over all four material kinds the shop stocks (smooth, glitter, flock, metallic) — a
+ * real day at the cutter and the press. Siblings' and friends' names from the demo's example names,
+ * so every line reads differently from the single-name orders above.
+ */
+const FOX = 'Autumn fox tote with a name';
+const SNOWMAN = 'Winter lights drawstring bag with snowman';
+const BALLOON = 'Spring picnic tote with hot-air balloon';
+const PUMPKIN = 'Harvest pumpkin drawstring bag with ribbon bow';
+type RunItem = [listing: string, name: string, textColour: string, motifColours: Record<string, string>, font?: string, quantity?: number];
+const SATURDAY: RunItem[][] = [
+  [
+    [FOX, 'Mira and Kai', 'Ink navy', { body: 'Fox orange' }],
+    [FOX, 'Team Theo', 'Marigold glitter', { body: 'Acorn brown' }],
+    [SNOWMAN, 'LEON', 'Silver foil', { 'hat-and-scarf': 'Berry red' }, 'bebas-neue'],
+    [SNOWMAN, 'Priya Z', 'Ink navy', { 'hat-and-scarf': 'Thread green' }],
+    [BALLOON, 'Anouk B', 'Thread green', { envelope: 'Berry red' }, 'dancing-script-bold'],
+    [PUMPKIN, 'Kai Leon', 'Pine flock', { stem: 'Thread green' }],
+    [PUMPKIN, 'Little Mira', 'Fox orange', { stem: 'Pine flock' }],
+  ],
+  [
+    [FOX, 'Theo and Zoe', 'Thread green', { body: 'Fox orange' }],
+    [FOX, 'Priya K', 'Fox orange', { body: 'Acorn brown' }, undefined, 2],
+    [SNOWMAN, 'Kai Mira', 'Berry red', { 'hat-and-scarf': 'Ink navy' }],
+    [SNOWMAN, 'Mira M', 'Marigold glitter', { 'hat-and-scarf': 'Berry red' }],
+    [BALLOON, 'Leon and Kai', 'Ink navy', { envelope: 'Thread green' }, 'patrick-hand'],
+    [BALLOON, 'Zoe', 'Fox orange', { envelope: 'Ink navy' }, 'baloo-bold'],
+    [PUMPKIN, 'Anouk T', 'Acorn brown', { stem: 'Pine flock' }, 'bangers'],
+  ],
+  [
+    [FOX, 'Kai T', 'Marigold glitter', { body: 'Fox orange' }],
+    [FOX, 'Anouk Mira', 'Ink navy', { body: 'Fox orange' }],
+    [SNOWMAN, 'THEO', 'Silver foil', { 'hat-and-scarf': 'Thread green' }, 'bebas-neue'],
+    [SNOWMAN, 'Leon P', 'Ink navy', { 'hat-and-scarf': 'Berry red' }],
+    [BALLOON, 'Priya L', 'Thread green', { envelope: 'Berry red' }, 'dancing-script-bold'],
+    [PUMPKIN, 'Zoe and Kai', 'Ink navy', { stem: 'Thread green' }],
+    [PUMPKIN, 'Mira K', 'Pine flock', { stem: 'Thread green' }, 'bangers'],
+  ],
+  [
+    [FOX, 'Leon B', 'Thread green', { body: 'Acorn brown' }],
+    [FOX, 'Theo Kai', 'Ink navy', { body: 'Fox orange' }],
+    [SNOWMAN, 'Kai and Zoe', 'Marigold glitter', { 'hat-and-scarf': 'Ink navy' }],
+    [SNOWMAN, 'MIRA', 'Berry red', { 'hat-and-scarf': 'Thread green' }, 'bebas-neue'],
+    [BALLOON, 'Theo K', 'Ink navy', { envelope: 'Berry red' }],
+    [PUMPKIN, 'Priya Leon', 'Fox orange', { stem: 'Pine flock' }],
+    [PUMPKIN, 'Anouk L', 'Pine flock', { stem: 'Thread green' }],
+  ],
+  [
+    [FOX, 'Zoe T', 'Fox orange', { body: 'Acorn brown' }],
+    [FOX, 'Kai and Theo', 'Marigold glitter', { body: 'Fox orange' }],
+    [SNOWMAN, 'ANOUK', 'Silver foil', { 'hat-and-scarf': 'Berry red' }, 'bebas-neue'],
+    [BALLOON, 'Mira Leon', 'Thread green', { envelope: 'Ink navy' }, 'patrick-hand'],
+    [BALLOON, 'Leon Zoe', 'Fox orange', { envelope: 'Thread green' }],
+    [PUMPKIN, 'Theo T', 'Acorn brown', { stem: 'Pine flock' }],
+  ],
+];
+const SATURDAY_PURCHASES = SATURDAY.map((items, k) => ({
+  daysAgo: k < 2 ? 2 : 1,
+  items: items.map(
+    ([listing, name, textColour, motifColours, font, quantity]): Item => ({ listing, name, textColour, motifColours, approved: true, ...(font ? { font } : {}), ...(quantity ? { quantity } : {}) }),
+  ),
+}));
+
 /** The payment page's form as a shopper fills it: the parcel address and the test card that pays. */
 const PAY_FORM = {
   ship_name: DEMO_SHIP_TO.name,
@@ -116,7 +180,7 @@ async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: 
   const now = deps.now();
   const at = (ms: number): AppDeps => ({ ...deps, now: () => ms });
 
-  for (const [k, purchase] of PURCHASES.entries()) {
+  for (const [k, purchase] of [...PURCHASES, ...SATURDAY_PURCHASES].entries()) {
     const paidAt = now - purchase.daysAgo * DAY - k * 3_600_000;
     const dana = { userId: buyerId, cookieCartId: null };
     const cart = resolveCart(at(paidAt - 600_000), dana, { create: true }).cart!;

@@ -89,8 +89,8 @@ export type FeeConfig = { platformFeeBps: number; paymentFeeBps: number; payment
 export const paymentFee = (chargeMinor: number, cfg: Pick<FeeConfig, 'paymentFeeBps' | 'paymentFeeFixedMinor'>): number =>
   chargeMinor <= 0 ? 0 : bpsOf(chargeMinor, cfg.paymentFeeBps) + cfg.paymentFeeFixedMinor;
 
-/** Labour of a line, exact (minutes per layer × layers × quantity at the hourly rate). */
-export const labourExact = (minutesPerLayer: number, layers: number, quantity: number, hourlyRateMinor: number): number => (minutesPerLayer * layers * quantity * hourlyRateMinor) / 60;
+/** Labour, exact: minutes of work (the weeding estimate of shared/business/labour.ts) at the hourly rate. */
+export const labourExact = (minutes: number, hourlyRateMinor: number): number => (minutes * hourlyRateMinor) / 60;
 
 // ---------------------------------------------------------------- one order's lines
 
@@ -102,7 +102,8 @@ export type LineCostInput = {
   quantity: number;
   layers: number;
   blankCostMinor: number;
-  minutesPerLayer: number;
+  /** minutes of work for all of the line's units (weedingMinutes, shared/business/labour.ts) */
+  labourMinutes: number;
   /** the actual vinyl cost when every sheet holding the line is cut; otherwise null … */
   vinylCutMinor: number | null;
   /** … and the estimate (exact, not rounded) is used */
@@ -151,7 +152,7 @@ export function orderCosts(
   const out = lines.map((l, i): LineCost => {
     const blankMinor = l.blankCostMinor * l.quantity;
     const vinylMinor = l.vinylCutMinor ?? Math.round(l.vinylEstimateExact);
-    const labourMinor = Math.round(labourExact(l.minutesPerLayer, l.layers, l.quantity, hourlyRateMinor));
+    const labourMinor = Math.round(labourExact(l.labourMinutes, hourlyRateMinor));
     const revenueMinor = l.totalMinor - l.refundedMinor;
     const costMinor = blankMinor + vinylMinor + labourMinor + platform[i]! + payment[i]!;
     return {
@@ -193,14 +194,15 @@ export function priceCheck(args: {
   priceMinor: number;
   layers: number;
   blankCostMinor: number;
-  minutesPerLayer: number;
+  /** minutes of work for one item */
+  labourMinutes: number;
   hourlyRateMinor: number;
   vinylEstimateExact: number;
   fees: FeeConfig;
 }): PriceCheck {
   const blankMinor = args.blankCostMinor;
   const vinylMinor = Math.round(args.vinylEstimateExact);
-  const labourMinor = Math.round(labourExact(args.minutesPerLayer, args.layers, 1, args.hourlyRateMinor));
+  const labourMinor = Math.round(labourExact(args.labourMinutes, args.hourlyRateMinor));
   const platformFeeMinor = platformFee(args.priceMinor, args.fees.platformFeeBps);
   const paymentFeeMinor = paymentFee(args.priceMinor, args.fees);
   const costMinor = blankMinor + vinylMinor + labourMinor + platformFeeMinor + paymentFeeMinor;

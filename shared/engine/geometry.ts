@@ -468,3 +468,17 @@ export function thinArea(polys: Polygon[], widthMm: number): number {
   const opened = offsetPolygons(regionsToPolygons(offsetPolygons(polys, -widthMm / 2, 0.1, 'miter')), widthMm / 2, 0.1);
   return Math.max(0, total - regionsArea(opened));
 }
+
+/**
+ * Area (mm²) where two shapes overlap: each a list of polygons filled under `rule` (nonzero by
+ * default, as cut pieces are), intersected with Clipper. 0 when they only touch.
+ */
+export function intersectionArea(a: Polygon[], b: Polygon[], rule: FillRule = 'nonzero'): number {
+  if (a.length === 0 || b.length === 0) return 0;
+  const c = new ClipperLib.Clipper();
+  c.AddPaths(toInt(a), ClipperLib.PolyType.ptSubject, true);
+  c.AddPaths(toInt(b), ClipperLib.PolyType.ptClip, true);
+  const tree = new ClipperLib.PolyTree();
+  c.Execute(ClipperLib.ClipType.ctIntersection, tree, fill(rule), fill(rule));
+  return regionsArea(treeToRegions(tree, []));
+}

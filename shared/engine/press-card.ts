@@ -1,17 +1,19 @@
 /**
  * Press cards: one item's pressing steps from its layers' materials and the shop's press type.
- * The rules (from memory unless DEVELOPERS.md, "Pressing", marks them): pre-press about 5 s; layers bottom →
- * top, every layer but the last gets a short tack of its own material's tack time, then its carrier
- * is peeled; a protective sheet whenever the press touches vinyl without a carrier; the final press
+ * The rules (from memory unless DEVELOPERS.md, "Pressing", marks them): pre-press about 5 s; layers in
+ * press steps from the geometry (press-order.ts: layers that don't overlap share a step, overlapping
+ * ones go bottom → top), every step but the last gets a short tack (the longest tack time of its
+ * materials), then its carriers are peeled, after a cool-down for a warm or cold peel; a protective sheet whenever the press touches vinyl without a carrier; the final press
  * at the lowest temperature every layer accepts, for the top layer's time unless the seller
  * overrides; optional back press about 15 s; warnings for non-overlapping temperatures, a top-only
- * material that isn't last, and more than 4 layers. Settings come from a seller-editable table
+ * material with an overlapping layer above it (no valid order), and more than 4 layers. Settings come from a seller-editable table
  * (press-defaults.ts, the materials table); a layer's own profile overrides it. Pure.
  * Temperatures are kept in °C; °F is derived per NIST SP 811 (t/°F = 1.8 · t/°C + 32).
  */
 import { z } from 'zod';
 import { cToF, formatLength, formatTemperature } from '../units.ts';
 import { BACK_PRESS_S, MATERIAL_KINDS, MAX_LAYERS, type MaterialKind, type Peel, PRE_PRESS_S, PRESS_DEFAULTS, type PressProfile } from './press-defaults.ts';
+import { pressOrder } from './press-order.ts';
 
 export const PRESS_TYPES = ['handheld', 'clamshell'] as const;
 export type PressType = (typeof PRESS_TYPES)[number];
@@ -24,6 +26,7 @@ export const layerProfileSchema = z.object({
   tackS: z.number().min(0).max(60).optional(),
   peel: z.enum(['hot', 'warm', 'cold', 'hot or cold']).optional(),
   topOnly: z.boolean().optional(),
+  coolS: z.number().min(0).max(120).optional(),
   /**
    * The temperatures this material accepts, if its maker gives a range. The defaults table gives
    * one temperature per press type, so without a range a layer accepts exactly that temperature.
@@ -55,6 +58,14 @@ export const pressCardInputSchema = z.object({
     topOffsetMm: z.number().min(0).max(1000),
     topOffsetFrom: z.enum(['top edge', 'collar']).optional(),
   }),
+  /**
+   * Pairs of layer ids whose vinyl overlaps, from the design's geometry (press-order.ts
+   * `layerOverlaps`). Left out: the geometry is unknown and every pair is taken to overlap.
+   */
+  overlaps: z
+    .array(z.tuple([z.string().min(1).max(128), z.string().min(1).max(128)]))
+    .max(78)
+    .optional(),
   backPress: z.boolean().optional(),
   /** The seller's own final press time, instead of the top layer's. */
   finalTimeS: z.number().min(1).max(120).optional(),
@@ -68,6 +79,8 @@ export interface PressStep {
   /** Short, printable instruction. */
   text: string;
   layerId?: string;
+  /** Every layer the step places or presses together (layers that don't overlap share a step). */
+  layerIds?: string[];
   tempC?: number;
   /** Exact conversion of tempC (NIST SP 811); round only for display. */
   tempF?: number;
@@ -75,9 +88,11 @@ export interface PressStep {
   protectiveSheet: boolean;
   /** After this step, peel the carrier of the layer just pressed: hot, warm or cold. */
   peel?: Peel;
+  /** Seconds to let it cool before a warm or cold peel (from the press tables); absent for a hot peel. */
+  coolS?: number;
 }
 
-export type PressWarningCode = 'temperatures_do_not_overlap' | 'top_only_not_last' | 'too_many_layers';
+export type PressWarningCode = 'temperatures_do_not_overlap' | 'top_only_covered' | 'too_many_layers';
 export interface PressWarning {
   code: PressWarningCode;
   message: string;
@@ -94,6 +109,7 @@ export interface ResolvedLayer {
   maxC: number;
   tackS: number;
   peel: Peel;
+  coolS: number;
   topOnly: boolean;
 }
 
@@ -107,6 +123,8 @@ export interface PressCard {
   finalTimeS: number;
   peel: Peel;
   layers: ResolvedLayer[];
+  /** Press steps bottom → top, each the layer ids pressed together (press-order.ts). */
+  groups: string[][];
   steps: PressStep[];
   warnings: PressWarning[];
   placementNote: string;
@@ -134,11 +152,24 @@ export function resolveLayer(
     maxC: Math.max(range.minC, range.maxC),
     tackS: p.tackS ?? base.tackS,
     peel: p.peel ?? base.peel,
+    coolS: p.coolS ?? base.coolS ?? 0,
     topOnly: p.topOnly ?? base.topOnly,
   };
 }
 
 const layerName = (l: ResolvedLayer) => `${l.colourName} ${l.materialKind}`;
+
+const PEEL_COOLNESS: Record<Peel, number> = { 'hot or cold': 0, hot: 1, warm: 2, cold: 3 };
+/** The peel for layers pressed together: the coolest any of them needs ('hot or cold' suits any). */
+function groupPeel(g: ResolvedLayer[]): Peel {
+  return g.reduce<Peel>((p, l) => (PEEL_COOLNESS[l.peel] > PEEL_COOLNESS[p] ? l.peel : p), 'hot or cold');
+}
+/** The cool-down before that peel: the longest of the layers that ask for a warm or cold peel. */
+function coolFor(g: ResolvedLayer[], peel: Peel): number {
+  if (peel !== 'warm' && peel !== 'cold') return 0;
+  return Math.max(0, ...g.filter((l) => l.peel === 'warm' || l.peel === 'cold').map((l) => l.coolS));
+}
+const peelWords = (peel: Peel, coolS: number) => (coolS ? `let it cool ${coolS} s, then peel ${peel}` : `peel ${peel}`);
 
 /** Placement: centred horizontally, the top of the design `topOffsetMm` below the top edge or collar. */
 export function placementNote(blank: { kind: string; name?: string; topOffsetMm: number; topOffsetFrom?: 'top edge' | 'collar' }): string {
@@ -172,12 +203,16 @@ export function pressCard(input: PressCardInput, table: Readonly<Record<Material
       layerIds: layers.filter((l) => l.maxC < lo || l.minC > hi).map((l) => l.layerId),
     });
   }
-  const misplaced = layers.slice(0, -1).filter((l) => l.topOnly);
-  if (misplaced.length) {
+  const order = pressOrder(layers, inp.overlaps ?? null);
+  const byId = new Map(layers.map((l) => [l.layerId, l]));
+  const named = (ids: string[]) => ids.map((id) => layerName(byId.get(id)!)).join(' and ');
+  for (const c of order.conflicts) {
     warnings.push({
-      code: 'top_only_not_last',
-      message: `${misplaced.map(layerName).join(', ')} must be the top layer: nothing may be pressed onto ${misplaced.length > 1 ? 'them' : 'it'}.`,
-      layerIds: misplaced.map((l) => l.layerId),
+      code: 'top_only_covered',
+      message:
+        `${named([c.layerId])} must stay on top where layers overlap, but this design puts ${named(c.coveredBy)} over it, ` +
+        'so no press order works: nothing may be pressed onto it. Change the design, or use a material that takes another layer, before cutting.',
+      layerIds: [c.layerId, ...c.coveredBy],
     });
   }
   if (layers.length > MAX_LAYERS) {
@@ -189,34 +224,50 @@ export function pressCard(input: PressCardInput, table: Readonly<Record<Material
   const steps: PressStep[] = [
     { kind: 'pre_press', text: `Pre-press the blank at ${t} for about ${PRE_PRESS_S} s to drive out moisture and flatten it; let it cool.`, ...temp, timeS: PRE_PRESS_S, protectiveSheet: false },
   ];
-  // The first layer goes down with its carrier on top; once that carrier is peeled, every later
+  // The first step's layers go down with their carriers on top; once those are peeled, every later
   // press touches bare vinyl somewhere, so it needs the protective sheet.
   let bareVinyl = false;
-  layers.forEach((l, i) => {
-    const last = i === layers.length - 1;
-    steps.push({ kind: 'place', text: `Place layer ${i + 1} of ${layers.length}: ${layerName(l)}, carrier up.`, layerId: l.layerId, protectiveSheet: false });
+  let placed = 0;
+  const groups = order.groups.map((ids) => ids.map((id) => byId.get(id)!));
+  groups.forEach((g, i) => {
+    const last = i === groups.length - 1;
+    const ids = g.map((l) => l.layerId);
+    const nums = g.map((_, k) => placed + k + 1);
+    placed += g.length;
+    const which = g.length === 1 ? `layer ${nums[0]} of ${layers.length}` : `layers ${nums.join(', ')} of ${layers.length} together (they don't overlap)`;
+    steps.push({ kind: 'place', text: `Place ${which}: ${named(ids)}, carrier up.`, layerId: ids[0], layerIds: ids, protectiveSheet: false });
     if (!last) {
+      const tackS = Math.max(...g.map((l) => l.tackS));
+      const peel = groupPeel(g);
+      const coolS = coolFor(g, peel);
       steps.push({
         kind: 'tack',
-        text: `Tack ${layerName(l)} for ${l.tackS} s at ${t}${bareVinyl ? ' under a protective sheet' : ''}; peel its carrier ${l.peel}.`,
-        layerId: l.layerId,
+        text: `Tack ${named(ids)} for ${tackS} s at ${t}${bareVinyl ? ' under a protective sheet' : ''}; ${peelWords(peel, coolS)}.`,
+        layerId: ids[0],
+        layerIds: ids,
         ...temp,
-        timeS: l.tackS,
+        timeS: tackS,
         protectiveSheet: bareVinyl,
-        peel: l.peel,
+        peel,
+        ...(coolS ? { coolS } : {}),
       });
       bareVinyl = true;
     }
   });
-  const finalTimeS = inp.finalTimeS ?? top.timeS;
+  const topGroup = groups.at(-1)!;
+  const finalTimeS = inp.finalTimeS ?? Math.max(...topGroup.map((l) => l.timeS));
+  const finalPeel = groupPeel(topGroup);
+  const finalCool = coolFor(topGroup, finalPeel);
   steps.push({
     kind: 'final_press',
-    text: `Final press at ${t} for ${finalTimeS} s${bareVinyl ? ' under a protective sheet' : ''}; peel ${top.peel}. If the vinyl lifts, let it cool and peel again — more heat is not the fix.`,
-    layerId: top.layerId,
+    text: `Final press at ${t} for ${finalTimeS} s${bareVinyl ? ' under a protective sheet' : ''}; ${peelWords(finalPeel, finalCool)}. If the vinyl lifts, let it cool and peel again — more heat is not the fix.`,
+    layerId: topGroup[0]!.layerId,
+    layerIds: topGroup.map((l) => l.layerId),
     ...temp,
     timeS: finalTimeS,
     protectiveSheet: bareVinyl,
-    peel: top.peel,
+    peel: finalPeel,
+    ...(finalCool ? { coolS: finalCool } : {}),
   });
   if (inp.backPress) {
     steps.push({
@@ -240,8 +291,9 @@ export function pressCard(input: PressCardInput, table: Readonly<Record<Material
     ...temp,
     tempLabel: t,
     finalTimeS,
-    peel: top.peel,
+    peel: finalPeel,
     layers,
+    groups: order.groups,
     steps,
     warnings,
     placementNote: placementNote(inp.blank),

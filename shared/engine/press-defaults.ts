@@ -14,16 +14,18 @@ export interface PressProfile {
   /** short tack between layers, when this material is not the top layer */
   tackS: number;
   peel: Peel;
-  /** nothing may be pressed onto this material: it must be the top layer */
+  /** nothing may be pressed onto this material where layers overlap: it must be on top there */
   topOnly: boolean;
+  /** seconds to let it cool before a warm or cold peel (0 for a hot peel); optional in stored profiles */
+  coolS?: number;
 }
 
 export const PRESS_DEFAULTS: Readonly<Record<MaterialKind, PressProfile>> = Object.freeze({
-  smooth: { handheld: { tempC: 157, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'hot', topOnly: false },
-  glitter: { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot or cold', topOnly: true },
-  flock: { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot', topOnly: true },
-  metallic: { handheld: { tempC: 150, timeS: 25 }, clamshell: { tempC: 150, timeS: 10 }, tackS: 2, peel: 'cold', topOnly: true },
-  patterned: { handheld: { tempC: 155, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'warm', topOnly: true },
+  smooth: { handheld: { tempC: 157, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'hot', topOnly: false, coolS: 0 },
+  glitter: { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot or cold', topOnly: true, coolS: 0 },
+  flock: { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot', topOnly: true, coolS: 0 },
+  metallic: { handheld: { tempC: 150, timeS: 25 }, clamshell: { tempC: 150, timeS: 10 }, tackS: 2, peel: 'cold', topOnly: true, coolS: 30 },
+  patterned: { handheld: { tempC: 155, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'warm', topOnly: true, coolS: 10 },
 });
 
 /** A fresh copy of the default profile for a kind (callers may edit it). */

@@ -1,6 +1,7 @@
 /** The seller's business view: working calendar, due lines, costs, price check, ledger, charts. */
 import { z } from 'zod';
 import type { CostTotals, LineCost, PriceCheck } from '../business/costs.ts';
+import { type WeedingRates, weedingRatesSchema } from '../business/labour.ts';
 import type { LedgerEntry, MonthBalance } from '../business/ledger.ts';
 import type { ShipMark } from '../business/marks.ts';
 import type { NeedMark } from '../business/needed-by.ts';
@@ -22,6 +23,8 @@ export const businessSettingsSchema = z
       .max(200, 'At most 200 days off.')
       .transform((d) => [...new Set(d)].sort()),
     hourlyRateMinor: z.number({ error: 'Enter an hourly rate.' }).int('Whole cents.').min(0, 'Cannot be negative.').max(1_000_000, 'That is too much.'),
+    /** the rates the weeding minutes are estimated at (shared/business/labour.ts) */
+    weedingRates: weedingRatesSchema,
     processingDays: z.number({ error: 'Enter the processing days.' }).int('Whole days.').min(1, 'At least 1 day.').max(60, 'At most 60 days.'),
   })
   .partial()
@@ -32,6 +35,7 @@ export type BusinessSettings = {
   workingDays: number[];
   daysOff: string[];
   hourlyRateMinor: number;
+  weedingRates: WeedingRates;
   processingDays: number;
   currency: string;
   timeZone: string;

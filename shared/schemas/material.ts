@@ -22,6 +22,8 @@ export const pressProfileSchema = z.object({
   tackS: z.number().min(0).max(60),
   peel: z.enum(['hot', 'warm', 'cold', 'hot or cold']),
   topOnly: z.boolean(),
+  /** seconds to cool before a warm or cold peel; profiles saved before it was asked for have none */
+  coolS: z.number({ error: 'Enter a time in seconds.' }).min(0, 'Cannot be negative.').max(120, 'At most 120 s.').optional(),
 });
 
 const fields = {

@@ -4,7 +4,7 @@ import type { LineSnapshot } from './cart.ts';
 import type { ShipTo } from './checkout.ts';
 import { pageQuery } from './pagination.ts';
 
-export const LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped', 'cancelled', 'refunded'] as const;
+export const LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'planned', 'cut', 'pressed', 'shipped', 'cancelled', 'refunded'] as const;
 export type LineState = (typeof LINE_STATES)[number];
 
 /** Who moves a line: the shop that makes it, the shopper who bought it, an admin, or the app itself. */
@@ -18,7 +18,9 @@ export type LineActor = 'shop' | 'shopper' | 'admin' | 'system';
 export const LINE_TRANSITIONS: Record<LineState, Partial<Record<LineState, readonly LineActor[]>>> = {
   awaiting_proof: { approved: ['shop'], changes_requested: ['shop'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
   changes_requested: { awaiting_proof: ['shopper'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
-  approved: { cut: ['shop'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
+  // on a cut sheet that is built but not cut yet: `planned`; discarding its batch brings it back to `approved`
+  approved: { planned: ['shop'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
+  planned: { cut: ['shop'], approved: ['shop'], cancelled: ['shop', 'admin'], refunded: ['shop', 'admin', 'system'] },
   cut: { pressed: ['shop'], refunded: ['shop', 'admin', 'system'] },
   pressed: { shipped: ['shop'], refunded: ['shop', 'admin', 'system'] },
   shipped: { refunded: ['shop', 'admin', 'system'] },
@@ -32,7 +34,7 @@ export const FIRST_LINE_STATE = 'awaiting_proof' satisfies LineState;
 /** States where the work on a line is over: shipped, or never to be (the table leads nowhere near `shipped` from them). */
 export const FINISHED_LINE_STATES = ['shipped', 'cancelled', 'refunded'] as const satisfies readonly LineState[];
 /** States where the line's vinyl is still to be cut (the table can still lead to `cut`). */
-export const UNCUT_LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved'] as const satisfies readonly LineState[];
+export const UNCUT_LINE_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'planned'] as const satisfies readonly LineState[];
 /** Is the work on a line in `state` over? */
 export const isFinishedLine = (state: string): boolean => (FINISHED_LINE_STATES as readonly string[]).includes(state);
 
@@ -44,6 +46,7 @@ export const LINE_STATE_LABELS: Record<LineState, string> = {
   awaiting_proof: 'Waiting for the proof check',
   changes_requested: 'Changes requested',
   approved: 'Proof approved',
+  planned: 'Cutting planned',
   cut: 'Vinyl cut',
   pressed: 'Pressed',
   shipped: 'Shipped',

@@ -21,6 +21,8 @@ export const shopSettingsSchema = z
     shippingMinor: z.number({ error: 'Enter the shipping price.' }).int('Whole cents.').min(0, 'Cannot be negative.').max(100_000, 'That is too much.'),
     returnPolicy: z.string().trim().max(2000, 'Use at most 2,000 characters.'),
     pressType: z.enum(['handheld', 'clamshell']),
+    /** press every item once more from the back after the final press */
+    backPress: z.boolean(),
   })
   .partial()
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change.' });
@@ -41,6 +43,7 @@ export type OwnShop = {
   shippingMinor: number;
   returnPolicy: string;
   pressType: 'handheld' | 'clamshell';
+  backPress: boolean;
   logoUrl: string | null;
   /**
    * A new name/description of an approved shop, waiting for moderation (`name`/`description` above

@@ -14,7 +14,7 @@ import { type Page, pageQuery } from './pagination.ts';
 export { LINE_STATES, type LineState };
 
 /** The states the workroom counts and filters on (DEVELOPERS.md, "Order-line states"), in production order. */
-export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'cut', 'pressed', 'shipped'] as const satisfies readonly LineState[];
+export const WORK_STATES = ['awaiting_proof', 'changes_requested', 'approved', 'planned', 'cut', 'pressed', 'shipped'] as const satisfies readonly LineState[];
 
 const id = z.string().trim().min(1).max(64);
 export const idParams = z.object({ id });
@@ -191,7 +191,8 @@ export type WorkSheet = {
 export type StockWarning = { materialId: string; level: 'low' | 'short'; message: string };
 export type MarkCutResult = { sheets: WorkSheet[]; linesCut: string[]; warnings: StockWarning[] };
 
-export type PressCardView = { line: WorkLine; card: PressCard };
+/** One item's press card, with its design on the blank at its size (the placement figure of the press run). */
+export type PressCardView = { line: WorkLine; card: PressCard; figure: { blank: Proof['blank']; pieces: LineSnapshot['geometry']['pieces'] } };
 
 export type WorksheetJob = { id: string; state: 'running' | 'done' | 'failed'; progress: number; pages: number | null; downloadUrl: string | null; error: string | null };
 

@@ -38,6 +38,8 @@ export const router = createBrowserRouter([
       {
         element: <RequireAuth roles={['seller']} />,
         children: [
+          // the press run fills the screen of a tablet beside the press: no site navigation
+          { path: paths.workroomPressRun.path, lazy: async () => ({ Component: (await import('./routes/workroom/press-run.tsx')).PressRunPage }) },
           {
             // the seller's navigation stays above every seller page, also while one loads
             element: <SellerLayout />,

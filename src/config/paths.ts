@@ -37,6 +37,7 @@ export const paths = {
   workroomProof: { path: '/workroom/lines/:lineId', getHref: (lineId: string) => `/workroom/lines/${encodeURIComponent(lineId)}` },
   workroomCutSheets: { path: '/workroom/cut-sheets', getHref: (batchId?: string) => withQuery('/workroom/cut-sheets', { batch: batchId }) },
   workroomPress: { path: '/workroom/press', getHref: () => '/workroom/press' },
+  workroomPressRun: { path: '/workroom/press/run', getHref: () => '/workroom/press/run' },
   workroomStock: { path: '/workroom/stock', getHref: () => '/workroom/stock' },
   seller: {
     shop: { path: '/workroom/shop', getHref: () => '/workroom/shop' },

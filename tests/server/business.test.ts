@@ -8,6 +8,7 @@ import { checkouts, cutSheets, jobRuns, orderLines, orders, shops, user } from '
 import { runDigest } from '../../server/features/business/digest.ts';
 import { createOrdersForCheckout, type PricedShop } from '../../server/features/orders/orders.service.ts';
 import { sheetCostShares } from '../../shared/business/costs.ts';
+import { DEFAULT_WEEDING_RATES, weedingMinutes, weedingWork } from '../../shared/business/labour.ts';
 import { parsePathData, pathArea } from '../../shared/engine/path.ts';
 import type { BusinessSettings, ChartsView, CostsView, DueView, LedgerView, PriceCheckResult } from '../../shared/schemas/business.ts';
 import type { SellerListing } from '../../shared/schemas/listing.ts';
@@ -160,9 +161,19 @@ describe('cost of goods (Must show)', () => {
       expect(o.totals.platformFeeMinor).toBe(order.platformFeeMinor);
       expect(o.totals.shippingMinor).toBe(order.shippingMinor);
     }
-    // labour: the listing's minutes per layer × layers × 18.00/h, rounded once
+    // labour: the weeding minutes of the line's own pieces at the shop's rates × 18.00/h, rounded once
     const one = lines[0]!;
     expect(one.labourMinor).toBeGreaterThan(0);
+    const row = t.db.select().from(orderLines).where(eq(orderLines.id, one.lineId)).get()!;
+    const work = weedingWork(row.snapshot.geometry.pieces.map((p) => p.d));
+    expect(one.labourMinor).toBe(Math.round((weedingMinutes(work, row.quantity) * 1800) / 60));
+    // slower rates set by the seller: the labour follows them (a minute per piece and per counter, nothing else)
+    const slow = { secondsPerPiece: 60, secondsPerCounter: 60, secondsPerSmallPart: 0, secondsPerMetre: 0 };
+    expect((await fern.patch('/api/business/settings').send({ weedingRates: slow })).body.settings.weedingRates).toEqual(slow);
+    const slower = ((await fern.get('/api/business/costs')).body as CostsView).orders.flatMap((o) => o.lines).find((l) => l.lineId === one.lineId)!;
+    expect(slower.labourMinor).toBe(Math.round(((work.pieces + work.counters) * row.quantity * 1800) / 60));
+    expect((await fern.patch('/api/business/settings').send({ weedingRates: { ...slow, secondsPerMetre: -1 } })).status).toBe(400);
+    await fern.patch('/api/business/settings').send({ weedingRates: DEFAULT_WEEDING_RATES });
     const single = (await fern.get(`/api/business/orders/${made[0]!.orderId}/costs`)).body.order;
     expect(single.lines[0].vinylMinor).toBe(one.vinylMinor);
     expect((await comet.get(`/api/business/orders/${made[0]!.orderId}/costs`)).status).toBe(404);
@@ -180,7 +191,7 @@ describe('cost of goods (Must show)', () => {
 describe('price check', () => {
   test('when the price is far too low, then the margin is negative and the longest name is warned about', async () => {
     const listing = (await fern.get('/api/seller/listings')).body.items[0] as SellerListing;
-    const draft = { ...listing.draft, basePriceMinor: 100, blankCostMinor: 450 };
+    const draft = { ...listing.draft, basePriceMinor: 100, blankCostMinor: 2500 };
     const res = await fern.post('/api/business/price-check').send({ draft, sampleName: 'Mira' });
     expect(res.status).toBe(200);
     const r = res.body as PriceCheckResult;

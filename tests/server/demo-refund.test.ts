@@ -20,7 +20,8 @@ afterAll(async () => t?.close());
 describe('demo orders', () => {
   it('when seeded, then every demo order is paid at the provider, paid out to the shop and in the states the workroom expects', async () => {
     const all = t.db.select().from(orders).all();
-    expect(all).toHaveLength(4);
+    // four single-name purchases and the five of the Saturday run
+    expect(all).toHaveLength(9);
     for (const o of all) {
       const c = t.db.select().from(checkouts).where(eq(checkouts.id, o.checkoutId)).get()!;
       const pi = await stripe.paymentIntents.retrieve(c.paymentIntentId!);
@@ -37,7 +38,7 @@ describe('demo orders', () => {
       .from(orderLines)
       .all()
       .map((l) => l.state);
-    expect(states.filter((s) => s === 'approved')).toHaveLength(7);
+    expect(states.filter((s) => s === 'approved')).toHaveLength(41);
     expect(states.filter((s) => s === 'awaiting_proof')).toHaveLength(3);
   });
 

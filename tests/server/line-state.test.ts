@@ -99,7 +99,8 @@ describe('when any move is tried from any state by any actor', () => {
     expect(canMoveLine('awaiting_proof', 'approved', 'shop')).toBe(true);
     expect(canMoveLine('awaiting_proof', 'changes_requested', 'shop')).toBe(true);
     expect(canMoveLine('changes_requested', 'awaiting_proof', 'shopper')).toBe(true);
-    expect(canMoveLine('approved', 'cut', 'shop')).toBe(true);
+    expect(canMoveLine('approved', 'planned', 'shop')).toBe(true);
+    expect(canMoveLine('planned', 'cut', 'shop')).toBe(true);
     expect(canMoveLine('cut', 'pressed', 'shop')).toBe(true);
     expect(canMoveLine('pressed', 'shipped', 'shop')).toBe(true);
     // no skipping steps, no going back, nobody else doing the shop's work, nothing after the end
@@ -109,6 +110,14 @@ describe('when any move is tried from any state by any actor', () => {
     expect(canMoveLine('awaiting_proof', 'approved', 'shopper')).toBe(false);
     expect(canMoveLine('refunded', 'shipped', 'admin')).toBe(false);
     expect(canMoveLine('cancelled', 'awaiting_proof', 'shopper')).toBe(false);
+    // a line is cut only from a built cut sheet: approved → planned → cut, never straight to cut;
+    // discarding the batch brings a planned line back to approved, and only the shop does either
+    expect(canMoveLine('approved', 'cut', 'shop')).toBe(false);
+    expect(canMoveLine('planned', 'approved', 'shop')).toBe(true);
+    expect(canMoveLine('planned', 'approved', 'shopper')).toBe(false);
+    expect(canMoveLine('planned', 'planned', 'shop')).toBe(false);
+    expect(canMoveLine('planned', 'pressed', 'shop')).toBe(false);
+    expect(canMoveLine('planned', 'refunded', 'system')).toBe(true);
     // a cut item can be refunded but no longer cancelled (the vinyl is used)
     expect(canMoveLine('cut', 'cancelled', 'shop')).toBe(false);
     expect(canMoveLine('cut', 'refunded', 'admin')).toBe(true);

@@ -16,11 +16,11 @@ afterAll(async () => t.close());
 describe('materials', () => {
   // The press defaults (DEVELOPERS.md, "Pressing"; from memory / common practice): reproduced exactly
   it.each([
-    ['smooth', { handheld: { tempC: 157, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'hot', topOnly: false }],
-    ['glitter', { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot or cold', topOnly: true }],
-    ['flock', { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot', topOnly: true }],
-    ['metallic', { handheld: { tempC: 150, timeS: 25 }, clamshell: { tempC: 150, timeS: 10 }, tackS: 2, peel: 'cold', topOnly: true }],
-    ['patterned', { handheld: { tempC: 155, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'warm', topOnly: true }],
+    ['smooth', { handheld: { tempC: 157, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'hot', topOnly: false, coolS: 0 }],
+    ['glitter', { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot or cold', topOnly: true, coolS: 0 }],
+    ['flock', { handheld: { tempC: 160, timeS: 30 }, clamshell: { tempC: 160, timeS: 15 }, tackS: 5, peel: 'hot', topOnly: true, coolS: 0 }],
+    ['metallic', { handheld: { tempC: 150, timeS: 25 }, clamshell: { tempC: 150, timeS: 10 }, tackS: 2, peel: 'cold', topOnly: true, coolS: 30 }],
+    ['patterned', { handheld: { tempC: 155, timeS: 30 }, clamshell: { tempC: 155, timeS: 10 }, tackS: 2, peel: 'warm', topOnly: true, coolS: 10 }],
   ])('when a %s material is added without a press profile, then the default row for its kind is filled in (°C stored)', async (kind, profile) => {
     const m = await makeMaterial(a, { kind });
     expect(m.pressProfile).toEqual(profile);

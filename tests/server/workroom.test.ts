@@ -40,12 +40,14 @@ const byText = async (text: string, state?: string) => {
 const stockOf = (id: string) => t.db.select().from(materials).where(eq(materials.id, id)).get()!.stockMm;
 
 describe('demo data', () => {
-  test('when the demo is seeded, then Fern has ≥ 8 paid lines, ≥ 6 approved, some awaiting proof, over ≥ 2 materials, with 8 % fees', async () => {
+  test("when the demo is seeded, then Fern has a Saturday's run: ≥ 40 approved lines over ≥ 4 materials, some awaiting proof, with 8 % fees", async () => {
     const all = await lines();
-    expect(all.length).toBeGreaterThanOrEqual(8);
-    expect(all.filter((l) => l.state === 'approved').length).toBeGreaterThanOrEqual(6);
+    const approved = all.filter((l) => l.state === 'approved');
+    expect(approved.length).toBeGreaterThanOrEqual(40);
     expect(all.some((l) => l.state === 'awaiting_proof')).toBe(true);
-    expect(new Set(all.flatMap((l) => l.materials.map((m) => m.id))).size).toBeGreaterThanOrEqual(2);
+    expect(new Set(approved.flatMap((l) => l.materials.map((m) => m.id))).size).toBeGreaterThanOrEqual(4);
+    // every material kind the shop stocks is in the run (the cut sheets and the press run see them all)
+    expect(new Set(approved.flatMap((l) => l.materials.map((m) => m.kind)))).toEqual(new Set(['smooth', 'glitter', 'flock', 'metallic']));
     // real geometry from the engine: every line has pieces with path data
     const row = t.db.select().from(orderLines).where(eq(orderLines.id, all[0]!.id)).get()!;
     expect(row.snapshot.geometry.pieces.length).toBeGreaterThan(0);
@@ -83,6 +85,9 @@ describe('access', () => {
     expect((await comet.get(sheet.svgUrl)).status).toBe(404);
     expect((await comet.post(`/api/workroom/cut-sheets/${sheet.id}/cut`)).status).toBe(404);
     expect((await comet.post(`/api/workroom/batches/${mine.body.batchId}/worksheet`).send({ paper: 'A4' })).status).toBe(404);
+    expect((await comet.post(`/api/workroom/batches/${mine.body.batchId}/discard`)).status).toBe(404);
+    // Fern's own discard puts the line back to approved for the tests below
+    expect((await fern.post(`/api/workroom/batches/${mine.body.batchId}/discard`)).status).toBe(200);
     // an own id mixed with one that is not Fern's: still 404, nothing made
     const count = t.db.select().from(cutSheets).all().length;
     expect((await fern.post('/api/workroom/cut-sheets').send({ lineIds: [ids[1], 'someone-elses-line'] })).status).toBe(404);

@@ -60,14 +60,14 @@ describe('cost and margin of an order', () => {
     const r = orderCosts(
       order,
       [
-        { lineId: 'a', totalMinor: 2400, refundedMinor: 0, quantity: 1, layers: 2, blankCostMinor: 480, minutesPerLayer: 7, vinylCutMinor: 412, vinylEstimateExact: 0 },
-        { lineId: 'b', totalMinor: 1350, refundedMinor: 0, quantity: 1, layers: 1, blankCostMinor: 300, minutesPerLayer: 7, vinylCutMinor: null, vinylEstimateExact: 87.6 },
+        { lineId: 'a', totalMinor: 2400, refundedMinor: 0, quantity: 1, layers: 2, blankCostMinor: 480, labourMinutes: 14, vinylCutMinor: 412, vinylEstimateExact: 0 },
+        { lineId: 'b', totalMinor: 1350, refundedMinor: 0, quantity: 1, layers: 1, blankCostMinor: 300, labourMinutes: 7, vinylCutMinor: null, vinylEstimateExact: 87.6 },
       ],
       fees,
       1800,
     );
     const [a, b] = r.lines;
-    // labour: 7 min × 2 layers at 18.00/h = 4.20; 7 min × 1 layer = 2.10
+    // labour: 14 min at 18.00/h = 4.20; 7 min = 2.10
     expect(a!.labourMinor).toBe(420);
     expect(b!.labourMinor).toBe(210);
     expect(b!.vinylMinor).toBe(88);
@@ -88,7 +88,7 @@ describe('cost and margin of an order', () => {
   test('when a line was refunded, then its revenue drops by the refund', () => {
     const r = orderCosts(
       { totalMinor: 2000, shippingMinor: 0, platformFeeMinor: 160 },
-      [{ lineId: 'a', totalMinor: 2000, refundedMinor: 2000, quantity: 1, layers: 1, blankCostMinor: 400, minutesPerLayer: 0, vinylCutMinor: 0, vinylEstimateExact: 0 }],
+      [{ lineId: 'a', totalMinor: 2000, refundedMinor: 2000, quantity: 1, layers: 1, blankCostMinor: 400, labourMinutes: 0, vinylCutMinor: 0, vinylEstimateExact: 0 }],
       fees,
       0,
     );
@@ -110,7 +110,7 @@ describe('estimates and the price check', () => {
       priceMinor: 800,
       layers: 2,
       blankCostMinor: 600,
-      minutesPerLayer: 6,
+      labourMinutes: 12,
       hourlyRateMinor: 2000,
       vinylEstimateExact: 49.5,
       fees: { platformFeeBps: 800, paymentFeeBps: 290, paymentFeeFixedMinor: 30 },
@@ -132,7 +132,7 @@ describe('estimates and the price check', () => {
         priceMinor,
         layers: 1,
         blankCostMinor: 0,
-        minutesPerLayer: 0,
+        labourMinutes: 0,
         hourlyRateMinor: 0,
         vinylEstimateExact: 0,
         fees: { platformFeeBps, paymentFeeBps: 0, paymentFeeFixedMinor: 0 },

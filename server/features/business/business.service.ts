@@ -13,6 +13,7 @@ import {
   sheetCostShares,
   sumCosts,
 } from '../../../shared/business/costs.ts';
+import { DEFAULT_WEEDING_RATES, type WeedingRates, type WeedingWork, weedingMinutes, weedingRatesSchema, weedingWork } from '../../../shared/business/labour.ts';
 import { balanceByMonth, type LedgerEntry, type LedgerKind, ledgerCsv, monthOf, signForShop } from '../../../shared/business/ledger.ts';
 import { compareByShipBy, shipMark } from '../../../shared/business/marks.ts';
 import { needMark } from '../../../shared/business/needed-by.ts';
@@ -37,7 +38,7 @@ import type {
 import { priceCheckSchema } from '../../../shared/schemas/business.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import type { Choices } from '../../../shared/schemas/listing.ts';
-import { isFinishedLine } from '../../../shared/schemas/order.ts';
+import { isFinishedLine, UNCUT_LINE_STATES } from '../../../shared/schemas/order.ts';
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
@@ -70,6 +71,7 @@ export function settings(deps: BusinessDeps, shop: ShopRow): BusinessSettings {
     workingDays: [...cal.workingDays],
     daysOff: [...cal.daysOff],
     hourlyRateMinor: shop.hourlyRateMinor,
+    weedingRates: ratesOf(shop),
     processingDays: shop.processingDays,
     currency: shop.currency,
     timeZone: deps.env.BUSINESS_TIME_ZONE,
@@ -86,6 +88,7 @@ export function updateSettings(deps: BusinessDeps, shop: ShopRow, input: Busines
   if (input.workingDays) set.workingDays = input.workingDays as number[];
   if (input.daysOff) set.daysOff = input.daysOff as string[];
   if (input.hourlyRateMinor !== undefined) set.hourlyRateMinor = input.hourlyRateMinor;
+  if (input.weedingRates) set.weedingRates = input.weedingRates as WeedingRates;
   if (input.processingDays !== undefined) set.processingDays = input.processingDays;
   const calendarChanged = !!(input.workingDays || input.daysOff || input.processingDays !== undefined);
   deps.db.transaction((tx) => {
@@ -143,11 +146,11 @@ export function due(deps: BusinessDeps, shop: ShopRow, today = todayOf(deps)): D
 
 // ---------------------------------------------------------------- cost of goods
 
-type ListingCosting = { blankCostMinor: number; minutesPerLayer: number };
+type ListingCosting = { blankCostMinor: number };
 
 function costingOf(content: unknown): ListingCosting {
   const c = (content ?? {}) as Partial<ListingCosting>;
-  return { blankCostMinor: typeof c.blankCostMinor === 'number' ? c.blankCostMinor : 0, minutesPerLayer: typeof c.minutesPerLayer === 'number' ? c.minutesPerLayer : 0 };
+  return { blankCostMinor: typeof c.blankCostMinor === 'number' ? c.blankCostMinor : 0 };
 }
 
 /** Every cut sheet's cost shared by piece area: line id → vinyl cost (minor) and whether sheets of it are still planned. */
@@ -185,6 +188,24 @@ export function snapshotPieces(s: LineSnapshot) {
   });
 }
 
+/** The shop's weeding rates, or the defaults. */
+const ratesOf = (shop: ShopRow): WeedingRates => {
+  const r = weedingRatesSchema.safeParse(shop.weedingRates);
+  return r.success ? r.data : DEFAULT_WEEDING_RATES;
+};
+/** A line's weeding work; its pieces never change within a version, so it is kept per line version. */
+const workMemo = new Map<string, WeedingWork>();
+function lineWork(l: LineRow): WeedingWork {
+  const key = `${l.id}:${l.version}`;
+  let w = workMemo.get(key);
+  if (!w) {
+    w = weedingWork((l.snapshot.geometry?.pieces ?? []).map((p) => p.d));
+    if (workMemo.size >= 5000) workMemo.delete(workMemo.keys().next().value!);
+    workMemo.set(key, w);
+  }
+  return w;
+}
+
 const priceMap = (mats: Array<{ id: string; rollWidthMm: number; pricePerMetreMinor: number }>) =>
   new Map<string, MaterialPrice>(mats.map((m) => [m.id, { rollWidthMm: m.rollWidthMm, pricePerMetreMinor: m.pricePerMetreMinor }]));
 
@@ -205,8 +226,8 @@ export function costs(deps: BusinessDeps, shop: ShopRow, orderId?: string): Cost
   const orders: OrderCostView[] = [...byOrder.values()].map(({ order, lines }) => {
     const inputs: LineCostInput[] = lines.map((l) => {
       const s = l.snapshot;
-      const c = listings.get(l.listingId) ?? { blankCostMinor: 0, minutesPerLayer: 0 };
-      const isCut = cut.has(l.id) && (!planned.has(l.id) || !['awaiting_proof', 'changes_requested', 'approved'].includes(l.state));
+      const c = listings.get(l.listingId) ?? { blankCostMinor: 0 };
+      const isCut = cut.has(l.id) && (!planned.has(l.id) || !(UNCUT_LINE_STATES as readonly string[]).includes(l.state));
       return {
         lineId: l.id,
         totalMinor: l.totalMinor,
@@ -214,7 +235,7 @@ export function costs(deps: BusinessDeps, shop: ShopRow, orderId?: string): Cost
         quantity: l.quantity,
         layers: s.geometry?.layerCount ?? 1,
         blankCostMinor: c.blankCostMinor,
-        minutesPerLayer: c.minutesPerLayer,
+        labourMinutes: weedingMinutes(lineWork(l), l.quantity, ratesOf(shop)),
         vinylCutMinor: isCut ? cut.get(l.id)! : null,
         vinylEstimateExact: estimateVinyl(snapshotPieces(s), l.quantity, mats).costExact,
       };
@@ -268,7 +289,7 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
       priceMinor: snapshot.unitPriceMinor,
       layers: snapshot.geometry.layerCount,
       blankCostMinor: draft.blankCostMinor,
-      minutesPerLayer: draft.minutesPerLayer,
+      labourMinutes: weedingMinutes(weedingWork(snapshot.geometry.pieces.map((pc) => pc.d)), 1, ratesOf(shop)),
       hourlyRateMinor: shop.hourlyRateMinor,
       vinylEstimateExact: estimateVinyl(snapshotPieces(snapshot), 1, prices).costExact,
       fees,
@@ -291,7 +312,7 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
     warnings.push(
       `The longest name this listing allows (${[...longest.name].length} letters, e.g. “${longest.name}”) leaves a margin of ${money(longest.marginMinor)}: raise the price or shorten the maximum length.`,
     );
-  if (draft.minutesPerLayer > 0 && shop.hourlyRateMinor === 0) warnings.push('Your hourly rate is 0, so labour counts as free. Set it in Business settings.');
+  if (shop.hourlyRateMinor === 0) warnings.push('Your hourly rate is 0, so labour counts as free. Set it in Business settings.');
   const unpriced = [...new Set(Object.values(p.textFields.flatMap((f) => f.colourChoices)))].filter((id) => prices.get(id)?.pricePerMetreMinor === 0);
   if (unpriced.length) warnings.push('Some colours offered have no price per metre yet, so their vinyl counts as free. Add prices on the Materials page.');
   return { currency: shop.currency, sample, longest, warnings };

@@ -19,6 +19,7 @@ export function toOwnShop(s: ShopRow): OwnShop {
     shippingMinor: s.shippingMinor,
     returnPolicy: s.returnPolicy,
     pressType: s.pressType as OwnShop['pressType'],
+    backPress: s.backPress,
     logoUrl: uploadUrl(s.logoPath),
     pendingChange: s.pendingChange ?? null,
     changeRejectionReason: s.changeRejectionReason,

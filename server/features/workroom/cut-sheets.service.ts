@@ -1,6 +1,7 @@
 // Cut sheets: approved lines' pieces nested per material on the roll, their SVG for the cutter,
 // and marking sheets cut — which takes the vinyl from stock and moves a line to `cut` once all its
-// pieces are cut (through orders' transition()).
+// pieces are cut (through orders' transition()). Building moves its lines to `planned`, so they are
+// not offered again; discarding a batch that is not cut brings them back to `approved`.
 import crypto from 'node:crypto';
 import { cutOutline } from '../../../shared/engine/cut-path.ts';
 import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
@@ -12,7 +13,7 @@ import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
 import type { RawPiece } from '../../workers/tasks.ts';
 import { TRIM_ALLOWANCE_MM } from '../../workers/worksheet-pdf.ts';
-import { assertEachCanMove, transition } from '../orders/index.ts';
+import { assertEachCanMove, transition, transitionAll } from '../orders/index.ts';
 import { lineSnapshot, type WorkroomDeps, type WorkroomPoolDeps } from './lines.service.ts';
 import { type MaterialRow, workroomRepo as repo, type SheetRow } from './workroom.repo.ts';
 
@@ -74,14 +75,15 @@ export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string
  * roll width), 6 mm gap and margins, rotation allowed (shared/engine/cut-sheets.ts). A line with
  * quantity n gives its pieces n times. All sheets of one call share a batch id.
  */
-export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, lineIds: string[]): Promise<{ batchId: string; sheets: WorkSheet[] }> {
+export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, actorId: string, lineIds: string[]): Promise<{ batchId: string; sheets: WorkSheet[] }> {
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
-  // a line goes on a sheet when cutting is its next move
+  assertNotPlanned(db, shopId, rows);
+  // a line goes on a sheet when planning its cut is its next move
   assertEachCanMove(
     rows.map((r) => ({ id: r.line.id, state: r.line.state, name: r.order.number })),
-    'cut',
+    'planned',
     'shop',
     'Only approved lines go on cut sheets',
   );
@@ -123,40 +125,114 @@ export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, lin
   const batchId = crypto.randomUUID();
   const at = deps.now();
   const made: SheetRow[] = [];
-  for (const g of groups.values()) {
-    const nested = nestedByMaterial.get(g.material.id)!;
-    const paths = new Map(g.pieces.map((p) => [p.id, p.path]));
-    for (const n of nested) {
-      const row = {
-        id: crypto.randomUUID(),
-        shopId,
-        materialId: g.material.id,
-        batchId,
-        rollWidthMm: n.rollWidthMm,
-        lengthMm: r3(n.lengthMm),
-        utilisation: n.utilisation,
-        pieces: n.placements.map(
-          (pl): StoredSheetPiece => ({
-            pieceId: pl.pieceId,
-            lineId: pl.lineId,
-            orderNumber: pl.orderNumber ?? '',
-            layerId: pl.layerId,
-            xMm: pl.xMm,
-            yMm: pl.yMm,
-            widthMm: pl.widthMm,
-            heightMm: pl.heightMm,
-            rotated: pl.rotated,
-            path: paths.get(pl.pieceId)!,
-          }),
-        ),
-        state: 'planned',
-        createdAt: at,
-      };
-      repo.insertSheet(db, row);
-      made.push(repo.sheet(db, shopId, row.id)!);
+  db.transaction((tx) => {
+    const db = tx as unknown as Db;
+    // read again inside the write: a build that finished while this one was nesting has planned them
+    const now = repo.linesByIds(db, shopId, lineIds);
+    assertNotPlanned(db, shopId, now);
+    for (const g of groups.values()) {
+      const nested = nestedByMaterial.get(g.material.id)!;
+      const paths = new Map(g.pieces.map((p) => [p.id, p.path]));
+      for (const n of nested) {
+        const row = {
+          id: crypto.randomUUID(),
+          shopId,
+          materialId: g.material.id,
+          batchId,
+          rollWidthMm: n.rollWidthMm,
+          lengthMm: r3(n.lengthMm),
+          utilisation: n.utilisation,
+          pieces: n.placements.map(
+            (pl): StoredSheetPiece => ({
+              pieceId: pl.pieceId,
+              lineId: pl.lineId,
+              orderNumber: pl.orderNumber ?? '',
+              layerId: pl.layerId,
+              xMm: pl.xMm,
+              yMm: pl.yMm,
+              widthMm: pl.widthMm,
+              heightMm: pl.heightMm,
+              rotated: pl.rotated,
+              path: paths.get(pl.pieceId)!,
+            }),
+          ),
+          state: 'planned',
+          createdAt: at,
+        };
+        repo.insertSheet(db, row);
+        made.push(repo.sheet(db, shopId, row.id)!);
+      }
     }
-  }
+    transitionAll(
+      db,
+      now.map(({ line }) => ({ line, to: 'planned' as const, actor: 'shop' as const, actorId, at, message: `On cut-sheet batch ${batchName(batchId, at)}.` })),
+    );
+  });
   return { batchId, sheets: made.map((s) => sheetView(s, mats.get(s.materialId))) };
+}
+
+/** How a batch is named to people: its build time and the first characters of its id ("2 Dec 16:40 · 3f9a12c4"). */
+export function batchName(batchId: string, createdAt: number): string {
+  const d = new Date(createdAt);
+  const month = d.toLocaleString('en-GB', { month: 'short', timeZone: 'UTC' });
+  const hm = `${String(d.getUTCHours()).padStart(2, '0')}:${String(d.getUTCMinutes()).padStart(2, '0')}`;
+  return `${d.getUTCDate()} ${month} ${hm} UTC · ${batchId.slice(0, 8)}`;
+}
+
+/** The uncut batch each of `lineIds` is planned on (a line is on at most one: building refuses a planned line). */
+function plannedBatches(db: Db, shopId: string, lineIds: Set<string>): Map<string, { batchId: string; createdAt: number }> {
+  const out = new Map<string, { batchId: string; createdAt: number }>();
+  for (const s of repo.sheetsOfShop(db, shopId)) {
+    if (s.state === 'cut') continue;
+    for (const p of s.pieces) if (lineIds.has(p.lineId) && !out.has(p.lineId)) out.set(p.lineId, { batchId: s.batchId, createdAt: s.createdAt });
+  }
+  return out;
+}
+
+/**
+ * A planned line is already on a cut sheet that is not cut yet: building with it again would cut
+ * it twice and take its vinyl from stock twice. Answers 409 naming the batch (each line a field
+ * `lineIds.<id>` holding its batch id) until that batch is discarded or cut.
+ */
+function assertNotPlanned(db: Db, shopId: string, rows: Array<{ line: { id: string; state: string }; order: { number: string } }>): void {
+  const planned = rows.filter((r) => r.line.state === 'planned');
+  if (!planned.length) return;
+  const where = plannedBatches(db, shopId, new Set(planned.map((r) => r.line.id)));
+  const parts = planned.map((r) => {
+    const b = where.get(r.line.id);
+    return `${r.order.number} is on batch ${b ? batchName(b.batchId, b.createdAt) : '(not found)'}`;
+  });
+  throw new AppError(
+    409,
+    'already_planned',
+    `Already on a cut sheet: ${parts.join('; ')}. Cut that batch, or discard it to build again.`,
+    Object.fromEntries(planned.map((r) => [`lineIds.${r.line.id}`, where.get(r.line.id)?.batchId ?? 'unknown'])),
+  );
+}
+
+/**
+ * Discards a batch none of whose sheets is cut: its sheets are deleted and its planned lines go
+ * back to `approved` (through transition()), to be offered and built again.
+ */
+export function discardBatch(deps: WorkroomDeps, shopId: string, actorId: string, batchId: string): { batchId: string; linesReleased: string[] } {
+  const { db } = deps;
+  const sheets = repo.sheetsOfBatch(db, shopId, batchId);
+  if (!sheets.length) throw notFound('We could not find that batch of cut sheets.');
+  if (sheets.some((s) => s.state === 'cut')) throw new AppError(409, 'already_cut', 'Some sheets of this batch are cut already, so it cannot be discarded. Mark the rest cut instead.');
+  const lineIds = [...new Set(sheets.flatMap((s) => s.pieces.map((p) => p.lineId)))];
+  const at = deps.now();
+  const released: string[] = [];
+  db.transaction((tx) => {
+    const t = tx as unknown as Db;
+    const rows = repo.linesByIds(t, shopId, lineIds).filter((r) => r.line.state === 'planned');
+    transitionAll(
+      t,
+      rows.map(({ line }) => ({ line, to: 'approved' as const, actor: 'shop' as const, actorId, at, message: `Cut-sheet batch ${batchName(batchId, sheets[0]!.createdAt)} discarded.` })),
+    );
+    repo.deleteBatch(t, shopId, batchId);
+    released.push(...rows.map((r) => r.line.id));
+  });
+  return { batchId, linesReleased: released };
 }
 
 export function batch(db: Db, shopId: string, batchId: string): WorkSheet[] {

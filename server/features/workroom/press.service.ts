@@ -3,16 +3,36 @@
 
 import { type PressType, pressCard } from '../../../shared/engine/press-card.ts';
 import { MATERIAL_KINDS, type MaterialKind } from '../../../shared/engine/press-defaults.ts';
+import { layerOverlaps } from '../../../shared/engine/press-order.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import type { LineState } from '../../../shared/schemas/order.ts';
 import type { PressCardView, WorkLine } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import { assertEachCanMove, transitionAll } from '../orders/index.ts';
+import { listingContent, proofBlank } from './blank-view.ts';
 import { type LineWithOrder, lineMaterialIds, lineSnapshot, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
-import { listingContent, proofBlank } from './proofs.service.ts';
 import { type MaterialRow, workroomRepo as repo } from './workroom.repo.ts';
 
 const asKind = (k: string): MaterialKind => ((MATERIAL_KINDS as readonly string[]).includes(k) ? (k as MaterialKind) : 'smooth');
+
+/**
+ * Which of a line's layers (its materials, bottom → top) overlap, from its frozen geometry. A
+ * line's geometry never changes for a version, so the answer is kept per line version.
+ */
+const overlapMemo = new Map<string, Array<[string, string]>>();
+const MEMO_SIZE = 2000;
+export function lineOverlaps(line: { id: string; version: number; snapshot: LineSnapshot }): Array<[string, string]> {
+  const key = `${line.id}:${line.version}`;
+  const hit = overlapMemo.get(key);
+  if (hit) return hit;
+  const s = line.snapshot;
+  const layers = lineMaterialIds(s).map((id) => ({ layerId: id, paths: s.geometry.pieces.filter((p) => p.materialId === id).map((p) => p.d) }));
+  const pairs = layerOverlaps(layers);
+  if (overlapMemo.size >= MEMO_SIZE) overlapMemo.delete(overlapMemo.keys().next().value!);
+  overlapMemo.set(key, pairs);
+  return pairs;
+}
 
 export function pressCardFor(db: Db, shopId: string, row: LineWithOrder, mats?: Map<string, MaterialRow>): PressCardView {
   const shop = repo.shop(db, shopId);
@@ -25,7 +45,7 @@ export function pressCardFor(db: Db, shopId: string, row: LineWithOrder, mats?: 
       layerId: id,
       materialKind: asKind(m?.kind ?? 'smooth'),
       colourName: (m?.colourName ?? 'Unknown colour').slice(0, 40),
-      ...(pp ? { profile: { handheld: pp.handheld, clamshell: pp.clamshell, tackS: pp.tackS, peel: pp.peel, topOnly: pp.topOnly } } : {}),
+      ...(pp ? { profile: { handheld: pp.handheld, clamshell: pp.clamshell, tackS: pp.tackS, peel: pp.peel, topOnly: pp.topOnly, ...(pp.coolS !== undefined ? { coolS: pp.coolS } : {}) } } : {}),
     };
   });
   const { topOffsetMm } = listingContent(db, row.line.listingId);
@@ -33,9 +53,11 @@ export function pressCardFor(db: Db, shopId: string, row: LineWithOrder, mats?: 
   const card = pressCard({
     pressType: (shop?.pressType === 'handheld' ? 'handheld' : 'clamshell') as PressType,
     layers: layers.length ? layers : [{ layerId: 'design', materialKind: 'smooth', colourName: 'Design' }],
+    ...(layers.length ? { overlaps: lineOverlaps(row.line) } : {}),
+    backPress: shop?.backPress ?? false,
     blank: { kind: s.blank.kind, name: b.name, topOffsetMm: b.printArea.yMm },
   });
-  return { line: lineViews(db, shopId, [row])[0]!, card };
+  return { line: lineViews(db, shopId, [row])[0]!, card, figure: { blank: b, pieces: s.geometry.pieces } };
 }
 
 export function pressCards(db: Db, shopId: string, opts: { lineId?: string; state?: LineState }): PressCardView[] {

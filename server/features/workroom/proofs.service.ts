@@ -6,13 +6,15 @@ import { defaultBlank, usableArea } from '../../../shared/engine/blanks.ts';
 import { fitText, textWarnings } from '../../../shared/engine/fit.ts';
 import { blankFor } from '../../../shared/engine/listing-design.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
-import { type Personalisation, personalisationSchema } from '../../../shared/schemas/listing.ts';
+import type { Personalisation } from '../../../shared/schemas/listing.ts';
 import type { CharInfo, Proof, ProofText, ProofVersion, ProofWarning, WorkLine } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
 import { assertEachCanMove, transition, transitionAll } from '../orders/index.ts';
+import { listingContent, proofBlank } from './blank-view.ts';
 import { lineSnapshot, lineText, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
+import { pressCardFor } from './press.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { changeRequestMail } from './workroom-mails.ts';
 
@@ -67,25 +69,6 @@ function normalForm(text: string): ProofText['normalized'] {
   const nfc = text.normalize('NFC') === text;
   const nfd = text.normalize('NFD') === text;
   return nfc ? 'NFC' : nfd ? 'NFD' : 'mixed';
-}
-
-export function listingContent(db: Db, listingId: string): { personalisation: Personalisation | null; topOffsetMm: number | null } {
-  const l = repo.listing(db, listingId);
-  const c = l?.live ?? l?.draft;
-  const p = personalisationSchema.safeParse(c?.personalisation);
-  return { personalisation: p.success ? p.data : null, topOffsetMm: typeof c?.blank?.topOffsetMm === 'number' ? c.blank.topOffsetMm : null };
-}
-
-export function proofBlank(s: LineSnapshot, topOffsetMm: number | null): Proof['blank'] {
-  const base = defaultBlank(s.blank.kind) ?? defaultBlank('tote')!;
-  const top = topOffsetMm ?? base.topOffsetMm;
-  return {
-    kind: s.blank.kind,
-    name: s.blank.label || base.name,
-    widthMm: base.widthMm,
-    heightMm: base.heightMm,
-    printArea: { xMm: (base.widthMm - s.blank.widthMm) / 2, yMm: top, widthMm: s.blank.widthMm, heightMm: s.blank.heightMm },
-  };
 }
 
 /**
@@ -152,6 +135,8 @@ export function proof(db: Db, shopId: string, lineId: string): Proof {
   const s = lineSnapshot(row.line);
   const { personalisation, topOffsetMm } = listingContent(db, row.line.listingId);
   const { texts, warnings } = proofWarnings(s, personalisation, topOffsetMm);
+  // the press order from the design's geometry: a seller hears before cutting when none works
+  for (const w of pressCardFor(db, shopId, row).card.warnings) if (w.code === 'top_only_covered') warnings.push({ code: w.code, fieldId: null, message: `Pressing: ${w.message}` });
   const versions = repo.versions(db, row.line.id);
   const authors = new Map(
     repo

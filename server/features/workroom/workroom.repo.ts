@@ -144,5 +144,10 @@ export const workroomRepo = {
       .where(and(eq(cutSheets.shopId, shopId), ne(cutSheets.state, 'cut')))
       .groupBy(cutSheets.materialId)
       .all(),
+  deleteBatch: (db: Db, shopId: string, batchId: string) =>
+    db
+      .delete(cutSheets)
+      .where(and(eq(cutSheets.batchId, batchId), eq(cutSheets.shopId, shopId)))
+      .run(),
   setSheet: (db: Db, id: string, set: Partial<typeof cutSheets.$inferInsert>) => db.update(cutSheets).set(set).where(eq(cutSheets.id, id)).run(),
 };

@@ -15,7 +15,7 @@ import type { AppDeps } from '../../deps.ts';
 import { perAccountLimit } from '../../http/account-rate-limit.ts';
 import { currentUser, ownShop, requireRole, requireUser } from '../../http/auth-guards.ts';
 import { validate } from '../../http/validate.ts';
-import { batch, buildCutSheets, markCut, recentBatches, sheetSvg } from './cut-sheets.service.ts';
+import { batch, buildCutSheets, discardBatch, markCut, recentBatches, sheetSvg } from './cut-sheets.service.ts';
 import { listLines, orderView, summary } from './lines.service.ts';
 import { markPressed, pressCards } from './press.service.ts';
 import { personalisationForEdit, savePersonalisation } from './proof-edit.service.ts';
@@ -78,7 +78,7 @@ export function workroomRouter(deps: AppDeps): Router {
 
   // cut sheets
   r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: lineIdsSchema }), async (req, res) => {
-    res.status(201).json(await buildCutSheets(deps, shopId(req), req.body.lineIds));
+    res.status(201).json(await buildCutSheets(deps, shopId(req), currentUser(req).id, req.body.lineIds));
   });
   r.get('/batches', (req, res) => {
     res.json({ batches: recentBatches(deps.db, shopId(req)) });
@@ -96,6 +96,9 @@ export function workroomRouter(deps: AppDeps): Router {
         sheets.map((s) => s.id),
       ),
     );
+  });
+  r.post('/batches/:id/discard', validate({ params: idParams }), (req, res) => {
+    res.json(discardBatch(deps, shopId(req), currentUser(req).id, id(req)));
   });
   r.get('/cut-sheets/:id/svg', validate({ params: idParams }), (req, res) => {
     const { svg, name } = sheetSvg(deps.db, shopId(req), id(req));

@@ -9,6 +9,7 @@ export const LINE_STATE_TONES: Record<LineState, BadgeTone> = {
   awaiting_proof: 'marigold',
   changes_requested: 'danger',
   approved: 'thread',
+  planned: 'neutral',
   cut: 'neutral',
   pressed: 'ink',
   shipped: 'done',

@@ -6,6 +6,7 @@ import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useBuildCutSheets } from '../../../features/workroom/api/build-cut-sheets.ts';
+import { useDiscardBatch } from '../../../features/workroom/api/discard-batch.ts';
 import { useBatch } from '../../../features/workroom/api/get-batch.ts';
 import { useBatches } from '../../../features/workroom/api/get-batches.ts';
 import { useLines } from '../../../features/workroom/api/get-lines.ts';
@@ -19,6 +20,8 @@ import { isApiError } from '../../../lib/api-client.ts';
 function Batch({ batchId }: { batchId: string }) {
   const batch = useBatch(batchId);
   const markCut = useMarkCut();
+  const discard = useDiscardBatch();
+  const navigate = useNavigate();
   const toast = useToast();
   if (batch.isPending) return <Spinner label="Loading the cut sheets…" />;
   if (batch.isError)
@@ -39,27 +42,47 @@ function Batch({ batchId }: { batchId: string }) {
           </span>
           , one per material, {formatLength(total)} of vinyl in all. Files are mirrored for cutting, 1 unit = 1 mm.
         </p>
-        {planned.length ? (
-          <Button
-            onClick={async () => {
-              try {
-                const r = await markCut.mutateAsync({ batchId });
-                toast.success(`All sheets marked cut; ${r.linesCut.length} line${r.linesCut.length === 1 ? '' : 's'} now cut. Press cards are ready.`);
-                if (r.warnings.length) toast.error(stockWarningsText(r.warnings));
-              } catch (e) {
-                toast.error(isApiError(e) ? e.message : 'That did not work.');
-              }
-            }}
-            pending={markCut.isPending}
-            pendingLabel="Saving…"
-          >
-            Mark all {planned.length} sheets cut
-          </Button>
-        ) : (
-          <Link to={paths.workroomPress.getHref()} className="font-bold text-thread-deep underline decoration-2">
-            All cut — go to the press cards
-          </Link>
-        )}
+        <div className="flex flex-wrap items-center gap-3">
+          {planned.length === sheets.length ? (
+            <Button
+              variant="quiet"
+              pending={discard.isPending}
+              pendingLabel="Discarding…"
+              onClick={async () => {
+                try {
+                  const r = await discard.mutateAsync(batchId);
+                  toast.success(`Batch discarded; ${r.linesReleased.length} line${r.linesReleased.length === 1 ? ' is' : 's are'} approved and ready to cut again.`);
+                  navigate(paths.workroomCutSheets.getHref());
+                } catch (e) {
+                  toast.error(isApiError(e) ? e.message : 'That did not work.');
+                }
+              }}
+            >
+              Discard this batch
+            </Button>
+          ) : null}
+          {planned.length ? (
+            <Button
+              onClick={async () => {
+                try {
+                  const r = await markCut.mutateAsync({ batchId });
+                  toast.success(`All sheets marked cut; ${r.linesCut.length} line${r.linesCut.length === 1 ? '' : 's'} now cut. Press cards are ready.`);
+                  if (r.warnings.length) toast.error(stockWarningsText(r.warnings));
+                } catch (e) {
+                  toast.error(isApiError(e) ? e.message : 'That did not work.');
+                }
+              }}
+              pending={markCut.isPending}
+              pendingLabel="Saving…"
+            >
+              Mark all {planned.length} sheets cut
+            </Button>
+          ) : (
+            <Link to={paths.workroomPress.getHref()} className="font-bold text-thread-deep underline decoration-2">
+              All cut — go to the press cards
+            </Link>
+          )}
+        </div>
       </div>
       <WorksheetDownload batchId={batchId} />
       <div className="grid gap-5 md:grid-cols-2 xl:grid-cols-3">
@@ -103,6 +126,7 @@ function Choose() {
         <h2 id="approved" className="text-xl font-extrabold">
           Approved lines, ready to cut
         </h2>
+        <p className="text-sm text-ink-soft">Lines already on a batch that is not cut yet are planned and not listed here; discard that batch to build them again.</p>
         {lines.data.total === 0 ? (
           <p className="text-ink-soft">
             No approved lines yet. Approve proofs in the{' '}

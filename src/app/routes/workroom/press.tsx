@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { Button } from '../../../components/ui/button.tsx';
+import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { QueryPage } from '../../../components/ui/query-boundary.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -16,7 +16,7 @@ export function PressPage() {
     <QueryPage
       eyebrow="Workroom"
       title="Press cards"
-      lead="One card for each cut item: pre-press, layers bottom to top with their tack times, the final press and where to place the design."
+      lead="One card for each cut item: pre-press, layers in press steps from the design (layers that don't overlap go down together; overlapping ones bottom to top), the final press and where to place the design."
       query={cards}
       loading="Loading press cards…"
     >
@@ -30,43 +30,51 @@ export function PressPage() {
             .
           </p>
         ) : (
-          <ul className="grid gap-5 lg:grid-cols-2">
-            {data.map(({ line, card }) => (
-              <li
-                key={line.id}
-                className="flex flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm"
-                data-testid="press-card"
-                aria-label={`Press card for ${line.text || line.listingTitle}`}
-              >
-                <header className="flex flex-wrap items-baseline justify-between gap-2">
-                  <h2 className="text-lg font-extrabold">
-                    {line.orderNumber} · {line.text || '—'}
-                    {line.quantity > 1 ? ` × ${line.quantity}` : ''}
-                  </h2>
-                  <Link className="text-sm font-bold text-thread-deep underline" to={paths.workroomOrder.getHref(line.orderId)}>
-                    order
-                  </Link>
-                </header>
-                <p className="text-sm text-ink-soft">{line.listingTitle}</p>
-                <PressCardView card={card} />
-                <Button
-                  variant="secondary"
-                  className="self-start"
-                  pending={pressed.isPending && pressed.variables?.includes(line.id)}
-                  onClick={async () => {
-                    try {
-                      await pressed.mutateAsync([line.id]);
-                      toast.success(`${line.orderNumber} · ${line.text} marked pressed.`);
-                    } catch (e) {
-                      toast.error(isApiError(e) ? e.message : 'That did not work.');
-                    }
-                  }}
+          <>
+            <p>
+              <ButtonLink to={paths.workroomPressRun.getHref()} className="min-h-14 px-6 text-xl">
+                Start the press run ({data.length} item{data.length === 1 ? '' : 's'})
+              </ButtonLink>
+              <span className="ml-3 text-sm text-ink-soft">Full screen, one item at a time, with timers — for a tablet or phone beside the press.</span>
+            </p>
+            <ul className="grid gap-5 lg:grid-cols-2">
+              {data.map(({ line, card }) => (
+                <li
+                  key={line.id}
+                  className="flex flex-col gap-3 rounded-lg border border-line bg-white p-5 shadow-sm"
+                  data-testid="press-card"
+                  aria-label={`Press card for ${line.text || line.listingTitle}`}
                 >
-                  Mark pressed
-                </Button>
-              </li>
-            ))}
-          </ul>
+                  <header className="flex flex-wrap items-baseline justify-between gap-2">
+                    <h2 className="text-lg font-extrabold">
+                      {line.orderNumber} · {line.text || '—'}
+                      {line.quantity > 1 ? ` × ${line.quantity}` : ''}
+                    </h2>
+                    <Link className="text-sm font-bold text-thread-deep underline" to={paths.workroomOrder.getHref(line.orderId)}>
+                      order
+                    </Link>
+                  </header>
+                  <p className="text-sm text-ink-soft">{line.listingTitle}</p>
+                  <PressCardView card={card} />
+                  <Button
+                    variant="secondary"
+                    className="self-start"
+                    pending={pressed.isPending && pressed.variables?.includes(line.id)}
+                    onClick={async () => {
+                      try {
+                        await pressed.mutateAsync([line.id]);
+                        toast.success(`${line.orderNumber} · ${line.text} marked pressed.`);
+                      } catch (e) {
+                        toast.error(isApiError(e) ? e.message : 'That did not work.');
+                      }
+                    }}
+                  >
+                    Mark pressed
+                  </Button>
+                </li>
+              ))}
+            </ul>
+          </>
         )
       }
     </QueryPage>

@@ -1,6 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
+import { SMALL_PART_MM2, type WeedingRates } from '../../../../shared/business/labour.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import { type BusinessSettings, type BusinessSettingsInput, businessSettingsSchema } from '../../../../shared/schemas/business.ts';
 import { Button } from '../../../components/ui/button.tsx';
@@ -10,8 +11,23 @@ import { useToast } from '../../../components/ui/toast.tsx';
 import { applyServerErrors } from '../../../lib/form-errors.ts';
 import { useUpdateBusinessSettings } from '../api/update-business-settings.ts';
 
-type Values = { workingDays: number[]; daysOff: string[]; hourlyRateMinor: number; processingDays: number };
-const FIELDS = ['workingDays', 'daysOff', 'hourlyRateMinor', 'processingDays'] as const;
+type Values = { workingDays: number[]; daysOff: string[]; hourlyRateMinor: number; weedingRates: WeedingRates; processingDays: number };
+const FIELDS = [
+  'workingDays',
+  'daysOff',
+  'hourlyRateMinor',
+  'weedingRates.secondsPerPiece',
+  'weedingRates.secondsPerCounter',
+  'weedingRates.secondsPerSmallPart',
+  'weedingRates.secondsPerMetre',
+  'processingDays',
+] as const;
+const RATE_FIELDS = [
+  { name: 'secondsPerPiece', label: 'Seconds per piece', hint: 'Weeding around each separate piece of vinyl.' },
+  { name: 'secondsPerCounter', label: 'Seconds per counter', hint: 'Picking out each hole inside a letter or shape.' },
+  { name: 'secondsPerSmallPart', label: 'Seconds per small part', hint: `Extra for each piece or counter under ${SMALL_PART_MM2} mm².` },
+  { name: 'secondsPerMetre', label: 'Seconds per metre of cut line', hint: 'Following the blade’s line around and inside every piece.' },
+] as const;
 export const WEEKDAYS = [
   { iso: 1, label: 'Monday' },
   { iso: 2, label: 'Tuesday' },
@@ -29,7 +45,13 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
   const [newDay, setNewDay] = useState('');
   const { control, register, handleSubmit, setError, formState, reset, watch, setValue } = useForm<Values, unknown, BusinessSettingsInput>({
     resolver: zodResolver(businessSettingsSchema) as never,
-    defaultValues: { workingDays: settings.workingDays, daysOff: settings.daysOff, hourlyRateMinor: settings.hourlyRateMinor, processingDays: settings.processingDays },
+    defaultValues: {
+      workingDays: settings.workingDays,
+      daysOff: settings.daysOff,
+      hourlyRateMinor: settings.hourlyRateMinor,
+      weedingRates: settings.weedingRates,
+      processingDays: settings.processingDays,
+    },
   });
   const e = formState.errors;
   const daysOff = watch('daysOff');
@@ -37,7 +59,7 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
   const onSubmit = handleSubmit(async (values) => {
     try {
       const saved = await update.mutateAsync(values);
-      reset({ workingDays: saved.workingDays, daysOff: saved.daysOff, hourlyRateMinor: saved.hourlyRateMinor, processingDays: saved.processingDays });
+      reset({ workingDays: saved.workingDays, daysOff: saved.daysOff, hourlyRateMinor: saved.hourlyRateMinor, weedingRates: saved.weedingRates, processingDays: saved.processingDays });
       toast.success('Business settings saved. Ship-by dates of open orders follow the new calendar.');
     } catch (error) {
       const message = applyServerErrors(error, setError, FIELDS);
@@ -129,8 +151,25 @@ export function BusinessSettingsForm({ settings }: { settings: BusinessSettings 
           )}
         </div>
       </FormSection>
-      <FormSection title="Labour" lead="Minutes per layer (set on each listing) × your hourly rate gives the labour cost of an item.">
+      <FormSection
+        title="Labour"
+        lead="Weeding minutes are estimated from each design's own cut pieces — its pieces, counters, small parts and length of cut line — at your rates below, and costed at your hourly rate."
+      >
         <MoneyController control={control} name="hourlyRateMinor" label="Hourly rate" currency={settings.currency} error={e.hourlyRateMinor?.message} className="max-w-56" />
+        <div className="grid gap-4 sm:grid-cols-2">
+          {RATE_FIELDS.map((f) => (
+            <TextField
+              key={f.name}
+              label={f.label}
+              hint={f.hint}
+              type="number"
+              inputMode="decimal"
+              min={0}
+              error={e.weedingRates?.[f.name]?.message}
+              {...register(`weedingRates.${f.name}`, { valueAsNumber: true })}
+            />
+          ))}
+        </div>
       </FormSection>
       <p className="text-sm text-ink-soft">
         Fees in margins: platform {settings.fees.platformFeeBps / 100} %; payment {settings.fees.paymentFeeBps / 100} % + {formatMoney(settings.fees.paymentFeeFixedMinor, settings.currency)} per

@@ -324,8 +324,8 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
       <FormSection title="Costing (only you see this)" lead="Used by your workroom to estimate cost per item.">
         <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">
           <MoneyController control={control} name="blankCostMinor" label="Cost of one blank" currency={currency} error={e.blankCostMinor?.message} />
-          <TextField label="Minutes per layer" type="number" inputMode="decimal" min={0} max={240} error={e.minutesPerLayer?.message} {...register('minutesPerLayer', { valueAsNumber: true })} />
         </div>
+        <p className="text-sm text-ink-soft">Labour is estimated from each design's own cut pieces at the weeding rates and hourly rate in your Business settings.</p>
         <PricingHelper values={values} currency={currency} />
       </FormSection>
 

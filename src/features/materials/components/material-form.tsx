@@ -38,6 +38,7 @@ const FIELDS = [
   'pressProfile.clamshell.timeS',
   'pressProfile.tackS',
   'pressProfile.peel',
+  'pressProfile.coolS',
 ] as const;
 
 const blank = (): Values => ({
@@ -70,7 +71,7 @@ export function MaterialForm({ material, onDone }: { material?: Material; onDone
           stockMm: material.stockMm,
           lowStockMm: material.lowStockMm,
           pricePerMetreMinor: material.pricePerMetreMinor,
-          pressProfile: structuredClone(material.pressProfile),
+          pressProfile: { coolS: defaultPressProfile(material.kind as MaterialKind).coolS, ...structuredClone(material.pressProfile) },
         }
       : blank(),
   });
@@ -192,8 +193,16 @@ export function MaterialForm({ material, onDone }: { material?: Material; onDone
             <option value="cold">Cold</option>
             <option value="hot or cold">Hot or cold</option>
           </SelectField>
+          <TextField
+            label="Cool before a warm or cold peel (s)"
+            hint="The press run counts this down before the peel."
+            type="number"
+            inputMode="decimal"
+            error={e.pressProfile?.coolS?.message}
+            {...num('pressProfile.coolS')}
+          />
         </div>
-        <CheckboxField label="Top layer only" hint="Nothing may be pressed onto this material." {...register('pressProfile.topOnly')} />
+        <CheckboxField label="Top layer only" hint="Nothing may be pressed onto this material where layers overlap." {...register('pressProfile.topOnly')} />
         <Button variant="quiet" className="self-start" onClick={() => setValue('pressProfile', defaultPressProfile(v.kind), { shouldDirty: true })}>
           Reset to the {KIND_LABELS[v.kind]?.toLowerCase()} defaults
         </Button>

@@ -3,7 +3,7 @@ import { useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { type OwnShop, type ShopSettingsInput, shopSettingsSchema } from '../../../../shared/schemas/shop.ts';
 import { Button } from '../../../components/ui/button.tsx';
-import { FormSection, MoneyController, ProgressBar, SelectField, TextAreaField } from '../../../components/ui/form-controls.tsx';
+import { CheckboxField, FormSection, MoneyController, ProgressBar, SelectField, TextAreaField } from '../../../components/ui/form-controls.tsx';
 import { TextField } from '../../../components/ui/text-field.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
@@ -19,8 +19,9 @@ type Values = {
   shippingMinor: number;
   returnPolicy: string;
   pressType: 'handheld' | 'clamshell';
+  backPress: boolean;
 };
-const FIELDS = ['name', 'slug', 'description', 'processingDays', 'shippingMinor', 'returnPolicy', 'pressType'] as const;
+const FIELDS = ['name', 'slug', 'description', 'processingDays', 'shippingMinor', 'returnPolicy', 'pressType', 'backPress'] as const;
 
 const stateNote: Record<OwnShop['state'], string> = {
   in_review: 'Your shop is waiting for the Namesake team to review it. Shoppers will see it once it is approved.',
@@ -43,6 +44,7 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
       shippingMinor: shop.shippingMinor,
       returnPolicy: shop.returnPolicy,
       pressType: shop.pressType,
+      backPress: shop.backPress,
     },
   });
   const e = formState.errors;
@@ -125,6 +127,7 @@ export function ShopSettingsForm({ shop, onSaved }: { shop: OwnShop; onSaved?: (
             <option value="clamshell">Clamshell or swing-away press</option>
             <option value="handheld">Handheld press</option>
           </SelectField>
+          <CheckboxField label="Press from the back too" hint="Press cards and the press run add a press from the back after the final press." {...register('backPress')} />
         </FormSection>
         <div className="flex flex-wrap items-center gap-3">
           <Button type="submit" pending={formState.isSubmitting} pendingLabel="Saving…">

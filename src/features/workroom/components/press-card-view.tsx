@@ -2,6 +2,11 @@ import type { PressCard } from '../../../../shared/engine/press-card.ts';
 
 const kindWords: Record<string, string> = { pre_press: 'Pre-press', place: 'Place', tack: 'Tack', final_press: 'Final press', back_press: 'Back press' };
 
+const layerWords = (card: PressCard, id: string) => {
+  const l = card.layers.find((x) => x.layerId === id);
+  return l ? `${l.colourName} (${l.materialKind})` : id;
+};
+
 /** One item's pressing steps, bottom layer first, with the shop's press type. */
 export function PressCardView({ card }: { card: PressCard }) {
   return (
@@ -10,7 +15,8 @@ export function PressCardView({ card }: { card: PressCard }) {
         {card.pressType === 'handheld' ? 'Handheld press' : 'Clamshell press'} · final {card.tempLabel}, {card.finalTimeS} s, peel {card.peel}
       </p>
       <p className="text-sm">
-        <span className="font-bold">Layers, bottom to top:</span> {card.layers.map((l, i) => `${i + 1}. ${l.colourName} (${l.materialKind})`).join('  ·  ')}
+        <span className="font-bold">Press steps, bottom to top:</span> {card.groups.map((g, i) => `${i + 1}. ${g.map((id) => layerWords(card, id)).join(' + ')}`).join('  ·  ')}
+        {card.groups.length < card.layers.length ? <span className="text-ink-soft"> — layers that don't overlap go down together</span> : null}
       </p>
       {card.warnings.length ? (
         <ul className="flex flex-col gap-1" aria-label="Press warnings">
