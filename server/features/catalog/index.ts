@@ -2,3 +2,5 @@
 // page a shopper would see); the search (the catalogue benchmark times it).
 export { catalogRouter, catalogSearchRouter } from './catalog.routes.ts';
 export { listingPage, search } from './catalog.service.ts';
+export { listingRating, shopRating } from './catalog.service.ts';
+export { liveListingBySlug, liveShopBySlug } from './catalog.repo.ts';

@@ -8,3 +8,4 @@ export { orderDetail } from './order-view.ts';
 export { type OrderLineRow, type OrderRow, ordersRepo } from './orders.repo.ts';
 export { ordersRouter } from './orders.routes.ts';
 export { createOrdersForCheckout } from './orders.service.ts';
+export { type OrderParty, orderParty } from './order-access.ts';

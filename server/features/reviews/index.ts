@@ -1,0 +1,2 @@
+// Public module of the reviews feature: its routes.
+export { reviewsRouters } from './reviews.routes.ts';
