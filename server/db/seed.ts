@@ -7,6 +7,7 @@ import { seedRepo } from './seed.repo.ts';
 import { seedCatalog } from './seed-catalog.ts';
 import type { SeedContext } from './seed-context.ts';
 import { seedOrders } from './seed-orders.ts';
+import { seedReviews } from './seed-reviews.ts';
 
 const SHOPS = [
   {
@@ -81,4 +82,5 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
   // in order: the orders are made from the catalogue's live listings and materials
   await seedCatalog(deps, ctx);
   await seedOrders(deps, ctx);
+  await seedReviews(deps, ctx);
 }

@@ -2,3 +2,4 @@
 
 export { approve } from './proofs.service.ts';
 export { proofEditRouter, workroomRouter } from './workroom.routes.ts';
+export { ship } from './shipping.service.ts';
