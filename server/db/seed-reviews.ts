@@ -1,7 +1,7 @@
 // Demo reviews (the invented demo scenario): an older purchase of Dana's from Fern & Fable Goods,
 // made, shipped and reviewed. Its lines move through the same state machine and the shipping
 // service as a real order's (cut outside the app, so no cut sheet), and the reviews and the shop's
-// reply are written by the reviews feature with the clock set days after shipping. One line is
+// reply are written by the reviews feature with the clock set days after shipping. Two lines are
 // left unreviewed, so a shopper can try writing a review. No e-mails go out.
 import type { AppDeps } from '../deps.ts';
 import { transitionAll } from '../features/orders/index.ts';
@@ -21,11 +21,17 @@ const ITEMS: Item[] = [
   { listing: 'Winter lights drawstring bag with snowman', name: 'Ivy', textColour: 'Ink navy', motifColours: { 'hat-and-scarf': 'Berry red' }, approved: true },
   { listing: 'Autumn fox tote with a name', name: 'Rosa', textColour: 'Fox orange', motifColours: { body: 'Acorn brown' }, approved: true },
   { listing: 'Harvest pumpkin drawstring bag with ribbon bow', name: 'Otto', textColour: 'Acorn brown', motifColours: { stem: 'Pine flock' }, approved: true },
+  { listing: 'Spring picnic tote with hot-air balloon', name: 'Mila', textColour: 'Ink navy', motifColours: { envelope: 'Thread green' }, approved: true },
 ];
 
-/** Reviews by the name on the line (the pumpkin bag, "Otto", is left for the shopper to review). */
+/** Reviews by the name on the line ("Otto"'s pumpkin bag and "Mila"'s tote are left for the shopper to review). */
 const REVIEWS: Record<string, { rating: number; body: string; daysAfterShipping: number; reply?: string }> = {
-  Noor: { rating: 5, daysAfterShipping: 4, body: 'The fox is even sweeter in person and the name is crisp. Noor carries her library books in it every week.', reply: 'Thank you! Happy reading, Noor.' },
+  Noor: {
+    rating: 5,
+    daysAfterShipping: 4,
+    body: 'The fox is even sweeter in person and the name is crisp. Noor carries her library books in it every week.',
+    reply: 'Thank you! Happy reading, Noor.',
+  },
   Ezra: { rating: 4, daysAfterShipping: 5, body: 'Lovely colours and sturdy canvas. The balloon sits a little lower than I pictured, but it still looks great.' },
   Ivy: { rating: 5, daysAfterShipping: 6, body: 'Bought for the winter fair. The snowman and the red scarf are bright and the letters have survived two washes.' },
   Rosa: { rating: 4, daysAfterShipping: 7, body: 'Good size for a swimming kit. The orange letters are a touch brighter than they looked on screen.' },
@@ -43,7 +49,10 @@ export async function seedReviews(deps: AppDeps, ctx: SeedContext): Promise<void
   const silent: AppDeps = { ...deps, mailer: { send: async () => {}, close: () => {} } };
   const at = (ms: number): AppDeps => ({ ...silent, now: () => ms });
 
-  for (const [to, day] of [['cut', 1], ['pressed', 2]] as const) {
+  for (const [to, day] of [
+    ['cut', 1],
+    ['pressed', 2],
+  ] as const) {
     const lines = seedRepo.linesOf(deps.db, orderId);
     transitionAll(
       deps.db,

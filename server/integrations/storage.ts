@@ -132,7 +132,10 @@ const sizeLabel = (bytes: number) => (bytes >= 1024 * 1024 && bytes % (1024 * 10
 
 /** Sends one stored image of `dir` by its random name: the right type, nosniff, and no script ever; 404 otherwise. */
 export function sendStoredImage(res: Response, next: NextFunction, dir: string, name: string, cache: 'public' | 'private' = 'public'): void {
-  if (!NAME.test(name)) return next(new AppError(404, 'not_found', 'No such file.'));
+  if (!NAME.test(name)) {
+    next(new AppError(404, 'not_found', 'No such file.'));
+    return;
+  }
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox");
   res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
@@ -140,7 +143,13 @@ export function sendStoredImage(res: Response, next: NextFunction, dir: string, 
   if (cache === 'private') res.setHeader('Cache-Control', 'private, max-age=3600');
   res.sendFile(
     path.join(dir, name),
-    { maxAge: cache === 'public' ? '365d' : undefined, immutable: cache === 'public', cacheControl: cache === 'public', dotfiles: 'deny', headers: { 'Content-Type': name.endsWith('.jpg') ? 'image/jpeg' : 'image/webp' } },
+    {
+      maxAge: cache === 'public' ? '365d' : undefined,
+      immutable: cache === 'public',
+      cacheControl: cache === 'public',
+      dotfiles: 'deny',
+      headers: { 'Content-Type': name.endsWith('.jpg') ? 'image/jpeg' : 'image/webp' },
+    },
     (err) => {
       if (err && !res.headersSent) next(new AppError(404, 'not_found', 'No such file.'));
     },

@@ -34,4 +34,5 @@ export type MessageView = {
   createdAt: number;
 };
 export type ThreadView = { orderId: string; orderNumber: string; viewerSide: MessageSide; messages: MessageView[]; full: boolean };
-export type UnreadView = { count: number };
+/** unread messages for the header: on the user's own orders (as a shopper) and on their shop's orders */
+export type UnreadView = { count: number; asShopper: number; asShop: number };

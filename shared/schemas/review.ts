@@ -36,11 +36,7 @@ export const replySchema = z.object({
 export type ReplyInput = z.input<typeof replySchema>;
 
 export const hideReviewSchema = z.object({
-  reason: z
-    .string({ error: 'Say why the review is hidden.' })
-    .trim()
-    .min(1, 'Say why the review is hidden.')
-    .max(HIDE_REASON_MAX_CHARS, `Use at most ${HIDE_REASON_MAX_CHARS} characters.`),
+  reason: z.string({ error: 'Say why the review is hidden.' }).trim().min(1, 'Say why the review is hidden.').max(HIDE_REASON_MAX_CHARS, `Use at most ${HIDE_REASON_MAX_CHARS} characters.`),
 });
 export type HideReviewInput = z.input<typeof hideReviewSchema>;
 

@@ -7,8 +7,8 @@
 
 import request, { type Agent } from 'supertest';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { confirmationMail, newOrderMail, refundMail } from '../../server/features/orders/order-mails.ts';
 import { messageMail } from '../../server/features/messages/message-mails.ts';
+import { confirmationMail, newOrderMail, refundMail } from '../../server/features/orders/order-mails.ts';
 import { changeRequestMail, shippedMail } from '../../server/features/workroom/workroom-mails.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
 import { eventually, makeTestApp, type TestApp } from '../factories/app.ts';

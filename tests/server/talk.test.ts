@@ -22,7 +22,10 @@ let sam: Agent;
 let order: { id: string; number: string };
 let shipped: { orderId: string; shippedAt: number; otto: string };
 
-const png = (w = 60, h = 40) => sharp({ create: { width: w, height: h, channels: 3, background: '#c0504d' } }).png().toBuffer();
+const png = (w = 60, h = 40) =>
+  sharp({ create: { width: w, height: h, channels: 3, background: '#c0504d' } })
+    .png()
+    .toBuffer();
 const one = <T>(q: string, ...a: unknown[]) => t.sqlite.prepare(q).get(...a) as T;
 const count = (table: string) => one<{ n: number }>(`select count(*) as n from ${table}`).n;
 
@@ -33,8 +36,8 @@ beforeAll(async () => {
   const other = await t.makeUser('shopper', { name: 'Sam Other' });
   sam = await t.signIn(other.email);
   order = one("select o.id, o.number from orders o join user u on u.id = o.buyer_id where u.email = 'dana@namesake.test' and o.shipped_at is null order by o.paid_at desc limit 1");
-  const s = one<{ id: string; shipped_at: number }>("select id, shipped_at from orders where shipped_at is not null order by shipped_at limit 1");
-  const otto = one<{ id: string }>("select l.id from order_lines l left join reviews r on r.line_id = l.id where l.order_id = ? and r.id is null", s.id);
+  const s = one<{ id: string; shipped_at: number }>('select id, shipped_at from orders where shipped_at is not null order by shipped_at limit 1');
+  const otto = one<{ id: string }>('select l.id from order_lines l left join reviews r on r.line_id = l.id where l.order_id = ? and r.id is null', s.id);
   shipped = { orderId: s.id, shippedAt: s.shipped_at, otto: otto.id };
 }, 120_000);
 afterAll(async () => t?.close());
@@ -168,7 +171,10 @@ describe('reviews', () => {
       const early = await dana.post(url).send({ rating: 5, body: 'Early' });
       expect(early.status).toBe(409);
       expect(early.body.error.code).toBe('too_soon');
-      expect((await dana.get(`/api/orders/${shipped.orderId}/reviews`)).body.lines.find((l: { lineId: string }) => l.lineId === shipped.otto)).toMatchObject({ canReview: false, reviewableFrom: from });
+      expect((await dana.get(`/api/orders/${shipped.orderId}/reviews`)).body.lines.find((l: { lineId: string }) => l.lineId === shipped.otto)).toMatchObject({
+        canReview: false,
+        reviewableFrom: from,
+      });
       clock = from;
       expect((await fern.post(url).send({ rating: 5, body: 'My own shop' })).status).toBe(403);
       expect((await sam.post(url).send({ rating: 1, body: 'Never bought it' })).status).toBe(404);
@@ -188,7 +194,7 @@ describe('reviews', () => {
       clock = saved;
     }
     // a line not shipped yet
-    const waiting = one<{ id: string }>("select id from order_lines where order_id = ? limit 1", order.id);
+    const waiting = one<{ id: string }>('select id from order_lines where order_id = ? limit 1', order.id);
     expect((await dana.post(`/api/orders/${order.id}/lines/${waiting.id}/review`).send({ rating: 5, body: 'Not yet' })).body.error.code).toBe('not_shipped');
   });
 

@@ -5,10 +5,7 @@ import { escapeHtml as esc, type Mail, mailLayout } from '../../integrations/mai
 /** Longest excerpt of the message put in the e-mail; the whole text is on the order page. */
 const EXCERPT_CHARS = 600;
 
-export function messageMail(
-  to: { email: string; name: string },
-  m: { fromName: string; orderNumber: string; body: string; hasPhoto: boolean; link: string },
-): Mail {
+export function messageMail(to: { email: string; name: string }, m: { fromName: string; orderNumber: string; body: string; hasPhoto: boolean; link: string }): Mail {
   const excerpt = m.body.length > EXCERPT_CHARS ? `${m.body.slice(0, EXCERPT_CHARS)}…` : m.body;
   const photo = m.hasPhoto ? 'A photo is attached; open the thread to see it.' : '';
   return {

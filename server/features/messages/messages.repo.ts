@@ -1,5 +1,5 @@
 // Every database call of order messages.
-import { and, asc, eq, isNull, ne, or, sql } from 'drizzle-orm';
+import { and, asc, eq, isNull, ne, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client.ts';
 import { orderMessages, orders, shops, user } from '../../db/schema.ts';
 
@@ -37,24 +37,14 @@ export const messagesRepo = {
       .where(and(eq(orderMessages.orderId, orderId), ne(orderMessages.side, 'shop'), isNull(orderMessages.shopReadAt)))
       .run().changes,
   /** messages waiting for this user: as a shopper on their orders, and as the owner of a shop on its orders */
-  unread(db: Db, userId: string, shopId: string | null): number {
-    const asShopper = and(eq(orders.buyerId, userId), ne(orderMessages.side, 'shopper'), isNull(orderMessages.shopperReadAt));
-    const asShop = shopId ? and(eq(orders.shopId, shopId), ne(orderMessages.side, 'shop'), isNull(orderMessages.shopReadAt)) : undefined;
-    return (
-      db
-        .select({ n: sql<number>`count(*)` })
-        .from(orderMessages)
-        .innerJoin(orders, eq(orders.id, orderMessages.orderId))
-        .where(asShop ? or(asShopper, asShop) : asShopper)
-        .get()?.n ?? 0
-    );
+  unread(db: Db, userId: string, shopId: string | null): { asShopper: number; asShop: number } {
+    const n = (where: ReturnType<typeof and>) => db.select({ n: sql<number>`count(*)` }).from(orderMessages).innerJoin(orders, eq(orders.id, orderMessages.orderId)).where(where).get()?.n ?? 0;
+    return {
+      asShopper: n(and(eq(orders.buyerId, userId), ne(orderMessages.side, 'shopper'), isNull(orderMessages.shopperReadAt))),
+      asShop: shopId ? n(and(eq(orders.shopId, shopId), ne(orderMessages.side, 'shop'), isNull(orderMessages.shopReadAt))) : 0,
+    };
   },
   buyer: (db: Db, userId: string) => db.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, userId)).get(),
   shopOwner: (db: Db, shopId: string) =>
-    db
-      .select({ email: user.email, name: user.name, shopName: shops.name })
-      .from(shops)
-      .innerJoin(user, eq(user.id, shops.ownerId))
-      .where(eq(shops.id, shopId))
-      .get(),
+    db.select({ email: user.email, name: user.name, shopName: shops.name }).from(shops).innerJoin(user, eq(user.id, shops.ownerId)).where(eq(shops.id, shopId)).get(),
 };

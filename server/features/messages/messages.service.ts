@@ -2,15 +2,15 @@
 // write. Each message is mailed to the other party with a link to the thread; the other party's
 // unread messages are counted for the header until they open the thread.
 import crypto from 'node:crypto';
-import { MESSAGES_PER_ORDER_MAX, type MessageSide, type MessageView, type ThreadView } from '../../../shared/schemas/message.ts';
+import { MESSAGES_PER_ORDER_MAX, type MessageSide, type MessageView, type ThreadView, type UnreadView } from '../../../shared/schemas/message.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import type { Mailer } from '../../integrations/mailer.ts';
 import type { StoredImage } from '../../integrations/storage.ts';
 import { orderParty } from '../orders/index.ts';
-import { type MessageRow, messagesRepo as repo } from './messages.repo.ts';
 import { messageMail } from './message-mails.ts';
+import { type MessageRow, messagesRepo as repo } from './messages.repo.ts';
 
 type Deps = { db: Db; now: () => number; mailer: Mailer; env: { baseUrl: string } };
 type Viewer = { user: SessionUser; shopId: string | null };
@@ -25,7 +25,8 @@ function toView(m: MessageRow, authorName: string, viewer: Viewer): MessageView 
     // the shop speaks as the shop; the team as the team; the shopper by her name
     authorName,
     body: m.body,
-    photo: m.photoPath && m.photoWidth && m.photoHeight ? { url: photoUrl(m.orderId, m.id, 'full'), thumbnailUrl: photoUrl(m.orderId, m.id, 'thumb'), width: m.photoWidth, height: m.photoHeight } : null,
+    photo:
+      m.photoPath && m.photoWidth && m.photoHeight ? { url: photoUrl(m.orderId, m.id, 'full'), thumbnailUrl: photoUrl(m.orderId, m.id, 'thumb'), width: m.photoWidth, height: m.photoHeight } : null,
     mine: m.authorId === viewer.user.id,
     createdAt: m.createdAt,
   };
@@ -83,9 +84,7 @@ export async function post(deps: Deps, orderId: string, viewer: Viewer, body: st
   if (side !== 'shopper' && buyer) recipients.push({ ...buyer, link: `${base}/orders/${encodeURIComponent(order.id)}#messages` });
   if (side !== 'shop' && owner) recipients.push({ email: owner.email, name: owner.name, link: `${base}/workroom/orders/${encodeURIComponent(order.id)}#messages` });
   for (const r of recipients) {
-    await deps.mailer
-      .send(messageMail(r, { fromName, orderNumber: order.number, body, hasPhoto: !!photo, link: r.link }))
-      .catch((e: unknown) => console.error('messages: e-mail failed', e));
+    await deps.mailer.send(messageMail(r, { fromName, orderNumber: order.number, body, hasPhoto: !!photo, link: r.link })).catch((e: unknown) => console.error('messages: e-mail failed', e));
   }
   return toView(row, side === 'shop' ? (owner?.shopName ?? 'The shop') : side === 'admin' ? 'Namesake team' : viewer.user.name, viewer);
 }
@@ -98,7 +97,10 @@ export function markRead(deps: { db: Db; now: () => number }, orderId: string, v
   return { marked: 0 };
 }
 
-export const unread = (db: Db, viewer: Viewer) => ({ count: repo.unread(db, viewer.user.id, viewer.shopId) });
+export function unread(db: Db, viewer: Viewer): UnreadView {
+  const u = repo.unread(db, viewer.user.id, viewer.shopId);
+  return { count: u.asShopper + u.asShop, ...u };
+}
 
 /** The stored file name of a message's photo, for the thread's readers only. */
 export function photoFile(db: Db, orderId: string, messageId: string, viewer: Viewer, size: 'full' | 'thumb'): string {
@@ -108,4 +110,3 @@ export function photoFile(db: Db, orderId: string, messageId: string, viewer: Vi
   if (!name) throw new AppError(404, 'not_found', 'No such photo.');
   return name;
 }
-

@@ -24,7 +24,8 @@ export function publicName(name: string): string {
 }
 
 function toView({ r, authorName, listingSlug, listingTitle }: ReviewWithNames, withHidden = false): ReviewView {
-  const photo = r.photoPath && r.photoThumbPath && r.photoWidth && r.photoHeight ? { url: uploadUrl(r.photoPath)!, thumbnailUrl: uploadUrl(r.photoThumbPath)!, width: r.photoWidth, height: r.photoHeight } : null;
+  const photo =
+    r.photoPath && r.photoThumbPath && r.photoWidth && r.photoHeight ? { url: uploadUrl(r.photoPath)!, thumbnailUrl: uploadUrl(r.photoThumbPath)!, width: r.photoWidth, height: r.photoHeight } : null;
   return {
     id: r.id,
     rating: r.rating,
@@ -46,7 +47,14 @@ const reviewableFrom = (order: OrderRow, line: OrderLineRow) => (line.state === 
 export function orderReviews(db: Db, orderId: string, viewer: Viewer, now: number): OrderReviewsView {
   const { order, side } = orderParty(db, orderId, viewer.user, viewer.shopId);
   const lines = ordersRepo.lines(db, [order.id]);
-  const byLine = new Map(repo.ofLines(db, lines.map((l) => l.id)).map((x) => [x.r.lineId, x]));
+  const byLine = new Map(
+    repo
+      .ofLines(
+        db,
+        lines.map((l) => l.id),
+      )
+      .map((x) => [x.r.lineId, x]),
+  );
   const items: LineReviewView[] = lines.map((l) => {
     const from = reviewableFrom(order, l);
     const review = byLine.get(l.id);
@@ -74,7 +82,11 @@ export function assertCanReview(db: Db, orderId: string, lineId: string, viewer:
   const from = reviewableFrom(order, line);
   if (from === null) throw new AppError(409, 'not_shipped', 'You can review this item once it has been shipped.');
   if (now < from) {
-    throw new AppError(409, 'too_soon', `You can review this item from ${new Date(from).toISOString().slice(0, 10)}, ${REVIEW_AFTER_SHIPPED_DAYS} days after it was shipped, so it has had time to arrive.`);
+    throw new AppError(
+      409,
+      'too_soon',
+      `You can review this item from ${new Date(from).toISOString().slice(0, 10)}, ${REVIEW_AFTER_SHIPPED_DAYS} days after it was shipped, so it has had time to arrive.`,
+    );
   }
   if (repo.ofLines(db, [line.id]).length) throw conflict('You have already reviewed this item.');
   return { order, line };
