@@ -18,7 +18,6 @@ const SHIPPED_AFTER_DAYS = 3;
 const ITEMS: Item[] = [
   { listing: 'Autumn fox tote with a name', name: 'Noor', textColour: 'Ink navy', motifColours: { body: 'Fox orange' }, approved: true },
   { listing: 'Spring picnic tote with hot-air balloon', name: 'Ezra', textColour: 'Thread green', motifColours: { envelope: 'Berry red' }, approved: true },
-  { listing: 'Winter lights drawstring bag with snowman', name: 'Ivy', textColour: 'Ink navy', motifColours: { 'hat-and-scarf': 'Berry red' }, approved: true },
   { listing: 'Autumn fox tote with a name', name: 'Rosa', textColour: 'Fox orange', motifColours: { body: 'Acorn brown' }, approved: true },
   { listing: 'Harvest pumpkin drawstring bag with ribbon bow', name: 'Otto', textColour: 'Acorn brown', motifColours: { stem: 'Pine flock' }, approved: true },
   { listing: 'Spring picnic tote with hot-air balloon', name: 'Mila', textColour: 'Ink navy', motifColours: { envelope: 'Thread green' }, approved: true },
@@ -33,7 +32,6 @@ const REVIEWS: Record<string, { rating: number; body: string; daysAfterShipping:
     reply: 'Thank you! Happy reading, Noor.',
   },
   Ezra: { rating: 4, daysAfterShipping: 5, body: 'Lovely colours and sturdy canvas. The balloon sits a little lower than I pictured, but it still looks great.' },
-  Ivy: { rating: 5, daysAfterShipping: 6, body: 'Bought for the winter fair. The snowman and the red scarf are bright and the letters have survived two washes.' },
   Rosa: { rating: 4, daysAfterShipping: 7, body: 'Good size for a swimming kit. The orange letters are a touch brighter than they looked on screen.' },
 };
 
