@@ -33,6 +33,15 @@ export type MessageView = {
   mine: boolean;
   createdAt: number;
 };
-export type ThreadView = { orderId: string; orderNumber: string; viewerSide: MessageSide; messages: MessageView[]; full: boolean };
+export type ThreadView = {
+  orderId: string;
+  orderNumber: string;
+  viewerSide: MessageSide;
+  messages: MessageView[];
+  /** the thread holds MESSAGES_PER_ORDER_MAX messages: no more can be posted */
+  full: boolean;
+  /** messages from the other side the viewer has not read yet (always 0 for an admin) */
+  unread: number;
+};
 /** unread messages for the header: on the user's own orders (as a shopper) and on their shop's orders */
 export type UnreadView = { count: number; asShopper: number; asShop: number };

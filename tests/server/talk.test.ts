@@ -74,13 +74,15 @@ describe('order messages', () => {
     const toShop = await eventually(async () => (await t.mailTo('fern@namesake.test')).find((m) => m.subject === `New message about order ${order.number}`));
     expect(toShop.text).toContain(`http://localhost:3000/workroom/orders/${order.id}#messages`);
     expect(toShop.html).toContain('&#60;b&#62;thanks&#60;/b&#62;');
-    expect((await fern.get('/api/messages/unread')).body.count).toBe(1);
+    expect((await fern.get('/api/messages/unread')).body).toEqual({ count: 1, asShopper: 0, asShop: 1 });
+    expect((await fern.get(url)).body.unread).toBe(1);
     expect((await dana.get('/api/messages/unread')).body.count).toBe(0);
     // an admin reading changes nobody's count
     await admin.post(`${url}/read`);
     expect((await fern.get('/api/messages/unread')).body.count).toBe(1);
     expect((await fern.post(`${url}/read`)).body.marked).toBe(1);
     expect((await fern.get('/api/messages/unread')).body.count).toBe(0);
+    expect((await fern.get(url)).body.unread).toBe(0);
 
     const answered = await fern
       .post(url)

@@ -42,6 +42,7 @@ export function thread(db: Db, orderId: string, viewer: Viewer): ThreadView {
     viewerSide: side,
     messages: rows.map(({ m, authorName }) => toView(m, m.side === 'shop' ? shopName : m.side === 'admin' ? 'Namesake team' : authorName, viewer)),
     full: rows.length >= MESSAGES_PER_ORDER_MAX,
+    unread: rows.filter(({ m }) => (side === 'shopper' ? m.side !== 'shopper' && m.shopperReadAt === null : side === 'shop' ? m.side !== 'shop' && m.shopReadAt === null : false)).length,
   };
 }
 

@@ -10,7 +10,7 @@ export function useMarkRead(orderId: string) {
   return useMutation({
     mutationFn: () => markRead(orderId),
     onSuccess: (r) => {
-      if (r.marked > 0) void qc.invalidateQueries({ queryKey: messageKeys.unread() });
+      if (r.marked > 0) void qc.invalidateQueries({ queryKey: messageKeys.all });
     },
   });
 }

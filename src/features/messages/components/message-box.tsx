@@ -48,13 +48,12 @@ export function MessageBox({ orderId, with: other }: { orderId: string; with: st
   const form = useForm<PostMessageInput>({ resolver: zodResolver(postMessageSchema), defaultValues: { body: '' } });
 
   const data = thread.data;
-  const unseen = data ? data.viewerSide !== 'admin' && data.messages.some((m) => !m.mine) : false;
+  const unread = data?.unread ?? 0;
   const { mutate: mark } = markRead;
-  // the newest message's id: a new message from the other side marks the thread read again
-  const newest = data?.messages.at(-1)?.id;
+  // opening the thread with the other side's messages unread marks them read (and the header's count drops)
   useEffect(() => {
-    if (unseen && newest) mark();
-  }, [unseen, newest, mark]);
+    if (unread > 0) mark();
+  }, [unread, mark]);
   const loaded = !!data;
   useEffect(() => {
     if (loaded && location.hash === '#messages') sectionRef.current?.scrollIntoView({ block: 'start' });
