@@ -37,7 +37,11 @@ beforeAll(async () => {
   sam = await t.signIn(other.email);
   order = one("select o.id, o.number from orders o join user u on u.id = o.buyer_id where u.email = 'dana@namesake.test' and o.shipped_at is null order by o.paid_at desc limit 1");
   const s = one<{ id: string; shipped_at: number }>('select id, shipped_at from orders where shipped_at is not null order by shipped_at limit 1');
-  const otto = one<{ id: string }>('select l.id from order_lines l left join reviews r on r.line_id = l.id where l.order_id = ? and r.id is null', s.id);
+  // the demo's pumpkin bag, shipped and not reviewed yet
+  const otto = one<{ id: string }>(
+    "select l.id from order_lines l left join reviews r on r.line_id = l.id where l.order_id = ? and r.id is null and l.listing_title = 'Harvest pumpkin drawstring bag with ribbon bow'",
+    s.id,
+  );
   shipped = { orderId: s.id, shippedAt: s.shipped_at, otto: otto.id };
 }, 120_000);
 afterAll(async () => t?.close());

@@ -9,13 +9,14 @@ import { paths } from '../../../config/paths.ts';
 import { useMe } from '../../../features/auth/api/get-me.ts';
 import { useAddCartLine } from '../../../features/cart/api/add-cart-line.ts';
 import { useListing } from '../../../features/catalog/api/get-listing.ts';
-import { ReviewList } from '../../../features/reviews/components/review-list.tsx';
 import { RatingLine } from '../../../features/reviews/components/stars.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
 import { NotFoundPage } from '../errors/not-found.tsx';
 
 // the personaliser brings the font engine (fontkit): it loads here, and only here
 const Personaliser = lazy(() => import('../../../features/personaliser/components/personaliser.tsx'));
+// the reviews sit below the fold: they load after the page, and leave its first download as it was
+const ReviewList = lazy(() => import('../../../features/reviews/components/review-list.tsx').then((m) => ({ default: m.ReviewList })));
 
 /** /listings/:slug — photos, shop, price, processing time, the personaliser, care card, safety notes. */
 export function ListingPage() {
@@ -145,7 +146,9 @@ export function ListingPage() {
           <p className="mt-2 text-ink-soft">{l.shop.returnPolicy || 'Ask the shop about returns.'}</p>
         </Card>
       </div>
-      <ReviewList source={{ kind: 'listings', slug: l.slug }} shopName={l.shop.name} isAdmin={me.data?.user.role === 'admin'} />
+      <Suspense fallback={<Spinner label="Loading reviews…" />}>
+        <ReviewList source={{ kind: 'listings', slug: l.slug }} shopName={l.shop.name} isAdmin={me.data?.user.role === 'admin'} />
+      </Suspense>
     </div>
   );
 }
