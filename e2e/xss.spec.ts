@@ -1,8 +1,9 @@
 // XSS sweep, browser half (issue 7, point 3b; a product rule: "Nothing a user types or uploads can run
 // script in anyone's browser"; OWASP ASVS 5.0.0 V1 encoding and sanitisation). Users whose names
 // and texts carry script payloads make a shop, a material, listings, an order with personalised
-// lines, a change request and a rejection reason through the API; then every page where ANOTHER
-// user sees those texts is opened in a real browser, and we assert that no payload ran: the
+// lines, a change request, a rejection reason, order messages, a review and its reply through the
+// API; then every page where ANOTHER user sees those texts is opened in a real browser, and we
+// assert that no payload ran: the
 // `window.__xss` flag is never set, no dialog opened, no `javascript:` link or inline handler made
 // it into the DOM — and that the payload text itself was shown (escaped), so the page was really
 // tested and not just empty.
@@ -131,6 +132,31 @@ test("payloads typed by sellers, shoppers and admins never run in another user's
   await check(shopper, 'shopper', 'orders', '/orders', `${P[2]} shop`);
   await check(shopper, 'shopper', 'order detail (change request)', `/orders/${mine[0].orderId}`, /Check the spelling/);
 
+  // --- order messages each way: the shop's opened by the shopper, the shopper's by the shop
+  await apiPost(seller, `/api/orders/${mine[0].orderId}/messages`, { body: `Purple is fine: ${ALL}` });
+  await apiPost(shopper, `/api/orders/${mine[0].orderId}/messages`, { body: `Thanks! ${MD}` });
+  await check(shopper, 'shopper', 'order messages (from the shop)', `/orders/${mine[0].orderId}`, /Purple is fine/);
+  await check(seller, 'seller', 'workroom order messages (from the shopper)', `/workroom/orders/${mine[0].orderId}`, /Thanks!/);
+
+  // --- a review and the shop's reply: Dana reviews a line of her order shipped days ago (the
+  // demo's), Fern replies; guests read both on the listing and the shop page, Fern on her order
+  const dana = await rolePage(browser);
+  const fern = await rolePage(browser);
+  await signIn(dana, demo.shopper);
+  await signIn(fern, demo.fern);
+  const { items: danaOrders } = await apiGet(dana, '/api/orders?limit=100');
+  let target: { orderId: string; lineId: string } | null = null;
+  for (const o of danaOrders as Array<{ id: string }>) {
+    const open = ((await apiGet(dana, `/api/orders/${o.id}/reviews`)).lines as Array<{ lineId: string; canReview: boolean }>).find((l) => l.canReview);
+    if (open) target = { orderId: o.id, lineId: open.lineId };
+  }
+  expect(target, 'the demo leaves a shipped line of Dana’s to review').toBeTruthy();
+  const review = (await apiPost(dana, `/api/orders/${target!.orderId}/lines/${target!.lineId}/review`, { rating: 4, body: `Lovely ${MD}` })).review;
+  await apiPost(fern, `/api/reviews/${review.id}/reply`, { reply: `Thank you ${ALL}` });
+  await check(guest, 'guest', 'listing reviews (review and reply)', `/listings/${review.listingSlug}#reviews`, /Lovely/);
+  await check(guest, 'guest', 'shop page reviews', '/shops/fern-and-fable-goods#reviews', /Thank you/);
+  await check(fern, 'seller', 'workroom order reviews', `/workroom/orders/${target!.orderId}`, /Lovely/);
+
   // --- the admin reads the audit log (the reason) and the captured mail (names, messages)
   await check(admin, 'admin', 'audit log', '/moderation/audit', /Please fix/);
   await check(admin, 'admin', 'mail list', '/moderation/mail', /./);
@@ -151,7 +177,7 @@ test("payloads typed by sellers, shoppers and admins never run in another user's
     expect(await admin.frameLocator('iframe[title^="Message:"]').locator('img[src="x"], svg, script').count()).toBe(0);
   }
 
-  expect(seen.length).toBeGreaterThanOrEqual(18);
+  expect(seen.length).toBeGreaterThanOrEqual(23);
 
   // tidy up: suspend the test shop so its listing leaves the public catalogue other specs browse
   await apiPost(admin, `/api/moderation/shops/${shop.id}/suspend`, { reason: 'End of the XSS sweep.' });

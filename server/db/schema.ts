@@ -537,3 +537,69 @@ export const orderByDates = sqliteTable(
   },
   (t) => [index('order_by_dates_shop_idx').on(t.shopId, t.orderBy)],
 );
+
+// ---------------------------------------------------------------- order messages (issue 16)
+/** One message in an order's thread between its shopper and its shop (admins read it too). */
+export const orderMessages = sqliteTable(
+  'order_messages',
+  {
+    id: id(),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id, { onDelete: 'cascade' }),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => user.id),
+    /** shopper | shop | admin: which side wrote it (the other side is told and counts it unread) */
+    side: text('side').notNull(),
+    body: text('body').notNull(),
+    /** an attached photo, re-encoded by the upload checks, kept in a private folder (served only to the thread's readers) */
+    photoPath: text('photo_path'),
+    photoThumbPath: text('photo_thumb_path'),
+    photoWidth: integer('photo_width'),
+    photoHeight: integer('photo_height'),
+    /** when the shopper read a shop/admin message; null: unread */
+    shopperReadAt: integer('shopper_read_at'),
+    /** when the shop read a shopper/admin message; null: unread */
+    shopReadAt: integer('shop_read_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('order_messages_order_idx').on(t.orderId, t.createdAt)],
+);
+
+// ---------------------------------------------------------------- reviews (issue 16)
+/** A shopper's review of one shipped order line: one per line; the shop may reply once; admins may hide it. */
+export const reviews = sqliteTable(
+  'reviews',
+  {
+    id: id(),
+    lineId: text('line_id')
+      .notNull()
+      .references(() => orderLines.id, { onDelete: 'cascade' }),
+    orderId: text('order_id')
+      .notNull()
+      .references(() => orders.id, { onDelete: 'cascade' }),
+    listingId: text('listing_id')
+      .notNull()
+      .references(() => listings.id),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id),
+    authorId: text('author_id')
+      .notNull()
+      .references(() => user.id),
+    /** 1 … 5 */
+    rating: integer('rating').notNull(),
+    body: text('body').notNull(),
+    photoPath: text('photo_path'),
+    photoThumbPath: text('photo_thumb_path'),
+    photoWidth: integer('photo_width'),
+    photoHeight: integer('photo_height'),
+    reply: text('reply'),
+    repliedAt: integer('replied_at'),
+    hiddenAt: integer('hidden_at'),
+    hiddenReason: text('hidden_reason'),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('reviews_line_uq').on(t.lineId), index('reviews_listing_idx').on(t.listingId, t.createdAt), index('reviews_shop_idx').on(t.shopId, t.createdAt)],
+);

@@ -26,7 +26,7 @@ const DEMO_SHIP_TO: ShipTo = { name: 'Dana Whitlock', line1: '12 Acorn Lane', li
 const DAY = 86_400_000;
 
 /** One demo purchase: the listing (by title), the name, the colours by material colour name. */
-type Item = { listing: string; name: string; font?: string; textColour: string; motifColours?: Record<string, string>; quantity?: number; approved: boolean };
+export type Item = { listing: string; name: string; font?: string; textColour: string; motifColours?: Record<string, string>; quantity?: number; approved: boolean };
 
 // Two names are left to be checked on purpose: "mIRA" (mixed case) and "Zoë" typed with a
 // combining diaeresis (U+0065 U+0308) rather than the precomposed U+00EB.
@@ -150,23 +150,29 @@ async function completedEvent(stripe: Stripe, sessionId: string): Promise<Stripe
 }
 
 export async function seedOrders(deps: AppDeps, ctx: SeedContext): Promise<void> {
+  await seedPurchases(deps, ctx, [...PURCHASES, ...SATURDAY_PURCHASES]);
+}
+
+/** Buys `purchases` for Dana in Fern & Fable Goods as above; returns the orders made, oldest purchase first. */
+export async function seedPurchases(deps: AppDeps, ctx: SeedContext, purchases: Array<{ daysAgo: number; items: Item[] }>): Promise<string[]> {
   const shopId = ctx.shopIds['fern-and-fable-goods'];
   const buyerId = ctx.userIds['dana@namesake.test'];
   const sellerId = ctx.userIds['fern@namesake.test'];
-  if (!shopId || !buyerId || !sellerId) return;
+  if (!shopId || !buyerId || !sellerId) return [];
   const provider = await demoPaymentProvider(deps.env);
   if (!provider) {
     console.log('  demo orders skipped: they are paid with a test card at the local payment fake, and STRIPE_API_BASE names a real provider');
-    return;
+    return [];
   }
   try {
-    await buyAll({ ...deps, env: provider.env }, shopId, buyerId, sellerId);
+    return await buyAll({ ...deps, env: provider.env }, shopId, buyerId, sellerId, purchases);
   } finally {
     await provider.close();
   }
 }
 
-async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: string): Promise<void> {
+async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: string, purchases: Array<{ daysAgo: number; items: Item[] }>): Promise<string[]> {
+  const made: string[] = [];
   const db = deps.db;
   const mats = new Map(seedRepo.materialsOf(db, shopId).map((m) => [m.colourName, m.id]));
   const shopListings = seedRepo.liveListingsOf(db, shopId);
@@ -180,7 +186,7 @@ async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: 
   const now = deps.now();
   const at = (ms: number): AppDeps => ({ ...deps, now: () => ms });
 
-  for (const [k, purchase] of [...PURCHASES, ...SATURDAY_PURCHASES].entries()) {
+  for (const [k, purchase] of purchases.entries()) {
     const paidAt = now - purchase.daysAgo * DAY - k * 3_600_000;
     const dana = { userId: buyerId, cookieCartId: null };
     const cart = resolveCart(at(paidAt - 600_000), dana, { create: true }).cart!;
@@ -214,5 +220,7 @@ async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: 
       .filter((l) => wanted.some((w) => w.approved && w.listingId === l.listingId && Object.values((l.snapshot as LineSnapshot).choices.texts).some((t) => t.text === w.name)))
       .map((l) => l.id);
     if (toApprove.length) approve(at(paidAt + 6 * 3_600_000), shopId, sellerId, toApprove);
+    made.push(order.id);
   }
+  return made;
 }

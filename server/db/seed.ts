@@ -8,6 +8,7 @@ import { seedCatalog } from './seed-catalog.ts';
 import type { SeedContext } from './seed-context.ts';
 import { seedOffers } from './seed-offers.ts';
 import { seedOrders } from './seed-orders.ts';
+import { seedReviews } from './seed-reviews.ts';
 
 const SHOPS = [
   {
@@ -83,4 +84,5 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
   await seedCatalog(deps, ctx);
   await seedOrders(deps, ctx);
   seedOffers(deps, ctx);
+  await seedReviews(deps, ctx);
 }

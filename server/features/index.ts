@@ -9,11 +9,13 @@ import { checkoutRouter } from './checkout/index.ts';
 import { engineRouter } from './engine/index.ts';
 import { listingsRouter } from './listings/index.ts';
 import { materialsRouter } from './materials/index.ts';
+import { messagesRouters } from './messages/index.ts';
 import { moderationRouter } from './moderation/index.ts';
 import { publicOffersRouter, sellerOffersRouter } from './offers/index.ts';
 import { ordersRouter } from './orders/index.ts';
 import { paymentsWebhookRouter } from './payments/index.ts';
 import { refundsRouter } from './refunds/index.ts';
+import { reviewsRouters } from './reviews/index.ts';
 import { shopsRouter } from './shops/index.ts';
 import { uploadsApiRouter } from './uploads/index.ts';
 import { proofEditRouter, workroomRouter } from './workroom/index.ts';
@@ -27,6 +29,8 @@ type Mounted = { path: string; router: Router };
  */
 export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[] } {
   const uploads = uploadsApiRouter(deps);
+  const messages = messagesRouters(deps);
+  const reviews = reviewsRouters(deps);
   return {
     raw: [
       { path: '/api/payments/webhook', router: paymentsWebhookRouter(deps) },
@@ -46,6 +50,10 @@ export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[]
       { path: '/api/checkout', router: checkoutRouter(deps) },
       { path: '/api/orders', router: ordersRouter(deps) },
       { path: '/api/orders', router: refundsRouter(deps) },
+      { path: '/api/orders', router: messages.thread },
+      { path: '/api/messages', router: messages.unread },
+      { path: '/api/orders', router: reviews.orders },
+      { path: '/api/reviews', router: reviews.reviews },
       { path: '/api/workroom', router: workroomRouter(deps) },
       { path: '/api/business', router: businessRouter(deps) },
       { path: '/api/seller/offers', router: sellerOffersRouter(deps) },

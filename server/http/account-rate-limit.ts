@@ -17,6 +17,8 @@ export type RateLimits = {
   cutSheetsPerMinute: number;
   /** Work sheet PDF jobs started per account per minute. */
   pdfJobsPerMinute: number;
+  /** Order messages, reviews and shop replies per account per minute: each may send someone an e-mail. */
+  messagesPerMinute: number;
 };
 
 export const DEFAULT_RATE_LIMITS: RateLimits = Object.freeze({
@@ -24,6 +26,7 @@ export const DEFAULT_RATE_LIMITS: RateLimits = Object.freeze({
   cartAddsPerMinute: 60,
   cutSheetsPerMinute: 20,
   pdfJobsPerMinute: 10,
+  messagesPerMinute: 10,
 });
 
 /** A limiter of `limit` requests per minute per account; past it, 429 naming what and how many. */

@@ -8,7 +8,7 @@
 import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
-import { type RequestHandler, Router } from 'express';
+import { type NextFunction, type RequestHandler, type Response, Router } from 'express';
 import { fileTypeFromBuffer } from 'file-type';
 import multer from 'multer';
 import sharp, { type Metadata, type OutputInfo } from 'sharp';
@@ -112,8 +112,9 @@ export const uploadUrl = (fileName: string | null | undefined): string | null =>
  * Multer with memory storage: the bytes stay in memory until checked, so nothing refused is
  * written. One file per request, in the field `file`. Size errors become our error shape.
  */
-export function singleFile(maxBytes: number): RequestHandler {
-  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 8, fieldSize: 1024, parts: 10 } }).single('file');
+export function singleFile(maxBytes: number, opts: { fieldSize?: number } = {}): RequestHandler {
+  // text fields are 1 kB unless the route takes longer text with its file (a message, a review)
+  const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: maxBytes, files: 1, fields: 8, fieldSize: opts.fieldSize ?? 1024, parts: 10 } }).single('file');
   return (req, res, next) => {
     upload(req, res, (err: unknown) => {
       if (!err) return next();
@@ -129,18 +130,35 @@ export function singleFile(maxBytes: number): RequestHandler {
 /** 8 MB, 512 kB: whole megabytes when the limit is one, else kilobytes (a 512 kB cap is not "1 MB") */
 const sizeLabel = (bytes: number) => (bytes >= 1024 * 1024 && bytes % (1024 * 1024) === 0 ? `${bytes / 1024 / 1024} MB` : `${Math.round(bytes / 1024)} kB`);
 
+/** Sends one stored image of `dir` by its random name: the right type, nosniff, and no script ever; 404 otherwise. */
+export function sendStoredImage(res: Response, next: NextFunction, dir: string, name: string, cache: 'public' | 'private' = 'public'): void {
+  if (!NAME.test(name)) {
+    next(new AppError(404, 'not_found', 'No such file.'));
+    return;
+  }
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox");
+  res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
+  // a private image (an order message's photo) is never kept by shared caches
+  if (cache === 'private') res.setHeader('Cache-Control', 'private, max-age=3600');
+  res.sendFile(
+    path.join(dir, name),
+    {
+      maxAge: cache === 'public' ? '365d' : undefined,
+      immutable: cache === 'public',
+      cacheControl: cache === 'public',
+      dotfiles: 'deny',
+      headers: { 'Content-Type': name.endsWith('.jpg') ? 'image/jpeg' : 'image/webp' },
+    },
+    (err) => {
+      if (err && !res.headersSent) next(new AppError(404, 'not_found', 'No such file.'));
+    },
+  );
+}
+
 /** GET /uploads/<name>: only our own random names, the right type, nosniff, and no script ever. */
 export function uploadsRouter(dir: string): Router {
   const r = Router();
-  r.get('/:name', (req, res, next) => {
-    const name = req.params.name;
-    if (!NAME.test(name)) return next(new AppError(404, 'not_found', 'No such file.'));
-    res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.setHeader('Content-Security-Policy', "default-src 'none'; sandbox");
-    res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
-    res.sendFile(path.join(dir, name), { maxAge: '365d', immutable: true, dotfiles: 'deny', headers: { 'Content-Type': name.endsWith('.jpg') ? 'image/jpeg' : 'image/webp' } }, (err) => {
-      if (err && !res.headersSent) next(new AppError(404, 'not_found', 'No such file.'));
-    });
-  });
+  r.get('/:name', (req, res, next) => sendStoredImage(res, next, dir, req.params.name));
   return r;
 }

@@ -3,6 +3,7 @@ import { z } from 'zod';
 import type { StoredMotifGeometry } from '../engine/motif.ts';
 import { blankKindSchema, type ListingContent, occasionSchema } from './listing.ts';
 import { type Page, pageQuery, pageSchema } from './pagination.ts';
+import type { RatingSummary } from './review.ts';
 import { SHOP_STATES, type ShopState } from './shop.ts';
 
 export const CATALOG_PAGE_SIZE = 24;
@@ -48,6 +49,8 @@ export type CatalogPage = z.infer<typeof catalogPageSchema>;
 export type PublicShop = {
   shop: { name: string; slug: string; description: string; processingDays: number; shippingMinor: number; currency: string; returnPolicy: string; logoUrl: string | null };
   listings: CatalogItem[];
+  /** average and count of the shop's visible reviews */
+  rating: RatingSummary;
 };
 
 export const listingSlugParams = z.object({ slug: z.string().min(1).max(120) });
@@ -74,6 +77,8 @@ export type ListingPage = {
   careCard: string[];
   /** present only when the listing has small decorations */
   safetyNotes: string[] | null;
+  /** average and count of the listing's visible reviews (for the page and a Product's AggregateRating) */
+  rating: RatingSummary;
 };
 
 /** Care card for buyers (common practice, no published source; DEVELOPERS.md, "Care card and safety notes"). */

@@ -226,6 +226,22 @@ export async function makeSweepWorld() {
   };
   const mail = (await t.mailTo('dana@namesake.test'))[0];
 
+  // a message with a photo on one of Dana's orders, and a seeded review of Fern's shop not yet replied to
+  const messageText = `Sweep message ${marker}`;
+  const message = await dana
+    .post(`/api/orders/${approved.order_id}/messages`)
+    .field('body', messageText)
+    .attach(
+      'file',
+      await sharp({ create: { width: 30, height: 20, channels: 3, background: '#7a4fa0' } })
+        .png()
+        .toBuffer(),
+      { filename: 'q.png', contentType: 'image/png' },
+    );
+  if (message.status !== 201) throw new Error(`message: ${message.status} ${JSON.stringify(message.body)}`);
+  const review = one<{ id: string } | undefined>(sqlite, 'select id from reviews where shop_id = ? and reply is null limit 1', fernShop.id);
+  if (!review) throw new Error('the seed has no review of Fern’s shop without a reply');
+
   const ids = {
     danaId,
     fernId,
@@ -252,6 +268,8 @@ export async function makeSweepWorld() {
     pendingShop: pending.shopId,
     pendingListing: pendingListing.id,
     mailId: mail ? String((mail as { id: string }).id) : 'none',
+    message: String(message.body.message.id),
+    review: review.id,
   };
   /** strings only the owner (or an admin) may see */
   const secrets = [
@@ -268,6 +286,8 @@ export async function makeSweepWorld() {
     ...danaOrders.flatMap((o) => [o.id, o.number]),
     ids.approvedLine,
     ids.changeLine,
+    messageText,
+    ids.message,
   ];
 
   /** rows that belong to Fern, Dana, the pending shop and the admin-call target (what a refused call must not touch) */
@@ -289,6 +309,8 @@ export async function makeSweepWorld() {
     q('select * from carts where user_id = ? order by id', danaId);
     q('select c.* from cart_lines c join carts k on k.id = c.cart_id where k.user_id = ? order by c.id', danaId);
     q('select * from checkouts where user_id = ? order by id', danaId);
+    q('select m.* from order_messages m join orders o on o.id = m.order_id where o.buyer_id = ? or o.shop_id = ? order by m.id', danaId, fernShop.id);
+    q('select * from reviews where shop_id = ? or author_id = ? order by id', fernShop.id, danaId);
     return h.digest('hex');
   };
 

@@ -20,8 +20,8 @@ afterAll(async () => t?.close());
 describe('demo orders', () => {
   it('when seeded, then every demo order is paid at the provider, paid out to the shop and in the states the workroom expects', async () => {
     const all = t.db.select().from(orders).all();
-    // four single-name purchases and the five of the Saturday run
-    expect(all).toHaveLength(9);
+    // four single-name purchases, the five of the Saturday run, and an older one shipped and reviewed (server/db/seed-reviews.ts)
+    expect(all).toHaveLength(10);
     for (const o of all) {
       const c = t.db.select().from(checkouts).where(eq(checkouts.id, o.checkoutId)).get()!;
       const pi = await stripe.paymentIntents.retrieve(c.paymentIntentId!);
@@ -40,6 +40,7 @@ describe('demo orders', () => {
       .map((l) => l.state);
     expect(states.filter((s) => s === 'approved')).toHaveLength(41);
     expect(states.filter((s) => s === 'awaiting_proof')).toHaveLength(3);
+    expect(states.filter((s) => s === 'shipped')).toHaveLength(5);
   });
 
   it('when the admin refunds a demo order line, then the provider refunds it and the transfer is reversed for the shop’s share', async () => {

@@ -155,6 +155,19 @@ const SPECS: Record<string, Spec> = {
   'POST /api/layout/text': S('public', { body: () => ({ text: 'Ada', fontId: 'baloo-bold', letterHeightMm: 40 }) }),
   'GET /api/listings/:slug': S('public', { url: (i) => `/api/listings/${i.liveSlug}` }),
   'GET /api/shops/:slug': S('public', { url: (i) => `/api/shops/${i.fernSlug}` }),
+  // an order's thread: its shopper, its shop and admins (who read it and may write)
+  'GET /api/orders/:id/messages': S('owner', { url: (i) => `/api/orders/${i.orderA}/messages`, owner: 'dana', admin: true }),
+  'POST /api/orders/:id/messages': S('owner', { url: (i) => `/api/orders/${i.orderA}/messages`, body: () => ({ body: 'Sweep says hello' }), admin: true }),
+  'POST /api/orders/:id/messages/read': S('owner', { url: (i) => `/api/orders/${i.orderA}/messages/read`, admin: true }),
+  'GET /api/orders/:id/messages/:messageId/photo': S('owner', { url: (i) => `/api/orders/${i.orderA}/messages/${i.message}/photo`, owner: 'dana', admin: true }),
+  'GET /api/messages/unread': S('mine'),
+  // reviews: an order's lines (its shopper, shop, admins); writing only by the shopper; the reply by the shop; hiding by admins
+  'GET /api/orders/:id/reviews': S('owner', { url: (i) => `/api/orders/${i.orderA}/reviews`, owner: 'dana', admin: true }),
+  'POST /api/orders/:id/lines/:lineId/review': S('owner', { url: (i) => `/api/orders/${i.orderA}/lines/${i.approvedLine}/review`, body: () => ({ rating: 1, body: 'Sweep review' }) }),
+  'GET /api/reviews/listings/:slug': S('public', { url: (i) => `/api/reviews/listings/${i.liveSlug}` }),
+  'GET /api/reviews/shops/:slug': S('public', { url: (i) => `/api/reviews/shops/${i.fernSlug}` }),
+  'POST /api/reviews/:id/reply': S('owner', { url: (i) => `/api/reviews/${i.review}/reply`, body: () => ({ reply: 'Sweep reply' }) }),
+  'POST /api/reviews/:id/hide': S('admin', { url: (i) => `/api/reviews/${i.review}/hide`, body: () => ({ reason: 'Sweep reason' }) }),
 };
 
 /**

@@ -1,7 +1,8 @@
-// Upload sweep across every route that takes a file (photo, logo, shop logo, motif): wrong magic
+// Upload sweep across every route that takes a file (photo, logo, shop logo, motif, order message, review): wrong magic
 // bytes, oversize, pixel flood, and for SVG script/foreignObject/entities/entity expansion — each
 // refused with a clear message, nothing written to disk or to the database (OWASP ASVS 5.2.1
 // size, 5.2.2 magic bytes, 5.2.6 pixel flood, 1.3.4 SVG script, 1.5.1 external entities).
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import sharp from 'sharp';
 import type { Agent } from 'supertest';
@@ -9,13 +10,48 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { makeTestApp, type TestApp } from '../factories/app.ts';
 import { pngHeader } from '../factories/images.ts';
 import { dbFingerprint } from '../factories/sweep.ts';
+import { createListing } from './listings.fixtures.ts';
 
 let t: TestApp;
 let seller: Agent;
+let shopper: Agent;
+/** an order of the shopper's in the seller's shop, with one line shipped long enough ago to review */
+let order: { id: string; lineId: string };
 beforeAll(async () => {
   t = await makeTestApp();
-  seller = await t.signIn((await t.makeSeller()).email);
+  const s = await t.makeSeller();
+  seller = await t.signIn(s.email);
+  const buyer = await t.makeUser('shopper');
+  shopper = await t.signIn(buyer.email);
+  order = shippedOrder(t, s.shopId, buyer.id, (await createListing(seller)).id);
 }, 60_000);
+
+/** The rows of a paid, shipped order, written directly (the checkout's own tests make real ones). */
+function shippedOrder(app: TestApp, shopId: string, buyerId: string, listingId: string) {
+  const at = Date.now() - 30 * 86_400_000;
+  const ids = { checkout: crypto.randomUUID(), order: crypto.randomUUID(), line: crypto.randomUUID() };
+  const run = (q: string, ...a: unknown[]) => app.sqlite.prepare(q).run(...a);
+  run("insert into checkouts (id, user_id, cart_id, state, currency, total_minor, priced, created_at) values (?, ?, 'cart', 'paid', 'USD', 2000, '{}', ?)", ids.checkout, buyerId, at);
+  run(
+    "insert into orders (id, number, checkout_id, shop_id, buyer_id, currency, subtotal_minor, shipping_minor, platform_fee_minor, total_minor, paid_at, shipped_at, created_at) values (?, 'NS-9001', ?, ?, ?, 'USD', 2000, 0, 160, 2000, ?, ?, ?)",
+    ids.order,
+    ids.checkout,
+    shopId,
+    buyerId,
+    at,
+    at + 86_400_000,
+    at,
+  );
+  run(
+    "insert into order_lines (id, order_id, listing_id, listing_title, quantity, unit_price_minor, total_minor, state, snapshot, created_at, updated_at) values (?, ?, ?, 'Tote', 1, 2000, 2000, 'shipped', '{}', ?, ?)",
+    ids.line,
+    ids.order,
+    listingId,
+    at,
+    at,
+  );
+  return { id: ids.order, lineId: ids.line };
+}
 afterAll(async () => t?.close());
 
 const filesOnDisk = () => (fs.existsSync(t.env.uploadsDir) ? fs.readdirSync(t.env.uploadsDir, { recursive: true }).map(String).sort() : []);
@@ -72,6 +108,16 @@ const ROUTES: Array<{ route: string; send: (file: Buffer) => ReturnType<Agent['p
   { route: 'POST /api/uploads (logo)', send: (f) => seller.post('/api/uploads').field('kind', 'logo').attach('file', f, { filename: 'logo.png', contentType: 'image/png' }), bad: IMAGE_BAD },
   { route: 'POST /api/shop/logo', send: (f) => seller.post('/api/shop/logo').attach('file', f, { filename: 'logo.png', contentType: 'image/png' }), bad: IMAGE_BAD },
   { route: 'POST /api/motifs', send: (f) => seller.post('/api/motifs').field('name', 'Sweep').attach('file', f, { filename: 'm.svg', contentType: 'image/svg+xml' }), bad: MOTIF_BAD },
+  {
+    route: 'POST /api/orders/:id/messages (photo)',
+    send: (f) => seller.post(`/api/orders/${order.id}/messages`).field('body', 'A swatch').attach('file', f, { filename: 'swatch.png', contentType: 'image/png' }),
+    bad: IMAGE_BAD,
+  },
+  {
+    route: 'POST /api/orders/:id/lines/:lineId/review (photo)',
+    send: (f) => shopper.post(`/api/orders/${order.id}/lines/${order.lineId}/review`).field('rating', '5').field('body', 'Lovely').attach('file', f, { filename: 'bag.png', contentType: 'image/png' }),
+    bad: IMAGE_BAD,
+  },
 ];
 
 describe('upload sweep', () => {
@@ -98,6 +144,6 @@ describe('upload sweep', () => {
   }, 120_000);
 
   test('when a good file goes to each image route, then it is accepted (the refusals above are not blanket)', async () => {
-    for (const r of ROUTES.slice(0, 3)) expect((await r.send(await png())).status, r.route).toBeLessThan(300);
+    for (const r of ROUTES.filter((x) => x.bad === IMAGE_BAD)) expect((await r.send(await png())).status, r.route).toBeLessThan(300);
   });
 });

@@ -7,6 +7,7 @@
 
 import request, { type Agent } from 'supertest';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { messageMail } from '../../server/features/messages/message-mails.ts';
 import { confirmationMail, newOrderMail, refundMail } from '../../server/features/orders/order-mails.ts';
 import { changeRequestMail, shippedMail } from '../../server/features/workroom/workroom-mails.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
@@ -56,6 +57,7 @@ describe('XSS payloads in user-typed text (server half)', () => {
     const slug = (await fern.get('/api/shop')).body.shop.slug as string;
     const waiting = ((await fern.get('/api/workroom/lines?state=awaiting_proof&limit=100')).body.items as { id: string }[]).map((l) => l.id);
 
+    const who0 = { email: 'x@namesake.test', name: 'Pat' };
     for (const [i, p] of XSS_PAYLOADS.entries()) {
       // shop name, description and return policy → the public shop page and listing page
       const shop = await fern.patch('/api/shop').send({ name: `Fern ${p}`.slice(0, 60), description: `About us ${p}`, returnPolicy: `Returns ${p}` });
@@ -117,6 +119,18 @@ describe('XSS payloads in user-typed text (server half)', () => {
         checkJson('proof', (await fern.get(`/api/workroom/lines/${waiting[i]}/proof`)).body);
       }
 
+      // an order message each way → the other party's mail, and the thread both of them read
+      const threadOrder = (await dana.get('/api/orders')).body.items[0].id as string;
+      before = await seen('fern@namesake.test');
+      expect((await dana.post(`/api/orders/${threadOrder}/messages`).send({ body: `Question ${p}` })).status).toBe(201);
+      checkMail(`message mail to the shop (payload ${i})`, (await newMail('fern@namesake.test', before, /New message/)).html);
+      before = await seen('dana@namesake.test');
+      expect((await fern.post(`/api/orders/${threadOrder}/messages`).send({ body: `Answer ${p}` })).status).toBe(201);
+      checkMail(`message mail to the shopper (payload ${i})`, (await newMail('dana@namesake.test', before, /New message/)).html);
+      checkJson('order thread', (await fern.get(`/api/orders/${threadOrder}/messages`)).body);
+      checkMail('message mail (template)', messageMail(who0, { fromName: `Shop ${p}`, orderNumber: 'NS-1', body: p, hasPhoto: true, link: 'http://localhost:3000/orders/o1#messages' }).html);
+      typed('order message');
+
       // the order, shipping and refund mails, built by the same functions the checkout webhook,
       // the workroom and refunds call: payload in names, shop name, titles and personalisation text
       const snapshot = { summary: [{ label: `Name ${p}`, value: p }] } as unknown as LineSnapshot;
@@ -146,6 +160,19 @@ describe('XSS payloads in user-typed text (server half)', () => {
       );
       typed('personalisation label', 'personalisation text', 'buyer name', 'order line title', 'refund reason', 'carrier', 'tracking number');
     }
+
+    // a review and the shop's reply → the listing's, the shop's and the order's review answers
+    const all = XSS_PAYLOADS.join(' ');
+    const shippedOrder = (t.sqlite.prepare('select id from orders where shipped_at is not null limit 1').get() as { id: string }).id;
+    const open = ((await dana.get(`/api/orders/${shippedOrder}/reviews`)).body.lines as { lineId: string; canReview: boolean }[]).find((l) => l.canReview);
+    expect(open, 'the demo leaves one shipped line to review').toBeTruthy();
+    const review = await dana.post(`/api/orders/${shippedOrder}/lines/${open!.lineId}/review`).send({ rating: 4, body: `Lovely ${all}` });
+    expect(review.status).toBe(201);
+    expect((await fern.post(`/api/reviews/${review.body.review.id}/reply`).send({ reply: `Thanks ${all}` })).status).toBe(200);
+    typed('review text', 'review reply');
+    checkJson('listing reviews', (await request(t.app).get(`/api/reviews/listings/${review.body.review.listingSlug}`)).body);
+    checkJson('shop reviews', (await request(t.app).get(`/api/reviews/shops/${slug}`)).body);
+    checkJson('order reviews', (await fern.get(`/api/orders/${shippedOrder}/reviews`)).body);
 
     // the seller's workroom shows the shoppers' names and personalisation text as data only
     checkJson('workroom lines', (await fern.get('/api/workroom/lines')).body);

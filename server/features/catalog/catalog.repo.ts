@@ -149,3 +149,4 @@ export const shopOwnedBy = (db: Db, userId: string) => db.select({ id: shops.id 
 export const photosOf = (db: Db, shopId: string, ids: string[]) => amongShop(db, uploads, getTableColumns(uploads), shopId, ids);
 export const motifsOf = (db: Db, shopId: string, ids: string[]) => amongShop(db, motifs, getTableColumns(motifs), shopId, ids);
 export const materialsOf = (db: Db, shopId: string, ids: string[]) => amongShop(db, materials, materialSwatch, shopId, ids);
+export { visibleRatings } from '../../db/shared-queries.repo.ts';

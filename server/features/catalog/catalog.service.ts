@@ -1,6 +1,7 @@
 import { CARE_CARD, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage, type PublicShop, SMALL_PARTS_NOTES } from '../../../shared/schemas/catalog.ts';
 import { materialIdsOf, type Occasion } from '../../../shared/schemas/listing.ts';
 import { toPage } from '../../../shared/schemas/pagination.ts';
+import { type RatingSummary, ratingSummary } from '../../../shared/schemas/review.ts';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
@@ -47,6 +48,7 @@ export function publicShop(db: Db, slug: string): PublicShop {
       logoUrl: uploadUrl(s.logoPath),
     },
     listings: items,
+    rating: shopRating(db, s.id),
   };
 }
 
@@ -93,5 +95,19 @@ export function listingPage(db: Db, slug: string, version: 'live' | 'draft', vie
     materials: repo.materialsOf(db, shop.id, materialIdsOf(content.personalisation)),
     careCard: [...CARE_CARD],
     safetyNotes: content.hasSmallDecorations ? [...SMALL_PARTS_NOTES] : null,
+    rating: listingRating(db, listing.id),
   };
 }
+
+/**
+ * Average and count of a listing's visible reviews: on the listing page's answer as `rating`, and
+ * the value a Product's AggregateRating (ratingValue, reviewCount) is made from; null average: none yet.
+ */
+export const listingRating = (db: Db, listingId: string): RatingSummary => {
+  const r = repo.visibleRatings(db, { listingId });
+  return ratingSummary(r.sum, r.count);
+};
+export const shopRating = (db: Db, shopId: string): RatingSummary => {
+  const r = repo.visibleRatings(db, { shopId });
+  return ratingSummary(r.sum, r.count);
+};

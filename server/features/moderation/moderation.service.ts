@@ -13,7 +13,8 @@ import * as repo from './moderation.repo.ts';
 
 type Deps = { db: Db; now: () => number; mailer: Mailer; env: { baseUrl: string } };
 
-function audit(deps: Deps, actor: SessionUser, action: string, subjectType: 'shop' | 'listing', subjectId: string, reason: string | null) {
+/** One audit-log row: every moderation decision, and other admin acts on people's content (hiding a review). */
+export function recordAudit(deps: Pick<Deps, 'db' | 'now'>, actor: SessionUser, action: string, subjectType: 'shop' | 'listing' | 'review', subjectId: string, reason: string | null) {
   repo.insertAudit(deps.db, { id: crypto.randomUUID(), actorId: actor.id, action, subjectType, subjectId, reason, createdAt: deps.now() });
 }
 
@@ -156,7 +157,7 @@ export async function approveListing(deps: Deps, actor: SessionUser, id: string,
       updatedAt: at,
     });
     if (!updated) throw stale(STALE_LISTING_MESSAGE);
-    audit(deps, actor, 'listing.approve', 'listing', id, null);
+    recordAudit(deps, actor, 'listing.approve', 'listing', id, null);
     return updated;
   });
   await tell(deps, l.shopId, `Approved: ${content.title}`, [
@@ -179,7 +180,7 @@ export async function rejectListing(deps: Deps, actor: SessionUser, id: string, 
       l.live ? { pendingReview: false, rejectionReason: reason, updatedAt: at } : { state: 'rejected', rejectionReason: reason, updatedAt: at },
     );
     if (!updated) throw stale(STALE_LISTING_MESSAGE);
-    audit(deps, actor, 'listing.reject', 'listing', id, reason);
+    recordAudit(deps, actor, 'listing.reject', 'listing', id, reason);
     return updated;
   });
   await tell(deps, l.shopId, `Changes needed: ${content.title}`, [
@@ -212,7 +213,7 @@ export async function moveShop(deps: Deps, actor: SessionUser, id: string, move:
   if (move === 'approve' && revision !== undefined && revision !== shop.changeRevision) throw stale(STALE_SHOP_CHANGE_MESSAGE);
   const row = deps.db.transaction((tx) => {
     const updated = repo.updateShop(tx as unknown as Db, id, { state: m.to, stateReason: reason, updatedAt: deps.now() })!;
-    audit(deps, actor, m.action, 'shop', id, reason);
+    recordAudit(deps, actor, m.action, 'shop', id, reason);
     return updated;
   });
   const text: Record<ShopMove, string[]> = {
@@ -248,7 +249,7 @@ export async function approveShopChange(deps: Deps, actor: SessionUser, id: stri
       updatedAt: deps.now(),
     });
     if (!updated) throw stale(STALE_SHOP_CHANGE_MESSAGE);
-    audit(deps, actor, 'shop.change.approve', 'shop', id, null);
+    recordAudit(deps, actor, 'shop.change.approve', 'shop', id, null);
     return updated;
   });
   await tell(deps, id, 'Your shop details are approved', [
@@ -264,7 +265,7 @@ export async function rejectShopChange(deps: Deps, actor: SessionUser, id: strin
   const row = deps.db.transaction((tx) => {
     const updated = repo.updateShopAt(tx as unknown as Db, id, revision, { pendingChange: null, changeRejectionReason: reason, updatedAt: deps.now() });
     if (!updated) throw stale(STALE_SHOP_CHANGE_MESSAGE);
-    audit(deps, actor, 'shop.change.reject', 'shop', id, reason);
+    recordAudit(deps, actor, 'shop.change.reject', 'shop', id, reason);
     return updated;
   });
   await tell(deps, id, 'Your shop details were not approved', [

@@ -3,6 +3,7 @@
 // from a paid checkout, read and show them, and mail about them.
 
 export { assertEachCanMove, assertMove, type LineMove, recordFirstState, transition, transitionAll } from './line-state.ts';
+export { type OrderParty, orderParty } from './order-access.ts';
 export { confirmationMail, type MailOrder, newOrderMail, refundMail } from './order-mails.ts';
 export { orderDetail } from './order-view.ts';
 export { type OrderLineRow, type OrderRow, ordersRepo } from './orders.repo.ts';

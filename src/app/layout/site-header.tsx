@@ -5,6 +5,7 @@ import { useToast } from '../../components/ui/toast.tsx';
 import { paths } from '../../config/paths.ts';
 import { useMe } from '../../features/auth/api/get-me.ts';
 import { useSignOut } from '../../features/auth/api/sign-out.ts';
+import { useUnread } from '../../features/messages/api/get-unread.ts';
 import { Wordmark } from './wordmark.tsx';
 
 type NavItem = {
@@ -48,6 +49,17 @@ const linkClasses = ({ isActive }: { isActive: boolean }) =>
   'flex min-h-11 items-center rounded-lg px-3 font-bold whitespace-nowrap transition-colors ' +
   (isActive ? 'bg-thread-wash text-thread-deep underline decoration-thread decoration-2 underline-offset-[6px]' : 'text-ink hover:bg-paper-deep');
 
+/** How many unread messages wait behind a navigation item, said in words to screen readers. */
+function UnreadBadge({ count }: { count: number }) {
+  if (!count) return null;
+  return (
+    <span className="ml-1.5 inline-flex min-w-6 items-center justify-center rounded-full bg-marigold px-1.5 text-sm font-extrabold text-ink" data-testid="unread-badge">
+      <span aria-hidden="true">{count > 99 ? '99+' : count}</span>
+      <span className="sr-only">, {count === 1 ? '1 unread message' : `${count} unread messages`}</span>
+    </span>
+  );
+}
+
 export function SiteHeader() {
   const me = useMe();
   const signOut = useSignOut();
@@ -68,6 +80,9 @@ export function SiteHeader() {
 
   const items = navItemsFor(me.data);
   const signedIn = Boolean(me.data);
+  // unread order messages: the shopper's beside Orders, the shop's beside Workroom
+  const unread = useUnread(signedIn).data;
+  const unreadFor = (to: string) => (!unread ? 0 : to === paths.orders.getHref() ? unread.asShopper : to === paths.workroom.getHref() ? unread.asShop : 0);
 
   async function handleSignOut() {
     try {
@@ -112,6 +127,7 @@ export function SiteHeader() {
                 <li key={item.to}>
                   <Link to={item.to} aria-current={current} className={linkClasses({ isActive: Boolean(current) })}>
                     {item.label}
+                    <UnreadBadge count={unreadFor(item.to)} />
                   </Link>
                 </li>
               );

@@ -6,14 +6,18 @@ import { formatSize } from '../../../../shared/units.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { Card } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
+import { useMe } from '../../../features/auth/api/get-me.ts';
 import { useAddCartLine } from '../../../features/cart/api/add-cart-line.ts';
 import { useListing } from '../../../features/catalog/api/get-listing.ts';
 import { ListingDates } from '../../../features/offers/components/listing-dates.tsx';
+import { RatingLine } from '../../../features/reviews/components/stars.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
 import { NotFoundPage } from '../errors/not-found.tsx';
 
 // the personaliser brings the font engine (fontkit): it loads here, and only here
 const Personaliser = lazy(() => import('../../../features/personaliser/components/personaliser.tsx'));
+// the reviews sit below the fold: they load after the page, and leave its first download as it was
+const ReviewList = lazy(() => import('../../../features/reviews/components/review-list.tsx').then((m) => ({ default: m.ReviewList })));
 
 /** /listings/:slug — photos, shop, price, processing time, the personaliser, care card, safety notes. */
 export function ListingPage() {
@@ -21,6 +25,7 @@ export function ListingPage() {
   const listing = useListing(slug);
   const addLine = useAddCartLine();
   const [photo, setPhoto] = useState(0);
+  const me = useMe();
 
   if (listing.isPending) return <Spinner label="Loading the listing…" />;
   if (listing.isError) return isApiError(listing.error) && listing.error.status === 404 ? <NotFoundPage /> : <p role="alert">{listing.error.message}</p>;
@@ -72,6 +77,11 @@ export function ListingPage() {
               {l.shop.name}
             </Link>
           </p>
+          {l.rating.count ? (
+            <a href="#reviews" className="self-start rounded hover:underline">
+              <RatingLine summary={l.rating} />
+            </a>
+          ) : null}
           <p className="text-2xl font-black">
             <span className="text-base font-semibold text-ink-soft">from </span>
             {formatMoney(l.priceMinor, l.currency)}
@@ -138,6 +148,9 @@ export function ListingPage() {
           <p className="mt-2 text-ink-soft">{l.shop.returnPolicy || 'Ask the shop about returns.'}</p>
         </Card>
       </div>
+      <Suspense fallback={<Spinner label="Loading reviews…" />}>
+        <ReviewList source={{ kind: 'listings', slug: l.slug }} shopName={l.shop.name} isAdmin={me.data?.user.role === 'admin'} />
+      </Suspense>
     </div>
   );
 }

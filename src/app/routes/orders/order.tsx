@@ -3,9 +3,11 @@ import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
 import { DesignPreview, PersonalisationSummary } from '../../../features/cart/components/design-preview.tsx';
+import { MessageBox } from '../../../features/messages/components/message-box.tsx';
 import { useOrder } from '../../../features/orders/api/get-order.ts';
 import { OrderDetailView } from '../../../features/orders/components/order-detail.tsx';
 import { ProofEditPanel } from '../../../features/proof-edit/components/proof-edit-panel.tsx';
+import { OrderReviews } from '../../../features/reviews/components/order-reviews.tsx';
 
 export function OrderPage() {
   const { orderId = '' } = useParams();
@@ -37,6 +39,8 @@ export function OrderPage() {
       />
       <ProofEditPanel lines={o.lines} onSaved={() => void order.refetch()} />
       <OrderDetailView order={o} preview={(s) => <DesignPreview snapshot={s} size={120} />} summary={(s) => <PersonalisationSummary snapshot={s} />} />
+      <OrderReviews orderId={o.id} shopName={o.shop.name} />
+      <MessageBox orderId={o.id} with={o.shop.name} />
     </div>
   );
 }

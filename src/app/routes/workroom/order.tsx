@@ -5,6 +5,8 @@ import { PageHeading } from '../../../components/ui/card.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
 import { paths } from '../../../config/paths.ts';
+import { MessageBox } from '../../../features/messages/components/message-box.tsx';
+import { OrderReviews } from '../../../features/reviews/components/order-reviews.tsx';
 import { useOrder } from '../../../features/workroom/api/get-order.ts';
 import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
@@ -59,6 +61,8 @@ export function WorkroomOrderPage() {
             </h2>
             <Timeline events={o.timeline} lineLabel={label} />
           </section>
+          <OrderReviews orderId={o.id} shopName="your shop" />
+          <MessageBox orderId={o.id} with={o.buyerName} />
         </div>
         <aside className="flex h-fit flex-col gap-4 rounded-lg border border-line bg-white p-5 shadow-sm">
           <h2 className="text-lg font-extrabold">Shipping</h2>
