@@ -48,6 +48,7 @@ export async function seedReviews(deps: AppDeps, ctx: SeedContext): Promise<void
   const at = (ms: number): AppDeps => ({ ...silent, now: () => ms });
 
   for (const [to, day] of [
+    ['planned', 1],
     ['cut', 1],
     ['pressed', 2],
   ] as const) {
