@@ -6,9 +6,11 @@
  */
 import type { MessagePort } from 'node:worker_threads';
 import { type ComposedItem, ComposeError, type ComposeInput, compose } from '../../shared/engine/compose.ts';
-import { type CutSheet, CutSheetError, type NestPiece, nestCutSheets } from '../../shared/engine/cut-sheets.ts';
+import { withCutOutlines } from '../../shared/engine/cut-path.ts';
+import { type CutSheet, CutSheetError, type NestInput, type NestPiece } from '../../shared/engine/cut-sheets.ts';
 import { LimitError } from '../../shared/engine/limits.ts';
 import { MotifError, type MotifGeometry, parseMotifSvg } from '../../shared/engine/motif.ts';
+import { nestPieces } from '../../shared/engine/outline-nest.ts';
 import { parsePathData, pathArea, pathBBox } from '../../shared/engine/path.ts';
 import { LayoutError, type LayoutTextInput, layoutText, type TextLayout } from '../../shared/engine/text-layout.ts';
 import { AppError } from '../http/app-error.ts';
@@ -43,10 +45,14 @@ export type TaskResult<K extends TaskKind = TaskKind> = { ok: true; value: TaskV
 
 const r3 = (v: number) => Math.round(v * 1000) / 1000;
 
-/** Measures each piece (an empty one cuts nothing and is left out) and nests them on the roll. */
-export function measureAndNest(rollWidthMm: number, raw: RawPiece[]): CutSheet[] {
+/**
+ * Measures each piece's cut outline (an empty one cuts nothing and is left out) and nests them on
+ * the roll by outline, the box packer as floor (shared/engine/outline-nest.ts). The nest sees the
+ * same outline the SVG and the work sheet draw (withCutOutlines), so its gap holds for the cut.
+ */
+export function measureAndNest(rollWidthMm: number, raw: RawPiece[], opts: Pick<NestInput, 'gapMm' | 'marginMm'> = {}): CutSheet[] {
   const pieces: NestPiece[] = [];
-  for (const p of raw) {
+  for (const p of withCutOutlines(raw)) {
     const path = parsePathData(p.path);
     const bb = pathBBox(path);
     const w = bb.maxX - bb.minX;
@@ -55,7 +61,7 @@ export function measureAndNest(rollWidthMm: number, raw: RawPiece[]): CutSheet[]
     // a hair over the outline's bbox so float noise never makes the path larger than its slot
     pieces.push({ ...p, widthMm: r3(w) + 0.002, heightMm: r3(h) + 0.002, areaMm2: pathArea(path) });
   }
-  return nestCutSheets({ rollWidthMm, pieces });
+  return nestPieces({ rollWidthMm, pieces, ...opts });
 }
 
 async function perform(task: Task): Promise<TaskValue[TaskKind]> {

@@ -9,6 +9,7 @@
  */
 import PDFDocument from 'pdfkit';
 import { z } from 'zod';
+import { withCutOutlines } from '../../shared/engine/cut-path.ts';
 import { placedCutPath } from '../../shared/engine/cut-sheet-svg.ts';
 import type { CutSheet } from '../../shared/engine/cut-sheets.ts';
 import { LimitError, MAX_WORKSHEET_PAGES } from '../../shared/engine/limits.ts';
@@ -196,7 +197,9 @@ function summaryPages(doc: Doc, inp: z.infer<typeof worksheetInputSchema>, newPa
 function mapPages(doc: Doc, paper: Paper, sheet: WorksheetSheet, index: number, newPage: () => void) {
   const g = mapGeometry(paper, sheet.rollWidthMm);
   const pages = mapPageCount(paper, sheet);
-  const paths = new Map((sheet.pieces ?? []).map((p) => [p.id, p.path]));
+  // the blade's path, as the SVG has it: each piece's outer outline, never the overlapping contours
+  // a font draws (issue 17: a "Z" or "ë" drawn from several contours)
+  const paths = new Map(withCutOutlines(sheet.pieces ?? []).map((p) => [p.id, p.path]));
   const drawn = sheet.placements.map((pl) => {
     const src = paths.get(pl.pieceId);
     let d: string | null = null;

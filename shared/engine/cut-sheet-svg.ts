@@ -18,24 +18,33 @@ export interface CutSheetSvgPiece {
 
 type Matrix = [number, number, number, number, number, number];
 /** What placing a path needs from a placement. */
-export type PlacedRect = Pick<Placement, 'pieceId' | 'xMm' | 'yMm' | 'widthMm' | 'heightMm' | 'rotated'>;
+export type PlacedRect = Pick<Placement, 'pieceId' | 'xMm' | 'yMm' | 'widthMm' | 'heightMm' | 'rotated' | 'rotation'>;
+
+/** The clockwise turn of a placement: its `rotation`, or a quarter turn when only `rotated` is set. */
+export const turnOf = (p: Pick<Placement, 'rotated' | 'rotation'>): 0 | 90 | 180 | 270 => p.rotation ?? (p.rotated ? 90 : 0);
 
 /**
  * The transform taking a piece's preview path (as designed, not mirrored) to its place on the sheet:
- * mirror about its own vertical centre line, turn a quarter turn clockwise when `rotated`, then move
- * its bbox to the placement (centred in it if the path is a little smaller than the placed rect).
+ * mirror about its own vertical centre line, turn clockwise by its rotation (0/90/180/270°), then
+ * move its bbox to the placement (centred in it if the path is a little smaller than the placed rect).
  */
 export function placementMatrix(placement: PlacedRect, bbox: BBox): Matrix {
   const w = bbox.maxX - bbox.minX;
   const h = bbox.maxY - bbox.minY;
-  const placedW = placement.rotated ? h : w;
-  const placedH = placement.rotated ? w : h;
+  const turn = turnOf(placement);
+  const quarter = turn === 90 || turn === 270;
+  const placedW = quarter ? h : w;
+  const placedH = quarter ? w : h;
   const X = placement.xMm + (placement.widthMm - placedW) / 2;
   const Y = placement.yMm + (placement.heightMm - placedH) / 2;
-  // mirrored, at the origin: xl = maxX − x, yl = y − minY (bbox [0,w] × [0,h])
-  if (!placement.rotated) return [-1, 0, 0, 1, bbox.maxX + X, Y - bbox.minY];
-  // quarter turn clockwise with y down: xr = h − yl, yr = xl (bbox [0,h] × [0,w])
-  return [0, -1, -1, 0, h + bbox.minY + X, bbox.maxX + Y];
+  // mirrored, at the origin: xl = maxX − x, yl = y − minY (bbox [0,w] × [0,h]); then, y down:
+  if (turn === 0) return [-1, 0, 0, 1, bbox.maxX + X, Y - bbox.minY];
+  // quarter turn clockwise: xr = h − yl, yr = xl (bbox [0,h] × [0,w])
+  if (turn === 90) return [0, -1, -1, 0, h + bbox.minY + X, bbox.maxX + Y];
+  // half turn: xr = w − xl = x − minX, yr = h − yl = maxY − y
+  if (turn === 180) return [1, 0, 0, -1, X - bbox.minX, bbox.maxY + Y];
+  // three quarters clockwise: xr = yl = y − minY, yr = w − xl = x − minX
+  return [0, 1, 1, 0, X - bbox.minY, Y - bbox.minX];
 }
 
 /**
@@ -224,8 +233,9 @@ export function placedTransform(placement: PlacedRect, previewPath: string | Pat
   const bbox = pathBBox(p);
   const w = bbox.maxX - bbox.minX;
   const h = bbox.maxY - bbox.minY;
-  const placedW = placement.rotated ? h : w;
-  const placedH = placement.rotated ? w : h;
+  const quarter = turnOf(placement) % 180 !== 0;
+  const placedW = quarter ? h : w;
+  const placedH = quarter ? w : h;
   // The nest kept the gap around the placed rect; a path bigger than it would break that promise.
   const TOL = 0.01;
   if (placedW > placement.widthMm + TOL || placedH > placement.heightMm + TOL) {

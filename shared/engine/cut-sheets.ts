@@ -61,9 +61,13 @@ export interface Placement {
   /** Size as placed (already swapped when rotated). */
   widthMm: number;
   heightMm: number;
-  /** Turned a quarter turn clockwise. */
+  /** Turned a quarter turn (90° or 270°): width and height are swapped. */
   rotated: boolean;
+  /** The turn clockwise, degrees; absent = 90 when `rotated`, else 0 (the box packer's placements). */
+  rotation?: Rotation;
 }
+
+export type Rotation = 0 | 90 | 180 | 270;
 
 export interface CutSheet {
   rollWidthMm: number;

@@ -2,7 +2,7 @@
 // and marking sheets cut — which takes the vinyl from stock and moves a line to `cut` once all its
 // pieces are cut (through orders' transition()).
 import crypto from 'node:crypto';
-import { cutOutline } from '../../../shared/engine/cut-path.ts';
+import { withCutOutlines } from '../../../shared/engine/cut-path.ts';
 import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
 import { type CutSheet, CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM } from '../../../shared/engine/cut-sheets.ts';
 import { MAX_NEST_PIECES } from '../../../shared/engine/limits.ts';
@@ -186,10 +186,7 @@ export function sheetSvg(db: Db, shopId: string, sheetId: string): { svg: string
   const name = `cut-sheet-${(m ? `${m.colourName}-${m.kind}` : 'material').toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${s.id.slice(0, 8)}.svg`;
   // the blade follows each piece's outer outline, not the overlapping contours the font drew
   return {
-    svg: cutSheetSvg(
-      cs,
-      cs.pieces.map((p) => ({ ...p, path: cutOutline(p.path) })),
-    ),
+    svg: cutSheetSvg(cs, withCutOutlines(cs.pieces)),
     name,
   };
 }
