@@ -29,6 +29,8 @@ export const nestPieceSchema = z.object({
   id: z.string().min(1).max(128),
   lineId: z.string().min(1).max(128),
   orderNumber: z.string().max(64).optional(),
+  /** what keeps pieces together in an order group (the order number without a unit suffix) */
+  group: z.string().max(64).optional(),
   layerId: z.string().min(1).max(128),
   widthMm: z.number().positive().finite(),
   heightMm: z.number().positive().finite(),

@@ -70,14 +70,14 @@ interface Item {
  * a counter of a name is narrower than any piece grown by the gap), as polygons in the placed frame
  * of each turn.
  */
-function rasterise(piece: NestPiece, halfGap: number, cell: number): Item {
+function rasterise(piece: NestPiece, halfGap: number, cell: number, turns: readonly Rotation[] = [0, 90, 180, 270]): Item {
   const path = readPathData(piece.path);
   const bbox = pathBBox(path);
   const grow = halfGap + (cell * Math.SQRT2) / 2 + FLATTEN_TOL_MM + ARC_TOL_MM + 1e-3;
   const grown = grownOuterContours(flattenPath(path, FLATTEN_TOL_MM), grow, ARC_TOL_MM);
   const shapes: Shape[] = [];
   let area = 0;
-  for (const rotation of [0, 90, 180, 270] as const) {
+  for (const rotation of turns) {
     const turned = rotation === 90 || rotation === 270;
     const w = turned ? piece.heightMm : piece.widthMm;
     const h = turned ? piece.widthMm : piece.heightMm;
@@ -107,7 +107,7 @@ function rasterise(piece: NestPiece, halfGap: number, cell: number): Item {
       if (v > s.widest[kw]!) kw = k;
     });
     shapes.push({ rotation, w, h, ...s, cy: cells ? mom / cells : h / 2, kw, wmax: s.widest[kw] ?? 0 });
-    if (rotation === 0) for (const sp of s.spans) for (let k = 0; k < sp.length; k += 2) area += (sp[k + 1]! - sp[k]!) * cell * cell;
+    if (rotation === turns[0]) for (const sp of s.spans) for (let k = 0; k < sp.length; k += 2) area += (sp[k + 1]! - sp[k]!) * cell * cell;
   }
   return { piece, shapes, grownArea: area };
 }
@@ -402,4 +402,165 @@ export function nestPieces(input: NestInput, opts: OutlineNestOptions = {}): Cut
     if (e instanceof OutOfTime) return boxed;
     throw e;
   }
+}
+
+// ---------------------------------------------------------------- order groups
+
+/** An order's pieces kept together on a sheet, inside a weeding border (a cut rectangle). */
+export interface SheetGroup {
+  /** what the group is labelled with: the order number */
+  label: string;
+  /** the weeding border, mm on the sheet */
+  xMm: number;
+  yMm: number;
+  widthMm: number;
+  heightMm: number;
+}
+/** A straight weeding line between groups (a cut), mm on the sheet. */
+export interface WeedingLine {
+  x1: number;
+  y1: number;
+  x2: number;
+  y2: number;
+}
+export type GroupedSheet = CutSheet & { groups: SheetGroup[]; weedingLines: WeedingLine[] };
+
+export interface GroupOptions extends OutlineNestOptions {
+  /** Lay the groups out in rows with straight weeding lines between them, so the sheet splits by order. */
+  weedingLines?: boolean;
+}
+
+const rectPath = (w: number, h: number) => `M0 0H${w}V${h}H0Z`;
+
+/**
+ * "Keep each order together": each order's pieces (by `group`, else order number, else line) are
+ * nested as one cluster; a weeding border is cut `gap` outside the cluster's pieces; the borders are
+ * then nested on the roll like pieces, `gap` apart and inside the margins. With `weedingLines`, the
+ * borders sit in rows instead, and a straight cut runs between rows and between groups in a row.
+ */
+export function nestOrderGroups(input: NestInput, opts: GroupOptions = {}): GroupedSheet[] {
+  const { rollWidthMm, gapMm, marginMm, maxLengthMm, pieces } = nestInputSchema.parse(input);
+  if (pieces.length === 0) return [];
+  const usable = rollWidthMm - 2 * marginMm;
+  const byGroup = new Map<string, NestPiece[]>();
+  for (const p of pieces) {
+    const key = p.group ?? p.orderNumber ?? p.lineId;
+    let g = byGroup.get(key);
+    if (!g) byGroup.set(key, (g = []));
+    g.push(p);
+  }
+  // a group's cluster is nested on a strip no wider than the roll leaves inside two border gaps
+  const inner = usable - 2 * gapMm;
+  const clusters: Array<{ label: string; sheet: CutSheet; w: number; h: number }> = [];
+  for (const [label, ps] of byGroup) {
+    const narrowest = Math.max(...ps.map((p) => Math.min(p.widthMm, p.heightMm)));
+    if (narrowest > inner + 1e-9)
+      throw new CutSheetError('piece_too_wide', `Order ${label}: a piece is too wide to keep inside a weeding border on this roll. Choose "tightest" for this batch.`, {
+        grouping: 'too wide for a weeding border',
+      });
+    // try the full width and a squarer strip; keep the smaller cluster
+    const area = ps.reduce((s, p) => s + (p.widthMm + gapMm) * (p.heightMm + gapMm), 0);
+    const widths = [...new Set([inner, Math.min(inner, Math.max(narrowest + 1e-6, Math.sqrt(area) * 1.2))])];
+    let best: { sheet: CutSheet; w: number; h: number } | null = null;
+    for (const w of widths) {
+      const [sheet] = nestPieces({ rollWidthMm: w, gapMm, marginMm: 0, pieces: ps }, opts);
+      if (!sheet) continue;
+      const cw = Math.max(...sheet.placements.map((p) => p.xMm + p.widthMm));
+      const ch = Math.max(...sheet.placements.map((p) => p.yMm + p.heightMm));
+      if (!best || cw * ch < best.w * best.h) best = { sheet, w: cw, h: ch };
+    }
+    clusters.push({ label, ...best! });
+  }
+  // the borders: `gap` outside each cluster
+  const borders = clusters.map((c, k) => ({ c, w: c.w + 2 * gapMm, h: c.h + 2 * gapMm, id: `group-${k}` }));
+  const placedBorders: Array<Array<{ k: number; x: number; y: number }>> = [];
+  const lines: WeedingLine[][] = [];
+  // the borders nest upright (a cluster is never turned as a whole), by the same raster fill
+  let upright: CutSheet[] | null = null;
+  if (!opts.weedingLines) {
+    const now = opts.now ?? (() => performance.now());
+    const cell = opts.cellMm ?? DEFAULT_CELL_MM;
+    const items = borders.map((b) =>
+      rasterise({ id: b.id, lineId: b.id, layerId: 'border', widthMm: b.w, heightMm: b.h, areaMm2: b.w * b.h, path: rectPath(b.w, b.h) }, gapMm / 2, cell, [0]),
+    );
+    try {
+      upright = outlineNest(items, rollWidthMm, gapMm, marginMm, maxLengthMm, cell, now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS), now);
+    } catch (e) {
+      if (!(e instanceof OutOfTime)) throw e;
+    }
+  }
+  if (!upright) {
+    // rows, tallest first; a new sheet when a fixed-length sheet is full
+    const order = borders.map((b, k) => ({ b, k })).sort((a, b) => b.b.h - a.b.h);
+    let sheet: Array<{ k: number; x: number; y: number }> = [];
+    let sheetLines: WeedingLine[] = [];
+    let x = marginMm,
+      y = marginMm,
+      rowH = 0;
+    const lineX0 = marginMm - gapMm / 2,
+      lineX1 = rollWidthMm - marginMm + gapMm / 2;
+    for (const { b, k } of order) {
+      if (x > marginMm && x + b.w > rollWidthMm - marginMm + 1e-9) {
+        // close the row: a line across the roll, half a gap after it
+        y += rowH + gapMm;
+        sheetLines.push({ x1: lineX0, y1: y - gapMm / 2, x2: lineX1, y2: y - gapMm / 2 });
+        x = marginMm;
+        rowH = 0;
+      }
+      if (maxLengthMm !== undefined && y + b.h > maxLengthMm - marginMm + 1e-9 && sheet.length) {
+        sheetLines.pop();
+        placedBorders.push(sheet);
+        lines.push(sheetLines);
+        sheet = [];
+        sheetLines = [];
+        x = marginMm;
+        y = marginMm;
+        rowH = 0;
+      }
+      if (x > marginMm) sheetLines.push({ x1: x - gapMm / 2, y1: y - gapMm / 2, x2: x - gapMm / 2, y2: y + Math.max(rowH, b.h) + gapMm / 2 });
+      sheet.push({ k, x, y });
+      x += b.w + gapMm;
+      rowH = Math.max(rowH, b.h);
+    }
+    placedBorders.push(sheet);
+    // a row's vertical lines end with the row: trim them to its height
+    lines.push(sheetLines);
+    // rows were only a fallback when no lines were asked for
+    if (!opts.weedingLines) for (const l of lines) l.length = 0;
+  } else {
+    for (const sh of upright) {
+      placedBorders.push(sh.placements.map((pl) => ({ k: Number(pl.pieceId.slice('group-'.length)), x: pl.xMm, y: pl.yMm })));
+      lines.push([]);
+    }
+  }
+  return placedBorders.map((bs, s) => {
+    const placements: Placement[] = [];
+    const groups: SheetGroup[] = [];
+    let end = 0,
+      area = 0;
+    for (const { k, x, y } of bs) {
+      const b = borders[k]!;
+      const bw = b.w,
+        bh = b.h;
+      groups.push({ label: b.c.label, xMm: x, yMm: y, widthMm: bw, heightMm: bh });
+      end = Math.max(end, y + bh);
+      for (const pl of b.c.sheet.placements) {
+        area += pieces.find((p) => p.id === pl.pieceId)?.areaMm2 ?? 0;
+        placements.push({ ...pl, xMm: pl.xMm + x + gapMm, yMm: pl.yMm + y + gapMm });
+      }
+    }
+    placements.sort((a, b) => a.yMm - b.yMm || a.xMm - b.xMm);
+    const lengthMm = end + marginMm;
+    return {
+      rollWidthMm,
+      gapMm,
+      marginMm,
+      lengthMm,
+      utilisation: area / (rollWidthMm * lengthMm),
+      piecesAreaMm2: area,
+      placements,
+      groups,
+      weedingLines: (lines[s] ?? []).filter((l) => l.y1 < end + gapMm),
+    };
+  });
 }

@@ -5,7 +5,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { placedCutPath } from '../../shared/engine/cut-sheet-svg.ts';
 import { type CutSheet, type NestPiece, nestCutSheets } from '../../shared/engine/cut-sheets.ts';
-import { nestPieces } from '../../shared/engine/outline-nest.ts';
+import { nestOrderGroups, nestPieces } from '../../shared/engine/outline-nest.ts';
 import { flattenPath, formatPath, parsePathData, pathArea, pathBBox, polygonsToPath, subpathAreas } from '../../shared/engine/path.ts';
 import { at } from '../support/at.ts';
 
@@ -136,5 +136,56 @@ describe('nestPieces (outlines)', () => {
       // a mirror then a turn: determinant −1, so the signed area flips, whatever the turn
       expect(at(subpathAreas(cut), 0)).toBeCloseTo(-at(subpathAreas(prev), 0), 9);
     }
+  });
+});
+
+describe('nestOrderGroups', () => {
+  const orders = (paths: string[][]) =>
+    paths.flatMap((ps, o) => asPieces(ps).map((p, i) => ({ ...p, id: `o${o}-${i}`, orderNumber: `NS-${1040 + o}`, group: `NS-${1040 + o}` })));
+
+  it('when orders are kept together, then each order sits inside its own weeding border, ≥ the gap from it, borders apart by the gap and inside the margins (property)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.array(shapeArb, { minLength: 1, maxLength: 4 }), { minLength: 1, maxLength: 5 }), fc.boolean(), (paths, weedingLines) => {
+        const pieces = orders(paths);
+        const gapMm = 6,
+          marginMm = 6,
+          rollWidthMm = 305;
+        const sheets = nestOrderGroups({ rollWidthMm, gapMm, marginMm, pieces }, { weedingLines });
+        for (const sheet of sheets) {
+          for (const g of sheet.groups) {
+            expect(g.xMm).toBeGreaterThanOrEqual(marginMm - 1e-6);
+            expect(g.xMm + g.widthMm).toBeLessThanOrEqual(rollWidthMm - marginMm + 1e-6);
+            expect(g.yMm + g.heightMm).toBeLessThanOrEqual(sheet.lengthMm - marginMm + 1e-6);
+            for (const pl of sheet.placements.filter((p) => p.orderNumber === g.label)) {
+              // the piece's box lies inside the border, at least the gap from it
+              expect(pl.xMm).toBeGreaterThanOrEqual(g.xMm + gapMm - 1e-6);
+              expect(pl.yMm).toBeGreaterThanOrEqual(g.yMm + gapMm - 1e-6);
+              expect(pl.xMm + pl.widthMm).toBeLessThanOrEqual(g.xMm + g.widthMm - gapMm + 1e-6);
+              expect(pl.yMm + pl.heightMm).toBeLessThanOrEqual(g.yMm + g.heightMm - gapMm + 1e-6);
+            }
+          }
+          // borders (cuts) at least the gap apart
+          for (let i = 0; i < sheet.groups.length; i++)
+            for (let j = i + 1; j < sheet.groups.length; j++) {
+              const a = sheet.groups[i]!,
+                b = sheet.groups[j]!;
+              const dx = Math.max(b.xMm - (a.xMm + a.widthMm), a.xMm - (b.xMm + b.widthMm));
+              const dy = Math.max(b.yMm - (a.yMm + a.heightMm), a.yMm - (b.yMm + b.heightMm));
+              expect(Math.max(dx, dy)).toBeGreaterThanOrEqual(gapMm - 1e-6);
+            }
+          // a weeding line never crosses a border
+          for (const l of sheet.weedingLines)
+            for (const g of sheet.groups) {
+              const crossesX = l.x1 === l.x2 && l.x1 > g.xMm && l.x1 < g.xMm + g.widthMm && Math.max(l.y1, l.y2) > g.yMm && Math.min(l.y1, l.y2) < g.yMm + g.heightMm;
+              const crossesY = l.y1 === l.y2 && l.y1 > g.yMm && l.y1 < g.yMm + g.heightMm && Math.max(l.x1, l.x2) > g.xMm && Math.min(l.x1, l.x2) < g.xMm + g.widthMm;
+              expect(crossesX || crossesY).toBe(false);
+            }
+          if (!weedingLines) expect(sheet.weedingLines).toEqual([]);
+        }
+        expect(sheets.flatMap((s) => s.groups.map((g) => g.label)).sort()).toEqual([...new Set(pieces.map((p) => p.group))].sort());
+        expect(sheets.flatMap((s) => s.placements).length).toBe(pieces.length);
+      }),
+      { numRuns: 20 },
+    );
   });
 });
