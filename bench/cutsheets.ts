@@ -15,12 +15,12 @@
  */
 
 import { getFontRegistry } from '../server/integrations/fonts.ts';
-import { offsetPolygons, regionsArea, regionsToPolygons, unionRegions } from '../shared/engine/geometry.ts';
 import { cutSheetSvg } from '../shared/engine/cut-sheet-svg.ts';
 import { groupByMaterial, type NestPiece, nestCutSheets } from '../shared/engine/cut-sheets.ts';
 import { FONT_CATALOG } from '../shared/engine/font-catalog.ts';
-import { flattenPath, formatPath, parsePathData, pathArea, pathBBox, transformPath } from '../shared/engine/path.ts';
+import { offsetPolygons, regionsArea, regionsToPolygons, unionRegions } from '../shared/engine/geometry.ts';
 import { nestPieces } from '../shared/engine/outline-nest.ts';
+import { flattenPath, formatPath, parsePathData, pathArea, pathBBox, transformPath } from '../shared/engine/path.ts';
 import { layoutText } from '../shared/engine/text-layout.ts';
 import { at } from '../tests/support/at.ts';
 

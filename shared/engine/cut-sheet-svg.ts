@@ -253,11 +253,23 @@ export function escapeXml(s: string): string {
 
 const num = (v: number) => String(Math.round(v * 1000) / 1000);
 
+/** Order groups on a sheet: weeding borders and lines (cuts), and the labels that name each group. */
+export interface SheetGroupsLayer {
+  groups?: ReadonlyArray<{ label: string; xMm: number; yMm: number; widthMm: number; heightMm: number }>;
+  weedingLines?: ReadonlyArray<{ x1: number; y1: number; x2: number; y2: number }>;
+}
+
+/** Where a group's label sits: inside its border, in the gap strip before the pieces begin (mm). */
+export const groupLabelAt = (g: { xMm: number; yMm: number }, gapMm: number) => ({ x: g.xMm + Math.min(1.5, gapMm / 4), y: g.yMm + Math.min(4.5, gapMm * 0.8), sizeMm: Math.min(4, gapMm * 0.6) });
+
 /**
  * The SVG for one cut sheet. `pieces` holds at least every placed piece's preview path by id.
+ * With order groups, each weeding border and weeding line is a cut path in the cut group; the order
+ * labels are text in a group of their own (`id="order-labels"`, `data-cut="no"`, no stroke) after the
+ * cut group, so a cutter that cuts stroked paths passes them over, and `labels: false` leaves them out.
  * Throws CutSheetError('invalid_input') when a placed piece has no path.
  */
-export function cutSheetSvg(sheet: CutSheet, pieces: readonly CutSheetSvgPiece[]): string {
+export function cutSheetSvg(sheet: CutSheet & SheetGroupsLayer, pieces: readonly CutSheetSvgPiece[], opts: { labels?: boolean } = {}): string {
   const byId = new Map(pieces.map((p) => [p.id, p]));
   const W = num(sheet.rollWidthMm);
   const H = num(sheet.lengthMm);
@@ -274,6 +286,23 @@ export function cutSheetSvg(sheet: CutSheet, pieces: readonly CutSheetSvgPiece[]
     const d = formatTransformed(path, matrix);
     out.push(`<path data-piece="${escapeXml(pl.pieceId)}" data-line="${escapeXml(pl.lineId)}" d="${d}"/>`);
   }
-  out.push('</g>', '</svg>', '');
+  const groups = sheet.groups ?? [];
+  const lines = sheet.weedingLines ?? [];
+  if (groups.length || lines.length) out.push('<!-- weeding borders and lines: cut, so the sheet splits by order before weeding -->');
+  for (const g of groups) out.push(`<path data-group="${escapeXml(g.label)}" d="M${num(g.xMm)} ${num(g.yMm)}H${num(g.xMm + g.widthMm)}V${num(g.yMm + g.heightMm)}H${num(g.xMm)}Z"/>`);
+  for (const l of lines) out.push(`<path data-weeding-line="" d="M${num(l.x1)} ${num(l.y1)}L${num(l.x2)} ${num(l.y2)}"/>`);
+  out.push('</g>');
+  if (groups.length && opts.labels !== false) {
+    out.push(
+      '<!-- Order labels: NOT cut. Text only, no stroke, in their own group after the cut group; a cutter that imports text should hide or delete the group "order-labels" (or download with ?labels=0). -->',
+      '<g id="order-labels" data-cut="no" fill="#b4540a" stroke="none" font-family="sans-serif" font-weight="700">',
+    );
+    for (const g of groups) {
+      const at = groupLabelAt(g, sheet.gapMm);
+      out.push(`<text x="${num(at.x)}" y="${num(at.y)}" font-size="${num(at.sizeMm)}">${escapeXml(g.label)}</text>`);
+    }
+    out.push('</g>');
+  }
+  out.push('</svg>', '');
   return out.join('\n');
 }

@@ -19,9 +19,8 @@
  * Pure: plain data in, plain data out; mm, y down.
  */
 
-import { readPathData } from './cut-sheet-svg.ts';
-import { placementMatrix } from './cut-sheet-svg.ts';
-import { type CutSheet, CutSheetError, type NestInput, nestCutSheets, nestInputSchema, type NestPiece, type Placement, type Rotation } from './cut-sheets.ts';
+import { placementMatrix, readPathData } from './cut-sheet-svg.ts';
+import { type CutSheet, CutSheetError, type NestInput, type NestPiece, nestCutSheets, nestInputSchema, type Placement, type Rotation } from './cut-sheets.ts';
 import { grownOuterContours } from './geometry.ts';
 import { LimitError, MAX_NEST_PIECES } from './limits.ts';
 import { flattenPath, type Polygon, pathBBox } from './path.ts';
@@ -480,9 +479,7 @@ export function nestOrderGroups(input: NestInput, opts: GroupOptions = {}): Grou
   if (!opts.weedingLines) {
     const now = opts.now ?? (() => performance.now());
     const cell = opts.cellMm ?? DEFAULT_CELL_MM;
-    const items = borders.map((b) =>
-      rasterise({ id: b.id, lineId: b.id, layerId: 'border', widthMm: b.w, heightMm: b.h, areaMm2: b.w * b.h, path: rectPath(b.w, b.h) }, gapMm / 2, cell, [0]),
-    );
+    const items = borders.map((b) => rasterise({ id: b.id, lineId: b.id, layerId: 'border', widthMm: b.w, heightMm: b.h, areaMm2: b.w * b.h, path: rectPath(b.w, b.h) }, gapMm / 2, cell, [0]));
     try {
       upright = outlineNest(items, rollWidthMm, gapMm, marginMm, maxLengthMm, cell, now() + (opts.budgetMs ?? DEFAULT_BUDGET_MS), now);
     } catch (e) {

@@ -140,8 +140,7 @@ describe('nestPieces (outlines)', () => {
 });
 
 describe('nestOrderGroups', () => {
-  const orders = (paths: string[][]) =>
-    paths.flatMap((ps, o) => asPieces(ps).map((p, i) => ({ ...p, id: `o${o}-${i}`, orderNumber: `NS-${1040 + o}`, group: `NS-${1040 + o}` })));
+  const orders = (paths: string[][]) => paths.flatMap((ps, o) => asPieces(ps).map((p, i) => ({ ...p, id: `o${o}-${i}`, orderNumber: `NS-${1040 + o}`, group: `NS-${1040 + o}` })));
 
   it('when orders are kept together, then each order sits inside its own weeding border, ≥ the gap from it, borders apart by the gap and inside the margins (property)', () => {
     fc.assert(

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import {
+  buildCutSheetsSchema,
   idParams,
   type LinesQuery,
   lineIdsSchema,
@@ -77,8 +78,8 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // cut sheets
-  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: lineIdsSchema }), async (req, res) => {
-    res.status(201).json(await buildCutSheets(deps, shopId(req), req.body.lineIds));
+  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: buildCutSheetsSchema }), async (req, res) => {
+    res.status(201).json(await buildCutSheets(deps, shopId(req), req.body.lineIds, { grouping: req.body.grouping, weedingLines: req.body.weedingLines }));
   });
   r.get('/batches', (req, res) => {
     res.json({ batches: recentBatches(deps.db, shopId(req)) });
@@ -98,7 +99,8 @@ export function workroomRouter(deps: AppDeps): Router {
     );
   });
   r.get('/cut-sheets/:id/svg', validate({ params: idParams }), (req, res) => {
-    const { svg, name } = sheetSvg(deps.db, shopId(req), id(req));
+    // ?labels=0: the order labels left out, for cutter software that would cut text
+    const { svg, name } = sheetSvg(deps.db, shopId(req), id(req), { labels: req.query.labels !== '0' });
     res.setHeader('Content-Type', 'image/svg+xml; charset=utf-8');
     res.setHeader('Cache-Control', 'private, no-store');
     // our own SVG has no script, but never let a browser run anything from it anyway
