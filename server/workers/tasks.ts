@@ -17,6 +17,7 @@ import type { Grouping } from '../../shared/schemas/workroom.ts';
 import { AppError } from '../http/app-error.ts';
 import { getFontRegistry } from '../integrations/fonts.ts';
 import { type ProcessedImage, processImage } from '../integrations/storage.ts';
+import { buildTemplatePdf, type TemplateInput } from './template-pdf.ts';
 import { buildWorksheetPdf, type WorksheetInput } from './worksheet-pdf.ts';
 
 /** A piece to nest as the workroom has it: its path data, not yet measured. */
@@ -28,7 +29,8 @@ export type Task =
   | { kind: 'compose'; input: ComposeInput }
   | { kind: 'nest'; rollWidthMm: number; pieces: RawPiece[]; grouping?: Grouping; weedingLines?: boolean }
   | { kind: 'worksheet'; input: Omit<WorksheetInput, 'onProgress'>; progress?: MessagePort }
-  | { kind: 'image'; bytes: Uint8Array };
+  | { kind: 'image'; bytes: Uint8Array }
+  | { kind: 'template'; input: TemplateInput };
 
 export type TaskValue = {
   motif: MotifGeometry;
@@ -37,6 +39,7 @@ export type TaskValue = {
   nest: NestedSheet[];
   worksheet: Uint8Array;
   image: ProcessedImage;
+  template: Uint8Array;
 };
 export type TaskKind = Task['kind'];
 
@@ -93,6 +96,8 @@ async function perform(task: Task): Promise<TaskValue[TaskKind]> {
     }
     case 'image':
       return processImage(task.bytes);
+    case 'template':
+      return buildTemplatePdf(task.input);
   }
 }
 

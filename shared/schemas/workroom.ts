@@ -69,6 +69,9 @@ export type RequestChangeInput = z.input<typeof requestChangeSchema>;
 export const PAPERS = ['A4', 'Letter'] as const;
 export const worksheetRequestSchema = z.object({ paper: z.enum(PAPERS, { error: 'Choose A4 or Letter.' }).default('A4') });
 export type WorksheetRequest = z.input<typeof worksheetRequestSchema>;
+export type Paper = (typeof PAPERS)[number];
+/** GET /api/workroom/lines/:id/template?paper=A4|Letter: the 1:1 placement template */
+export const templateQuerySchema = z.object({ paper: z.enum(PAPERS, { error: 'Choose A4 or Letter.' }).default('A4') });
 
 export const CARRIERS = ['Royal Mail', 'USPS', 'UPS', 'FedEx', 'DHL', 'Canada Post', 'Other'] as const;
 export const shipSchema = z.object({

@@ -51,3 +51,16 @@ describe('order groups', () => {
     expect(JSON.stringify(res.body.error)).toMatch(/tightest/);
   });
 });
+
+describe('placement template', () => {
+  test('when a seller asks for a line’s template, then a PDF comes back; another shop’s seller gets 404; a bad paper is refused', async () => {
+    const line = ((await fern.get('/api/workroom/lines').query({ limit: 1 })).body.items as WorkLine[])[0]!;
+    const res = await fern.get(`/api/workroom/lines/${line.id}/template`).query({ paper: 'Letter' }).buffer(true);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(Buffer.from(res.body).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const comet = await t.signIn('comet@namesake.test', 'namesake-demo');
+    expect((await comet.get(`/api/workroom/lines/${line.id}/template`)).status).toBe(404);
+    expect((await fern.get(`/api/workroom/lines/${line.id}/template`).query({ paper: 'A3' })).status).toBe(400);
+  });
+});

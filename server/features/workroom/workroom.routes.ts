@@ -7,9 +7,11 @@ import {
   lineIdsSchema,
   linesQuerySchema,
   lowStockSchema,
+  type Paper,
   requestChangeSchema,
   shipSchema,
   stockQuerySchema,
+  templateQuerySchema,
   worksheetRequestSchema,
 } from '../../../shared/schemas/workroom.ts';
 import type { AppDeps } from '../../deps.ts';
@@ -23,6 +25,7 @@ import { personalisationForEdit, savePersonalisation } from './proof-edit.servic
 import { approve, proof, requestChange } from './proofs.service.ts';
 import { ship } from './shipping.service.ts';
 import { setLowStock, stock } from './stock.service.ts';
+import { placementTemplate } from './template.service.ts';
 import { createWorksheetJobs } from './worksheet-jobs.ts';
 
 /**
@@ -75,6 +78,16 @@ export function workroomRouter(deps: AppDeps): Router {
   });
   r.post('/pressed', validate({ body: lineIdsSchema }), (req, res) => {
     res.json({ lines: markPressed(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
+  });
+
+  // the 1:1 placement template of a line (PDF, built in the worker pool)
+  r.get('/lines/:id/template', validate({ params: idParams, query: templateQuerySchema }), async (req, res) => {
+    const { paper } = res.locals.query as { paper: Paper };
+    const { pdf, name } = await placementTemplate(deps, shopId(req), id(req), paper);
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `inline; filename="${name}"`);
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.send(pdf);
   });
 
   // cut sheets
