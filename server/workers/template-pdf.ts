@@ -12,6 +12,7 @@
  */
 import PDFDocument from 'pdfkit';
 import { z } from 'zod';
+import { cutOutline } from '../../shared/engine/cut-path.ts';
 import { formatPath, parsePathData, pathBBox, transformPath } from '../../shared/engine/path.ts';
 import { formatLength, MM_PER_IN } from '../../shared/units.ts';
 import { PDF_FONT, registerPdfFonts } from './pdf-fonts.ts';
@@ -102,8 +103,9 @@ function testBar(doc: Doc, xPt: number, yPt: number) {
     .font(PDF_FONT.regular)
     .fontSize(7)
     .fillColor(INK)
-    .text(`Test bar: ${TEST_BAR_MM} mm (${formatLength(TEST_BAR_MM)}). Measure it: if it is not ${TEST_BAR_MM} mm, print at 100 % / actual size.`, xPt + len + 8, yPt - 3, {
-      lineBreak: false,
+    .text(`${TEST_BAR_MM} mm test bar: measure it; if it is not ${TEST_BAR_MM} mm, print at 100 %.`, xPt + len + 6, yPt - 3, {
+      width: doc.page.width - (xPt + len + 6) - pt(PAGE_MARGIN_MM),
+      height: 20,
     });
 }
 
@@ -142,7 +144,8 @@ export async function buildTemplatePdf(raw: TemplateInput & { compress?: boolean
     doc.on('error', reject);
   });
   const pa = input.printArea;
-  const pieces = input.pieces.map((p) => ({ path: parsePathData(p.d), colour: p.colourHex }));
+  // drawn as the blade cuts them: each piece's outer outline, not the overlapping font contours
+  const pieces = input.pieces.map((p) => ({ path: parsePathData(cutOutline(p.d)), colour: p.colourHex }));
   const tiles = plan.cols * plan.rows;
   const tileLeft = pt(PAGE_MARGIN_MM);
   const tileTop = pt(PAGE_MARGIN_MM + HEADER_MM);
