@@ -131,17 +131,20 @@ export async function buildCutSheets(
       });
     }
   }
-  // measuring and nesting run in the worker pool (server/workers/tasks.ts measureAndNest), one
-  // material at a time; an empty piece cuts nothing and is left out there
+  // measuring and nesting run in the worker pool (server/workers/tasks.ts measureAndNest), each
+  // material its own task; an empty piece cuts nothing and is left out there
   const nestedByMaterial = new Map<string, NestedSheet[]>();
-  for (const g of groups.values()) {
-    try {
-      nestedByMaterial.set(g.material.id, await deps.pool.run({ kind: 'nest', rollWidthMm: g.material.rollWidthMm, pieces: g.pieces, grouping: layout.grouping, weedingLines: layout.weedingLines }));
-    } catch (e) {
-      if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
-      throw e;
-    }
-  }
+  // materials nest side by side on the pool's threads
+  await Promise.all(
+    [...groups.values()].map(async (g) => {
+      try {
+        nestedByMaterial.set(g.material.id, await deps.pool.run({ kind: 'nest', rollWidthMm: g.material.rollWidthMm, pieces: g.pieces, grouping: layout.grouping, weedingLines: layout.weedingLines }));
+      } catch (e) {
+        if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
+        throw e;
+      }
+    }),
+  );
   const batchId = crypto.randomUUID();
   const at = deps.now();
   const made: SheetRow[] = [];
