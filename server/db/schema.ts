@@ -8,7 +8,7 @@ import type { StoredMotifGeometry } from '../../shared/engine/motif.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
 import type { PricedCheckout, ShipTo } from '../../shared/schemas/checkout.ts';
 import type { ListingContent } from '../../shared/schemas/listing.ts';
-import type { StoredSheetPiece } from '../../shared/schemas/workroom.ts';
+import type { SheetLayout, StoredSheetPiece } from '../../shared/schemas/workroom.ts';
 import { user } from './auth-schema.ts';
 
 export * from './auth-schema.ts';
@@ -440,6 +440,8 @@ export const cutSheets = sqliteTable(
     utilisation: real('utilisation').notNull(),
     /** nested pieces: [{ lineId, layerId, xMm, yMm, widthMm, heightMm, rotated, path }] */
     pieces: json<StoredSheetPiece[]>('pieces').notNull(),
+    /** order groups (weeding borders, lines, labels) and the tightest nest's length; null = tightest */
+    layout: json<SheetLayout>('layout'),
     /** planned | cut */
     state: text('state').notNull().default('planned'),
     consumedMm: real('consumed_mm'),

@@ -55,6 +55,7 @@ const WHAT: Record<TaskKind, string> = {
   nest: 'These cut sheets took too long to nest',
   worksheet: 'This work sheet took too long to build',
   image: 'This image took too long to prepare',
+  template: 'This placement template took too long to build',
 };
 
 const WORKER = fileURLToPath(new URL('./worker.mjs', import.meta.url));

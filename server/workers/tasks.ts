@@ -6,14 +6,18 @@
  */
 import type { MessagePort } from 'node:worker_threads';
 import { type ComposedItem, ComposeError, type ComposeInput, compose } from '../../shared/engine/compose.ts';
-import { type CutSheet, CutSheetError, type NestPiece, nestCutSheets } from '../../shared/engine/cut-sheets.ts';
+import { withCutOutlines } from '../../shared/engine/cut-path.ts';
+import { type CutSheet, CutSheetError, type NestInput, type NestPiece } from '../../shared/engine/cut-sheets.ts';
 import { LimitError } from '../../shared/engine/limits.ts';
 import { MotifError, type MotifGeometry, parseMotifSvg } from '../../shared/engine/motif.ts';
+import { type GroupedSheet, nestOrderGroups, nestPieces } from '../../shared/engine/outline-nest.ts';
 import { parsePathData, pathArea, pathBBox } from '../../shared/engine/path.ts';
 import { LayoutError, type LayoutTextInput, layoutText, type TextLayout } from '../../shared/engine/text-layout.ts';
+import type { Grouping } from '../../shared/schemas/workroom.ts';
 import { AppError } from '../http/app-error.ts';
 import { getFontRegistry } from '../integrations/fonts.ts';
 import { type ProcessedImage, processImage } from '../integrations/storage.ts';
+import { buildTemplatePdf, type TemplateInput } from './template-pdf.ts';
 import { buildWorksheetPdf, type WorksheetInput } from './worksheet-pdf.ts';
 
 /** A piece to nest as the workroom has it: its path data, not yet measured. */
@@ -23,17 +27,19 @@ export type Task =
   | { kind: 'motif'; svg: string }
   | { kind: 'layout'; input: LayoutTextInput }
   | { kind: 'compose'; input: ComposeInput }
-  | { kind: 'nest'; rollWidthMm: number; pieces: RawPiece[] }
+  | { kind: 'nest'; rollWidthMm: number; pieces: RawPiece[]; grouping?: Grouping; weedingLines?: boolean }
   | { kind: 'worksheet'; input: Omit<WorksheetInput, 'onProgress'>; progress?: MessagePort }
-  | { kind: 'image'; bytes: Uint8Array };
+  | { kind: 'image'; bytes: Uint8Array }
+  | { kind: 'template'; input: TemplateInput };
 
 export type TaskValue = {
   motif: MotifGeometry;
   layout: TextLayout;
   compose: ComposedItem;
-  nest: CutSheet[];
+  nest: NestedSheet[];
   worksheet: Uint8Array;
   image: ProcessedImage;
+  template: Uint8Array;
 };
 export type TaskKind = Task['kind'];
 
@@ -43,10 +49,14 @@ export type TaskResult<K extends TaskKind = TaskKind> = { ok: true; value: TaskV
 
 const r3 = (v: number) => Math.round(v * 1000) / 1000;
 
-/** Measures each piece (an empty one cuts nothing and is left out) and nests them on the roll. */
-export function measureAndNest(rollWidthMm: number, raw: RawPiece[]): CutSheet[] {
+/**
+ * Measures each piece's cut outline (an empty one cuts nothing and is left out) and nests them on
+ * the roll by outline, the box packer as floor (shared/engine/outline-nest.ts). The nest sees the
+ * same outline the SVG and the work sheet draw (withCutOutlines), so its gap holds for the cut.
+ */
+export function measureAndNest(rollWidthMm: number, raw: RawPiece[], opts: Pick<NestInput, 'gapMm' | 'marginMm'> & { grouping?: Grouping; weedingLines?: boolean } = {}): NestedSheet[] {
   const pieces: NestPiece[] = [];
-  for (const p of raw) {
+  for (const p of withCutOutlines(raw)) {
     const path = parsePathData(p.path);
     const bb = pathBBox(path);
     const w = bb.maxX - bb.minX;
@@ -55,8 +65,16 @@ export function measureAndNest(rollWidthMm: number, raw: RawPiece[]): CutSheet[]
     // a hair over the outline's bbox so float noise never makes the path larger than its slot
     pieces.push({ ...p, widthMm: r3(w) + 0.002, heightMm: r3(h) + 0.002, areaMm2: pathArea(path) });
   }
-  return nestCutSheets({ rollWidthMm, pieces });
+  const { grouping, weedingLines, ...spacing } = opts;
+  const input = { rollWidthMm, pieces, ...spacing };
+  if (grouping !== 'order') return nestPieces(input);
+  // keep each order together; the tightest nest's length rides along, to show what grouping costs
+  const tightest = nestPieces(input).reduce((s, sh) => s + sh.lengthMm, 0);
+  return nestOrderGroups(input, { weedingLines: weedingLines ?? false }).map((sh) => ({ ...sh, tightestLengthMm: tightest }));
 }
+
+/** A nested sheet from the worker: with order groups, its borders, lines and the tightest length. */
+export type NestedSheet = CutSheet & Partial<Pick<GroupedSheet, 'groups' | 'weedingLines'>> & { tightestLengthMm?: number };
 
 async function perform(task: Task): Promise<TaskValue[TaskKind]> {
   switch (task.kind) {
@@ -67,7 +85,7 @@ async function perform(task: Task): Promise<TaskValue[TaskKind]> {
     case 'compose':
       return compose(getFontRegistry(), task.input);
     case 'nest':
-      return measureAndNest(task.rollWidthMm, task.pieces);
+      return measureAndNest(task.rollWidthMm, task.pieces, { grouping: task.grouping, weedingLines: task.weedingLines });
     case 'worksheet': {
       const port = task.progress;
       try {
@@ -78,6 +96,8 @@ async function perform(task: Task): Promise<TaskValue[TaskKind]> {
     }
     case 'image':
       return processImage(task.bytes);
+    case 'template':
+      return buildTemplatePdf(task.input);
   }
 }
 

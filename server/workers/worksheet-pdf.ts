@@ -9,8 +9,9 @@
  */
 import PDFDocument from 'pdfkit';
 import { z } from 'zod';
-import { placedCutPath } from '../../shared/engine/cut-sheet-svg.ts';
-import type { CutSheet } from '../../shared/engine/cut-sheets.ts';
+import { withCutOutlines } from '../../shared/engine/cut-path.ts';
+import { groupLabelAt, placedCutPath } from '../../shared/engine/cut-sheet-svg.ts';
+import { type CutSheet, DEFAULT_GAP_MM } from '../../shared/engine/cut-sheets.ts';
 import { LimitError, MAX_WORKSHEET_PAGES } from '../../shared/engine/limits.ts';
 import { formatPath } from '../../shared/engine/path.ts';
 import type { PressCard } from '../../shared/engine/press-card.ts';
@@ -44,6 +45,7 @@ const placementSchema = z.object({
   widthMm: z.number().positive(),
   heightMm: z.number().positive(),
   rotated: z.boolean(),
+  rotation: z.union([z.literal(0), z.literal(90), z.literal(180), z.literal(270)]).optional(),
 });
 const sheetSchema = z.object({
   id: str(128).optional(),
@@ -55,6 +57,15 @@ const sheetSchema = z.object({
   marginMm: z.number().nonnegative().optional(),
   piecesAreaMm2: z.number().nonnegative().optional(),
   placements: z.array(placementSchema).max(20_000),
+  /** Order groups: weeding borders (labelled with the order number) and weeding lines, mm. */
+  groups: z
+    .array(z.object({ label: str(64), xMm: z.number().finite(), yMm: z.number().finite(), widthMm: z.number().positive(), heightMm: z.number().positive() }))
+    .max(20_000)
+    .optional(),
+  weedingLines: z
+    .array(z.object({ x1: z.number().finite(), y1: z.number().finite(), x2: z.number().finite(), y2: z.number().finite() }))
+    .max(20_000)
+    .optional(),
   /** Preview paths by piece id: when given, the map draws the real (mirrored) outlines. */
   pieces: z.array(z.object({ id: str(128), path: str(2_000_000) })).optional(),
 });
@@ -196,7 +207,9 @@ function summaryPages(doc: Doc, inp: z.infer<typeof worksheetInputSchema>, newPa
 function mapPages(doc: Doc, paper: Paper, sheet: WorksheetSheet, index: number, newPage: () => void) {
   const g = mapGeometry(paper, sheet.rollWidthMm);
   const pages = mapPageCount(paper, sheet);
-  const paths = new Map((sheet.pieces ?? []).map((p) => [p.id, p.path]));
+  // the blade's path, as the SVG has it: each piece's outer outline, never the overlapping contours
+  // a font draws (issue 17: a "Z" or "ë" drawn from several contours)
+  const paths = new Map(withCutOutlines(sheet.pieces ?? []).map((p) => [p.id, p.path]));
   const drawn = sheet.placements.map((pl) => {
     const src = paths.get(pl.pieceId);
     let d: string | null = null;
@@ -251,6 +264,33 @@ function mapPages(doc: Doc, paper: Paper, sheet: WorksheetSheet, index: number, 
       doc.font(PDF_FONT.bold).fontSize(size).fillColor(MARIGOLD);
       const tw = doc.widthOfString(label);
       doc.text(label, x + (boxW - tw) / 2, y + (pl.heightMm * g.scale - size) / 2, { lineBreak: false });
+    }
+    // order groups: each weeding border (a cut) with its order number, and the weeding lines
+    const gap = sheet.gapMm ?? DEFAULT_GAP_MM;
+    for (const gr of sheet.groups ?? []) {
+      if (gr.yMm + gr.heightMm < y0 || gr.yMm > y1) continue;
+      const gx = g.left + gr.xMm * g.scale;
+      const gy = g.top + (gr.yMm - y0) * g.scale;
+      doc
+        .lineWidth(0.9)
+        .strokeColor(GREEN)
+        .rect(gx, gy, gr.widthMm * g.scale, gr.heightMm * g.scale)
+        .stroke();
+      const at = groupLabelAt(gr, gap);
+      doc
+        .font(PDF_FONT.bold)
+        .fontSize(Math.max(5, Math.min(10, at.sizeMm * g.scale * 1.6)))
+        .fillColor(GREEN);
+      doc.text(gr.label, g.left + at.x * g.scale, g.top + (gr.yMm - y0) * g.scale + 1, { lineBreak: false });
+    }
+    for (const l of sheet.weedingLines ?? []) {
+      if (Math.max(l.y1, l.y2) < y0 || Math.min(l.y1, l.y2) > y1) continue;
+      doc
+        .lineWidth(0.7)
+        .strokeColor(GREEN)
+        .moveTo(g.left + l.x1 * g.scale, g.top + (l.y1 - y0) * g.scale)
+        .lineTo(g.left + l.x2 * g.scale, g.top + (l.y2 - y0) * g.scale)
+        .stroke();
     }
     doc.restore();
   }

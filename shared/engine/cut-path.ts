@@ -13,3 +13,11 @@ export function cutOutline(pathData: string): string {
   const polys = flattenPath(parsePathData(pathData), CUT_TOLERANCE_MM);
   return formatPath(polygonsToPath(regionsToPolygons(unionRegions(polys, 'nonzero'))));
 }
+
+/**
+ * Pieces with their path data replaced by the cut outline: what the cut-sheet SVG, the work sheet's
+ * cut map and the nester all draw, so the three never disagree.
+ */
+export function withCutOutlines<T extends { path: string }>(pieces: readonly T[]): T[] {
+  return pieces.map((p) => ({ ...p, path: cutOutline(p.path) }));
+}

@@ -18,24 +18,33 @@ export interface CutSheetSvgPiece {
 
 type Matrix = [number, number, number, number, number, number];
 /** What placing a path needs from a placement. */
-export type PlacedRect = Pick<Placement, 'pieceId' | 'xMm' | 'yMm' | 'widthMm' | 'heightMm' | 'rotated'>;
+export type PlacedRect = Pick<Placement, 'pieceId' | 'xMm' | 'yMm' | 'widthMm' | 'heightMm' | 'rotated' | 'rotation'>;
+
+/** The clockwise turn of a placement: its `rotation`, or a quarter turn when only `rotated` is set. */
+export const turnOf = (p: Pick<Placement, 'rotated' | 'rotation'>): 0 | 90 | 180 | 270 => p.rotation ?? (p.rotated ? 90 : 0);
 
 /**
  * The transform taking a piece's preview path (as designed, not mirrored) to its place on the sheet:
- * mirror about its own vertical centre line, turn a quarter turn clockwise when `rotated`, then move
- * its bbox to the placement (centred in it if the path is a little smaller than the placed rect).
+ * mirror about its own vertical centre line, turn clockwise by its rotation (0/90/180/270°), then
+ * move its bbox to the placement (centred in it if the path is a little smaller than the placed rect).
  */
 export function placementMatrix(placement: PlacedRect, bbox: BBox): Matrix {
   const w = bbox.maxX - bbox.minX;
   const h = bbox.maxY - bbox.minY;
-  const placedW = placement.rotated ? h : w;
-  const placedH = placement.rotated ? w : h;
+  const turn = turnOf(placement);
+  const quarter = turn === 90 || turn === 270;
+  const placedW = quarter ? h : w;
+  const placedH = quarter ? w : h;
   const X = placement.xMm + (placement.widthMm - placedW) / 2;
   const Y = placement.yMm + (placement.heightMm - placedH) / 2;
-  // mirrored, at the origin: xl = maxX − x, yl = y − minY (bbox [0,w] × [0,h])
-  if (!placement.rotated) return [-1, 0, 0, 1, bbox.maxX + X, Y - bbox.minY];
-  // quarter turn clockwise with y down: xr = h − yl, yr = xl (bbox [0,h] × [0,w])
-  return [0, -1, -1, 0, h + bbox.minY + X, bbox.maxX + Y];
+  // mirrored, at the origin: xl = maxX − x, yl = y − minY (bbox [0,w] × [0,h]); then, y down:
+  if (turn === 0) return [-1, 0, 0, 1, bbox.maxX + X, Y - bbox.minY];
+  // quarter turn clockwise: xr = h − yl, yr = xl (bbox [0,h] × [0,w])
+  if (turn === 90) return [0, -1, -1, 0, h + bbox.minY + X, bbox.maxX + Y];
+  // half turn: xr = w − xl = x − minX, yr = h − yl = maxY − y
+  if (turn === 180) return [1, 0, 0, -1, X - bbox.minX, bbox.maxY + Y];
+  // three quarters clockwise: xr = yl = y − minY, yr = w − xl = x − minX
+  return [0, 1, 1, 0, X - bbox.minY, Y - bbox.minX];
 }
 
 /**
@@ -224,8 +233,9 @@ export function placedTransform(placement: PlacedRect, previewPath: string | Pat
   const bbox = pathBBox(p);
   const w = bbox.maxX - bbox.minX;
   const h = bbox.maxY - bbox.minY;
-  const placedW = placement.rotated ? h : w;
-  const placedH = placement.rotated ? w : h;
+  const quarter = turnOf(placement) % 180 !== 0;
+  const placedW = quarter ? h : w;
+  const placedH = quarter ? w : h;
   // The nest kept the gap around the placed rect; a path bigger than it would break that promise.
   const TOL = 0.01;
   if (placedW > placement.widthMm + TOL || placedH > placement.heightMm + TOL) {
@@ -243,11 +253,23 @@ export function escapeXml(s: string): string {
 
 const num = (v: number) => String(Math.round(v * 1000) / 1000);
 
+/** Order groups on a sheet: weeding borders and lines (cuts), and the labels that name each group. */
+export interface SheetGroupsLayer {
+  groups?: ReadonlyArray<{ label: string; xMm: number; yMm: number; widthMm: number; heightMm: number }>;
+  weedingLines?: ReadonlyArray<{ x1: number; y1: number; x2: number; y2: number }>;
+}
+
+/** Where a group's label sits: inside its border, in the gap strip before the pieces begin (mm). */
+export const groupLabelAt = (g: { xMm: number; yMm: number }, gapMm: number) => ({ x: g.xMm + Math.min(1.5, gapMm / 4), y: g.yMm + Math.min(4.5, gapMm * 0.8), sizeMm: Math.min(4, gapMm * 0.6) });
+
 /**
  * The SVG for one cut sheet. `pieces` holds at least every placed piece's preview path by id.
+ * With order groups, each weeding border and weeding line is a cut path in the cut group; the order
+ * labels are text in a group of their own (`id="order-labels"`, `data-cut="no"`, no stroke) after the
+ * cut group, so a cutter that cuts stroked paths passes them over, and `labels: false` leaves them out.
  * Throws CutSheetError('invalid_input') when a placed piece has no path.
  */
-export function cutSheetSvg(sheet: CutSheet, pieces: readonly CutSheetSvgPiece[]): string {
+export function cutSheetSvg(sheet: CutSheet & SheetGroupsLayer, pieces: readonly CutSheetSvgPiece[], opts: { labels?: boolean } = {}): string {
   const byId = new Map(pieces.map((p) => [p.id, p]));
   const W = num(sheet.rollWidthMm);
   const H = num(sheet.lengthMm);
@@ -264,6 +286,23 @@ export function cutSheetSvg(sheet: CutSheet, pieces: readonly CutSheetSvgPiece[]
     const d = formatTransformed(path, matrix);
     out.push(`<path data-piece="${escapeXml(pl.pieceId)}" data-line="${escapeXml(pl.lineId)}" d="${d}"/>`);
   }
-  out.push('</g>', '</svg>', '');
+  const groups = sheet.groups ?? [];
+  const lines = sheet.weedingLines ?? [];
+  if (groups.length || lines.length) out.push('<!-- weeding borders and lines: cut, so the sheet splits by order before weeding -->');
+  for (const g of groups) out.push(`<path data-group="${escapeXml(g.label)}" d="M${num(g.xMm)} ${num(g.yMm)}H${num(g.xMm + g.widthMm)}V${num(g.yMm + g.heightMm)}H${num(g.xMm)}Z"/>`);
+  for (const l of lines) out.push(`<path data-weeding-line="" d="M${num(l.x1)} ${num(l.y1)}L${num(l.x2)} ${num(l.y2)}"/>`);
+  out.push('</g>');
+  if (groups.length && opts.labels !== false) {
+    out.push(
+      '<!-- Order labels: NOT cut. Text only, no stroke, in their own group after the cut group; a cutter that imports text should hide or delete the group "order-labels" (or download with ?labels=0). -->',
+      '<g id="order-labels" data-cut="no" fill="#b4540a" stroke="none" font-family="sans-serif" font-weight="700">',
+    );
+    for (const g of groups) {
+      const at = groupLabelAt(g, sheet.gapMm);
+      out.push(`<text x="${num(at.x)}" y="${num(at.y)}" font-size="${num(at.sizeMm)}">${escapeXml(g.label)}</text>`);
+    }
+    out.push('</g>');
+  }
+  out.push('</svg>', '');
   return out.join('\n');
 }

@@ -29,6 +29,8 @@ export const nestPieceSchema = z.object({
   id: z.string().min(1).max(128),
   lineId: z.string().min(1).max(128),
   orderNumber: z.string().max(64).optional(),
+  /** what keeps pieces together in an order group (the order number without a unit suffix) */
+  group: z.string().max(64).optional(),
   layerId: z.string().min(1).max(128),
   widthMm: z.number().positive().finite(),
   heightMm: z.number().positive().finite(),
@@ -61,9 +63,13 @@ export interface Placement {
   /** Size as placed (already swapped when rotated). */
   widthMm: number;
   heightMm: number;
-  /** Turned a quarter turn clockwise. */
+  /** Turned a quarter turn (90° or 270°): width and height are swapped. */
   rotated: boolean;
+  /** The turn clockwise, degrees; absent = 90 when `rotated`, else 0 (the box packer's placements). */
+  rotation?: Rotation;
 }
+
+export type Rotation = 0 | 90 | 180 | 270;
 
 export interface CutSheet {
   rollWidthMm: number;

@@ -85,6 +85,20 @@ export function offsetPolygons(polys: Polygon[], deltaMm: number, arcToleranceMm
   return treeToRegions(tree, []);
 }
 
+/**
+ * The outer contours of polygons grown by `deltaMm` (round joins), holes filled: one Clipper offset
+ * straight from the raw contours (overlapping ones merge), keeping only the top-level outers, so
+ * the result is disjoint simple polygons.
+ */
+export function grownOuterContours(polys: Polygon[], deltaMm: number, arcToleranceMm = 0.01, join: 'round' | 'miter' = 'round'): Polygon[] {
+  if (polys.length === 0) return [];
+  const co = new ClipperLib.ClipperOffset(2, arcToleranceMm * SCALE);
+  co.AddPaths(toInt(polys), join === 'round' ? ClipperLib.JoinType.jtRound : ClipperLib.JoinType.jtMiter, ClipperLib.EndType.etClosedPolygon);
+  const tree = new ClipperLib.PolyTree();
+  co.Execute(tree, deltaMm * SCALE);
+  return tree.Childs().map((n) => fromInt(n.Contour()));
+}
+
 export function polygonAreaAbs(p: Polygon): number {
   let a = 0;
   for (let i = 0; i < p.length; i += 2) {

@@ -27,6 +27,16 @@ export const lineIdsSchema = z.object({
 });
 export type LineIdsInput = z.input<typeof lineIdsSchema>;
 
+/** How a batch's sheets are laid out: the tightest nest, or each order kept together. */
+export const GROUPINGS = ['tightest', 'order'] as const;
+export type Grouping = (typeof GROUPINGS)[number];
+/** POST /api/workroom/cut-sheets: the lines, and how to lay out the batch (tightest by default). */
+export const buildCutSheetsSchema = lineIdsSchema.extend({
+  grouping: z.enum(GROUPINGS, { error: 'Choose "tightest" or "keep each order together".' }).default('tightest'),
+  weedingLines: z.boolean().default(false),
+});
+export type BuildCutSheetsInput = z.input<typeof buildCutSheetsSchema>;
+
 /** an instant as milliseconds since 1970 (the client turns its calendar day into these) */
 const instant = z.coerce
   .number({ error: 'Give a time as milliseconds since 1970.' })
@@ -59,6 +69,9 @@ export type RequestChangeInput = z.input<typeof requestChangeSchema>;
 export const PAPERS = ['A4', 'Letter'] as const;
 export const worksheetRequestSchema = z.object({ paper: z.enum(PAPERS, { error: 'Choose A4 or Letter.' }).default('A4') });
 export type WorksheetRequest = z.input<typeof worksheetRequestSchema>;
+export type Paper = (typeof PAPERS)[number];
+/** GET /api/workroom/lines/:id/template?paper=A4|Letter: the 1:1 placement template */
+export const templateQuerySchema = z.object({ paper: z.enum(PAPERS, { error: 'Choose A4 or Letter.' }).default('A4') });
 
 export const CARRIERS = ['Royal Mail', 'USPS', 'UPS', 'FedEx', 'DHL', 'Canada Post', 'Other'] as const;
 export const shipSchema = z.object({
@@ -168,7 +181,28 @@ export type WorkOrder = {
   timeline: TimelineEvent[];
 };
 
-export type SheetPiece = { lineId: string; orderNumber: string; layerId: string; xMm: number; yMm: number; widthMm: number; heightMm: number; rotated: boolean };
+export type SheetPiece = {
+  lineId: string;
+  orderNumber: string;
+  layerId: string;
+  xMm: number;
+  yMm: number;
+  widthMm: number;
+  heightMm: number;
+  rotated: boolean;
+  /** clockwise turn in degrees (0/90/180/270); absent on older sheets: 90 when rotated */
+  rotation?: 0 | 90 | 180 | 270;
+};
+/** An order group on a sheet: its weeding border (a cut), labelled with the order number. */
+export type SheetGroupView = { label: string; xMm: number; yMm: number; widthMm: number; heightMm: number };
+export type SheetLayout = {
+  grouping: Grouping;
+  weedingLines: boolean;
+  groups: SheetGroupView[];
+  lines: Array<{ x1: number; y1: number; x2: number; y2: number }>;
+  /** the same pieces' length nested tightest, to show what grouping costs */
+  tightestLengthMm: number;
+};
 /** A nested piece as a cut sheet stores it: where it lies, which piece of the nest it is, its cut path. */
 export type StoredSheetPiece = SheetPiece & { pieceId: string; path: string };
 export type StockCheck = { stockMm: number; needMm: number; afterMm: number; low: boolean; short: boolean };
@@ -186,6 +220,10 @@ export type WorkSheet = {
   cutAt: number | null;
   createdAt: number;
   stock: StockCheck;
+  grouping: Grouping;
+  groups: SheetGroupView[];
+  /** extra roll the order groups take against the tightest nest of the same pieces (0 when tightest) */
+  extraLengthMm: number;
 };
 
 export type StockWarning = { materialId: string; level: 'low' | 'short'; message: string };

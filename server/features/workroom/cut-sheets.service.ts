@@ -3,15 +3,15 @@
 // pieces are cut (through orders' transition()). Building moves its lines to `planned`, so they are
 // not offered again; discarding a batch that is not cut brings them back to `approved`.
 import crypto from 'node:crypto';
-import { cutOutline } from '../../../shared/engine/cut-path.ts';
+import { withCutOutlines } from '../../../shared/engine/cut-path.ts';
 import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
 import { type CutSheet, CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM } from '../../../shared/engine/cut-sheets.ts';
 import { MAX_NEST_PIECES } from '../../../shared/engine/limits.ts';
 import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
-import type { MarkCutResult, StockWarning, StoredSheetPiece, WorkSheet } from '../../../shared/schemas/workroom.ts';
+import type { Grouping, MarkCutResult, SheetLayout, StockWarning, StoredSheetPiece, WorkSheet } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
-import type { RawPiece } from '../../workers/tasks.ts';
+import type { NestedSheet, RawPiece } from '../../workers/tasks.ts';
 import { TRIM_ALLOWANCE_MM } from '../../workers/worksheet-pdf.ts';
 import { assertEachCanMove, transition, transitionAll } from '../orders/index.ts';
 import { lineSnapshot, type WorkroomDeps, type WorkroomPoolDeps } from './lines.service.ts';
@@ -27,7 +27,17 @@ function stockCheck(m: MaterialRow | undefined, needMm: number): WorkSheet['stoc
 }
 
 function sheetView(s: SheetRow, m: MaterialRow | undefined): WorkSheet {
-  const pieces = s.pieces.map(({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }) => ({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated }));
+  const pieces = s.pieces.map(({ lineId, orderNumber, layerId, xMm, yMm, widthMm, heightMm, rotated, rotation }) => ({
+    lineId,
+    orderNumber,
+    layerId,
+    xMm,
+    yMm,
+    widthMm,
+    heightMm,
+    rotated,
+    ...(rotation !== undefined ? { rotation } : {}),
+  }));
   return {
     id: s.id,
     batchId: s.batchId,
@@ -42,11 +52,14 @@ function sheetView(s: SheetRow, m: MaterialRow | undefined): WorkSheet {
     cutAt: s.cutAt,
     createdAt: s.createdAt,
     stock: stockCheck(m, s.lengthMm + TRIM_ALLOWANCE_MM),
+    grouping: s.layout?.grouping ?? 'tightest',
+    groups: s.layout?.groups ?? [],
+    extraLengthMm: s.layout ? r3(s.lengthMm - s.layout.tightestLengthMm) : 0,
   };
 }
 
 /** The nested sheet as the core's CutSheet, for the SVG and the PDF. */
-export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string; path: string }> } {
+export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string; path: string }>; groups: SheetLayout['groups']; weedingLines: SheetLayout['lines'] } {
   const stored = s.pieces;
   return {
     rollWidthMm: s.rollWidthMm,
@@ -65,8 +78,11 @@ export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string
       widthMm: p.widthMm,
       heightMm: p.heightMm,
       rotated: p.rotated,
+      ...(p.rotation !== undefined ? { rotation: p.rotation } : {}),
     })),
     pieces: stored.map((p) => ({ id: p.pieceId, path: p.path })),
+    groups: s.layout?.groups ?? [],
+    weedingLines: s.layout?.lines ?? [],
   };
 }
 
@@ -75,7 +91,13 @@ export function asCutSheet(s: SheetRow): CutSheet & { pieces: Array<{ id: string
  * roll width), 6 mm gap and margins, rotation allowed (shared/engine/cut-sheets.ts). A line with
  * quantity n gives its pieces n times. All sheets of one call share a batch id.
  */
-export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, actorId: string, lineIds: string[]): Promise<{ batchId: string; sheets: WorkSheet[] }> {
+export async function buildCutSheets(
+  deps: WorkroomPoolDeps,
+  shopId: string,
+  actorId: string,
+  lineIds: string[],
+  layout: { grouping?: Grouping; weedingLines?: boolean } = {},
+): Promise<{ batchId: string; sheets: WorkSheet[] }> {
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
@@ -105,23 +127,27 @@ export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, act
           id: `${line.id}:${unit + 1}:${i + 1}`,
           lineId: line.id,
           orderNumber: line.quantity > 1 ? `${order.number}·${unit + 1}` : order.number,
+          group: order.number,
           layerId: `piece-${i + 1}`,
           path: pc.d,
         });
       });
     }
   }
-  // measuring and nesting run in the worker pool (server/workers/tasks.ts measureAndNest), one
-  // material at a time; an empty piece cuts nothing and is left out there
-  const nestedByMaterial = new Map<string, CutSheet[]>();
-  for (const g of groups.values()) {
-    try {
-      nestedByMaterial.set(g.material.id, await deps.pool.run({ kind: 'nest', rollWidthMm: g.material.rollWidthMm, pieces: g.pieces }));
-    } catch (e) {
-      if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
-      throw e;
-    }
-  }
+  // measuring and nesting run in the worker pool (server/workers/tasks.ts measureAndNest), each
+  // material its own task; an empty piece cuts nothing and is left out there
+  const nestedByMaterial = new Map<string, NestedSheet[]>();
+  // materials nest side by side on the pool's threads
+  await Promise.all(
+    [...groups.values()].map(async (g) => {
+      try {
+        nestedByMaterial.set(g.material.id, await deps.pool.run({ kind: 'nest', rollWidthMm: g.material.rollWidthMm, pieces: g.pieces, grouping: layout.grouping, weedingLines: layout.weedingLines }));
+      } catch (e) {
+        if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
+        throw e;
+      }
+    }),
+  );
   const batchId = crypto.randomUUID();
   const at = deps.now();
   const made: SheetRow[] = [];
@@ -153,9 +179,14 @@ export async function buildCutSheets(deps: WorkroomPoolDeps, shopId: string, act
               widthMm: pl.widthMm,
               heightMm: pl.heightMm,
               rotated: pl.rotated,
+              ...(pl.rotation !== undefined ? { rotation: pl.rotation } : {}),
               path: paths.get(pl.pieceId)!,
             }),
           ),
+          layout:
+            layout.grouping === 'order'
+              ? { grouping: 'order' as const, weedingLines: layout.weedingLines ?? false, groups: n.groups ?? [], lines: n.weedingLines ?? [], tightestLengthMm: r3(n.tightestLengthMm ?? n.lengthMm) }
+              : null,
           state: 'planned',
           createdAt: at,
         };
@@ -254,7 +285,7 @@ export function recentBatches(db: Db, shopId: string): Array<{ batchId: string; 
   return [...by.values()].slice(0, 20).map(({ lines, ...b }) => ({ ...b, lineCount: lines.size }));
 }
 
-export function sheetSvg(db: Db, shopId: string, sheetId: string): { svg: string; name: string } {
+export function sheetSvg(db: Db, shopId: string, sheetId: string, opts: { labels?: boolean } = {}): { svg: string; name: string } {
   const s = repo.sheet(db, shopId, sheetId);
   if (!s) throw notFound('We could not find that cut sheet.');
   const m = repo.material(db, shopId, s.materialId);
@@ -262,10 +293,7 @@ export function sheetSvg(db: Db, shopId: string, sheetId: string): { svg: string
   const name = `cut-sheet-${(m ? `${m.colourName}-${m.kind}` : 'material').toLowerCase().replace(/[^a-z0-9]+/g, '-')}-${s.id.slice(0, 8)}.svg`;
   // the blade follows each piece's outer outline, not the overlapping contours the font drew
   return {
-    svg: cutSheetSvg(
-      cs,
-      cs.pieces.map((p) => ({ ...p, path: cutOutline(p.path) })),
-    ),
+    svg: cutSheetSvg(cs, withCutOutlines(cs.pieces), opts),
     name,
   };
 }

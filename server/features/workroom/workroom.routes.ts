@@ -1,14 +1,17 @@
 import { Router } from 'express';
 import type { PageQuery } from '../../../shared/schemas/pagination.ts';
 import {
+  buildCutSheetsSchema,
   idParams,
   type LinesQuery,
   lineIdsSchema,
   linesQuerySchema,
   lowStockSchema,
+  type Paper,
   requestChangeSchema,
   shipSchema,
   stockQuerySchema,
+  templateQuerySchema,
   worksheetRequestSchema,
 } from '../../../shared/schemas/workroom.ts';
 import type { AppDeps } from '../../deps.ts';
@@ -22,6 +25,7 @@ import { personalisationForEdit, savePersonalisation } from './proof-edit.servic
 import { approve, proof, requestChange } from './proofs.service.ts';
 import { ship } from './shipping.service.ts';
 import { setLowStock, stock } from './stock.service.ts';
+import { placementTemplate } from './template.service.ts';
 import { createWorksheetJobs } from './worksheet-jobs.ts';
 
 /**
@@ -76,9 +80,19 @@ export function workroomRouter(deps: AppDeps): Router {
     res.json({ lines: markPressed(deps, shopId(req), currentUser(req).id, req.body.lineIds) });
   });
 
+  // the 1:1 placement template of a line (PDF, built in the worker pool)
+  r.get('/lines/:id/template', validate({ params: idParams, query: templateQuerySchema }), async (req, res) => {
+    const { paper } = res.locals.query as { paper: Paper };
+    const { pdf, name } = await placementTemplate(deps, shopId(req), id(req), paper);
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `inline; filename="${name}"`);
+    res.setHeader('Cache-Control', 'private, no-store');
+    res.send(pdf);
+  });
+
   // cut sheets
-  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: lineIdsSchema }), async (req, res) => {
-    res.status(201).json(await buildCutSheets(deps, shopId(req), currentUser(req).id, req.body.lineIds));
+  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: buildCutSheetsSchema }), async (req, res) => {
+    res.status(201).json(await buildCutSheets(deps, shopId(req), currentUser(req).id, req.body.lineIds, { grouping: req.body.grouping, weedingLines: req.body.weedingLines }));
   });
   r.get('/batches', (req, res) => {
     res.json({ batches: recentBatches(deps.db, shopId(req)) });
@@ -101,7 +115,8 @@ export function workroomRouter(deps: AppDeps): Router {
     res.json(discardBatch(deps, shopId(req), currentUser(req).id, id(req)));
   });
   r.get('/cut-sheets/:id/svg', validate({ params: idParams }), (req, res) => {
-    const { svg, name } = sheetSvg(deps.db, shopId(req), id(req));
+    // ?labels=0: the order labels left out, for cutter software that would cut text
+    const { svg, name } = sheetSvg(deps.db, shopId(req), id(req), { labels: req.query.labels !== '0' });
     res.setHeader('Content-Type', 'image/svg+xml; charset=utf-8');
     res.setHeader('Cache-Control', 'private, no-store');
     // our own SVG has no script, but never let a browser run anything from it anyway

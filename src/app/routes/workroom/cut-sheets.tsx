@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import type { Grouping } from '../../../../shared/schemas/workroom.ts';
 import { Button, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
@@ -33,6 +34,8 @@ function Batch({ batchId }: { batchId: string }) {
   const sheets = batch.data;
   const planned = sheets.filter((s) => s.state === 'planned');
   const total = sheets.reduce((a, s) => a + s.lengthMm, 0);
+  const extra = sheets.reduce((a, s) => a + s.extraLengthMm, 0);
+  const grouped = sheets.some((s) => s.grouping === 'order');
   return (
     <div className="flex flex-col gap-6">
       <div className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-line bg-white p-4">
@@ -41,6 +44,11 @@ function Batch({ batchId }: { batchId: string }) {
             {sheets.length} cut sheet{sheets.length === 1 ? '' : 's'}
           </span>
           , one per material, {formatLength(total)} of vinyl in all. Files are mirrored for cutting, 1 unit = 1 mm.
+          {grouped ? (
+            <span className="block" data-testid="grouping-cost">
+              Orders kept together: {extra > 0 ? `${formatLength(extra)} more roll` : 'no extra roll'} than the tightest nest of the same pieces.
+            </span>
+          ) : null}
         </p>
         <div className="flex flex-wrap items-center gap-3">
           {planned.length === sheets.length ? (
@@ -104,6 +112,8 @@ function Choose() {
   const navigate = useNavigate();
   // the lines ticked on the page shown; until one is touched, every line of the page is
   const [picked, setPicked] = useState<{ page: number; ids: Set<string> } | null>(null);
+  const [grouping, setGrouping] = useState<Grouping>('tightest');
+  const [weedingLines, setWeedingLines] = useState(false);
   if (lines.isPending) return <Spinner label="Loading approved lines…" />;
   if (lines.isError)
     return (
@@ -153,6 +163,31 @@ function Choose() {
                 </li>
               ))}
             </ul>
+            <fieldset className="flex flex-col gap-2 rounded-lg border border-line bg-white p-3">
+              <legend className="px-1 font-extrabold">Layout on the roll</legend>
+              <label className="flex min-h-11 cursor-pointer items-center gap-3">
+                <input type="radio" name="grouping" className="size-5 accent-thread" checked={grouping === 'tightest'} onChange={() => setGrouping('tightest')} />
+                <span>
+                  <span className="font-bold">Tightest</span> — least vinyl; pieces of different orders mix on the sheet
+                </span>
+              </label>
+              <label className="flex min-h-11 cursor-pointer items-center gap-3">
+                <input type="radio" name="grouping" className="size-5 accent-thread" checked={grouping === 'order'} onChange={() => setGrouping('order')} />
+                <span>
+                  <span className="font-bold">Keep each order together</span> — each order inside its own cut border, labelled with its number, so you can split the sheet before weeding
+                </span>
+              </label>
+              <label className={`ml-8 flex min-h-11 items-center gap-3 ${grouping === 'order' ? 'cursor-pointer' : 'text-ink-soft'}`}>
+                <input
+                  type="checkbox"
+                  className="size-5 accent-thread"
+                  disabled={grouping !== 'order'}
+                  checked={grouping === 'order' && weedingLines}
+                  onChange={(e) => setWeedingLines(e.target.checked)}
+                />
+                <span>Add straight weeding lines between the orders (groups sit in rows)</span>
+              </label>
+            </fieldset>
             <div className="flex flex-wrap gap-3">
               <Button
                 disabled={chosen.size === 0}
@@ -160,7 +195,7 @@ function Choose() {
                 pendingLabel="Nesting…"
                 onClick={async () => {
                   try {
-                    const r = await build.mutateAsync([...chosen]);
+                    const r = await build.mutateAsync({ lineIds: [...chosen], grouping, weedingLines: grouping === 'order' && weedingLines });
                     navigate(paths.workroomCutSheets.getHref(r.batchId));
                   } catch (e) {
                     toast.error(isApiError(e) ? e.message : 'That did not work.');

@@ -10,6 +10,7 @@ import { OrderReviews } from '../../../features/reviews/components/order-reviews
 import { useOrder } from '../../../features/workroom/api/get-order.ts';
 import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
 import { MaterialChips } from '../../../features/workroom/components/material-chips.tsx';
+import { PlacementTemplateLinks } from '../../../features/workroom/components/placement-template-links.tsx';
 import { ShipForm } from '../../../features/workroom/components/ship-form.tsx';
 import { Timeline } from '../../../features/workroom/components/timeline.tsx';
 import { SellerPageStatus } from '../seller/seller-page-status.tsx';
@@ -50,6 +51,7 @@ export function WorkroomOrderPage() {
                     <Link className="font-bold text-thread-deep underline decoration-2" to={paths.workroomProof.getHref(l.id)}>
                       {l.state === 'awaiting_proof' ? 'Check proof' : 'Open proof'}
                     </Link>
+                    <PlacementTemplateLinks lineId={l.id} />
                   </div>
                 </li>
               ))}

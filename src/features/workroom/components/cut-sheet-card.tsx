@@ -40,6 +40,14 @@ export function CutSheetCard({ sheet, index }: { sheet: WorkSheet; index: number
         <dd className="font-semibold">{formatLength(sheet.rollWidthMm)}</dd>
         <dt className="text-ink-soft">Length used</dt>
         <dd className="font-semibold">{formatLength(sheet.lengthMm)} + 25 mm trim</dd>
+        {sheet.grouping === 'order' ? (
+          <>
+            <dt className="text-ink-soft">Order groups</dt>
+            <dd className="font-semibold">
+              {sheet.groups.length} bordered; {sheet.extraLengthMm > 0 ? `+${formatLength(sheet.extraLengthMm)}` : 'no extra'} against tightest
+            </dd>
+          </>
+        ) : null}
         <dt className="text-ink-soft">Utilisation</dt>
         <dd className="font-semibold">{percent(sheet.utilisation)}</dd>
         <dt className="text-ink-soft">Pieces</dt>

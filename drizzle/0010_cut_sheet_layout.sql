@@ -1,0 +1,1 @@
+ALTER TABLE `cut_sheets` ADD `layout` text;
