@@ -5,7 +5,8 @@
 import type { Auth } from './auth.ts';
 import type { Db } from './db/client.ts';
 import type { Env } from './env.ts';
-import type { RateLimits } from './http/account-rate-limit.ts';
+import type { WorksheetBuilder } from './features/workroom/worksheet-jobs.ts';
+import type { LimitStoreFactory, RateLimits } from './http/account-rate-limit.ts';
 import type { Mailer } from './integrations/mailer.ts';
 import type { WorkPool } from './workers/pool.ts';
 
@@ -20,4 +21,8 @@ export type AppDeps = {
   pool: WorkPool;
   /** per-account limits on the routes that start heavy work */
   rateLimits: RateLimits;
+  /** builds queued work sheet PDFs; active only in the process that holds the once-only lease (server/jobs/lease.ts) */
+  worksheetBuilder: WorksheetBuilder;
+  /** where express-rate-limit counts: the database, so every server process shares the limits */
+  limitStore: LimitStoreFactory;
 };

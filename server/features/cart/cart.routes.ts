@@ -17,7 +17,7 @@ export function cartRouter(deps: AppDeps): Router {
   r.get('/', (req, res) => {
     res.json(cartView(deps.db, cartOfRequest(deps, req, res, { create: false })));
   });
-  r.post('/lines', perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'items added to the cart'), validate({ body: addCartLineSchema }), async (req, res) => {
+  r.post('/lines', perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'items added to the cart', deps.limitStore('cart-adds')), validate({ body: addCartLineSchema }), async (req, res) => {
     const cart = cartOfRequest(deps, req, res, { create: true })!;
     await addLine(deps, cart, req.body);
     res.status(201).json(cartView(deps.db, cartRepo.find(deps.db, cart.id) ?? null));

@@ -2,3 +2,4 @@
 
 export { approve } from './proofs.service.ts';
 export { proofEditRouter, workroomRouter } from './workroom.routes.ts';
+export { createWorksheetBuilder, type WorksheetBuilder } from './worksheet-jobs.ts';

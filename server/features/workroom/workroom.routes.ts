@@ -30,7 +30,7 @@ import { createWorksheetJobs } from './worksheet-jobs.ts';
  */
 export function workroomRouter(deps: AppDeps): Router {
   const r = Router();
-  const jobs = createWorksheetJobs(deps.pool, deps.now);
+  const jobs = createWorksheetJobs({ db: deps.db, now: deps.now, dir: deps.env.worksheetsDir, builder: deps.worksheetBuilder });
   const shopId = (req: Parameters<typeof ownShop>[1]) => ownShop(deps.db, req).id;
   const id = (req: { params: Record<string, unknown> }) => String(req.params.id);
   r.use(requireRole('seller'));
@@ -77,7 +77,7 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // cut sheets
-  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: lineIdsSchema }), async (req, res) => {
+  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds', deps.limitStore('cut-sheets')), validate({ body: lineIdsSchema }), async (req, res) => {
     res.status(201).json(await buildCutSheets(deps, shopId(req), req.body.lineIds));
   });
   r.get('/batches', (req, res) => {
@@ -111,9 +111,14 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // work sheet PDF: start, poll, download
-  r.post('/batches/:id/worksheet', perAccountLimit(deps.rateLimits.pdfJobsPerMinute, 'work sheets'), validate({ params: idParams, body: worksheetRequestSchema }), (req, res) => {
-    res.status(202).json({ job: jobs.start(deps.db, shopId(req), id(req), req.body.paper) });
-  });
+  r.post(
+    '/batches/:id/worksheet',
+    perAccountLimit(deps.rateLimits.pdfJobsPerMinute, 'work sheets', deps.limitStore('work-sheets')),
+    validate({ params: idParams, body: worksheetRequestSchema }),
+    (req, res) => {
+      res.status(202).json({ job: jobs.start(shopId(req), id(req), req.body.paper) });
+    },
+  );
   r.get('/worksheets/:id', validate({ params: idParams }), (req, res) => {
     res.json({ job: jobs.get(shopId(req), id(req)) });
   });
