@@ -147,8 +147,8 @@ export function proofEditRouter(deps: AppDeps): Router {
   r.get('/:id/personalisation', validate({ params: idParams }), (req, res) => {
     res.json(personalisationForEdit(deps.db, currentUser(req).id, String(req.params.id)));
   });
-  r.put('/:id/personalisation', validate({ params: idParams }), (req, res) => {
-    res.json(savePersonalisation(deps, currentUser(req).id, String(req.params.id), req.body));
+  r.put('/:id/personalisation', validate({ params: idParams }), async (req, res) => {
+    res.json(await savePersonalisation(deps, currentUser(req).id, String(req.params.id), req.body));
   });
   return r;
 }
