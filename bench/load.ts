@@ -211,7 +211,8 @@ async function runOnce(workers: number): Promise<RunResult> {
         `  ${kind.padEnd(26)} ${String(ms.length).padStart(7)} req  ${(ms.length / seconds).toFixed(0).padStart(6)} req/s  p50 ${pct(sorted, 50).toFixed(1).padStart(6)} ms  p99 ${pct(sorted, 99).toFixed(1).padStart(7)} ms  errors: ${errs.length ? errs.join(', ') : '0'}`,
       );
     };
-    console.log(`\nresults over ${seconds.toFixed(1)} s (${os.cpus().length} CPUs, Node ${process.version}):`);
+    // the machine's load (1-minute average) says how much else ran beside the bench: compare runs at a similar load
+    console.log(`\nresults over ${seconds.toFixed(1)} s (${os.cpus().length} CPUs, Node ${process.version}, load average ${os.loadavg()[0]!.toFixed(1)}):`);
     for (const s of all) line(s.kind, s.ms, s.byStatus);
     const allMs = all.flatMap((s) => s.ms);
     const allStatus = new Map<number, number>();
