@@ -189,9 +189,15 @@ describe('WORKERS=2', () => {
   });
 
   test("when password resets are asked for on alternating processes, then better-auth's per-address limit holds across them", async () => {
-    const { a, b } = await twoProcesses();
+    const { a, b, pids } = await twoProcesses();
     const statuses: number[] = [];
-    for (let i = 0; i < 7; i++) statuses.push((await (i % 2 ? b : a).send('POST', '/api/auth/request-password-reset', { email: 'dana@namesake.test', redirectTo: '/reset' })).status);
+    const servedBy = new Set<number | null>();
+    for (let i = 0; i < 7; i++) {
+      const r = await (i % 2 ? b : a).send('POST', '/api/auth/request-password-reset', { email: 'dana@namesake.test', redirectTo: '/reset' });
+      statuses.push(r.status);
+      servedBy.add(r.pid);
+    }
+    expect([...servedBy].sort()).toEqual([...pids].sort());
     // 5 a minute per address (server/auth.ts)
     expect(statuses.slice(0, 5).every((s) => s === 200)).toBe(true);
     expect(statuses.slice(5)).toEqual([429, 429]);
