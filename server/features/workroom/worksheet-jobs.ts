@@ -11,6 +11,7 @@ import { MAX_WORKSHEET_PAGES } from '../../../shared/engine/limits.ts';
 import { parseShipTo, shipToLines } from '../../../shared/schemas/checkout.ts';
 import type { WorksheetJob } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
+import type { OnceOnlyWorker } from '../../deps.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 import { type Paper, worksheetInputSchema, worksheetPageCount } from '../../workers/worksheet-pdf.ts';
@@ -108,7 +109,7 @@ export function createWorksheetBuilder({ db, pool, now, dir }: BuilderDeps) {
     },
   };
 }
-export type WorksheetBuilder = ReturnType<typeof createWorksheetBuilder>;
+export type WorksheetBuilder = ReturnType<typeof createWorksheetBuilder> & OnceOnlyWorker;
 
 /** What the routes use: start a job (queued for the builder), read its state, fetch its file. */
 export function createWorksheetJobs({ db, now, dir, builder }: { db: Db; now: () => number; dir: string; builder: Pick<WorksheetBuilder, 'kick'> }) {
