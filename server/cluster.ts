@@ -28,6 +28,8 @@ export function reportReady(url: string): void {
 
 /** How long a worker may take to stop before it is killed. */
 const STOP_GRACE_MS = 15_000;
+const MAX_RESTARTS = 5;
+const RESTART_WINDOW_MS = 60_000;
 
 export async function startCluster(workers: number, opts: Omit<StartOptions, 'clusterWorker'> = {}): Promise<Running> {
   const log = opts.log ?? ((s: string) => console.log(s));
@@ -66,6 +68,9 @@ export async function startCluster(workers: number, opts: Omit<StartOptions, 'cl
 
   let stopping = false;
   const live = new Set<Worker>();
+  // a worker that keeps dying (a bug at start, a full disk) is not restarted for ever: past
+  // MAX_RESTARTS in RESTART_WINDOW_MS the whole server stops, with that said, and exits non-zero
+  const restarts: number[] = [];
   const fork = () => {
     const w = cluster.fork(workerEnv);
     live.add(w);
@@ -73,6 +78,15 @@ export async function startCluster(workers: number, opts: Omit<StartOptions, 'cl
       live.delete(w);
       if (stopping) return;
       // a worker that dies is replaced; the lease moves to a live one if it held it
+      const now = Date.now();
+      restarts.push(now);
+      while (restarts.length && now - restarts[0]! > RESTART_WINDOW_MS) restarts.shift();
+      if (restarts.length > MAX_RESTARTS) {
+        console.error(`worker ${w.process.pid} exited (${signal ?? code}); ${restarts.length} exits within a minute, so Namesake stops.`);
+        process.exitCode = 1;
+        process.kill(process.pid, 'SIGTERM'); // server/index.ts stops everything cleanly
+        return;
+      }
       console.error(`worker ${w.process.pid} exited (${signal ?? code}); starting another`);
       fork();
     });

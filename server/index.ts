@@ -62,7 +62,8 @@ async function runPrimary() {
       stopping = true;
       console.log(`\n${signal}: finishing requests and closing …`);
       await running.stop();
-      process.exit(0);
+      // 0 for a requested stop; 1 when the cluster gave up on a worker that kept dying (server/cluster.ts)
+      process.exit(process.exitCode ?? 0);
     };
     process.on('SIGINT', () => void stop('SIGINT'));
     process.on('SIGTERM', () => void stop('SIGTERM'));

@@ -53,9 +53,11 @@ afterAll(() => {
 function workerPids(): number[] {
   if (!primary?.pid) return [];
   try {
-    return execFileSync('ps', ['-o', 'pid=', '--ppid', String(primary.pid)], { encoding: 'utf8' })
+    // the primary's children that run the server (a helper process of the TypeScript loader may be there too)
+    return execFileSync('ps', ['-o', 'pid=,args=', '--ppid', String(primary.pid)], { encoding: 'utf8' })
       .split('\n')
-      .map((s) => Number(s.trim()))
+      .filter((line) => line.includes('server/index.ts'))
+      .map((line) => Number.parseInt(line.trim(), 10))
       .filter((n) => n > 0);
   } catch {
     return []; // no children
