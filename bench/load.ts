@@ -9,6 +9,8 @@
  *   cart      POST /api/cart/lines, POST /api/checkout (Checkout Session on the local Stripe
  *             fake), DELETE the line again — as signed-in shoppers, one session per connection
  * and prints per kind and overall: requests, throughput, p50/p99 latency and errors by cause.
+ * It runs once per server-process count in BENCH_WORKERS (default "1,2": WORKERS=1, then WORKERS=2,
+ * each on a fresh data folder) and ends with one table of p50/p99 per kind side by side.
  *
  * The preview endpoint is rate-limited per client address (240/min). Real shoppers come from many
  * addresses, so each layout request carries its own X-Forwarded-For from a pool of 10 000 (the app
@@ -58,10 +60,30 @@ function pct(sorted: number[], p: number): number {
 }
 
 type Stats = { kind: string; ms: number[]; byStatus: Map<number, number> };
+type RunResult = { workers: number; rows: Array<{ kind: string; p50: number; p99: number; n: number; errors: number }>; failed: number };
 
 export async function run(): Promise<void> {
+  const counts = (process.env.BENCH_WORKERS ?? '1,2').split(',').map((v) => Number(v.trim()));
+  if (counts.some((n) => !Number.isInteger(n) || n < 1 || n > 16)) throw new Error('BENCH_WORKERS: process counts from 1 to 16, separated by commas (e.g. 1,2)');
+  const results: RunResult[] = [];
+  for (const workers of counts) results.push(await runOnce(workers));
+  const kinds = results[0]!.rows.map((r) => r.kind);
+  const cell = (r: RunResult, kind: string) => {
+    const row = r.rows.find((x) => x.kind === kind);
+    return row ? `${row.p50.toFixed(1).padStart(7)} ${row.p99.toFixed(1).padStart(7)}` : ''.padStart(15);
+  };
+  console.log(`
+p50 / p99 in ms per kind, ${SECONDS} s each, all kinds at once (carts and checkouts included):`);
+  console.log(`  ${'kind'.padEnd(26)}${results.map((r) => `  WORKERS=${r.workers}`.padEnd(17)).join('')}`);
+  console.log(`  ${''.padEnd(26)}${results.map(() => `  ${'p50'.padStart(7)} ${'p99'.padStart(7)}`).join('')}`);
+  for (const k of kinds) console.log(`  ${k.padEnd(26)}${results.map((r) => `  ${cell(r, k)}`).join('')}`);
+  if (results.some((r) => r.failed > 0)) process.exitCode = 1;
+}
+
+async function runOnce(workers: number): Promise<RunResult> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-bench-load-'));
   const { server, base } = await startBuiltApp(dataDir, {
+    WORKERS: String(workers),
     NODE_ENV: 'production',
     AUTH_SECRET: crypto.randomBytes(24).toString('hex'),
     // production settings with the local fakes and their keys, and the demo scenario to drive
@@ -104,7 +126,22 @@ export async function run(): Promise<void> {
       return Promise.resolve(inst).then((r) => ({ kinds, r }));
     };
 
-    console.log(`load: ${SECONDS} s against ${base} (NODE_ENV=production, seeded demo, ${SHOPPERS} signed-in shoppers) …`);
+    console.log(`\nload: ${SECONDS} s against ${base} (WORKERS=${workers}, NODE_ENV=production, seeded demo, ${SHOPPERS} signed-in shoppers) …`);
+    // Warm-up, not measured: each server process starts its worker threads in the background, and the
+    // first design a thread composes loads the engine and fonts. Fresh connections spread over the
+    // processes; the load starts once every one of these has been answered.
+    const warm = await Promise.all(
+      Array.from({ length: 4 * workers }, async (_, i) => {
+        const r = await fetch(`${base}/api/layout/text`, {
+          method: 'POST',
+          headers: { ...json, connection: 'close', 'x-forwarded-for': `10.2.0.${i}` },
+          body: JSON.stringify({ text: NAMES[i % NAMES.length], fontId: field.defaultFontId, letterHeightMm: 30 + i }),
+          signal: AbortSignal.timeout(180_000),
+        });
+        return r.status;
+      }),
+    );
+    if (warm.some((s) => s !== 200)) throw new Error(`warm-up: layout answered ${warm.join(', ')}`);
     const started = performance.now();
     const results = await Promise.all([
       load(['home (GET /)', 'home (GET /api/listings)'], 8, [
@@ -164,15 +201,18 @@ export async function run(): Promise<void> {
     ]);
     const seconds = (performance.now() - started) / 1000;
 
+    const rows: RunResult['rows'] = [];
     const line = (kind: string, ms: number[], byStatus: Map<number, number>, extra = 0) => {
       const sorted = [...ms].sort((a, b) => a - b);
+      rows.push({ kind, p50: pct(sorted, 50), p99: pct(sorted, 99), n: ms.length, errors: [...byStatus].filter(([s]) => s >= 400 || s === 0).reduce((n, [, v]) => n + v, 0) + extra });
       const errs = [...byStatus].filter(([s]) => s >= 400 || s === 0).map(([s, n]) => `${s}×${n}`);
       if (extra) errs.push(`connection/timeouts×${extra}`);
       console.log(
         `  ${kind.padEnd(26)} ${String(ms.length).padStart(7)} req  ${(ms.length / seconds).toFixed(0).padStart(6)} req/s  p50 ${pct(sorted, 50).toFixed(1).padStart(6)} ms  p99 ${pct(sorted, 99).toFixed(1).padStart(7)} ms  errors: ${errs.length ? errs.join(', ') : '0'}`,
       );
     };
-    console.log(`\nresults over ${seconds.toFixed(1)} s (${os.cpus().length} CPUs, Node ${process.version}):`);
+    // the machine's load (1-minute average) says how much else ran beside the bench: compare runs at a similar load
+    console.log(`\nresults over ${seconds.toFixed(1)} s (${os.cpus().length} CPUs, Node ${process.version}, load average ${os.loadavg()[0]!.toFixed(1)}):`);
     for (const s of all) line(s.kind, s.ms, s.byStatus);
     const allMs = all.flatMap((s) => s.ms);
     const allStatus = new Map<number, number>();
@@ -181,7 +221,7 @@ export async function run(): Promise<void> {
     line('overall', allMs, allStatus, socketErrors);
     const failed = [...allStatus].filter(([s]) => s >= 400).reduce((n, [, v]) => n + v, 0) + socketErrors;
     console.log(`\nthroughput: ${(allMs.length / seconds).toFixed(0)} req/s; errors: ${failed} of ${allMs.length} (${((100 * failed) / Math.max(1, allMs.length)).toFixed(2)} %)`);
-    if (failed > 0) process.exitCode = 1;
+    return { workers, rows, failed };
   } finally {
     await stopProcess(server.child);
     fs.rmSync(dataDir, { recursive: true, force: true });

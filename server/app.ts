@@ -9,16 +9,18 @@ import { DEMO_PASSWORD, hasDemoData } from './db/demo-accounts.ts';
 import { pingDatabase } from './db/health.repo.ts';
 import type { AppDeps } from './deps.ts';
 import { featureRouters } from './features/index.ts';
+import { createWorksheetBuilder } from './features/workroom/index.ts';
 import { DEFAULT_RATE_LIMITS, type RateLimits } from './http/account-rate-limit.ts';
 import { notFound } from './http/app-error.ts';
 import { withOurErrorShape } from './http/auth-errors.ts';
 import { loadSession } from './http/auth-guards.ts';
 import { authInput } from './http/auth-input.ts';
 import { errorHandler } from './http/error-handler.ts';
+import { sqliteLimitStores } from './http/rate-limit-store.ts';
 import { appOrigins, sameOrigin } from './http/same-origin.ts';
 import { createWorkPool, type WorkPool } from './workers/pool.ts';
 
-export type CreateAppInput = Omit<AppDeps, 'auth' | 'now' | 'pool' | 'rateLimits'> & {
+export type CreateAppInput = Omit<AppDeps, 'auth' | 'now' | 'pool' | 'rateLimits' | 'worksheetBuilder' | 'limitStore'> & {
   now?: () => number;
   clientDir?: string;
   /** a pool to use; by default one is made (its threads start on first use) */
@@ -26,18 +28,28 @@ export type CreateAppInput = Omit<AppDeps, 'auth' | 'now' | 'pool' | 'rateLimits
   /** time limit of one pooled task, ms (when the app makes its pool) */
   taskTimeoutMs?: number;
   rateLimits?: Partial<RateLimits>;
+  /**
+   * 'lease': the runtime starts the once-only work (work sheet PDFs) when this process holds the
+   * lease (server/jobs/lease.ts); by default (tests, scripts) this app builds them itself.
+   */
+  onceOnly?: 'lease' | 'here';
 };
 
 /** Builds the Express app; never listens (tests start it on port 0, server/index.ts on PORT). */
 export function createApp(input: CreateAppInput): Express & { locals: { deps: AppDeps } } {
-  const { pool, taskTimeoutMs, rateLimits, ...rest } = input;
+  const { pool, taskTimeoutMs, rateLimits, onceOnly, ...rest } = input;
+  const now = input.now ?? Date.now;
+  const workPool = pool ?? createWorkPool({ timeoutMs: taskTimeoutMs });
   const deps: AppDeps = {
     ...rest,
-    now: input.now ?? Date.now,
+    now,
     auth: createAuth(input),
-    pool: pool ?? createWorkPool({ timeoutMs: taskTimeoutMs }),
+    pool: workPool,
     rateLimits: { ...DEFAULT_RATE_LIMITS, ...rateLimits },
+    worksheetBuilder: createWorksheetBuilder({ db: input.db, pool: workPool, now, dir: input.env.worksheetsDir }),
+    limitStore: sqliteLimitStores(input.db, now),
   };
+  if (onceOnly !== 'lease') deps.worksheetBuilder.activate();
   const { env } = deps;
   const app = express();
   app.locals.deps = deps;
@@ -71,7 +83,7 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
   app.use('/api', sameOrigin(appOrigins(env), { sameHost: !env.production }));
 
   // better-auth reads its own bodies; our front guard validates and limits first
-  app.use('/api/auth', authInput({ signInFailuresPerMinute: 5, session: loadSession(deps) }));
+  app.use('/api/auth', authInput({ signInFailuresPerMinute: 5, session: loadSession(deps), store: deps.limitStore('sign-in') }));
   app.all('/api/auth/{*any}', toNodeHandler(withOurErrorShape(deps.auth)));
 
   // routes that need the raw body (payment webhooks) mount before the JSON parser

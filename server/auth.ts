@@ -81,9 +81,11 @@ export function createAuth({ db, env, mailer }: AuthDeps) {
     // sliding 14 days with a 30-day absolute cap (SESSION_ABSOLUTE_MS, enforced in auth-guards.ts)
     session: { expiresIn: SESSION_IDLE_SECONDS, updateAge: SESSION_REFRESH_SECONDS },
     hooks: { before: passwordRules },
-    // IP-wide limits from better-auth; per-account sign-in limits live in server/http/auth-input.ts
+    // IP-wide limits from better-auth; per-account sign-in limits live in server/http/auth-input.ts.
+    // Counted in the database (the rate_limit table), so every server process (WORKERS) shares them.
     rateLimit: {
       enabled: env.AUTH_IP_RATE_LIMIT ?? env.NODE_ENV !== 'test',
+      storage: 'database',
       window: 60,
       max: 200,
       customRules: { '/sign-in/email': { window: 60, max: 30 }, '/sign-up/email': { window: 60, max: 20 }, '/request-password-reset': { window: 60, max: 5 } },

@@ -64,6 +64,8 @@ const schema = z.object({
   DIGEST_CRON: z.string().default('0 7 * * *'),
   DIGEST: bool.default(true),
   LOG_REQUESTS: bool.default(true),
+  /** server processes (node:cluster) sharing the port and the SQLite file; 1 = this process alone */
+  WORKERS: z.coerce.number().int().min(1).max(16).default(1),
   /** better-auth's per-IP limits on the auth routes (default: on, except under NODE_ENV=test so suites can sign in freely) */
   AUTH_IP_RATE_LIMIT: bool.optional(),
 });
@@ -114,6 +116,8 @@ export function loadEnv(source: Record<string, string | undefined> = process.env
     demoData: e.DEMO_DATA ?? e.DEMO_MODE ?? !production,
     mailDir: path.join(dataDir, 'mail'),
     uploadsDir: path.join(dataDir, 'uploads'),
+    /** finished work sheet PDFs, readable by every server process */
+    worksheetsDir: path.join(dataDir, 'worksheets'),
     dbFile: path.join(dataDir, 'namesake.db'),
     startMailFake: production ? localFakes && e.MAIL_FAKE !== false : (e.MAIL_FAKE ?? (localFakes || isLocal(SMTP_HOST))),
     startStripeFake: production ? localFakes && e.STRIPE_FAKE !== false : (e.STRIPE_FAKE ?? (localFakes || (STRIPE_API_BASE !== '' && isLocal(STRIPE_API_BASE)))),

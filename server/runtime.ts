@@ -10,7 +10,8 @@ import { hasDemoData } from './db/demo-accounts.ts';
 import { isEmpty, seedDemo } from './db/seed.ts';
 import { type Env, loadEnv } from './env.ts';
 import { createMailer } from './integrations/mailer.ts';
-import { startJobs } from './jobs/scheduler.ts';
+import { startLease } from './jobs/lease.ts';
+import { type Jobs, startJobs } from './jobs/scheduler.ts';
 import { writePidFile } from './runtime-lock.ts';
 
 export type Running = {
@@ -23,7 +24,22 @@ export type Running = {
   stop(): Promise<void>;
 };
 
-export async function startNamesake(opts: { envSource?: Record<string, string | undefined>; clientDir?: string; seed?: boolean; log?: (s: string) => void } = {}): Promise<Running> {
+export type StartOptions = {
+  envSource?: Record<string, string | undefined>;
+  clientDir?: string;
+  seed?: boolean;
+  log?: (s: string) => void;
+  /**
+   * One of the processes WORKERS starts (server/cluster.ts): the primary has migrated, seeded and
+   * started the fakes and writes the pid file; this process serves requests and competes for the lease.
+   */
+  clusterWorker?: boolean;
+};
+
+/** The lease whose holder runs the scheduled jobs and builds the work sheet PDFs. */
+export const ONCE_ONLY_LEASE = 'once-only';
+
+export async function startNamesake(opts: StartOptions = {}): Promise<Running> {
   const log = opts.log ?? ((s: string) => console.log(s));
   let env = loadEnv(opts.envSource ?? process.env);
   fs.mkdirSync(env.dataDir, { recursive: true });
@@ -33,6 +49,20 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
     for (const c of closers.reverse()) await c();
   };
   try {
+    const fakes = await startFakes(env, log);
+    env = fakes.env;
+    closers.push(...fakes.closers);
+    return await startApp(env, opts, log, closers, fakes.onListening);
+  } catch (err) {
+    await closeAll();
+    throw err;
+  }
+}
+
+/** The local mail and payment fakes this environment asks for; `env` comes back pointing at them. */
+export async function startFakes(env: Env, log: (s: string) => void): Promise<{ env: Env; closers: Array<() => Promise<void> | void>; onListening: (appUrl: string) => void }> {
+  const closers: Array<() => Promise<void> | void> = [];
+  try {
     if (env.startMailFake) {
       // the usual port, or any free one when another Namesake on this machine holds it
       const mail = await startMailFake({ port: env.SMTP_PORT, dir: env.mailDir, orFreePort: true });
@@ -41,32 +71,26 @@ export async function startNamesake(opts: { envSource?: Record<string, string | 
       log(`  mail fake       smtp://127.0.0.1:${mail.port} (stored in ${path.relative(process.cwd(), env.mailDir) || env.mailDir})`);
     }
     const extra = await startExtraFakes(env, log);
-    env = extra.env;
     closers.push(...extra.closers);
-    return await startApp(env, opts, log, closers, extra.onListening);
+    return { env: extra.env, closers, onListening: extra.onListening };
   } catch (err) {
-    await closeAll();
+    for (const c of closers.reverse()) await c();
     throw err;
   }
 }
 
-async function startApp(
-  env: Env,
-  opts: { clientDir?: string; seed?: boolean },
-  log: (s: string) => void,
-  closers: Array<() => Promise<void> | void>,
-  onListening: (appUrl: string) => void,
-): Promise<Running> {
-  const { db, sqlite } = openDb(env.dbFile);
+async function startApp(env: Env, opts: StartOptions, log: (s: string) => void, closers: Array<() => Promise<void> | void>, onListening: (appUrl: string) => void): Promise<Running> {
+  const { db, sqlite } = openDb(env.dbFile, { migrate: !opts.clusterWorker });
   const mailer = createMailer(env);
   let app: ReturnType<typeof createApp>;
   let server: Server;
   try {
-    app = createApp({ db, env, mailer, clientDir: opts.clientDir });
+    // the once-only work (work sheet PDFs, scheduled jobs) starts below, once this process holds the lease
+    app = createApp({ db, env, mailer, clientDir: opts.clientDir, onceOnly: 'lease' });
     // the worker pool: closed (its threads ended) after the server stops taking requests
     closers.push(() => app.locals.deps.pool.close());
     // the demo scenario only when asked for (DEMO_DATA; never implied in production)
-    if ((opts.seed ?? env.demoData) && isEmpty({ db })) {
+    if (!opts.clusterWorker && (opts.seed ?? env.demoData) && isEmpty({ db })) {
       log('  seeding the demo scenario …');
       await seedDemo(app.locals.deps);
     }
@@ -78,11 +102,27 @@ async function startApp(
   }
   // worker threads start now, in the background, so the first heavy request need not wait for one
   app.locals.deps.pool.warm();
-  // the morning digest (croner) and its start-up catch-up; after the seed so the demo shops get it
-  const jobs = env.DIGEST ? startJobs(app.locals.deps, log) : null;
+  // Once-only work, in the one process that holds the lease (with WORKERS=1, this one): the work
+  // sheet PDF builder and the morning digest (croner) with its start-up catch-up — after the seed, so
+  // the demo shops get it. Another process takes the lease over if this one dies.
+  const deps = app.locals.deps;
+  let jobs: Jobs | null = null;
+  const lease = startLease(db, {
+    name: ONCE_ONLY_LEASE,
+    onAcquire() {
+      deps.worksheetBuilder.activate({ pollMs: 500 });
+      if (env.DIGEST) jobs = startJobs(deps, log);
+      if (opts.clusterWorker) log(`  process ${process.pid} runs the scheduled jobs and work sheet PDFs`);
+    },
+    async onRelease() {
+      const j = jobs;
+      jobs = null;
+      await Promise.all([j?.stop(), deps.worksheetBuilder.deactivate()]);
+    },
+  });
   const port = (server.address() as AddressInfo).port;
-  // while it runs, DATA_DIR/namesake.pid says so (scripts/db-restore.ts refuses then)
-  const removePidFile = writePidFile(env.dataDir);
+  // while it runs, DATA_DIR/namesake.pid says so (scripts/db-restore.ts refuses then); the primary's, with WORKERS
+  const removePidFile = opts.clusterWorker ? () => {} : writePidFile(env.dataDir);
   const url = `http://localhost:${port}`;
   onListening(`http://127.0.0.1:${port}`);
   let stopping: Promise<void> | null = null;
@@ -102,7 +142,7 @@ async function startApp(
           server.closeIdleConnections();
           setTimeout(() => server.closeAllConnections(), 5000).unref();
         });
-        await jobs?.stop();
+        await lease.stop();
         for (const c of closers.reverse()) await c();
         mailer.close();
         sqlite.close();

@@ -82,3 +82,11 @@ export const verification = sqliteTable(
   },
   (t) => [index('verification_identifier_idx').on(t.identifier)],
 );
+
+/** better-auth's per-IP limiter counts here (rateLimit.storage 'database'), so every server process shares them. */
+export const rateLimit = sqliteTable('rate_limit', {
+  id: text('id').primaryKey(),
+  key: text('key').notNull().unique(),
+  count: integer('count').notNull(),
+  lastRequest: integer('last_request').notNull(),
+});

@@ -10,8 +10,11 @@ export type Db = ReturnType<typeof openDb>['db'];
 
 const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../drizzle');
 
-/** Opens the SQLite file with WAL, foreign keys and a busy timeout, and applies migrations. */
-export function openDb(file: string) {
+/**
+ * Opens the SQLite file with WAL, foreign keys and a busy timeout, and applies migrations (unless
+ * `migrate: false`: the server processes WORKERS starts, whose primary has migrated already).
+ */
+export function openDb(file: string, opts: { migrate?: boolean } = {}) {
   fs.mkdirSync(path.dirname(file), { recursive: true });
   const sqlite = new Database(file);
   sqlite.pragma('journal_mode = WAL');
@@ -19,6 +22,6 @@ export function openDb(file: string) {
   sqlite.pragma('busy_timeout = 5000');
   sqlite.pragma('synchronous = NORMAL');
   const db = drizzle(sqlite, { schema });
-  migrate(db, { migrationsFolder });
+  if (opts.migrate !== false) migrate(db, { migrationsFolder });
   return { db, sqlite };
 }

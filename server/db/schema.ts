@@ -605,3 +605,43 @@ export const reviews = sqliteTable(
   },
   (t) => [uniqueIndex('reviews_line_uq').on(t.lineId), index('reviews_listing_idx').on(t.listingId, t.createdAt), index('reviews_shop_idx').on(t.shopId, t.createdAt)],
 );
+
+// ---------------------------------------------------------------- several server processes (WORKERS)
+/** Who runs the once-only work (scheduled jobs, work sheet PDFs): one row per lease, held until expiresAt. */
+export const leases = sqliteTable('leases', {
+  name: text('name').primaryKey(),
+  /** e.g. "pid 1234 · 3f2a…": a process's own token, new at each start */
+  holder: text('holder').notNull(),
+  expiresAt: integer('expires_at').notNull(),
+});
+
+/** Our per-account and per-address limits (express-rate-limit), counted here so every process shares them. */
+export const rateLimitHits = sqliteTable('rate_limit_hits', {
+  /** the limiter's name and its key, e.g. cart-adds:user:abc */
+  key: text('key').primaryKey(),
+  hits: integer('hits').notNull(),
+  resetAt: integer('reset_at').notNull(),
+});
+
+/** Work sheet PDF jobs: any process answers their state; the lease holder builds them (file in DATA_DIR/worksheets). */
+export const worksheetJobs = sqliteTable(
+  'worksheet_jobs',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    batchId: text('batch_id').notNull(),
+    paper: text('paper').notNull(),
+    /** queued | running | done | failed */
+    state: text('state').notNull(),
+    progress: real('progress').notNull().default(0),
+    pages: integer('pages'),
+    /** the PDF's input, checked by worksheetInputSchema before it is written; cleared once built */
+    input: json<unknown>('input'),
+    error: text('error'),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [index('worksheet_jobs_state_idx').on(t.state, t.createdAt)],
+);

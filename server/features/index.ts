@@ -59,7 +59,7 @@ export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[]
       { path: '/api/seller/offers', router: sellerOffersRouter(deps) },
       { path: '/api/offers', router: publicOffersRouter(deps) },
       { path: '/api/order-lines', router: proofEditRouter(deps) },
-      { path: '/api', router: engineRouter({ pool: deps.pool }) },
+      { path: '/api', router: engineRouter({ pool: deps.pool, store: deps.limitStore }) },
       { path: '/api', router: catalogRouter(deps) },
       // uploaded photos: our own random names only, nosniff, never script
       { path: '/uploads', router: uploads.files },

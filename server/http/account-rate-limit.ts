@@ -2,10 +2,11 @@
  * Per-account rate limits on the routes that start heavy work (uploads, cart adds, cut-sheet
  * builds, work sheet PDFs): keyed by the signed-in user's id, so one account cannot keep the
  * worker pool busy by itself; a guest is keyed by address. The numbers live in the app's deps
- * (AppDeps.rateLimits), so tests can lower them.
+ * (AppDeps.rateLimits), so tests can lower them. The counts live in the database (AppDeps.limitStore,
+ * rate-limit-store.ts), shared by every server process.
  */
 import type { RequestHandler } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { ipKeyGenerator, rateLimit, type Store } from 'express-rate-limit';
 import { AppError } from './app-error.ts';
 
 export type RateLimits = {
@@ -29,9 +30,13 @@ export const DEFAULT_RATE_LIMITS: RateLimits = Object.freeze({
   messagesPerMinute: 10,
 });
 
+/** Makes the store of one limiter, by a name of its own. */
+export type LimitStoreFactory = (name: string) => Store;
+
 /** A limiter of `limit` requests per minute per account; past it, 429 naming what and how many. */
-export function perAccountLimit(limit: number, what: string): RequestHandler {
+export function perAccountLimit(limit: number, what: string, store: Store): RequestHandler {
   return rateLimit({
+    store,
     windowMs: 60_000,
     limit,
     standardHeaders: 'draft-8',

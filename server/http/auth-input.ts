@@ -1,5 +1,5 @@
 import express, { type RequestHandler, Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { rateLimit, type Store } from 'express-rate-limit';
 import {
   adminCreateUserSchema,
   adminSetUserPasswordSchema,
@@ -60,7 +60,7 @@ export const plainAuthPath: RequestHandler = (req, res, next) => {
  *
  * `session` loads the signed-in user (auth-guards' loadSession): the account routes below need it.
  */
-export function authInput(opts: { signInFailuresPerMinute: number; session: RequestHandler }): Router {
+export function authInput(opts: { signInFailuresPerMinute: number; session: RequestHandler; store?: Store }): Router {
   const r = Router();
   r.use(plainAuthPath);
   // better-auth's own IP limits read the client address from this header; we always overwrite it
@@ -73,6 +73,7 @@ export function authInput(opts: { signInFailuresPerMinute: number; session: Requ
   r.use(opts.session);
   r.use(express.json({ limit: '16kb' }));
   const perAccount = rateLimit({
+    store: opts.store,
     windowMs: 60_000,
     limit: opts.signInFailuresPerMinute,
     skipSuccessfulRequests: true,

@@ -26,8 +26,8 @@ export function businessRouter(deps: AppDeps): Router {
     const view = service.costs(deps, ownShop(deps.db, req), String(req.params.orderId));
     res.json({ order: view.orders[0] });
   });
-  r.post('/price-check', validate({ body: priceCheckSchema }), (req, res) => {
-    res.json(service.priceCheck(deps, ownShop(deps.db, req), req.body));
+  r.post('/price-check', validate({ body: priceCheckSchema }), async (req, res) => {
+    res.json(await service.priceCheck(deps, ownShop(deps.db, req), req.body));
   });
   r.get('/ledger', validate({ query: ledgerQuerySchema }), (req, res) => {
     res.json(service.ledgerView(deps, ownShop(deps.db, req), res.locals.query as LedgerQuery));

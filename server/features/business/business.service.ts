@@ -42,10 +42,9 @@ import { isFinishedLine, UNCUT_LINE_STATES } from '../../../shared/schemas/order
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
-import { getFontRegistry } from '../../integrations/fonts.ts';
 // The cart's mapping from a listing's personalisation to the engine is the one a real order goes
 // through; the price check reuses it rather than keep a second copy that could drift.
-import { buildSnapshot, snapshotLookups } from '../cart/index.ts';
+import { buildSnapshotOffThread, snapshotLookups } from '../cart/index.ts';
 import { type LineRow, type OrderRow, businessRepo as repo, type SheetRow, type ShopRow } from './business.repo.ts';
 
 export type BusinessDeps = Pick<AppDeps, 'db' | 'env' | 'now'>;
@@ -254,7 +253,8 @@ export function costs(deps: BusinessDeps, shop: ShopRow, orderId?: string): Cost
 
 // ---------------------------------------------------------------- the listing editor's price check
 
-export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInput): PriceCheckResult {
+/** The sample and the longest name are composed in the worker pool (plain data in and out), side by side. */
+export async function priceCheck(deps: BusinessDeps & Pick<AppDeps, 'pool'>, shop: ShopRow, raw: PriceCheckInput): Promise<PriceCheckResult> {
   const input = priceCheckSchema.parse(raw);
   const { draft } = input;
   const p = draft.personalisation;
@@ -271,18 +271,17 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
   const content = { title: 'Price check', blank: draft.blank, basePriceMinor: draft.basePriceMinor, extraLayerPriceMinor: draft.extraLayerPriceMinor, personalisation: p };
   const fees = feesOf(deps.env);
   const prices = priceMap(matRows);
-  const registry = getFontRegistry();
-
-  const run = (name: (maxLength: number) => string) => {
+  const run = async (name: (maxLength: number) => string) => {
     const choices: Choices = { texts: {}, textColours: {}, motifId: p.motifChoices[0]?.motifId ?? null, motifColours: {}, outlineMaterialId: null };
     p.textFields.forEach((f, i) => {
       if (i === 0 || f.required) choices.texts[f.id] = { text: name(f.maxLength), fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm };
     });
     let snapshot: LineSnapshot;
     try {
-      snapshot = buildSnapshot({ registry, listing: { id: 'price-check', slug: 'price-check', shopId: shop.id, currency: shop.currency }, content, choices, materials, motifs });
+      snapshot = await buildSnapshotOffThread({ pool: deps.pool, listing: { id: 'price-check', slug: 'price-check', shopId: shop.id, currency: shop.currency }, content, choices, materials, motifs });
     } catch (e) {
-      if (e instanceof AppError) throw badRequest(e.message, { sampleName: e.message });
+      // a refused name is the seller's to fix; a busy or timed-out pool stays what it is
+      if (e instanceof AppError && e.status < 500) throw badRequest(e.message, { sampleName: e.message });
       throw e;
     }
     const result = priceCheckPure({
@@ -302,8 +301,7 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
   if (firstMax !== undefined && [...sampleText].length > firstMax) {
     throw badRequest(`This listing allows at most ${firstMax} characters in “${p.textFields[0]!.label}”.`, { sampleName: `Use at most ${firstMax} characters, as the listing allows.` });
   }
-  const sample = run(() => sampleText);
-  const longest = p.textFields.length ? run((max) => longestSampleName(max)) : null;
+  const [sample, longest] = await Promise.all([run(() => sampleText), p.textFields.length ? run((max) => longestSampleName(max)) : null]);
   const digits = minorDigits(shop.currency);
   const money = (m: number) => `${m < 0 ? '-' : ''}${(Math.abs(m) / 10 ** digits).toFixed(digits)} ${shop.currency}`;
   const warnings: string[] = [];

@@ -21,7 +21,7 @@ export function cartRouter(deps: AppDeps): Router {
   r.get('/', (req, res) => {
     res.json(priced(cartOfRequest(deps, req, res, { create: false })));
   });
-  r.post('/lines', perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'items added to the cart'), validate({ body: addCartLineSchema }), async (req, res) => {
+  r.post('/lines', perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'items added to the cart', deps.limitStore('cart-adds')), validate({ body: addCartLineSchema }), async (req, res) => {
     const cart = cartOfRequest(deps, req, res, { create: true })!;
     await addLine(deps, cart, req.body);
     res.status(201).json(priced(cartRepo.find(deps.db, cart.id) ?? null));
@@ -42,7 +42,7 @@ export function cartRouter(deps: AppDeps): Router {
     change(cartView(deps.db, cart), String(req.params.shopId), req.body);
     res.json(priced(newCartVersion(deps, cart!.id)));
   };
-  const codesTried = perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'codes tried');
+  const codesTried = perAccountLimit(deps.rateLimits.cartAddsPerMinute, 'codes tried', deps.limitStore('cart-codes'));
   r.post(
     '/shops/:shopId/code',
     codesTried,

@@ -7,4 +7,4 @@ export type { CartRow } from './cart.repo.ts';
 export { cartRouter } from './cart.routes.ts';
 export { addLine, cartView, newCartVersion, resolveCart } from './cart.service.ts';
 export { cartOfRequest } from './cart-cookie.ts';
-export { buildSnapshot, readLiveContent, snapshotLookups } from './design.ts';
+export { buildSnapshot, buildSnapshotOffThread, readLiveContent, snapshotLookups } from './design.ts';

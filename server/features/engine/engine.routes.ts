@@ -5,7 +5,7 @@
  *   POST /layout/text     → { widthMm, heightMm, advanceMm, path, glyphs, missing, warnings, … }
  */
 import { type RequestHandler, Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
+import { rateLimit, type Store } from 'express-rate-limit';
 import { layoutWarnings } from '../../../shared/engine/fit.ts';
 import { LayoutError, layoutText, type TextLayout } from '../../../shared/engine/text-layout.ts';
 import { type FontInfo, fontParamsSchema, type LayoutTextRequest, type LayoutTextResponse, layoutTextRequestSchema } from '../../../shared/schemas/engine.ts';
@@ -22,10 +22,13 @@ export interface EngineRouterOptions {
   fontsPerMinute?: number;
   /** Where layouts that are not cached run (the app's worker pool); without it, in this thread. */
   pool?: WorkPool;
+  /** Where the limits count (the app's shared store, so every server process sees them); default: this process's memory. */
+  store?: (name: string) => Store;
 }
 
-const limiter = (limit: number) =>
+const limiter = (limit: number, store?: Store) =>
   rateLimit({
+    store,
     windowMs: 60_000,
     limit,
     standardHeaders: 'draft-8',
@@ -70,8 +73,8 @@ export function layoutTextResponse(input: LayoutTextRequest, layout?: TextLayout
 
 export function engineRouter(opts: EngineRouterOptions = {}): Router {
   const r = Router();
-  const fontsLimit = limiter(opts.fontsPerMinute ?? 600);
-  const layoutLimit = limiter(opts.layoutPerMinute ?? 240);
+  const fontsLimit = limiter(opts.fontsPerMinute ?? 600, opts.store?.('fonts'));
+  const layoutLimit = limiter(opts.layoutPerMinute ?? 240, opts.store?.('layout'));
   const layout = opts.pool ? createLayoutCache(opts.pool) : null;
 
   r.get('/fonts', fontsLimit, ((_req, res) => {

@@ -21,7 +21,7 @@ const TEXT_FIELD_BYTES = 8 * 1024;
 export function messagesRouters(deps: AppDeps): { thread: Router; unread: Router } {
   const dir = path.join(deps.env.uploadsDir, 'messages');
   const storage = createStorage(dir, { process: (bytes) => deps.pool.run({ kind: 'image', bytes }) });
-  const limit = perAccountLimit(deps.rateLimits.messagesPerMinute, 'messages');
+  const limit = perAccountLimit(deps.rateLimits.messagesPerMinute, 'messages', deps.limitStore('messages'));
   const viewer = (req: Parameters<typeof currentUser>[0]) => ({ user: currentUser(req), shopId: shopOfRequester(deps.db, req)?.id ?? null });
 
   const r = Router();

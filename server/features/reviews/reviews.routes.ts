@@ -20,7 +20,7 @@ const TEXT_FIELD_BYTES = 8 * 1024;
  */
 export function reviewsRouters(deps: AppDeps): { orders: Router; reviews: Router } {
   const storage = createStorage(deps.env.uploadsDir, { process: (bytes) => deps.pool.run({ kind: 'image', bytes }) });
-  const limit = perAccountLimit(deps.rateLimits.messagesPerMinute, 'reviews and replies');
+  const limit = perAccountLimit(deps.rateLimits.messagesPerMinute, 'reviews and replies', deps.limitStore('reviews'));
   const viewer = (req: Parameters<typeof currentUser>[0]) => ({ user: currentUser(req), shopId: shopOfRequester(deps.db, req)?.id ?? null });
 
   const o = Router();

@@ -23,7 +23,7 @@ export function shopsRouter(deps: AppDeps): Router {
   r.post(
     '/logo',
     (req, _res, next) => (ownShop(deps.db, req), next()),
-    perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads'),
+    perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads', deps.limitStore('shop-uploads')),
     singleFile(IMAGE_LIMITS.maxBytes),
     async (req, res) => {
       if (!req.file) throw badRequest('Choose an image file.', { file: 'Choose an image file.' });

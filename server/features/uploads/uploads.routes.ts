@@ -18,7 +18,7 @@ export function uploadsApiRouter(deps: AppDeps): { uploads: Router; motifs: Rout
   // images are checked and re-encoded in the worker pool, never on the request thread
   const storage = createStorage(deps.env.uploadsDir, { process: (bytes) => deps.pool.run({ kind: 'image', bytes }) });
   // one limiter for photos and motifs alike: an account's uploads per minute
-  const uploadLimit = perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads');
+  const uploadLimit = perAccountLimit(deps.rateLimits.uploadsPerMinute, 'uploads', deps.limitStore('uploads'));
 
   const up = Router();
   up.use(requireRole('seller'));

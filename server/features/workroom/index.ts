@@ -3,3 +3,4 @@
 export { approve } from './proofs.service.ts';
 export { ship } from './shipping.service.ts';
 export { proofEditRouter, workroomRouter } from './workroom.routes.ts';
+export { createWorksheetBuilder, type WorksheetBuilder } from './worksheet-jobs.ts';

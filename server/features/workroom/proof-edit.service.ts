@@ -11,11 +11,10 @@ import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
 import { type PersonalisationEdit, personalisationEditSchema } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
-import { getFontRegistry } from '../../integrations/fonts.ts';
 // the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
-import { buildSnapshot, readLiveContent, snapshotLookups } from '../cart/index.ts';
+import { buildSnapshotOffThread, readLiveContent, snapshotLookups } from '../cart/index.ts';
 import { transition } from '../orders/index.ts';
-import type { WorkroomDeps } from './lines.service.ts';
+import type { WorkroomPoolDeps } from './lines.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 
 function buyersLine(db: Db, buyerId: string, lineId: string) {
@@ -61,7 +60,7 @@ export function personalisationForEdit(db: Db, buyerId: string, lineId: string):
   };
 }
 
-export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId: string, raw: unknown): PersonalisationEdit {
+export async function savePersonalisation(deps: WorkroomPoolDeps, buyerId: string, lineId: string, raw: unknown): Promise<PersonalisationEdit> {
   const { db } = deps;
   const { choices } = personalisationEditSchema.parse(raw);
   const { line } = buyersLine(db, buyerId, lineId);
@@ -81,8 +80,9 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
       p.motifChoices.map((m) => m.motifId),
     ),
   );
-  const fresh = buildSnapshot({
-    registry: getFontRegistry(),
+  // composed in the worker pool: the request thread never runs the geometry
+  const fresh = await buildSnapshotOffThread({
+    pool: deps.pool,
     listing: { id: listing.id, slug: listing.slug, shopId: listing.shopId, currency: listing.currency },
     content,
     choices,
@@ -96,6 +96,11 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
       'price_changed',
       `This change adds a layer and would cost ${formatMoney(fresh.unitPriceMinor, old.currency)} instead of the ${formatMoney(old.unitPriceMinor, old.currency)} you paid. Keep the same colours, or write to the shop.`,
     );
+  }
+  // the line may have moved while the design was composed: save only onto the version we read
+  const now = buyersLine(db, buyerId, lineId).line;
+  if (now.version !== line.version || now.state !== line.state) {
+    throw new AppError(409, 'line_changed', 'This item changed while your edit was being saved. Reload it and try again.');
   }
   const snapshot: LineSnapshot = { ...fresh, unitPriceMinor: old.unitPriceMinor, listingTitle: old.listingTitle };
   const at = deps.now();

@@ -34,7 +34,7 @@ import { createWorksheetJobs } from './worksheet-jobs.ts';
  */
 export function workroomRouter(deps: AppDeps): Router {
   const r = Router();
-  const jobs = createWorksheetJobs(deps.pool, deps.now);
+  const jobs = createWorksheetJobs({ db: deps.db, now: deps.now, dir: deps.env.worksheetsDir, builder: deps.worksheetBuilder });
   const shopId = (req: Parameters<typeof ownShop>[1]) => ownShop(deps.db, req).id;
   const id = (req: { params: Record<string, unknown> }) => String(req.params.id);
   r.use(requireRole('seller'));
@@ -91,7 +91,7 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // cut sheets
-  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds'), validate({ body: buildCutSheetsSchema }), async (req, res) => {
+  r.post('/cut-sheets', perAccountLimit(deps.rateLimits.cutSheetsPerMinute, 'cut-sheet builds', deps.limitStore('cut-sheets')), validate({ body: buildCutSheetsSchema }), async (req, res) => {
     res.status(201).json(await buildCutSheets(deps, shopId(req), currentUser(req).id, req.body.lineIds, { grouping: req.body.grouping, weedingLines: req.body.weedingLines }));
   });
   r.get('/batches', (req, res) => {
@@ -129,9 +129,14 @@ export function workroomRouter(deps: AppDeps): Router {
   });
 
   // work sheet PDF: start, poll, download
-  r.post('/batches/:id/worksheet', perAccountLimit(deps.rateLimits.pdfJobsPerMinute, 'work sheets'), validate({ params: idParams, body: worksheetRequestSchema }), (req, res) => {
-    res.status(202).json({ job: jobs.start(deps.db, shopId(req), id(req), req.body.paper) });
-  });
+  r.post(
+    '/batches/:id/worksheet',
+    perAccountLimit(deps.rateLimits.pdfJobsPerMinute, 'work sheets', deps.limitStore('work-sheets')),
+    validate({ params: idParams, body: worksheetRequestSchema }),
+    (req, res) => {
+      res.status(202).json({ job: jobs.start(shopId(req), id(req), req.body.paper) });
+    },
+  );
   r.get('/worksheets/:id', validate({ params: idParams }), (req, res) => {
     res.json({ job: jobs.get(shopId(req), id(req)) });
   });
@@ -160,8 +165,8 @@ export function proofEditRouter(deps: AppDeps): Router {
   r.get('/:id/personalisation', validate({ params: idParams }), (req, res) => {
     res.json(personalisationForEdit(deps.db, currentUser(req).id, String(req.params.id)));
   });
-  r.put('/:id/personalisation', validate({ params: idParams }), (req, res) => {
-    res.json(savePersonalisation(deps, currentUser(req).id, String(req.params.id), req.body));
+  r.put('/:id/personalisation', validate({ params: idParams }), async (req, res) => {
+    res.json(await savePersonalisation(deps, currentUser(req).id, String(req.params.id), req.body));
   });
   return r;
 }
