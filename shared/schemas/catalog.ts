@@ -1,6 +1,7 @@
 /** The public catalogue: search query, list items, the listing page and the public shop page. */
 import { z } from 'zod';
 import type { StoredMotifGeometry } from '../engine/motif.ts';
+import type { ResolvedBlankOffer } from './blanks.ts';
 import { blankKindSchema, type ListingContent, occasionSchema } from './listing.ts';
 import { type Page, pageQuery, pageSchema } from './pagination.ts';
 import { SHOP_STATES, type ShopState } from './shop.ts';
@@ -74,6 +75,8 @@ export type ListingPage = {
   careCard: string[];
   /** present only when the listing has small decorations */
   safetyNotes: string[] | null;
+  /** the sizes and colours on offer from the shop's blank type, with what is sold out (null: one plain blank) */
+  blankOffer: ResolvedBlankOffer | null;
 };
 
 /** Care card for buyers (common practice, no published source; DEVELOPERS.md, "Care card and safety notes"). */

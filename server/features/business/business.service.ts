@@ -248,7 +248,7 @@ export function priceCheck(deps: BusinessDeps, shop: ShopRow, raw: PriceCheckInp
   const registry = getFontRegistry();
 
   const run = (name: (maxLength: number) => string) => {
-    const choices: Choices = { texts: {}, textColours: {}, motifId: p.motifChoices[0]?.motifId ?? null, motifColours: {}, outlineMaterialId: null };
+    const choices: Choices = { texts: {}, textColours: {}, motifId: p.motifChoices[0]?.motifId ?? null, motifColours: {}, outlineMaterialId: null, sizeId: null, colourId: null };
     p.textFields.forEach((f, i) => {
       if (i === 0 || f.required) choices.texts[f.id] = { text: name(f.maxLength), fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm };
     });

@@ -7,6 +7,7 @@ import { type ListingContent, materialIdsOf } from '../../../shared/schemas/list
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
+import { resolveOffer } from '../blanks/index.ts';
 import { type CartRow, cartRepo } from './cart.repo.ts';
 import { buildSnapshotOffThread, readLiveContent, snapshotLookups, unitPrice } from './design.ts';
 
@@ -82,7 +83,7 @@ export function cartView(db: Db, cart: CartRow | null): Cart {
     const snap = l.snapshot;
     const row = rows.get(l.listingId);
     const content = row ? onSale(row) : null;
-    const price = content ? unitPrice(content, snap.choices) : snap.unitPriceMinor;
+    const price = content ? unitPrice(content, snap.choices, row && resolveOffer(db, row.shop.id, content.blankOffer)) : snap.unitPriceMinor;
     const line: CartLine = {
       id: l.id,
       listingId: l.listingId,
@@ -158,6 +159,7 @@ export async function addLine(deps: CartDeps & Pick<AppDeps, 'pool'>, cart: Cart
     choices: input.choices,
     materials,
     motifs,
+    offer: resolveOffer(db, row.shop.id, content.blankOffer),
   });
 
   const existing = cartView(db, cart);

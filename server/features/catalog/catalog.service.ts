@@ -5,6 +5,7 @@ import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { uploadUrl } from '../../integrations/storage.ts';
+import { resolveOffer } from '../blanks/index.ts';
 import * as repo from './catalog.repo.ts';
 import { renderDescription } from './markdown.ts';
 
@@ -93,5 +94,6 @@ export function listingPage(db: Db, slug: string, version: 'live' | 'draft', vie
     materials: repo.materialsOf(db, shop.id, materialIdsOf(content.personalisation)),
     careCard: [...CARE_CARD],
     safetyNotes: content.hasSmallDecorations ? [...SMALL_PARTS_NOTES] : null,
+    blankOffer: resolveOffer(db, shop.id, content.blankOffer),
   };
 }

@@ -23,6 +23,7 @@ import type { AppDeps } from '../../deps.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
 // payments drives orders, refunds and payouts (one-way: none of them imports payments)
 import { confirmationMail, createOrdersForCheckout, type MailOrder, newOrderMail, ordersRepo } from '../orders/index.ts';
+import { releaseHolds, sellHolds } from '../blanks/index.ts';
 import { settleOrder } from '../payouts/index.ts';
 import { recordProviderRefund } from '../refunds/index.ts';
 import { type CheckoutRow, paymentsRepo } from './payments.repo.ts';
@@ -78,6 +79,7 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       const priced = c.priced;
       const pi = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
       if (!paymentsRepo.markPaid(t, c.id, at, pi)) return true; // paid through an earlier event
+      sellHolds(t, c.id);
       const made = createOrdersForCheckout(t, {
         checkoutId: c.id,
         buyerId: c.userId,
@@ -123,7 +125,11 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
     if (trusted.s.status !== 'expired') return reject(deps, event, `session ${trusted.s.id} is ${trusted.s.status}, not expired`);
     db.transaction((tx) => {
       const t = tx as unknown as Db;
-      if (paymentsRepo.recordEvent(t, event.id, event.type, at)) paymentsRepo.markExpired(t, trusted.c.id);
+      if (paymentsRepo.recordEvent(t, event.id, event.type, at)) {
+        paymentsRepo.markExpired(t, trusted.c.id);
+        // the blanks held for a payment that can no longer be made go back on sale (unless it was paid)
+        if (paymentsRepo.checkout(t, trusted.c.id)?.state !== 'paid') releaseHolds(t, trusted.c.id);
+      }
     });
     return { outcome: 'recorded', checkoutId: trusted.c.id };
   }

@@ -13,6 +13,7 @@ import type { Db } from '../../db/client.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
 // the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
+import { resolveOffer } from '../blanks/index.ts';
 import { buildSnapshot, readLiveContent, snapshotLookups } from '../cart/index.ts';
 import { transition } from '../orders/index.ts';
 import type { WorkroomDeps } from './lines.service.ts';
@@ -81,13 +82,16 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
       p.motifChoices.map((m) => m.motifId),
     ),
   );
+  // the size and colour were paid for and taken from stock: a text correction keeps them
+  const offer = resolveOffer(db, listing.shopId, content.blankOffer);
   const fresh = buildSnapshot({
     registry: getFontRegistry(),
     listing: { id: listing.id, slug: listing.slug, shopId: listing.shopId, currency: listing.currency },
     content,
-    choices,
+    choices: { ...choices, sizeId: old.choices.sizeId ?? null, colourId: old.choices.colourId ?? null },
     materials,
     motifs,
+    offer: offer && { ...offer, soldOut: [] },
   });
   // The item is paid: a correction may not add layers that would cost more than was paid.
   if (fresh.unitPriceMinor > old.unitPriceMinor) {
