@@ -106,6 +106,7 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
       letterHeightMm,
       maxLetterHeightMm: f.defaultLetterHeightMm * 2,
       maxChars: f.maxLength,
+      ...(f.minLetterHeightMm ? { minLetterHeightMm: f.minLetterHeightMm } : {}),
       materialKind: asMaterialKind(m.kind),
       colour: m.colourHex,
       ...(outlineMat && p.outline ? { outline: { offsetMm: p.outline.offsetMm, materialKind: asMaterialKind(outlineMat.kind), colour: outlineMat.colourHex } } : {}),

@@ -100,6 +100,8 @@ export const textFieldSchema = z
       .max(FONT_IDS.length),
     defaultFontId: z.enum(FONT_IDS, { error: 'Pick a font from the list.' }).optional(),
     defaultLetterHeightMm: mm('letter height', 5, 200).default(50),
+    /** the smallest letter height this item should have (larger than the font's own minimum); optional */
+    minLetterHeightMm: mm('smallest letter height', 5, 100).optional(),
     required: z.boolean().default(true),
     colourChoices: colourChoices.min(1, 'Offer at least one colour.'),
   })
