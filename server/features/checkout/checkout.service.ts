@@ -125,6 +125,8 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
   });
   if (c.userId !== user.id) throw notFound('That cart is not yours.');
   if (c.state === 'paid') throw conflict('This cart has been paid already. Your order is on its way to the shops.');
+  // this version's payment page expired (its stock went back): start afresh, holding stock again
+  if (c.state === 'expired' && attempt === 0) return openCheckout(deps, newCartVersion(deps, cart.id), user, 1);
 
   const stripe = paymentsClient(deps.env);
   // a payment page left open for an older version of this cart must not be paid as well
