@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import { type BlankKind, DEFAULT_BLANKS } from '../engine/blanks.ts';
+import type { DesignBlankChoice } from '../engine/listing-design.ts';
 
 // the engine's blank kinds (listing.ts imports this file, so the list is not taken from there)
 const SHAPES = ['tote', 'kids_tee', 'adult_tee', 'pouch', 'drawstring_bag'] as const satisfies readonly BlankKind[];
@@ -141,6 +142,17 @@ export type ResolvedBlankOffer = {
 
 export const offerSize = (offer: Pick<ResolvedBlankOffer, 'sizes'> | null | undefined, sizeId: string | null | undefined) => (sizeId ? offer?.sizes.find((s) => s.id === sizeId) : undefined);
 export const offerColour = (offer: Pick<ResolvedBlankOffer, 'colours'> | null | undefined, colourId: string | null | undefined) => (colourId ? offer?.colours.find((c) => c.id === colourId) : undefined);
+
+/**
+ * The shopper's size and colour as the engine's listing mapping takes them (listingDesign's
+ * `blankChoice`), or null when the listing offers none: the same for the preview and the cart.
+ */
+export function blankChoiceOf(offer: Pick<ResolvedBlankOffer, 'name' | 'sizes' | 'colours'> | null | undefined, choices: { sizeId?: string | null; colourId?: string | null }): DesignBlankChoice | null {
+  if (!offer) return null;
+  const size = offerSize(offer, choices.sizeId);
+  const colour = offerColour(offer, choices.colourId);
+  return { noun: offer.name, size: size ?? null, colour: colour ? { name: colour.name, hex: colour.hex } : null };
+}
 
 /** "4T · Heather grey": how a line names its blank choice (cart, order, workroom, e-mails). */
 export function blankChoiceLabel(blank: { sizeLabel?: string | null; colourName?: string | null }): string | null {

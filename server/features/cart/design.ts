@@ -5,7 +5,7 @@
 import { type ComposedItem, ComposeError, type ComposeInput, compose } from '../../../shared/engine/compose.ts';
 import type { FontRegistry } from '../../../shared/engine/fonts.ts';
 import { type DesignMaterial, type DesignMotif, listingDesign } from '../../../shared/engine/listing-design.ts';
-import { offerColour, offerSize, type ResolvedBlankOffer } from '../../../shared/schemas/blanks.ts';
+import { blankChoiceOf, offerColour, offerSize, type ResolvedBlankOffer } from '../../../shared/schemas/blanks.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { type Choices, checkChoices, type ListingContent, layersForChoices, materialIdsOf, type Personalisation, personalisationSchema, priceForChoices } from '../../../shared/schemas/listing.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
@@ -97,14 +97,6 @@ function prepare(args: Omit<SnapshotArgs, 'registry'>) {
   const { summary, pieceMaterial } = design;
   if (!design.input) throw badRequest('Add a name or pick a motif first.', { choices: 'Add a name or pick a motif first.' });
   return { summary, pieceMaterial, input: design.input as ComposeInput };
-}
-
-/** The shopper's size and colour as the engine mapping takes them (null when the listing offers none). */
-export function blankChoiceOf(offer: ResolvedBlankOffer | null | undefined, choices: Choices) {
-  if (!offer) return null;
-  const size = offerSize(offer, choices.sizeId);
-  const colour = offerColour(offer, choices.colourId);
-  return { noun: offer.name, size: size ?? null, colour: colour ? { name: colour.name, hex: colour.hex } : null };
 }
 
 const composeRefusal = (e: unknown): unknown => (e instanceof ComposeError ? badRequest(e.message, { [`choices.texts.${e.fieldId}.text`]: e.message }) : e);
