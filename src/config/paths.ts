@@ -41,6 +41,7 @@ export const paths = {
   seller: {
     shop: { path: '/workroom/shop', getHref: () => '/workroom/shop' },
     materials: { path: '/workroom/materials', getHref: () => '/workroom/materials' },
+    blanks: { path: '/workroom/blanks', getHref: () => '/workroom/blanks' },
     listings: { path: '/workroom/listings', getHref: () => '/workroom/listings' },
     newListing: { path: '/workroom/listings/new', getHref: () => '/workroom/listings/new' },
     editListing: { path: '/workroom/listings/:id/edit', getHref: (id: string) => `/workroom/listings/${encodeURIComponent(id)}/edit` },
