@@ -18,7 +18,7 @@ export function SizePicker(props: { offer: ResolvedBlankOffer; value: string | n
       {offer.sizes.map((s) => {
         const soldOut = !!props.colourId && offer.soldOut.includes(stockKey(s.id, props.colourId));
         return (
-          <label key={s.id} className={`${optionBox} ${disabledBox} min-w-16 justify-center !py-1.5 px-3`}>
+          <label key={s.id} className={`${optionBox} ${disabledBox} min-h-11 min-w-16 justify-center !py-1.5 px-3`}>
             <input type="radio" name="blank-size" value={s.id} checked={props.value === s.id} disabled={soldOut} onChange={() => props.onChange(s.id)} className="sr-only" />
             <span className="text-center leading-tight">
               <span className="block font-bold">{s.label}</span>
