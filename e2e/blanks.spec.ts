@@ -37,9 +37,15 @@ test('a parent picks 4T in grey, moves up a size for a long name, changes a pale
 
   // a pale vinyl on the grey tee: the pair is named; another colour clears it
   const contrast = page.locator('[data-warning="low_contrast"]');
-  await form.getByRole('group', { name: 'Name colour' }).getByRole('radio', { name: /Gold glitter/ }).check({ force: true });
+  await form
+    .getByRole('group', { name: 'Name colour' })
+    .getByRole('radio', { name: /Gold glitter/ })
+    .check({ force: true });
   await expect(contrast).toContainText('Gold glitter on a heather grey tee');
-  await form.getByRole('group', { name: 'Name colour' }).getByRole('radio', { name: /Night navy/ }).check({ force: true });
+  await form
+    .getByRole('group', { name: 'Name colour' })
+    .getByRole('radio', { name: /Night navy/ })
+    .check({ force: true });
   await expect(contrast).toHaveCount(0);
 
   await form.getByRole('button', { name: /Add to cart/ }).click();

@@ -53,7 +53,7 @@ export const blankColourSchema = z.object({
 });
 export type BlankColour = z.output<typeof blankColourSchema> & { id: string };
 
-const unique = <T,>(rows: T[], key: (r: T) => string, path: string, message: string, ctx: z.RefinementCtx) => {
+const unique = <T>(rows: T[], key: (r: T) => string, path: string, message: string, ctx: z.RefinementCtx) => {
   const seen = new Set<string>();
   rows.forEach((r, i) => {
     const k = key(r).toLowerCase();
@@ -141,13 +141,17 @@ export type ResolvedBlankOffer = {
 };
 
 export const offerSize = (offer: Pick<ResolvedBlankOffer, 'sizes'> | null | undefined, sizeId: string | null | undefined) => (sizeId ? offer?.sizes.find((s) => s.id === sizeId) : undefined);
-export const offerColour = (offer: Pick<ResolvedBlankOffer, 'colours'> | null | undefined, colourId: string | null | undefined) => (colourId ? offer?.colours.find((c) => c.id === colourId) : undefined);
+export const offerColour = (offer: Pick<ResolvedBlankOffer, 'colours'> | null | undefined, colourId: string | null | undefined) =>
+  colourId ? offer?.colours.find((c) => c.id === colourId) : undefined;
 
 /**
  * The shopper's size and colour as the engine's listing mapping takes them (listingDesign's
  * `blankChoice`), or null when the listing offers none: the same for the preview and the cart.
  */
-export function blankChoiceOf(offer: Pick<ResolvedBlankOffer, 'name' | 'sizes' | 'colours'> | null | undefined, choices: { sizeId?: string | null; colourId?: string | null }): DesignBlankChoice | null {
+export function blankChoiceOf(
+  offer: Pick<ResolvedBlankOffer, 'name' | 'sizes' | 'colours'> | null | undefined,
+  choices: { sizeId?: string | null; colourId?: string | null },
+): DesignBlankChoice | null {
   if (!offer) return null;
   const size = offerSize(offer, choices.sizeId);
   const colour = offerColour(offer, choices.colourId);

@@ -21,7 +21,7 @@ afterAll(async () => t?.close());
 const page = async (slug: string) => (await request(t.app).get(`/api/listings/${slug}`).expect(200)).body as ListingPage;
 
 describe('demo blanks', () => {
-  it("when the rocket tee is opened, then it offers sizes 2T–10 in three colours with some sold out, grey first, and Bartholomew is too small at 4T but fits at 10", async () => {
+  it('when the rocket tee is opened, then it offers sizes 2T–10 in three colours with some sold out, grey first, and Bartholomew is too small at 4T but fits at 10', async () => {
     const p = await page('rocket-name-tee-for-kids');
     const offer = p.blankOffer!;
     expect(offer.sizes.map((s) => s.label)).toEqual(['2T', '3T', '4T', '5', '6', '8', '10']);
@@ -30,7 +30,12 @@ describe('demo blanks', () => {
     expect(offer.soldOut.length).toBeGreaterThanOrEqual(2);
 
     const size = (l: string) => offer.sizes.find((s) => s.label === l)!.id;
-    const choices = choicesSchema.parse({ texts: { name: { text: 'Bartholomew', fontId: 'baloo-bold', letterHeightMm: 45 } }, motifId: p.content.personalisation.motifChoices[0]!.motifId, sizeId: size('4T'), colourId: offer.defaultColourId });
+    const choices = choicesSchema.parse({
+      texts: { name: { text: 'Bartholomew', fontId: 'baloo-bold', letterHeightMm: 45 } },
+      motifId: p.content.personalisation.motifChoices[0]!.motifId,
+      sizeId: size('4T'),
+      colourId: offer.defaultColourId,
+    });
     const input = listingDesign(p.content, choices, { material: (id) => p.materials.find((m) => m.id === id), motif: (id) => p.motifs.find((m) => m.id === id) }, blankChoiceOf(offer, choices)).input!;
     const fits = fitBySize(getFontRegistry(), input, offer.sizes);
     expect(fits.find((f) => f.label === '4T')!.tooSmall).toEqual(['name']);

@@ -103,7 +103,11 @@ describe('blank types for the seller', () => {
 describe('sizes and colours in the cart', () => {
   it('when a shopper picks a size with a price difference, then the server prices it and the line carries size and colour; a sold-out pair is refused', async () => {
     const tee = await shopWithTee({ '10:Heather grey': 3, '4T:White': 0 });
-    const page = (await request(w.app).get(`/api/listings/${(w.db.select().from(listings).where(eq(listings.id, tee.listingId)).get()!).slug}`).expect(200)).body;
+    const page = (
+      await request(w.app)
+        .get(`/api/listings/${w.db.select().from(listings).where(eq(listings.id, tee.listingId)).get()!.slug}`)
+        .expect(200)
+    ).body;
     expect(page.blankOffer.name).toBe('Tee');
     expect(page.blankOffer.soldOut).toContain(`${tee.size('4T')}:${tee.colour('White')}`);
     expect(page.blankOffer.soldOut).not.toContain(`${tee.size('10')}:${tee.colour('Heather grey')}`);
@@ -111,7 +115,10 @@ describe('sizes and colours in the cart', () => {
     const buyer = await w.makeUser('shopper');
     const agent = await w.signIn(buyer.email);
     // the posted price is ignored: 2200 base + 300 for size 10
-    const res = await agent.post('/api/cart/lines').send({ listingId: tee.listingId, choices: teeChoices(tee, 'Mira', '10', 'Heather grey'), unitPriceMinor: 1 }).expect(201);
+    const res = await agent
+      .post('/api/cart/lines')
+      .send({ listingId: tee.listingId, choices: teeChoices(tee, 'Mira', '10', 'Heather grey'), unitPriceMinor: 1 })
+      .expect(201);
     const line = res.body.shops[0].lines[0];
     expect(line.unitPriceMinor).toBe(2500);
     expect(line.snapshot.blank).toMatchObject({ sizeLabel: '10', colourName: 'Heather grey', widthMm: 220, heightMm: 240 });
@@ -136,7 +143,10 @@ describe('stock held at checkout', () => {
       [0, 1].map(async () => {
         const u = await w.makeUser('shopper');
         const agent = await w.signIn(u.email);
-        await agent.post('/api/cart/lines').send({ listingId: tee.listingId, choices: teeChoices(tee, 'Bartholomew', '4T', 'Heather grey') }).expect(201);
+        await agent
+          .post('/api/cart/lines')
+          .send({ listingId: tee.listingId, choices: teeChoices(tee, 'Bartholomew', '4T', 'Heather grey') })
+          .expect(201);
         return agent;
       }),
     );

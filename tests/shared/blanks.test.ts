@@ -128,7 +128,13 @@ describe('fit per size', () => {
     expect(at('s2').letterHeights.name).toBeLessThan(20);
     const larger = largerSizeThatFits(fits, 's4', 'name');
     expect(larger?.label).toBe('8');
-    const w = sizeFitWarning({ text: 'Bartholomew', sizeLabel: '4T', letterHeightMm: at('s4').letterHeights.name!, minLetterHeightMm: 20, larger: { label: larger!.label, letterHeightMm: larger!.letterHeights.name! } });
+    const w = sizeFitWarning({
+      text: 'Bartholomew',
+      sizeLabel: '4T',
+      letterHeightMm: at('s4').letterHeights.name!,
+      minLetterHeightMm: 20,
+      larger: { label: larger!.label, letterHeightMm: larger!.letterHeights.name! },
+    });
     expect(w.message).toMatch(/^At size 4T, “Bartholomew” comes out at 1\d\.\d mm letters, below the 20 mm this item needs\. Choose size 8 or larger/);
   });
   it('when a short name fits every size, then no size is too small', () => {

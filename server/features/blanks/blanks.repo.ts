@@ -13,12 +13,7 @@ export const blanksRepo = {
       .from(blankTypes)
       .where(and(eq(blankTypes.shopId, shopId), eq(blankTypes.id, id)))
       .get(),
-  count: (db: Db, shopId: string) =>
-    db
-      .select({ n: sql<number>`count(*)` })
-      .from(blankTypes)
-      .where(eq(blankTypes.shopId, shopId))
-      .get()!.n,
+  count: (db: Db, shopId: string) => db.select({ n: sql<number>`count(*)` }).from(blankTypes).where(eq(blankTypes.shopId, shopId)).get()!.n,
   insertType: (db: Db, row: typeof blankTypes.$inferInsert) => db.insert(blankTypes).values(row).run(),
   updateType: (db: Db, shopId: string, id: string, set: Partial<typeof blankTypes.$inferInsert>) =>
     db

@@ -6,10 +6,10 @@
 // session expires or is replaced.
 import crypto from 'node:crypto';
 import {
+  type BlankStockInput,
   type BlankTypeInput,
   blankStockInputSchema,
   blankTypeInputSchema,
-  type BlankStockInput,
   type ListingBlankOffer,
   MAX_BLANK_TYPES,
   type ResolvedBlankOffer,
@@ -105,10 +105,8 @@ export function checkOffer(db: Db, shopId: string, offer: ListingBlankOffer | nu
   if (!offer) return;
   const t = blanksRepo.type(db, shopId, offer.blankTypeId);
   if (!t) throw badRequest('Pick one of your blank types.', { 'blankOffer.blankTypeId': 'Pick one of your blank types.' });
-  const badSize = offer.sizeIds.findIndex((s) => !t.sizes.some((x) => x.id === s));
-  if (badSize >= 0) throw badRequest('That size is not part of the blank type.', { 'blankOffer.sizeIds': 'That size is not part of the blank type.' });
-  const badColour = offer.colourIds.findIndex((c) => !t.colours.some((x) => x.id === c));
-  if (badColour >= 0) throw badRequest('That colour is not part of the blank type.', { 'blankOffer.colourIds': 'That colour is not part of the blank type.' });
+  if (offer.sizeIds.some((s) => !t.sizes.some((x) => x.id === s))) throw badRequest('That size is not part of the blank type.', { 'blankOffer.sizeIds': 'That size is not part of the blank type.' });
+  if (offer.colourIds.some((c) => !t.colours.some((x) => x.id === c))) throw badRequest('That colour is not part of the blank type.', { 'blankOffer.colourIds': 'That colour is not part of the blank type.' });
 }
 
 /**

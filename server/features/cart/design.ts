@@ -82,18 +82,23 @@ function prepare(args: Omit<SnapshotArgs, 'registry'>) {
   const errs = checkChoices(content, choices, offer);
   if (Object.keys(errs).length > 0) throw badRequest('Some of the personalisation needs attention.', prefix(errs));
 
-  const design = listingDesign(content, choices, {
-    material(id, key) {
-      const m = id ? materials.get(id) : undefined;
-      if (!m) throw badRequest('This colour is no longer available. Pick another.', { [`choices.${key}`]: 'This colour is no longer available. Pick another.' });
-      return m;
+  const design = listingDesign(
+    content,
+    choices,
+    {
+      material(id, key) {
+        const m = id ? materials.get(id) : undefined;
+        if (!m) throw badRequest('This colour is no longer available. Pick another.', { [`choices.${key}`]: 'This colour is no longer available. Pick another.' });
+        return m;
+      },
+      motif(id) {
+        const m = motifs.get(id);
+        if (!m) throw badRequest('This motif is no longer available. Pick another.', { 'choices.motifId': 'This motif is no longer available. Pick another.' });
+        return m;
+      },
     },
-    motif(id) {
-      const m = motifs.get(id);
-      if (!m) throw badRequest('This motif is no longer available. Pick another.', { 'choices.motifId': 'This motif is no longer available. Pick another.' });
-      return m;
-    },
-  }, blankChoiceOf(offer, choices));
+    blankChoiceOf(offer, choices),
+  );
   const { summary, pieceMaterial } = design;
   if (!design.input) throw badRequest('Add a name or pick a motif first.', { choices: 'Add a name or pick a motif first.' });
   return { summary, pieceMaterial, input: design.input as ComposeInput };

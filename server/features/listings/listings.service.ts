@@ -1,10 +1,10 @@
 import crypto from 'node:crypto';
 import slugify from 'slugify';
 import { type ListingContent, type ListingState, materialIdsOf, type SellerListing, type SellerListingsQuery } from '../../../shared/schemas/listing.ts';
-import { checkOffer } from '../blanks/index.ts';
 import { type Page, pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
+import { checkOffer } from '../blanks/index.ts';
 import { countOwn, deleteOwn, findOwn, insertListing, type ListingRow, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn } from './listings.repo.ts';
 
 type Deps = { db: Db; now: () => number };

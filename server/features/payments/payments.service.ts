@@ -21,9 +21,9 @@ import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
+import { releaseHolds, sellHolds } from '../blanks/index.ts';
 // payments drives orders, refunds and payouts (one-way: none of them imports payments)
 import { confirmationMail, createOrdersForCheckout, type MailOrder, newOrderMail, ordersRepo } from '../orders/index.ts';
-import { releaseHolds, sellHolds } from '../blanks/index.ts';
 import { settleOrder } from '../payouts/index.ts';
 import { recordProviderRefund } from '../refunds/index.ts';
 import { type CheckoutRow, paymentsRepo } from './payments.repo.ts';

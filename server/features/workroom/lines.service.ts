@@ -2,8 +2,8 @@
 // the home page's counts and list, and one order with its timeline. Every call takes the seller's
 // shop id; a line or order of another shop is "not found".
 
-import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { blankChoiceLabel } from '../../../shared/schemas/blanks.ts';
+import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { parseShipTo } from '../../../shared/schemas/checkout.ts';
 import type { LineState } from '../../../shared/schemas/order.ts';
 import { pageOffset, toPage } from '../../../shared/schemas/pagination.ts';

@@ -14,7 +14,8 @@ export function useSaveBlankType() {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: async ({ id, input }: { id?: string; input: BlankTypeInput }) =>
-      (id ? await api.put<{ blankType: SellerBlankType }>(`/api/seller/blanks/${encodeURIComponent(id)}`, input) : await api.post<{ blankType: SellerBlankType }>('/api/seller/blanks', input)).blankType,
+      (id ? await api.put<{ blankType: SellerBlankType }>(`/api/seller/blanks/${encodeURIComponent(id)}`, input) : await api.post<{ blankType: SellerBlankType }>('/api/seller/blanks', input))
+        .blankType,
     onSuccess: () => qc.invalidateQueries({ queryKey: blankKeys.all }),
   });
 }

@@ -22,7 +22,8 @@ export function BlankOfferPicker({ value, onChange, vinyls, error }: BlankOfferP
   const types = useBlankTypes();
   const type = types.data?.find((t) => t.id === value?.blankTypeId);
   const toggle = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
-  const pairs = type && value ? type.colours.filter((c) => value.colourIds.includes(c.id)).flatMap((c) => contrastWarnings(vinyls, { id: c.id, name: c.name, hex: c.hex, noun: type.name.toLowerCase() })) : [];
+  const pairs =
+    type && value ? type.colours.filter((c) => value.colourIds.includes(c.id)).flatMap((c) => contrastWarnings(vinyls, { id: c.id, name: c.name, hex: c.hex, noun: type.name.toLowerCase() })) : [];
 
   return (
     <div className="flex flex-col gap-4">
@@ -49,7 +50,8 @@ export function BlankOfferPicker({ value, onChange, vinyls, error }: BlankOfferP
             <div className="flex flex-wrap gap-x-5">
               {type.sizes.map((s) => (
                 <label key={s.id} className={box}>
-                  <input type="checkbox" className="size-5 accent-thread" checked={value.sizeIds.includes(s.id)} onChange={() => onChange({ ...value, sizeIds: toggle(value.sizeIds, s.id) })} /> {s.label}
+                  <input type="checkbox" className="size-5 accent-thread" checked={value.sizeIds.includes(s.id)} onChange={() => onChange({ ...value, sizeIds: toggle(value.sizeIds, s.id) })} />{' '}
+                  {s.label}
                 </label>
               ))}
             </div>
@@ -97,7 +99,9 @@ export function BlankOfferPicker({ value, onChange, vinyls, error }: BlankOfferP
                       onChange={() =>
                         onChange({
                           ...value,
-                          intendedPairs: intended ? value.intendedPairs.filter((x) => !(x.materialId === p.materialId && x.colourId === p.colourId)) : [...value.intendedPairs, { materialId: p.materialId, colourId: p.colourId }],
+                          intendedPairs: intended
+                            ? value.intendedPairs.filter((x) => !(x.materialId === p.materialId && x.colourId === p.colourId))
+                            : [...value.intendedPairs, { materialId: p.materialId, colourId: p.colourId }],
                         })
                       }
                     />

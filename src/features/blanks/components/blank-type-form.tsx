@@ -3,8 +3,8 @@
  * (shared/schemas/blanks.ts); the server's field messages land on their inputs.
  */
 import { useFieldArray } from 'react-hook-form';
-import { BLANK_DEFAULTS, BLANK_KINDS } from '../../../../shared/schemas/listing.ts';
 import { type BlankTypeInput, blankTypeInputSchema, MAX_BLANK_COLOURS, MAX_BLANK_SIZES, type SellerBlankType } from '../../../../shared/schemas/blanks.ts';
+import { BLANK_DEFAULTS, BLANK_KINDS } from '../../../../shared/schemas/listing.ts';
 import { formatLength } from '../../../../shared/units.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { FormSection, MoneyController, SelectField, SubmitForm } from '../../../components/ui/form-controls.tsx';
@@ -58,12 +58,47 @@ export function BlankTypeForm({ type, start, currency, onDone }: { type?: Seller
             <legend className="px-1 font-bold">Size {i + 1}</legend>
             <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
               <TextField label="Label" maxLength={12} error={e.sizes?.[i]?.label?.message} {...register(`sizes.${i}.label`)} />
-              <TextField label="Print width (mm)" type="number" inputMode="decimal" hint={mmHint(v.sizes?.[i]?.widthMm)} error={e.sizes?.[i]?.widthMm?.message} {...register(`sizes.${i}.widthMm`, { valueAsNumber: true })} />
-              <TextField label="Print height (mm)" type="number" inputMode="decimal" hint={mmHint(v.sizes?.[i]?.heightMm)} error={e.sizes?.[i]?.heightMm?.message} {...register(`sizes.${i}.heightMm`, { valueAsNumber: true })} />
-              <TextField label="Top offset (mm)" type="number" inputMode="decimal" hint={mmHint(v.sizes?.[i]?.topOffsetMm)} error={e.sizes?.[i]?.topOffsetMm?.message} {...register(`sizes.${i}.topOffsetMm`, { valueAsNumber: true })} />
+              <TextField
+                label="Print width (mm)"
+                type="number"
+                inputMode="decimal"
+                hint={mmHint(v.sizes?.[i]?.widthMm)}
+                error={e.sizes?.[i]?.widthMm?.message}
+                {...register(`sizes.${i}.widthMm`, { valueAsNumber: true })}
+              />
+              <TextField
+                label="Print height (mm)"
+                type="number"
+                inputMode="decimal"
+                hint={mmHint(v.sizes?.[i]?.heightMm)}
+                error={e.sizes?.[i]?.heightMm?.message}
+                {...register(`sizes.${i}.heightMm`, { valueAsNumber: true })}
+              />
+              <TextField
+                label="Top offset (mm)"
+                type="number"
+                inputMode="decimal"
+                hint={mmHint(v.sizes?.[i]?.topOffsetMm)}
+                error={e.sizes?.[i]?.topOffsetMm?.message}
+                {...register(`sizes.${i}.topOffsetMm`, { valueAsNumber: true })}
+              />
               <MoneyController control={control} name={`sizes.${i}.priceDiffMinor`} label="Price difference" currency={currency} error={e.sizes?.[i]?.priceDiffMinor?.message} />
-              <TextField label="Chest or width (mm)" type="number" inputMode="decimal" hint={mmHint(v.sizes?.[i]?.chestMm)} error={e.sizes?.[i]?.chestMm?.message} {...register(`sizes.${i}.chestMm`, optionalMm)} />
-              <TextField label="Length (mm)" type="number" inputMode="decimal" hint={mmHint(v.sizes?.[i]?.lengthMm)} error={e.sizes?.[i]?.lengthMm?.message} {...register(`sizes.${i}.lengthMm`, optionalMm)} />
+              <TextField
+                label="Chest or width (mm)"
+                type="number"
+                inputMode="decimal"
+                hint={mmHint(v.sizes?.[i]?.chestMm)}
+                error={e.sizes?.[i]?.chestMm?.message}
+                {...register(`sizes.${i}.chestMm`, optionalMm)}
+              />
+              <TextField
+                label="Length (mm)"
+                type="number"
+                inputMode="decimal"
+                hint={mmHint(v.sizes?.[i]?.lengthMm)}
+                error={e.sizes?.[i]?.lengthMm?.message}
+                {...register(`sizes.${i}.lengthMm`, optionalMm)}
+              />
             </div>
             {sizes.fields.length > 1 ? (
               <Button variant="quiet" className="self-start" onClick={() => sizes.remove(i)}>

@@ -65,7 +65,11 @@ export function StockGrid({ type }: { type: SellerBlankType }) {
                         onChange={(e) => setCounts((m) => new Map(m).set(k, e.target.value))}
                         className="min-h-10 w-20 rounded-lg border-2 border-field bg-white px-2"
                       />
-                      {r.quantity === 0 ? <span className="block font-semibold text-danger">sold out</span> : isLowStock(r) ? <span className="block font-semibold text-ink">low: {r.quantity} left</span> : null}
+                      {r.quantity === 0 ? (
+                        <span className="block font-semibold text-danger">sold out</span>
+                      ) : isLowStock(r) ? (
+                        <span className="block font-semibold text-ink">low: {r.quantity} left</span>
+                      ) : null}
                       {r.held > 0 ? <span className="block text-ink-soft">{r.held} held at checkout</span> : null}
                     </td>
                   );

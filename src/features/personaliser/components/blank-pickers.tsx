@@ -22,7 +22,11 @@ export function SizePicker(props: { offer: ResolvedBlankOffer; value: string | n
             <input type="radio" name="blank-size" value={s.id} checked={props.value === s.id} disabled={soldOut} onChange={() => props.onChange(s.id)} className="sr-only" />
             <span className="text-center leading-tight">
               <span className="block font-bold">{s.label}</span>
-              {soldOut ? <span className="block text-xs text-danger no-underline">sold out</span> : s.priceDiffMinor > 0 ? <span className="block text-xs text-ink-soft">+{formatMoney(s.priceDiffMinor, props.currency)}</span> : null}
+              {soldOut ? (
+                <span className="block text-xs text-danger no-underline">sold out</span>
+              ) : s.priceDiffMinor > 0 ? (
+                <span className="block text-xs text-ink-soft">+{formatMoney(s.priceDiffMinor, props.currency)}</span>
+              ) : null}
             </span>
           </label>
         );

@@ -5,11 +5,11 @@
  * frame so the write never sits between a keystroke and its paint.
  */
 import { useEffect, useMemo, useState } from 'react';
+import { contrastWarnings } from '../../../../shared/engine/contrast.ts';
 import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
+import { offerColour, offerSize } from '../../../../shared/schemas/blanks.ts';
 import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import { type Choices, defaultColour, layersForChoices, priceForChoices, type TextField } from '../../../../shared/schemas/listing.ts';
-import { contrastWarnings } from '../../../../shared/engine/contrast.ts';
-import { offerColour, offerSize } from '../../../../shared/schemas/blanks.ts';
 import { blankFor, designInput } from '../lib/design.ts';
 import { loadChoices, saveChoices } from '../lib/saved-choices.ts';
 

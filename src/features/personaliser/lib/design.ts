@@ -5,8 +5,8 @@
  */
 import type { ComposeInput } from '../../../../shared/engine/compose.ts';
 import { listingDesign } from '../../../../shared/engine/listing-design.ts';
-import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import { blankChoiceOf, type ResolvedBlankOffer } from '../../../../shared/schemas/blanks.ts';
+import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { Choices } from '../../../../shared/schemas/listing.ts';
 
 export { blankFor } from '../../../../shared/engine/listing-design.ts';
