@@ -158,6 +158,20 @@ export function blankChoiceOf(
   return { noun: offer.name, size: size ?? null, colour: colour ? { name: colour.name, hex: colour.hex } : null };
 }
 
+/**
+ * What is picked for the shopper when nothing is: the only size when there is one (a wrong size is
+ * a wasted item, so among several none is), and the shop's default colour.
+ */
+export function blankDefaults(
+  offer: Pick<ResolvedBlankOffer, 'sizes' | 'defaultColourId'> | null | undefined,
+  choices: { sizeId?: string | null; colourId?: string | null },
+): { sizeId: string | null; colourId: string | null } {
+  return {
+    sizeId: choices.sizeId ?? (offer?.sizes.length === 1 ? offer.sizes[0]!.id : null),
+    colourId: choices.colourId ?? offer?.defaultColourId ?? null,
+  };
+}
+
 /** "4T · Heather grey": how a line names its blank choice (cart, order, workroom, e-mails). */
 export function blankChoiceLabel(blank: { sizeLabel?: string | null; colourName?: string | null }): string | null {
   const parts = [blank.sizeLabel, blank.colourName].filter((x): x is string => !!x);

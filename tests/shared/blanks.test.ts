@@ -5,7 +5,7 @@ import { contrastRatio, contrastWarnings, relativeLuminance } from '../../shared
 import { sizeFitWarning } from '../../shared/engine/fit.ts';
 import { fitBySize, largerSizeThatFits } from '../../shared/engine/size-fit.ts';
 import { layoutText } from '../../shared/engine/text-layout.ts';
-import { blankChoiceLabel, blankTypeInputSchema, type ResolvedBlankOffer } from '../../shared/schemas/blanks.ts';
+import { blankChoiceLabel, blankDefaults, blankTypeInputSchema, type ResolvedBlankOffer } from '../../shared/schemas/blanks.ts';
 import { checkChoices, choicesSchema, type PricedContent, priceForChoices } from '../../shared/schemas/listing.ts';
 import { testRegistry } from './engine/font-fixture.ts';
 
@@ -92,6 +92,12 @@ describe('price and choice of a size', () => {
     expect(checkChoices(content, choices({ sizeId: 's10', colourId: 'grey' }), offer)).toEqual({});
     // a listing without an offer ignores the size and colour
     expect(checkChoices(content, choices(), null)).toEqual({});
+  });
+  it('when nothing is picked, then only a one-size blank gets its size, and the colour is the shop default', () => {
+    expect(blankDefaults(offer, {})).toEqual({ sizeId: null, colourId: 'grey' });
+    expect(blankDefaults({ ...offer, sizes: [offer.sizes[0]!] }, {})).toEqual({ sizeId: 's2', colourId: 'grey' });
+    expect(blankDefaults(offer, { sizeId: 's8', colourId: 'white' })).toEqual({ sizeId: 's8', colourId: 'white' });
+    expect(blankDefaults(null, {})).toEqual({ sizeId: null, colourId: null });
   });
   it('when a line names its blank, then it reads "4T · Heather grey"', () => {
     expect(blankChoiceLabel({ sizeLabel: '4T', colourName: 'Heather grey' })).toBe('4T · Heather grey');

@@ -1,6 +1,7 @@
 // Cart rules: one cart per signed-in user, a guest cart by cookie, merged on the first signed-in
 // call; lines priced by the server from the live listing (the posted body has no price at all).
 import crypto from 'node:crypto';
+import { blankDefaults } from '../../../shared/schemas/blanks.ts';
 import type { AddCartLineInput, Cart, CartLine, CartShop } from '../../../shared/schemas/cart.ts';
 import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
 import { type ListingContent, materialIdsOf } from '../../../shared/schemas/listing.ts';
@@ -151,15 +152,17 @@ export async function addLine(deps: CartDeps & Pick<AppDeps, 'pool'>, cart: Cart
     ),
   );
 
+  const offer = resolveOffer(db, row.shop.id, content.blankOffer);
   // composed in the worker pool: the request thread never runs the geometry
   const snapshot = await buildSnapshotOffThread({
     pool: deps.pool,
     listing: { id: row.listing.id, slug: row.listing.slug, shopId: row.shop.id, currency: row.listing.currency },
     content,
-    choices: input.choices,
+    // a one-size blank's size and the shop's default colour when the request names none
+    choices: { ...input.choices, ...blankDefaults(offer, input.choices) },
     materials,
     motifs,
-    offer: resolveOffer(db, row.shop.id, content.blankOffer),
+    offer,
   });
 
   const existing = cartView(db, cart);

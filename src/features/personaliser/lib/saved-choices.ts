@@ -3,7 +3,7 @@
  * add-to-cart) loses nothing. Read back through the shared choices schema and the listing's own
  * options: a font or colour the listing no longer offers falls back to its default.
  */
-import type { ResolvedBlankOffer } from '../../../../shared/schemas/blanks.ts';
+import { blankDefaults, type ResolvedBlankOffer } from '../../../../shared/schemas/blanks.ts';
 import { type Choices, choicesSchema, defaultColour, type Personalisation } from '../../../../shared/schemas/listing.ts';
 
 type Offer = Pick<ResolvedBlankOffer, 'sizes' | 'colours' | 'defaultColourId'> | null | undefined;
@@ -22,8 +22,7 @@ export function defaultChoices(p: Personalisation, offer?: Offer): Choices {
       ),
     ),
     outlineMaterialId: p.outline ? defaultColour(p.outline.colourChoices) : null,
-    sizeId: null,
-    colourId: offer ? offer.defaultColourId : null,
+    ...blankDefaults(offer, {}),
   };
 }
 
@@ -58,7 +57,7 @@ export function reconcile(p: Personalisation, saved: Choices, offer?: Offer): Ch
       ? saved.outlineMaterialId
       : defaultColour(p.outline.colourChoices)
     : null;
-  const sizeId = saved.sizeId && offer?.sizes.some((s) => s.id === saved.sizeId) ? saved.sizeId : null;
+  const sizeId = saved.sizeId && offer?.sizes.some((s) => s.id === saved.sizeId) ? saved.sizeId : d.sizeId;
   const colourId = saved.colourId && offer?.colours.some((c) => c.id === saved.colourId) ? saved.colourId : d.colourId;
   return { texts, textColours, motifId, motifColours, outlineMaterialId, sizeId, colourId };
 }
