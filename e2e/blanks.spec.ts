@@ -125,3 +125,34 @@ test('the last 3T grey tee goes to one shopper; the other is told before paying'
   await expect(page).toHaveURL(/\/cart/);
   await other.close();
 });
+
+test('a seller keeps blank sizes, colours and stock in forms, with low and sold-out marks, and offers them on a listing', async ({ page }) => {
+  await signIn(page, demo.comet);
+  await page.goto('/workroom/blanks');
+  const tee = page.getByRole('region', { name: 'Tee' });
+  await expect(tee.getByRole('table')).toContainText('sold out');
+  await expect(tee.getByRole('table')).toContainText('low: 1 left');
+  // a count changed and saved: the mark follows
+  await tee.getByLabel('10 in Mint green').fill('0');
+  await tee.getByRole('button', { name: 'Save stock' }).click();
+  await expect(page.getByText('Stock of tee saved.')).toBeVisible();
+  await expect(tee.getByLabel('10 in Mint green')).toHaveValue('0');
+
+  // a new blank type: bad input is named next to its field and nothing is saved
+  await page.getByRole('button', { name: 'Add zip pouch' }).click();
+  await page.getByLabel('Print width (mm)').first().fill('5');
+  await page.getByRole('button', { name: 'Add blank type' }).click();
+  await expect(page.getByText('The print width is at least 20 mm.')).toBeVisible();
+  await page.getByLabel('Print width (mm)').first().fill('180');
+  await page.getByLabel('Colour 1 name').fill('Sand');
+  await page.getByRole('button', { name: 'Add blank type' }).click();
+  await expect(page.getByRole('region', { name: 'Zip pouch' })).toBeVisible();
+  const axe = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  expect(axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id)).toEqual([]);
+
+  // the listing editor offers the shop's blank types
+  await page.goto('/workroom/listings');
+  await page.getByRole('link', { name: /Rocket name tee for kids/ }).first().click();
+  await expect(page.getByLabel('Sizes and colours from')).toHaveValue(/.+/);
+  await expect(page.getByRole('group', { name: 'Sizes offered' }).getByRole('checkbox')).toHaveCount(7);
+});

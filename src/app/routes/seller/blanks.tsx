@@ -6,6 +6,7 @@ import { useBlankTypes } from '../../../features/blanks/api/blanks.ts';
 import { BlankTypeForm } from '../../../features/blanks/components/blank-type-form.tsx';
 import { StockGrid } from '../../../features/blanks/components/stock-grid.tsx';
 import { useOwnShop } from '../../../features/shop-settings/api/get-own-shop.ts';
+import { PhotoPicker } from '../../../features/uploads/components/photo-picker.tsx';
 
 /** /workroom/blanks: the shop's blank types (sizes, colours) and their stock per size × colour. */
 export function BlanksPage() {
@@ -21,7 +22,7 @@ export function BlanksPage() {
       {editing ? (
         <div className="mb-8 max-w-4xl">
           <h2 className="mb-4 text-2xl font-extrabold">{editing.type ? `Edit ${editing.type.name}` : 'Add a blank type'}</h2>
-          <BlankTypeForm key={editing.type?.id ?? editing.start.name} type={editing.type} start={editing.start} currency={currency} onDone={() => setEditing(null)} />
+          <BlankTypeForm key={editing.type?.id ?? editing.start.name} type={editing.type} start={editing.start} currency={currency} PhotoPicker={PhotoPicker} onDone={() => setEditing(null)} />
         </div>
       ) : (
         <div className="mb-6 flex flex-wrap gap-3">

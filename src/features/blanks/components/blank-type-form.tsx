@@ -2,7 +2,8 @@
  * A blank type with its sizes and colours, checked by the schema the API uses
  * (shared/schemas/blanks.ts); the server's field messages land on their inputs.
  */
-import { useFieldArray } from 'react-hook-form';
+import type { ComponentType } from 'react';
+import { Controller, useFieldArray } from 'react-hook-form';
 import { type BlankTypeInput, blankTypeInputSchema, MAX_BLANK_COLOURS, MAX_BLANK_SIZES, type SellerBlankType } from '../../../../shared/schemas/blanks.ts';
 import { BLANK_DEFAULTS, BLANK_KINDS } from '../../../../shared/schemas/listing.ts';
 import { formatLength } from '../../../../shared/units.ts';
@@ -19,7 +20,22 @@ const mmHint = (v: unknown) => (typeof v === 'number' && Number.isFinite(v) && v
 /** an empty optional measurement is null, not NaN */
 const optionalMm = { setValueAs: (v: string) => (v === '' || v === null ? null : Number(v)) };
 
-export function BlankTypeForm({ type, start, currency, onDone }: { type?: SellerBlankType; start: BlankTypeInput; currency: string; onDone: () => void }) {
+/** the uploads feature's photo picker, handed in by the page (one photo per colour) */
+export type ColourPhotoPicker = ComponentType<{ value: string[]; onChange: (ids: string[]) => void; max?: number; error?: string }>;
+
+export function BlankTypeForm({
+  type,
+  start,
+  currency,
+  onDone,
+  PhotoPicker,
+}: {
+  type?: SellerBlankType;
+  start: BlankTypeInput;
+  currency: string;
+  onDone: () => void;
+  PhotoPicker?: ColourPhotoPicker;
+}) {
   const toast = useToast();
   const save = useSaveBlankType();
   const defaults: BlankTypeInput = type ? { name: type.name, shape: type.shape, sizes: type.sizes, colours: type.colours.map(({ photoUrl: _p, ...c }) => c) } : start;
@@ -124,6 +140,18 @@ export function BlankTypeForm({ type, start, currency, onDone }: { type?: Seller
               <Button variant="quiet" onClick={() => colours.remove(i)}>
                 Remove {v.colours?.[i]?.name || `colour ${i + 1}`}
               </Button>
+            ) : null}
+            {PhotoPicker ? (
+              <details className="col-span-full text-sm">
+                <summary className="cursor-pointer font-bold">Photo of {v.colours?.[i]?.name || `colour ${i + 1}`} (optional)</summary>
+                <Controller
+                  control={control}
+                  name={`colours.${i}.photoId`}
+                  render={({ field }) => (
+                    <PhotoPicker max={1} value={field.value ? [field.value] : []} onChange={(ids) => field.onChange(ids.at(-1) ?? null)} error={e.colours?.[i]?.photoId?.message} />
+                  )}
+                />
+              </details>
             ) : null}
           </div>
         ))}
