@@ -82,8 +82,9 @@ export function savePersonalisation(deps: WorkroomDeps, buyerId: string, lineId:
       p.motifChoices.map((m) => m.motifId),
     ),
   );
-  // the size and colour were paid for and taken from stock: a text correction keeps them
-  const offer = resolveOffer(db, listing.shopId, content.blankOffer);
+  // the size and colour were paid for and taken from stock: a text correction keeps them (a line
+  // bought before the listing offered sizes stays without)
+  const offer = old.choices.sizeId ? resolveOffer(db, listing.shopId, content.blankOffer) : null;
   const fresh = buildSnapshot({
     registry: getFontRegistry(),
     listing: { id: listing.id, slug: listing.slug, shopId: listing.shopId, currency: listing.currency },
