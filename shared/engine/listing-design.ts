@@ -9,6 +9,7 @@
  */
 
 // type-only: shared/schemas imports the engine at run time, not the other way round
+import type { DesignBlankChoice, DesignSize } from '../schemas/blanks.ts';
 import type { Choices, ListingContent } from '../schemas/listing.ts';
 import { type Blank, defaultBlank } from './blanks.ts';
 import type { ComposeInput, FieldDef, MaterialKind } from './compose.ts';
@@ -39,10 +40,7 @@ export type ListingDesign = {
 
 export const asMaterialKind = (k: string): MaterialKind => ((MATERIAL_KINDS as readonly string[]).includes(k) ? (k as MaterialKind) : 'smooth');
 
-/** A size of the shop's blank type: its own print area and top offset (shared/schemas/blanks.ts). */
-export type DesignSize = { label: string; widthMm: number; heightMm: number; topOffsetMm: number };
-/** The shopper's blank choice: the size (print area) and the colour, and what the item is called ("Tee"). */
-export type DesignBlankChoice = { noun: string; size: DesignSize | null; colour: { name: string; hex: string } | null };
+export type { DesignBlankChoice, DesignSize };
 
 /**
  * The blank as the engine sees it: the kind's drawn size with the listing's own print area, or the

@@ -6,11 +6,15 @@
  */
 import { z } from 'zod';
 import { type BlankKind, DEFAULT_BLANKS } from '../engine/blanks.ts';
-import type { DesignBlankChoice } from '../engine/listing-design.ts';
 
 // the engine's blank kinds (listing.ts imports this file, so the list is not taken from there)
 const SHAPES = ['tote', 'kids_tee', 'adult_tee', 'pouch', 'drawstring_bag'] as const satisfies readonly BlankKind[];
 const blankKindSchema = z.enum(SHAPES, { error: 'Pick a shape.' });
+
+/** A size as the engine's listing mapping takes it: its own print area and top offset. */
+export type DesignSize = { label: string; widthMm: number; heightMm: number; topOffsetMm: number };
+/** The shopper's blank choice for the mapping (listingDesign): the size, the colour, and what the item is called ("Tee"). */
+export type DesignBlankChoice = { noun: string; size: DesignSize | null; colour: { name: string; hex: string } | null };
 
 export const MAX_BLANK_SIZES = 16;
 export const MAX_BLANK_COLOURS = 16;
