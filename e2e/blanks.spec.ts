@@ -152,7 +152,10 @@ test('a seller keeps blank sizes, colours and stock in forms, with low and sold-
 
   // the listing editor offers the shop's blank types
   await page.goto('/workroom/listings');
-  await page.getByRole('link', { name: /Rocket name tee for kids/ }).first().click();
+  await page
+    .getByRole('link', { name: /Rocket name tee for kids/ })
+    .first()
+    .click();
   await expect(page.getByLabel('Sizes and colours from')).toHaveValue(/.+/);
   await expect(page.getByRole('group', { name: 'Sizes offered' }).getByRole('checkbox')).toHaveCount(7);
 });

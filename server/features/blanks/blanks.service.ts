@@ -106,7 +106,8 @@ export function checkOffer(db: Db, shopId: string, offer: ListingBlankOffer | nu
   const t = blanksRepo.type(db, shopId, offer.blankTypeId);
   if (!t) throw badRequest('Pick one of your blank types.', { 'blankOffer.blankTypeId': 'Pick one of your blank types.' });
   if (offer.sizeIds.some((s) => !t.sizes.some((x) => x.id === s))) throw badRequest('That size is not part of the blank type.', { 'blankOffer.sizeIds': 'That size is not part of the blank type.' });
-  if (offer.colourIds.some((c) => !t.colours.some((x) => x.id === c))) throw badRequest('That colour is not part of the blank type.', { 'blankOffer.colourIds': 'That colour is not part of the blank type.' });
+  if (offer.colourIds.some((c) => !t.colours.some((x) => x.id === c)))
+    throw badRequest('That colour is not part of the blank type.', { 'blankOffer.colourIds': 'That colour is not part of the blank type.' });
 }
 
 /**
