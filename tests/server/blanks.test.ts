@@ -177,6 +177,19 @@ describe('stock held at checkout', () => {
     expect(lines).toHaveLength(1);
     expect(lines[0]!.snapshot.blank).toMatchObject({ sizeLabel: '4T', colourName: 'Heather grey' });
 
+    // a text correction keeps the size and colour paid for, whatever the edit sends
+    await tee.sellerAgent.post(`/api/workroom/lines/${lines[0]!.id}/request-change`).send({ message: 'Is the spelling right?' }).expect(200);
+    const buyer = shoppers[1 - winner]!;
+    const form = (await buyer.get(`/api/order-lines/${lines[0]!.id}/personalisation`).expect(200)).body;
+    await buyer
+      .put(`/api/order-lines/${lines[0]!.id}/personalisation`)
+      .send({ choices: { ...form.choices, sizeId: tee.size('10'), texts: { name: { ...form.choices.texts.name, text: 'Bart' } } } })
+      .expect(200);
+    const edited = w.db.select().from(orderLines).where(eq(orderLines.id, lines[0]!.id)).get()!;
+    expect(edited.snapshot.blank).toMatchObject({ sizeLabel: '4T', colourName: 'Heather grey' });
+    expect(edited.snapshot.summary[0]).toEqual({ label: 'Size', value: '4T' });
+    expect(edited.unitPriceMinor).toBe(2200);
+
     // the first shopper's cart version is stale; trying again now is refused before any payment
     const late = await shoppers[winner]!.post('/api/checkout').send({});
     expect(late.status).toBe(409);
