@@ -131,7 +131,7 @@ test('a seller keeps blank sizes, colours and stock in forms, with low and sold-
   await page.goto('/workroom/blanks');
   const tee = page.getByRole('region', { name: 'Tee' });
   await expect(tee.getByRole('table')).toContainText('sold out');
-  await expect(tee.getByRole('table')).toContainText('low: 1 left');
+  await expect(tee.getByRole('table')).toContainText(/low: \d+ left/);
   // a count changed and saved: the mark follows
   await tee.getByLabel('10 in Mint green').fill('0');
   await tee.getByRole('button', { name: 'Save stock' }).click();
