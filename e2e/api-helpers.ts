@@ -71,6 +71,13 @@ export async function addToCartApi(page: Page, slug: string, name: string): Prom
     choices: {
       texts: { [field.id]: { text: name, fontId: field.defaultFontId ?? field.fontIds[0], letterHeightMm: field.defaultLetterHeightMm } },
       motifId: motif ? motif.motifId : null,
+      // a listing with sizes: the first size in stock in the shop's first colour
+      ...(l.blankOffer
+        ? {
+            colourId: l.blankOffer.defaultColourId,
+            sizeId: l.blankOffer.sizes.find((s: { id: string }) => !l.blankOffer.soldOut.includes(`${s.id}:${l.blankOffer.defaultColourId}`))?.id,
+          }
+        : {}),
     },
   });
 }

@@ -83,6 +83,8 @@ export async function addParentCart(
   await page.goto('/search?q=rocket');
   await press(page.getByRole('link', { name: /Rocket name tee for kids/ }).first());
   const form2 = page.getByRole('form', { name: 'Personalise this item' });
+  // the tee comes in sizes: one is picked (no size is chosen for the shopper)
+  await press(form2.getByRole('group', { name: 'Size' }).locator('label').filter({ hasText: /^4T$/ }));
   await form2.getByLabel('Name', { exact: true }).fill('Theo');
   await press(form2.getByRole('button', { name: /Add to cart/ }));
   await expect(page.getByText(/Added to your cart with “Theo”/)).toBeVisible();

@@ -5,6 +5,7 @@ import { sql } from 'drizzle-orm';
 import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import type { WeedingRates } from '../../shared/business/labour.ts';
 import type { StoredMotifGeometry } from '../../shared/engine/motif.ts';
+import type { BlankColour, BlankSize } from '../../shared/schemas/blanks.ts';
 import type { LineSnapshot } from '../../shared/schemas/cart.ts';
 import type { PricedCheckout, ShipTo } from '../../shared/schemas/checkout.ts';
 import type { ListingContent } from '../../shared/schemas/listing.ts';
@@ -644,4 +645,62 @@ export const worksheetJobs = sqliteTable(
     updatedAt: integer('updated_at').notNull(),
   },
   (t) => [index('worksheet_jobs_state_idx').on(t.state, t.createdAt)],
+);
+
+// ---------------------------------------------------------------- blanks: types, stock, holds
+/**
+ * A shop's blank type (tee, tote, …): sizes and colours as JSON rows with stable ids, checked by
+ * shared/schemas/blanks.ts before they are written.
+ */
+export const blankTypes = sqliteTable(
+  'blank_types',
+  {
+    id: id(),
+    shopId: text('shop_id')
+      .notNull()
+      .references(() => shops.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    /** the engine blank kind it is drawn and placed as */
+    shape: text('shape').notNull(),
+    sizes: json<BlankSize[]>('sizes').notNull(),
+    colours: json<BlankColour[]>('colours').notNull(),
+    createdAt: createdAt(),
+    updatedAt: integer('updated_at').notNull(),
+  },
+  (t) => [index('blank_types_shop_idx').on(t.shopId)],
+);
+
+/** Items in stock per blank type × size × colour; `quantity` is what is free to sell (holds already taken out). */
+export const blankStock = sqliteTable(
+  'blank_stock',
+  {
+    blankTypeId: text('blank_type_id')
+      .notNull()
+      .references(() => blankTypes.id, { onDelete: 'cascade' }),
+    sizeId: text('size_id').notNull(),
+    colourId: text('colour_id').notNull(),
+    quantity: integer('quantity').notNull().default(0),
+    lowStock: integer('low_stock').notNull().default(3),
+  },
+  (t) => [uniqueIndex('blank_stock_uq').on(t.blankTypeId, t.sizeId, t.colourId)],
+);
+
+/**
+ * Stock taken out for a checkout while its payment page is open: `held` → `sold` when it is paid,
+ * `held` → `released` (the count goes back) when the payment session expires or is replaced.
+ */
+export const stockHolds = sqliteTable(
+  'stock_holds',
+  {
+    id: id(),
+    checkoutId: text('checkout_id').notNull(),
+    blankTypeId: text('blank_type_id').notNull(),
+    sizeId: text('size_id').notNull(),
+    colourId: text('colour_id').notNull(),
+    quantity: integer('quantity').notNull(),
+    /** held | sold | released */
+    state: text('state').notNull().default('held'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('stock_holds_checkout_idx').on(t.checkoutId)],
 );

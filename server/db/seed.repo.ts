@@ -33,4 +33,6 @@ export const seedRepo = {
   ordersOfCheckout: (db: Db, checkoutId: string) => db.select().from(orders).where(eq(orders.checkoutId, checkoutId)).orderBy(orders.number).all(),
   linesOf: (db: Db, orderId: string) => db.select().from(orderLines).where(eq(orderLines.orderId, orderId)).all(),
   userEmail: (db: Db, userId: string) => db.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, userId)).get(),
+  /** the demo blanks (seed-blanks.ts) give a listing its sizes and colours in both copies */
+  setListingContent: (db: Db, id: string, content: NonNullable<(typeof listings.$inferSelect)['live']>) => db.update(listings).set({ draft: content, live: content }).where(eq(listings.id, id)).run(),
 };

@@ -4,6 +4,7 @@ import crypto from 'node:crypto';
 import type { AppDeps } from '../deps.ts';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts.ts';
 import { seedRepo } from './seed.repo.ts';
+import { seedBlanks } from './seed-blanks.ts';
 import { seedCatalog } from './seed-catalog.ts';
 import type { SeedContext } from './seed-context.ts';
 import { seedOffers } from './seed-offers.ts';
@@ -85,4 +86,6 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
   await seedOrders(deps, ctx);
   seedOffers(deps, ctx);
   await seedReviews(deps, ctx);
+  // after the demo orders (bought before the shops counted sizes and colours)
+  seedBlanks(deps, ctx);
 }

@@ -2,6 +2,7 @@ import type { Router } from 'express';
 import type { AppDeps } from '../deps.ts';
 import { accountRouter } from './account/index.ts';
 import { adminMailRouter } from './admin/index.ts';
+import { blanksRouter } from './blanks/index.ts';
 import { businessRouter } from './business/index.ts';
 import { cartRouter } from './cart/index.ts';
 import { catalogRouter, catalogSearchRouter } from './catalog/index.ts';
@@ -43,6 +44,7 @@ export function featureRouters(deps: AppDeps): { raw: Mounted[]; json: Mounted[]
       { path: '/api/shop', router: shopsRouter(deps) },
       { path: '/api/materials', router: materialsRouter(deps) },
       { path: '/api/seller/listings', router: listingsRouter(deps) },
+      { path: '/api/seller/blanks', router: blanksRouter(deps) },
       { path: '/api/uploads', router: uploads.uploads },
       { path: '/api/motifs', router: uploads.motifs },
       { path: '/api/moderation', router: moderationRouter(deps) },

@@ -131,9 +131,36 @@ export function fitText(registry: FontRegistry, input: FitTextInput, limits: Fit
   }
   const warnings = layoutWarnings(layout, {
     letterHeightMm: h,
-    minLetterHeightMm: limits.minLetterHeightMm ?? font.minLetterHeightMm,
+    // a listing may ask for larger letters than the font needs, never for smaller ones
+    minLetterHeightMm: Math.max(limits.minLetterHeightMm ?? 0, font.minLetterHeightMm),
     maxChars: limits.maxChars,
     shrunk: h < chosen,
   });
   return { layout, scale: h / chosen, letterHeightMm: h, warnings };
+}
+
+/**
+ * The fit warning for a blank size: the name comes out below the smallest letter height at the
+ * chosen size. Names the size and what would help: the smallest larger size offered where it fits
+ * (with the letter height it gets there), or, when none does, a shorter text, a narrower font or a
+ * smaller letter height on a shorter line.
+ */
+export function sizeFitWarning(at: {
+  text: string;
+  sizeLabel: string;
+  letterHeightMm: number;
+  minLetterHeightMm: number;
+  /** the first larger size offered where the text is at least the minimum, or null */
+  larger: { label: string; letterHeightMm: number } | null;
+}): Omit<TextWarning, 'code'> & { code: 'size_too_small' } {
+  const h = at.letterHeightMm.toFixed(1);
+  const help = at.larger
+    ? `Choose size ${at.larger.label} or larger, where it fits at ${at.larger.letterHeightMm.toFixed(1)} mm, or a smaller letter height with a shorter name.`
+    : 'No size offered fits it: choose a shorter name, a narrower font or a smaller letter height on a shorter line.';
+  return {
+    code: 'size_too_small',
+    message: `At size ${at.sizeLabel}, “${at.text.trim()}” comes out at ${h} mm letters, below the ${at.minLetterHeightMm} mm this item needs. ${help}`,
+    letterHeightMm: at.letterHeightMm,
+    minLetterHeightMm: at.minLetterHeightMm,
+  };
 }

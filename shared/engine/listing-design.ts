@@ -9,6 +9,7 @@
  */
 
 // type-only: shared/schemas imports the engine at run time, not the other way round
+import type { DesignBlankChoice, DesignSize } from '../schemas/blanks.ts';
 import type { Choices, ListingContent } from '../schemas/listing.ts';
 import { type Blank, defaultBlank } from './blanks.ts';
 import type { ComposeInput, FieldDef, MaterialKind } from './compose.ts';
@@ -39,20 +40,26 @@ export type ListingDesign = {
 
 export const asMaterialKind = (k: string): MaterialKind => ((MATERIAL_KINDS as readonly string[]).includes(k) ? (k as MaterialKind) : 'smooth');
 
-/** The blank as the engine sees it: the kind's drawn size with the listing's own print area. */
-export function blankFor(content: { blank: DesignBlank }): Blank {
+export type { DesignBlankChoice, DesignSize };
+
+/**
+ * The blank as the engine sees it: the kind's drawn size with the listing's own print area, or the
+ * chosen size's print area and top offset when the listing offers sizes.
+ */
+export function blankFor(content: { blank: DesignBlank }, size?: DesignSize | null): Blank {
   const base = defaultBlank(content.blank.kind) ?? defaultBlank('tote')!;
+  const area = size ?? content.blank;
   return {
     ...base,
     name: content.blank.label || base.name,
-    printArea: { widthMm: content.blank.widthMm, heightMm: content.blank.heightMm },
-    topOffsetMm: content.blank.topOffsetMm,
+    printArea: { widthMm: area.widthMm, heightMm: area.heightMm },
+    topOffsetMm: area.topOffsetMm,
     // the seller's print area decides how far down the design may go
-    maxDesignBottomMm: Math.max(base.maxDesignBottomMm, content.blank.topOffsetMm + content.blank.heightMm),
+    maxDesignBottomMm: Math.max(base.maxDesignBottomMm, area.topOffsetMm + area.heightMm),
   };
 }
 
-export function listingDesign(content: DesignContent, choices: Choices, lookups: DesignLookups): ListingDesign {
+export function listingDesign(content: DesignContent, choices: Choices, lookups: DesignLookups, blankChoice?: DesignBlankChoice | null): ListingDesign {
   const p = content.personalisation;
   const fields: FieldDef[] = [];
   const engineChoices: ComposeInput['choices'] = {};
@@ -75,7 +82,7 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
     fields.push({
       kind: 'motif',
       id: 'motif',
-      heightMm: Math.min(content.blank.heightMm * 0.55, 120),
+      heightMm: Math.min((blankChoice?.size ?? content.blank).heightMm * 0.55, 120),
       materialKind: 'smooth',
       options: [{ id: motif.id, geometry: motif.geometry, layers }],
     });
@@ -97,6 +104,7 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
       letterHeightMm,
       maxLetterHeightMm: f.defaultLetterHeightMm * 2,
       maxChars: f.maxLength,
+      ...(f.minLetterHeightMm ? { minLetterHeightMm: f.minLetterHeightMm } : {}),
       materialKind: asMaterialKind(m.kind),
       colour: m.colourHex,
       ...(outlineMat && p.outline ? { outline: { offsetMm: p.outline.offsetMm, materialKind: asMaterialKind(outlineMat.kind), colour: outlineMat.colourHex } } : {}),
@@ -108,6 +116,9 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
     summary.push({ label: `${f.label} colour`, value: `${m.colourName} (${m.kind})` });
   }
   if (outlineMat) summary.push({ label: 'Outline colour', value: `${outlineMat.colourName} (${outlineMat.kind})` });
+  // the blank's size and colour lead the summary: cart, order, proof and e-mails show them first
+  if (blankChoice?.colour) summary.unshift({ label: `${blankChoice.noun} colour`, value: blankChoice.colour.name });
+  if (blankChoice?.size) summary.unshift({ label: 'Size', value: blankChoice.size.label });
 
-  return { input: fields.length === 0 ? null : { blank: blankFor(content), fields, choices: engineChoices }, summary, pieceMaterial };
+  return { input: fields.length === 0 ? null : { blank: blankFor(content, blankChoice?.size), fields, choices: engineChoices }, summary, pieceMaterial };
 }

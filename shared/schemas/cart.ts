@@ -33,7 +33,8 @@ export type LineSnapshot = {
   listingSlug: string;
   shopId: string;
   currency: string;
-  blank: { kind: string; label: string; widthMm: number; heightMm: number };
+  /** the print area used; with a blank offer also the chosen size and colour (blankChoiceLabel reads them) */
+  blank: { kind: string; label: string; widthMm: number; heightMm: number; blankTypeId?: string; sizeId?: string; sizeLabel?: string; colourId?: string; colourName?: string; colourHex?: string };
   choices: z.output<typeof choicesSchema>;
   /** human-readable personalisation, e.g. [{ label: 'Name', value: 'Mira' }, { label: 'Name colour', value: 'Glitter gold' }] */
   summary: Array<{ label: string; value: string }>;

@@ -1,6 +1,7 @@
 /** The public catalogue: search query, list items, the listing page and the public shop page. */
 import { z } from 'zod';
 import type { StoredMotifGeometry } from '../engine/motif.ts';
+import type { ResolvedBlankOffer } from './blanks.ts';
 import { blankKindSchema, type ListingContent, occasionSchema } from './listing.ts';
 import { type Page, pageQuery, pageSchema } from './pagination.ts';
 import type { RatingSummary } from './review.ts';
@@ -79,6 +80,8 @@ export type ListingPage = {
   safetyNotes: string[] | null;
   /** average and count of the listing's visible reviews (for the page and a Product's AggregateRating) */
   rating: RatingSummary;
+  /** the sizes and colours on offer from the shop's blank type, with what is sold out (null: one plain blank) */
+  blankOffer: ResolvedBlankOffer | null;
 };
 
 /** Care card for buyers (common practice, no published source; DEVELOPERS.md, "Care card and safety notes"). */

@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { DEFAULT_BLANKS, type BlankKind as EngineBlankKind } from '../engine/blanks.ts';
 import { FONT_IDS } from '../engine/font-catalog.ts';
+import { listingBlankOfferSchema, offerColour, offerSize, type ResolvedBlankOffer, stockKey } from './blanks.ts';
 import { pageQuery } from './pagination.ts';
 
 // ---------------------------------------------------------------- occasions (shoppers browse by these)
@@ -99,6 +100,8 @@ export const textFieldSchema = z
       .max(FONT_IDS.length),
     defaultFontId: z.enum(FONT_IDS, { error: 'Pick a font from the list.' }).optional(),
     defaultLetterHeightMm: mm('letter height', 5, 200).default(50),
+    /** the smallest letter height this item should have (larger than the font's own minimum); optional */
+    minLetterHeightMm: mm('smallest letter height', 5, 100).optional(),
     required: z.boolean().default(true),
     colourChoices: colourChoices.min(1, 'Offer at least one colour.'),
   })
@@ -175,6 +178,8 @@ export const listingInputSchema = z.object({
   photoIds: z.array(id('photo')).max(8, 'At most 8 photos.').default([]),
   hasSmallDecorations: z.boolean().default(false),
   personalisation: personalisationSchema,
+  /** the shop's blank type and the sizes and colours this listing offers (null: the plain blank above) */
+  blankOffer: listingBlankOfferSchema.nullable().default(null),
   /** workroom costing (the seller's own figures; never shown to shoppers) */
   blankCostMinor: minor('blank cost').default(0),
   minutesPerLayer: z.number().min(0).max(240).default(0),
@@ -207,6 +212,9 @@ export const choicesSchema = z.object({
   motifId: z.string().max(64).nullable().default(null),
   motifColours: z.record(z.string().max(64), z.string().max(64)).default({}),
   outlineMaterialId: z.string().max(64).nullable().default(null),
+  /** the blank's size and colour (listings with a blank offer) */
+  sizeId: z.string().max(64).nullable().default(null),
+  colourId: z.string().max(64).nullable().default(null),
 });
 export type ChoicesInput = z.input<typeof choicesSchema>;
 export type Choices = z.output<typeof choicesSchema>;
@@ -236,10 +244,15 @@ export function layersForChoices(content: PricedContent, choices: Choices): stri
   return used;
 }
 
-/** Price in minor units: base price plus the extra-layer price for every layer after the first. */
-export function priceForChoices(content: PricedContent, choices: Choices): number {
+/**
+ * Price in minor units: base price plus the extra-layer price for every layer after the first,
+ * plus the chosen size's price difference (when the listing offers sizes: `offer`, resolved from the
+ * shop's blank type by the server, or as the listing page carries it).
+ */
+export function priceForChoices(content: PricedContent, choices: Choices, offer?: Pick<ResolvedBlankOffer, 'sizes'> | null): number {
   const layers = layersForChoices(content, choices).length;
-  return content.basePriceMinor + content.extraLayerPriceMinor * Math.max(0, layers - 1);
+  const sizeDiff = offerSize(offer, choices.sizeId)?.priceDiffMinor ?? 0;
+  return content.basePriceMinor + content.extraLayerPriceMinor * Math.max(0, layers - 1) + sizeDiff;
 }
 
 /**
@@ -247,9 +260,16 @@ export function priceForChoices(content: PricedContent, choices: Choices): numbe
  * fonts, colours and motifs. Returns field messages keyed like the form (`texts.name.text`);
  * empty when all is well. Glyph coverage and minimum letter height are the engine's checks.
  */
-export function checkChoices(content: PricedContent, choices: Choices): Record<string, string> {
+export function checkChoices(content: PricedContent, choices: Choices, offer?: ResolvedBlankOffer | null): Record<string, string> {
   const p = content.personalisation;
   const errs: Record<string, string> = {};
+  if (offer) {
+    const size = offerSize(offer, choices.sizeId);
+    const colour = offerColour(offer, choices.colourId);
+    if (!size) errs.sizeId = choices.sizeId ? 'Pick one of the sizes offered.' : 'Pick a size.';
+    if (!colour) errs.colourId = choices.colourId ? 'Pick one of the colours offered.' : `Pick a ${offer.name.toLowerCase()} colour.`;
+    if (size && colour && offer.soldOut.includes(stockKey(size.id, colour.id))) errs.sizeId = `Size ${size.label} in ${colour.name.toLowerCase()} is sold out. Pick another size or colour.`;
+  }
   const fieldIds = new Set(p.textFields.map((f) => f.id));
   for (const k of Object.keys(choices.texts)) if (!fieldIds.has(k)) errs[`texts.${k}`] = 'This listing has no such text field.';
   for (const f of p.textFields) {

@@ -124,6 +124,8 @@ export type WorkLine = {
   quantity: number;
   /** the personalisation text(s), joined, for the table */
   text: string;
+  /** the blank's size and colour, "4T · Heather grey" (null when the listing offers none) */
+  blankChoice: string | null;
   buyerName: string;
   paidAt: number;
   version: number;

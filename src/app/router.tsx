@@ -55,6 +55,7 @@ export const router = createBrowserRouter([
               { path: paths.seller.shop.path, lazy: async () => ({ Component: (await import('./routes/seller/shop-settings.tsx')).ShopSettingsPage }) },
               { path: paths.seller.offers.path, lazy: async () => ({ Component: (await import('./routes/seller/offers.tsx')).OffersPage }) },
               { path: paths.seller.materials.path, lazy: async () => ({ Component: (await import('./routes/seller/materials.tsx')).MaterialsPage }) },
+              { path: paths.seller.blanks.path, lazy: async () => ({ Component: (await import('./routes/seller/blanks.tsx')).BlanksPage }) },
               { path: paths.seller.listings.path, lazy: async () => ({ Component: (await import('./routes/seller/listings.tsx')).SellerListingsPage }) },
               { path: paths.seller.newListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },
               { path: paths.seller.editListing.path, lazy: async () => ({ Component: (await import('./routes/seller/listing-edit.tsx')).ListingEditPage }) },

@@ -42,6 +42,7 @@ export const paths = {
   seller: {
     shop: { path: '/workroom/shop', getHref: () => '/workroom/shop' },
     materials: { path: '/workroom/materials', getHref: () => '/workroom/materials' },
+    blanks: { path: '/workroom/blanks', getHref: () => '/workroom/blanks' },
     listings: { path: '/workroom/listings', getHref: () => '/workroom/listings' },
     offers: { path: '/workroom/offers', getHref: () => '/workroom/offers' },
     newListing: { path: '/workroom/listings/new', getHref: () => '/workroom/listings/new' },

@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { getFontRegistry } from '../../server/integrations/fonts.ts';
 import { DEFAULT_BLANKS } from '../../shared/engine/blanks.ts';
 import { compose } from '../../shared/engine/compose.ts';
+import { blankFor } from '../../shared/engine/listing-design.ts';
 import { LINE_STATES } from '../../shared/schemas/order.ts';
 import { DesignOnBlank, pictureOfBlank, pictureOfLineBlank } from '../../src/components/design/design-on-blank.tsx';
 import { LineStateBadge } from '../../src/components/ui/line-state-badge.tsx';
@@ -48,6 +49,29 @@ describe('DesignOnBlank', () => {
     const html = renderToStaticMarkup(createElement(DesignOnBlank, { blank: picture, size: 96, label: 'Preview' }));
     expect(attrs(html, 'rect').some((r) => r['stroke-dasharray'])).toBe(false);
     expect(html).toContain('width="96"');
+  });
+
+  it("when a size and a blank colour are chosen, then the drawing takes that size's print area (where compose puts the design) and is filled in that colour", () => {
+    const size = { label: '4T', widthMm: 160, heightMm: 180, topOffsetMm: 45 };
+    const blank = blankFor({ blank: { kind: 'kids_tee', label: 'Tee', widthMm: 200, heightMm: 200, topOffsetMm: 50 } }, size);
+    const item = compose(
+      reg,
+      {
+        blank,
+        fields: [{ kind: 'text', id: 'name', fontId: 'baloo-bold', letterHeightMm: 60, maxLetterHeightMm: 120, maxChars: 14, materialKind: 'smooth', colour: '#1b2440' }],
+        choices: { name: { text: 'Bartholomew' } },
+      },
+      { weeding: 'none' },
+    );
+    const html = renderToStaticMarkup(createElement(DesignOnBlank, { blank: pictureOfBlank(blank, '#8d8f91'), label: 'x' }));
+    const area = attrs(html, 'rect').find((r) => r['stroke-dasharray'])!;
+    expect([Number(area.width), Number(area.height), Number(area.y)]).toEqual([160, 180, 45]);
+    expect(item.bboxMm.maxX - item.bboxMm.minX).toBeCloseTo(160, 0);
+    expect(item.bboxMm.minX).toBeCloseTo(Number(area.x), 0);
+    expect(attrs(html, 'path')[0]!.fill).toBe('#8d8f91');
+    // a line snapshot keeps its colour too; an unusable value falls back to the plain cloth
+    expect(renderToStaticMarkup(createElement(DesignOnBlank, { blank: pictureOfLineBlank({ kind: 'tote', colourHex: '#1f2a44' }) }))).toContain('fill="#1f2a44"');
+    expect(renderToStaticMarkup(createElement(DesignOnBlank, { blank: pictureOfLineBlank({ kind: 'tote', colourHex: 'red;x' }) }))).not.toContain('red;x');
   });
 
   it('when no label is given, then the drawing is hidden from assistive technology; with one it is a named image', () => {

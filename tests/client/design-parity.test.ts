@@ -27,7 +27,7 @@ afterAll(async () => t?.close());
 
 function choicesFor(l: ListingPage, text: string, pick: 'first' | 'last'): Choices {
   const p = l.content.personalisation;
-  const c = defaultChoices(p);
+  const c = defaultChoices(p, l.blankOffer);
   const picked = <T>(xs: readonly T[]) => at(xs, pick === 'first' ? 0 : -1);
   for (const f of p.textFields) {
     c.texts[f.id] = { text: [...text].slice(0, f.maxLength).join(''), fontId: picked(f.fontIds), letterHeightMm: f.defaultLetterHeightMm };
@@ -38,6 +38,12 @@ function choicesFor(l: ListingPage, text: string, pick: 'first' | 'last'): Choic
   c.motifColours = {};
   for (const l2 of m?.layers ?? []) if (l2.mode === 'shopper' && l2.colourChoices?.length) c.motifColours[l2.layerId] = picked(l2.colourChoices);
   if (p.outline) c.outlineMaterialId = picked(p.outline.colourChoices);
+  // a listing with sizes and colours: the first or last colour, and the first or last size in stock in it
+  const offer = l.blankOffer;
+  if (offer) {
+    c.colourId = picked(offer.colours).id;
+    c.sizeId = picked(offer.sizes.filter((s) => !offer.soldOut.includes(`${s.id}:${c.colourId}`))).id;
+  }
   return c;
 }
 
@@ -64,7 +70,7 @@ describe('personaliser design = cart snapshot', () => {
         const line = cart.shops.flatMap((s) => s.lines).at(-1)!;
         expect(line.snapshot.geometry.pieces.map((p) => p.d)).toEqual(item.pieces.map((p) => p.path));
         expect(line.snapshot.geometry.pieces.map((p) => p.colourHex)).toEqual(item.pieces.map((p) => p.colour));
-        expect(line.unitPriceMinor).toBe(priceForChoices(l.content, choices));
+        expect(line.unitPriceMinor).toBe(priceForChoices(l.content, choices, l.blankOffer));
         checked += 1;
       }
     }

@@ -182,6 +182,7 @@ export async function makeSweepWorld() {
   );
   if (photo.status !== 201) throw new Error(`upload: ${photo.status}`);
   const material = one<{ id: string }>(sqlite, 'select id from materials where shop_id = ? order by created_at limit 1', fernShop.id);
+  const blankType = one<{ id: string }>(sqlite, 'select id from blank_types where shop_id = ? limit 1', fernShop.id);
   const liveListing = one<{ id: string; slug: string }>(sqlite, "select id, slug from listings where shop_id = ? and state = 'live' limit 1", fernShop.id);
 
   const danaOrders = all<{ id: string; number: string }>(sqlite, 'select id, number from orders where buyer_id = ? and shop_id = ? order by created_at', danaId, fernShop.id);
@@ -256,6 +257,7 @@ export async function makeSweepWorld() {
     motif: motif.id,
     upload: String(photo.body.upload.id),
     material: material.id,
+    blankType: blankType.id,
     orderA: approved.order_id,
     orderB: danaOrders[danaOrders.length - 1]!.id,
     approvedLine: approved.id,
@@ -301,7 +303,9 @@ export async function makeSweepWorld() {
     q(`select * from account where user_id in (${inList(users.length)}) order by id`, ...users);
     q(`select id, user_id, expires_at from session where user_id in (${inList(users.length)}) order by id`, ...users);
     for (const tb of ['shops']) q(`select * from ${tb} where id in (${inList(shopIds.length)}) order by id`, ...shopIds);
-    for (const tb of ['materials', 'motifs', 'uploads', 'listings', 'cut_sheets', 'ledger']) q(`select * from ${tb} where shop_id in (${inList(shopIds.length)}) order by id`, ...shopIds);
+    for (const tb of ['materials', 'motifs', 'uploads', 'listings', 'cut_sheets', 'ledger', 'blank_types'])
+      q(`select * from ${tb} where shop_id in (${inList(shopIds.length)}) order by id`, ...shopIds);
+    q('select s.* from blank_stock s join blank_types b on b.id = s.blank_type_id where b.shop_id = ? order by s.blank_type_id, s.size_id, s.colour_id', fernShop.id);
     q('select * from orders where buyer_id = ? or shop_id = ? order by id', danaId, fernShop.id);
     q('select l.* from order_lines l join orders o on o.id = l.order_id where o.buyer_id = ? or o.shop_id = ? order by l.id', danaId, fernShop.id);
     q('select v.* from line_versions v join order_lines l on l.id = v.line_id join orders o on o.id = l.order_id where o.buyer_id = ? order by v.id', danaId);

@@ -19,6 +19,12 @@ const SECRET = 'whsec_fault_test';
 const KEY = 'sk_test_fault_test';
 const PASSWORD = 'fault-test-password-1';
 const SHOPPERS = 8;
+
+type Offer = { defaultColourId: string; sizes: Array<{ id: string }>; soldOut: string[] };
+const blankChoice = (o: Offer, i: number) => {
+  const inStock = o.sizes.filter((s) => !o.soldOut.includes(`${s.id}:${o.defaultColourId}`));
+  return { colourId: o.defaultColourId, sizeId: inStock[i % inStock.length]!.id };
+};
 /** up: any answer below 500 (the fake's API answers 401 without a key) */
 const answers = (res: Response) => res.status < 500;
 
@@ -90,7 +96,12 @@ describe('checkout survives a killed server', () => {
             body: {
               listingId: l.id,
               quantity: 1,
-              choices: { texts: { [f.id]: { text: ['Mira', 'Theo', 'Kai', 'Leon'][i % 4], fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm } }, motifId: m ? m.motifId : null },
+              choices: {
+                texts: { [f.id]: { text: ['Mira', 'Theo', 'Kai', 'Leon'][i % 4], fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm } },
+                motifId: m ? m.motifId : null,
+                // a listing with sizes: the shop's first colour, sizes in turn among those in stock (each shopper holds one)
+                ...(l.blankOffer ? blankChoice(l.blankOffer, i) : {}),
+              },
             },
           });
           expect(add.status, JSON.stringify(add.body)).toBe(201);

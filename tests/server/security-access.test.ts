@@ -68,6 +68,15 @@ const SPECS: Record<string, Spec> = {
   'POST /api/shop/logo': S('mine'),
   'GET /api/materials/press-defaults': S('mine'),
   'GET /api/materials': S('mine'),
+  'GET /api/seller/blanks': S('mine'),
+  'POST /api/seller/blanks': S('mine', {
+    body: () => ({ name: 'Sweep bag', shape: 'tote', sizes: [{ label: 'One', widthMm: 200, heightMm: 200, topOffsetMm: 50, priceDiffMinor: 0 }], colours: [{ name: 'Sweep', hex: '#112233' }] }),
+  }),
+  'PUT /api/seller/blanks/:id': S('owner', {
+    url: (i) => `/api/seller/blanks/${i.blankType}`,
+    body: () => ({ name: 'Taken', shape: 'tote', sizes: [{ label: 'One', widthMm: 200, heightMm: 200, topOffsetMm: 50, priceDiffMinor: 0 }], colours: [{ name: 'Sweep', hex: '#112233' }] }),
+  }),
+  'PUT /api/seller/blanks/:id/stock': S('owner', { url: (i) => `/api/seller/blanks/${i.blankType}/stock`, body: () => ({ rows: [] }) }),
   'POST /api/materials': S('mine', { body: () => ({ kind: 'smooth', colourName: 'Sweep', colourHex: '#112233', rollWidthMm: 305, stockMm: 1000 }) }),
   'GET /api/materials/:id': S('owner', { url: (i) => `/api/materials/${i.material}`, owner: 'fern' }),
   'PATCH /api/materials/:id': S('owner', { url: (i) => `/api/materials/${i.material}`, body: () => ({ stockMm: 1 }) }),

@@ -272,7 +272,7 @@ export async function priceCheck(deps: BusinessDeps & Pick<AppDeps, 'pool'>, sho
   const fees = feesOf(deps.env);
   const prices = priceMap(matRows);
   const run = async (name: (maxLength: number) => string) => {
-    const choices: Choices = { texts: {}, textColours: {}, motifId: p.motifChoices[0]?.motifId ?? null, motifColours: {}, outlineMaterialId: null };
+    const choices: Choices = { texts: {}, textColours: {}, motifId: p.motifChoices[0]?.motifId ?? null, motifColours: {}, outlineMaterialId: null, sizeId: null, colourId: null };
     p.textFields.forEach((f, i) => {
       if (i === 0 || f.required) choices.texts[f.id] = { text: name(f.maxLength), fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm };
     });

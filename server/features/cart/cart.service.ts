@@ -1,12 +1,14 @@
 // Cart rules: one cart per signed-in user, a guest cart by cookie, merged on the first signed-in
 // call; lines priced by the server from the live listing (the posted body has no price at all).
 import crypto from 'node:crypto';
+import { blankDefaults } from '../../../shared/schemas/blanks.ts';
 import type { AddCartLineInput, Cart, CartLine, CartShop } from '../../../shared/schemas/cart.ts';
 import { addCartLineSchema } from '../../../shared/schemas/cart.ts';
 import { type ListingContent, materialIdsOf } from '../../../shared/schemas/listing.ts';
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { conflict, notFound } from '../../http/app-error.ts';
+import { resolveOffer } from '../blanks/index.ts';
 import { type CartRow, cartRepo } from './cart.repo.ts';
 import { buildSnapshotOffThread, readLiveContent, snapshotLookups, unitPrice } from './design.ts';
 
@@ -82,7 +84,7 @@ export function cartView(db: Db, cart: CartRow | null): Cart {
     const snap = l.snapshot;
     const row = rows.get(l.listingId);
     const content = row ? onSale(row) : null;
-    const price = content ? unitPrice(content, snap.choices) : snap.unitPriceMinor;
+    const price = content ? unitPrice(content, snap.choices, row && resolveOffer(db, row.shop.id, content.blankOffer)) : snap.unitPriceMinor;
     const line: CartLine = {
       id: l.id,
       listingId: l.listingId,
@@ -150,14 +152,17 @@ export async function addLine(deps: CartDeps & Pick<AppDeps, 'pool'>, cart: Cart
     ),
   );
 
+  const offer = resolveOffer(db, row.shop.id, content.blankOffer);
   // composed in the worker pool: the request thread never runs the geometry
   const snapshot = await buildSnapshotOffThread({
     pool: deps.pool,
     listing: { id: row.listing.id, slug: row.listing.slug, shopId: row.shop.id, currency: row.listing.currency },
     content,
-    choices: input.choices,
+    // a one-size blank's size and the shop's default colour when the request names none
+    choices: { ...input.choices, ...blankDefaults(offer, input.choices) },
     materials,
     motifs,
+    offer,
   });
 
   const existing = cartView(db, cart);

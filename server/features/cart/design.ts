@@ -5,6 +5,7 @@
 import { type ComposedItem, ComposeError, type ComposeInput, compose } from '../../../shared/engine/compose.ts';
 import type { FontRegistry } from '../../../shared/engine/fonts.ts';
 import { type DesignMaterial, type DesignMotif, listingDesign } from '../../../shared/engine/listing-design.ts';
+import { blankChoiceOf, offerColour, offerSize, type ResolvedBlankOffer } from '../../../shared/schemas/blanks.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { type Choices, checkChoices, type ListingContent, layersForChoices, materialIdsOf, type Personalisation, personalisationSchema, priceForChoices } from '../../../shared/schemas/listing.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
@@ -37,7 +38,7 @@ export function snapshotLookups(p: Personalisation, materialRows: readonly Mater
 }
 
 /** Price of one item from the live listing and the choices (never from the client). */
-export const unitPrice = (content: ListingContent, choices: Choices) => priceForChoices(content, choices);
+export const unitPrice = (content: ListingContent, choices: Choices, offer?: ResolvedBlankOffer | null) => priceForChoices(content, choices, offer);
 
 type SnapshotArgs = {
   registry: FontRegistry;
@@ -46,6 +47,8 @@ type SnapshotArgs = {
   choices: Choices;
   materials: Map<string, MaterialInfo>;
   motifs: Map<string, MotifInfo>;
+  /** the listing's sizes and colours resolved from the shop's blank type (blanks feature), or none */
+  offer?: ResolvedBlankOffer | null;
 };
 
 /**
@@ -75,22 +78,27 @@ export async function buildSnapshotOffThread(args: Omit<SnapshotArgs, 'registry'
 }
 
 function prepare(args: Omit<SnapshotArgs, 'registry'>) {
-  const { content, choices, materials, motifs } = args;
-  const errs = checkChoices(content, choices);
+  const { content, choices, materials, motifs, offer } = args;
+  const errs = checkChoices(content, choices, offer);
   if (Object.keys(errs).length > 0) throw badRequest('Some of the personalisation needs attention.', prefix(errs));
 
-  const design = listingDesign(content, choices, {
-    material(id, key) {
-      const m = id ? materials.get(id) : undefined;
-      if (!m) throw badRequest('This colour is no longer available. Pick another.', { [`choices.${key}`]: 'This colour is no longer available. Pick another.' });
-      return m;
+  const design = listingDesign(
+    content,
+    choices,
+    {
+      material(id, key) {
+        const m = id ? materials.get(id) : undefined;
+        if (!m) throw badRequest('This colour is no longer available. Pick another.', { [`choices.${key}`]: 'This colour is no longer available. Pick another.' });
+        return m;
+      },
+      motif(id) {
+        const m = motifs.get(id);
+        if (!m) throw badRequest('This motif is no longer available. Pick another.', { 'choices.motifId': 'This motif is no longer available. Pick another.' });
+        return m;
+      },
     },
-    motif(id) {
-      const m = motifs.get(id);
-      if (!m) throw badRequest('This motif is no longer available. Pick another.', { 'choices.motifId': 'This motif is no longer available. Pick another.' });
-      return m;
-    },
-  });
+    blankChoiceOf(offer, choices),
+  );
   const { summary, pieceMaterial } = design;
   if (!design.input) throw badRequest('Add a name or pick a motif first.', { choices: 'Add a name or pick a motif first.' });
   return { summary, pieceMaterial, input: design.input as ComposeInput };
@@ -124,7 +132,7 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
     listingSlug: args.listing.slug,
     shopId: args.listing.shopId,
     currency: args.listing.currency,
-    blank: { kind: content.blank.kind, label: content.blank.label, widthMm: content.blank.widthMm, heightMm: content.blank.heightMm },
+    blank: snapshotBlank(content, args.offer, choices),
     choices,
     summary,
     geometry: {
@@ -134,7 +142,21 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
       layerCount: layersForChoices(content, choices).length,
       pieces: composed.pieces.map((pc) => ({ d: pc.path, colourHex: pc.colour, materialId: pieceMaterial.get(pc.layerId) ?? null })),
     },
-    unitPriceMinor: priceForChoices(content, choices),
+    unitPriceMinor: priceForChoices(content, choices, args.offer),
+  };
+}
+
+function snapshotBlank(content: SnapshotArgs['content'], offer: ResolvedBlankOffer | null | undefined, choices: Choices): LineSnapshot['blank'] {
+  const b = content.blank;
+  const size = offerSize(offer, choices.sizeId);
+  const colour = offerColour(offer, choices.colourId);
+  return {
+    kind: b.kind,
+    label: b.label,
+    widthMm: size?.widthMm ?? b.widthMm,
+    heightMm: size?.heightMm ?? b.heightMm,
+    ...(offer && size ? { blankTypeId: offer.blankTypeId, sizeId: size.id, sizeLabel: size.label } : {}),
+    ...(colour ? { colourId: colour.id, colourName: colour.name, colourHex: colour.hex } : {}),
   };
 }
 

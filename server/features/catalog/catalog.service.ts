@@ -6,6 +6,7 @@ import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { uploadUrl } from '../../integrations/storage.ts';
+import { resolveOffer } from '../blanks/index.ts';
 import * as repo from './catalog.repo.ts';
 import { renderDescription } from './markdown.ts';
 
@@ -96,6 +97,7 @@ export function listingPage(db: Db, slug: string, version: 'live' | 'draft', vie
     careCard: [...CARE_CARD],
     safetyNotes: content.hasSmallDecorations ? [...SMALL_PARTS_NOTES] : null,
     rating: listingRating(db, listing.id),
+    blankOffer: resolveOffer(db, shop.id, content.blankOffer),
   };
 }
 

@@ -11,6 +11,7 @@ import { AppError, badRequest, conflict, notFound } from '../../http/app-error.t
 import type { SessionUser } from '../../http/auth-guards.ts';
 import { paymentsClient } from '../../integrations/payments.ts';
 // checkout reads the cart (one-way: cart never imports checkout)
+import { type HoldItem, holdStock, releaseHolds } from '../blanks/index.ts';
 import { type CartRow, cartView, newCartVersion } from '../cart/index.ts';
 // the discount step after line pricing; a code's use is reserved with the checkout row (one-way)
 import { assertCodesApply, frozenOffers, releaseUses, reserveUses, withOffers } from '../offers/index.ts';
@@ -81,6 +82,28 @@ function freeze(view: ReturnType<typeof cartView>): PricedCheckout {
   };
 }
 
+/** The size × colour of every line whose listing offers blanks, for the stock hold. */
+function holdItemsOf(view: ReturnType<typeof cartView>): HoldItem[] {
+  return view.shops.flatMap((s) =>
+    s.lines.flatMap((l) => {
+      const b = l.snapshot.blank;
+      if (!b.blankTypeId || !b.sizeId || !b.colourId) return [];
+      const what = `${l.snapshot.listingTitle} in size ${b.sizeLabel ?? '?'}, ${(b.colourName ?? '').toLowerCase()},`;
+      return [{ blankTypeId: b.blankTypeId, sizeId: b.sizeId, colourId: b.colourId, quantity: l.quantity, what }];
+    }),
+  );
+}
+
+/** A checkout that can no longer be paid gives its stock back in the same transaction. */
+function expireAndRelease(db: CheckoutDeps['db'], checkoutId: string, at: number): void {
+  db.transaction((tx) => {
+    const t = tx as unknown as typeof db;
+    checkoutRepo.setState(t, checkoutId, 'expired');
+    releaseHolds(t, checkoutId);
+    releaseUses(t, checkoutId, at);
+  });
+}
+
 /** POST /api/checkout: opens (or finds) the Checkout Session for this version of the user's cart. */
 export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, user: Pick<SessionUser, 'id' | 'email'>, attempt = 0): Promise<CheckoutStarted> {
   const { db } = deps;
@@ -93,7 +116,8 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
   if (currencies.size > 1) throw conflict('Your cart mixes currencies; check out one currency at a time.');
   assertCodesApply(view);
 
-  // the checkout row and its codes' uses together: a code with no use left rolls both back (409)
+  // the checkout row, its codes' uses and the stock its blanks take are written together: a code with
+  // no use left or a size × colour gone to someone else rolls it all back, and the shopper is told before paying
   const c = db.transaction(
     (tx) => {
       const t = tx as unknown as Db;
@@ -109,38 +133,44 @@ export async function openCheckout(deps: CheckoutDeps, cart: CartRow | null, use
         createdAt: deps.now(),
       });
       const row = checkoutRepo.forCartVersion(t, cart.id, cart.version)!;
-      if (row.state === 'open' && row.userId === user.id) reserveUses(t, row, deps.now());
+      if (row.state === 'open' && row.userId === user.id) {
+        reserveUses(t, row, deps.now());
+        holdStock(t, row.id, holdItemsOf(view), deps.now());
+      }
       return row;
     },
     { behavior: 'immediate' },
   );
   if (c.userId !== user.id) throw notFound('That cart is not yours.');
   if (c.state === 'paid') throw conflict('This cart has been paid already. Your order is on its way to the shops.');
+  // this version's payment page expired (its stock went back): start afresh, holding stock again
+  if (c.state === 'expired' && attempt === 0) return openCheckout(deps, newCartVersion(deps, cart.id), user, 1);
 
   const stripe = paymentsClient(deps.env);
   // a payment page left open for an older version of this cart must not be paid as well
   for (const old of checkoutRepo.openForCart(db, cart.id).filter((x) => x.cartVersion < cart.version && x.providerSessionId)) {
     try {
       await stripe.checkout.sessions.expire(old.providerSessionId!);
-      checkoutRepo.setState(db, old.id, 'expired');
-      releaseUses(db, old.id, deps.now());
+      expireAndRelease(db, old.id, deps.now());
     } catch {
       // already completed or expired at the provider: its own webhook tells us which
     }
   }
+  // an older version whose payment page never opened holds stock nobody can pay for
+  for (const old of checkoutRepo.openForCart(db, cart.id).filter((x) => x.cartVersion < cart.version && !x.providerSessionId)) expireAndRelease(db, old.id, deps.now());
   let session: Stripe.Checkout.Session;
   try {
     session = await stripe.checkout.sessions.create(sessionParams(deps, c, user.email), { idempotencyKey: `checkout-${cart.id}-v${cart.version}` });
   } catch (e) {
     console.error('checkout: session create failed', e);
+    db.transaction((tx) => void releaseHolds(tx as unknown as typeof db, c.id));
     throw new AppError(502, 'payment_provider', 'We could not open the payment page just now. Nothing was charged; please try again in a moment.');
   }
   if (!c.providerSessionId) checkoutRepo.setSession(db, c.id, session.id);
 
   if (session.status === 'expired' && attempt === 0) {
     // the page for this cart version timed out: mark it and start afresh with a new version
-    checkoutRepo.setState(db, c.id, 'expired');
-    releaseUses(db, c.id, deps.now());
+    expireAndRelease(db, c.id, deps.now());
     return openCheckout(deps, newCartVersion(deps, cart.id), user, 1);
   }
   const url = session.status === 'complete' ? `${deps.env.baseUrl}/checkout/return?session_id=${session.id}` : session.url;

@@ -4,6 +4,7 @@ import { type ListingContent, type ListingState, materialIdsOf, type SellerListi
 import { type Page, pageOffset, toPage } from '../../../shared/schemas/pagination.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
+import { checkOffer } from '../blanks/index.ts';
 import { countOwn, deleteOwn, findOwn, insertListing, type ListingRow, listOwn, ownMaterials, ownMotifs, ownPhotos, slugsLike, updateOwn } from './listings.repo.ts';
 
 type Deps = { db: Db; now: () => number };
@@ -72,6 +73,7 @@ function checkReferences(db: Db, shopId: string, c: ListingContent) {
     if (!photos.has(id)) fields[`photoIds.${i}`] = 'Upload this photo to your shop first.';
   });
   if (Object.keys(fields).length) throw new AppError(400, 'invalid_input', 'Some fields need attention.', fields);
+  checkOffer(db, shopId, c.blankOffer);
 }
 
 function uniqueSlug(db: Db, title: string): string {

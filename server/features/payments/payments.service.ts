@@ -21,6 +21,7 @@ import { parseShipTo, type ShipTo } from '../../../shared/schemas/checkout.ts';
 import type { Db } from '../../db/client.ts';
 import type { AppDeps } from '../../deps.ts';
 import { isDefiniteFailure, paymentsClient, providerMessage } from '../../integrations/payments.ts';
+import { releaseHolds, sellHolds } from '../blanks/index.ts';
 import { confirmUses, releaseUses } from '../offers/index.ts';
 // payments drives orders, refunds and payouts (one-way: none of them imports payments)
 import { confirmationMail, createOrdersForCheckout, type MailOrder, newOrderMail, ordersRepo } from '../orders/index.ts';
@@ -80,6 +81,7 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       const pi = typeof session.payment_intent === 'string' ? session.payment_intent : (session.payment_intent?.id ?? null);
       if (!paymentsRepo.markPaid(t, c.id, at, pi)) return true; // paid through an earlier event
       confirmUses(t, c.id, at);
+      sellHolds(t, c.id);
       const made = createOrdersForCheckout(t, {
         checkoutId: c.id,
         buyerId: c.userId,
@@ -128,6 +130,8 @@ export async function handleEvent(deps: PaymentsDeps, event: Stripe.Event): Prom
       if (paymentsRepo.recordEvent(t, event.id, event.type, at)) {
         paymentsRepo.markExpired(t, trusted.c.id);
         releaseUses(t, trusted.c.id, at);
+        // the blanks held for a payment that can no longer be made go back on sale (unless it was paid)
+        if (paymentsRepo.checkout(t, trusted.c.id)?.state !== 'paid') releaseHolds(t, trusted.c.id);
       }
     });
     return { outcome: 'recorded', checkoutId: trusted.c.id };

@@ -2,6 +2,7 @@
 // the home page's counts and list, and one order with its timeline. Every call takes the seller's
 // shop id; a line or order of another shop is "not found".
 
+import { blankChoiceLabel } from '../../../shared/schemas/blanks.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { parseShipTo } from '../../../shared/schemas/checkout.ts';
 import type { LineState } from '../../../shared/schemas/order.ts';
@@ -26,6 +27,12 @@ export function lineMaterialIds(s: LineSnapshot): string[] {
   const out: string[] = [];
   for (const p of s.geometry.pieces) if (p.materialId && !out.includes(p.materialId)) out.push(p.materialId);
   return out;
+}
+
+/** The listing's title with the blank's size and colour, "Rocket name tee (4T · Heather grey)": cut list, packing slip, e-mails. */
+export function lineTitle(l: Pick<LineRow, 'listingTitle' | 'snapshot'>): string {
+  const b = blankChoiceLabel(l.snapshot.blank);
+  return b ? `${l.listingTitle} (${b})` : l.listingTitle;
 }
 
 export const lineText = (s: LineSnapshot) =>
@@ -54,6 +61,7 @@ export function lineViews(db: Db, shopId: string, rows: LineWithOrder[], shopMat
       listingTitle: line.listingTitle,
       quantity: line.quantity,
       text: lineText(s),
+      blankChoice: blankChoiceLabel(s.blank),
       buyerName: buyers.get(order.buyerId)?.name ?? 'A shopper',
       paidAt: order.paidAt,
       version: line.version,

@@ -12,6 +12,7 @@ import { type PersonalisationEdit, personalisationEditSchema } from '../../../sh
 import type { Db } from '../../db/client.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 // the cart's snapshot builder is the one definition of "a valid personalisation" (one-way import)
+import { resolveOffer } from '../blanks/index.ts';
 import { buildSnapshotOffThread, readLiveContent, snapshotLookups } from '../cart/index.ts';
 import { transition } from '../orders/index.ts';
 import type { WorkroomPoolDeps } from './lines.service.ts';
@@ -80,14 +81,18 @@ export async function savePersonalisation(deps: WorkroomPoolDeps, buyerId: strin
       p.motifChoices.map((m) => m.motifId),
     ),
   );
+  // the size and colour were paid for and taken from stock: a text correction keeps them (a line
+  // bought before the listing offered sizes stays without)
+  const offer = old.choices.sizeId ? resolveOffer(db, listing.shopId, content.blankOffer) : null;
   // composed in the worker pool: the request thread never runs the geometry
   const fresh = await buildSnapshotOffThread({
     pool: deps.pool,
     listing: { id: listing.id, slug: listing.slug, shopId: listing.shopId, currency: listing.currency },
     content,
-    choices,
+    choices: { ...choices, sizeId: old.choices.sizeId ?? null, colourId: old.choices.colourId ?? null },
     materials,
     motifs,
+    offer: offer && { ...offer, soldOut: [] },
   });
   // The item is paid: a correction may not add layers that would cost more than was paid.
   if (fresh.unitPriceMinor > old.unitPriceMinor) {

@@ -13,7 +13,7 @@ import { notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
 import { assertEachCanMove, transition, transitionAll } from '../orders/index.ts';
 import { listingContent, proofBlank } from './blank-view.ts';
-import { lineSnapshot, lineText, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
+import { lineSnapshot, lineText, lineTitle, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
 import { pressCardFor } from './press.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { changeRequestMail } from './workroom-mails.ts';
@@ -199,7 +199,7 @@ export async function requestChange(deps: WorkroomDeps, shopId: string, actorId:
       .send(
         changeRequestMail(
           buyer,
-          { shopName: shop?.name ?? 'The shop', orderNumber: row.order.number, orderId: row.order.id, lineTitle: row.line.listingTitle, text: lineText(lineSnapshot(row.line)), message },
+          { shopName: shop?.name ?? 'The shop', orderNumber: row.order.number, orderId: row.order.id, lineTitle: lineTitle(row.line), text: lineText(lineSnapshot(row.line)), message },
           deps.env.baseUrl,
         ),
       )

@@ -6,7 +6,7 @@ import type { WorkOrder } from '../../../shared/schemas/workroom.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, notFound } from '../../http/app-error.ts';
 import { transitionAll } from '../orders/index.ts';
-import { lineSnapshot, lineText, orderView, type WorkroomDeps } from './lines.service.ts';
+import { lineSnapshot, lineText, lineTitle, orderView, type WorkroomDeps } from './lines.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { shippedMail } from './workroom-mails.ts';
 
@@ -32,7 +32,7 @@ export async function ship(deps: WorkroomDeps, shopId: string, actorId: string, 
   const buyer = repo.users(db, [order.buyerId])[0];
   const shop = repo.shop(db, shopId);
   if (buyer) {
-    const items = lines.map((l) => `${l.quantity} × ${l.listingTitle}${lineText(lineSnapshot(l)) ? ` — ${lineText(lineSnapshot(l))}` : ''}`);
+    const items = lines.map((l) => `${l.quantity} × ${lineTitle(l)}${lineText(lineSnapshot(l)) ? ` — ${lineText(lineSnapshot(l))}` : ''}`);
     await deps.mailer
       .send(
         shippedMail(buyer, { shopName: shop?.name ?? 'The shop', orderNumber: order.number, orderId: order.id, carrier: input.carrier, trackingNumber: input.trackingNumber, items }, deps.env.baseUrl),

@@ -16,7 +16,7 @@ import { AppError, notFound } from '../../http/app-error.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 import { type Paper, worksheetInputSchema, worksheetPageCount } from '../../workers/worksheet-pdf.ts';
 import { asCutSheet } from './cut-sheets.service.ts';
-import { lineSnapshot, lineText } from './lines.service.ts';
+import { lineSnapshot, lineText, lineTitle } from './lines.service.ts';
 import { pressCardFor } from './press.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
 import { worksheetJobsRepo as jobsRepo, type WorksheetJobRow } from './worksheet-jobs.repo.ts';
@@ -144,7 +144,7 @@ export function createWorksheetJobs({ db, now, dir, builder }: { db: Db; now: ()
         o = { orderNumber: r.order.number, buyerName: buyers.get(r.order.buyerId) ?? 'A shopper', ...(shipTo ? { shipTo: shipToLines(shipTo).map((l) => l.slice(0, 200)) } : {}), lines: [] };
         orders.set(r.order.id, o);
       }
-      o.lines.push({ title: r.line.listingTitle.slice(0, 200), text: lineText(lineSnapshot(r.line)).slice(0, 500), quantity: r.line.quantity });
+      o.lines.push({ title: lineTitle(r.line).slice(0, 200), text: lineText(lineSnapshot(r.line)).slice(0, 500), quantity: r.line.quantity });
     }
     return worksheetInputSchema.parse({
       paper,
@@ -157,7 +157,7 @@ export function createWorksheetJobs({ db, now, dir, builder }: { db: Db; now: ()
       }),
       cards: rows.map((r) => ({
         orderNumber: r.order.number,
-        lineTitle: r.line.listingTitle.slice(0, 200),
+        lineTitle: lineTitle(r.line).slice(0, 200),
         text: lineText(lineSnapshot(r.line)).slice(0, 500),
         pressCard: pressCardFor(db, shopId, r, mats).card,
       })),

@@ -16,15 +16,21 @@ export type BlankPicture = {
   heightMm: number;
   /** the print area on the blank, mm from its top-left corner; left out on small thumbnails */
   printArea?: { xMm: number; yMm: number; widthMm: number; heightMm: number } | null;
+  /** the blank's colour (`#rrggbb`, a shop's blank colour); the kind's plain cloth when left out */
+  colourHex?: string | null;
 };
 
-/** An engine blank as a picture: the print area centred across, `topOffsetMm` down (shared/engine/compose.ts places it so). */
-export function pictureOfBlank(b: Pick<Blank, 'kind' | 'widthMm' | 'heightMm' | 'printArea' | 'topOffsetMm'>): BlankPicture {
+/**
+ * An engine blank as a picture: the print area centred across, `topOffsetMm` down (shared/engine/compose.ts
+ * places it so). A chosen size's print area comes in through the engine blank (blankFor); its colour as `colourHex`.
+ */
+export function pictureOfBlank(b: Pick<Blank, 'kind' | 'widthMm' | 'heightMm' | 'printArea' | 'topOffsetMm'>, colourHex?: string | null): BlankPicture {
   return {
     kind: b.kind,
     widthMm: b.widthMm,
     heightMm: b.heightMm,
     printArea: { xMm: (b.widthMm - b.printArea.widthMm) / 2, yMm: b.topOffsetMm, widthMm: b.printArea.widthMm, heightMm: b.printArea.heightMm },
+    colourHex: colourHex ?? null,
   };
 }
 
@@ -39,15 +45,15 @@ export function pictureOfKind(kind: string): BlankPicture | null {
  * so the blank takes the engine's default size (as the server's proof does) and no print area is
  * drawn (where the seller put it is not in the snapshot).
  */
-export function pictureOfLineBlank(blank: { kind: string }): BlankPicture {
+export function pictureOfLineBlank(blank: { kind: string; colourHex?: string | null }): BlankPicture {
   const b = defaultBlank(blank.kind) ?? defaultBlank('tote')!;
-  return { kind: blank.kind, widthMm: b.widthMm, heightMm: b.heightMm, printArea: null };
+  return { kind: blank.kind, widthMm: b.widthMm, heightMm: b.heightMm, printArea: null, colourHex: blank.colourHex ?? null };
 }
 
 const INK = '#1f2a44';
 const INK_SOFT = '#4a5470';
-const CLOTH = '#efe6d4';
-const TEE = '#ffffff';
+const CLOTH_PLAIN = '#efe6d4';
+const TEE_PLAIN = '#ffffff';
 const THREAD = '#2f7d6d';
 const THREAD_DEEP = '#23604f';
 const FONT = 'Nunito Variable, Nunito, sans-serif';
@@ -59,9 +65,12 @@ export function headroomMm(kind: string, heightMm: number): number {
   return kind === 'tote' ? heightMm * 0.25 : kind === 'drawstring_bag' ? heightMm * 0.12 : 4;
 }
 
-/** The outline of each kind of blank, laid flat: tee (kids and adult), tote, zip pouch, drawstring bag. */
-export function BlankOutline({ kind, widthMm: W, heightMm: H }: Pick<BlankPicture, 'kind' | 'widthMm' | 'heightMm'>) {
+/** The outline of each kind of blank, laid flat: tee (kids and adult), tote, zip pouch, drawstring bag; filled with its colour. */
+export function BlankOutline({ kind, widthMm: W, heightMm: H, colourHex }: Pick<BlankPicture, 'kind' | 'widthMm' | 'heightMm' | 'colourHex'>) {
   const stroke = { stroke: INK, strokeWidth: 2.5, strokeLinejoin: 'round' as const };
+  const cloth = colourHex && /^#[0-9a-fA-F]{6}$/.test(colourHex) ? colourHex : null;
+  const CLOTH = cloth ?? CLOTH_PLAIN;
+  const TEE = cloth ?? TEE_PLAIN;
   if (isTee(kind)) {
     return (
       <path
@@ -180,7 +189,7 @@ export function DesignOnBlank({ blank, label, children, rulers = false, size, fi
       className={`${size ? 'shrink-0' : fit === 'box' ? 'size-full' : 'h-auto w-full'} ${className}`}
       data-testid={testId}
     >
-      <BlankOutline kind={blank.kind} widthMm={W} heightMm={H} />
+      <BlankOutline kind={blank.kind} widthMm={W} heightMm={H} colourHex={blank.colourHex} />
       {pa ? (
         <>
           <rect x={pa.xMm} y={pa.yMm} width={pa.widthMm} height={pa.heightMm} fill="none" stroke={THREAD} strokeWidth="1.2" strokeDasharray="5 4" />

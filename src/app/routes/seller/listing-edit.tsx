@@ -2,6 +2,7 @@ import { useNavigate, useParams } from 'react-router-dom';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
+import { BlankOfferPicker } from '../../../features/blanks/components/blank-offer-picker.tsx';
 import { PricingHelper } from '../../../features/business/components/pricing-helper.tsx';
 import { useFonts } from '../../../features/listings-editor/api/get-fonts.ts';
 import { useSellerListing } from '../../../features/listings-editor/api/get-seller-listing.ts';
@@ -52,6 +53,7 @@ export function ListingEditPage() {
             MotifPreview={MotifPreview}
             motifUpload={<MotifUpload />}
             PricingHelper={PricingHelper}
+            BlankOfferPicker={BlankOfferPicker}
             onSaved={(saved, created) => {
               if (created) navigate(paths.seller.editListing.getHref(saved.id), { replace: true });
             }}

@@ -16,6 +16,7 @@ const links: SectionLink[] = [
   { to: paths.seller.listings.getHref(), label: 'Listings', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.listings.path) },
   { to: paths.seller.materials.getHref(), label: 'Materials', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.materials.path) },
   { to: paths.seller.offers.getHref(), label: 'Codes and dates', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.offers.path) },
+  { to: paths.seller.blanks.getHref(), label: 'Blanks', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.blanks.path) },
   { to: paths.seller.shop.getHref(), label: 'Shop', group: 'sell', current: ({ pathname }) => isUnder(pathname, paths.seller.shop.path) },
   {
     to: paths.business.overview.getHref(),

@@ -157,7 +157,10 @@ function Choose() {
                       {l.text || '—'}
                       {l.quantity > 1 ? ` × ${l.quantity}` : ''}
                     </span>
-                    <span className="text-ink-soft">{l.listingTitle}</span>
+                    <span className="text-ink-soft">
+                      {l.listingTitle}
+                      {l.blankChoice ? ` · ${l.blankChoice}` : ''}
+                    </span>
                     <MaterialChips materials={l.materials} />
                   </label>
                 </li>

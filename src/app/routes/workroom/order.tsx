@@ -42,6 +42,11 @@ export function WorkroomOrderPage() {
                   <div className="flex flex-col gap-1.5">
                     <p className="font-bold">
                       {l.quantity} × {l.listingTitle}
+                      {l.blankChoice ? (
+                        <span className="block" data-testid="blank-choice">
+                          {l.blankChoice}
+                        </span>
+                      ) : null}
                     </p>
                     <p className="text-lg font-extrabold">{l.text || '—'}</p>
                     <MaterialChips materials={l.materials} />

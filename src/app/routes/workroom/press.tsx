@@ -54,7 +54,10 @@ export function PressPage() {
                       order
                     </Link>
                   </header>
-                  <p className="text-sm text-ink-soft">{line.listingTitle}</p>
+                  <p className="text-sm text-ink-soft">
+                    {line.listingTitle}
+                    {line.blankChoice ? <span className="font-bold text-ink"> · {line.blankChoice}</span> : null}
+                  </p>
                   <PressCardView card={card} />
                   <Button
                     variant="secondary"

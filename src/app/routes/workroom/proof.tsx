@@ -29,7 +29,8 @@ export function ProofPage() {
         title={l.text || l.listingTitle}
         lead={
           <>
-            {l.quantity} × {l.listingTitle} for {l.buyerName} · version {l.version} ·{' '}
+            {l.quantity} × {l.listingTitle}
+            {l.blankChoice ? ` (${l.blankChoice})` : ''} for {l.buyerName} · version {l.version} ·{' '}
             <Link className="underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(l.orderId)}>
               the whole order
             </Link>

@@ -1,6 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { type ComponentType, type ReactNode, useEffect, useRef, useState } from 'react';
 import { Controller, type FieldErrors, type Path, useForm, useWatch } from 'react-hook-form';
+import type { ListingBlankOffer } from '../../../../shared/schemas/blanks.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
 import {
   BLANK_DEFAULTS,
@@ -9,6 +10,7 @@ import {
   type ListingContent,
   type ListingInput,
   listingInputSchema,
+  materialIdsOf,
   OCCASION_LABELS,
   OCCASIONS,
   type SellerListing,
@@ -28,6 +30,12 @@ import { type EditorMotif, type MotifPreviewProps, PersonalisationEditor } from 
 export type PhotoPickerProps = { value: string[]; onChange: (ids: string[]) => void; error?: string };
 /** the editor's current (watched) values and the shop's currency; the helper sends only the parts that cost */
 export type PricingHelperProps = { values: unknown; currency: string };
+export type BlankOfferPickerProps = {
+  value: ListingBlankOffer | null | undefined;
+  onChange: (offer: ListingBlankOffer | null) => void;
+  vinyls: Array<{ id: string; colourName: string; colourHex: string }>;
+  error?: string;
+};
 
 type Props = {
   listing?: SellerListing;
@@ -40,6 +48,8 @@ type Props = {
   motifUpload: ReactNode;
   /** the cost and margin check under "Costing" (the business feature's, handed in by the route) */
   PricingHelper: ComponentType<PricingHelperProps>;
+  /** the shop's blank sizes and colours offered on this listing (the blanks feature's, handed in by the route) */
+  BlankOfferPicker?: ComponentType<BlankOfferPickerProps>;
   /** after a save; `created` when the listing was new (the page moves to its edit URL) */
   onSaved: (listing: SellerListing, created: boolean) => void;
 };
@@ -98,7 +108,7 @@ function countErrors(e: unknown): number {
   return n;
 }
 
-export function ListingEditor({ listing, currency, fonts, materials, motifs, PhotoPicker, MotifPreview, motifUpload, PricingHelper, onSaved }: Props) {
+export function ListingEditor({ listing, currency, fonts, materials, motifs, PhotoPicker, MotifPreview, motifUpload, PricingHelper, BlankOfferPicker, onSaved }: Props) {
   const toast = useToast();
   const create = useCreateListing();
   const update = useUpdateListing();
@@ -134,6 +144,13 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
   const blankKind = useWatch({ control, name: 'blank.kind' }) as BlankKind;
   const blank = useWatch({ control, name: 'blank' });
   const describe = useWatch({ control, name: 'descriptionFormat' });
+  // the vinyl colours the personalisation offers so far (half-typed rows may lack their lists)
+  let usedIds: string[] = [];
+  try {
+    usedIds = materialIdsOf(values.personalisation as ListingContent['personalisation']);
+  } catch {
+    usedIds = [];
+  }
 
   async function save(content: ListingContent, thenSubmit: boolean) {
     setFormError(null);
@@ -285,6 +302,20 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
           ))}
         </div>
         <p className="text-sm text-ink-soft">Top offset: from the top edge of the blank ({BLANK_DEFAULTS[blankKind]?.label ?? 'blank'}) down to the top of the print area.</p>
+        {BlankOfferPicker ? (
+          <Controller
+            control={control}
+            name="blankOffer"
+            render={({ field }) => (
+              <BlankOfferPicker
+                value={field.value as ListingBlankOffer | null | undefined}
+                onChange={field.onChange}
+                vinyls={materials.filter((m) => usedIds.includes(m.id))}
+                error={e.blankOffer?.message ?? e.blankOffer?.sizeIds?.message ?? e.blankOffer?.colourIds?.message ?? e.blankOffer?.blankTypeId?.message ?? e.blankOffer?.defaultColourId?.message}
+              />
+            )}
+          />
+        ) : null}
       </FormSection>
 
       <FormSection title="Price">

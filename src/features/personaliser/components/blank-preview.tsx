@@ -19,10 +19,10 @@ const Piece = memo(function Piece({ p, outlineStroke }: { p: PlacedPiece; outlin
  * them (each through its own matrix, so a keystroke repaints only what changed); the true outline
  * from the worker's full compose() replaces the stroked stand-in when it arrives.
  */
-export function BlankPreview({ blank, placement, full, label }: { blank: Blank; placement: Placement | null; full: ComposeResult | null; label: string }) {
+export function BlankPreview({ blank, colourHex, placement, full, label }: { blank: Blank; colourHex?: string | null; placement: Placement | null; full: ComposeResult | null; label: string }) {
   const outlinesDone = full !== null;
   return (
-    <DesignOnBlank blank={pictureOfBlank(blank)} label={label} rulers testId="design-preview">
+    <DesignOnBlank blank={pictureOfBlank(blank, colourHex)} label={label} rulers testId="design-preview">
       {full?.outlines.map((o) => (
         <path key={o.fieldId} d={o.path} fill={o.colour} stroke="#1f2a44" strokeOpacity="0.25" strokeWidth="0.3" />
       ))}

@@ -6,7 +6,10 @@
  * The state and the work live in hooks (useDesignState, useLivePreview, useAddToCart); this
  * component only renders them.
  */
-import { useId } from 'react';
+import { useId, useMemo } from 'react';
+import { sizeFitWarning } from '../../../../shared/engine/fit.ts';
+import type { ComposeWarning } from '../../../../shared/engine/place.ts';
+import { fitBySize, largerSizeThatFits } from '../../../../shared/engine/size-fit.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
@@ -18,6 +21,7 @@ import { type AddToCart, useAddToCart } from '../hooks/use-add-to-cart.ts';
 import { type ChoicesUpdate, textChoice, useDesignState, withText } from '../hooks/use-design-state.ts';
 import { useLivePreview } from '../hooks/use-live-preview.ts';
 import type { ComposeResult } from '../lib/compose-client.ts';
+import { BlankColourPicker, ContrastNotes, SizeChart, SizePicker } from './blank-pickers.tsx';
 import { BlankPreview } from './blank-preview.tsx';
 import { FontPicker, MotifPicker, SwatchPicker } from './pickers.tsx';
 
@@ -44,6 +48,26 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
     design.setChoices(fn);
   };
   const { fieldErrors } = cart;
+  // fit per size: when the name comes out too small at the chosen size, place it on every size
+  // offered to name the smallest larger one that takes it (shared/engine/size-fit.ts)
+  const tooSmall = !!preview.placement?.warnings.some((w) => w.code === 'below_min_letter_height');
+  const sizeFits = useMemo(
+    () => (tooSmall && design.offer && design.size && preview.registry && design.input ? fitBySize(preview.registry, design.input, design.offer.sizes) : null),
+    [tooSmall, design.offer, design.size, preview.registry, design.input],
+  );
+  const sizeAware = (ws: ComposeWarning[], fieldId: string, text: string) =>
+    ws.map((w) => {
+      if (w.code !== 'below_min_letter_height' || !sizeFits || !design.size) return w;
+      const larger = largerSizeThatFits(sizeFits, design.size.id, fieldId);
+      const message = sizeFitWarning({
+        text,
+        sizeLabel: design.size.label,
+        letterHeightMm: w.letterHeightMm ?? 0,
+        minLetterHeightMm: w.minLetterHeightMm ?? 0,
+        larger: larger ? { label: larger.label, letterHeightMm: larger.letterHeights[fieldId] ?? 0 } : null,
+      }).message;
+      return { ...w, message };
+    });
   const fontInfos = fonts.data ?? [];
   const bb = preview.placement?.bboxMm;
   const size = bb ? { w: bb.maxX - bb.minX, h: bb.maxY - bb.minY } : null;
@@ -54,9 +78,17 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
       {/* preview first on small screens too: it is what the shopper is checking */}
       <div className="flex flex-col gap-3 lg:sticky lg:top-4 lg:self-start">
         <div className="rounded-lg border border-line bg-white p-3 shadow-sm">
-          <BlankPreview blank={blank} placement={preview.placement} full={preview.full} label={previewLabel} />
+          <BlankPreview blank={blank} colourHex={design.colour?.hex ?? null} placement={preview.placement} full={preview.full} label={previewLabel} />
         </div>
+        {design.contrast.length > 0 ? <ContrastNotes warnings={design.contrast} /> : null}
         <div aria-live="polite" className="flex flex-col gap-1 text-sm">
+          {design.size ? (
+            <p data-testid="chosen-blank">
+              <span className="font-bold">Size: </span>
+              {design.size.label}
+              {design.colour ? ` · ${design.colour.name}` : ''}
+            </p>
+          ) : null}
           <p>
             <span className="font-bold">Print area: </span>
             {formatSize(blank.printArea.widthMm, blank.printArea.heightMm)}, starting {formatLength(blank.topOffsetMm)} from the {blank.topOffsetFrom}
@@ -84,9 +116,33 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
       </div>
 
       <div className="flex flex-col gap-7">
+        {design.offer ? (
+          <div className="flex flex-col gap-4">
+            <SizePicker
+              offer={design.offer}
+              value={choices.sizeId}
+              colourId={choices.colourId}
+              currency={listing.currency}
+              onChange={(sizeId) => update((s) => ({ ...s, sizeId }), 'sizeId')}
+              error={fieldErrors.sizeId}
+            />
+            <SizeChart offer={design.offer} />
+            <BlankColourPicker
+              offer={design.offer}
+              value={choices.colourId}
+              sizeId={choices.sizeId}
+              onChange={(colourId) => update((s) => ({ ...s, colourId }), 'colourId')}
+              error={fieldErrors.colourId}
+            />
+          </div>
+        ) : null}
         {p.textFields.map((f) => {
           const c = textChoice(choices, f);
-          const warnings = (preview.placement?.warnings ?? []).filter((w) => w.fieldId === f.id);
+          const warnings = sizeAware(
+            (preview.placement?.warnings ?? []).filter((w) => w.fieldId === f.id),
+            f.id,
+            c.text,
+          );
           const count = [...c.text.trim()].length;
           const err = fieldErrors[`texts.${f.id}.text`];
           const inputId = `${formId}-${f.id}`;

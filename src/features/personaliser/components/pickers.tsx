@@ -6,12 +6,12 @@ import type { PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { FontInfo } from '../../../../shared/schemas/engine.ts';
 import { FieldError } from '../../../components/ui/form-controls.tsx';
 
-const optionBox =
+export const optionBox =
   'flex cursor-pointer items-center gap-3 rounded-lg border-2 bg-white p-2.5 has-[:checked]:border-thread has-[:checked]:bg-thread-wash ' +
   'has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-offset-2 has-[:focus-visible]:outline-ink border-line hover:border-ink';
 
 /** A group of radio options under a legend, its error read out with it. `layout`: the options' wrapper classes. */
-function OptionGroup({ legend, error, layout, children }: { legend: string; error?: string; layout: string; children: ReactNode }) {
+export function OptionGroup({ legend, error, layout, children }: { legend: string; error?: string; layout: string; children: ReactNode }) {
   const errId = useId();
   return (
     <fieldset className="flex flex-col gap-2" aria-describedby={error ? errId : undefined}>

@@ -5,7 +5,9 @@
  * frame so the write never sits between a keystroke and its paint.
  */
 import { useEffect, useMemo, useState } from 'react';
+import { contrastWarnings } from '../../../../shared/engine/contrast.ts';
 import type { StoredMotifGeometry } from '../../../../shared/engine/motif.ts';
+import { offerColour, offerSize } from '../../../../shared/schemas/blanks.ts';
 import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import { type Choices, defaultColour, layersForChoices, priceForChoices, type TextField } from '../../../../shared/schemas/listing.ts';
 import { blankFor, designInput } from '../lib/design.ts';
@@ -28,7 +30,8 @@ export const withText =
 
 export function useDesignState(listing: ListingPage) {
   const p = listing.content.personalisation;
-  const [choices, setChoices] = useState<Choices>(() => loadChoices(listing.id, p));
+  const offer = listing.blankOffer ?? null;
+  const [choices, setChoices] = useState<Choices>(() => loadChoices(listing.id, p, offer));
 
   useEffect(() => {
     const t = setTimeout(() => saveChoices(listing.id, choices), 0);
@@ -37,7 +40,10 @@ export function useDesignState(listing: ListingPage) {
 
   const input = useMemo(() => designInput(listing, choices), [listing, choices]);
   const fontIds = useMemo(() => [...new Set(p.textFields.flatMap((f) => f.fontIds))], [p.textFields]);
-  const blank = useMemo(() => blankFor(listing.content), [listing.content]);
+  const size = offerSize(offer, choices.sizeId) ?? null;
+  const colour = offerColour(offer, choices.colourId) ?? null;
+  // the chosen size's print area and top offset (the listing's own until a size is picked)
+  const blank = useMemo(() => blankFor(listing.content, size), [listing.content, size]);
   const materials = useMemo(() => new Map(listing.materials.map((m) => [m.id, m])), [listing.materials]);
   const materialsOf = (ids: readonly string[] | undefined): PublicMaterial[] => (ids ?? []).flatMap((id) => materials.get(id) ?? []);
 
@@ -79,7 +85,20 @@ export function useDesignState(listing: ListingPage) {
     materialsOf,
     motifOptions,
     motifChoice: p.motifChoices.find((m) => m.motifId === choices.motifId),
-    price: priceForChoices(listing.content, choices),
+    price: priceForChoices(listing.content, choices, offer),
+    /** every vinyl colour of the design that will hardly show on the chosen blank colour (WCAG 2.2 contrast below 3:1) */
+    contrast:
+      offer && colour
+        ? contrastWarnings(
+            layersForChoices(listing.content, choices).flatMap((id) => materials.get(id) ?? []),
+            { id: colour.id, name: colour.name, hex: colour.hex, noun: offer.name.toLowerCase() },
+            offer.intendedPairs,
+          )
+        : [],
+    /** the listing's sizes and colours (null: one plain blank), and the shopper's pick of each */
+    offer,
+    size,
+    colour,
     layerCount: layersForChoices(listing.content, choices).length,
     /** the names typed, for labels and messages */
     texts: p.textFields

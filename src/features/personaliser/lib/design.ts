@@ -5,12 +5,13 @@
  */
 import type { ComposeInput } from '../../../../shared/engine/compose.ts';
 import { listingDesign } from '../../../../shared/engine/listing-design.ts';
+import { blankChoiceOf, type ResolvedBlankOffer } from '../../../../shared/schemas/blanks.ts';
 import type { ListingPage, PublicMaterial } from '../../../../shared/schemas/catalog.ts';
 import type { Choices } from '../../../../shared/schemas/listing.ts';
 
 export { blankFor } from '../../../../shared/engine/listing-design.ts';
 
-export type DesignListing = Pick<ListingPage, 'content' | 'materials' | 'motifs'>;
+export type DesignListing = Pick<ListingPage, 'content' | 'materials' | 'motifs'> & { blankOffer?: ResolvedBlankOffer | null };
 
 /** The material a choice resolves to (the field's first colour when none is picked yet). */
 export function materialFor(listing: DesignListing, id: string | null | undefined): PublicMaterial | undefined {
@@ -22,8 +23,13 @@ export function materialFor(listing: DesignListing, id: string | null | undefine
  * no motif). Unknown colours or motifs are skipped rather than thrown: the server has the last word.
  */
 export function designInput(listing: DesignListing, choices: Choices): ComposeInput | null {
-  return listingDesign(listing.content, choices, {
-    material: (id) => materialFor(listing, id),
-    motif: (id) => listing.motifs.find((m) => m.id === id),
-  }).input;
+  return listingDesign(
+    listing.content,
+    choices,
+    {
+      material: (id) => materialFor(listing, id),
+      motif: (id) => listing.motifs.find((m) => m.id === id),
+    },
+    blankChoiceOf(listing.blankOffer, choices),
+  ).input;
 }

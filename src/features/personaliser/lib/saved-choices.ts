@@ -3,11 +3,15 @@
  * add-to-cart) loses nothing. Read back through the shared choices schema and the listing's own
  * options: a font or colour the listing no longer offers falls back to its default.
  */
+import { blankDefaults, type ResolvedBlankOffer } from '../../../../shared/schemas/blanks.ts';
 import { type Choices, choicesSchema, defaultColour, type Personalisation } from '../../../../shared/schemas/listing.ts';
+
+type Offer = Pick<ResolvedBlankOffer, 'sizes' | 'colours' | 'defaultColourId'> | null | undefined;
 
 const key = (listingId: string) => `namesake.personalise.${listingId}`;
 
-export function defaultChoices(p: Personalisation): Choices {
+/** The listing's defaults; no size is picked for the shopper (a wrong size is a wasted item), the colour is the shop's default. */
+export function defaultChoices(p: Personalisation, offer?: Offer): Choices {
   return {
     texts: Object.fromEntries(p.textFields.map((f) => [f.id, { text: '', fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm }])),
     textColours: Object.fromEntries(p.textFields.map((f) => [f.id, defaultColour(f.colourChoices)])),
@@ -18,12 +22,13 @@ export function defaultChoices(p: Personalisation): Choices {
       ),
     ),
     outlineMaterialId: p.outline ? defaultColour(p.outline.colourChoices) : null,
+    ...blankDefaults(offer, {}),
   };
 }
 
 /** Keeps only what the listing still offers, filling the rest from the defaults. */
-export function reconcile(p: Personalisation, saved: Choices): Choices {
-  const d = defaultChoices(p);
+export function reconcile(p: Personalisation, saved: Choices, offer?: Offer): Choices {
+  const d = defaultChoices(p, offer);
   const texts: Choices['texts'] = {};
   for (const f of p.textFields) {
     const s = saved.texts[f.id];
@@ -52,20 +57,22 @@ export function reconcile(p: Personalisation, saved: Choices): Choices {
       ? saved.outlineMaterialId
       : defaultColour(p.outline.colourChoices)
     : null;
-  return { texts, textColours, motifId, motifColours, outlineMaterialId };
+  const sizeId = saved.sizeId && offer?.sizes.some((s) => s.id === saved.sizeId) ? saved.sizeId : d.sizeId;
+  const colourId = saved.colourId && offer?.colours.some((c) => c.id === saved.colourId) ? saved.colourId : d.colourId;
+  return { texts, textColours, motifId, motifColours, outlineMaterialId, sizeId, colourId };
 }
 
-export function loadChoices(listingId: string, p: Personalisation): Choices {
+export function loadChoices(listingId: string, p: Personalisation, offer?: Offer): Choices {
   try {
     const raw = localStorage.getItem(key(listingId));
     if (raw) {
       const parsed = choicesSchema.safeParse(JSON.parse(raw));
-      if (parsed.success) return reconcile(p, parsed.data);
+      if (parsed.success) return reconcile(p, parsed.data, offer);
     }
   } catch {
     // storage blocked or corrupt: start fresh
   }
-  return defaultChoices(p);
+  return defaultChoices(p, offer);
 }
 
 export function saveChoices(listingId: string, choices: Choices): void {

@@ -79,7 +79,19 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
       }),
       col.accessor('paidAt', { header: 'Paid', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span> }),
       col.accessor('shipByKey', { id: 'shipBy', header: 'Ship by', cell: (c) => <ShipByCell info={shipBy.get(c.row.original.id)} /> }),
-      col.accessor('listingTitle', { header: 'Listing' }),
+      col.accessor('listingTitle', {
+        header: 'Listing',
+        cell: (c) => (
+          <span>
+            {c.getValue()}
+            {c.row.original.blankChoice ? (
+              <span className="block font-bold whitespace-nowrap" data-testid="blank-choice">
+                {c.row.original.blankChoice}
+              </span>
+            ) : null}
+          </span>
+        ),
+      }),
       col.accessor('text', {
         header: 'Personalisation',
         cell: (c) => (
