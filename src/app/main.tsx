@@ -1,18 +1,39 @@
 import '@fontsource-variable/nunito';
 import './index.css';
 import { StrictMode } from 'react';
-import { createRoot } from 'react-dom/client';
-import { RouterProvider } from 'react-router-dom';
+import { createRoot, hydrateRoot } from 'react-dom/client';
+import { matchRoutes, RouterProvider } from 'react-router-dom';
+import { queryClient } from '../lib/query-client.ts';
 import { AppProviders } from './providers.tsx';
-import { router } from './router.tsx';
+import { createAppRouter, routes } from './router.tsx';
+import { hydrateQueryCache, SSR_STATE_ID } from './ssr/query-state.ts';
 
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html must contain <div id="root">.');
 
-createRoot(root).render(
-  <StrictMode>
-    <AppProviders>
-      <RouterProvider router={router} />
-    </AppProviders>
-  </StrictMode>,
-);
+// A server-rendered page (src/app/ssr/entry-server.tsx) carries its query cache: take it in, load the
+// page's lazy routes, then hydrate the HTML that is already on screen. Other pages render afresh.
+const stateEl = document.getElementById(SSR_STATE_ID);
+if (stateEl?.textContent) {
+  hydrateQueryCache(queryClient, stateEl.textContent);
+  const lazyMatches = matchRoutes(routes, window.location)?.filter((m) => m.route.lazy) ?? [];
+  await Promise.all(
+    lazyMatches.map(async (m) => {
+      const loaded = await (m.route.lazy as () => Promise<object>)();
+      Object.assign(m.route, { ...loaded, lazy: undefined });
+    }),
+  );
+  hydrateRoot(root, app());
+} else {
+  createRoot(root).render(app());
+}
+
+function app() {
+  return (
+    <StrictMode>
+      <AppProviders>
+        <RouterProvider router={createAppRouter()} />
+      </AppProviders>
+    </StrictMode>
+  );
+}

@@ -2,13 +2,16 @@ import { lazy, Suspense, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
+import { PREVIEW_NAME } from '../../../../shared/ssr-contract.ts';
 import { formatSize } from '../../../../shared/units.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { Card } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useAddCartLine } from '../../../features/cart/api/add-cart-line.ts';
 import { useListing } from '../../../features/catalog/api/get-listing.ts';
+import { ListingPreview } from '../../../features/catalog/components/listing-preview.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
+import { useMounted } from '../../../lib/use-mounted.ts';
 import { NotFoundPage } from '../errors/not-found.tsx';
 
 // the personaliser brings the font engine (fontkit): it loads here, and only here
@@ -20,12 +23,14 @@ export function ListingPage() {
   const listing = useListing(slug);
   const addLine = useAddCartLine();
   const [photo, setPhoto] = useState(0);
+  const mounted = useMounted();
 
   if (listing.isPending) return <Spinner label="Loading the listing…" />;
   if (listing.isError) return isApiError(listing.error) && listing.error.status === 404 ? <NotFoundPage /> : <p role="alert">{listing.error.message}</p>;
   const l = listing.data;
   const c = l.content;
   const current = l.photos[photo] ?? l.photos[0];
+  const previewLabel = `${c.title}: the design for the name ${PREVIEW_NAME} on the ${c.blank.label.toLowerCase()}`;
 
   return (
     <div className="flex flex-col gap-10">
@@ -117,9 +122,14 @@ export function ListingPage() {
           </h2>
           <p className="text-ink-soft">Type the name and pick the colours. The preview is set in the very font the shop will cut, to scale on the {c.blank.label.toLowerCase()}.</p>
         </div>
-        <Suspense fallback={<Spinner label="Opening the personaliser…" />}>
-          <Personaliser listing={l} addToCart={(input) => addLine.mutateAsync(input)} cartHref={paths.cart.getHref()} />
-        </Suspense>
+        {/* first paint: the server-made preview; the personaliser (and its font engine) loads after it */}
+        {mounted ? (
+          <Suspense fallback={<ListingPreview listing={l} label={previewLabel} />}>
+            <Personaliser listing={l} addToCart={(input) => addLine.mutateAsync(input)} cartHref={paths.cart.getHref()} />
+          </Suspense>
+        ) : (
+          <ListingPreview listing={l} label={previewLabel} />
+        )}
       </section>
 
       <div className="grid gap-5 md:grid-cols-2">
