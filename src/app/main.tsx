@@ -11,18 +11,19 @@ import { hydrateQueryCache, SSR_STATE_ID } from './ssr/query-state.ts';
 const root = document.getElementById('root');
 if (!root) throw new Error('index.html must contain <div id="root">.');
 
-// A server-rendered page (src/app/ssr/entry-server.tsx) carries its query cache: take it in, load the
-// page's lazy routes, then hydrate the HTML that is already on screen. Other pages render afresh.
+// Load the first page's lazy routes before the router starts, so the first render is the page itself.
+// A server-rendered page (src/app/ssr/entry-server.tsx) also carries its query cache: take it in,
+// then hydrate the HTML that is already on screen. Other pages render afresh.
+const lazyMatches = matchRoutes(routes, window.location)?.filter((m) => m.route.lazy) ?? [];
+await Promise.all(
+  lazyMatches.map(async (m) => {
+    const loaded = await (m.route.lazy as () => Promise<object>)();
+    Object.assign(m.route, { ...loaded, lazy: undefined });
+  }),
+);
 const stateEl = document.getElementById(SSR_STATE_ID);
 if (stateEl?.textContent) {
   hydrateQueryCache(queryClient, stateEl.textContent);
-  const lazyMatches = matchRoutes(routes, window.location)?.filter((m) => m.route.lazy) ?? [];
-  await Promise.all(
-    lazyMatches.map(async (m) => {
-      const loaded = await (m.route.lazy as () => Promise<object>)();
-      Object.assign(m.route, { ...loaded, lazy: undefined });
-    }),
-  );
   hydrateRoot(root, app());
 } else {
   createRoot(root).render(app());

@@ -43,14 +43,17 @@ async function render({ url, origin, data }: SsrRenderInput): Promise<SsrResult>
   let meta: PageMeta;
   let status = 200;
 
-  const failed = (key: readonly unknown[], error: Error) =>
-    client.prefetchQuery({
+  // a failed read is shown as such, here and in the browser's first render (no second try on mount)
+  const failed = (key: readonly unknown[], error: Error) => {
+    client.setQueryDefaults(key, { retryOnMount: false });
+    return client.prefetchQuery({
       queryKey: key,
       queryFn: () => {
         throw error;
       },
       retry: false,
     });
+  };
 
   if (path === paths.home.path) {
     for (const o of occasions) {

@@ -33,7 +33,11 @@ export function hydrateQueryCache(client: QueryClient, json: string): void {
   const state = JSON.parse(json) as DehydratedState;
   for (const q of state.queries) {
     const e = q.state.error as { status?: number; code?: string; message?: string } | null;
-    if (e && typeof e.status === 'number') (q.state as { error: unknown }).error = new ApiError(e.status, e.code ?? `http_${e.status}`, e.message ?? '');
+    if (e && typeof e.status === 'number') {
+      (q.state as { error: unknown }).error = new ApiError(e.status, e.code ?? `http_${e.status}`, e.message ?? '');
+      // the server already asked (a 404 stays a 404): no second, failing request on mount
+      client.setQueryDefaults(q.queryKey, { retryOnMount: false });
+    }
   }
   hydrate(client, state);
 }
