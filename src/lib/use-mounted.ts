@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { type RefObject, useEffect, useState } from 'react';
 
 /**
  * false on the server and in the browser's first (hydrating) render, true once mounted: for parts
@@ -8,4 +8,40 @@ export function useMounted(): boolean {
   const [mounted, setMounted] = useState(false);
   useEffect(() => setMounted(true), []);
   return mounted;
+}
+
+// Has the person done anything on this page yet (tapped, clicked, typed, scrolled)? Set once, for
+// the whole visit: after the first page, every page is opened by the person's own action.
+let interacted = false;
+const INTERACTIONS = ['pointerdown', 'keydown', 'touchstart', 'wheel', 'scroll'] as const;
+const waiting = new Set<() => void>();
+function onInteraction() {
+  interacted = true;
+  for (const w of waiting) w();
+  waiting.clear();
+  for (const type of INTERACTIONS) window.removeEventListener(type, onInteraction, true);
+}
+if (typeof window !== 'undefined') for (const type of INTERACTIONS) window.addEventListener(type, onInteraction, { capture: true, passive: true });
+
+/**
+ * For heavy parts below the first screen (the personaliser and its font engine): false on the server
+ * and in the first render; true once the element comes near the screen, or as soon as the person
+ * has interacted with the page at all. A page opened from a link inside the app is wanted at once.
+ */
+export function useWantedSoon(ref: RefObject<Element | null>, rootMargin = '200px'): boolean {
+  const [wanted, setWanted] = useState(false);
+  useEffect(() => {
+    if (interacted) return setWanted(true);
+    const show = () => setWanted(true);
+    waiting.add(show);
+    const el = ref.current;
+    const observer = el && typeof IntersectionObserver !== 'undefined' ? new IntersectionObserver((entries) => entries.some((e) => e.isIntersecting) && show(), { rootMargin }) : null;
+    if (el) observer?.observe(el);
+    if (!observer) show();
+    return () => {
+      waiting.delete(show);
+      observer?.disconnect();
+    };
+  }, [ref, rootMargin]);
+  return wanted;
 }

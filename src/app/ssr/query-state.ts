@@ -25,13 +25,21 @@ export function dehydrateQueryCache(client: QueryClient): string {
   for (const q of state.queries) {
     const e = q.state.error;
     if (e instanceof ApiError) (q.state as { error: unknown }).error = { status: e.status, code: e.code, message: e.message };
+    q.state.fetchFailureReason = null;
+    // no clock in the page: the same data gives the same HTML (and ETag); the browser dates it on arrival
+    q.state.dataUpdatedAt = 0;
+    q.state.errorUpdatedAt = 0;
+    (q as { dehydratedAt?: number }).dehydratedAt = undefined;
   }
   return jsonForScript(state);
 }
 
 export function hydrateQueryCache(client: QueryClient, json: string): void {
   const state = JSON.parse(json) as DehydratedState;
+  const now = Date.now();
   for (const q of state.queries) {
+    if (q.state.status === 'success') q.state.dataUpdatedAt = now;
+    if (q.state.status === 'error') q.state.errorUpdatedAt = now;
     const e = q.state.error as { status?: number; code?: string; message?: string } | null;
     if (e && typeof e.status === 'number') {
       (q.state as { error: unknown }).error = new ApiError(e.status, e.code ?? `http_${e.status}`, e.message ?? '');

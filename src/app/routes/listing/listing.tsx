@@ -1,4 +1,4 @@
-import { lazy, Suspense, useState } from 'react';
+import { lazy, Suspense, useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
@@ -11,7 +11,7 @@ import { useAddCartLine } from '../../../features/cart/api/add-cart-line.ts';
 import { useListing } from '../../../features/catalog/api/get-listing.ts';
 import { ListingPreview } from '../../../features/catalog/components/listing-preview.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
-import { useMounted } from '../../../lib/use-mounted.ts';
+import { useWantedSoon } from '../../../lib/use-mounted.ts';
 import { NotFoundPage } from '../errors/not-found.tsx';
 
 // the personaliser brings the font engine (fontkit): it loads here, and only here
@@ -23,7 +23,8 @@ export function ListingPage() {
   const listing = useListing(slug);
   const addLine = useAddCartLine();
   const [photo, setPhoto] = useState(0);
-  const mounted = useMounted();
+  const personaliserRef = useRef<HTMLElement>(null);
+  const wanted = useWantedSoon(personaliserRef);
 
   if (listing.isPending) return <Spinner label="Loading the listing…" />;
   if (listing.isError) return isApiError(listing.error) && listing.error.status === 404 ? <NotFoundPage /> : <p role="alert">{listing.error.message}</p>;
@@ -115,15 +116,15 @@ export function ListingPage() {
         </div>
       </div>
 
-      <section aria-labelledby="personalise-title" className="flex flex-col gap-5">
+      <section ref={personaliserRef} aria-labelledby="personalise-title" className="flex flex-col gap-5">
         <div>
           <h2 id="personalise-title" className="text-2xl font-extrabold">
             Personalise it
           </h2>
           <p className="text-ink-soft">Type the name and pick the colours. The preview is set in the very font the shop will cut, to scale on the {c.blank.label.toLowerCase()}.</p>
         </div>
-        {/* first paint: the server-made preview; the personaliser (and its font engine) loads after it */}
-        {mounted ? (
+        {/* first paint: the server-made preview; the personaliser (and its font engine) loads once wanted */}
+        {wanted ? (
           <Suspense fallback={<ListingPreview listing={l} label={previewLabel} />}>
             <Personaliser listing={l} addToCart={(input) => addLine.mutateAsync(input)} cartHref={paths.cart.getHref()} />
           </Suspense>
