@@ -7,7 +7,8 @@
  * CLS ≤ 0.1, SEO ≥ 95, accessibility ≥ 95, no console errors.
  *
  * Set LIGHTHOUSE_NO_BUILD=1 to measure the build already in dist/ (e.g. a "before" run);
- * LIGHTHOUSE_RUNS=N takes the median performance run of N (default 1).
+ * LIGHTHOUSE_RUNS=N takes the median performance run of N (default 1); LIGHTHOUSE_REPORT_DIR=dir
+ * keeps each run's full JSON report there (long tasks, main-thread breakdown).
  */
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -25,11 +26,16 @@ function score(lhr: { categories: Record<string, { score: number | null }> }, id
   return Math.round((lhr.categories[id]?.score ?? 0) * 100);
 }
 
-async function audit(url: string, port: number): Promise<Omit<Row, 'page'>> {
+async function audit(url: string, port: number, name: string): Promise<Omit<Row, 'page'>> {
   const result = await lighthouse(url, { port, output: 'json', logLevel: 'error' });
   if (!result) throw new Error(`Lighthouse returned nothing for ${url}`);
   const { lhr } = result;
   if (lhr.runtimeError) throw new Error(`Lighthouse could not load ${url}: ${lhr.runtimeError.message}`);
+  const dir = process.env.LIGHTHOUSE_REPORT_DIR;
+  if (dir) {
+    fs.mkdirSync(dir, { recursive: true });
+    fs.writeFileSync(path.join(dir, `${name}.json`), JSON.stringify(lhr));
+  }
   const num = (id: string) => lhr.audits[id]?.numericValue ?? Number.NaN;
   const errors = (lhr.audits['errors-in-console']?.details as { items?: unknown[] } | undefined)?.items?.length ?? 0;
   return {
@@ -75,7 +81,7 @@ export async function run(): Promise<void> {
     const rows: Row[] = [];
     for (const [page, url] of pages) {
       const results: Omit<Row, 'page'>[] = [];
-      for (let i = 0; i < runs; i++) results.push(await audit(url, chrome.port));
+      for (let i = 0; i < runs; i++) results.push(await audit(url, chrome.port, `${page}-${i + 1}`));
       results.sort((a, b) => a.perf - b.perf);
       rows.push({ page, ...results[Math.floor(results.length / 2)]! });
     }

@@ -43,6 +43,9 @@ export function ListingPage() {
               alt={`${c.title}, ${photo + 1} of ${l.photos.length}`}
               width={current.width}
               height={current.height}
+              srcSet={`${current.thumbnailUrl} ${thumbWidth(current)}w, ${current.url} ${current.width}w`}
+              sizes="(min-width: 768px) 50vw, 100vw"
+              fetchPriority="high"
               className="aspect-[4/3] w-full rounded-lg border border-line bg-white object-cover"
             />
           ) : (
@@ -61,7 +64,7 @@ export function ListingPage() {
                     aria-label={`Show photo ${i + 1}`}
                     className={`overflow-hidden rounded-lg border-2 ${i === photo ? 'border-thread' : 'border-line'}`}
                   >
-                    <img src={ph.thumbnailUrl} alt="" className="size-16 object-cover" />
+                    <img src={ph.thumbnailUrl} alt="" width={64} height={64} loading="lazy" className="size-16 object-cover" />
                   </button>
                 </li>
               ))}
@@ -150,3 +153,6 @@ export function ListingPage() {
     </div>
   );
 }
+
+/** The width of a photo's thumbnail: the server fits it inside 480 px (server/integrations/storage.ts, thumbSide). */
+const thumbWidth = (p: { width: number; height: number }) => Math.round(p.width * Math.min(1, 480 / Math.max(p.width, p.height)));
