@@ -1,6 +1,6 @@
 import '@fontsource-variable/nunito';
 import './index.css';
-import { StrictMode } from 'react';
+import { StrictMode, startTransition } from 'react';
 import { createRoot, hydrateRoot } from 'react-dom/client';
 import { matchRoutes, RouterProvider } from 'react-router-dom';
 import { queryClient } from '../lib/query-client.ts';
@@ -24,7 +24,10 @@ await Promise.all(
 const stateEl = document.getElementById(SSR_STATE_ID);
 if (stateEl?.textContent) {
   hydrateQueryCache(queryClient, stateEl.textContent);
-  hydrateRoot(root, app());
+  // as a transition, hydration yields to the browser between pieces instead of one long task
+  startTransition(() => {
+    hydrateRoot(root, app());
+  });
 } else {
   createRoot(root).render(app());
 }

@@ -23,12 +23,16 @@ function onInteraction() {
 }
 if (typeof window !== 'undefined') for (const type of INTERACTIONS) window.addEventListener(type, onInteraction, { capture: true, passive: true });
 
+/** how long after the page has loaded a part that is still not wanted loads anyway, ms */
+const SETTLED_MS = 3000;
+
 /**
  * For heavy parts below the first screen (the personaliser and its font engine): false on the server
- * and in the first render; true once the element comes near the screen, or as soon as the person
- * has interacted with the page at all. A page opened from a link inside the app is wanted at once.
+ * and in the first render; true once the element comes on screen, as soon as the person has
+ * interacted with the page at all (so a page opened from a link inside the app gets it at once), or
+ * a few seconds after the page has loaded, whichever comes first.
  */
-export function useWantedSoon(ref: RefObject<Element | null>, rootMargin = '200px'): boolean {
+export function useWantedSoon(ref: RefObject<Element | null>, rootMargin = '0px'): boolean {
   const [wanted, setWanted] = useState(false);
   useEffect(() => {
     if (interacted) return setWanted(true);
@@ -38,9 +42,17 @@ export function useWantedSoon(ref: RefObject<Element | null>, rootMargin = '200p
     const observer = el && typeof IntersectionObserver !== 'undefined' ? new IntersectionObserver((entries) => entries.some((e) => e.isIntersecting) && show(), { rootMargin }) : null;
     if (el) observer?.observe(el);
     if (!observer) show();
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const settle = () => {
+      timer = setTimeout(show, SETTLED_MS);
+    };
+    if (document.readyState === 'complete') settle();
+    else window.addEventListener('load', settle, { once: true });
     return () => {
       waiting.delete(show);
       observer?.disconnect();
+      clearTimeout(timer);
+      window.removeEventListener('load', settle);
     };
   }, [ref, rootMargin]);
   return wanted;
