@@ -23,6 +23,8 @@ await Promise.all(
 );
 const stateEl = document.getElementById(SSR_STATE_ID);
 if (stateEl?.textContent) {
+  // let the browser breathe between running the scripts and hydrating (two shorter tasks, not one long one)
+  await new Promise((resolve) => setTimeout(resolve, 0));
   hydrateQueryCache(queryClient, stateEl.textContent);
   // as a transition, hydration yields to the browser between pieces instead of one long task
   startTransition(() => {
