@@ -16,7 +16,8 @@ function newest(p) {
   return max;
 }
 
-const built = fs.existsSync('dist/index.html') ? fs.statSync('dist/index.html').mtimeMs : 0;
+// `vite build` makes both the client (dist/) and the server-render entry (dist-ssr/)
+const built = fs.existsSync('dist/index.html') && fs.existsSync('dist-ssr/entry-server.js') ? fs.statSync('dist/index.html').mtimeMs : 0;
 const sources = Math.max(...['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'package-lock.json'].map(newest));
 if (built < sources) {
   console.log(built ? 'The client is older than its sources: building …' : 'Building the client (first start) …');

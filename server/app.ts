@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { toNodeHandler } from 'better-auth/node';
+import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import morgan from 'morgan';
@@ -9,6 +10,8 @@ import { DEMO_PASSWORD, hasDemoData } from './db/demo-accounts.ts';
 import { pingDatabase } from './db/health.repo.ts';
 import type { AppDeps } from './deps.ts';
 import { featureRouters } from './features/index.ts';
+import { listingImagesRouter } from './features/listing-images/index.ts';
+import { builtSsrEntry, type SsrSetup, seoRouter, ssrPages } from './features/ssr/index.ts';
 import { createWorksheetBuilder } from './features/workroom/index.ts';
 import { DEFAULT_RATE_LIMITS, type RateLimits } from './http/account-rate-limit.ts';
 import { notFound } from './http/app-error.ts';
@@ -33,11 +36,13 @@ export type CreateAppInput = Omit<AppDeps, 'auth' | 'now' | 'pool' | 'rateLimits
    * lease (server/jobs/lease.ts); by default (tests, scripts) this app builds them itself.
    */
   onceOnly?: 'lease' | 'here';
+  /** server rendering of the public pages; by default the build beside clientDir (dist-ssr/) */
+  ssr?: SsrSetup;
 };
 
 /** Builds the Express app; never listens (tests start it on port 0, server/index.ts on PORT). */
 export function createApp(input: CreateAppInput): Express & { locals: { deps: AppDeps } } {
-  const { pool, taskTimeoutMs, rateLimits, onceOnly, ...rest } = input;
+  const { pool, taskTimeoutMs, rateLimits, onceOnly, ssr: ssrInput, ...rest } = input;
   const now = input.now ?? Date.now;
   const workPool = pool ?? createWorkPool({ timeoutMs: taskTimeoutMs });
   const deps: AppDeps = {
@@ -79,6 +84,8 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
     }),
   );
   if (env.LOG_REQUESTS && env.NODE_ENV !== 'test') app.use(morgan(env.production ? 'combined' : 'dev'));
+  // brotli or gzip, as the client accepts, for anything worth it (compression's default threshold, 1 kB)
+  app.use(compression());
 
   app.use('/api', sameOrigin(appOrigins(env), { sameHost: !env.production }));
 
@@ -120,23 +127,23 @@ export function createApp(input: CreateAppInput): Express & { locals: { deps: Ap
     throw notFound('No such API route.');
   });
 
-  if (input.clientDir && fs.existsSync(path.join(input.clientDir, 'index.html'))) {
-    const dir = input.clientDir;
+  const clientDir = input.clientDir && fs.existsSync(path.join(input.clientDir, 'index.html')) ? input.clientDir : undefined;
+  const ssr: SsrSetup | undefined = ssrInput ?? (clientDir ? { template: fs.readFileSync(path.join(clientDir, 'index.html'), 'utf8'), entry: builtSsrEntry(clientDir) } : undefined);
+  app.use(seoRouter(deps));
+  app.use('/listing-images', listingImagesRouter(deps, ssr?.entry));
+  if (clientDir) {
     app.use(
-      express.static(dir, {
+      express.static(clientDir, {
         index: false,
         maxAge: '1h',
         setHeaders: (res, file) => {
+          // Vite's hashed file names change with their content: cache them for good
           if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
         },
       }),
     );
-    const indexHtml = fs.readFileSync(path.join(dir, 'index.html'), 'utf8');
-    app.get('/{*any}', (_req, res) => {
-      res.type('html').setHeader('Cache-Control', 'no-cache');
-      res.send(indexHtml);
-    });
   }
+  if (ssr) app.get('/{*any}', loadSession(deps), ssrPages(deps, ssr));
 
   app.use(errorHandler);
   return app as Express & { locals: { deps: AppDeps } };

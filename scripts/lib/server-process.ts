@@ -20,9 +20,9 @@ export function freePort(): Promise<number> {
   });
 }
 
-/** Builds the client into dist/ with Vite when there is no build yet. */
+/** Builds the client into dist/ (and the server-render entry into dist-ssr/) with Vite when there is no build yet. */
 export function buildClientIfMissing(): void {
-  if (fs.existsSync(path.join(repoRoot, 'dist/index.html'))) return;
+  if (fs.existsSync(path.join(repoRoot, 'dist/index.html')) && fs.existsSync(path.join(repoRoot, 'dist-ssr/entry-server.js'))) return;
   console.log('building the client (vite build) …');
   const b = spawnSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn'], { cwd: repoRoot, stdio: 'inherit' });
   if (b.status !== 0) throw new Error('vite build failed');

@@ -1,4 +1,4 @@
-import { createBrowserRouter } from 'react-router-dom';
+import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { paths } from '../config/paths.ts';
 import { authKeys } from '../features/auth/api/keys.ts';
 import { RequireAuth } from '../features/auth/components/require-auth.tsx';
@@ -11,7 +11,8 @@ import { HomePage } from './routes/home.tsx';
 import { DeskLayout } from './routes/moderation/desk-nav.tsx';
 import { SellerLayout } from './routes/seller/seller-nav.tsx';
 
-export const router = createBrowserRouter([
+/** The route tree, shared by the browser's router and the server render (src/app/ssr/entry-server.tsx). */
+export const routes: RouteObject[] = [
   {
     element: <AppLayout />,
     errorElement: <RouteErrorPage />,
@@ -84,13 +85,18 @@ export const router = createBrowserRouter([
       { path: '*', element: <NotFoundPage /> },
     ],
   },
-]);
+];
 
-// A 401 from a non-auth call means the session ended: forget the account and ask to sign in,
-// coming back to this page afterwards.
-setUnauthorizedHandler(() => {
-  const { pathname, search } = router.state.location;
-  queryClient.setQueryData(authKeys.me(), null);
-  if (pathname === paths.auth.signIn.path) return;
-  void router.navigate(paths.auth.signIn.getHref(pathname + search), { replace: true });
-});
+/** The browser's router (made in src/app/main.tsx, after the first page's lazy routes are loaded). */
+export function createAppRouter() {
+  const router = createBrowserRouter(routes);
+  // A 401 from a non-auth call means the session ended: forget the account and ask to sign in,
+  // coming back to this page afterwards.
+  setUnauthorizedHandler(() => {
+    const { pathname, search } = router.state.location;
+    queryClient.setQueryData(authKeys.me(), null);
+    if (pathname === paths.auth.signIn.path) return;
+    void router.navigate(paths.auth.signIn.getHref(pathname + search), { replace: true });
+  });
+  return router;
+}

@@ -20,7 +20,9 @@ import type { Role } from '../../shared/schemas/auth.ts';
 
 export const TEST_PASSWORD = 'correct-horse-battery';
 
-export async function makeTestApp(opts: { seed?: boolean; env?: Record<string, string>; now?: () => number; app?: Pick<CreateAppInput, 'rateLimits' | 'taskTimeoutMs' | 'pool'> } = {}) {
+export async function makeTestApp(
+  opts: { seed?: boolean; env?: Record<string, string>; now?: () => number; app?: Pick<CreateAppInput, 'rateLimits' | 'taskTimeoutMs' | 'pool' | 'ssr' | 'clientDir'> } = {},
+) {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'namesake-test-'));
   const mail = await startMailFake({ port: 0, dir: path.join(dataDir, 'mail') });
   // the demo orders are paid at a payment fake: one on a free port, unless the test names its own

@@ -59,7 +59,8 @@ const SPECS: Record<string, Spec> = {
   'GET /api/health': S('public'),
   // in demo mode the sign-in page lists the demo accounts on purpose
   'GET /api/config': S('public', { shows: ['dana@namesake.test', 'fern@namesake.test'] }),
-  'GET /api/me': S('mine'),
+  // a guest gets 200 with no user (public pages ask it on every visit)
+  'GET /api/me': S('mine', { guestOk: true }),
   'POST /api/shops': S('mine', { body: () => ({ name: 'Sweep shop' }) }),
   'GET /api/admin/mail': S('admin'),
   'GET /api/admin/mail/:id': S('admin', { url: (i) => `/api/admin/mail/${i.mailId}` }),

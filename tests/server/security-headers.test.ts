@@ -46,7 +46,7 @@ describe('security headers', () => {
     const cases: Array<[string, Promise<Response>]> = [
       ['GET /api/health', app.get('/api/health')],
       ['GET /api/listings', app.get('/api/listings')],
-      ['GET /api/me (401)', app.get('/api/me')],
+      ['GET /api/me (guest)', app.get('/api/me')],
       ['unknown route (404)', app.get('/api/nope')],
       ['bad JSON (400)', app.post('/api/cart/lines').set('Content-Type', 'application/json').send('{bad')],
       ['cross-site POST (403)', app.post('/api/cart/lines').set('Origin', 'https://evil.example').send({})],

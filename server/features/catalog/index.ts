@@ -4,4 +4,4 @@
 
 export { liveListingBySlug, liveShopBySlug } from './catalog.repo.ts';
 export { catalogRouter, catalogSearchRouter } from './catalog.routes.ts';
-export { listingPage, listingRating, search, shopRating } from './catalog.service.ts';
+export { listingPage, listingRating, publicShop, search, shopRating } from './catalog.service.ts';

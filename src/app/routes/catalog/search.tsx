@@ -177,7 +177,7 @@ export function SearchPage() {
         </StitchedBox>
       ) : (
         <div className={list.isPlaceholderData ? 'opacity-60 transition-opacity' : ''}>
-          <ListingGrid items={list.data.items} />
+          <ListingGrid items={list.data.items} eagerFirst={2} />
         </div>
       )}
 

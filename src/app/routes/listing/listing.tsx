@@ -1,7 +1,8 @@
-import { lazy, Suspense, useState } from 'react';
+import { lazy, Suspense, useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { formatMoney } from '../../../../shared/money.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
+import { PREVIEW_NAME } from '../../../../shared/ssr-contract.ts';
 import { formatSize } from '../../../../shared/units.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { Card } from '../../../components/ui/card.tsx';
@@ -9,9 +10,11 @@ import { paths } from '../../../config/paths.ts';
 import { useMe } from '../../../features/auth/api/get-me.ts';
 import { useAddCartLine } from '../../../features/cart/api/add-cart-line.ts';
 import { useListing } from '../../../features/catalog/api/get-listing.ts';
+import { ListingPreview } from '../../../features/catalog/components/listing-preview.tsx';
 import { ListingDates } from '../../../features/offers/components/listing-dates.tsx';
 import { RatingLine } from '../../../features/reviews/components/stars.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
+import { useWantedSoon } from '../../../lib/use-mounted.ts';
 import { NotFoundPage } from '../errors/not-found.tsx';
 
 // the personaliser brings the font engine (fontkit): it loads here, and only here
@@ -26,12 +29,15 @@ export function ListingPage() {
   const addLine = useAddCartLine();
   const [photo, setPhoto] = useState(0);
   const me = useMe();
+  const personaliserRef = useRef<HTMLElement>(null);
+  const wanted = useWantedSoon(personaliserRef);
 
   if (listing.isPending) return <Spinner label="Loading the listing…" />;
   if (listing.isError) return isApiError(listing.error) && listing.error.status === 404 ? <NotFoundPage /> : <p role="alert">{listing.error.message}</p>;
   const l = listing.data;
   const c = l.content;
   const current = l.photos[photo] ?? l.photos[0];
+  const previewLabel = `${c.title}: the design for the name ${PREVIEW_NAME} on the ${c.blank.label.toLowerCase()}`;
 
   return (
     <div className="flex flex-col gap-10">
@@ -43,6 +49,9 @@ export function ListingPage() {
               alt={`${c.title}, ${photo + 1} of ${l.photos.length}`}
               width={current.width}
               height={current.height}
+              srcSet={`${current.thumbnailUrl} ${thumbWidth(current)}w, ${current.url} ${current.width}w`}
+              sizes="(min-width: 768px) 50vw, 100vw"
+              fetchPriority="high"
               className="aspect-[4/3] w-full rounded-lg border border-line bg-white object-cover"
             />
           ) : (
@@ -61,7 +70,7 @@ export function ListingPage() {
                     aria-label={`Show photo ${i + 1}`}
                     className={`overflow-hidden rounded-lg border-2 ${i === photo ? 'border-thread' : 'border-line'}`}
                   >
-                    <img src={ph.thumbnailUrl} alt="" className="size-16 object-cover" />
+                    <img src={ph.thumbnailUrl} alt="" width={64} height={64} loading="lazy" className="size-16 object-cover" />
                   </button>
                 </li>
               ))}
@@ -122,16 +131,21 @@ export function ListingPage() {
         </div>
       </div>
 
-      <section aria-labelledby="personalise-title" className="flex flex-col gap-5">
+      <section ref={personaliserRef} aria-labelledby="personalise-title" className="flex flex-col gap-5">
         <div>
           <h2 id="personalise-title" className="text-2xl font-extrabold">
             Personalise it
           </h2>
           <p className="text-ink-soft">Type the name and pick the colours. The preview is set in the very font the shop will cut, to scale on the {c.blank.label.toLowerCase()}.</p>
         </div>
-        <Suspense fallback={<Spinner label="Opening the personaliser…" />}>
-          <Personaliser listing={l} addToCart={(input) => addLine.mutateAsync(input)} cartHref={paths.cart.getHref()} />
-        </Suspense>
+        {/* first paint: the server-made preview; the personaliser (and its font engine) loads once wanted */}
+        {wanted ? (
+          <Suspense fallback={<ListingPreview listing={l} label={previewLabel} />}>
+            <Personaliser listing={l} addToCart={(input) => addLine.mutateAsync(input)} cartHref={paths.cart.getHref()} />
+          </Suspense>
+        ) : (
+          <ListingPreview listing={l} label={previewLabel} />
+        )}
       </section>
 
       <div className="grid gap-5 md:grid-cols-2">
@@ -154,3 +168,6 @@ export function ListingPage() {
     </div>
   );
 }
+
+/** The width of a photo's thumbnail: the server fits it inside 480 px (server/integrations/storage.ts, thumbSide). */
+const thumbWidth = (p: { width: number; height: number }) => Math.round(p.width * Math.min(1, 480 / Math.max(p.width, p.height)));

@@ -21,7 +21,7 @@ export function ShopPage() {
   return (
     <div className="flex flex-col gap-10">
       <div className="flex flex-col gap-6 md:flex-row md:items-start">
-        {s.logoUrl ? <img src={s.logoUrl} alt="" className="size-24 shrink-0 rounded-lg border border-line bg-white object-cover" /> : null}
+        {s.logoUrl ? <img src={s.logoUrl} alt="" width={96} height={96} className="size-24 shrink-0 rounded-lg border border-line bg-white object-cover" /> : null}
         <div className="flex-1">
           <PageHeading eyebrow="Shop" title={s.name} lead={s.description || undefined} />
           {rating.count ? (

@@ -6,11 +6,13 @@ import { DesignOnBlank, pictureOfKind } from '../../../components/design/design-
 import { paths } from '../../../config/paths.ts';
 
 /** One listing in a grid: photo (or a drawn stand-in), title linking to the listing, shop, base price. */
-export function ListingCard({ item, headingLevel = 3 }: { item: CatalogItem; headingLevel?: 2 | 3 }) {
+export function ListingCard({ item, headingLevel = 3, eager = false }: { item: CatalogItem; headingLevel?: 2 | 3; eager?: boolean }) {
   const Heading = headingLevel === 2 ? 'h2' : 'h3';
   return (
     <article className="group relative flex h-full flex-col overflow-hidden rounded-lg border border-line bg-white shadow-sm transition-shadow focus-within:shadow-md hover:shadow-md">
-      <div className="aspect-[4/3] bg-paper-deep">{item.thumbnailUrl ? <img src={item.thumbnailUrl} alt="" loading="lazy" className="size-full object-cover" /> : <NoPhoto />}</div>
+      <div className="aspect-[4/3] bg-paper-deep">
+        {item.thumbnailUrl ? <img src={item.thumbnailUrl} alt="" width={480} height={360} loading={eager ? 'eager' : 'lazy'} className="size-full object-cover" /> : <NoPhoto />}
+      </div>
       <div className="flex flex-1 flex-col gap-1.5 p-4">
         <Heading className="text-lg leading-snug font-extrabold">
           {/* the whole card is clickable through this link's ::after; the shop link sits above it */}
@@ -52,12 +54,13 @@ function NoPhoto({ kind = 'tote' }: { kind?: string }) {
   );
 }
 
-export function ListingGrid({ items, headingLevel }: { items: CatalogItem[]; headingLevel?: 2 | 3 }) {
+/** `eagerFirst`: how many pictures may be on the first screen (loaded at once; the rest lazily). */
+export function ListingGrid({ items, headingLevel, eagerFirst = 0 }: { items: CatalogItem[]; headingLevel?: 2 | 3; eagerFirst?: number }) {
   return (
     <ul className="grid grid-cols-1 gap-5 min-[480px]:grid-cols-2 lg:grid-cols-3 xl:grid-cols-4">
-      {items.map((item) => (
+      {items.map((item, i) => (
         <li key={item.id}>
-          <ListingCard item={item} headingLevel={headingLevel} />
+          <ListingCard item={item} headingLevel={headingLevel} eager={i < eagerFirst} />
         </li>
       ))}
     </ul>
