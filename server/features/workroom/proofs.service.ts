@@ -14,7 +14,7 @@ import { getFontRegistry } from '../../integrations/fonts.ts';
 import { assertEachCanMove, transition, transitionAll } from '../orders/index.ts';
 import { lineSnapshot, lineText, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
-import { changeRequestMail } from './workroom-mails.ts';
+import { changeRequestMail, inProductionMail } from './workroom-mails.ts';
 
 /** Characters people mistake for others or can't see; named on the proof. */
 const CHAR_NAMES: Record<number, string> = {
@@ -183,8 +183,11 @@ export function proof(db: Db, shopId: string, lineId: string): Proof {
   };
 }
 
-/** Approves one or more proofs (all or nothing): each must be the shop's and awaiting its proof. */
-export function approve(deps: WorkroomDeps, shopId: string, actorId: string, lineIds: string[]): WorkLine[] {
+/**
+ * Approves one or more proofs (all or nothing): each must be the shop's and awaiting its proof. The
+ * shopper is e-mailed that the item is in production (`mail: false` only for the demo's history).
+ */
+export function approve(deps: WorkroomDeps, shopId: string, actorId: string, lineIds: string[], opts: { mail?: boolean } = {}): WorkLine[] {
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
@@ -199,7 +202,28 @@ export function approve(deps: WorkroomDeps, shopId: string, actorId: string, lin
     db,
     rows.map((r) => ({ line: r.line, to: 'approved' as const, actor: 'shop' as const, actorId, at, message: `Proof approved (version ${r.line.version}).` })),
   );
+  if (opts.mail !== false) sendInProductionMails(deps, shopId, rows);
   return lineViews(db, shopId, repo.linesByIds(db, shopId, lineIds));
+}
+
+/** One "in production" e-mail per order whose lines were just approved (sent after the answer; a failure is logged). */
+function sendInProductionMails(deps: WorkroomDeps, shopId: string, rows: ReturnType<typeof repo.linesByIds>) {
+  const shop = repo.shop(deps.db, shopId);
+  const byOrder = new Map<string, typeof rows>();
+  for (const r of rows) byOrder.set(r.order.id, [...(byOrder.get(r.order.id) ?? []), r]);
+  const buyers = new Map(repo.users(deps.db, [...new Set(rows.map((r) => r.order.buyerId))]).map((u) => [u.id, u]));
+  for (const group of byOrder.values()) {
+    const { order } = group[0]!;
+    const buyer = buyers.get(order.buyerId);
+    if (!buyer) continue;
+    const items = group.map((r) => {
+      const text = lineText(lineSnapshot(r.line));
+      return `${r.line.listingTitle}${text ? ` — “${text}”` : ''}`;
+    });
+    deps.mailer
+      .send(inProductionMail(buyer, { shopName: shop?.name ?? 'The shop', orderNumber: order.number, orderId: order.id, items }, deps.env.baseUrl))
+      .catch((e: unknown) => console.error('workroom: in-production e-mail failed', e));
+  }
 }
 
 export async function requestChange(deps: WorkroomDeps, shopId: string, actorId: string, lineId: string, message: string): Promise<WorkLine> {

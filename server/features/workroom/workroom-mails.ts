@@ -68,3 +68,29 @@ ${button(link, 'See your order')}`,
     ),
   };
 }
+
+/** The proof is approved: the shop has checked the personalisation and starts making it. */
+export function inProductionMail(to: { email: string; name: string }, r: { shopName: string; orderNumber: string; orderId: string; items: string[] }, baseUrl: string): Mail {
+  const link = `${baseUrl}/orders/${encodeURIComponent(r.orderId)}`;
+  return {
+    to: to.email,
+    subject: `In production: ${r.shopName} approved your personalisation (order ${r.orderNumber})`,
+    text: [
+      `Hello ${to.name},`,
+      '',
+      `${r.shopName} has checked your personalisation letter by letter and is making it now:`,
+      ...r.items.map((i) => `  ${i}`),
+      '',
+      'Nothing more is needed from you. We will e-mail you again when it ships.',
+      '',
+      `Your order: ${link}`,
+    ].join('\n'),
+    html: mailLayout(
+      `In production`,
+      `<p>Hello ${esc(to.name)},</p><p>${esc(r.shopName)} has checked your personalisation letter by letter and is making it now:</p>
+<ul>${r.items.map((i) => `<li>${esc(i)}</li>`).join('')}</ul>
+<p>Nothing more is needed from you. We will e-mail you again when it ships.</p>
+${button(link, 'See your order')}`,
+    ),
+  };
+}

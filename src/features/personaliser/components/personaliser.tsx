@@ -10,6 +10,7 @@ import { useId } from 'react';
 import { formatMoney } from '../../../../shared/money.ts';
 import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
+import { includedLayers } from '../../../../shared/schemas/listing.ts';
 import { formatLength, formatSize, formatSmallLength } from '../../../../shared/units.ts';
 import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { FieldError } from '../../../components/ui/form-controls.tsx';
@@ -222,7 +223,9 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
               </p>
               <p className="text-sm text-ink-soft">
                 {design.layerCount} {design.layerCount === 1 ? 'layer' : 'layers'} of vinyl
-                {listing.content.extraLayerPriceMinor > 0 ? ` · each layer after the first adds ${formatMoney(listing.content.extraLayerPriceMinor, listing.currency)}` : ''}
+                {listing.content.extraLayerPriceMinor > 0
+                  ? ` · ${includedLayers(listing.content)} included, each one more adds ${formatMoney(listing.content.extraLayerPriceMinor, listing.currency)}`
+                  : ''}
               </p>
             </div>
             <div className="flex flex-col gap-1.5">
