@@ -12,6 +12,7 @@
 import type { Choices, ListingContent } from '../schemas/listing.ts';
 import { type Blank, defaultBlank } from './blanks.ts';
 import type { ComposeInput, FieldDef, MaterialKind } from './compose.ts';
+import { FONT_CATALOG } from './font-catalog.ts';
 import type { StoredMotifGeometry } from './motif.ts';
 import { MATERIAL_KINDS } from './press-defaults.ts';
 
@@ -105,6 +106,8 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
     pieceMaterial.set(f.id, m.id);
     if (outlineMat) pieceMaterial.set(`${f.id}-outline`, outlineMat.id);
     summary.push({ label: f.label, value: text });
+    const font = FONT_CATALOG.find((x) => x.id === (c?.fontId ?? f.defaultFontId));
+    if (font) summary.push({ label: `${f.label} font`, value: font.family });
     summary.push({ label: `${f.label} colour`, value: `${m.colourName} (${m.kind})` });
   }
   if (outlineMat) summary.push({ label: 'Outline colour', value: `${outlineMat.colourName} (${outlineMat.kind})` });

@@ -7,6 +7,7 @@ import type { FontRegistry } from '../../../shared/engine/fonts.ts';
 import { type DesignMaterial, type DesignMotif, listingDesign } from '../../../shared/engine/listing-design.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { type Choices, checkChoices, type ListingContent, layersForChoices, materialIdsOf, type Personalisation, personalisationSchema, priceForChoices } from '../../../shared/schemas/listing.ts';
+import { formatSmallLength } from '../../../shared/units.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 
@@ -118,6 +119,7 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
 
   const bb = composed.bboxMm;
   const r2 = (n: number) => Math.round(n * 100) / 100;
+  const shown = withLetterHeights(summary, content.personalisation.textFields, composed.letterHeights);
   return {
     listingId: args.listing.id,
     listingTitle: content.title,
@@ -126,7 +128,7 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
     currency: args.listing.currency,
     blank: { kind: content.blank.kind, label: content.blank.label, widthMm: content.blank.widthMm, heightMm: content.blank.heightMm },
     choices,
-    summary,
+    summary: shown,
     geometry: {
       widthMm: r2(bb.maxX - bb.minX),
       heightMm: r2(bb.maxY - bb.minY),
@@ -136,6 +138,18 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
     },
     unitPriceMinor: priceForChoices(content, choices),
   };
+}
+
+/** The letter height each name is really cut at (after fitting), shown after its font, for the shopper and the shop. */
+function withLetterHeights(summary: LineSnapshot['summary'], fields: readonly { id: string; label: string }[], heights: Record<string, number>): LineSnapshot['summary'] {
+  const out: LineSnapshot['summary'] = [];
+  for (const row of summary) {
+    out.push(row);
+    const f = fields.find((x) => row.label === `${x.label} font`);
+    const h = f ? heights[f.id] : undefined;
+    if (f && h !== undefined) out.push({ label: `${f.label} letter height`, value: formatSmallLength(h) });
+  }
+  return out;
 }
 
 function prefix(errs: Record<string, string>): Record<string, string> {

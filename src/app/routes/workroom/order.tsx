@@ -4,6 +4,7 @@ import { canMoveLine, isFinishedLine } from '../../../../shared/schemas/order.ts
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
+import { TrackingNumber } from '../../../components/ui/tracking-number.tsx';
 import { paths } from '../../../config/paths.ts';
 import { useOrder } from '../../../features/workroom/api/get-order.ts';
 import { formatDate, formatDateTime } from '../../../features/workroom/components/format.ts';
@@ -68,7 +69,7 @@ export function WorkroomOrderPage() {
           </div>
           {o.trackingNumber ? (
             <p data-testid="tracking">
-              Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <span className="font-mono font-bold">{o.trackingNumber}</span>
+              Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <TrackingNumber carrier={o.carrier} trackingNumber={o.trackingNumber} />
             </p>
           ) : ready ? (
             <ShipForm orderId={o.id} />

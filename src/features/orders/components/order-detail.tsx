@@ -4,6 +4,7 @@ import type { LineSnapshot } from '../../../../shared/schemas/cart.ts';
 import { LINE_STATE_LABELS, type OrderDetail } from '../../../../shared/schemas/order.ts';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
+import { TrackingNumber } from '../../../components/ui/tracking-number.tsx';
 
 const when = (ms: number) => new Date(ms).toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
 const who = { you: 'You', shop: 'The shop', namesake: 'Namesake' } as const;
@@ -77,7 +78,7 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
         </div>
         {order.trackingNumber ? (
           <p className="text-sm">
-            Shipped with {order.carrier ?? 'the carrier'}: <span className="font-mono font-bold">{order.trackingNumber}</span>
+            Shipped with {order.carrier ?? 'the carrier'}: <TrackingNumber carrier={order.carrier} trackingNumber={order.trackingNumber} />
           </p>
         ) : (
           <p className="text-sm text-ink-soft">Not shipped yet. We will e-mail you the tracking number.</p>
