@@ -8,6 +8,7 @@
  * when a colour or motif is gone; the client's return undefined and the piece is left out.
  */
 
+import { materialLabel } from '../material-label.ts';
 // type-only: shared/schemas imports the engine at run time, not the other way round
 import type { Choices, ListingContent } from '../schemas/listing.ts';
 import { type Blank, defaultBlank } from './blanks.ts';
@@ -108,9 +109,9 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
     summary.push({ label: f.label, value: text });
     const font = FONT_CATALOG.find((x) => x.id === (c?.fontId ?? f.defaultFontId));
     if (font) summary.push({ label: `${f.label} font`, value: font.family });
-    summary.push({ label: `${f.label} colour`, value: `${m.colourName} (${m.kind})` });
+    summary.push({ label: `${f.label} colour`, value: materialLabel(m) });
   }
-  if (outlineMat) summary.push({ label: 'Outline colour', value: `${outlineMat.colourName} (${outlineMat.kind})` });
+  if (outlineMat) summary.push({ label: 'Outline colour', value: materialLabel(outlineMat) });
 
   return { input: fields.length === 0 ? null : { blank: blankFor(content), fields, choices: engineChoices }, summary, pieceMaterial };
 }

@@ -8,6 +8,7 @@ import { blankFor } from '../../../shared/engine/listing-design.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { type Personalisation, personalisationSchema } from '../../../shared/schemas/listing.ts';
 import type { CharInfo, Proof, ProofText, ProofVersion, ProofWarning, WorkLine } from '../../../shared/schemas/workroom.ts';
+import { formatSmallLength } from '../../../shared/units.ts';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
@@ -127,7 +128,11 @@ export function proofWarnings(s: LineSnapshot, p: Personalisation | null, topOff
         warnings.push({ code: w.code, fieldId, message: `${label}: ${w.message}` });
       }
       if (fitted.scale < 0.999 && !fitted.warnings.some((w) => w.code === 'too_long')) {
-        warnings.push({ code: 'shrunk_to_fit', fieldId, message: `${label}: shrunk to ${fitted.letterHeightMm.toFixed(1)} mm letters to fit the print area (chosen ${t.letterHeightMm} mm).` });
+        warnings.push({
+          code: 'shrunk_to_fit',
+          fieldId,
+          message: `${label}: shrunk to ${formatSmallLength(fitted.letterHeightMm)} letters to fit the print area (chosen ${formatSmallLength(t.letterHeightMm)}).`,
+        });
       }
     } catch {
       warnings.push({ code: 'font_unavailable', fieldId, message: `${label}: the font ${t.fontId} is not available on this server.` });

@@ -26,7 +26,7 @@ export function WorkroomOrderPage() {
       <PageHeading
         eyebrow={`Order ${o.number}`}
         title={`For ${o.buyerName}`}
-        lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`}
+        lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(o.shipByDate)}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`}
       />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex flex-col gap-6">

@@ -1,9 +1,9 @@
 import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { formatDateTime } from '../../../../shared/dates.ts';
 import { CardTable } from '../../../components/ui/card-table.tsx';
 import type { AuditEntry } from '../api/types.ts';
 
 const col = createColumnHelper<AuditEntry>();
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
 export const ACTION_LABELS: Record<string, string> = {
   'listing.approve': 'Approved listing',
@@ -15,7 +15,7 @@ export const ACTION_LABELS: Record<string, string> = {
 };
 
 const columns = [
-  col.accessor('at', { header: 'When', cell: (c) => <span className="whitespace-nowrap">{when.format(c.getValue())}</span> }),
+  col.accessor('at', { header: 'When', cell: (c) => <span className="whitespace-nowrap">{formatDateTime(c.getValue())}</span> }),
   col.accessor((e) => e.actor.name ?? e.actor.email ?? e.actor.id, {
     id: 'who',
     header: 'Who',

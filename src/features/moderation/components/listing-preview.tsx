@@ -1,4 +1,5 @@
 import { blankFor } from '../../../../shared/engine/listing-design.ts';
+import { materialLabel } from '../../../../shared/material-label.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
@@ -22,7 +23,7 @@ export function ListingPreview({ page }: { page: ListingPage }) {
         return (
           <span key={id} className="inline-flex items-center gap-1.5 rounded-full border border-line bg-white px-2 py-0.5 text-sm">
             <span aria-hidden="true" className="size-4 rounded-full border border-ink/30" style={{ background: m?.colourHex ?? '#ccc' }} />
-            {m ? `${m.colourName} (${m.kind})` : 'Unknown material'}
+            {m ? materialLabel(m) : 'Unknown material'}
           </span>
         );
       })}

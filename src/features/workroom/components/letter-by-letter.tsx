@@ -1,4 +1,5 @@
 import type { ProofText } from '../../../../shared/schemas/workroom.ts';
+import { formatSmallLength } from '../../../../shared/units.ts';
 
 /**
  * The text exactly as typed, one box per code point: anything outside printable ASCII shows its
@@ -10,7 +11,7 @@ export function LetterByLetter({ text }: { text: ProofText }) {
     <div className="flex flex-col gap-2">
       <p className="text-sm text-ink-soft">
         {text.label}: {text.chars.length} character{text.chars.length === 1 ? '' : 's'}
-        {text.letterHeightMm ? `, letters about ${text.letterHeightMm} mm tall` : ''}
+        {text.letterHeightMm ? `, letters about ${formatSmallLength(text.letterHeightMm)} tall` : ''}
         {text.normalized === 'NFD' || text.normalized === 'mixed' ? ' · typed with combining marks' : ''}
       </p>
       <ol className="flex flex-wrap gap-1.5" aria-label={`${text.label}, letter by letter`} data-testid={`letters-${text.fieldId}`}>
