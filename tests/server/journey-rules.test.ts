@@ -1,8 +1,10 @@
 // Rules a parent met on the seeded demo (a fresh database for this file): the "from" price is what the
 // cheapest design really costs, and approving a proof e-mails the shopper that the item is in production.
 
+import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
+import { listings, orderLines, orders, shops } from '../../server/db/schema.ts';
 import type { CatalogItem, ListingPage } from '../../shared/schemas/catalog.ts';
 import { type Choices, cheapestChoices, checkChoices, type PricedContent, priceForChoices } from '../../shared/schemas/listing.ts';
 import type { WorkLine } from '../../shared/schemas/workroom.ts';
@@ -95,6 +97,25 @@ describe('the "from" price', () => {
     // a navy name is a fourth layer: $24.00 + $3.00 (the listing's extra-layer price)
     expect(page.content.extraLayerPriceMinor).toBe(300);
     expect(priceForChoices(page.content, design('Ink navy'))).toBe(2700);
+  });
+});
+
+describe('the demo timeline', () => {
+  test('when the demo is seeded, then every listing comes after its shop opened, and every order after its listings went live', () => {
+    const shopOpened = new Map(
+      t.db
+        .select()
+        .from(shops)
+        .all()
+        .map((s) => [s.id, s.createdAt]),
+    );
+    const listed = t.db.select().from(listings).all();
+    expect(listed.length).toBeGreaterThan(0);
+    for (const l of listed) expect(l.createdAt, `${l.slug} after its shop opened`).toBeGreaterThanOrEqual(shopOpened.get(l.shopId)!);
+    const published = new Map(listed.map((l) => [l.id, l.publishedAt]));
+    const paid = t.db.select({ listingId: orderLines.listingId, paidAt: orders.paidAt }).from(orderLines).innerJoin(orders, eq(orders.id, orderLines.orderId)).all();
+    expect(paid.length).toBeGreaterThan(0);
+    for (const p of paid) expect(p.paidAt!).toBeGreaterThanOrEqual(published.get(p.listingId)!);
   });
 });
 
