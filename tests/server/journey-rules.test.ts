@@ -119,6 +119,18 @@ describe('the demo timeline', () => {
   });
 });
 
+describe('moderation', () => {
+  test('when a shop is still in review, then it cannot be suspended (it is approved or rejected), and stays in review', async () => {
+    const admin = request.agent(t.app);
+    expect((await admin.post('/api/auth/sign-in/email').send({ email: 'admin@namesake.test', password: DEMO })).status).toBe(200);
+    const harbour = t.db.select().from(shops).where(eq(shops.slug, 'harbour-thread')).get()!;
+    expect(harbour.state).toBe('in_review');
+    const res = await admin.post(`/api/moderation/shops/${harbour.id}/suspend`).send({ reason: 'Nothing to suspend yet.' });
+    expect(res.status).toBe(409);
+    expect(t.db.select().from(shops).where(eq(shops.id, harbour.id)).get()!.state).toBe('in_review');
+  });
+});
+
 describe('the approval e-mail', () => {
   test('when the shop approves a proof, then the shopper is e-mailed that the item is in production, naming the order and the text', async () => {
     const fern = request.agent(t.app);

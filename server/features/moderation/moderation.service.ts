@@ -193,7 +193,8 @@ export async function rejectListing(deps: Deps, actor: SessionUser, id: string, 
 const SHOP_MOVES = {
   approve: { from: ['in_review'], to: 'live', action: 'shop.approve' },
   reject: { from: ['in_review'], to: 'rejected', action: 'shop.reject' },
-  suspend: { from: ['live', 'in_review'], to: 'suspended', action: 'shop.suspend' },
+  // a shop in review is not public yet: it is approved or rejected, there is nothing to suspend
+  suspend: { from: ['live'], to: 'suspended', action: 'shop.suspend' },
   restore: { from: ['suspended'], to: 'live', action: 'shop.restore' },
 } as const;
 export type ShopMove = keyof typeof SHOP_MOVES;

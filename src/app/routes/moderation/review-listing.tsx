@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import type { ListingContent } from '../../../../shared/schemas/listing.ts';
+import { LISTING_CHANGE_REASONS } from '../../../../shared/schemas/moderation-reasons.ts';
 import { Button, ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
@@ -93,7 +94,8 @@ export function ReviewListingPage() {
               ) : rejecting ? (
                 <ReasonForm
                   label="Reason for the seller"
-                  submitLabel="Reject listing"
+                  submitLabel="Send back for changes"
+                  presets={LISTING_CHANGE_REASONS}
                   danger
                   onCancel={() => setRejecting(false)}
                   onSubmit={async (reason) => {
@@ -129,7 +131,7 @@ export function ReviewListingPage() {
                     Approve listing
                   </Button>
                   <Button variant="secondary" onClick={() => setRejecting(true)}>
-                    Reject with a reason
+                    Send back for changes…
                   </Button>
                 </div>
               )}

@@ -5,6 +5,7 @@ import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
 import { formatLength, formatSize, formatSmallLength } from '../../../../shared/units.ts';
 import { DesignOnBlank, pictureOfBlank } from '../../../components/design/design-on-blank.tsx';
+import { FontSample } from '../../../components/ui/font-sample.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 
 /**
@@ -89,7 +90,12 @@ export function ListingPreview({ page }: { page: ListingPage }) {
                 ({f.required ? 'required' : 'optional'}, up to {f.maxLength} characters, letters {formatSmallLength(f.defaultLetterHeightMm)})
               </span>
             </p>
-            <p className="text-sm">Fonts: {f.fontIds.join(', ')}</p>
+            <div className="flex flex-wrap items-center gap-2 text-sm">
+              <span>Fonts:</span>
+              {f.fontIds.map((id) => (
+                <FontSample key={id} fontId={id} />
+              ))}
+            </div>
             {swatches(f.colourChoices)}
           </div>
         ))}

@@ -1,3 +1,4 @@
+import { catalogEntry } from '../../../../shared/engine/font-catalog.ts';
 import type { ProofText } from '../../../../shared/schemas/workroom.ts';
 import { formatSmallLength } from '../../../../shared/units.ts';
 
@@ -10,7 +11,7 @@ export function LetterByLetter({ text }: { text: ProofText }) {
   return (
     <div className="flex flex-col gap-2">
       <p className="text-sm text-ink-soft">
-        {text.label}: {text.chars.length} character{text.chars.length === 1 ? '' : 's'}
+        {text.label}: {text.chars.length} character{text.chars.length === 1 ? '' : 's'} in {catalogEntry(text.fontId)?.family ?? text.fontId}
         {text.letterHeightMm ? `, letters about ${formatSmallLength(text.letterHeightMm)} tall` : ''}
         {text.normalized === 'NFD' || text.normalized === 'mixed' ? ' · typed with combining marks' : ''}
       </p>
