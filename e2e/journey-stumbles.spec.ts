@@ -89,6 +89,18 @@ test.describe('on a phone', () => {
     await expect(page.getByTestId('design-preview')).toBeInViewport();
   });
 
+  test('browsing shows listings on the first screen; the filters open from one button', async ({ page }) => {
+    await page.goto('/search?occasion=autumn-harvest');
+    await expect(page.getByRole('link', { name: /Autumn fox tote with a name/ }).first()).toBeInViewport();
+    const occasion = page.getByLabel('Occasion');
+    await expect(occasion).toBeHidden();
+    const toggle = page.getByRole('button', { name: 'Filters and sort (1 set)' });
+    await toggle.tap();
+    await expect(occasion).toBeVisible();
+    await expect(occasion).toHaveValue('autumn-harvest');
+    await expect(page.getByRole('button', { name: 'Hide filters' })).toHaveAttribute('aria-expanded', 'true');
+  });
+
   test("the cart's total and Pay button are on the first screen", async ({ page }) => {
     await page.goto(`/listings/${FOX_TOTE}`);
     await nameBox(page).fill('Mira');

@@ -4,7 +4,8 @@
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, test } from 'vitest';
-import { listings, orderLines, orders, shops } from '../../server/db/schema.ts';
+import { listings, motifs, orderLines, orders, shops } from '../../server/db/schema.ts';
+import { insertMotif } from '../../server/features/uploads/uploads.repo.ts';
 import type { CatalogItem, ListingPage } from '../../shared/schemas/catalog.ts';
 import { type Choices, cheapestChoices, checkChoices, type PricedContent, priceForChoices } from '../../shared/schemas/listing.ts';
 import type { WorkLine } from '../../shared/schemas/workroom.ts';
@@ -128,6 +129,45 @@ describe('moderation', () => {
     const res = await admin.post(`/api/moderation/shops/${harbour.id}/suspend`).send({ reason: 'Nothing to suspend yet.' });
     expect(res.status).toBe(409);
     expect(t.db.select().from(shops).where(eq(shops.id, harbour.id)).get()!.state).toBe('in_review');
+  });
+});
+
+describe('motif reuse', () => {
+  test("when a listing in review uses another shop's motif file again, then the review names that shop; artwork of its own is not flagged", async () => {
+    const admin = request.agent(t.app);
+    expect((await admin.post('/api/auth/sign-in/email').send({ email: 'admin@namesake.test', password: DEMO })).status).toBe(200);
+    const harbour = t.db.select().from(shops).where(eq(shops.slug, 'harbour-thread')).get()!;
+    const comet = t.db.select().from(shops).where(eq(shops.slug, 'little-comet-print-co')).get()!;
+    const waiting = t.db
+      .select()
+      .from(listings)
+      .where(eq(listings.shopId, harbour.id))
+      .all()
+      .find((l) => l.state === 'in_review')!;
+    // the demo's new shop uploaded the same whale file Little Comet sells with
+    const cometWhale = t.db
+      .select()
+      .from(motifs)
+      .where(eq(motifs.shopId, comet.id))
+      .all()
+      .find((m) => m.name === 'Whale')!;
+    const harbourWhale = t.db
+      .select()
+      .from(motifs)
+      .where(eq(motifs.shopId, harbour.id))
+      .all()
+      .find((m) => m.name === 'Whale')!;
+    const flagged = await admin.get(`/api/moderation/listings/${waiting.id}`);
+    expect(flagged.status).toBe(200);
+    expect(flagged.body.motifReuse).toEqual([{ motifId: harbourWhale.id, motifName: 'Whale', otherShop: { name: comet.name, slug: comet.slug }, otherMotifName: cometWhale.name }]);
+    // artwork of its own (here: the same shapes drawn at another size) is not flagged
+    const own = { ...harbourWhale.geometry, widthMm: harbourWhale.geometry.widthMm + 5 };
+    const ownId = crypto.randomUUID();
+    insertMotif(t.db, { id: ownId, shopId: harbour.id, name: 'Our whale', geometry: own, createdAt: Date.now() });
+    const draft = { ...waiting.draft, personalisation: { ...waiting.draft.personalisation, motifChoices: [{ ...waiting.draft.personalisation.motifChoices[0]!, motifId: ownId }] } };
+    t.db.update(listings).set({ draft }).where(eq(listings.id, waiting.id)).run();
+    expect((await admin.get(`/api/moderation/listings/${waiting.id}`)).body.motifReuse).toEqual([]);
+    t.db.update(listings).set({ draft: waiting.draft }).where(eq(listings.id, waiting.id)).run();
   });
 });
 

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray, isNotNull, or, type SQL, sql } from 'drizzle-orm';
 import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../../db/client.ts';
-import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
+import { auditLog, listings, motifs, shops, uploads, user } from '../../db/schema.ts';
 import { listingsWithShop, shopsWithOwner } from '../../db/shared-queries.repo.ts';
 
 export type ShopRow = typeof shops.$inferSelect;
@@ -90,3 +90,23 @@ function shopFilter(q: string, state: string | undefined): SQL | undefined {
 export const shopsPage = (db: Db, f: { q: string; state?: string }, limit: number, offset: number) =>
   shopOwnerPage(db, shopFilter(f.q, f.state), [asc(sql`lower(${shops.name})`), asc(shops.id)], limit, offset);
 export const shopsCount = (db: Db, f: { q: string; state?: string }) => shopOwnerCount(db, shopFilter(f.q, f.state));
+
+/** Motifs of other shops with the same fingerprint as these motifs of `shopId` (same artwork uploaded twice). */
+export function motifsSharedWithOtherShops(db: Db, shopId: string, motifIds: string[]) {
+  if (motifIds.length === 0) return [];
+  const own = db
+    .select({ id: motifs.id, name: motifs.name, hash: motifs.geometryHash })
+    .from(motifs)
+    .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, motifIds), isNotNull(motifs.geometryHash)))
+    .all();
+  const hashes = [...new Set(own.map((m) => m.hash!))];
+  if (hashes.length === 0) return [];
+  const others = db
+    .select({ hash: motifs.geometryHash, name: motifs.name, shopName: shops.name, shopSlug: shops.slug })
+    .from(motifs)
+    .innerJoin(shops, eq(shops.id, motifs.shopId))
+    .where(and(inArray(motifs.geometryHash, hashes), sql`${motifs.shopId} <> ${shopId}`))
+    .limit(50)
+    .all();
+  return own.flatMap((m) => others.filter((o) => o.hash === m.hash).map((o) => ({ motifId: m.id, motifName: m.name, otherShop: { name: o.shopName, slug: o.shopSlug }, otherMotifName: o.name })));
+}

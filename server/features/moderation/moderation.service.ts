@@ -101,16 +101,20 @@ export function listingQueueItem(db: Db, id: string) {
   return queueListing(row);
 }
 
+/** A motif of the listing that is the same artwork as another shop's (same geometry fingerprint). */
+export type MotifReuse = { motifId: string; motifName: string; otherShop: { name: string; slug: string }; otherMotifName: string };
+
 /**
  * One listing waiting for review, with its page rendered from the same read of the row: the
  * revision returned is the one whose text the moderator is shown.
  */
-export function listingForReview(db: Db, actor: SessionUser, id: string): { listing: ReturnType<typeof queueListing>; page: ListingPage } {
+export function listingForReview(db: Db, actor: SessionUser, id: string): { listing: ReturnType<typeof queueListing>; page: ListingPage; motifReuse: MotifReuse[] } {
   const l = repo.findListing(db, id);
   const shop = l ? repo.findShop(db, l.shopId) : undefined;
   if (!l || !shop) throw notFound('No such listing.');
   if (l.state !== 'in_review' && !l.pendingReview) throw notFound('This listing is not waiting for review (it may have been decided already).');
-  return { listing: queueListing({ listing: l, shop }), page: listingPage(db, l.slug, 'draft', actor) };
+  const motifIds = l.draft.personalisation.motifChoices.map((m) => m.motifId);
+  return { listing: queueListing({ listing: l, shop }), page: listingPage(db, l.slug, 'draft', actor), motifReuse: repo.motifsSharedWithOtherShops(db, shop.id, motifIds) };
 }
 
 /** The desk's shop directory: any shop in any state, so a live one can be found and suspended. */

@@ -75,6 +75,22 @@ export function ReviewListingPage() {
                 <strong>Edit of a live listing.</strong> Changed: {changedParts(item.draft, item.live).join(', ') || 'nothing visible'}. The approved version stays on sale until you decide.
               </p>
             ) : null}
+            {review.data.motifReuse?.length ? (
+              <div role="note" data-testid="motif-reuse" className="rounded-lg border-2 border-danger bg-danger-wash p-3">
+                <p className="font-extrabold">Same artwork as another shop</p>
+                <ul className="mt-1 list-disc pl-5 text-sm">
+                  {review.data.motifReuse.map((r) => (
+                    <li key={`${r.motifId}:${r.otherShop.slug}:${r.otherMotifName}`}>
+                      The motif “{r.motifName}” has the same cut shapes as “{r.otherMotifName}” of{' '}
+                      <a className="font-bold underline" href={`/shops/${encodeURIComponent(r.otherShop.slug)}`}>
+                        {r.otherShop.name}
+                      </a>
+                      . Check the seller may use it before approving.
+                    </li>
+                  ))}
+                </ul>
+              </div>
+            ) : null}
             <ListingPreview page={review.data.page} />
           </div>
           <aside className="flex flex-col gap-5 lg:sticky lg:top-4 lg:self-start" aria-label="Decision">

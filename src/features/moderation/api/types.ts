@@ -33,7 +33,9 @@ export type QueueShopChange = {
   submittedAt: number;
 };
 /** GET /api/moderation/listings/:id */
-export type ListingReview = { listing: QueueListing; page: ListingPage };
+/** A motif of the listing that is the same artwork as another shop's (server: moderation.service.ts MotifReuse). */
+export type MotifReuse = { motifId: string; motifName: string; otherShop: { name: string; slug: string }; otherMotifName: string };
+export type ListingReview = { listing: QueueListing; page: ListingPage; motifReuse?: MotifReuse[] };
 
 export type AuditEntry = {
   id: string;
