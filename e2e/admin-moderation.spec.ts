@@ -103,9 +103,15 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
   await deskNav.getByRole('link', { name: 'Audit log', exact: true }).click();
   await expect(deskNav.getByRole('link', { name: 'Audit log', exact: true })).toHaveAttribute('aria-current', 'page');
   const log = page.getByRole('table', { name: 'Audit log of moderator actions' });
-  await expect(log.getByRole('row').filter({ hasText: 'Rejected listing' }).filter({ hasText: badTitle })).toContainText(reason);
+  await expect(log.getByRole('row').filter({ hasText: 'Sent back listing' }).filter({ hasText: badTitle })).toContainText(reason);
   await expect(log.getByRole('row').filter({ hasText: 'Suspended shop' }).filter({ hasText: seller.shop.name })).toContainText('admin@namesake.test');
   await expect(log.getByRole('row').filter({ hasText: 'Restored shop' }).filter({ hasText: seller.shop.name })).toBeVisible();
+  // filtered to one kind of action, with the subject a link to its page
+  await page.getByLabel('Action').selectOption('shop.suspend');
+  await expect(page).toHaveURL(/action=shop\.suspend/);
+  await expect(log.getByRole('row').filter({ hasText: 'Restored shop' })).toHaveCount(0);
+  const suspended = log.getByRole('row').filter({ hasText: 'Suspended shop' }).filter({ hasText: seller.shop.name });
+  await expect(suspended.getByRole('link', { name: seller.shop.name })).toHaveAttribute('href', /^\/shops\//);
 
   await seller.context.close();
 });

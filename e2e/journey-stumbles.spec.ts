@@ -91,8 +91,14 @@ test.describe('on a phone', () => {
 
   test('browsing shows listings on the first screen; the filters open from one button', async ({ page }) => {
     await page.goto('/search?occasion=autumn-harvest');
-    await expect(page.getByRole('link', { name: /Autumn fox tote with a name/ }).first()).toBeInViewport();
-    const occasion = page.getByLabel('Occasion');
+    // the results start on the first screen: the count, and the top of the first card
+    await expect(page.getByText(/^\d+ listings?$/)).toBeInViewport();
+    const cardTop = await page
+      .getByRole('link', { name: /Autumn fox tote with a name/ })
+      .first()
+      .evaluate((a) => (a.closest('li, article') ?? a).getBoundingClientRect().top);
+    expect(cardTop).toBeLessThan(740);
+    const occasion = page.getByLabel('Occasion', { exact: true });
     await expect(occasion).toBeHidden();
     const toggle = page.getByRole('button', { name: 'Filters and sort (1 set)' });
     await toggle.tap();

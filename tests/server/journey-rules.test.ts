@@ -132,6 +132,24 @@ describe('moderation', () => {
   });
 });
 
+describe('the audit log', () => {
+  test('when filtered by an action, then only that action is listed; an unknown action is a 400 naming the field', async () => {
+    const admin = request.agent(t.app);
+    expect((await admin.post('/api/auth/sign-in/email').send({ email: 'admin@namesake.test', password: DEMO })).status).toBe(200);
+    const comet = t.db.select().from(shops).where(eq(shops.slug, 'little-comet-print-co')).get()!;
+    expect((await admin.post(`/api/moderation/shops/${comet.id}/suspend`).send({ reason: 'Checking a report.' })).status).toBe(200);
+    expect((await admin.post(`/api/moderation/shops/${comet.id}/restore`).send({ reason: 'All fine.' })).status).toBe(200);
+    const suspends = await admin.get('/api/moderation/audit').query({ action: 'shop.suspend' });
+    expect(suspends.status).toBe(200);
+    expect(suspends.body.total).toBe(1);
+    expect(suspends.body.items[0]).toMatchObject({ action: 'shop.suspend', subject: { label: comet.name, href: `/shops/${comet.slug}` } });
+    expect((await admin.get('/api/moderation/audit')).body.total).toBeGreaterThanOrEqual(2);
+    const bad = await admin.get('/api/moderation/audit').query({ action: 'shop.delete' });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty('action');
+  });
+});
+
 describe('motif reuse', () => {
   test("when a listing in review uses another shop's motif file again, then the review names that shop; artwork of its own is not flagged", async () => {
     const admin = request.agent(t.app);

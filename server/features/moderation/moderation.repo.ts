@@ -63,18 +63,21 @@ export const thumbOf = (db: Db, shopId: string, uploadId: string | undefined) =>
     : null;
 
 export const insertAudit = (db: Db, row: typeof auditLog.$inferInsert) => db.insert(auditLog).values(row).run();
-export const auditPage = (db: Db, limit: number, offset: number) =>
+const auditWhere = (action: string | undefined) => (action ? eq(auditLog.action, action) : undefined);
+export const auditPage = (db: Db, limit: number, offset: number, action?: string) =>
   db
     .select({ entry: auditLog, actorName: user.name, actorEmail: user.email })
     .from(auditLog)
     .innerJoin(user, eq(user.id, auditLog.actorId))
+    .where(auditWhere(action))
     .orderBy(desc(auditLog.createdAt), desc(sql`audit_log.rowid`))
     .limit(limit)
     .offset(offset)
     .all();
-export const auditCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(auditLog).get()?.n ?? 0;
-export const shopNames = (db: Db, ids: string[]) => (ids.length ? db.select({ id: shops.id, name: shops.name }).from(shops).where(inArray(shops.id, ids)).all() : []);
-export const listingTitles = (db: Db, ids: string[]) => (ids.length ? db.select({ id: listings.id, draft: listings.draft }).from(listings).where(inArray(listings.id, ids)).all() : []);
+export const auditCount = (db: Db, action?: string) => db.select({ n: sql<number>`count(*)` }).from(auditLog).where(auditWhere(action)).get()?.n ?? 0;
+export const shopNames = (db: Db, ids: string[]) => (ids.length ? db.select({ id: shops.id, name: shops.name, slug: shops.slug }).from(shops).where(inArray(shops.id, ids)).all() : []);
+export const listingTitles = (db: Db, ids: string[]) =>
+  ids.length ? db.select({ id: listings.id, draft: listings.draft, slug: listings.slug }).from(listings).where(inArray(listings.id, ids)).all() : [];
 
 /** Every shop, filtered by a case-insensitive substring of name, slug or owner e-mail and by state. */
 function shopFilter(q: string, state: string | undefined): SQL | undefined {

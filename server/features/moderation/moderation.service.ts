@@ -281,21 +281,26 @@ export async function rejectShopChange(deps: Deps, actor: SessionUser, id: strin
 }
 
 /** Every moderation decision, newest first, a page at a time. */
-export function auditLog(db: Db, q: PageQuery) {
-  const rows = repo.auditPage(db, q.limit, pageOffset(q));
+export function auditLog(db: Db, q: PageQuery & { action?: string | undefined }) {
+  const rows = repo.auditPage(db, q.limit, pageOffset(q), q.action);
   const shopIds = rows.filter((r) => r.entry.subjectType === 'shop').map((r) => r.entry.subjectId);
   const listingIds = rows.filter((r) => r.entry.subjectType === 'listing').map((r) => r.entry.subjectId);
   const labels = new Map<string, string>([
     ...repo.shopNames(db, shopIds).map((s) => [s.id, s.name] as [string, string]),
     ...repo.listingTitles(db, listingIds).map((l) => [l.id, l.draft.title] as [string, string]),
   ]);
+  // where the subject can be opened: a shop's public page, a listing's page (admins may see drafts)
+  const hrefs = new Map<string, string>([
+    ...repo.shopNames(db, shopIds).map((s) => [s.id, `/shops/${encodeURIComponent(s.slug)}`] as [string, string]),
+    ...repo.listingTitles(db, listingIds).map((l) => [l.id, `/listings/${encodeURIComponent(l.slug)}`] as [string, string]),
+  ]);
   const items = rows.map(({ entry, actorName, actorEmail }) => ({
     id: entry.id,
     at: entry.createdAt,
     actor: { id: entry.actorId, name: actorName, email: actorEmail },
     action: entry.action,
-    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null },
+    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null, href: hrefs.get(entry.subjectId) ?? null },
     reason: entry.reason,
   }));
-  return toPage(items, repo.auditCount(db), q);
+  return toPage(items, repo.auditCount(db, q.action), q);
 }

@@ -42,7 +42,7 @@ export type AuditEntry = {
   at: number;
   actor: { id: string; name: string | null; email: string | null };
   action: string;
-  subject: { type: 'shop' | 'listing'; id: string; label: string | null };
+  subject: { type: 'shop' | 'listing'; id: string; label: string | null; href?: string | null };
   reason: string | null;
 };
 export type AuditPage = Page<AuditEntry>;
