@@ -63,12 +63,14 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
 
   // reject the second: a reason is required, and the seller gets it by e-mail
   await page.getByRole('link', { name: `Review ${badTitle}` }).click();
-  await page.getByRole('button', { name: 'Reject with a reason' }).click();
-  await page.getByRole('button', { name: 'Reject listing' }).click();
+  await page.getByRole('button', { name: 'Send back for changes…' }).click();
+  await page.getByRole('button', { name: 'Send back for changes', exact: true }).click();
   await expect(page.getByText('Give the seller a reason (at least 3 characters).')).toBeVisible();
-  const reason = 'The photo is missing; add a photo of the finished bag.';
-  await page.getByLabel('Reason for the seller').fill(reason);
-  await page.getByRole('button', { name: 'Reject listing' }).click();
+  // a common reason fills the field in the words the seller will read
+  await page.getByRole('button', { name: 'Photo', exact: true }).click();
+  const reason = 'Add a clear photo of the finished item on its blank, so shoppers see what arrives.';
+  await expect(page.getByLabel('Reason for the seller')).toHaveValue(reason);
+  await page.getByRole('button', { name: 'Send back for changes', exact: true }).click();
   await expect(page.getByText(`“${badTitle}” is sent back to the seller.`)).toBeVisible();
   const mail = await waitForMail(seller.email, /Changes needed/, since);
   expect(mail.text).toContain(reason);
@@ -101,9 +103,15 @@ test('when an admin approves, rejects with a reason, suspends and restores, then
   await deskNav.getByRole('link', { name: 'Audit log', exact: true }).click();
   await expect(deskNav.getByRole('link', { name: 'Audit log', exact: true })).toHaveAttribute('aria-current', 'page');
   const log = page.getByRole('table', { name: 'Audit log of moderator actions' });
-  await expect(log.getByRole('row').filter({ hasText: 'Rejected listing' }).filter({ hasText: badTitle })).toContainText(reason);
+  await expect(log.getByRole('row').filter({ hasText: 'Sent back listing' }).filter({ hasText: badTitle })).toContainText(reason);
   await expect(log.getByRole('row').filter({ hasText: 'Suspended shop' }).filter({ hasText: seller.shop.name })).toContainText('admin@namesake.test');
   await expect(log.getByRole('row').filter({ hasText: 'Restored shop' }).filter({ hasText: seller.shop.name })).toBeVisible();
+  // filtered to one kind of action, with the subject a link to its page
+  await page.getByLabel('Action').selectOption('shop.suspend');
+  await expect(page).toHaveURL(/action=shop\.suspend/);
+  await expect(log.getByRole('row').filter({ hasText: 'Restored shop' })).toHaveCount(0);
+  const suspended = log.getByRole('row').filter({ hasText: 'Suspended shop' }).filter({ hasText: seller.shop.name });
+  await expect(suspended.getByRole('link', { name: seller.shop.name })).toHaveAttribute('href', /^\/shops\//);
 
   await seller.context.close();
 });

@@ -46,7 +46,7 @@ test.describe('navigation per role', () => {
   for (const email of [accounts.seller, accounts.seller2]) {
     test(`when seller ${email} signs in, then the workroom is in the navigation and the moderation desk is not`, async ({ page }) => {
       await signIn(page, email);
-      await expectNav(page, ['Browse', 'Cart', 'Orders', 'Workroom'], ['Open a shop', 'Moderation desk', 'Mail', 'Sign in']);
+      await expectNav(page, ['Browse', 'Cart', 'My purchases', 'Workroom'], ['Orders', 'Open a shop', 'Moderation desk', 'Mail', 'Sign in']);
     });
   }
 

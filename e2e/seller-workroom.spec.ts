@@ -111,6 +111,9 @@ test('a seller checks a proof, asks for a change, cuts, presses and ships; the s
   expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
 
   await page.getByRole('button', { name: /Mark all \d+ sheets cut/ }).click();
+  // a step that takes vinyl off the stock asks first
+  await expect(page.getByText(/comes off your stock/)).toBeVisible();
+  await page.getByRole('button', { name: 'Yes, mark them cut' }).click();
   await expect(page.getByRole('link', { name: /go to the press cards/ })).toBeVisible();
 
   // press card, then pressed

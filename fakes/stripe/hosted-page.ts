@@ -114,7 +114,8 @@ async function handleCard(fake: Fake, res: http.ServerResponse, s: CheckoutSessi
   const declineCode: DeclineCode = behaviour ?? 'test_mode_live_card';
   declinePayment(fake, s, checked.card, { type: 'card_error', code: 'card_declined', decline_code: declineCode, message: DECLINE_MESSAGE[declineCode] });
   await fake.store.persist();
-  return renderPay(fake, res, s, 402, { error: DECLINE_TEXT[declineCode] });
+  // the card was refused, not the address: keep what was typed there so only the card is entered again
+  return renderPay(fake, res, s, 402, { error: DECLINE_TEXT[declineCode], ...(ship ? { values: ship.values } : {}) });
 }
 
 /** Serves /pay/:session and /pay/:session/authenticate. */

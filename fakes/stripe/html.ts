@@ -120,7 +120,7 @@ function field(name: CardField, label: string, hint: string, autocomplete: strin
   const describedBy = err ? `${hintId} ${errId}` : hintId;
   return `<label for="${name}">${esc(label)}</label>
 <p class="hint" id="${hintId}">${esc(hint)}</p>
-<input id="${name}" name="${name}" inputmode="numeric" autocomplete="${autocomplete}" required value="${esc(value)}"
+<input id="${name}" name="${name}" inputmode="${name === 'card_expiry' ? 'text' : 'numeric'}" autocomplete="${autocomplete}" required value="${esc(value)}"
   aria-describedby="${describedBy}"${err ? ' aria-invalid="true"' : ''}>
 ${err ? `<p class="field-error" id="${errId}">${esc(err)}</p>` : ''}`;
 }

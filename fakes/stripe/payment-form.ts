@@ -63,7 +63,8 @@ export function checkCard(raw: Record<string, unknown>, today: Date): CardCheck 
   const number = values.card_number.replace(/[\s-]/g, '');
   if (!/^\d{12,19}$/.test(number)) errors.card_number = 'Enter the card number: 16 digits, spaces allowed.';
   else if (!luhn(number)) errors.card_number = "That card number isn't valid. Check the digits and try again.";
-  const exp = /^\s*(\d{1,2})\s*\/\s*(\d{2}|\d{4})\s*$/.exec(values.card_expiry);
+  // "12/34", "12 / 34", "12/2034", or the digits alone ("1234", "122034"): month, then year
+  const exp = /^\s*(\d{1,2})\s*\/\s*(\d{2}|\d{4})\s*$/.exec(values.card_expiry) ?? /^\s*(\d{2})(\d{2}|\d{4})\s*$/.exec(values.card_expiry);
   let expMonth = 0;
   let expYear = 0;
   if (exp) {

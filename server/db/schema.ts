@@ -106,9 +106,11 @@ export const motifs = sqliteTable(
     name: text('name').notNull(),
     /** the engine's normalised motif: layers with path data in mm, bbox, area */
     geometry: json<StoredMotifGeometry>('geometry').notNull(),
+    /** shared/engine/motif-fingerprint.ts of the geometry: the same artwork in two shops is flagged in review */
+    geometryHash: text('geometry_hash'),
     createdAt: createdAt(),
   },
-  (t) => [index('motifs_shop_idx').on(t.shopId)],
+  (t) => [index('motifs_shop_idx').on(t.shopId), index('motifs_geometry_hash_idx').on(t.geometryHash)],
 );
 
 // ---------------------------------------------------------------- uploads (photos, logos)

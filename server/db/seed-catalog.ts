@@ -95,7 +95,7 @@ const LISTINGS: Record<string, Spec[]> = {
       state: 'live',
       title: 'Autumn fox tote with a name',
       markdown: true,
-      description: 'A sturdy cotton tote with a **fox holding an acorn** and the name of your choice above it.\n\nShown with the name *Mira*. Pressed in smooth vinyl that flexes with the bag.',
+      description: 'A sturdy cotton tote with a **fox holding an acorn** and the name of your choice below it.\n\nShown with the name *Mira*. Pressed in smooth vinyl that flexes with the bag.',
       blank: 'tote',
       price: [2400, 300],
       occasions: ['autumn-harvest', 'back-to-school'],
@@ -359,7 +359,9 @@ export async function seedCatalog(deps: AppDeps, ctx: SeedContext): Promise<void
       const photoOf = spec.photoOf ?? spec.motif?.key ?? '(none)';
       const input = listingInput(spec, ref(matIds, 'material'), ref(motifIds, 'motif'), ref(motifNames, 'motif'));
       const content = listingInputSchema.parse({ ...input, photoIds: [ref(photoIds, 'photo')(photoOf)] });
-      const at = base - n++ * 3_600_000; // an hour apart, so "newest" has an order
+      // an hour apart, so "newest" has an order; live ones were published weeks before the demo orders,
+      // ones in review were sent in the last hours (after their shop opened)
+      const at = base - n++ * 3_600_000 - (spec.state === 'live' ? 30 * 86_400_000 : 0);
       const slug = `${content.title
         .toLowerCase()
         .normalize('NFKD')

@@ -219,7 +219,7 @@ async function buyAll(deps: AppDeps, shopId: string, buyerId: string, sellerId: 
     const toApprove = lines
       .filter((l) => wanted.some((w) => w.approved && w.listingId === l.listingId && Object.values((l.snapshot as LineSnapshot).choices.texts).some((t) => t.text === w.name)))
       .map((l) => l.id);
-    if (toApprove.length) approve(at(paidAt + 6 * 3_600_000), shopId, sellerId, toApprove);
+    if (toApprove.length) approve(at(paidAt + 6 * 3_600_000), shopId, sellerId, toApprove, { mail: false });
     made.push(order.id);
   }
   return made;

@@ -2,6 +2,7 @@
 // demo-account check. What the seed does through a feature (the cart, checkout, payment, approval)
 // goes through that feature's public module instead.
 import { and, eq, inArray, sql } from 'drizzle-orm';
+import { motifFingerprint } from '../../shared/engine/motif-fingerprint.ts';
 import type { Db } from './client.ts';
 import { discountCodes, listings, materials, motifs, orderByDates, orderLines, orders, shops, uploads, user } from './schema.ts';
 
@@ -18,7 +19,11 @@ export const seedRepo = {
   setRole: (db: Db, userId: string, role: string) => db.update(user).set({ role, emailVerified: true }).where(eq(user.id, userId)).run(),
   insertShop: (db: Db, row: typeof shops.$inferInsert) => db.insert(shops).values(row).run(),
   insertMaterial: (db: Db, row: typeof materials.$inferInsert) => db.insert(materials).values(row).run(),
-  insertMotif: (db: Db, row: typeof motifs.$inferInsert) => db.insert(motifs).values(row).run(),
+  insertMotif: (db: Db, row: typeof motifs.$inferInsert) =>
+    db
+      .insert(motifs)
+      .values({ ...row, geometryHash: motifFingerprint(row.geometry) })
+      .run(),
   insertUpload: (db: Db, row: typeof uploads.$inferInsert) => db.insert(uploads).values(row).run(),
   insertListing: (db: Db, row: typeof listings.$inferInsert) => db.insert(listings).values(row).run(),
   insertDiscountCode: (db: Db, row: typeof discountCodes.$inferInsert) => db.insert(discountCodes).values(row).run(),

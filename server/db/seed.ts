@@ -76,8 +76,9 @@ export async function seedDemo(deps: AppDeps): Promise<void> {
       pressType: s.pressType,
       hourlyRateMinor: 1800, // demo: $18.00 an hour for labour in the cost of goods
       returnPolicy: 'Personalised items can be returned only if they arrive damaged or with a mistake on our side. Tell us within 14 days.',
-      createdAt: at,
-      updatedAt: at,
+      // a coherent story: the live shops opened months ago; the shop in review opened yesterday
+      createdAt: s.state === 'live' ? at - 90 * 86_400_000 : at - 86_400_000,
+      updatedAt: s.state === 'live' ? at - 90 * 86_400_000 : at - 86_400_000,
     });
   }
   const ctx: SeedContext = { userIds, shopIds };

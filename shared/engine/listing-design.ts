@@ -8,11 +8,13 @@
  * when a colour or motif is gone; the client's return undefined and the piece is left out.
  */
 
+import { materialLabel } from '../material-label.ts';
 // type-only: shared/schemas imports the engine at run time, not the other way round
 import type { DesignBlankChoice, DesignSize } from '../schemas/blanks.ts';
 import type { Choices, ListingContent } from '../schemas/listing.ts';
 import { type Blank, defaultBlank } from './blanks.ts';
 import type { ComposeInput, FieldDef, MaterialKind } from './compose.ts';
+import { FONT_CATALOG } from './font-catalog.ts';
 import type { StoredMotifGeometry } from './motif.ts';
 import { MATERIAL_KINDS } from './press-defaults.ts';
 
@@ -113,9 +115,11 @@ export function listingDesign(content: DesignContent, choices: Choices, lookups:
     pieceMaterial.set(f.id, m.id);
     if (outlineMat) pieceMaterial.set(`${f.id}-outline`, outlineMat.id);
     summary.push({ label: f.label, value: text });
-    summary.push({ label: `${f.label} colour`, value: `${m.colourName} (${m.kind})` });
+    const font = FONT_CATALOG.find((x) => x.id === (c?.fontId ?? f.defaultFontId));
+    if (font) summary.push({ label: `${f.label} font`, value: font.family });
+    summary.push({ label: `${f.label} colour`, value: materialLabel(m) });
   }
-  if (outlineMat) summary.push({ label: 'Outline colour', value: `${outlineMat.colourName} (${outlineMat.kind})` });
+  if (outlineMat) summary.push({ label: 'Outline colour', value: materialLabel(outlineMat) });
   // the blank's size and colour lead the summary: cart, order, proof and e-mails show them first
   if (blankChoice?.colour) summary.unshift({ label: `${blankChoice.noun} colour`, value: blankChoice.colour.name });
   if (blankChoice?.size) summary.unshift({ label: 'Size', value: blankChoice.size.label });

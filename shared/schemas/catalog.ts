@@ -132,7 +132,22 @@ export const QUEUE_PAGE_SIZE = 20;
 export const queueQuerySchema = pageQuery(QUEUE_PAGE_SIZE);
 /** GET /api/moderation/audit: decisions, newest first */
 export const AUDIT_PAGE_SIZE = 50;
-export const auditQuerySchema = pageQuery(AUDIT_PAGE_SIZE);
+/** Every action the audit log records, as the desk names them (the filter's choices). */
+export const AUDIT_ACTIONS = {
+  'listing.approve': 'Approved listing',
+  'listing.reject': 'Sent back listing',
+  'shop.approve': 'Approved shop',
+  'shop.reject': 'Rejected shop',
+  'shop.suspend': 'Suspended shop',
+  'shop.restore': 'Restored shop',
+  'shop.change.approve': 'Approved shop details',
+  'shop.change.reject': 'Sent back shop details',
+} as const;
+export type AuditAction = keyof typeof AUDIT_ACTIONS;
+export const auditQuerySchema = pageQuery(AUDIT_PAGE_SIZE).extend({
+  action: z.enum(Object.keys(AUDIT_ACTIONS) as [AuditAction, ...AuditAction[]], { error: 'Pick one of the actions.' }).optional(),
+});
+export type AuditQuery = z.output<typeof auditQuerySchema>;
 
 /** GET /api/moderation/shops: every shop, found by name, address or owner e-mail, optionally by state. */
 export const MODERATION_SHOPS_PAGE_SIZE = 20;

@@ -6,6 +6,7 @@ import { z } from 'zod';
 import { DEFAULT_BLANKS, type BlankKind as EngineBlankKind } from '../engine/blanks.ts';
 import { FONT_IDS } from '../engine/font-catalog.ts';
 import { listingBlankOfferSchema, offerColour, offerSize, type ResolvedBlankOffer, stockKey } from './blanks.ts';
+import { cheapestDesign } from './cheapest-design.ts';
 import { pageQuery } from './pagination.ts';
 
 // ---------------------------------------------------------------- occasions (shoppers browse by these)
@@ -245,14 +246,36 @@ export function layersForChoices(content: PricedContent, choices: Choices): stri
 }
 
 /**
- * Price in minor units: base price plus the extra-layer price for every layer after the first,
+ * The layers the base price covers: those of the cheapest design a shopper can make on this listing
+ * (cheapest-design.ts). A layer the shopper never chose (a fixed layer of a required motif, say) is
+ * part of every design, so it is never charged as an extra.
+ */
+export function includedLayers(content: PricedContent): number {
+  return Math.max(1, cheapestDesign(content.personalisation).layers);
+}
+
+/**
+ * Price in minor units: base price plus the extra-layer price for every layer past the included ones,
  * plus the chosen size's price difference (when the listing offers sizes: `offer`, resolved from the
  * shop's blank type by the server, or as the listing page carries it).
  */
 export function priceForChoices(content: PricedContent, choices: Choices, offer?: Pick<ResolvedBlankOffer, 'sizes'> | null): number {
   const layers = layersForChoices(content, choices).length;
   const sizeDiff = offerSize(offer, choices.sizeId)?.priceDiffMinor ?? 0;
-  return content.basePriceMinor + content.extraLayerPriceMinor * Math.max(0, layers - 1) + sizeDiff;
+  return content.basePriceMinor + content.extraLayerPriceMinor * Math.max(0, layers - includedLayers(content)) + sizeDiff;
+}
+
+/** The choices of the cheapest design a shopper can make (required texts filled with a one-letter name). */
+export function cheapestChoices(content: PricedContent): Choices {
+  const d = cheapestDesign(content.personalisation);
+  const texts: Choices['texts'] = {};
+  for (const f of content.personalisation.textFields) if (d.filledTextFieldIds.includes(f.id)) texts[f.id] = { text: 'A', fontId: f.defaultFontId, letterHeightMm: f.defaultLetterHeightMm };
+  return { texts, textColours: d.textColours, motifId: d.motifId, motifColours: d.motifColours, outlineMaterialId: d.outlineMaterialId, sizeId: null, colourId: null };
+}
+
+/** The "from" price: what the cheapest design a shopper can make costs. */
+export function fromPriceMinor(content: PricedContent): number {
+  return priceForChoices(content, cheapestChoices(content));
 }
 
 /**
@@ -321,10 +344,10 @@ export type SellerListing = {
 };
 
 /** The catalogue's denormalised columns for a live copy (filters and sort read these, not the JSON). */
-export function liveColumns(content: Pick<ListingContent, 'title' | 'basePriceMinor' | 'occasions'> & { blank: { kind: string } }) {
+export function liveColumns(content: Pick<ListingContent, 'title' | 'occasions'> & PricedContent & { blank: { kind: string } }) {
   return {
     liveTitle: content.title,
-    livePriceMinor: content.basePriceMinor,
+    livePriceMinor: fromPriceMinor(content),
     liveBlankKind: content.blank.kind,
     liveOccasions: `,${content.occasions.join(',')},`,
   };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkChoices, choicesSchema, layersForChoices, listingInputSchema, priceForChoices } from '../../shared/schemas/listing.ts';
+import { checkChoices, choicesSchema, includedLayers, layersForChoices, listingInputSchema, priceForChoices } from '../../shared/schemas/listing.ts';
 
 const content = listingInputSchema.parse({
   title: 'Rocket tee',
@@ -27,23 +27,25 @@ const content = listingInputSchema.parse({
 const choices = (c: unknown) => choicesSchema.parse(c);
 const name = (text: string, fontId = 'baloo-bold') => ({ text, fontId, letterHeightMm: 40 });
 
-describe('priceForChoices: base + extra layer price × (layers − 1)', () => {
-  it('when only a name is chosen (plus the outline), then two layers: base + 1 extra', () => {
+describe('priceForChoices: base + extra layer price × (layers past those of the cheapest design)', () => {
+  it('when only a name is chosen (plus the outline the listing always cuts), then two layers, both in the base price', () => {
     const c = choices({ texts: { name: name('Mira') } });
     expect(layersForChoices(content, c)).toEqual(['white', 'navy']);
-    expect(priceForChoices(content, c)).toBe(2200 + 250);
+    // the outline is never the shopper's choice to add: the cheapest design has it too
+    expect(includedLayers(content)).toBe(2);
+    expect(priceForChoices(content, c)).toBe(2200);
   });
 
   it('when a motif is added with a hull in a new colour, then each distinct material is a layer', () => {
     const c = choices({ texts: { name: name('Theo') }, textColours: { name: 'gold' }, motifId: 'rocket', motifColours: { hull: 'teal' } });
     expect(layersForChoices(content, c)).toEqual(['white', 'teal', 'yellow', 'gold']);
-    expect(priceForChoices(content, c)).toBe(2200 + 3 * 250);
+    expect(priceForChoices(content, c)).toBe(2200 + 2 * 250);
   });
 
   it('when two pieces share a material, then they are one layer (cut and pressed together)', () => {
     const c = choices({ texts: { name: name('Kai'), age: name('5') }, motifId: 'rocket', motifColours: { hull: 'navy' } });
     expect(layersForChoices(content, c)).toEqual(['white', 'navy', 'yellow']);
-    expect(priceForChoices(content, c)).toBe(2200 + 2 * 250);
+    expect(priceForChoices(content, c)).toBe(2200 + 250);
   });
 
   it('when nothing adds a layer beyond one, then the base price', () => {

@@ -20,6 +20,7 @@ import { needMark } from '../../../shared/business/needed-by.ts';
 import { ordersByListing, salesByWeek, vinylByMaterialMonth } from '../../../shared/business/reports.ts';
 import { dayInZone, parseDay, shipByDate, type WorkCalendar, workingDaysBetween } from '../../../shared/business/working-days.ts';
 import { parsePathData, pathArea, pathBBox } from '../../../shared/engine/path.ts';
+import { materialLabel } from '../../../shared/material-label.ts';
 import { minorDigits } from '../../../shared/money.ts';
 import type {
   BusinessSettings,
@@ -359,7 +360,7 @@ export function charts(deps: BusinessDeps, shop: ShopRow): ChartsView {
       return { day: dayInZone(order.paidAt, tz), salesMinor: lc.revenueMinor + lc.shippingMinor, marginMinor: lc.marginMinor, quantity: line.quantity };
     }),
   );
-  const mats = new Map(repo.materialsOfShop(deps.db, shop.id).map((m) => [m.id, `${m.colourName} ${m.kind}`]));
+  const mats = new Map(repo.materialsOfShop(deps.db, shop.id).map((m) => [m.id, materialLabel(m)]));
   const vinyl = vinylByMaterialMonth(
     repo
       .sheetsOfShop(deps.db, shop.id)

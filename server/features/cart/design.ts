@@ -8,6 +8,7 @@ import { type DesignMaterial, type DesignMotif, listingDesign } from '../../../s
 import { blankChoiceOf, offerColour, offerSize, type ResolvedBlankOffer } from '../../../shared/schemas/blanks.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { type Choices, checkChoices, type ListingContent, layersForChoices, materialIdsOf, type Personalisation, personalisationSchema, priceForChoices } from '../../../shared/schemas/listing.ts';
+import { formatSmallLength } from '../../../shared/units.ts';
 import { AppError, badRequest } from '../../http/app-error.ts';
 import type { WorkPool } from '../../workers/pool.ts';
 
@@ -126,6 +127,7 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
 
   const bb = composed.bboxMm;
   const r2 = (n: number) => Math.round(n * 100) / 100;
+  const shown = withLetterHeights(summary, content.personalisation.textFields, composed.letterHeights);
   return {
     listingId: args.listing.id,
     listingTitle: content.title,
@@ -134,7 +136,7 @@ function finish(args: Omit<SnapshotArgs, 'registry'>, design: ReturnType<typeof 
     currency: args.listing.currency,
     blank: snapshotBlank(content, args.offer, choices),
     choices,
-    summary,
+    summary: shown,
     geometry: {
       widthMm: r2(bb.maxX - bb.minX),
       heightMm: r2(bb.maxY - bb.minY),
@@ -158,6 +160,18 @@ function snapshotBlank(content: SnapshotArgs['content'], offer: ResolvedBlankOff
     ...(offer && size ? { blankTypeId: offer.blankTypeId, sizeId: size.id, sizeLabel: size.label } : {}),
     ...(colour ? { colourId: colour.id, colourName: colour.name, colourHex: colour.hex } : {}),
   };
+}
+
+/** The letter height each name is really cut at (after fitting), shown after its font, for the shopper and the shop. */
+function withLetterHeights(summary: LineSnapshot['summary'], fields: readonly { id: string; label: string }[], heights: Record<string, number>): LineSnapshot['summary'] {
+  const out: LineSnapshot['summary'] = [];
+  for (const row of summary) {
+    out.push(row);
+    const f = fields.find((x) => row.label === `${x.label} font`);
+    const h = f ? heights[f.id] : undefined;
+    if (f && h !== undefined) out.push({ label: `${f.label} letter height`, value: formatSmallLength(h) });
+  }
+  return out;
 }
 
 function prefix(errs: Record<string, string>): Record<string, string> {

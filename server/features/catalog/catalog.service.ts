@@ -1,5 +1,5 @@
 import { CARE_CARD, type CatalogItem, type CatalogPage, type CatalogQuery, type ListingPage, type PublicShop, SMALL_PARTS_NOTES } from '../../../shared/schemas/catalog.ts';
-import { materialIdsOf, type Occasion } from '../../../shared/schemas/listing.ts';
+import { fromPriceMinor, materialIdsOf, type Occasion } from '../../../shared/schemas/listing.ts';
 import { toPage } from '../../../shared/schemas/pagination.ts';
 import { type RatingSummary, ratingSummary } from '../../../shared/schemas/review.ts';
 import type { Db } from '../../db/client.ts';
@@ -76,7 +76,7 @@ export function listingPage(db: Db, slug: string, version: 'live' | 'draft', vie
     id: listing.id,
     slug: listing.slug,
     currency: listing.currency,
-    priceMinor: content.basePriceMinor,
+    priceMinor: fromPriceMinor(content),
     content,
     descriptionHtml: renderDescription(content.description, content.descriptionFormat),
     shop: {

@@ -1,7 +1,7 @@
 import { and, asc, desc, eq, inArray, isNotNull, or, type SQL, sql } from 'drizzle-orm';
 import type { SQLiteColumn } from 'drizzle-orm/sqlite-core';
 import type { Db } from '../../db/client.ts';
-import { auditLog, listings, shops, uploads, user } from '../../db/schema.ts';
+import { auditLog, listings, motifs, shops, uploads, user } from '../../db/schema.ts';
 import { listingsWithShop, shopsWithOwner } from '../../db/shared-queries.repo.ts';
 
 export type ShopRow = typeof shops.$inferSelect;
@@ -63,18 +63,21 @@ export const thumbOf = (db: Db, shopId: string, uploadId: string | undefined) =>
     : null;
 
 export const insertAudit = (db: Db, row: typeof auditLog.$inferInsert) => db.insert(auditLog).values(row).run();
-export const auditPage = (db: Db, limit: number, offset: number) =>
+const auditWhere = (action: string | undefined) => (action ? eq(auditLog.action, action) : undefined);
+export const auditPage = (db: Db, limit: number, offset: number, action?: string) =>
   db
     .select({ entry: auditLog, actorName: user.name, actorEmail: user.email })
     .from(auditLog)
     .innerJoin(user, eq(user.id, auditLog.actorId))
+    .where(auditWhere(action))
     .orderBy(desc(auditLog.createdAt), desc(sql`audit_log.rowid`))
     .limit(limit)
     .offset(offset)
     .all();
-export const auditCount = (db: Db) => db.select({ n: sql<number>`count(*)` }).from(auditLog).get()?.n ?? 0;
-export const shopNames = (db: Db, ids: string[]) => (ids.length ? db.select({ id: shops.id, name: shops.name }).from(shops).where(inArray(shops.id, ids)).all() : []);
-export const listingTitles = (db: Db, ids: string[]) => (ids.length ? db.select({ id: listings.id, draft: listings.draft }).from(listings).where(inArray(listings.id, ids)).all() : []);
+export const auditCount = (db: Db, action?: string) => db.select({ n: sql<number>`count(*)` }).from(auditLog).where(auditWhere(action)).get()?.n ?? 0;
+export const shopNames = (db: Db, ids: string[]) => (ids.length ? db.select({ id: shops.id, name: shops.name, slug: shops.slug }).from(shops).where(inArray(shops.id, ids)).all() : []);
+export const listingTitles = (db: Db, ids: string[]) =>
+  ids.length ? db.select({ id: listings.id, draft: listings.draft, slug: listings.slug }).from(listings).where(inArray(listings.id, ids)).all() : [];
 
 /** Every shop, filtered by a case-insensitive substring of name, slug or owner e-mail and by state. */
 function shopFilter(q: string, state: string | undefined): SQL | undefined {
@@ -90,3 +93,23 @@ function shopFilter(q: string, state: string | undefined): SQL | undefined {
 export const shopsPage = (db: Db, f: { q: string; state?: string }, limit: number, offset: number) =>
   shopOwnerPage(db, shopFilter(f.q, f.state), [asc(sql`lower(${shops.name})`), asc(shops.id)], limit, offset);
 export const shopsCount = (db: Db, f: { q: string; state?: string }) => shopOwnerCount(db, shopFilter(f.q, f.state));
+
+/** Motifs of other shops with the same fingerprint as these motifs of `shopId` (same artwork uploaded twice). */
+export function motifsSharedWithOtherShops(db: Db, shopId: string, motifIds: string[]) {
+  if (motifIds.length === 0) return [];
+  const own = db
+    .select({ id: motifs.id, name: motifs.name, hash: motifs.geometryHash })
+    .from(motifs)
+    .where(and(eq(motifs.shopId, shopId), inArray(motifs.id, motifIds), isNotNull(motifs.geometryHash)))
+    .all();
+  const hashes = [...new Set(own.map((m) => m.hash!))];
+  if (hashes.length === 0) return [];
+  const others = db
+    .select({ hash: motifs.geometryHash, name: motifs.name, shopName: shops.name, shopSlug: shops.slug })
+    .from(motifs)
+    .innerJoin(shops, eq(shops.id, motifs.shopId))
+    .where(and(inArray(motifs.geometryHash, hashes), sql`${motifs.shopId} <> ${shopId}`))
+    .limit(50)
+    .all();
+  return own.flatMap((m) => others.filter((o) => o.hash === m.hash).map((o) => ({ motifId: m.id, motifName: m.name, otherShop: { name: o.shopName, slug: o.shopSlug }, otherMotifName: o.name })));
+}

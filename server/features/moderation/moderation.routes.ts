@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import {
+  type AuditQuery,
   approveShopSchema,
   auditQuerySchema,
   decisionSchema,
@@ -63,7 +64,7 @@ export function moderationRouter(deps: AppDeps): Router {
       res.json({ shop: await svc.moveShop(deps, currentUser(req), id(req), move, req.body.reason) });
     });
   r.get('/audit', validate({ query: auditQuerySchema }), (_req, res) => {
-    res.json(svc.auditLog(deps.db, res.locals.query as PageQuery));
+    res.json(svc.auditLog(deps.db, res.locals.query as AuditQuery));
   });
   return r;
 }

@@ -102,16 +102,20 @@ export function listingQueueItem(db: Db, id: string) {
   return queueListing(row);
 }
 
+/** A motif of the listing that is the same artwork as another shop's (same geometry fingerprint). */
+export type MotifReuse = { motifId: string; motifName: string; otherShop: { name: string; slug: string }; otherMotifName: string };
+
 /**
  * One listing waiting for review, with its page rendered from the same read of the row: the
  * revision returned is the one whose text the moderator is shown.
  */
-export function listingForReview(db: Db, actor: SessionUser, id: string): { listing: ReturnType<typeof queueListing>; page: ListingPage } {
+export function listingForReview(db: Db, actor: SessionUser, id: string): { listing: ReturnType<typeof queueListing>; page: ListingPage; motifReuse: MotifReuse[] } {
   const l = repo.findListing(db, id);
   const shop = l ? repo.findShop(db, l.shopId) : undefined;
   if (!l || !shop) throw notFound('No such listing.');
   if (l.state !== 'in_review' && !l.pendingReview) throw notFound('This listing is not waiting for review (it may have been decided already).');
-  return { listing: queueListing({ listing: l, shop }), page: listingPage(db, l.slug, 'draft', actor) };
+  const motifIds = l.draft.personalisation.motifChoices.map((m) => m.motifId);
+  return { listing: queueListing({ listing: l, shop }), page: listingPage(db, l.slug, 'draft', actor), motifReuse: repo.motifsSharedWithOtherShops(db, shop.id, motifIds) };
 }
 
 /** The desk's shop directory: any shop in any state, so a live one can be found and suspended. */
@@ -194,7 +198,8 @@ export async function rejectListing(deps: Deps, actor: SessionUser, id: string, 
 const SHOP_MOVES = {
   approve: { from: ['in_review'], to: 'live', action: 'shop.approve' },
   reject: { from: ['in_review'], to: 'rejected', action: 'shop.reject' },
-  suspend: { from: ['live', 'in_review'], to: 'suspended', action: 'shop.suspend' },
+  // a shop in review is not public yet: it is approved or rejected, there is nothing to suspend
+  suspend: { from: ['live'], to: 'suspended', action: 'shop.suspend' },
   restore: { from: ['suspended'], to: 'live', action: 'shop.restore' },
 } as const;
 export type ShopMove = keyof typeof SHOP_MOVES;
@@ -277,21 +282,26 @@ export async function rejectShopChange(deps: Deps, actor: SessionUser, id: strin
 }
 
 /** Every moderation decision, newest first, a page at a time. */
-export function auditLog(db: Db, q: PageQuery) {
-  const rows = repo.auditPage(db, q.limit, pageOffset(q));
+export function auditLog(db: Db, q: PageQuery & { action?: string | undefined }) {
+  const rows = repo.auditPage(db, q.limit, pageOffset(q), q.action);
   const shopIds = rows.filter((r) => r.entry.subjectType === 'shop').map((r) => r.entry.subjectId);
   const listingIds = rows.filter((r) => r.entry.subjectType === 'listing').map((r) => r.entry.subjectId);
   const labels = new Map<string, string>([
     ...repo.shopNames(db, shopIds).map((s) => [s.id, s.name] as [string, string]),
     ...repo.listingTitles(db, listingIds).map((l) => [l.id, l.draft.title] as [string, string]),
   ]);
+  // where the subject can be opened: a shop's public page, a listing's page (admins may see drafts)
+  const hrefs = new Map<string, string>([
+    ...repo.shopNames(db, shopIds).map((s) => [s.id, `/shops/${encodeURIComponent(s.slug)}`] as [string, string]),
+    ...repo.listingTitles(db, listingIds).map((l) => [l.id, `/listings/${encodeURIComponent(l.slug)}`] as [string, string]),
+  ]);
   const items = rows.map(({ entry, actorName, actorEmail }) => ({
     id: entry.id,
     at: entry.createdAt,
     actor: { id: entry.actorId, name: actorName, email: actorEmail },
     action: entry.action,
-    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null },
+    subject: { type: entry.subjectType, id: entry.subjectId, label: labels.get(entry.subjectId) ?? null, href: hrefs.get(entry.subjectId) ?? null },
     reason: entry.reason,
   }));
-  return toPage(items, repo.auditCount(db), q);
+  return toPage(items, repo.auditCount(db, q.action), q);
 }

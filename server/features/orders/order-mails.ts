@@ -45,7 +45,7 @@ export function confirmationMail(to: { email: string; name: string }, orders: Ma
       `Hello ${to.name},`,
       '',
       intro,
-      'Each shop checks the spelling of your personalisation before it cuts anything; we will e-mail you at every step.',
+      'Each shop checks the spelling of your personalisation before it cuts anything; we will e-mail you when it is approved and made, if the shop needs you to check something, and when it ships.',
       '',
       ...orders.map(orderBlockText).flatMap((b) => [b, '']),
       `Paid in total: ${formatMoney(total, currency)}`,
@@ -54,7 +54,7 @@ export function confirmationMail(to: { email: string; name: string }, orders: Ma
     ].join('\n'),
     html: mailLayout(
       'Thank you for your order',
-      `<p>Hello ${esc(to.name)},</p><p>${esc(intro)} Each shop checks the spelling of your personalisation before it cuts anything; we will e-mail you at every step.</p>
+      `<p>Hello ${esc(to.name)},</p><p>${esc(intro)} Each shop checks the spelling of your personalisation before it cuts anything; we will e-mail you when it is approved and made, if the shop needs you to check something, and when it ships.</p>
 ${orders.map(orderBlockHtml).join('\n')}
 <p style="font-size:17px;font-weight:800">Paid in total: ${esc(formatMoney(total, currency))}</p>
 <p><a href="${esc(link)}" style="display:inline-block;background:#e0a526;color:#1f2a44;font-weight:800;padding:10px 18px;border-radius:8px;text-decoration:none">Follow your orders</a></p>`,

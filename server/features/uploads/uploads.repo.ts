@@ -1,4 +1,5 @@
 import { and, desc, eq, like, or } from 'drizzle-orm';
+import { motifFingerprint } from '../../../shared/engine/motif-fingerprint.ts';
 import type { Db } from '../../db/client.ts';
 import { listings, motifs, shops, uploads } from '../../db/schema.ts';
 
@@ -19,7 +20,12 @@ export const deleteUpload = (db: Db, shopId: string, id: string) =>
     .where(and(eq(uploads.id, id), eq(uploads.shopId, shopId)))
     .run();
 
-export const insertMotif = (db: Db, row: typeof motifs.$inferInsert) => db.insert(motifs).values(row).returning().get();
+export const insertMotif = (db: Db, row: typeof motifs.$inferInsert) =>
+  db
+    .insert(motifs)
+    .values({ ...row, geometryHash: motifFingerprint(row.geometry) })
+    .returning()
+    .get();
 export const listMotifs = (db: Db, shopId: string) => db.select().from(motifs).where(eq(motifs.shopId, shopId)).orderBy(desc(motifs.createdAt)).all();
 export const findMotif = (db: Db, shopId: string, id: string) =>
   db

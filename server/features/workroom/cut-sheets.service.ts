@@ -7,8 +7,10 @@ import { withCutOutlines } from '../../../shared/engine/cut-path.ts';
 import { cutSheetSvg } from '../../../shared/engine/cut-sheet-svg.ts';
 import { type CutSheet, CutSheetError, DEFAULT_GAP_MM, DEFAULT_MARGIN_MM } from '../../../shared/engine/cut-sheets.ts';
 import { MAX_NEST_PIECES } from '../../../shared/engine/limits.ts';
+import { materialLabel } from '../../../shared/material-label.ts';
 import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
 import type { Grouping, MarkCutResult, SheetLayout, StockWarning, StoredSheetPiece, WorkSheet } from '../../../shared/schemas/workroom.ts';
+import { formatLength } from '../../../shared/units.ts';
 import type { Db } from '../../db/client.ts';
 import { AppError, conflict, notFound } from '../../http/app-error.ts';
 import type { NestedSheet, RawPiece } from '../../workers/tasks.ts';
@@ -143,7 +145,7 @@ export async function buildCutSheets(
       try {
         nestedByMaterial.set(g.material.id, await deps.pool.run({ kind: 'nest', rollWidthMm: g.material.rollWidthMm, pieces: g.pieces, grouping: layout.grouping, weedingLines: layout.weedingLines }));
       } catch (e) {
-        if (e instanceof CutSheetError) throw new AppError(409, e.code, `${g.material.colourName} ${g.material.kind}: ${e.message}`);
+        if (e instanceof CutSheetError) throw new AppError(409, e.code, `${materialLabel(g.material)}: ${e.message}`);
         throw e;
       }
     }),
@@ -322,14 +324,15 @@ export function markCut(deps: WorkroomDeps, shopId: string, actorId: string, she
       if (!m) continue;
       const after = r3(m.stockMm - consumed);
       repo.setMaterial(t, m.id, { stockMm: Math.max(0, after) });
-      const label = `${m.colourName} ${m.kind}`;
+      const label = materialLabel(m);
       if (after < 0)
         warnings.push({
           materialId: m.id,
           level: 'short',
-          message: `${label}: this sheet needed ${consumed} mm but only ${m.stockMm} mm was in stock — short by ${r3(-after)} mm. Stock is now 0; check the roll and update it.`,
+          message: `${label}: this sheet needed ${formatLength(consumed)} but only ${formatLength(m.stockMm)} was in stock — short by ${formatLength(-after)}. Stock is now 0; check the roll and update it.`,
         });
-      else if (after < m.lowStockMm) warnings.push({ materialId: m.id, level: 'low', message: `${label}: ${after} mm left, under your low-stock mark of ${m.lowStockMm} mm. Time to reorder.` });
+      else if (after < m.lowStockMm)
+        warnings.push({ materialId: m.id, level: 'low', message: `${label}: ${formatLength(after)} left, under your low-stock mark of ${formatLength(m.lowStockMm)}. Time to reorder.` });
     }
     const lineIds = [...new Set(todo.flatMap((s) => s.pieces.map((p) => p.lineId)))];
     for (const { line } of repo.linesByIds(t, shopId, lineIds)) {

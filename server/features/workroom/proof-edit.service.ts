@@ -5,6 +5,7 @@
 // Every version is kept.
 import crypto from 'node:crypto';
 import { catalogEntry } from '../../../shared/engine/font-catalog.ts';
+import { materialLabel } from '../../../shared/material-label.ts';
 import { formatMoney } from '../../../shared/money.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import { canMoveLine, type LineState } from '../../../shared/schemas/order.ts';
@@ -55,7 +56,7 @@ export function personalisationForEdit(db: Db, buyerId: string, lineId: string):
       }),
       colours: f.colourChoices.map((id) => {
         const m = mats.get(id);
-        return { id, label: m ? `${m.colourName} (${m.kind})` : 'Unavailable colour', hex: m?.colourHex ?? '#000000' };
+        return { id, label: m ? materialLabel(m) : 'Unavailable colour', hex: m?.colourHex ?? '#000000' };
       }),
     })),
   };

@@ -8,6 +8,7 @@ import { blankFor } from '../../../shared/engine/listing-design.ts';
 import type { LineSnapshot } from '../../../shared/schemas/cart.ts';
 import type { Personalisation } from '../../../shared/schemas/listing.ts';
 import type { CharInfo, Proof, ProofText, ProofVersion, ProofWarning, WorkLine } from '../../../shared/schemas/workroom.ts';
+import { formatSmallLength } from '../../../shared/units.ts';
 import type { Db } from '../../db/client.ts';
 import { notFound } from '../../http/app-error.ts';
 import { getFontRegistry } from '../../integrations/fonts.ts';
@@ -16,7 +17,7 @@ import { listingContent, proofBlank } from './blank-view.ts';
 import { lineSnapshot, lineText, lineTitle, lineViews, ownLine, type WorkroomDeps } from './lines.service.ts';
 import { pressCardFor } from './press.service.ts';
 import { workroomRepo as repo } from './workroom.repo.ts';
-import { changeRequestMail } from './workroom-mails.ts';
+import { changeRequestMail, inProductionMail } from './workroom-mails.ts';
 
 /** Characters people mistake for others or can't see; named on the proof. */
 const CHAR_NAMES: Record<number, string> = {
@@ -110,7 +111,11 @@ export function proofWarnings(s: LineSnapshot, p: Personalisation | null, topOff
         warnings.push({ code: w.code, fieldId, message: `${label}: ${w.message}` });
       }
       if (fitted.scale < 0.999 && !fitted.warnings.some((w) => w.code === 'too_long')) {
-        warnings.push({ code: 'shrunk_to_fit', fieldId, message: `${label}: shrunk to ${fitted.letterHeightMm.toFixed(1)} mm letters to fit the print area (chosen ${t.letterHeightMm} mm).` });
+        warnings.push({
+          code: 'shrunk_to_fit',
+          fieldId,
+          message: `${label}: shrunk to ${formatSmallLength(fitted.letterHeightMm)} letters to fit the print area (chosen ${formatSmallLength(t.letterHeightMm)}).`,
+        });
       }
     } catch {
       warnings.push({ code: 'font_unavailable', fieldId, message: `${label}: the font ${t.fontId} is not available on this server.` });
@@ -168,8 +173,11 @@ export function proof(db: Db, shopId: string, lineId: string): Proof {
   };
 }
 
-/** Approves one or more proofs (all or nothing): each must be the shop's and awaiting its proof. */
-export function approve(deps: WorkroomDeps, shopId: string, actorId: string, lineIds: string[]): WorkLine[] {
+/**
+ * Approves one or more proofs (all or nothing): each must be the shop's and awaiting its proof. The
+ * shopper is e-mailed that the item is in production (`mail: false` only for the demo's history).
+ */
+export function approve(deps: WorkroomDeps, shopId: string, actorId: string, lineIds: string[], opts: { mail?: boolean } = {}): WorkLine[] {
   const { db } = deps;
   const rows = repo.linesByIds(db, shopId, lineIds);
   if (rows.length !== lineIds.length) throw notFound('Some of these lines were not found in your shop.');
@@ -184,7 +192,28 @@ export function approve(deps: WorkroomDeps, shopId: string, actorId: string, lin
     db,
     rows.map((r) => ({ line: r.line, to: 'approved' as const, actor: 'shop' as const, actorId, at, message: `Proof approved (version ${r.line.version}).` })),
   );
+  if (opts.mail !== false) sendInProductionMails(deps, shopId, rows);
   return lineViews(db, shopId, repo.linesByIds(db, shopId, lineIds));
+}
+
+/** One "in production" e-mail per order whose lines were just approved (sent after the answer; a failure is logged). */
+function sendInProductionMails(deps: WorkroomDeps, shopId: string, rows: ReturnType<typeof repo.linesByIds>) {
+  const shop = repo.shop(deps.db, shopId);
+  const byOrder = new Map<string, typeof rows>();
+  for (const r of rows) byOrder.set(r.order.id, [...(byOrder.get(r.order.id) ?? []), r]);
+  const buyers = new Map(repo.users(deps.db, [...new Set(rows.map((r) => r.order.buyerId))]).map((u) => [u.id, u]));
+  for (const group of byOrder.values()) {
+    const { order } = group[0]!;
+    const buyer = buyers.get(order.buyerId);
+    if (!buyer) continue;
+    const items = group.map((r) => {
+      const text = lineText(lineSnapshot(r.line));
+      return `${r.line.listingTitle}${text ? ` — “${text}”` : ''}`;
+    });
+    deps.mailer
+      .send(inProductionMail(buyer, { shopName: shop?.name ?? 'The shop', orderNumber: order.number, orderId: order.id, items }, deps.env.baseUrl))
+      .catch((e: unknown) => console.error('workroom: in-production e-mail failed', e));
+  }
 }
 
 export async function requestChange(deps: WorkroomDeps, shopId: string, actorId: string, lineId: string, message: string): Promise<WorkLine> {

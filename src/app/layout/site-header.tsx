@@ -31,8 +31,9 @@ export function navItemsFor(me: Me | null | undefined): NavItem[] {
     { to: paths.cart.getHref(), label: 'Cart' },
   ];
   if (!me) return items;
-  items.push({ to: paths.orders.getHref(), label: 'Orders' });
   const role = me.user.role;
+  // a seller's "orders" are her shop's (in the workroom): her own purchases are named as such
+  items.push({ to: paths.orders.getHref(), label: role === 'seller' || me.shop ? 'My purchases' : 'Orders' });
   if (role === 'shopper' && !me.shop) items.push({ to: paths.openShop.getHref(), label: 'Open a shop' });
   if (role === 'seller' || me.shop) items.push({ to: paths.workroom.getHref(), label: 'Workroom' });
   if (role === 'admin') {

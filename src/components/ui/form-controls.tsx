@@ -11,7 +11,7 @@ const controlClasses = (error?: string) =>
 export function FieldError({ id, message }: { id?: string; message?: string }) {
   if (!message) return null;
   return (
-    <p id={id} className="flex items-start gap-1.5 text-sm font-semibold text-danger">
+    <p id={id} data-field-error className="flex items-start gap-1.5 text-sm font-semibold text-danger">
       <span aria-hidden="true">●</span>
       <span>{message}</span>
     </p>

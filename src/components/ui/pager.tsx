@@ -46,6 +46,13 @@ type PagerProps = {
  * say they are unavailable instead of vanishing from the tab order), and the page reached is
  * announced. A page past the end (rows were removed meanwhile) offers the way back to the last.
  */
+/** The plural noun a list is counted in ("entries", "cut sheets"), made singular for one: "1 entry". */
+export function countNoun(n: number, plural: string): string {
+  if (n !== 1) return plural;
+  if (plural.endsWith('ies')) return `${plural.slice(0, -3)}y`;
+  return plural.endsWith('s') ? plural.slice(0, -1) : plural;
+}
+
 export function Pager({ page, total, limit, label, noun, onPageChange, className = '' }: PagerProps) {
   const pages = pageCount(total, limit);
   if (pages <= 1 && page <= 1) return null;
@@ -69,7 +76,7 @@ export function Pager({ page, total, limit, label, noun, onPageChange, className
           <span className="font-bold">
             Page {page} of {pages}
           </span>
-          <span className="text-sm text-ink-soft">{page > pages ? `${total} ${noun} in all` : `${first}–${last} of ${total} ${noun}`}</span>
+          <span className="text-sm text-ink-soft">{page > pages ? `${total} ${countNoun(total, noun)} in all` : `${first}–${last} of ${total} ${countNoun(total, noun)}`}</span>
         </p>
         <Button variant="secondary" aria-disabled={!canNext || undefined} className={canNext ? '' : off} onClick={() => canNext && onPageChange(page + 1)}>
           Next page <span aria-hidden="true">→</span>

@@ -1,3 +1,4 @@
+import { formatDate } from '../../../shared/dates.ts';
 import type { DueLine } from '../../../shared/schemas/business.ts';
 import { NeedMarkBadge, ShipMarkBadge } from './ship-mark-badge.tsx';
 
@@ -13,7 +14,7 @@ export function ShipByCell({ info }: { info: DueLine | undefined }) {
   if (!info?.shipBy) return <span className="text-ink-soft">—</span>;
   return (
     <span className="flex flex-col items-start gap-1">
-      <span className="font-semibold whitespace-nowrap tabular-nums">{info.shipBy}</span>
+      <span className="font-semibold whitespace-nowrap tabular-nums">{formatDate(info.shipBy)}</span>
       <ShipMarkBadge mark={info.mark} />
       <NeedMarkBadge mark={info.needMark} neededBy={info.neededBy} />
     </span>

@@ -53,6 +53,8 @@ export function SearchPage() {
   };
 
   const selectId = useId();
+  const [filtersOpen, setFiltersOpen] = useState(false);
+  const filtersSet = [state.occasion, state.blank, state.shop, state.minPrice, state.maxPrice].filter(Boolean).length;
   const serverFields = list.error && 'fields' in list.error ? (list.error.fields as Record<string, string> | undefined) : undefined;
   const priceError = invalid ? 'Enter a price like 15 or 15.50.' : (serverFields?.minPrice ?? serverFields?.maxPrice);
   const title = state.q ? `Results for “${state.q}”` : state.occasion ? OCCASION_LABELS[state.occasion] : 'Everything on Namesake';
@@ -69,90 +71,96 @@ export function SearchPage() {
             <TextField label="Search" type="search" name="q" value={q} onChange={(e) => setQ(e.target.value)} placeholder="tote, rocket, birthday…" className="flex-1" maxLength={100} />
             <Button type="submit">Search</Button>
           </div>
-          <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-            <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-occasion`} className="font-bold">
-                Occasion
-              </label>
-              <select id={`${selectId}-occasion`} className={selectClass} value={state.occasion} onChange={(e) => update({ occasion: e.target.value as SearchState['occasion'] })}>
-                <option value="">Any occasion</option>
-                {OCCASIONS.map((o) => (
-                  <option key={o} value={o}>
-                    {OCCASION_LABELS[o]}
-                  </option>
-                ))}
-              </select>
+          {/* on a phone the filters fold away behind one button, so the first screen shows listings */}
+          <Button variant="secondary" className="sm:hidden" aria-expanded={filtersOpen} aria-controls={`${selectId}-filters`} onClick={() => setFiltersOpen((o) => !o)}>
+            {filtersOpen ? 'Hide filters' : `Filters and sort${filtersSet ? ` (${filtersSet} set)` : ''}`}
+          </Button>
+          <div id={`${selectId}-filters`} className={`flex flex-col gap-5 ${filtersOpen ? '' : 'max-sm:hidden'}`}>
+            <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
+              <div className="flex flex-col gap-1.5">
+                <label htmlFor={`${selectId}-occasion`} className="font-bold">
+                  Occasion
+                </label>
+                <select id={`${selectId}-occasion`} className={selectClass} value={state.occasion} onChange={(e) => update({ occasion: e.target.value as SearchState['occasion'] })}>
+                  <option value="">Any occasion</option>
+                  {OCCASIONS.map((o) => (
+                    <option key={o} value={o}>
+                      {OCCASION_LABELS[o]}
+                    </option>
+                  ))}
+                </select>
+              </div>
+              <div className="flex flex-col gap-1.5">
+                <label htmlFor={`${selectId}-blank`} className="font-bold">
+                  Item
+                </label>
+                <select id={`${selectId}-blank`} className={selectClass} value={state.blank} onChange={(e) => update({ blank: e.target.value as SearchState['blank'] })}>
+                  <option value="">Any item</option>
+                  {BLANK_KINDS.map((b) => (
+                    <option key={b} value={b}>
+                      {BLANK_DEFAULTS[b].label}
+                    </option>
+                  ))}
+                </select>
+              </div>
+              <div className="flex flex-col gap-1.5">
+                <label htmlFor={`${selectId}-shop`} className="font-bold">
+                  Shop
+                </label>
+                <select id={`${selectId}-shop`} className={selectClass} value={state.shop} onChange={(e) => update({ shop: e.target.value })}>
+                  <option value="">Any shop</option>
+                  {shops.map(([slug, name]) => (
+                    <option key={slug} value={slug}>
+                      {name}
+                    </option>
+                  ))}
+                </select>
+              </div>
+              <div className="flex flex-col gap-1.5">
+                <label htmlFor={`${selectId}-sort`} className="font-bold">
+                  Sort
+                </label>
+                <select id={`${selectId}-sort`} className={selectClass} value={state.sort} onChange={(e) => update({ sort: e.target.value as SearchState['sort'] })}>
+                  {Object.entries(SORT_LABELS).map(([v, l]) => (
+                    <option key={v} value={v}>
+                      {l}
+                    </option>
+                  ))}
+                </select>
+              </div>
             </div>
-            <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-blank`} className="font-bold">
-                Item
-              </label>
-              <select id={`${selectId}-blank`} className={selectClass} value={state.blank} onChange={(e) => update({ blank: e.target.value as SearchState['blank'] })}>
-                <option value="">Any item</option>
-                {BLANK_KINDS.map((b) => (
-                  <option key={b} value={b}>
-                    {BLANK_DEFAULTS[b].label}
-                  </option>
-                ))}
-              </select>
-            </div>
-            <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-shop`} className="font-bold">
-                Shop
-              </label>
-              <select id={`${selectId}-shop`} className={selectClass} value={state.shop} onChange={(e) => update({ shop: e.target.value })}>
-                <option value="">Any shop</option>
-                {shops.map(([slug, name]) => (
-                  <option key={slug} value={slug}>
-                    {name}
-                  </option>
-                ))}
-              </select>
-            </div>
-            <div className="flex flex-col gap-1.5">
-              <label htmlFor={`${selectId}-sort`} className="font-bold">
-                Sort
-              </label>
-              <select id={`${selectId}-sort`} className={selectClass} value={state.sort} onChange={(e) => update({ sort: e.target.value as SearchState['sort'] })}>
-                {Object.entries(SORT_LABELS).map(([v, l]) => (
-                  <option key={v} value={v}>
-                    {l}
-                  </option>
-                ))}
-              </select>
-            </div>
+            <fieldset className="flex flex-col gap-2">
+              <legend className="mb-1.5 font-bold">Price (USD)</legend>
+              <div className="flex flex-wrap items-end gap-3">
+                <TextField
+                  label="From"
+                  inputMode="decimal"
+                  value={minPrice}
+                  onChange={(e) => setMinPrice(e.target.value)}
+                  placeholder="0"
+                  className="w-28"
+                  aria-invalid={invalid === 'minPrice' || !!serverFields?.minPrice || undefined}
+                />
+                <TextField
+                  label="To"
+                  inputMode="decimal"
+                  value={maxPrice}
+                  onChange={(e) => setMaxPrice(e.target.value)}
+                  placeholder="any"
+                  className="w-28"
+                  aria-invalid={invalid === 'maxPrice' || !!serverFields?.maxPrice || undefined}
+                />
+                <Button type="submit" variant="secondary">
+                  Apply price
+                </Button>
+              </div>
+              {priceError ? (
+                <p role="alert" className="text-sm font-semibold text-danger">
+                  {priceError}
+                </p>
+              ) : null}
+            </fieldset>
           </div>
-          <fieldset className="flex flex-col gap-2">
-            <legend className="mb-1.5 font-bold">Price (USD)</legend>
-            <div className="flex flex-wrap items-end gap-3">
-              <TextField
-                label="From"
-                inputMode="decimal"
-                value={minPrice}
-                onChange={(e) => setMinPrice(e.target.value)}
-                placeholder="0"
-                className="w-28"
-                aria-invalid={invalid === 'minPrice' || !!serverFields?.minPrice || undefined}
-              />
-              <TextField
-                label="To"
-                inputMode="decimal"
-                value={maxPrice}
-                onChange={(e) => setMaxPrice(e.target.value)}
-                placeholder="any"
-                className="w-28"
-                aria-invalid={invalid === 'maxPrice' || !!serverFields?.maxPrice || undefined}
-              />
-              <Button type="submit" variant="secondary">
-                Apply price
-              </Button>
-            </div>
-            {priceError ? (
-              <p role="alert" className="text-sm font-semibold text-danger">
-                {priceError}
-              </p>
-            ) : null}
-          </fieldset>
         </form>
       </search>
 

@@ -1,5 +1,6 @@
 import { useEffect } from 'react';
 import { Link, useLocation } from 'react-router-dom';
+import { formatDateTime } from '../../../../shared/dates.ts';
 import { Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading, StitchedBox } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
@@ -11,7 +12,6 @@ import { ShopChangeCard } from '../../../features/moderation/components/shop-cha
 import { ShopFinder } from '../../../features/moderation/components/shop-finder.tsx';
 import { SHOPS_SECTION_ID } from './desk-nav.tsx';
 
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 const shopStateLabel = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' } as const;
 
 export function ModerationDeskPage() {
@@ -62,7 +62,7 @@ export function ModerationDeskPage() {
                       </span>
                       <p className="font-extrabold break-words">{l.title}</p>
                       <p className="text-sm text-ink-soft">
-                        {l.shop.name} · sent {when.format(l.submittedAt)}
+                        {l.shop.name} · sent {formatDateTime(l.submittedAt)}
                       </p>
                     </div>
                     <Link
@@ -93,7 +93,7 @@ export function ModerationDeskPage() {
                     <div>
                       <p className="text-lg font-extrabold break-words">{s.name}</p>
                       <p className="text-sm [overflow-wrap:anywhere] text-ink-soft">
-                        /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {when.format(s.createdAt)}
+                        /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {formatDateTime(s.createdAt)}
                       </p>
                     </div>
                     {s.description ? <p className="whitespace-pre-wrap">{s.description}</p> : <p className="text-ink-faint">No description yet.</p>}

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import type { ListingContent } from '../../../../shared/schemas/listing.ts';
+import { LISTING_CHANGE_REASONS } from '../../../../shared/schemas/moderation-reasons.ts';
 import { Button, ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
@@ -74,6 +75,22 @@ export function ReviewListingPage() {
                 <strong>Edit of a live listing.</strong> Changed: {changedParts(item.draft, item.live).join(', ') || 'nothing visible'}. The approved version stays on sale until you decide.
               </p>
             ) : null}
+            {review.data.motifReuse?.length ? (
+              <div role="note" data-testid="motif-reuse" className="rounded-lg border-2 border-danger bg-danger-wash p-3">
+                <p className="font-extrabold">Same artwork as another shop</p>
+                <ul className="mt-1 list-disc pl-5 text-sm">
+                  {review.data.motifReuse.map((r) => (
+                    <li key={`${r.motifId}:${r.otherShop.slug}:${r.otherMotifName}`}>
+                      The motif “{r.motifName}” has the same cut shapes as “{r.otherMotifName}” of{' '}
+                      <a className="font-bold underline" href={`/shops/${encodeURIComponent(r.otherShop.slug)}`}>
+                        {r.otherShop.name}
+                      </a>
+                      . Check the seller may use it before approving.
+                    </li>
+                  ))}
+                </ul>
+              </div>
+            ) : null}
             <ListingPreview page={review.data.page} />
           </div>
           <aside className="flex flex-col gap-5 lg:sticky lg:top-4 lg:self-start" aria-label="Decision">
@@ -93,7 +110,8 @@ export function ReviewListingPage() {
               ) : rejecting ? (
                 <ReasonForm
                   label="Reason for the seller"
-                  submitLabel="Reject listing"
+                  submitLabel="Send back for changes"
+                  presets={LISTING_CHANGE_REASONS}
                   danger
                   onCancel={() => setRejecting(false)}
                   onSubmit={async (reason) => {
@@ -129,7 +147,7 @@ export function ReviewListingPage() {
                     Approve listing
                   </Button>
                   <Button variant="secondary" onClick={() => setRejecting(true)}>
-                    Reject with a reason
+                    Send back for changes…
                   </Button>
                 </div>
               )}

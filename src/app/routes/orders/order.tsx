@@ -1,4 +1,5 @@
 import { useParams } from 'react-router-dom';
+import { formatDate } from '../../../../shared/dates.ts';
 import { ButtonLink, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -32,11 +33,7 @@ export function OrderPage() {
   const o = order.data;
   return (
     <div>
-      <PageHeading
-        eyebrow={`Order ${o.number}`}
-        title={`Your order from ${o.shop.name}`}
-        lead={`Paid on ${new Date(o.paidAt).toLocaleDateString(undefined, { year: 'numeric', month: 'long', day: 'numeric' })}.`}
-      />
+      <PageHeading eyebrow={`Order ${o.number}`} title={`Your order from ${o.shop.name}`} lead={`Paid on ${formatDate(o.paidAt)}.`} />
       <ProofEditPanel lines={o.lines} onSaved={() => void order.refetch()} />
       <OrderDetailView order={o} preview={(s) => <DesignPreview snapshot={s} size={120} />} summary={(s) => <PersonalisationSummary snapshot={s} />} />
       <OrderReviews orderId={o.id} shopName={o.shop.name} />

@@ -3,6 +3,7 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import type { Grouping } from '../../../../shared/schemas/workroom.ts';
 import { Button, Spinner } from '../../../components/ui/button.tsx';
 import { PageHeading } from '../../../components/ui/card.tsx';
+import { ConfirmButton } from '../../../components/ui/confirm-button.tsx';
 import { Pager, usePageParam } from '../../../components/ui/pager.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { paths } from '../../../config/paths.ts';
@@ -70,8 +71,10 @@ function Batch({ batchId }: { batchId: string }) {
             </Button>
           ) : null}
           {planned.length ? (
-            <Button
-              onClick={async () => {
+            <ConfirmButton
+              question={`Mark all ${planned.length} sheets cut? ${formatLength(planned.reduce((a, s) => a + s.lengthMm, 0))} of vinyl (plus trim) comes off your stock, and their lines move on to pressing.`}
+              confirmLabel="Yes, mark them cut"
+              onConfirm={async () => {
                 try {
                   const r = await markCut.mutateAsync({ batchId });
                   toast.success(`All sheets marked cut; ${r.linesCut.length} line${r.linesCut.length === 1 ? '' : 's'} now cut. Press cards are ready.`);
@@ -84,7 +87,7 @@ function Batch({ batchId }: { batchId: string }) {
               pendingLabel="Saving…"
             >
               Mark all {planned.length} sheets cut
-            </Button>
+            </ConfirmButton>
           ) : (
             <Link to={paths.workroomPress.getHref()} className="font-bold text-thread-deep underline decoration-2">
               All cut — go to the press cards

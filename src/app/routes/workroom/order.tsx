@@ -4,6 +4,7 @@ import { canMoveLine, isFinishedLine } from '../../../../shared/schemas/order.ts
 import { PageHeading } from '../../../components/ui/card.tsx';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
+import { TrackingNumber } from '../../../components/ui/tracking-number.tsx';
 import { paths } from '../../../config/paths.ts';
 import { MessageBox } from '../../../features/messages/components/message-box.tsx';
 import { OrderReviews } from '../../../features/reviews/components/order-reviews.tsx';
@@ -28,7 +29,7 @@ export function WorkroomOrderPage() {
       <PageHeading
         eyebrow={`Order ${o.number}`}
         title={`For ${o.buyerName}`}
-        lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(Date.parse(o.shipByDate))}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`}
+        lead={`Paid ${formatDateTime(o.paidAt)}${o.shipByDate ? ` · ship by ${formatDate(o.shipByDate)}` : ''} · ${formatMoney(o.totalMinor, o.currency)}`}
       />
       <div className="grid gap-8 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="flex flex-col gap-6">
@@ -79,7 +80,7 @@ export function WorkroomOrderPage() {
           </div>
           {o.trackingNumber ? (
             <p data-testid="tracking">
-              Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <span className="font-mono font-bold">{o.trackingNumber}</span>
+              Shipped {o.shippedAt ? formatDateTime(o.shippedAt) : ''} with {o.carrier}: <TrackingNumber carrier={o.carrier} trackingNumber={o.trackingNumber} />
             </p>
           ) : ready ? (
             <ShipForm orderId={o.id} />

@@ -2,6 +2,7 @@ import { type ReactNode, useState } from 'react';
 import { Bar, BarChart, CartesianGrid, ComposedChart, Legend, Line, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { formatMoney, minorDigits } from '../../../../shared/money.ts';
 import type { ChartsView } from '../../../../shared/schemas/business.ts';
+import { formatLength } from '../../../../shared/units.ts';
 import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { SimpleTable } from '../../../components/ui/simple-table.tsx';
 import { useCharts } from '../api/get-charts.ts';
@@ -11,7 +12,6 @@ const THREAD = '#2f7d6d';
 const MARIGOLD = '#e0a526';
 const PALETTE = [THREAD, MARIGOLD, INK, '#8a5a9e', '#b5523b', '#4f7fb8'];
 
-const cmIn = (mm: number) => `${(mm / 10).toFixed(1)} cm (${(mm / 25.4).toFixed(1)} in)`;
 const TICK = { fill: INK, fontSize: 12 };
 
 /**
@@ -148,7 +148,7 @@ function ChartsBody({ data }: { data: ChartsView }) {
         title="Vinyl used per material, by month"
         lead="Length of roll taken by cut sheets, trim included, in cm."
         chart={
-          <PeriodChart data={months} period="month" unit=" cm" format={(v) => cmIn(v * 10)}>
+          <PeriodChart data={months} period="month" unit=" cm" format={(v) => formatLength(v * 10)}>
             {materials.map(([id, label], i) => (
               <Bar key={id} dataKey={id} name={label} stackId="v" fill={PALETTE[i % PALETTE.length]} isAnimationActive={false} />
             ))}
@@ -157,7 +157,7 @@ function ChartsBody({ data }: { data: ChartsView }) {
         table={{
           caption: 'Vinyl used per material per month',
           head: ['Month', 'Material', 'Used'],
-          rows: data.vinyl.map((v) => ({ key: `${v.month}:${v.materialId}`, cells: [v.month, v.material, cmIn(v.usedMm)] })),
+          rows: data.vinyl.map((v) => ({ key: `${v.month}:${v.materialId}`, cells: [v.month, v.material, formatLength(v.usedMm)] })),
         }}
       />
       <ChartPanel

@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { formatDate } from '../../../../shared/dates.ts';
 import type { DueView } from '../../../../shared/schemas/business.ts';
 import { QueryBoundary } from '../../../components/ui/query-boundary.tsx';
 import { NeedMarkBadge, ShipMarkBadge } from '../../../components/ui/ship-mark-badge.tsx';
@@ -35,7 +36,7 @@ function DueBody({ due: { lines, today } }: { due: DueView }) {
       <SimpleTable columns={COLUMNS} minWidthClass="min-w-[34rem]" empty={lines.length === 0 ? 'Nothing open. Well done.' : null}>
         {lines.map((l) => (
           <tr key={l.lineId} className="border-t border-line">
-            <td className="px-3 py-2 font-semibold tabular-nums">{l.shipBy ?? '—'}</td>
+            <td className="px-3 py-2 font-semibold tabular-nums">{l.shipBy ? formatDate(l.shipBy) : '—'}</td>
             <td className="px-3 py-2">
               <span className="flex flex-wrap gap-1">
                 <ShipMarkBadge mark={l.mark} />

@@ -94,7 +94,7 @@ export function CartView({
           </section>
         ))}
       </div>
-      <aside aria-label="Order total" className="flex h-fit flex-col gap-4 rounded-lg border-2 border-ink/10 bg-white p-5 shadow-sm lg:sticky lg:top-4">
+      <aside aria-label="Order total" className="flex h-fit flex-col gap-4 rounded-lg border-2 border-ink/10 bg-white p-5 shadow-sm max-lg:order-first lg:sticky lg:top-4">
         <dl className="flex flex-col gap-1.5">
           <div className="flex justify-between">
             <dt>Items ({cart.itemCount})</dt>

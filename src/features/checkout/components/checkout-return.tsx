@@ -60,7 +60,10 @@ export function CheckoutReturn({ sessionId, onConfirmed }: { sessionId: string; 
             </li>
           ))}
         </ul>
-        <p className="text-ink-soft">A confirmation is on its way to your inbox. Each shop checks the spelling before cutting, and we will e-mail you at every step.</p>
+        <p className="text-ink-soft">
+          A confirmation is on its way to your inbox. Each shop checks the spelling before cutting; we will e-mail you when your item goes into production, if the shop needs you to check something,
+          and when it ships.
+        </p>
       </section>
     );
   }

@@ -320,7 +320,14 @@ export function ListingEditor({ listing, currency, fonts, materials, motifs, Pho
 
       <FormSection title="Price">
         <div className="grid grid-cols-1 gap-5 sm:grid-cols-2">
-          <MoneyController control={control} name="basePriceMinor" label="Base price" hint="With one layer of vinyl." currency={currency} error={e.basePriceMinor?.message} />
+          <MoneyController
+            control={control}
+            name="basePriceMinor"
+            label="Base price"
+            hint="The simplest design a shopper can make; layers beyond it add the extra-layer price."
+            currency={currency}
+            error={e.basePriceMinor?.message}
+          />
           <MoneyController
             control={control}
             name="extraLayerPriceMinor"

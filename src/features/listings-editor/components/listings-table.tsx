@@ -1,6 +1,7 @@
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, type SortingState, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { formatDate } from '../../../../shared/dates.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import { BLANK_DEFAULTS, type SellerListing } from '../../../../shared/schemas/listing.ts';
 import { CardTable } from '../../../components/ui/card-table.tsx';
@@ -8,7 +9,6 @@ import type { ListingAction } from '../api/listing-actions.ts';
 import { ListingStateBadges } from './listing-state.tsx';
 
 const col = createColumnHelper<SellerListing>();
-const dateFmt = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
 
 const actionButton = 'min-h-11 rounded-lg px-3 font-bold underline decoration-2 underline-offset-4 whitespace-nowrap disabled:opacity-50';
 
@@ -44,7 +44,7 @@ export function ListingsTable({
       }),
       col.accessor('state', { header: 'State', cell: (c) => <ListingStateBadges state={c.getValue()} pendingReview={c.row.original.pendingReview} /> }),
       col.accessor((l) => l.draft.basePriceMinor, { id: 'price', header: 'From', cell: (c) => formatMoney(c.getValue(), c.row.original.currency) }),
-      col.accessor('updatedAt', { header: 'Changed', cell: (c) => <span className="whitespace-nowrap">{dateFmt.format(c.getValue())}</span> }),
+      col.accessor('updatedAt', { header: 'Changed', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span> }),
       col.display({
         id: 'actions',
         header: () => <span className="sr-only">Actions</span>,

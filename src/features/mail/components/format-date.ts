@@ -1,5 +1,6 @@
+import { formatDateTime } from '../../../../shared/dates.ts';
+
+/** A captured mail's date, in the app's one date style. */
 export function formatMailDate(iso: string): string {
-  const date = new Date(iso);
-  if (Number.isNaN(date.getTime())) return iso;
-  return date.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+  return formatDateTime(iso);
 }

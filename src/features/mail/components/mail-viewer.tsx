@@ -57,9 +57,10 @@ export function MailViewer({ id }: { id: string | null }) {
         </fieldset>
       ) : null}
       {shown === 'html' && m.html ? (
-        <iframe title={`Message: ${m.subject}`} sandbox="" srcDoc={m.html} referrerPolicy="no-referrer" className="h-[32rem] w-full rounded-lg border border-line bg-white" />
+        // a script-less sandbox; tall, and the admin can drag it taller: the plain text view shows it all
+        <iframe title={`Message: ${m.subject}`} sandbox="" srcDoc={m.html} referrerPolicy="no-referrer" className="h-[75vh] min-h-[32rem] w-full resize-y rounded-lg border border-line bg-white" />
       ) : (
-        <pre className="max-h-[32rem] overflow-auto rounded-lg bg-paper-deep p-4 font-mono text-sm whitespace-pre-wrap break-words">{m.text || '(this message has no text part)'}</pre>
+        <pre className="overflow-x-auto rounded-lg bg-paper-deep p-4 font-mono text-sm whitespace-pre-wrap break-words">{m.text || '(this message has no text part)'}</pre>
       )}
     </article>
   );

@@ -5,14 +5,18 @@ import { moderationKeys } from './keys.ts';
 import type { AuditPage } from './types.ts';
 
 /** GET /api/moderation/audit: decisions, newest first, a page at a time. */
-export const getAuditLog = (p: PageInput, signal?: AbortSignal) => {
-  const qs = pageSearch(p).toString();
+type AuditInput = PageInput & { action?: string | undefined };
+
+export const getAuditLog = (p: AuditInput, signal?: AbortSignal) => {
+  const search = pageSearch(p);
+  if (p.action) search.set('action', p.action);
+  const qs = search.toString();
   return api.get<AuditPage>(`/api/moderation/audit${qs ? `?${qs}` : ''}`, { signal });
 };
 
-export const getAuditLogQueryOptions = (p: PageInput = {}) =>
+export const getAuditLogQueryOptions = (p: AuditInput = {}) =>
   queryOptions({ queryKey: moderationKeys.audit(p), queryFn: ({ signal }) => getAuditLog(p, signal), placeholderData: keepPreviousData, staleTime: 5_000 });
 
-export function useAuditLog(p: PageInput = {}) {
+export function useAuditLog(p: AuditInput = {}) {
   return useQuery(getAuditLogQueryOptions(p));
 }

@@ -9,7 +9,7 @@ export const moderationKeys = {
   queueListings: (p: PageInput = {}) => [...moderationKeys.queue(), 'listings', pageKey(p)] as const,
   queueShopChanges: (p: PageInput = {}) => [...moderationKeys.queue(), 'shop-changes', pageKey(p)] as const,
   queueShops: (p: PageInput = {}) => [...moderationKeys.queue(), 'shops', pageKey(p)] as const,
-  audit: (p: PageInput = {}) => [...moderationKeys.all, 'audit', pageKey(p)] as const,
+  audit: (p: PageInput & { action?: string | undefined } = {}) => [...moderationKeys.all, 'audit', pageKey(p), p.action ?? ''] as const,
   shops: (filters: ModerationShopsQuery) => [...moderationKeys.all, 'shops', filters] as const,
   review: (id: string) => [...moderationKeys.all, 'review', id] as const,
 };

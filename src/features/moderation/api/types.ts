@@ -33,14 +33,16 @@ export type QueueShopChange = {
   submittedAt: number;
 };
 /** GET /api/moderation/listings/:id */
-export type ListingReview = { listing: QueueListing; page: ListingPage };
+/** A motif of the listing that is the same artwork as another shop's (server: moderation.service.ts MotifReuse). */
+export type MotifReuse = { motifId: string; motifName: string; otherShop: { name: string; slug: string }; otherMotifName: string };
+export type ListingReview = { listing: QueueListing; page: ListingPage; motifReuse?: MotifReuse[] };
 
 export type AuditEntry = {
   id: string;
   at: number;
   actor: { id: string; name: string | null; email: string | null };
   action: string;
-  subject: { type: 'shop' | 'listing'; id: string; label: string | null };
+  subject: { type: 'shop' | 'listing'; id: string; label: string | null; href?: string | null };
   reason: string | null;
 };
 export type AuditPage = Page<AuditEntry>;

@@ -1,21 +1,16 @@
 import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { Link } from 'react-router-dom';
+import { formatDateTime } from '../../../../shared/dates.ts';
+import { AUDIT_ACTIONS } from '../../../../shared/schemas/catalog.ts';
 import { CardTable } from '../../../components/ui/card-table.tsx';
 import type { AuditEntry } from '../api/types.ts';
 
 const col = createColumnHelper<AuditEntry>();
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 
-export const ACTION_LABELS: Record<string, string> = {
-  'listing.approve': 'Approved listing',
-  'listing.reject': 'Rejected listing',
-  'shop.approve': 'Approved shop',
-  'shop.reject': 'Rejected shop',
-  'shop.suspend': 'Suspended shop',
-  'shop.restore': 'Restored shop',
-};
+export const ACTION_LABELS: Record<string, string> = AUDIT_ACTIONS;
 
 const columns = [
-  col.accessor('at', { header: 'When', cell: (c) => <span className="whitespace-nowrap">{when.format(c.getValue())}</span> }),
+  col.accessor('at', { header: 'When', cell: (c) => <span className="whitespace-nowrap">{formatDateTime(c.getValue())}</span> }),
   col.accessor((e) => e.actor.name ?? e.actor.email ?? e.actor.id, {
     id: 'who',
     header: 'Who',
@@ -31,7 +26,13 @@ const columns = [
     cell: (c) => (
       <span className="flex flex-col">
         <span className="font-bold">{ACTION_LABELS[c.getValue()] ?? c.getValue()}</span>
-        <span className="text-sm break-words text-ink-soft">{c.row.original.subject.label ?? c.row.original.subject.id}</span>
+        {c.row.original.subject.href ? (
+          <Link className="text-sm break-words text-thread-deep underline" to={c.row.original.subject.href}>
+            {c.row.original.subject.label ?? c.row.original.subject.id}
+          </Link>
+        ) : (
+          <span className="text-sm break-words text-ink-soft">{c.row.original.subject.label ?? c.row.original.subject.id}</span>
+        )}
       </span>
     ),
   }),

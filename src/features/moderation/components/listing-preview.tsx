@@ -1,9 +1,11 @@
 import { blankFor } from '../../../../shared/engine/listing-design.ts';
+import { materialLabel } from '../../../../shared/material-label.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../../shared/schemas/listing.ts';
 import { formatLength, formatSize, formatSmallLength } from '../../../../shared/units.ts';
 import { DesignOnBlank, pictureOfBlank } from '../../../components/design/design-on-blank.tsx';
+import { FontSample } from '../../../components/ui/font-sample.tsx';
 import { Badge } from '../../../components/ui/form-controls.tsx';
 
 /**
@@ -22,7 +24,7 @@ export function ListingPreview({ page }: { page: ListingPage }) {
         return (
           <span key={id} className="inline-flex items-center gap-1.5 rounded-full border border-line bg-white px-2 py-0.5 text-sm">
             <span aria-hidden="true" className="size-4 rounded-full border border-ink/30" style={{ background: m?.colourHex ?? '#ccc' }} />
-            {m ? `${m.colourName} (${m.kind})` : 'Unknown material'}
+            {m ? materialLabel(m) : 'Unknown material'}
           </span>
         );
       })}
@@ -88,7 +90,12 @@ export function ListingPreview({ page }: { page: ListingPage }) {
                 ({f.required ? 'required' : 'optional'}, up to {f.maxLength} characters, letters {formatSmallLength(f.defaultLetterHeightMm)})
               </span>
             </p>
-            <p className="text-sm">Fonts: {f.fontIds.join(', ')}</p>
+            <div className="flex flex-wrap items-center gap-2 text-sm">
+              <span>Fonts:</span>
+              {f.fontIds.map((id) => (
+                <FontSample key={id} fontId={id} />
+              ))}
+            </div>
             {swatches(f.colourChoices)}
           </div>
         ))}

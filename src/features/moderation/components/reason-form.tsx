@@ -13,6 +13,7 @@ export function ReasonForm({
   onSubmit,
   onCancel,
   danger = false,
+  presets,
 }: {
   label: string;
   hint?: string;
@@ -20,8 +21,10 @@ export function ReasonForm({
   onSubmit: (reason: string) => Promise<unknown>;
   onCancel?: () => void;
   danger?: boolean;
+  /** ready-made reasons: a click puts the text in the field, to send as it is or edit */
+  presets?: readonly { short: string; text: string }[];
 }) {
-  const { register, handleSubmit, formState, setError } = useForm<{ reason: string }>({ resolver: zodResolver(reasonSchema), defaultValues: { reason: '' } });
+  const { register, handleSubmit, formState, setError, setValue } = useForm<{ reason: string }>({ resolver: zodResolver(reasonSchema), defaultValues: { reason: '' } });
   return (
     <form
       noValidate
@@ -35,6 +38,18 @@ export function ReasonForm({
         }
       })}
     >
+      {presets?.length ? (
+        <fieldset className="flex flex-col gap-1.5">
+          <legend className="mb-1 text-sm font-bold">Common reasons</legend>
+          <div className="flex flex-wrap gap-2">
+            {presets.map((p) => (
+              <Button key={p.short} variant="secondary" className="min-h-9 px-3 py-1 text-sm" onClick={() => setValue('reason', p.text, { shouldValidate: formState.isSubmitted })}>
+                {p.short}
+              </Button>
+            ))}
+          </div>
+        </fieldset>
+      ) : null}
       <TextAreaField label={label} hint={hint} rows={3} maxLength={1000} autoFocus error={formState.errors.reason?.message} {...register('reason')} />
       <div className="flex flex-wrap gap-3">
         <Button type="submit" variant={danger ? 'secondary' : 'primary'} pending={formState.isSubmitting} className={danger ? 'border-danger text-danger hover:bg-danger-wash' : ''}>

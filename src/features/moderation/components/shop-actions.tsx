@@ -10,7 +10,7 @@ const done: Record<ShopMove, string> = { approve: 'approved', reject: 'rejected'
 
 /** The moves a shop in this state allows (server/features/moderation/moderation.service.ts SHOP_MOVES). */
 export function movesFor(state: ShopState): ShopMove[] {
-  if (state === 'in_review') return ['approve', 'reject', 'suspend'];
+  if (state === 'in_review') return ['approve', 'reject'];
   if (state === 'live') return ['suspend'];
   if (state === 'suspended') return ['restore'];
   return [];

@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react';
+import { formatDate } from '../../../../shared/dates.ts';
 import { pageCount } from '../../../../shared/schemas/pagination.ts';
 import { SHOP_STATES, type ShopState } from '../../../../shared/schemas/shop.ts';
 import { StitchedBox } from '../../../components/ui/card.tsx';
@@ -10,7 +11,6 @@ import { useShops } from '../api/get-shops.ts';
 import { ShopActions } from './shop-actions.tsx';
 
 export const SHOP_STATE_LABELS: Record<ShopState, string> = { in_review: 'In review', live: 'Live', suspended: 'Suspended', rejected: 'Rejected' };
-const when = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
 
 /** Any shop, found by name, web address or owner e-mail, with the moves its state allows. */
 export function ShopFinder() {
@@ -84,7 +84,7 @@ export function ShopFinder() {
                         <Badge tone={s.state === 'live' ? 'thread' : s.state === 'in_review' ? 'marigold' : 'danger'}>{SHOP_STATE_LABELS[s.state]}</Badge>
                       </div>
                       <p className="text-sm [overflow-wrap:anywhere] text-ink-soft">
-                        /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {when.format(s.createdAt)}
+                        /shops/{s.slug} · {s.owner.name} ({s.owner.email}) · opened {formatDate(s.createdAt)}
                       </p>
                     </div>
                     {s.stateReason && (s.state === 'suspended' || s.state === 'rejected') ? <p className="text-sm whitespace-pre-wrap">Reason: {s.stateReason}</p> : null}

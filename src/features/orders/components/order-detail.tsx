@@ -1,11 +1,12 @@
 import type { ReactNode } from 'react';
+import { formatDateTime } from '../../../../shared/dates.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import type { LineSnapshot } from '../../../../shared/schemas/cart.ts';
 import { LINE_STATE_LABELS, type OrderDetail } from '../../../../shared/schemas/order.ts';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { ShipToAddress } from '../../../components/ui/ship-to-address.tsx';
+import { TrackingNumber } from '../../../components/ui/tracking-number.tsx';
 
-const when = (ms: number) => new Date(ms).toLocaleString(undefined, { year: 'numeric', month: 'short', day: 'numeric', hour: '2-digit', minute: '2-digit' });
 const who = { you: 'You', shop: 'The shop', namesake: 'Namesake' } as const;
 
 /** One order: each line with its design, personalisation, state and history. `preview` draws a line's design. */
@@ -39,7 +40,7 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
                   <span className="font-bold">{LINE_STATE_LABELS[e.toState]}</span>
                   <span className="text-ink-soft">
                     {' '}
-                    · {when(e.at)}
+                    · {formatDateTime(e.at)}
                     {e.actor ? ` · ${who[e.actor]}` : ''}
                   </span>
                   {e.message ? <p className="text-ink">{e.message}</p> : null}
@@ -89,7 +90,7 @@ export function OrderDetailView({ order, preview, summary }: { order: OrderDetai
         </div>
         {order.trackingNumber ? (
           <p className="text-sm">
-            Shipped with {order.carrier ?? 'the carrier'}: <span className="font-mono font-bold">{order.trackingNumber}</span>
+            Shipped with {order.carrier ?? 'the carrier'}: <TrackingNumber carrier={order.carrier} trackingNumber={order.trackingNumber} />
           </p>
         ) : (
           <p className="text-sm text-ink-soft">Not shipped yet. We will e-mail you the tracking number.</p>

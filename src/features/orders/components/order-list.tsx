@@ -1,10 +1,9 @@
 import { Link } from 'react-router-dom';
+import { formatDate } from '../../../../shared/dates.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import type { OrderSummary } from '../../../../shared/schemas/order.ts';
 import { LineStateBadge } from '../../../components/ui/line-state-badge.tsx';
 import { paths } from '../../../config/paths.ts';
-
-const date = (ms: number) => new Date(ms).toLocaleDateString(undefined, { year: 'numeric', month: 'short', day: 'numeric' });
 
 export function OrderList({ orders }: { orders: OrderSummary[] }) {
   return (
@@ -18,7 +17,7 @@ export function OrderList({ orders }: { orders: OrderSummary[] }) {
             <span className="flex flex-col">
               <span className="text-lg font-extrabold">{o.number}</span>
               <span className="text-ink-soft">
-                {o.shop.name} · {o.itemCount} {o.itemCount === 1 ? 'item' : 'items'} · paid {date(o.paidAt)}
+                {o.shop.name} · {o.itemCount} {o.itemCount === 1 ? 'item' : 'items'} · paid {formatDate(o.paidAt)}
               </span>
             </span>
             <span className="flex flex-wrap items-center gap-2">

@@ -13,6 +13,7 @@ import { fitBySize, largerSizeThatFits } from '../../../../shared/engine/size-fi
 import { formatMoney } from '../../../../shared/money.ts';
 import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
+import { includedLayers } from '../../../../shared/schemas/listing.ts';
 import { formatLength, formatSize, formatSmallLength } from '../../../../shared/units.ts';
 import { Button, ButtonLink } from '../../../components/ui/button.tsx';
 import { FieldError } from '../../../components/ui/form-controls.tsx';
@@ -20,6 +21,7 @@ import { useFonts } from '../api/get-fonts.ts';
 import { type AddToCart, useAddToCart } from '../hooks/use-add-to-cart.ts';
 import { type ChoicesUpdate, textChoice, useDesignState, withText } from '../hooks/use-design-state.ts';
 import { useLivePreview } from '../hooks/use-live-preview.ts';
+import { addToCartBlocker } from '../lib/add-blockers.ts';
 import type { ComposeResult } from '../lib/compose-client.ts';
 import { BlankColourPicker, ContrastNotes, SizeChart, SizePicker } from './blank-pickers.tsx';
 import { BlankPreview } from './blank-preview.tsx';
@@ -71,13 +73,18 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
   const fontInfos = fonts.data ?? [];
   const bb = preview.placement?.bboxMm;
   const size = bb ? { w: bb.maxX - bb.minX, h: bb.maxY - bb.minY } : null;
+  const blocker = addToCartBlocker(listing.content, choices, preview.placement);
   const previewLabel = `Preview on the ${blank.name.toLowerCase()}${texts ? `: ${texts}` : ''}${size ? `, design ${formatSize(size.w, size.h)}` : ''}`;
 
   return (
     <form id={formId} onSubmit={(e) => cart.submit(e, choices)} noValidate className="grid gap-8 lg:grid-cols-[minmax(0,1.1fr)_minmax(0,1fr)]" aria-label="Personalise this item">
       {/* preview first on small screens too: it is what the shopper is checking */}
-      <div className="flex flex-col gap-3 lg:sticky lg:top-4 lg:self-start">
-        <div className="rounded-lg border border-line bg-white p-3 shadow-sm">
+      {/* on a phone the column dissolves (contents) so the preview box alone stays on screen while the shopper types and picks */}
+      <div className="flex flex-col gap-3 max-lg:contents lg:sticky lg:top-4 lg:self-start">
+        <div
+          data-testid="preview-box"
+          className="rounded-lg border border-line bg-white p-3 shadow-sm max-lg:sticky max-lg:top-0 max-lg:z-10 max-lg:p-1.5 max-lg:shadow-md max-lg:[&_svg]:max-h-[34vh]"
+        >
           <BlankPreview blank={blank} colourHex={design.colour?.hex ?? null} placement={preview.placement} full={preview.full} label={previewLabel} />
         </div>
         {design.contrast.length > 0 ? <ContrastNotes warnings={design.contrast} /> : null}
@@ -105,7 +112,7 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
                 </p>
               ))
             : null}
-          <WeedingLine full={preview.full} waiting={!!preview.placement && !preview.full} failed={preview.fullFailed} />
+          <WeedingLine full={preview.full} failed={preview.fullFailed} />
         </div>
         {preview.engineError ? (
           <p role="alert" className="font-semibold text-danger">
@@ -148,6 +155,10 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
           const inputId = `${formId}-${f.id}`;
           const warnId = `${inputId}-warnings`;
           const minH = Math.max(5, Math.round(f.defaultLetterHeightMm / 2));
+          // the slider shows the height the letters are really cut at: a long name is shrunk to fit
+          const fitted = c.text.trim() ? preview.placement?.letterHeights[f.id] : undefined;
+          const shown = fitted !== undefined ? Math.min(c.letterHeightMm, Math.round(fitted * 10) / 10) : c.letterHeightMm;
+          const shrunk = shown < c.letterHeightMm - 0.05;
           return (
             <div key={f.id} className="flex flex-col gap-5">
               <div className="flex flex-col gap-1.5">
@@ -205,17 +216,21 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
                   <input
                     id={`${inputId}-height`}
                     type="range"
-                    min={minH}
+                    min={Math.min(minH, Math.floor(shown))}
                     max={f.defaultLetterHeightMm * 2}
-                    step={1}
-                    value={c.letterHeightMm}
+                    step={0.1}
+                    value={shown}
                     onChange={(e) => update(withText(f, { letterHeightMm: Number(e.target.value) }))}
                     className="h-6 flex-1 accent-thread"
-                    aria-valuetext={formatSmallLength(c.letterHeightMm)}
+                    aria-valuetext={formatSmallLength(shown)}
                   />
-                  <span className="w-36 text-sm">{formatSmallLength(c.letterHeightMm)}</span>
+                  <span className="w-36 text-sm" data-testid={`letter-height-${f.id}`}>
+                    {formatSmallLength(shown)}
+                  </span>
                 </div>
-                <p className="text-sm text-ink-soft">Long names are made smaller to fit the print area.</p>
+                <p className="text-sm text-ink-soft">
+                  {shrunk ? `Made smaller to fit the print area (you chose ${formatSmallLength(c.letterHeightMm)}).` : 'Long names are made smaller to fit the print area.'}
+                </p>
               </div>
 
               {f.colourChoices.length > 0 ? (
@@ -278,7 +293,9 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
               </p>
               <p className="text-sm text-ink-soft">
                 {design.layerCount} {design.layerCount === 1 ? 'layer' : 'layers'} of vinyl
-                {listing.content.extraLayerPriceMinor > 0 ? ` · each layer after the first adds ${formatMoney(listing.content.extraLayerPriceMinor, listing.currency)}` : ''}
+                {listing.content.extraLayerPriceMinor > 0
+                  ? ` · ${includedLayers(listing.content)} included, each one more adds ${formatMoney(listing.content.extraLayerPriceMinor, listing.currency)}`
+                  : ''}
               </p>
             </div>
             <div className="flex flex-col gap-1.5">
@@ -298,9 +315,14 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
               <FieldError id={`${formId}-qty-err`} message={fieldErrors.quantity} />
             </div>
           </div>
-          <Button type="submit" pending={cart.pending} pendingLabel="Adding…" className="w-full text-lg">
+          <Button type="submit" pending={cart.pending} pendingLabel="Adding…" className="w-full text-lg" disabled={!!blocker} aria-describedby={blocker ? `${formId}-blocker` : undefined}>
             Add to cart · {formatMoney(design.price * cart.quantity, listing.currency)}
           </Button>
+          {blocker ? (
+            <p id={`${formId}-blocker`} data-testid="add-blocker" className="text-sm font-semibold text-danger">
+              Not yet: {blocker}
+            </p>
+          ) : null}
           {cart.added ? (
             <div role="status" data-testid="added-to-cart" className="flex flex-col gap-3 rounded-lg border-2 border-thread bg-thread-wash p-4">
               <p className="font-bold">
@@ -321,24 +343,20 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
   );
 }
 
-function WeedingLine({ full, waiting, failed }: { full: ComposeResult | null; waiting: boolean; failed: string | null }) {
+/**
+ * What the design's fine detail means for the shopper, in their words. Weeding (picking the waste
+ * vinyl out of the cut) is the maker's concern: the counts stay on the seller's proof; a shopper
+ * hears only when small or thin parts make the item less sturdy, and what would help.
+ */
+function WeedingLine({ full, failed }: { full: ComposeResult | null; failed: string | null }) {
   if (failed) return <p className="text-danger">{failed}</p>;
-  if (!full)
-    return waiting ? (
-      <p className="text-ink-soft">
-        <span className="font-bold text-ink">Weeding: </span>checking…
-      </p>
-    ) : null;
-  const w = full.weeding;
-  const tone = w.label === 'quick' ? 'bg-thread-wash text-thread-deep' : w.label === 'moderate' ? 'bg-marigold-wash text-ink' : 'bg-danger-wash text-danger';
-  const bits = [`${w.pieces} ${w.pieces === 1 ? 'piece' : 'pieces'}`, `${w.counters} ${w.counters === 1 ? 'counter' : 'counters'} to pick out`];
-  if (w.smallestPieceAreaMm2 !== null) bits.push(`smallest piece ${Math.round(w.smallestPieceAreaMm2)} mm²`);
-  if (w.narrowPieces + w.narrowCounters > 0) bits.push(`${w.narrowPieces + w.narrowCounters} under ${formatSmallLength(1.5)} wide`);
+  if (!full || full.weeding.label === 'quick') return null;
+  const thin = full.weeding.narrowPieces + full.weeding.narrowCounters > 0;
   return (
-    <p data-testid="weeding">
-      <span className="font-bold">Weeding: </span>
-      <span className={`rounded-full px-2 py-0.5 font-bold ${tone}`}>{w.label}</span> — {bits.join(', ')}
-      {w.label !== 'quick' ? <span className="block text-ink-soft">Why: {w.reasons.join('; ')}.</span> : null}
+    <p data-testid="fine-detail" className="text-ink-soft">
+      <span className="font-bold text-ink">Fine detail: </span>
+      {thin ? `some strokes are thinner than ${formatSmallLength(1.5)}, and thin parts can lift in the wash.` : 'this design has small parts, which need a gentle wash.'} Larger letters or a bolder
+      font make it sturdier.
     </p>
   );
 }

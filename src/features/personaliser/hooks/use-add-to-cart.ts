@@ -9,6 +9,7 @@ import { MAX_LINE_QUANTITY } from '../../../../shared/schemas/cart.ts';
 import type { Choices } from '../../../../shared/schemas/listing.ts';
 import { useToast } from '../../../components/ui/toast.tsx';
 import { isApiError } from '../../../lib/api-client.ts';
+import { revealFirstError } from '../lib/add-blockers.ts';
 
 export type AddToCart = (input: { listingId: string; quantity: number; choices: Choices }) => Promise<Cart>;
 
@@ -23,6 +24,7 @@ export function useAddToCart(listingId: string, addToCart: AddToCart) {
 
   async function submit(e: FormEvent, choices: Choices) {
     e.preventDefault();
+    const form = e.currentTarget instanceof HTMLFormElement ? e.currentTarget : null;
     setPending(true);
     setFieldErrors({});
     try {
@@ -34,6 +36,8 @@ export function useAddToCart(listingId: string, addToCart: AddToCart) {
         for (const [k, v] of Object.entries(err.fields)) mapped[k.replace(/^choices\./, '')] = v;
         setFieldErrors(mapped);
         if (!Object.keys(mapped).some(isKnownField)) toast.error(err.message);
+        // the refusal may name a field far above the button: show it (after React has drawn it)
+        else if (form) setTimeout(() => revealFirstError(form), 0);
       } else toast.error(err instanceof Error ? err.message : 'Adding to the cart failed. Please try again.');
     } finally {
       setPending(false);

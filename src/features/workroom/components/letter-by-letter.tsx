@@ -1,4 +1,6 @@
+import { catalogEntry } from '../../../../shared/engine/font-catalog.ts';
 import type { ProofText } from '../../../../shared/schemas/workroom.ts';
+import { formatSmallLength } from '../../../../shared/units.ts';
 
 /**
  * The text exactly as typed, one box per code point: anything outside printable ASCII shows its
@@ -9,8 +11,8 @@ export function LetterByLetter({ text }: { text: ProofText }) {
   return (
     <div className="flex flex-col gap-2">
       <p className="text-sm text-ink-soft">
-        {text.label}: {text.chars.length} character{text.chars.length === 1 ? '' : 's'}
-        {text.letterHeightMm ? `, letters about ${text.letterHeightMm} mm tall` : ''}
+        {text.label}: {text.chars.length} character{text.chars.length === 1 ? '' : 's'} in {catalogEntry(text.fontId)?.family ?? text.fontId}
+        {text.letterHeightMm ? `, letters about ${formatSmallLength(text.letterHeightMm)} tall` : ''}
         {text.normalized === 'NFD' || text.normalized === 'mixed' ? ' · typed with combining marks' : ''}
       </p>
       <ol className="flex flex-wrap gap-1.5" aria-label={`${text.label}, letter by letter`} data-testid={`letters-${text.fieldId}`}>

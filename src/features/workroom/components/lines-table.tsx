@@ -1,6 +1,7 @@
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, type RowSelectionState, type SortingState, useReactTable } from '@tanstack/react-table';
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { isNewLine } from '../../../../shared/business/new-line.ts';
 import type { WorkLine, WorkLinesPage } from '../../../../shared/schemas/workroom.ts';
 import { WORK_STATES } from '../../../../shared/schemas/workroom.ts';
 import { CardTable } from '../../../components/ui/card-table.tsx';
@@ -72,9 +73,16 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
       col.accessor('orderNumber', {
         header: 'Order',
         cell: (c) => (
-          <Link className="font-bold whitespace-nowrap underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(c.row.original.orderId)}>
-            {c.getValue()}
-          </Link>
+          <span className="flex flex-col items-start gap-1">
+            <Link className="font-bold whitespace-nowrap underline decoration-thread decoration-2" to={paths.workroomOrder.getHref(c.row.original.orderId)}>
+              {c.getValue()}
+            </Link>
+            {isNewLine(c.row.original, Date.now()) ? (
+              <span className="rounded-full bg-marigold px-2 py-0.5 text-xs font-extrabold text-ink" data-testid="new-line">
+                New
+              </span>
+            ) : null}
+          </span>
         ),
       }),
       col.accessor('paidAt', { header: 'Paid', cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span> }),
@@ -125,7 +133,14 @@ export function LinesTable({ lines, total, filters, onFiltersChange, options, ac
 
   // the table caches each row's sort values, so the ship-by key goes into the rows themselves:
   // fresh rows when the ship-by marks arrive
-  const data = useMemo<Row[]>(() => lines.map((l) => ({ ...l, shipByKey: shipBy.sortKey(l.id) })), [lines, shipBy]);
+  // new lines (shared/business/new-line.ts) go before the others of the same urgency mark
+  const data = useMemo<Row[]>(() => {
+    const now = Date.now();
+    return lines.map((l) => {
+      const [mark, day] = shipBy.sortKey(l.id).split('|');
+      return { ...l, shipByKey: `${mark}|${isNewLine(l, now) ? 0 : 1}|${day}` };
+    });
+  }, [lines, shipBy]);
   const table = useReactTable({
     data,
     columns,

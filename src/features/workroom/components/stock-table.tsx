@@ -1,7 +1,9 @@
 import { useState } from 'react';
+import { materialLabel } from '../../../../shared/material-label.ts';
 import { formatMoney } from '../../../../shared/money.ts';
 import type { StockMaterial, StockView } from '../../../../shared/schemas/workroom.ts';
 import { lowStockSchema } from '../../../../shared/schemas/workroom.ts';
+import { formatSmallLength } from '../../../../shared/units.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { SimpleTable } from '../../../components/ui/simple-table.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
@@ -95,7 +97,7 @@ export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPag
         <h2 id="stock-use" className="mb-1 text-xl font-extrabold">
           What each cut sheet used
         </h2>
-        <p className="mb-3 text-sm text-ink-soft">A cut sheet takes its nested length plus {stock.trimMm} mm trim from the roll.</p>
+        <p className="mb-3 text-sm text-ink-soft">A cut sheet takes its nested length plus {formatSmallLength(stock.trimMm)} trim from the roll.</p>
         {stock.sheets.total === 0 ? (
           <p className="text-ink-soft">No cut sheets yet.</p>
         ) : (
@@ -104,7 +106,7 @@ export function StockTable({ stock, sheetsPager }: { stock: StockView; sheetsPag
               const m = byId.get(s.materialId);
               return (
                 <tr key={s.id} className="border-t border-line">
-                  <td className="px-3 py-2">{m ? `${m.colourName} (${m.kind})` : '—'}</td>
+                  <td className="px-3 py-2">{m ? materialLabel(m) : '—'}</td>
                   <td className="px-3 py-2">{s.state}</td>
                   <td className="px-3 py-2">{formatLength(s.lengthMm)}</td>
                   <td className="px-3 py-2">{s.consumedMm !== null ? formatLength(s.consumedMm) : 'not cut yet'}</td>

@@ -116,6 +116,9 @@ export function WorkroomOrders({ shipBy }: { shipBy: ShipByLookup }) {
                   >
                     Build cut sheets from {approved.length || ''} approved
                   </Button>
+                  <p className="basis-full text-sm text-ink-soft" data-testid="bulk-hint">
+                    {bulkHint(selected.length, proofs.length, approved.length)}
+                  </p>
                 </>
               );
             }}
@@ -125,4 +128,13 @@ export function WorkroomOrders({ shipBy }: { shipBy: ShipByLookup }) {
       )}
     </div>
   );
+}
+
+/** Why the bulk buttons are (partly) greyed out: what the ticked lines would need. */
+function bulkHint(selected: number, proofs: number, approved: number): string {
+  if (selected === 0) return 'Tick lines in the table to approve their proofs or build cut sheets from them.';
+  if (proofs === 0 && approved === 0) return 'None of the ticked lines waits for a proof check or is approved and ready to cut.';
+  if (proofs === 0) return 'Approving needs lines that wait for a proof check; none of the ticked ones does.';
+  if (approved === 0) return 'Cut sheets are built from approved lines; none of the ticked ones is approved yet.';
+  return `${selected} ticked: ${proofs} to approve, ${approved} ready to cut.`;
 }

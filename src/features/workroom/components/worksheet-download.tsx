@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useEffect, useId, useState } from 'react';
 import type { WorksheetRequest } from '../../../../shared/schemas/workroom.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { useToast } from '../../../components/ui/toast.tsx';
@@ -6,16 +6,51 @@ import { isApiError } from '../../../lib/api-client.ts';
 import { useWorksheetJob } from '../api/get-worksheet-job.ts';
 import { useStartWorksheet } from '../api/start-worksheet.ts';
 
+type Saved = { jobId: string; paper: NonNullable<WorksheetRequest['paper']> };
+const savedKey = (batchId: string) => `namesake:worksheet:${batchId}`;
+
+function readSaved(batchId: string): Saved | null {
+  try {
+    const v = JSON.parse(sessionStorage.getItem(savedKey(batchId)) ?? 'null') as Saved | null;
+    return v && typeof v.jobId === 'string' && (v.paper === 'A4' || v.paper === 'Letter') ? v : null;
+  } catch {
+    return null;
+  }
+}
+
+function writeSaved(batchId: string, v: Saved | null) {
+  try {
+    if (v) sessionStorage.setItem(savedKey(batchId), JSON.stringify(v));
+    else sessionStorage.removeItem(savedKey(batchId));
+  } catch {
+    // storage full or blocked: the link just won't survive a reload
+  }
+}
+
 /** Builds the batch's work sheet PDF on the server, shows how far it has got, then offers it. */
 export function WorksheetDownload({ batchId }: { batchId: string }) {
   const id = useId();
   const toast = useToast();
-  const [paper, setPaper] = useState<NonNullable<WorksheetRequest['paper']>>('A4');
-  const [jobId, setJobId] = useState<string | null>(null);
+  // the last work sheet built for this batch is remembered for the tab, so a reload keeps its link
+  const saved = readSaved(batchId);
+  const [paper, setPaper] = useState<NonNullable<WorksheetRequest['paper']>>(saved?.paper ?? 'A4');
+  const [jobId, setJobIdState] = useState<string | null>(saved?.jobId ?? null);
+  const setJobId = (next: string | null) => {
+    setJobIdState(next);
+    writeSaved(batchId, next ? { jobId: next, paper } : null);
+  };
   const start = useStartWorksheet();
   const job = useWorksheetJob(jobId);
   const j = job.data;
-  const building = !!jobId && (!j || j.state === 'running');
+  // a remembered sheet the server no longer has (a restart, an old tab): offer to build it again
+  const gone = job.isError && !j;
+  useEffect(() => {
+    if (gone) {
+      setJobIdState(null);
+      writeSaved(batchId, null);
+    }
+  }, [gone, batchId]);
+  const building = !!jobId && !gone && (!j || j.state === 'running');
   const onBuild = async () => {
     try {
       setJobId((await start.mutateAsync({ batchId, paper })).id);
