@@ -26,6 +26,8 @@ export const paths = {
     getHref: (query: { q?: string; occasion?: string; blank?: string; shop?: string; minPrice?: string; maxPrice?: string; sort?: string; page?: string } = {}) => withQuery('/search', query),
   },
   listing: { path: '/listings/:slug', getHref: (slug: string) => `/listings/${encodeURIComponent(slug)}` },
+  /** a listing's design on its blank, drawn by the server (server/features/listing-images) */
+  listingImage: { path: '/listing-images/:file', getHref: (slug: string, format: 'png' | 'webp' = 'png') => `/listing-images/${encodeURIComponent(slug)}.${format}` },
   shopPage: { path: '/shops/:slug', getHref: (slug: string) => `/shops/${encodeURIComponent(slug)}` },
   cart: { path: '/cart', getHref: () => '/cart' },
   orders: { path: '/orders', getHref: () => '/orders' },

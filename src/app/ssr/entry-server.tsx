@@ -13,7 +13,7 @@ import { blankFor } from '../../../shared/engine/listing-design.ts';
 import type { ListingPage } from '../../../shared/schemas/catalog.ts';
 import { OCCASION_LABELS } from '../../../shared/schemas/listing.ts';
 import { PREVIEW_NAME, type PreviewPieces, type SsrEntry, type SsrRenderInput, type SsrResult } from '../../../shared/ssr-contract.ts';
-import { DesignOnBlank, DesignPieces, pictureOfBlank } from '../../components/design/design-on-blank.tsx';
+import { DesignOnBlank, DesignPieces, pictureOfListingBlank } from '../../components/design/design-on-blank.tsx';
 import { ToastProvider } from '../../components/ui/toast.tsx';
 import { occasions, paths } from '../../config/paths.ts';
 import { authKeys } from '../../features/auth/api/keys.ts';
@@ -136,7 +136,7 @@ function previewInput(listing: ListingPage): ReturnType<SsrEntry['previewInput']
 /** The design on its blank as a standalone SVG document, through the one drawing of it. */
 function designSvg(listing: ListingPage, pieces: PreviewPieces): string {
   const markup = renderToStaticMarkup(
-    <DesignOnBlank blank={pictureOfBlank(blankFor(listing.content))} label={listing.content.title}>
+    <DesignOnBlank blank={pictureOfListingBlank(listing)} label={listing.content.title}>
       <DesignPieces pieces={pieces} />
     </DesignOnBlank>,
   );

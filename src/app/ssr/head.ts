@@ -4,6 +4,7 @@
  * schema.org Product JSON-LD with its offer. Pure: data in, HTML text out.
  */
 import { minorDigits } from '../../../shared/money.ts';
+import { stockKey } from '../../../shared/schemas/blanks.ts';
 import type { ListingPage, PublicShop } from '../../../shared/schemas/catalog.ts';
 import { paths } from '../../config/paths.ts';
 import { jsonForScript } from './query-state.ts';
@@ -14,7 +15,7 @@ export const DEFAULT_CARD = { path: '/social-card.png', width: 1200, height: 630
 export const DEFAULT_DESCRIPTION = "Personalised tote bags, kids' tees and pouches, cut in vinyl and pressed by hand by small craft studios. See the name to scale before it is cut.";
 
 /** The listing's social card: its design on its blank, rendered by the server (server/features/listing-images). */
-export const listingImagePath = (slug: string) => `/listing-images/${encodeURIComponent(slug)}.png`;
+export const listingImagePath = (slug: string) => paths.listingImage.getHref(slug, 'png');
 export const LISTING_IMAGE_SIZE = { width: 1200, height: 630 };
 
 export type PageMeta = {
@@ -101,12 +102,22 @@ export function productJsonLd(l: ListingPage, origin: string, extra: Record<stri
       url,
       price: decimalPrice(l.priceMinor, l.currency),
       priceCurrency: l.currency,
-      availability: 'https://schema.org/InStock',
+      availability: anyInStock(l) ? 'https://schema.org/InStock' : 'https://schema.org/OutOfStock',
       itemCondition: 'https://schema.org/NewCondition',
       seller: { '@type': 'Organization', name: l.shop.name, url: origin + paths.shopPage.getHref(l.shop.slug) },
     },
+    ...(l.rating.count > 0 ? { aggregateRating: { '@type': 'AggregateRating', ratingValue: l.rating.average, reviewCount: l.rating.count, bestRating: 5, worstRating: 1 } } : {}),
     ...extra,
   };
+}
+
+/** Made to order: in stock unless every size × colour the listing offers is sold out. */
+function anyInStock(l: ListingPage): boolean {
+  const o = l.blankOffer;
+  if (!o) return true;
+  const sizes = o.sizes.length ? o.sizes.map((s) => s.id) : [''];
+  const colours = o.colours.length ? o.colours.map((c) => c.id) : [''];
+  return sizes.some((s) => colours.some((c) => !o.soldOut.includes(stockKey(s, c))));
 }
 
 export function homeMeta(origin: string): PageMeta {

@@ -1,5 +1,7 @@
 import type { ReactNode } from 'react';
 import { type Blank, defaultBlank } from '../../../shared/engine/blanks.ts';
+import { blankFor } from '../../../shared/engine/listing-design.ts';
+import { offerColour, type ResolvedBlankOffer } from '../../../shared/schemas/blanks.ts';
 import { MM_PER_IN } from '../../../shared/units.ts';
 
 /**
@@ -32,6 +34,14 @@ export function pictureOfBlank(b: Pick<Blank, 'kind' | 'widthMm' | 'heightMm' | 
     printArea: { xMm: (b.widthMm - b.printArea.widthMm) / 2, yMm: b.topOffsetMm, widthMm: b.printArea.widthMm, heightMm: b.printArea.heightMm },
     colourHex: colourHex ?? null,
   };
+}
+
+/**
+ * A listing's blank as it is first shown (listing page, social image): the listing's print area, in
+ * the colour the shop shows first when the listing offers colours.
+ */
+export function pictureOfListingBlank(listing: { content: Parameters<typeof blankFor>[0]; blankOffer: Pick<ResolvedBlankOffer, 'colours' | 'defaultColourId'> | null }): BlankPicture {
+  return pictureOfBlank(blankFor(listing.content), offerColour(listing.blankOffer, listing.blankOffer?.defaultColourId)?.hex ?? null);
 }
 
 /** A blank kind alone (a listing card without a photo): the engine's default size and print area. */

@@ -1,6 +1,6 @@
 import { blankFor } from '../../../../shared/engine/listing-design.ts';
 import type { ListingPage } from '../../../../shared/schemas/catalog.ts';
-import { DesignOnBlank, DesignPieces, pictureOfBlank } from '../../../components/design/design-on-blank.tsx';
+import { DesignOnBlank, DesignPieces, pictureOfListingBlank } from '../../../components/design/design-on-blank.tsx';
 import { useListingPreview } from '../api/get-listing-preview.ts';
 
 /** The default name's design on the listing's blank, made by the server; a bare blank when there is none. */
@@ -8,7 +8,7 @@ export function ListingPreview({ listing, label }: { listing: ListingPage; label
   const pieces = useListingPreview(listing.slug).data;
   return (
     <div className="mx-auto w-full max-w-md" data-testid="listing-preview">
-      <DesignOnBlank blank={pictureOfBlank(blankFor(listing.content))} rulers label={label}>
+      <DesignOnBlank blank={pictureOfListingBlank(listing)} rulers label={label}>
         {pieces ? <DesignPieces pieces={pieces} /> : null}
       </DesignOnBlank>
     </div>
