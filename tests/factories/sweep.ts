@@ -48,7 +48,7 @@ export function listRoutes(app: Express): RouteEntry[] {
 }
 
 /** A digest of every table's rows (auth rate-limit bookkeeping and sessions excepted). */
-export function dbFingerprint(sqlite: Database.Database, skip: string[] = ['session', 'rate_limit', 'rateLimit', 'verification']): string {
+export function dbFingerprint(sqlite: Database.Database, skip: string[] = ['session', 'rate_limit', 'rateLimit', 'rate_limit_hits', 'verification']): string {
   const tables = (sqlite.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' order by name").all() as { name: string }[])
     .map((t) => t.name)
     .filter((n) => !skip.includes(n) && !n.startsWith('__drizzle'));
@@ -183,6 +183,8 @@ export async function makeSweepWorld() {
   if (photo.status !== 201) throw new Error(`upload: ${photo.status}`);
   const material = one<{ id: string }>(sqlite, 'select id from materials where shop_id = ? order by created_at limit 1', fernShop.id);
   const blankType = one<{ id: string }>(sqlite, 'select id from blank_types where shop_id = ? limit 1', fernShop.id);
+  const discountCode = one<{ id: string }>(sqlite, 'select id from discount_codes where shop_id = ? limit 1', fernShop.id);
+  const orderByDate = one<{ id: string }>(sqlite, 'select id from order_by_dates where shop_id = ? limit 1', fernShop.id);
   const liveListing = one<{ id: string; slug: string }>(sqlite, "select id, slug from listings where shop_id = ? and state = 'live' limit 1", fernShop.id);
 
   const danaOrders = all<{ id: string; number: string }>(sqlite, 'select id, number from orders where buyer_id = ? and shop_id = ? order by created_at', danaId, fernShop.id);
@@ -258,6 +260,8 @@ export async function makeSweepWorld() {
     upload: String(photo.body.upload.id),
     material: material.id,
     blankType: blankType.id,
+    discountCode: discountCode.id,
+    orderByDate: orderByDate.id,
     orderA: approved.order_id,
     orderB: danaOrders[danaOrders.length - 1]!.id,
     approvedLine: approved.id,
@@ -303,7 +307,7 @@ export async function makeSweepWorld() {
     q(`select * from account where user_id in (${inList(users.length)}) order by id`, ...users);
     q(`select id, user_id, expires_at from session where user_id in (${inList(users.length)}) order by id`, ...users);
     for (const tb of ['shops']) q(`select * from ${tb} where id in (${inList(shopIds.length)}) order by id`, ...shopIds);
-    for (const tb of ['materials', 'motifs', 'uploads', 'listings', 'cut_sheets', 'ledger', 'blank_types'])
+    for (const tb of ['materials', 'motifs', 'uploads', 'listings', 'cut_sheets', 'ledger', 'blank_types', 'discount_codes', 'order_by_dates'])
       q(`select * from ${tb} where shop_id in (${inList(shopIds.length)}) order by id`, ...shopIds);
     q('select s.* from blank_stock s join blank_types b on b.id = s.blank_type_id where b.shop_id = ? order by s.blank_type_id, s.size_id, s.colour_id', fernShop.id);
     q('select * from orders where buyer_id = ? or shop_id = ? order by id', danaId, fernShop.id);
@@ -315,6 +319,7 @@ export async function makeSweepWorld() {
     q('select * from checkouts where user_id = ? order by id', danaId);
     q('select m.* from order_messages m join orders o on o.id = m.order_id where o.buyer_id = ? or o.shop_id = ? order by m.id', danaId, fernShop.id);
     q('select * from reviews where shop_id = ? or author_id = ? order by id', fernShop.id, danaId);
+    q('select * from cart_shop_choices where shop_id = ? order by cart_id', fernShop.id);
     return h.digest('hex');
   };
 

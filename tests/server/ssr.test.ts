@@ -207,6 +207,26 @@ describe('a listing as a crawler reads it (no JavaScript)', () => {
     expect(product!.image).toContain(`${BASE}/listing-images/${FOX}.png`);
   });
 
+  it('when a listing has reviews, then its Product carries an AggregateRating with the page’s average and count', async () => {
+    // AggregateRating's own properties: https://schema.org/AggregateRating (ratingValue, reviewCount, bestRating, worstRating)
+    const slugs = t.db
+      .select({ slug: listings.slug })
+      .from(listings)
+      .all()
+      .map((l) => l.slug);
+    let checked = 0;
+    for (const slug of slugs) {
+      const api = await request(t.app).get(`/api/listings/${slug}`);
+      if (api.status !== 200) continue;
+      const [product] = jsonLd((await request(t.app).get(`/listings/${slug}`)).text);
+      if (api.body.rating.count > 0) {
+        expect(product?.aggregateRating).toEqual({ '@type': 'AggregateRating', ratingValue: api.body.rating.average, reviewCount: api.body.rating.count, bestRating: 5, worstRating: 1 });
+        checked++;
+      } else expect(product?.aggregateRating).toBeUndefined();
+    }
+    expect(checked).toBeGreaterThanOrEqual(2);
+  });
+
   it('when a listing is fetched, then the first paint has the design for the default name as SVG, and the page data for hydration', async () => {
     const html = (await request(t.app).get(`/listings/${FOX}`)).text;
     const preview = html.match(/<div[^>]*data-testid="listing-preview"[^>]*>(.*?)<\/div>/s)?.[1] ?? '';
