@@ -58,3 +58,13 @@ export function missingCharacters(text: string): string[] {
 
 /** "U+7F8E U+54B2": code points the way the proof screen names them. */
 export const codePoints = (chars: readonly string[]): string => chars.map((c) => `U+${c.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`).join(' ');
+
+/** The whole PDF once pdfkit has written it (call before `doc.end()`). */
+export function pdfBytes(doc: PDFKit.PDFDocument): Promise<Buffer> {
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  return new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+}

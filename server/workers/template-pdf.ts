@@ -15,7 +15,7 @@ import { z } from 'zod';
 import { cutOutline } from '../../shared/engine/cut-path.ts';
 import { formatPath, parsePathData, pathBBox, transformPath } from '../../shared/engine/path.ts';
 import { formatLength, MM_PER_IN } from '../../shared/units.ts';
-import { PDF_FONT, registerPdfFonts } from './pdf-fonts.ts';
+import { PDF_FONT, pdfBytes, registerPdfFonts } from './pdf-fonts.ts';
 import { PAPER_PT } from './worksheet-pdf.ts';
 
 /** PDF points per millimetre: 72 pt per inch ÷ 25.4 mm per inch. */
@@ -137,12 +137,7 @@ export async function buildTemplatePdf(raw: TemplateInput & { compress?: boolean
     info: { Title: `Placement template — order ${input.orderNumber}`, Creator: 'Namesake' },
   });
   registerPdfFonts(doc);
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
+  const done = pdfBytes(doc);
   const pa = input.printArea;
   // drawn as the blade cuts them: each piece's outer outline, not the overlapping font contours
   const pieces = input.pieces.map((p) => ({ path: parsePathData(cutOutline(p.d)), colour: p.colourHex }));

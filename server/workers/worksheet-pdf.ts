@@ -16,7 +16,7 @@ import { LimitError, MAX_WORKSHEET_PAGES } from '../../shared/engine/limits.ts';
 import { formatPath } from '../../shared/engine/path.ts';
 import type { PressCard } from '../../shared/engine/press-card.ts';
 import { formatLength, MM_PER_IN } from '../../shared/units.ts';
-import { codePoints, missingCharacters, PDF_FONT, registerPdfFonts } from './pdf-fonts.ts';
+import { codePoints, missingCharacters, PDF_FONT, pdfBytes, registerPdfFonts } from './pdf-fonts.ts';
 
 const PT_PER_MM = 72 / MM_PER_IN;
 /** PDF page sizes in points: ISO 216 A4 (210 × 297 mm) and ANSI Letter (8.5 × 11 in). */
@@ -385,12 +385,7 @@ export async function buildWorksheetPdf(input: WorksheetInput & { compress?: boo
     info: { Title: `${inp.shopName} — work sheet — ${inp.batchLabel}`, Author: inp.shopName, Creator: 'Namesake' },
   });
   registerPdfFonts(doc);
-  const chunks: Buffer[] = [];
-  doc.on('data', (c: Buffer) => chunks.push(c));
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)));
-    doc.on('error', reject);
-  });
+  const done = pdfBytes(doc);
 
   let pages = 0;
   const newPage = () => {
