@@ -19,6 +19,7 @@ test('a seller keeps each order together on the cut sheets and opens a placement
   expect(svg).toMatch(/<g id="order-labels" data-cut="no"/);
   expect(svg).toMatch(/data-group="NS-/);
   await page.screenshot({ path: info.outputPath('cut-sheet-order-groups.png'), fullPage: true });
+  const batchUrl = page.url();
   await sheet.getByRole('img').screenshot({ path: info.outputPath('cut-sheet-order-groups-sheet.png') });
 
   // an order's line links to its template (a PDF)
@@ -30,4 +31,9 @@ test('a seller keeps each order together on the cut sheets and opens a placement
   expect(res.headers()['content-type']).toBe('application/pdf');
   const fs = await import('node:fs');
   fs.writeFileSync(info.outputPath('placement-template.pdf'), await res.body());
+
+  // nothing was cut: discarding the batch gives its lines back to the queue (the specs after this one need them)
+  await page.goto(batchUrl);
+  await page.getByRole('button', { name: 'Discard this batch' }).click();
+  await expect(page.getByText(/Batch discarded; \d+ lines are approved/)).toBeVisible();
 });

@@ -25,12 +25,15 @@ test('a parent asks the shop a question on her order and reads the reply from th
   const shop = await (await browser.newContext()).newPage();
   await signIn(parent, demo.shopper);
 
-  // her newest order, from her orders
+  // her newest order from Fern & Fable Goods (other specs may have bought from other shops since)
   await parent.goto('/orders');
   await parent
+    .getByRole('listitem')
+    .filter({ hasText: 'Fern & Fable Goods' })
     .getByRole('link', { name: /NS-\d+/ })
     .first()
     .click();
+  await expect(parent.getByRole('heading', { level: 1 })).toContainText('Fern & Fable Goods');
   await expect(parent.getByRole('heading', { level: 1 })).toContainText('Your order from');
   const asked = Date.now();
   const box = parent.getByRole('region', { name: /^Messages with / });
