@@ -23,6 +23,8 @@ import path from 'node:path';
 // @ts-expect-error autocannon ships no type declarations; the few calls used are typed below
 import autocannonUntyped from 'autocannon';
 import { startBuiltApp, stopProcess, waitUntilUp } from '../scripts/lib/server-process.ts';
+import { DEMO_PASSWORD } from '../server/db/demo-accounts.ts';
+import { MAX_STOCK } from '../shared/schemas/blanks.ts';
 
 type AcRequest = { method?: string; path?: string; headers?: Record<string, string>; body?: string };
 type AcRequestStep = AcRequest & {
@@ -36,10 +38,36 @@ const autocannon = autocannonUntyped as (opts: AcOptions) => AcInstance & Promis
 
 const SECONDS = Number(process.env.BENCH_LOAD_SECONDS ?? 60);
 const SHOPPERS = 20;
+/** accounts the shoppers' connections take turns with: each stays under the per-account cart-add limit (60 a minute) */
+const ACCOUNTS = 100;
 const PASSWORD = 'bench-load-password-1';
 const NAMES = ['Mira', 'Theo', 'Anouk', 'Kai', 'Priya', 'Leon', 'Zoë', 'Bartholomew'];
 
 /** fetch with a cookie jar; returns the jar's Cookie header after the call */
+/**
+ * Fern's blanks get plenty of stock: every checkout holds an item until its payment page expires, so
+ * the demo's few totes would sell out in seconds and turn the rest of the run into refusals.
+ */
+async function stockUp(base: string): Promise<void> {
+  const signIn = await fetch(`${base}/api/auth/sign-in/email`, {
+    method: 'POST',
+    headers: { origin: base, 'content-type': 'application/json' },
+    body: JSON.stringify({ email: 'fern@namesake.test', password: DEMO_PASSWORD }),
+  });
+  if (!signIn.ok) throw new Error(`seller sign-in: ${signIn.status}`);
+  const cookie = signIn.headers
+    .getSetCookie()
+    .map((c) => c.split(';')[0])
+    .join('; ');
+  const headers = { origin: base, 'content-type': 'application/json', cookie };
+  const { blankTypes } = (await (await fetch(`${base}/api/seller/blanks`, { headers })).json()) as { blankTypes: Array<{ id: string; sizes: Array<{ id: string }>; colours: Array<{ id: string }> }> };
+  for (const b of blankTypes) {
+    const rows = b.sizes.flatMap((sz) => b.colours.map((c) => ({ sizeId: sz.id, colourId: c.id, quantity: MAX_STOCK, lowStock: 3 })));
+    const res = await fetch(`${base}/api/seller/blanks/${b.id}/stock`, { method: 'PUT', headers, body: JSON.stringify({ rows }) });
+    if (!res.ok) throw new Error(`stock: ${res.status} ${await res.text()}`);
+  }
+}
+
 async function signedInCookie(base: string, i: number): Promise<string> {
   const res = await fetch(`${base}/api/auth/sign-up/email`, {
     method: 'POST',
@@ -98,7 +126,8 @@ async function runOnce(workers: number): Promise<RunResult> {
       content: { personalisation: { textFields: Array<{ id: string; defaultFontId: string; defaultLetterHeightMm: number }>; motifChoices: Array<{ motifId: string }> } };
     };
     const field = fox.content.personalisation.textFields[0]!;
-    const cookies = await Promise.all(Array.from({ length: SHOPPERS }, (_, i) => signedInCookie(base, i)));
+    const cookies = await Promise.all(Array.from({ length: ACCOUNTS }, (_, i) => signedInCookie(base, i)));
+    await stockUp(base);
 
     const all: Stats[] = [];
     const track = (kind: string): Stats => {
@@ -177,7 +206,7 @@ async function runOnce(workers: number): Promise<RunResult> {
           method: 'POST',
           path: '/api/cart/lines',
           setupRequest: (req, ctx) => {
-            ctx.cookie ??= cookies[cookieSeq++ % cookies.length];
+            ctx.cookie = cookies[cookieSeq++ % cookies.length];
             const name = NAMES[Math.floor(Math.random() * NAMES.length)];
             const choices = {
               texts: { [field.id]: { text: name, fontId: field.defaultFontId, letterHeightMm: field.defaultLetterHeightMm } },

@@ -27,7 +27,10 @@ export const paths = {
   },
   listing: { path: '/listings/:slug', getHref: (slug: string) => `/listings/${encodeURIComponent(slug)}` },
   /** a listing's design on its blank, drawn by the server (server/features/listing-images) */
-  listingImage: { path: '/listing-images/:file', getHref: (slug: string, format: 'png' | 'webp' = 'png') => `/listing-images/${encodeURIComponent(slug)}.${format}` },
+  listingImage: {
+    path: '/listing-images/:file',
+    getHref: (slug: string, format: 'png' | 'webp' = 'png', size: 'social' | 'card' = 'social') => `/listing-images/${encodeURIComponent(slug)}${size === 'card' ? '.card' : ''}.${format}`,
+  },
   shopPage: { path: '/shops/:slug', getHref: (slug: string) => `/shops/${encodeURIComponent(slug)}` },
   cart: { path: '/cart', getHref: () => '/cart' },
   orders: { path: '/orders', getHref: () => '/orders' },

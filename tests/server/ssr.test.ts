@@ -409,7 +409,15 @@ describe("a listing's picture (design on its blank, by sharp)", () => {
     expect(await sharp(res.body as Buffer).metadata()).toMatchObject({ format: 'webp', width: 1200, height: 630 });
   });
 
-  it.each([['no-such-listing.png'], ['../secret.png'], [`${FOX}.gif`]])('when %s is asked for, then 404', async (file) => {
+  it('when the browse card is fetched, then a 480 × 360 WebP that differs from the social card', async () => {
+    const res = await request(t.app).get(`/listing-images/${FOX}.card.webp`).buffer(true);
+    expect(res.status).toBe(200);
+    expect(await sharp(res.body as Buffer).metadata()).toMatchObject({ format: 'webp', width: 480, height: 360 });
+    const social = await request(t.app).get(`/listing-images/${FOX}.webp`);
+    expect(res.headers.etag).not.toBe(social.headers.etag);
+  });
+
+  it.each([['no-such-listing.png'], ['../secret.png'], [`${FOX}.gif`], [`${FOX}.card.gif`], [`${FOX}.thumb.webp`]])('when %s is asked for, then 404', async (file) => {
     expect((await request(t.app).get(`/listing-images/${file}`)).status).toBe(404);
   });
 });

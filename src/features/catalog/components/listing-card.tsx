@@ -12,7 +12,7 @@ export function ListingCard({ item, headingLevel = 3, eager = false }: { item: C
     <article className="group relative flex h-full flex-col overflow-hidden rounded-lg border border-line bg-white shadow-sm transition-shadow focus-within:shadow-md hover:shadow-md">
       <div className="aspect-[4/3] bg-paper-deep">
         {/* the design on its blank in the shop's first colour, drawn by the server and cached by content */}
-        <img src={paths.listingImage.getHref(item.slug, 'webp')} alt="" width={1200} height={630} loading={eager ? 'eager' : 'lazy'} className="size-full object-cover" />
+        <img src={paths.listingImage.getHref(item.slug, 'webp', 'card')} alt="" width={480} height={360} loading={eager ? 'eager' : 'lazy'} className="size-full object-cover" />
       </div>
       <div className="flex flex-1 flex-col gap-1.5 p-4">
         <Heading className="text-lg leading-snug font-extrabold">
