@@ -17,9 +17,12 @@ test('a parent picks 4T in grey, moves up a size for a long name, changes a pale
   const colour = form.getByRole('group', { name: 'Tee colour' });
   const price = page.getByTestId('price');
 
+  // no size is picked for her: Add to cart waits and says why
+  await form.getByLabel('Name', { exact: true }).fill('Bartholomew');
+  await expect(form.getByRole('button', { name: /Add to cart/ })).toBeDisabled();
+  await expect(form.getByText('Not yet: Size: Pick a size.')).toBeVisible();
   await size.getByRole('radio', { name: '4T' }).check({ force: true });
   await colour.getByRole('radio', { name: 'Heather grey' }).check({ force: true });
-  await form.getByLabel('Name', { exact: true }).fill('Bartholomew');
   await expect(page.getByTestId('chosen-blank')).toHaveText('Size: 4T · Heather grey');
 
   // the fit at 4T: too small, and the size that takes it is named

@@ -101,6 +101,8 @@ test.describe('on a phone', () => {
     const occasion = page.getByLabel('Occasion', { exact: true });
     await expect(occasion).toBeHidden();
     const toggle = page.getByRole('button', { name: 'Filters and sort (1 set)' });
+    // the page arrives rendered by the server: the button works once React has taken it over
+    await expect(page.locator('html[data-hydrated="true"]')).toHaveCount(1);
     await toggle.tap();
     await expect(occasion).toBeVisible();
     await expect(occasion).toHaveValue('autumn-harvest');

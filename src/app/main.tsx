@@ -1,6 +1,6 @@
 import '@fontsource-variable/nunito';
 import './index.css';
-import { StrictMode, startTransition } from 'react';
+import { StrictMode, startTransition, useEffect } from 'react';
 import { createRoot, hydrateRoot } from 'react-dom/client';
 import { matchRoutes, RouterProvider } from 'react-router-dom';
 import { queryClient } from '../lib/query-client.ts';
@@ -34,9 +34,18 @@ if (stateEl?.textContent) {
   createRoot(root).render(app());
 }
 
+/** Marks the page live once React has taken over the server's HTML (browser tests wait for it before tapping). */
+function MarkHydrated() {
+  useEffect(() => {
+    document.documentElement.dataset.hydrated = 'true';
+  }, []);
+  return null;
+}
+
 function app() {
   return (
     <StrictMode>
+      <MarkHydrated />
       <AppProviders>
         <RouterProvider router={createAppRouter()} />
       </AppProviders>

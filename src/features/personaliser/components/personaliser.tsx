@@ -73,7 +73,7 @@ export default function Personaliser({ listing, addToCart, cartHref }: Personali
   const fontInfos = fonts.data ?? [];
   const bb = preview.placement?.bboxMm;
   const size = bb ? { w: bb.maxX - bb.minX, h: bb.maxY - bb.minY } : null;
-  const blocker = addToCartBlocker(listing.content, choices, preview.placement);
+  const blocker = addToCartBlocker(listing.content, choices, preview.placement, design.offer);
   const previewLabel = `Preview on the ${blank.name.toLowerCase()}${texts ? `: ${texts}` : ''}${size ? `, design ${formatSize(size.w, size.h)}` : ''}`;
 
   return (
